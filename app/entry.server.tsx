@@ -1,0 +1,77 @@
+import crypto from "node:crypto";
+import { PassThrough } from "node:stream";
+import { createReadableStreamFromReadable } from "@react-router/node";
+import { isbot } from "isbot";
+import type { RenderToPipeableStreamOptions } from "react-dom/server";
+import { renderToPipeableStream } from "react-dom/server";
+import { ServerRouter, type EntryContext, type HandleDataRequestFunction } from "react-router";
+import { NonceProvider } from "./components/nonce";
+import { securityHeaders } from "./utils/security-headers.server";
+
+export const streamTimeout = 5_000;
+
+const production = process.env.NODE_ENV === "production";
+
+function applyHeaders(headers: Headers, nonce: string) {
+  for (const [name, value] of Object.entries(securityHeaders({ nonce, production }))) {
+    if (name === "Cache-Control" && headers.has(name)) continue;
+    headers.set(name, value);
+  }
+}
+
+export const handleDataRequest: HandleDataRequestFunction = (response) => {
+  applyHeaders(response.headers, "");
+  return response;
+};
+
+export default function handleRequest(
+  request: Request,
+  responseStatusCode: number,
+  responseHeaders: Headers,
+  routerContext: EntryContext,
+) {
+  const nonce = crypto.randomBytes(16).toString("base64");
+  applyHeaders(responseHeaders, nonce);
+
+  if (request.method.toUpperCase() === "HEAD") {
+    return new Response(null, { status: responseStatusCode, headers: responseHeaders });
+  }
+
+  return new Promise<Response>((resolve, reject) => {
+    let shellRendered = false;
+    const userAgent = request.headers.get("user-agent");
+    const readyOption: keyof RenderToPipeableStreamOptions =
+      (userAgent && isbot(userAgent)) || routerContext.isSpaMode ? "onAllReady" : "onShellReady";
+
+    let timeoutId: ReturnType<typeof setTimeout> | undefined = setTimeout(() => abort(), streamTimeout + 1000);
+
+    const { pipe, abort } = renderToPipeableStream(
+      <NonceProvider value={nonce}>
+        <ServerRouter context={routerContext} url={request.url} nonce={nonce} />
+      </NonceProvider>,
+      {
+        nonce,
+        [readyOption]() {
+          shellRendered = true;
+          const body = new PassThrough({
+            final(callback) {
+              clearTimeout(timeoutId);
+              timeoutId = undefined;
+              callback();
+            },
+          });
+          responseHeaders.set("Content-Type", "text/html");
+          pipe(body);
+          resolve(new Response(createReadableStreamFromReadable(body), { headers: responseHeaders, status: responseStatusCode }));
+        },
+        onShellError(error: unknown) {
+          reject(error);
+        },
+        onError(error: unknown) {
+          responseStatusCode = 500;
+          if (shellRendered) console.error(error);
+        },
+      },
+    );
+  });
+}

@@ -1,0 +1,240 @@
+// The plan input: what a builder enters for one seal plan on one engine, SI with units in names.
+// Messages are written for the builder reading them beside the field.
+import { z } from "zod";
+
+// z.number() in zod 4 already refuses NaN and ±Infinity; the message covers both.
+const num = (label: string) => z.number({ error: `${label} must be a finite number` });
+const positive = (label: string, max: number) =>
+  num(label).gt(0, `${label} must be greater than zero`).lte(max, `${label} must be at most ${max}`);
+const nonNegative = (label: string, max: number) =>
+  num(label).gte(0, `${label} cannot be negative`).lte(max, `${label} must be at most ${max}`);
+const between = (label: string, min: number, max: number) =>
+  num(label).gte(min, `${label} must be at least ${min}`).lte(max, `${label} must be at most ${max}`);
+
+export const GASKET_TYPES = ["solid-copper", "mls", "mls-with-ring", "fire-ring"] as const;
+export const TIGHTENING_METHODS = [
+  "torque-estimated-friction",
+  "torque-tested-friction",
+  "angle-or-yield",
+  "stretch-measured",
+] as const;
+export const ROUGHNESS = ["rz-under-10", "rz-10-40", "rz-40-160"] as const;
+
+export const StudSchema = z.object({
+  label: z.string().max(40).optional(),
+  serves: z
+    .array(
+      z.object({
+        cylinder: z.number().int("Cylinder numbers are whole numbers").gte(1, "Cylinder numbers start at 1"),
+        share: num("Stud share")
+          .gt(0, "A stud's share of a cylinder must be greater than zero")
+          .lte(1, "A stud's share cannot exceed 1"),
+      }),
+    )
+    .min(1, "Every stud must serve at least one cylinder"),
+});
+export type Stud = z.infer<typeof StudSchema>;
+
+const sleeveSchema = z.discriminatedUnion("kind", [
+  z.object({ kind: z.literal("none") }),
+  z.object({
+    kind: z.literal("dry"),
+    modulusMpa: positive("Sleeve modulus", 400_000),
+    wallMm: positive("Sleeve wall", 30),
+    yieldMpa: positive("Sleeve yield", 3000).optional(),
+  }),
+  z.object({
+    kind: z.enum(["wet-flange", "wet-mid"]),
+    modulusMpa: positive("Sleeve modulus", 400_000),
+    wallMm: positive("Sleeve wall", 30),
+    /** Distance from the sleeve top to the seat that carries the clamp. */
+    supportLengthMm: nonNegative("Sleeve support length", 300),
+    yieldMpa: positive("Sleeve yield", 3000).optional(),
+  }),
+]);
+
+export const PlanInputSchema = z
+  .object({
+    engine: z.object({
+      cylinders: z
+        .number()
+        .int("Cylinder count is a whole number")
+        .gte(1, "An engine has at least one cylinder")
+        .lte(16, "At most 16 cylinders"),
+      layout: z.enum(["inline", "V"]),
+      boreMm: positive("Bore", 300),
+    }),
+    studs: z.array(StudSchema).min(1, "Add at least one stud").max(80, "At most 80 studs"),
+    fastener: z.object({
+      diameterMm: positive("Thread diameter", 40),
+      pitchMm: positive("Thread pitch", 6),
+      reducedShankDiameterMm: positive("Reduced shank diameter", 40).optional(),
+      reducedShankLengthMm: nonNegative("Reduced shank length", 500).default(0),
+      /** Loaded thread inside the grip, both ends together. */
+      freeThreadLengthMm: nonNegative("Free thread length", 500),
+      engagementMm: positive("Thread engagement", 200),
+      modulusMpa: positive("Stud modulus", 400_000),
+      yieldMpa: positive("Stud yield strength", 3000),
+      expansionUmPerMC: positive("Stud expansion", 40),
+      washerOdMm: positive("Washer outer diameter", 100),
+      washerHoleMm: positive("Washer hole", 60),
+      washerThicknessMm: nonNegative("Washer thickness", 20).default(0),
+    }),
+    tightening: z.object({
+      target: z.discriminatedUnion("mode", [
+        z.object({ mode: z.literal("torque"), torqueNm: positive("Torque", 5000) }),
+        z.object({ mode: z.literal("preload"), preloadN: positive("Target preload", 2_000_000) }),
+      ]),
+      threadFriction: between("Thread friction", 0.02, 0.6),
+      bearingFriction: between("Bearing friction", 0.02, 0.6),
+      method: z.enum(TIGHTENING_METHODS),
+      /** Overrides the method's αA when the builder knows better. */
+      tighteningFactor: between("Tightening factor", 1, 4).optional(),
+    }),
+    head: z.object({
+      thicknessAtStudMm: positive("Head thickness at the stud", 400),
+      modulusMpa: positive("Head modulus", 400_000),
+      expansionUmPerMC: positive("Head expansion", 40),
+      limitingSurfacePressureMpa: positive("Head limiting surface pressure", 3000),
+      /** Yield of the head face under the seal line, when it is the softer material. */
+      yieldMpa: positive("Head yield", 3000).optional(),
+    }),
+    gasket: z.object({
+      type: z.enum(GASKET_TYPES),
+      compressedThicknessMm: positive("Gasket compressed thickness", 10),
+      /** Mean diameter of the seal-line contact band. */
+      sealDiameterMm: positive("Seal diameter", 400),
+      ringWidthMm: positive("Ring width", 30),
+      ringModulusMpa: positive("Ring modulus", 400_000),
+      /** Yield of the softest material in the seal line (ring, or the copper a wire bites into). */
+      sealLineYieldMpa: positive("Seal-line yield", 3000),
+      /** Effective modulus of the gasket body (much lower than the steel for embossed layers). */
+      bodyModulusMpa: positive("Gasket body modulus", 400_000),
+      bodyAreaPerBoreMm2: positive("Gasket body area per bore", 200_000),
+      expansionUmPerMC: positive("Gasket expansion", 40),
+      m: positive("Gasket factor m", 20),
+      yMpa: positive("Seating stress y", 1000),
+      /** Preload lost to gasket relaxation after heat cycles (copper), percent. */
+      relaxationPercent: between("Gasket relaxation", 0, 50).default(0),
+    }),
+    block: z.object({
+      modulusMpa: positive("Block modulus", 400_000),
+      expansionUmPerMC: positive("Block expansion", 40),
+      /** Depth from the deck to the first engaged thread: block material inside the grip. */
+      clampedDepthMm: nonNegative("Block depth to the engaged thread", 200).default(0),
+      /** Yield of the deck land under the ring (no sleeve), when known. */
+      yieldMpa: positive("Block yield", 3000).optional(),
+    }),
+    sleeve: sleeveSchema.default({ kind: "none" }),
+    sealing: z.object({
+      sleeveProtrusionMm: between("Sleeve protrusion", -0.5, 1),
+      wireProjectionMm: nonNegative("Wire projection", 2).default(0),
+      receiverGrooveDepthMm: nonNegative("Receiver groove depth", 2).default(0),
+    }),
+    surfaceRoughness: z.enum(ROUGHNESS).default("rz-10-40"),
+    firing: z.discriminatedUnion("mode", [
+      z.object({ mode: z.literal("entered"), peakPressureMpa: positive("Peak cylinder pressure", 100) }),
+      z.object({
+        mode: z.literal("estimated"),
+        manifoldAbsKpa: positive("Manifold absolute pressure", 1000),
+        compressionRatio: between("Compression ratio", 1.01, 30),
+        exponent: between("Compression exponent", 1, 1.4).default(1.3),
+        pressureRiseFactor: between("Pressure-rise factor", 1, 10),
+      }),
+    ]),
+    temperatures: z.object({
+      assemblyC: between("Assembly temperature", -40, 60),
+      headC: between("Head temperature", -40, 400),
+      blockC: between("Block temperature", -40, 400),
+      studC: between("Stud temperature", -40, 400),
+    }),
+    model: z
+      .object({
+        /** Marginal seal-line share below which more torque "mostly squeezes the head". */
+        shareThreshold: between("Share threshold", 0.05, 0.95).default(0.5),
+        /** Indentation limit of the seal line as a multiple of the softer material's yield. */
+        indentationFactor: between("Indentation factor", 1, 6).default(3),
+        /** Equivalent stress limit as a fraction of yield (VDI's usual 0.9). */
+        studLimitFraction: between("Stud limit fraction", 0.5, 1).default(0.9),
+      })
+      .default({ shareThreshold: 0.5, indentationFactor: 3, studLimitFraction: 0.9 }),
+  })
+  .superRefine((p, ctx) => checkPlan(p, ctx));
+
+export type PlanInput = z.infer<typeof PlanInputSchema>;
+/** What a form or API client may send (defaults not yet applied). */
+export type PlanInputRaw = z.input<typeof PlanInputSchema>;
+
+const fmt = (x: number) => String(Math.round(x * 1000) / 1000);
+
+/** Clamped stack length lK at the stud: washer, head, gasket and block above the thread. */
+export function gripLengthMm(p: Pick<PlanInput, "fastener" | "head" | "gasket" | "block">): number {
+  return (
+    p.fastener.washerThicknessMm + p.head.thicknessAtStudMm + p.gasket.compressedThicknessMm + p.block.clampedDepthMm
+  );
+}
+
+function checkPlan(p: PlanInput, ctx: z.RefinementCtx): void {
+  const issue = (path: (string | number)[], message: string) => ctx.addIssue({ code: "custom", path, message });
+  const f = p.fastener;
+  if (f.pitchMm >= f.diameterMm) issue(["fastener", "pitchMm"], "Thread pitch must be smaller than the diameter");
+  else if (f.pitchMm > f.diameterMm / 4)
+    issue(["fastener", "pitchMm"], `A ${fmt(f.pitchMm)} mm pitch is too coarse for a ${fmt(f.diameterMm)} mm thread`);
+  if (f.reducedShankDiameterMm !== undefined && f.reducedShankDiameterMm >= f.diameterMm)
+    issue(["fastener", "reducedShankDiameterMm"], "Reduced shank must be narrower than the thread");
+  if (f.reducedShankLengthMm > 0 && f.reducedShankDiameterMm === undefined)
+    issue(["fastener", "reducedShankDiameterMm"], "Give the reduced shank diameter, or set its length to zero");
+  if (f.washerHoleMm < f.diameterMm)
+    issue(["fastener", "washerHoleMm"], "Washer hole must be at least the stud diameter");
+  if (f.washerOdMm <= f.washerHoleMm)
+    issue(["fastener", "washerOdMm"], "Washer outer diameter must be larger than its hole");
+  const grip = gripLengthMm(p);
+  if (f.reducedShankLengthMm + f.freeThreadLengthMm > grip)
+    issue(
+      ["fastener", "freeThreadLengthMm"],
+      `Reduced shank and free thread add up to ${fmt(f.reducedShankLengthMm + f.freeThreadLengthMm)} mm, longer than the clamped stack (${fmt(grip)} mm)`,
+    );
+  const g = p.gasket;
+  if (g.sealDiameterMm - g.ringWidthMm < p.engine.boreMm)
+    issue(
+      ["gasket", "sealDiameterMm"],
+      `The seal band (diameter ${fmt(g.sealDiameterMm)} mm, width ${fmt(g.ringWidthMm)} mm) must sit outside the ${fmt(p.engine.boreMm)} mm bore`,
+    );
+  if (p.engine.layout === "V" && p.engine.cylinders % 2 !== 0)
+    issue(["engine", "cylinders"], "A V engine needs an even number of cylinders");
+  if (p.sleeve.kind !== "none" && p.sleeve.wallMm < g.ringWidthMm)
+    issue(["sleeve", "wallMm"], "The sleeve wall must be at least as wide as the ring that sits on it");
+  const served = new Set<number>();
+  p.studs.forEach((stud, i) => {
+    const name = stud.label ? `stud ${stud.label}` : `stud ${i + 1}`;
+    let sum = 0;
+    const seen = new Set<number>();
+    stud.serves.forEach((s, j) => {
+      sum += s.share;
+      if (s.cylinder > p.engine.cylinders)
+        issue(
+          ["studs", i, "serves", j, "cylinder"],
+          `${cap(name)} serves cylinder ${s.cylinder}, but the engine has ${p.engine.cylinders} cylinders`,
+        );
+      if (seen.has(s.cylinder)) issue(["studs", i, "serves", j, "cylinder"], `${cap(name)} lists cylinder ${s.cylinder} twice`);
+      seen.add(s.cylinder);
+      served.add(s.cylinder);
+    });
+    if (Math.abs(sum - 1) > 0.005)
+      issue(["studs", i, "serves"], `Stud shares for ${name} add up to ${fmt(sum)}; they must add up to 1`);
+  });
+  for (let c = 1; c <= p.engine.cylinders; c++) {
+    if (!served.has(c)) issue(["studs"], `No stud serves cylinder ${c}`);
+  }
+}
+
+const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+
+/** Parse raw plan input; on failure, plain messages keyed by field path. */
+export function parsePlan(
+  raw: unknown,
+): { ok: true; plan: PlanInput } | { ok: false; errors: { path: string; message: string }[] } {
+  const r = PlanInputSchema.safeParse(raw);
+  if (r.success) return { ok: true, plan: r.data };
+  return { ok: false, errors: r.error.issues.map((i) => ({ path: i.path.join("."), message: i.message })) };
+}

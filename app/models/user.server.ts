@@ -1,0 +1,91 @@
+import type { Knex } from "knex";
+import { db, now } from "~/utils/db.server";
+import { hashPassword } from "~/utils/password.server";
+
+export type Role = "owner" | "builder" | "viewer";
+export type Units = "metric" | "imperial";
+
+export interface UserRow {
+  id: number;
+  email: string;
+  name: string;
+  units: Units;
+}
+
+export interface MembershipRow {
+  teamId: number;
+  teamName: string;
+  role: Role;
+}
+
+const USER_COLUMNS = ["id", "email", "name", "units"] as const;
+
+export function normalizeEmail(email: string): string {
+  return email.trim().toLowerCase();
+}
+
+export async function getUserById(id: number): Promise<UserRow | null> {
+  return (await db()("users").select(USER_COLUMNS).where({ id }).first()) ?? null;
+}
+
+export async function getUserWithHashByEmail(email: string): Promise<(UserRow & { password_hash: string }) | null> {
+  const row = await db()("users")
+    .select([...USER_COLUMNS, "password_hash"])
+    .where({ email: normalizeEmail(email) })
+    .first();
+  return row ?? null;
+}
+
+export async function emailTaken(email: string): Promise<boolean> {
+  return Boolean(await db()("users").where({ email: normalizeEmail(email) }).first("id"));
+}
+
+// A new person and their own shop, of which they are the owner; one transaction.
+export async function createUserWithTeam(input: {
+  email: string;
+  name: string;
+  password: string;
+  teamName: string;
+}): Promise<{ user: UserRow; teamId: number }> {
+  const passwordHash = await hashPassword(input.password);
+  return db().transaction(async (trx) => {
+    const user = await insertUser(trx, { email: input.email, name: input.name, passwordHash });
+    const teamId = await insertTeam(trx, input.teamName);
+    await trx("memberships").insert({ user_id: user.id, team_id: teamId, role: "owner", created_at: now() });
+    await trx("audit_events").insert({ team_id: teamId, user_id: user.id, action: "team.created", created_at: now() });
+    return { user, teamId };
+  });
+}
+
+export async function insertUser(
+  trx: Knex,
+  input: { email: string; name: string; passwordHash: string; units?: Units },
+): Promise<UserRow> {
+  const [row] = await trx("users")
+    .insert({
+      email: normalizeEmail(input.email),
+      name: input.name.trim(),
+      password_hash: input.passwordHash,
+      units: input.units ?? "metric",
+      created_at: now(),
+    })
+    .returning(USER_COLUMNS);
+  return row as UserRow;
+}
+
+export async function insertTeam(trx: Knex, name: string): Promise<number> {
+  const [row] = await trx("teams").insert({ name: name.trim(), created_at: now() }).returning("id");
+  return (row as { id: number }).id;
+}
+
+export async function listMemberships(userId: number): Promise<MembershipRow[]> {
+  return db()("memberships as m")
+    .join("teams as t", "t.id", "m.team_id")
+    .where("m.user_id", userId)
+    .orderBy("t.name")
+    .select({ teamId: "t.id", teamName: "t.name", role: "m.role" });
+}
+
+export async function setUnits(userId: number, units: Units): Promise<void> {
+  await db()("users").where({ id: userId }).update({ units });
+}

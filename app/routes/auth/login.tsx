@@ -1,0 +1,48 @@
+import { data, Form, Link, redirect, useNavigation } from "react-router";
+import type { Route } from "./+types/login";
+import { AuthFrame } from "~/components/auth-frame";
+import { Button, Field, FormError } from "~/components/form";
+import { listMemberships } from "~/models/user.server";
+import { authenticator, getUser, safeRedirect, SignInError, startSession } from "~/utils/auth.server";
+
+export const meta: Route.MetaFunction = () => [{ title: "Sign in · Sealwright" }];
+
+export async function loader({ request }: Route.LoaderArgs) {
+  if (await getUser(request)) throw redirect("/dashboard");
+  return null;
+}
+
+export async function action({ request }: Route.ActionArgs) {
+  const redirectTo = safeRedirect(new URL(request.url).searchParams.get("redirectTo"));
+  const email = String((await request.clone().formData()).get("email") ?? "");
+  try {
+    const user = await authenticator.authenticate("form", request);
+    const [first] = await listMemberships(user.id);
+    return startSession(request, user.id, first?.teamId ?? null, redirectTo);
+  } catch (error) {
+    if (error instanceof SignInError) return data({ error: error.message, email }, { status: 400 });
+    throw error;
+  }
+}
+
+export default function Login({ actionData }: Route.ComponentProps) {
+  const busy = useNavigation().state === "submitting";
+  return (
+    <AuthFrame title="Sign in">
+      <Form method="post" className="space-y-4">
+        <FormError message={actionData?.error} />
+        <Field label="E-mail" name="email" type="email" autoComplete="email" required defaultValue={actionData?.email} />
+        <Field label="Password" name="password" type="password" autoComplete="current-password" required />
+        <Button type="submit" disabled={busy}>
+          {busy ? "Signing in…" : "Sign in"}
+        </Button>
+      </Form>
+      <p className="mt-6 text-sm">
+        New shop?{" "}
+        <Link className="text-copper-700 underline" to="/signup">
+          Create an account and a team
+        </Link>
+      </p>
+    </AuthFrame>
+  );
+}

@@ -1,0 +1,95 @@
+import { data, redirect } from "react-router";
+import { Authenticator } from "remix-auth";
+import { FormStrategy } from "remix-auth-form";
+import { getUserById, getUserWithHashByEmail, listMemberships, type MembershipRow, type Role, type UserRow } from "~/models/user.server";
+import { dummyPasswordHash, verifyPassword } from "./password.server";
+import { getSession, sessionStorage } from "./session.server";
+
+export const SIGN_IN_FAILED = "Wrong e-mail or password.";
+
+export class SignInError extends Error {}
+
+export const authenticator = new Authenticator<UserRow>();
+
+authenticator.use(
+  new FormStrategy(async ({ form }) => {
+    const email = String(form.get("email") ?? "");
+    const password = String(form.get("password") ?? "");
+    const user = email && password ? await getUserWithHashByEmail(email) : null;
+    // An unknown e-mail still costs one hash check, so timing does not tell which part was wrong.
+    const ok = await verifyPassword(user?.password_hash ?? (await dummyPasswordHash()), password);
+    if (!user || !ok) throw new SignInError(SIGN_IN_FAILED);
+    const { password_hash: _hash, ...plain } = user;
+    return plain;
+  }),
+  "form",
+);
+
+export interface Member {
+  user: UserRow;
+  team: { id: number; name: string };
+  role: Role;
+  memberships: MembershipRow[];
+}
+
+const ROLE_RANK: Record<Role, number> = { viewer: 0, builder: 1, owner: 2 };
+
+export function roleAtLeast(role: Role, needed: Role): boolean {
+  return ROLE_RANK[role] >= ROLE_RANK[needed];
+}
+
+function signInRedirect(request: Request): never {
+  const url = new URL(request.url);
+  const back = url.pathname + url.search;
+  throw redirect(`/login?redirectTo=${encodeURIComponent(back)}`);
+}
+
+/** The signed-in person, or null. */
+export async function getUser(request: Request): Promise<UserRow | null> {
+  const session = await getSession(request);
+  const userId = session.get("userId");
+  return userId ? getUserById(userId) : null;
+}
+
+/** The signed-in person and their current team; sends a signed-out visitor to sign-in and back. */
+export async function requireUser(request: Request): Promise<Member> {
+  const session = await getSession(request);
+  const userId = session.get("userId");
+  const user = userId ? await getUserById(userId) : null;
+  if (!user) signInRedirect(request);
+  const memberships = await listMemberships(user.id);
+  const current = memberships.find((m) => m.teamId === session.get("teamId")) ?? memberships[0];
+  if (!current) throw data("You are not a member of any shop.", { status: 403 });
+  return { user, team: { id: current.teamId, name: current.teamName }, role: current.role, memberships };
+}
+
+/** As requireUser, and throws 403 when the person's role in the current team is below `needed`. */
+export async function requireRole(request: Request, needed: Role): Promise<Member> {
+  const member = await requireUser(request);
+  if (!roleAtLeast(member.role, needed)) {
+    throw data(`This needs the ${needed} role; you are a ${member.role} in ${member.team.name}.`, { status: 403 });
+  }
+  return member;
+}
+
+/** A new session (new id) for this person; any session the request carried is destroyed. */
+export async function startSession(request: Request, userId: number, teamId: number | null, redirectTo: string) {
+  const storage = sessionStorage();
+  const old = await getSession(request);
+  if (old.id) await storage.destroySession(old);
+  const fresh = await storage.getSession();
+  fresh.set("userId", userId);
+  fresh.set("teamId", teamId);
+  return redirect(safeRedirect(redirectTo), { headers: { "Set-Cookie": await storage.commitSession(fresh) } });
+}
+
+export async function endSession(request: Request) {
+  const session = await getSession(request);
+  return redirect("/login", { headers: { "Set-Cookie": await sessionStorage().destroySession(session) } });
+}
+
+/** Only same-site paths; anything else goes to the dashboard. */
+export function safeRedirect(to: string | null | undefined, fallback = "/dashboard"): string {
+  if (!to || !to.startsWith("/") || to.startsWith("//") || to.startsWith("/\\")) return fallback;
+  return to;
+}

@@ -1,0 +1,34 @@
+import { z } from "zod";
+
+// Validated once at start-up; a bad value stops the server with a readable message.
+const EnvSchema = z.object({
+  NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+  DATABASE_PATH: z.string().min(1).default("data/sealwright.sqlite"),
+  // Signs the session cookie. When unset, a random secret is made and kept beside the database.
+  SESSION_SECRET: z.string().min(32, "SESSION_SECRET must be at least 32 characters").optional(),
+  // Idle and absolute session lifetimes (see docs/decisions/0002-sessions.md).
+  SESSION_IDLE_HOURS: z.coerce.number().positive().default(12),
+  SESSION_MAX_DAYS: z.coerce.number().positive().default(14),
+  // Secure cookies in production unless the shop serves plain HTTP on its own network.
+  COOKIE_SECURE: z.enum(["true", "false"]).optional(),
+});
+
+export type Env = z.infer<typeof EnvSchema>;
+
+let cached: Env | undefined;
+
+export function getEnv(): Env {
+  if (cached) return cached;
+  const parsed = EnvSchema.safeParse(process.env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`);
+    throw new Error(`Invalid environment:\n${lines.join("\n")}`);
+  }
+  cached = parsed.data;
+  return cached;
+}
+
+export function cookieIsSecure(env: Env = getEnv()): boolean {
+  if (env.COOKIE_SECURE) return env.COOKIE_SECURE === "true";
+  return env.NODE_ENV === "production";
+}

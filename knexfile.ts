@@ -1,0 +1,4 @@
+import { knexConfig } from "./app/utils/knex-config.server.ts";
+
+// Used by the knex CLI (npm run db:migrate / db:seed). The app builds the same config in db.server.ts.
+export default knexConfig(process.env.DATABASE_PATH ?? "data/sealwright.sqlite");

@@ -1,0 +1,29 @@
+import crypto from "node:crypto";
+import fs from "node:fs";
+import path from "node:path";
+import { afterAll, afterEach, beforeEach, vi } from "vitest";
+
+// Each test file gets its own copy of the migrated, seeded template database.
+const tmp = path.resolve("tests/.tmp");
+const file = path.join(tmp, `db-${process.pid}-${crypto.randomBytes(4).toString("hex")}.sqlite`);
+fs.copyFileSync(path.join(tmp, "template.sqlite"), file);
+process.env.DATABASE_PATH = file;
+process.env.NODE_ENV = "test";
+process.env.SESSION_SECRET ??= "test-secret-test-secret-test-secret-0123";
+
+// An unexpected console.error fails the test that caused it.
+let errorSpy: ReturnType<typeof vi.spyOn>;
+beforeEach(() => {
+  errorSpy = vi.spyOn(console, "error");
+});
+afterEach(() => {
+  const calls = errorSpy.mock.calls;
+  errorSpy.mockRestore();
+  if (calls.length > 0) throw new Error(`console.error was called: ${calls.map((c) => c.join(" ")).join("\n")}`);
+});
+
+afterAll(async () => {
+  const { closeDb } = await import("../../app/utils/db.server.ts");
+  await closeDb();
+  for (const suffix of ["", "-wal", "-shm"]) fs.rmSync(file + suffix, { force: true });
+});

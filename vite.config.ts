@@ -1,0 +1,23 @@
+import { reactRouter } from "@react-router/dev/vite";
+import tailwindcss from "@tailwindcss/vite";
+import { defineConfig } from "vitest/config";
+
+// One config for the app and for Vitest. Under Vitest the React Router plugin stays out:
+// unit and integration tests import modules directly and never build routes.
+const underVitest = Boolean(process.env.VITEST);
+
+export default defineConfig({
+  plugins: underVitest ? [] : [tailwindcss(), reactRouter()],
+  resolve: { tsconfigPaths: true },
+  server: { port: 3000 },
+  test: {
+    include: ["tests/**/*.test.ts"],
+    exclude: ["tests/e2e/**", "node_modules/**"],
+    environment: "node",
+    globalSetup: ["tests/setup/global-setup.ts"],
+    setupFiles: ["tests/setup/setup-file.ts"],
+    pool: "forks",
+    execArgv: ["--import", "tsx"],
+    testTimeout: 20_000,
+  },
+});
