@@ -1,0 +1,64 @@
+// The squeeze point: the torque past which more torque mostly compresses the head (ours, DESIGN.md).
+import type { Prepared } from "./model";
+
+export type SqueezeCause = "share" | "head-bearing" | "stud-yield";
+
+export interface SqueezePoint {
+  torqueNm: number;
+  cause: SqueezeCause;
+  explanation: string;
+}
+
+/** Index of the bore with the least clamp at equal stud preload (it reaches every threshold last). */
+export function leastClampedBore(p: Prepared): number {
+  let b = 0;
+  for (let i = 1; i < p.cylinders; i++) if (p.boreStudWeight[i] < p.boreStudWeight[b]) b = i;
+  return b;
+}
+
+/**
+ * Torque at each limit, from the closed forms (preload is linear in torque, stress and bearing
+ * pressure linear in preload, the seal split piecewise linear in clamp).
+ */
+export function squeezeTorques(p: Prepared): Record<SqueezeCause, number> {
+  const toTorque = (preloadN: number) => (preloadN * p.torquePerPreloadMm) / 1000;
+  // VDI 2230 tightening factor: Fmax = 2·αA/(1 + αA)·F
+  const maxOverNominal = (2 * p.tighteningFactor) / (1 + p.tighteningFactor);
+  // VDI 2230: σred(Fmax) = ν·Rp0.2
+  const studN = p.studLimitMpa / p.stressPerN.equivalent / maxOverNominal;
+  // VDI 2230: Fmax/Ap = limiting surface pressure pG
+  const bearingN = (p.plan.head.limitingSurfacePressureMpa * p.bearingAreaMm2) / maxOverNominal;
+  // ours: share falls under the threshold where the body touches (if k_r/(k_r+k_b) is under it) or the line flows
+  const threshold = p.plan.model.shareThreshold;
+  const clampAtShareDrop = p.contactShare < threshold ? Math.min(p.bodyTouchClampN, p.lineYieldClampN) : p.lineYieldClampN;
+  const bore = leastClampedBore(p);
+  const shareN = clampAtShareDrop / p.boreStudWeight[bore];
+  return { share: toTorque(shareN), "head-bearing": toTorque(bearingN), "stud-yield": toTorque(studN) };
+}
+
+const nm = (x: number) => `${x.toFixed(0)} N·m`;
+
+/** The first limit reached as torque rises, with a plain explanation. */
+export function squeezePoint(p: Prepared): SqueezePoint {
+  const t = squeezeTorques(p);
+  let cause: SqueezeCause = "share";
+  if (t["head-bearing"] < t[cause]) cause = "head-bearing";
+  if (t["stud-yield"] < t[cause]) cause = "stud-yield";
+  const torqueNm = t[cause];
+  const bore = leastClampedBore(p) + 1;
+  const threshold = Math.round(p.plan.model.shareThreshold * 100);
+  let explanation: string;
+  if (cause === "share") {
+    const yielded = p.contactShare >= p.plan.model.shareThreshold || p.lineYieldClampN <= p.bodyTouchClampN;
+    explanation = yielded
+      ? `Past ${nm(torqueNm)} the seal line on cylinder ${bore} reaches its indentation limit and stops taking load; added torque goes into the gasket body and the head.`
+      : `Past ${nm(torqueNm)} the gasket body touches on cylinder ${bore}; then only ${Math.round(p.contactShare * 100)} % of added clamp (under the ${threshold} % threshold) reaches the seal line, the rest squeezes the body and head.`;
+    if (torqueNm === 0)
+      explanation = `From the first turn, under ${threshold} % of added clamp reaches the seal line (it does not stand proud of the body): more torque mostly squeezes the body and head.`;
+  } else if (cause === "head-bearing") {
+    explanation = `Past ${nm(torqueNm)} the washer at the top of the preload band presses the head harder than its alloy's ${p.plan.head.limitingSurfacePressureMpa.toFixed(0)} MPa limit; more torque sinks the washer into the head.`;
+  } else {
+    explanation = `Past ${nm(torqueNm)} the stud at the top of the preload band passes ${Math.round(p.plan.model.studLimitFraction * 100)} % of its yield strength in equivalent stress.`;
+  }
+  return { torqueNm, cause, explanation };
+}
