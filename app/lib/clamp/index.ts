@@ -37,3 +37,4 @@ export {
 } from "./stiffness";
 export { asmeRequirement, splitClamp, unloadSealLine, effectiveGapMm, sealLineStiffness, gasketBodyStiffness } from "./seal";
 export { thermalPreloadChangeN, embeddingMm, embeddingLossN, EMBEDDING_UM, type Roughness } from "./thermal";
+export { HANDBOOK_MATERIALS, LIMITING_SURFACE_PRESSURE_MPA, FASTENER_CLASSES, ASME_GASKET_FACTORS, type HandbookMaterial } from "./handbook";

@@ -183,11 +183,12 @@ export function prepare(plan: PlanInput): Prepared {
     studComplianceMmPerN: stud.complianceMmPerN,
     memberComplianceMmPerN: member.complianceMmPerN,
   });
-  // VDI 2230 interfaces: two threads (nut, block), the nut face, and each inner joint of the stack
+  // VDI 2230 interfaces: two threads (nut, block), the nut face, and the inner joints
+  // head/gasket, gasket/deck, and washer/head when there is a washer
   const embedMm = embeddingMm(plan.surfaceRoughness, {
     threads: 2,
     bearings: 1,
-    innerInterfaces: layers.length,
+    innerInterfaces: 2 + (f.washerThicknessMm > 0 ? 1 : 0),
   });
 
   return {

@@ -1,0 +1,156 @@
+// The engine form: fields as typed in the person's units ⇄ the SI engine input.
+import type { Stud } from "../clamp/schema";
+import { EngineSchema, type EngineInput } from "./schema";
+import { fromDisplay, inputValue, type Quantity, type Units } from "./units";
+
+/** Numeric fields of the form and the quantity each is typed in (null: a plain number). */
+export const NUMBER_FIELDS = {
+  cylinders: null,
+  boreMm: "length",
+  strokeMm: "length",
+  rodLengthMm: "length",
+  headThicknessAtStudMm: "length",
+  blockDepthToThreadMm: "length",
+  sleeveWallMm: "length",
+  sleeveSupportLengthMm: "length",
+  sleeveProtrusionMm: "length",
+  targetManifoldKpa: "manifold",
+  peakPressureMpa: "peak",
+  pressureRiseFactor: null,
+  runningHeadC: "temperature",
+  runningBlockC: "temperature",
+  chamberCc: "volume",
+  pistonVolumeCc: "volume",
+  deckClearanceMm: "length",
+} as const satisfies Record<string, Quantity | null>;
+export type NumberField = keyof typeof NUMBER_FIELDS;
+
+const ID_FIELDS = ["blockMaterialId", "headMaterialId", "sleeveMaterialId"] as const;
+const TEXT_FIELDS = ["name", "customer", "layout", "sleeveKind", "fuel", "peakPressureSource", "status", "notes"] as const;
+
+/** One row of the stud editor, as typed. */
+export interface StudRow {
+  label: string;
+  cylinders: string;
+  shares: string;
+}
+
+/** What the form shows: every field as a string, plus the stud rows. */
+export interface EngineFormValues {
+  fields: Record<string, string>;
+  studs: StudRow[];
+  studsPerSide: string;
+}
+
+/** A typed number: blank → undefined, anything unreadable → NaN (the schema words both). */
+export function readNumber(raw: string | undefined): number | undefined {
+  const s = (raw ?? "").trim();
+  if (s === "") return undefined;
+  return Number(s);
+}
+
+/** "1 2", "1, 2" or "1;2" → numbers. */
+function splitList(raw: string): string[] {
+  return raw
+    .split(/[\s,;]+/)
+    .map((s) => s.trim())
+    .filter(Boolean);
+}
+
+/** A share as typed: "0.5", "½" or "1/3". */
+export function readShare(raw: string): number {
+  const vulgar: Record<string, number> = { "½": 1 / 2, "⅓": 1 / 3, "⅔": 2 / 3, "¼": 1 / 4, "¾": 3 / 4 };
+  if (raw in vulgar) return vulgar[raw]!;
+  const m = /^(\d+(?:\.\d+)?)\/(\d+(?:\.\d+)?)$/.exec(raw);
+  if (m) return Number(m[1]) / Number(m[2]);
+  return Number(raw);
+}
+
+/** A stud row as typed → a stud (numbers may be NaN; the schema reports them). Blank rows → null. */
+export function readStudRow(row: StudRow): Stud | null {
+  const cylinders = splitList(row.cylinders);
+  const shares = splitList(row.shares);
+  if (cylinders.length === 0 && shares.length === 0 && row.label.trim() === "") return null;
+  // Shares left blank: split evenly, as the default pattern does.
+  const serves = cylinders.map((c, j) => ({
+    cylinder: Number(c),
+    share: shares.length === 0 ? 1 / cylinders.length : shares[j] === undefined ? NaN : readShare(shares[j]!),
+  }));
+  const label = row.label.trim();
+  return label ? { label, serves } : { serves };
+}
+
+export function studToRow(stud: Stud): StudRow {
+  return {
+    label: stud.label ?? "",
+    cylinders: stud.serves.map((s) => String(s.cylinder)).join(" "),
+    shares: stud.serves.map((s) => formatShare(s.share)).join(" "),
+  };
+}
+
+export function formatShare(share: number): string {
+  return String(Number(share.toFixed(4)));
+}
+
+/** The posted form (name → value) → the raw engine input in SI, ready for EngineSchema. */
+export function formToRaw(form: Record<string, string>, studs: StudRow[], units: Units): Record<string, unknown> {
+  const raw: Record<string, unknown> = {};
+  for (const f of TEXT_FIELDS) raw[f] = form[f] ?? "";
+  for (const f of ID_FIELDS) raw[f] = readNumber(form[f]);
+  for (const [f, q] of Object.entries(NUMBER_FIELDS)) {
+    const n = readNumber(form[f]);
+    raw[f] = n === undefined || q === null ? n : fromDisplay(q, n, units);
+  }
+  // A sleeve's fields mean nothing without a sleeve.
+  if (raw.sleeveKind === "none") {
+    raw.sleeveMaterialId = raw.sleeveWallMm = raw.sleeveSupportLengthMm = undefined;
+  } else if (raw.sleeveKind !== "wet-mid") raw.sleeveSupportLengthMm = undefined;
+  raw.studs = studs.map(readStudRow).filter((s): s is Stud => s !== null);
+  return raw;
+}
+
+export type ParsedEngine =
+  | { ok: true; engine: EngineInput }
+  | { ok: false; errors: Record<string, string> };
+
+/** Parse the posted engine form; on failure, the first message per field path ("studs.3.serves"). */
+export function parseEngineForm(form: Record<string, string>, studs: StudRow[], units: Units): ParsedEngine {
+  const r = EngineSchema.safeParse(formToRaw(form, studs, units));
+  if (r.success) return { ok: true, engine: r.data };
+  const errors: Record<string, string> = {};
+  for (const issue of r.error.issues) errors[issue.path.map(String).join(".")] ??= issue.message;
+  return { ok: false, errors };
+}
+
+/** Stud rows out of posted fields named stud-<i>-label / -cylinders / -shares. */
+export function studRowsFromForm(form: Record<string, string>): StudRow[] {
+  const rows: StudRow[] = [];
+  for (let i = 0; i < 200; i++) {
+    const label = form[`stud-${i}-label`];
+    const cylinders = form[`stud-${i}-cylinders`];
+    const shares = form[`stud-${i}-shares`];
+    if (label === undefined && cylinders === undefined && shares === undefined) {
+      // rows are numbered without gaps by the form; stop at the first missing one
+      break;
+    }
+    rows.push({ label: label ?? "", cylinders: cylinders ?? "", shares: shares ?? "" });
+  }
+  return rows;
+}
+
+/** An engine as stored (SI) → what the form shows in the person's units. */
+export function engineToForm(e: Omit<EngineInput, "studs"> & { studs: Stud[] }, units: Units): EngineFormValues {
+  const fields: Record<string, string> = {};
+  for (const f of TEXT_FIELDS) fields[f] = String(e[f] ?? "");
+  for (const f of ID_FIELDS) fields[f] = e[f] === undefined || e[f] === null ? "" : String(e[f]);
+  for (const [f, q] of Object.entries(NUMBER_FIELDS) as [NumberField, Quantity | null][]) {
+    const v = e[f] as number | null | undefined;
+    fields[f] = v === undefined || v === null ? "" : q === null ? String(v) : inputValue(q, v, units);
+  }
+  return { fields, studs: e.studs.map(studToRow), studsPerSide: "" };
+}
+
+/** Short layout name: "I4", "V8". */
+export function layoutName(layout: "inline" | "V", cylinders: number): string {
+  return `${layout === "V" ? "V" : "I"}${cylinders}`;
+}

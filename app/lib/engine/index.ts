@@ -1,0 +1,5 @@
+// The engine record's pure parts: schema, form mapping, display units, words.
+export * from "./schema";
+export * from "./form";
+export * from "./labels";
+export * from "./units";

@@ -1,0 +1,130 @@
+// The engine record as a builder enters it, SI with units in names (mm, kPa, MPa, °C, cc).
+// Messages are written for the builder reading them beside the field.
+import { z } from "zod";
+import { StudSchema, type Stud } from "../clamp/schema";
+
+export const ENGINE_STATUSES = ["quoted", "in-build", "running", "retired"] as const;
+export type EngineStatus = (typeof ENGINE_STATUSES)[number];
+export const SLEEVE_KINDS = ["none", "dry", "wet-flange", "wet-mid"] as const;
+export type SleeveKind = (typeof SLEEVE_KINDS)[number];
+export const LAYOUTS = ["inline", "V"] as const;
+export const PEAK_SOURCES = ["measured", "estimated"] as const;
+
+/** Tolerance on a stud's shares adding up to 1 (the same rule the clamp model's plan input uses). */
+export const SHARE_TOLERANCE = 0.005;
+
+// A number the builder typed: missing and not-a-number get their own words.
+const num = (label: string, missing = `Give the ${label.toLowerCase()}`) =>
+  z.number({ error: (iss) => (iss.input === undefined ? missing : `${label} must be a number`) });
+const positive = (label: string, max: number, unit: string) =>
+  num(label).gt(0, `${label} must be greater than zero`).lte(max, `${label} must be at most ${max} ${unit}`);
+const between = (label: string, min: number, max: number, unit: string) =>
+  num(label)
+    .gte(min, `${label} must be at least ${min} ${unit}`)
+    .lte(max, `${label} must be at most ${max} ${unit}`);
+const materialId = (what: string) =>
+  z.number({ error: `Choose the ${what} material` }).int(`Choose the ${what} material`).positive(`Choose the ${what} material`);
+
+export const EngineSchema = z
+  .object({
+    name: z.string().trim().min(1, "Name the engine").max(120, "Keep the name under 120 characters"),
+    customer: z.string().trim().max(120, "Keep the customer under 120 characters").default(""),
+    cylinders: num("Cylinder count")
+      .int("Cylinder count is a whole number")
+      .gte(1, "An engine has at least one cylinder")
+      .lte(16, "At most 16 cylinders"),
+    layout: z.enum(LAYOUTS, "Pick inline or V"),
+    boreMm: positive("Bore", 300, "mm"),
+    strokeMm: positive("Stroke", 400, "mm"),
+    rodLengthMm: positive("Rod length", 1000, "mm").optional(),
+    blockMaterialId: materialId("block (deck)"),
+    headMaterialId: materialId("head"),
+    headThicknessAtStudMm: positive("Head thickness at the stud", 400, "mm"),
+    blockDepthToThreadMm: between("Block depth to the engaged thread", 0, 200, "mm").default(0),
+    sleeveKind: z.enum(SLEEVE_KINDS, "Pick a sleeve kind"),
+    sleeveMaterialId: materialId("sleeve").optional(),
+    sleeveWallMm: positive("Sleeve wall", 30, "mm").optional(),
+    sleeveSupportLengthMm: positive("Sleeve support length", 300, "mm").optional(),
+    sleeveProtrusionMm: between("Sleeve protrusion", -0.5, 1, "mm").default(0),
+    studs: z.array(StudSchema).min(1, "Add at least one stud").max(80, "At most 80 studs"),
+    fuel: z.string().trim().max(60, "Keep the fuel under 60 characters").default(""),
+    targetManifoldKpa: positive("Target manifold pressure", 1000, "kPa absolute"),
+    peakPressureMpa: positive("Peak cylinder pressure", 100, "MPa").optional(),
+    peakPressureSource: z.enum(PEAK_SOURCES, "Say whether the peak pressure is measured or estimated"),
+    pressureRiseFactor: between("Pressure-rise factor", 1, 10, "").default(3),
+    runningHeadC: between("Running head temperature", -40, 400, "°C").default(110),
+    runningBlockC: between("Running block temperature", -40, 400, "°C").default(95),
+    chamberCc: positive("Chamber volume", 500, "cc").optional(),
+    pistonVolumeCc: between("Piston volume", -200, 200, "cc").default(0),
+    deckClearanceMm: between("Deck clearance", -2, 5, "mm").default(0),
+    status: z.enum(ENGINE_STATUSES, "Pick a status"),
+    notes: z.string().max(4000, "Keep the notes under 4000 characters").default(""),
+  })
+  .superRefine((e, ctx) => checkEngine(e, ctx));
+
+export type EngineInput = z.infer<typeof EngineSchema>;
+export type EngineInputRaw = z.input<typeof EngineSchema>;
+
+const fmt = (x: number) => String(Math.round(x * 1000) / 1000);
+const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+
+function checkEngine(e: EngineInput, ctx: z.RefinementCtx): void {
+  const issue = (path: (string | number)[], message: string) => ctx.addIssue({ code: "custom", path, message });
+  if (e.layout === "V" && e.cylinders % 2 !== 0) issue(["cylinders"], "A V engine needs an even number of cylinders");
+  if (e.rodLengthMm !== undefined && e.rodLengthMm <= e.strokeMm / 2)
+    issue(["rodLengthMm"], `The rod must be longer than half the stroke (${fmt(e.strokeMm / 2)} mm)`);
+  if (e.sleeveKind !== "none") {
+    if (e.sleeveMaterialId === undefined) issue(["sleeveMaterialId"], "Choose the sleeve material");
+    if (e.sleeveWallMm === undefined) issue(["sleeveWallMm"], "Give the sleeve wall thickness");
+    if (e.sleeveKind === "wet-mid" && e.sleeveSupportLengthMm === undefined)
+      issue(["sleeveSupportLengthMm"], "A wet sleeve with mid support needs the support length (sleeve top to the seat)");
+  }
+  if (e.peakPressureSource === "measured" && e.peakPressureMpa === undefined)
+    issue(["peakPressureMpa"], "A measured peak pressure needs its value");
+  for (const i of studShareIssues(e.studs, e.cylinders)) issue(i.path, i.message);
+}
+
+/**
+ * The share rule for a stud pattern, the same as the clamp model's plan input applies:
+ * each stud's shares add up to 1 ± SHARE_TOLERANCE, its cylinders exist and are listed once,
+ * and every cylinder is served by some stud.
+ */
+export function studShareIssues(studs: Stud[], cylinders: number): { path: (string | number)[]; message: string }[] {
+  const out: { path: (string | number)[]; message: string }[] = [];
+  const served = new Set<number>();
+  studs.forEach((stud, i) => {
+    const name = studName(stud, i);
+    const seen = new Set<number>();
+    stud.serves.forEach((s, j) => {
+      if (s.cylinder > cylinders)
+        out.push({
+          path: ["studs", i, "serves", j, "cylinder"],
+          message: `${cap(name)} serves cylinder ${s.cylinder}, but the engine has ${cylinders} cylinders`,
+        });
+      if (seen.has(s.cylinder))
+        out.push({ path: ["studs", i, "serves", j, "cylinder"], message: `${cap(name)} lists cylinder ${s.cylinder} twice` });
+      seen.add(s.cylinder);
+      served.add(s.cylinder);
+    });
+    const sum = shareSum(stud);
+    if (Math.abs(sum - 1) > SHARE_TOLERANCE)
+      out.push({ path: ["studs", i, "serves"], message: `Stud shares for ${name} add up to ${fmt(sum)}; they must add up to 1` });
+  });
+  const missing: number[] = [];
+  for (let c = 1; c <= cylinders; c++) if (!served.has(c)) missing.push(c);
+  if (missing.length > 0)
+    out.push({ path: ["studs"], message: `No stud serves cylinder${missing.length > 1 ? "s" : ""} ${missing.join(", ")}` });
+  return out;
+}
+
+export function studName(stud: Stud, index: number): string {
+  return stud.label ? `stud ${stud.label}` : `stud ${index + 1}`;
+}
+
+export function shareSum(stud: Stud): number {
+  return stud.serves.reduce((sum, s) => sum + s.share, 0);
+}
+
+export function sharesAddUp(stud: Stud): boolean {
+  return Math.abs(shareSum(stud) - 1) <= SHARE_TOLERANCE;
+}

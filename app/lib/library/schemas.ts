@@ -1,0 +1,138 @@
+// The shop's library records, SI as stored, with messages written for the builder beside the field.
+import { z } from "zod";
+
+export const MATERIAL_KINDS = ["aluminium", "iron", "steel", "stainless", "copper", "other"] as const;
+export const THREAD_SYSTEMS = ["metric", "unified"] as const;
+export const LIBRARY_GASKET_TYPES = ["solid-copper", "mls", "mls-with-ring", "fire-ring"] as const;
+export const LIBRARY_KINDS = ["fasteners", "gaskets", "materials"] as const;
+export type LibraryKind = (typeof LIBRARY_KINDS)[number];
+
+export const MATERIAL_KIND_LABELS: Record<(typeof MATERIAL_KINDS)[number], string> = {
+  aluminium: "Aluminium",
+  iron: "Iron",
+  steel: "Steel",
+  stainless: "Stainless steel",
+  copper: "Copper",
+  other: "Other",
+};
+
+export const GASKET_TYPE_LABELS: Record<(typeof LIBRARY_GASKET_TYPES)[number], string> = {
+  "solid-copper": "Solid copper (wire ring optional)",
+  mls: "Multilayer steel",
+  "mls-with-ring": "Multilayer steel, ring in the sleeve",
+  "fire-ring": "Fire-ring style",
+};
+
+const num = (label: string) => z.number({ error: `Enter ${label.toLowerCase()} as a number` });
+const positive = (label: string, max: number, unit: string) =>
+  num(label)
+    .gt(0, `${label} must be greater than zero`)
+    .lte(max, `${label} looks too large (over ${max} ${unit})`);
+const nonNegative = (label: string, max: number, unit: string) =>
+  num(label).gte(0, `${label} cannot be negative`).lte(max, `${label} looks too large (over ${max} ${unit})`);
+const name = z.string().trim().min(1, "Give it a name the shop will recognise").max(120, "Keep the name under 120 characters");
+const text = (label: string, max: number) => z.string().trim().max(max, `Keep ${label} under ${max} characters`);
+
+export const MaterialSchema = z.object({
+  name,
+  kind: z.enum(MATERIAL_KINDS, "Pick what kind of material it is"),
+  modulusMpa: positive("Modulus", 400_000, "MPa"),
+  yieldMpa: positive("Yield strength", 3000, "MPa").nullable(),
+  expansionUmPerMC: positive("Expansion coefficient", 40, "µm/m·°C"),
+  limitingSurfacePressureMpa: positive("Limiting surface pressure", 3000, "MPa").nullable(),
+});
+export type MaterialInput = z.infer<typeof MaterialSchema>;
+
+export const FastenerSchema = z
+  .object({
+    name,
+    threadSystem: z.enum(THREAD_SYSTEMS, "Pick metric or unified inch thread"),
+    diameterMm: positive("Thread diameter", 40, "mm"),
+    pitchMm: positive("Thread pitch", 6, "mm"),
+    reducedShankDiameterMm: positive("Reduced shank diameter", 40, "mm").nullable(),
+    reducedShankLengthMm: nonNegative("Reduced shank length", 500, "mm"),
+    freeThreadLengthMm: nonNegative("Free thread length", 500, "mm"),
+    engagementMm: positive("Thread engagement", 200, "mm"),
+    materialId: z.number({ error: "Pick the stud material" }).int("Pick the stud material").positive("Pick the stud material"),
+    washerOdMm: positive("Washer outer diameter", 100, "mm"),
+    washerHoleMm: positive("Washer hole", 60, "mm"),
+    washerThicknessMm: nonNegative("Washer thickness", 20, "mm"),
+    makerTorqueNm: positive("Maker's torque", 5000, "N·m").nullable(),
+    makerLubricant: text("the lubricant", 120),
+    makerStages: text("the stages", 200),
+    makerStretchMm: positive("Maker's stretch figure", 5, "mm").nullable(),
+    threadFriction: num("Thread friction").gte(0.02, "Thread friction is at least 0.02").lte(0.6, "Thread friction is at most 0.6"),
+    bearingFriction: num("Bearing friction").gte(0.02, "Bearing friction is at least 0.02").lte(0.6, "Bearing friction is at most 0.6"),
+  })
+  .superRefine((f, ctx) => {
+    for (const issue of fastenerConsistency(f)) ctx.addIssue({ code: "custom", path: [issue.field], message: issue.message });
+  });
+export type FastenerInput = z.infer<typeof FastenerSchema>;
+
+export const GasketSchema = z
+  .object({
+    name,
+    type: z.enum(LIBRARY_GASKET_TYPES, "Pick the gasket type"),
+    compressedThicknessMm: positive("Compressed thickness", 10, "mm"),
+    boreMm: positive("Gasket bore", 300, "mm"),
+    sealDiameterMm: positive("Seal diameter", 400, "mm"),
+    ringWidthMm: positive("Ring width", 30, "mm"),
+    ringModulusMpa: positive("Ring modulus", 400_000, "MPa"),
+    sealLineYieldMpa: positive("Seal-line yield", 3000, "MPa"),
+    bodyModulusMpa: positive("Body modulus", 400_000, "MPa"),
+    bodyAreaPerBoreMm2: positive("Body area per bore", 200_000, "mm²"),
+    expansionUmPerMC: positive("Expansion coefficient", 40, "µm/m·°C"),
+    m: num("Gasket factor m").gt(0, "Gasket factor m must be greater than zero").lte(20, "Gasket factor m is at most 20"),
+    yMpa: positive("Seating stress y", 1000, "MPa"),
+    relaxationPercent: num("Relaxation").gte(0, "Relaxation cannot be negative").lte(50, "Relaxation is at most 50 %"),
+    finishMinRaUm: positive("Smoothest finish", 25, "µm Ra").nullable(),
+    finishMaxRaUm: positive("Roughest finish", 25, "µm Ra").nullable(),
+  })
+  .superRefine((g, ctx) => {
+    for (const issue of gasketConsistency(g)) ctx.addIssue({ code: "custom", path: [issue.field], message: issue.message });
+  });
+export type GasketInput = z.infer<typeof GasketSchema>;
+
+export interface ConsistencyIssue {
+  field: string;
+  message: string;
+}
+
+/** Checks across fastener fields: a thread, shank and washer that can exist. */
+export function fastenerConsistency(f: {
+  diameterMm: number;
+  pitchMm: number;
+  reducedShankDiameterMm: number | null;
+  reducedShankLengthMm: number;
+  washerOdMm: number;
+  washerHoleMm: number;
+}): ConsistencyIssue[] {
+  const out: ConsistencyIssue[] = [];
+  if (f.pitchMm >= f.diameterMm) out.push({ field: "pitchMm", message: "Thread pitch must be smaller than the diameter" });
+  if (f.reducedShankDiameterMm !== null && f.reducedShankDiameterMm >= f.diameterMm)
+    out.push({ field: "reducedShankDiameterMm", message: "Reduced shank must be narrower than the thread" });
+  if (f.reducedShankLengthMm > 0 && f.reducedShankDiameterMm === null)
+    out.push({ field: "reducedShankDiameterMm", message: "Give the reduced shank diameter, or set its length to zero" });
+  if (f.washerHoleMm < f.diameterMm) out.push({ field: "washerHoleMm", message: "Washer hole must be at least the stud diameter" });
+  if (f.washerOdMm <= f.washerHoleMm) out.push({ field: "washerOdMm", message: "Washer outer diameter must be larger than its hole" });
+  return out;
+}
+
+/** Checks across gasket fields: the seal band outside the gasket bore, a finish window that is a window. */
+export function gasketConsistency(g: {
+  boreMm: number;
+  sealDiameterMm: number;
+  ringWidthMm: number;
+  finishMinRaUm: number | null;
+  finishMaxRaUm: number | null;
+}): ConsistencyIssue[] {
+  const out: ConsistencyIssue[] = [];
+  if (g.sealDiameterMm - g.ringWidthMm <= g.boreMm)
+    out.push({
+      field: "sealDiameterMm",
+      message: "The seal band (seal diameter less ring width) must sit outside the gasket bore",
+    });
+  if (g.finishMinRaUm !== null && g.finishMaxRaUm !== null && g.finishMinRaUm > g.finishMaxRaUm)
+    out.push({ field: "finishMaxRaUm", message: "The roughest finish must be at least the smoothest" });
+  return out;
+}

@@ -1,0 +1,193 @@
+// Builds the clamp model's input from the shop's records (engine, plan, fastener, gasket, materials).
+// Pure: plain records in, PlanInputRaw out; the schema in app/lib/clamp validates it.
+import { compressionRatio } from "../chamber";
+import type { PlanInputRaw, Stud } from "../clamp";
+
+export interface MaterialRecord {
+  name: string;
+  modulusMpa: number;
+  yieldMpa: number | null;
+  expansionUmPerMC: number;
+  limitingSurfacePressureMpa: number | null;
+}
+
+export interface FastenerRecord {
+  diameterMm: number;
+  pitchMm: number;
+  reducedShankDiameterMm: number | null;
+  reducedShankLengthMm: number;
+  freeThreadLengthMm: number;
+  engagementMm: number;
+  washerOdMm: number;
+  washerHoleMm: number;
+  washerThicknessMm: number;
+  material: MaterialRecord;
+}
+
+export interface GasketRecord {
+  type: "solid-copper" | "mls" | "mls-with-ring" | "fire-ring";
+  compressedThicknessMm: number;
+  boreMm: number;
+  sealDiameterMm: number;
+  ringWidthMm: number;
+  ringModulusMpa: number;
+  sealLineYieldMpa: number;
+  bodyModulusMpa: number;
+  bodyAreaPerBoreMm2: number;
+  expansionUmPerMC: number;
+  m: number;
+  yMpa: number;
+  relaxationPercent: number;
+}
+
+export interface EngineRecord {
+  cylinders: number;
+  layout: "inline" | "V";
+  boreMm: number;
+  strokeMm: number;
+  headThicknessAtStudMm: number;
+  blockDepthToThreadMm: number;
+  sleeveKind: "none" | "dry" | "wet-flange" | "wet-mid";
+  sleeveWallMm: number | null;
+  sleeveSupportLengthMm: number | null;
+  sleeveProtrusionMm: number;
+  studs: Stud[];
+  targetManifoldKpa: number | null;
+  peakPressureMpa: number | null;
+  pressureRiseFactor: number;
+  runningHeadC: number;
+  runningBlockC: number;
+  chamberCc: number | null;
+  pistonVolumeCc: number;
+  deckClearanceMm: number;
+}
+
+export interface PlanRecord {
+  torqueNm: number;
+  threadFriction: number;
+  bearingFriction: number;
+  method: "torque-estimated-friction" | "torque-tested-friction" | "angle-or-yield" | "stretch-measured";
+  wireLocation: "none" | "head" | "block";
+  wireProjectionMm: number;
+  receiverGrooveDepthMm: number;
+  sleeveProtrusionMm: number | null;
+}
+
+export interface PlanParts {
+  engine: EngineRecord;
+  plan: PlanRecord;
+  fastener: FastenerRecord;
+  gasket: GasketRecord;
+  head: MaterialRecord;
+  block: MaterialRecord;
+  sleeve: MaterialRecord | null;
+}
+
+const ASSEMBLY_C = 20;
+// Used only when the engine record has no chamber volume yet; the estimate says so.
+export const ASSUMED_COMPRESSION_RATIO = 9.5;
+const ATMOSPHERE_KPA = 101.325;
+
+/** Compression ratio of the engine with this gasket, or the assumed figure when the chamber is unknown. */
+export function engineCompressionRatio(engine: EngineRecord, gasket: Pick<GasketRecord, "boreMm" | "compressedThicknessMm">) {
+  if (!engine.chamberCc) return { ratio: ASSUMED_COMPRESSION_RATIO, assumed: true };
+  const result = compressionRatio({
+    boreMm: engine.boreMm,
+    strokeMm: engine.strokeMm,
+    chamberCc: engine.chamberCc,
+    gasketBoreMm: gasket.boreMm,
+    gasketThicknessMm: gasket.compressedThicknessMm,
+    deckClearanceMm: engine.deckClearanceMm,
+    pistonVolumeCc: engine.pistonVolumeCc,
+  });
+  return { ratio: result.compressionRatio, assumed: false };
+}
+
+export function assemblePlanInput(parts: PlanParts): PlanInputRaw {
+  const { engine, plan, fastener, gasket, head, block, sleeve } = parts;
+  const f = fastener;
+  const sleeved = engine.sleeveKind !== "none" && sleeve !== null;
+  return {
+    engine: { cylinders: engine.cylinders, layout: engine.layout, boreMm: engine.boreMm },
+    studs: engine.studs,
+    fastener: {
+      diameterMm: f.diameterMm,
+      pitchMm: f.pitchMm,
+      ...(f.reducedShankDiameterMm ? { reducedShankDiameterMm: f.reducedShankDiameterMm } : {}),
+      reducedShankLengthMm: f.reducedShankDiameterMm ? f.reducedShankLengthMm : 0,
+      freeThreadLengthMm: f.freeThreadLengthMm,
+      engagementMm: f.engagementMm,
+      modulusMpa: f.material.modulusMpa,
+      yieldMpa: f.material.yieldMpa ?? 0,
+      expansionUmPerMC: f.material.expansionUmPerMC,
+      washerOdMm: f.washerOdMm,
+      washerHoleMm: f.washerHoleMm,
+      washerThicknessMm: f.washerThicknessMm,
+    },
+    tightening: {
+      target: { mode: "torque", torqueNm: plan.torqueNm },
+      threadFriction: plan.threadFriction,
+      bearingFriction: plan.bearingFriction,
+      method: plan.method,
+    },
+    head: {
+      thicknessAtStudMm: engine.headThicknessAtStudMm,
+      modulusMpa: head.modulusMpa,
+      expansionUmPerMC: head.expansionUmPerMC,
+      // A head material without a listed limiting surface pressure is held to its yield.
+      limitingSurfacePressureMpa: head.limitingSurfacePressureMpa ?? head.yieldMpa ?? 0,
+      ...(head.yieldMpa ? { yieldMpa: head.yieldMpa } : {}),
+    },
+    gasket: {
+      type: gasket.type,
+      compressedThicknessMm: gasket.compressedThicknessMm,
+      sealDiameterMm: gasket.sealDiameterMm,
+      ringWidthMm: gasket.ringWidthMm,
+      ringModulusMpa: gasket.ringModulusMpa,
+      sealLineYieldMpa: gasket.sealLineYieldMpa,
+      bodyModulusMpa: gasket.bodyModulusMpa,
+      bodyAreaPerBoreMm2: gasket.bodyAreaPerBoreMm2,
+      expansionUmPerMC: gasket.expansionUmPerMC,
+      m: gasket.m,
+      yMpa: gasket.yMpa,
+      relaxationPercent: gasket.relaxationPercent,
+    },
+    block: {
+      modulusMpa: block.modulusMpa,
+      expansionUmPerMC: block.expansionUmPerMC,
+      clampedDepthMm: engine.blockDepthToThreadMm,
+      ...(block.yieldMpa ? { yieldMpa: block.yieldMpa } : {}),
+    },
+    sleeve: sleeved
+      ? engine.sleeveKind === "dry"
+        ? { kind: "dry", modulusMpa: sleeve.modulusMpa, wallMm: engine.sleeveWallMm ?? 0 }
+        : {
+            kind: engine.sleeveKind as "wet-flange" | "wet-mid",
+            modulusMpa: sleeve.modulusMpa,
+            wallMm: engine.sleeveWallMm ?? 0,
+            supportLengthMm: engine.sleeveSupportLengthMm ?? 0,
+          }
+      : { kind: "none" },
+    sealing: {
+      sleeveProtrusionMm: sleeved ? (plan.sleeveProtrusionMm ?? engine.sleeveProtrusionMm) : 0,
+      wireProjectionMm: plan.wireLocation === "none" ? 0 : plan.wireProjectionMm,
+      receiverGrooveDepthMm: plan.wireLocation === "none" ? 0 : plan.receiverGrooveDepthMm,
+    },
+    firing:
+      engine.peakPressureMpa && engine.peakPressureMpa > 0
+        ? { mode: "entered", peakPressureMpa: engine.peakPressureMpa }
+        : {
+            mode: "estimated",
+            manifoldAbsKpa: engine.targetManifoldKpa ?? ATMOSPHERE_KPA,
+            compressionRatio: engineCompressionRatio(engine, gasket).ratio,
+            pressureRiseFactor: engine.pressureRiseFactor,
+          },
+    temperatures: {
+      assemblyC: ASSEMBLY_C,
+      headC: engine.runningHeadC,
+      blockC: engine.runningBlockC,
+      // common practice: a head stud runs between the head and block temperatures
+      studC: (engine.runningHeadC + engine.runningBlockC) / 2,
+    },
+  };
+}

@@ -1,0 +1,55 @@
+// What the plan editor and the API show for one plan: the estimate, a torque sweep around the
+// plan's torque, and the uncertainty run. Pure; SI throughout (the page converts for display).
+import { evaluatePlan, prepare, squeezePoint, torqueSweep, uncertainty, type PlanInput, type PlanEstimate, type SqueezePoint } from "../clamp";
+
+export interface SweepRow {
+  torqueNm: number;
+  weakestMargin: number;
+  marginalShareWeakest: number;
+  studUtilizationMax: number;
+  bearingUtilizationMax: number;
+}
+
+export interface EstimateView {
+  torqueNm: number;
+  estimate: PlanEstimate;
+  sweep: SweepRow[];
+  /** The first limit as torque rises, wherever it falls (also outside the swept range). */
+  squeezePoint: SqueezePoint;
+  shareThreshold: number;
+  probabilityMarginBelowOne: number;
+  weakestMarginBand: { p5: number; p50: number; p95: number };
+}
+
+export const SWEEP_POINTS = 41;
+export const UNCERTAINTY_SAMPLES = 2000;
+// Fixed seed: the same plan always shows the same chance, so two views can be compared.
+const SEED = 20261201;
+
+/** The sweep runs from 40 % to 160 % of the plan's torque (never past 5000 N·m). */
+export function sweepRange(torqueNm: number): { fromNm: number; toNm: number } {
+  return { fromNm: torqueNm * 0.4, toNm: Math.min(5000, torqueNm * 1.6) };
+}
+
+export function estimateView(input: PlanInput): EstimateView {
+  const estimate = evaluatePlan(input);
+  const torqueNm = estimate.tightening.torqueNm;
+  const sweep = torqueSweep(input, { ...sweepRange(torqueNm), points: SWEEP_POINTS });
+  const run = uncertainty(input, { samples: UNCERTAINTY_SAMPLES, seed: SEED });
+  const limit = input.head.limitingSurfacePressureMpa;
+  return {
+    torqueNm,
+    estimate,
+    sweep: sweep.points.map((pt) => ({
+      torqueNm: pt.torqueNm,
+      weakestMargin: pt.weakestMargin,
+      marginalShareWeakest: pt.marginalShareWeakest,
+      studUtilizationMax: pt.studUtilizationMax,
+      bearingUtilizationMax: pt.bearingPressureMaxMpa / limit,
+    })),
+    squeezePoint: squeezePoint(prepare(input)),
+    shareThreshold: sweep.shareThreshold,
+    probabilityMarginBelowOne: run.probabilityMarginBelowOne,
+    weakestMarginBand: run.weakestMargin,
+  };
+}
