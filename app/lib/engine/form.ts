@@ -154,3 +154,14 @@ export function engineToForm(e: Omit<EngineInput, "studs"> & { studs: Stud[] }, 
 export function layoutName(layout: "inline" | "V", cylinders: number): string {
   return `${layout === "V" ? "V" : "I"}${cylinders}`;
 }
+
+/** "10 studs: 6 shared by two bores, 4 serving one bore". */
+export function patternSummary(studs: Stud[]): string {
+  const byCount = new Map<number, number>();
+  for (const s of studs) byCount.set(s.serves.length, (byCount.get(s.serves.length) ?? 0) + 1);
+  const parts = [...byCount.entries()]
+    .sort((a, b) => b[0] - a[0])
+    .map(([bores, n]) => (bores === 1 ? `${n} serving one bore` : `${n} shared by ${bores === 2 ? "two" : bores} bores`));
+  return `${studs.length} stud${studs.length === 1 ? "" : "s"}: ${parts.join(", ")}`;
+}
+

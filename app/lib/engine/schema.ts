@@ -60,7 +60,8 @@ export const EngineSchema = z
     status: z.enum(ENGINE_STATUSES, "Pick a status"),
     notes: z.string().max(4000, "Keep the notes under 4000 characters").default(""),
   })
-  .superRefine((e, ctx) => checkEngine(e, ctx));
+  // Run the cross-field checks even when a field failed, so the builder sees every problem at once.
+  .superRefine((e, ctx) => checkEngine(e, ctx), { when: () => true });
 
 export type EngineInput = z.infer<typeof EngineSchema>;
 export type EngineInputRaw = z.input<typeof EngineSchema>;
@@ -68,10 +69,14 @@ export type EngineInputRaw = z.input<typeof EngineSchema>;
 const fmt = (x: number) => String(Math.round(x * 1000) / 1000);
 const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
+const isNum = (v: unknown): v is number => typeof v === "number" && Number.isFinite(v);
+
+// May see a partly invalid record (see `when` above): every check first asks whether its fields are usable.
 function checkEngine(e: EngineInput, ctx: z.RefinementCtx): void {
   const issue = (path: (string | number)[], message: string) => ctx.addIssue({ code: "custom", path, message });
-  if (e.layout === "V" && e.cylinders % 2 !== 0) issue(["cylinders"], "A V engine needs an even number of cylinders");
-  if (e.rodLengthMm !== undefined && e.rodLengthMm <= e.strokeMm / 2)
+  if (e.layout === "V" && isNum(e.cylinders) && e.cylinders % 2 !== 0)
+    issue(["cylinders"], "A V engine needs an even number of cylinders");
+  if (isNum(e.rodLengthMm) && isNum(e.strokeMm) && e.rodLengthMm <= e.strokeMm / 2)
     issue(["rodLengthMm"], `The rod must be longer than half the stroke (${fmt(e.strokeMm / 2)} mm)`);
   if (e.sleeveKind !== "none") {
     if (e.sleeveMaterialId === undefined) issue(["sleeveMaterialId"], "Choose the sleeve material");
@@ -81,7 +86,9 @@ function checkEngine(e: EngineInput, ctx: z.RefinementCtx): void {
   }
   if (e.peakPressureSource === "measured" && e.peakPressureMpa === undefined)
     issue(["peakPressureMpa"], "A measured peak pressure needs its value");
-  for (const i of studShareIssues(e.studs, e.cylinders)) issue(i.path, i.message);
+  const studsUsable =
+    Array.isArray(e.studs) && e.studs.every((s) => s && Array.isArray(s.serves) && s.serves.every((v) => isNum(v?.cylinder) && isNum(v?.share)));
+  if (studsUsable && isNum(e.cylinders)) for (const i of studShareIssues(e.studs, e.cylinders)) issue(i.path, i.message);
 }
 
 /**

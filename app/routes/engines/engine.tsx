@@ -1,0 +1,83 @@
+import { isRouteErrorResponse, Link, NavLink, Outlet } from "react-router";
+import type { Route } from "./+types/engine";
+import { StatusBadge } from "~/components/engine-status";
+import { layoutName } from "~/lib/engine";
+import { requireEngine } from "~/models/engine.server";
+import { roleAtLeast, requireUser } from "~/utils/auth.server";
+
+export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.engine.name ?? "Engine"} · Sealwright` }];
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const { team, role } = await requireUser(request);
+  const engine = await requireEngine(team.id, params.engineId);
+  return { engine, role, canEdit: roleAtLeast(role, "builder") };
+}
+
+const TABS = [
+  { to: ".", label: "Overview", end: true },
+  { to: "plans", label: "Seal plans" },
+  { to: "chamber", label: "Chamber" },
+  { to: "assembly", label: "Assembly" },
+  { to: "runs", label: "Runs" },
+  { to: "files", label: "Files" },
+];
+
+export default function EngineLayout({ loaderData }: Route.ComponentProps) {
+  const { engine } = loaderData;
+  return (
+    <>
+      <p className="no-print mb-2 text-sm">
+        <Link to="/engines" className="text-copper-700 underline">
+          ← Engines
+        </Link>
+      </p>
+      <header className="mb-4 flex flex-wrap items-baseline gap-x-4 gap-y-1">
+        <h1 className="text-3xl font-bold">{engine.name}</h1>
+        <span className="text-lg text-forge-700">
+          {layoutName(engine.layout, engine.cylinders)}
+          {engine.customer ? ` · for ${engine.customer}` : ""}
+        </span>
+        <StatusBadge status={engine.status} />
+      </header>
+      <nav aria-label="Engine" className="no-print mb-6 border-b border-forge-300">
+        <ul className="-mb-px flex flex-wrap gap-1">
+          {TABS.map((tab) => (
+            <li key={tab.label}>
+              <NavLink
+                to={tab.to}
+                end={tab.end}
+                className={({ isActive }) =>
+                  `block border-b-2 px-3 py-2 text-base ${isActive ? "border-copper-600 font-bold text-forge-950" : "border-transparent text-forge-700 hover:text-forge-950"}`
+                }
+              >
+                {tab.label}
+              </NavLink>
+            </li>
+          ))}
+        </ul>
+      </nav>
+      <Outlet />
+    </>
+  );
+}
+
+export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  const notFound = isRouteErrorResponse(error) && error.status === 404;
+  return (
+    <div className="rounded border border-forge-300 bg-white p-6">
+      <h1 className="text-2xl font-bold">{notFound ? "No such engine" : "Something went wrong"}</h1>
+      <p className="mt-2 text-forge-700">
+        {notFound
+          ? "This shop has no engine at that address. It may have been archived, or it belongs to another shop."
+          : isRouteErrorResponse(error)
+            ? String(error.data)
+            : "The engine page could not be shown."}
+      </p>
+      <p className="mt-4">
+        <Link to="/engines" className="text-copper-700 underline">
+          Back to the engines
+        </Link>
+      </p>
+    </div>
+  );
+}
