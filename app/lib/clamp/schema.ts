@@ -156,8 +156,14 @@ export const PlanInputSchema = z
         indentationFactor: between("Indentation factor", 1, 6).default(3),
         /** Equivalent stress limit as a fraction of yield (VDI's usual 0.9). */
         studLimitFraction: between("Stud limit fraction", 0.5, 1).default(0.9),
+        /**
+         * "assembled": the squeeze share is dF_r/dF at assembly (DESIGN.md as written).
+         * "assembled-or-fired" (default): torque still counts as helping while it adds to the seal-line
+         * load left under firing, i.e. until the body carries enough to ride out the firing relief.
+         */
+        shareBasis: z.enum(["assembled", "assembled-or-fired"]).default("assembled-or-fired"),
       })
-      .default({ shareThreshold: 0.5, indentationFactor: 3, studLimitFraction: 0.9 }),
+      .default({ shareThreshold: 0.5, indentationFactor: 3, studLimitFraction: 0.9, shareBasis: "assembled-or-fired" }),
   })
   .superRefine((p, ctx) => checkPlan(p, ctx));
 

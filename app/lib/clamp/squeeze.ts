@@ -1,5 +1,6 @@
 // The squeeze point: the torque past which more torque mostly compresses the head (ours, DESIGN.md).
-import type { Prepared } from "./model";
+import { boreSeal } from "./cylinders";
+import { hotSettledPreload, type Prepared } from "./model";
 
 export type SqueezeCause = "share" | "head-bearing" | "stud-yield";
 
@@ -32,8 +33,32 @@ export function squeezeTorques(p: Prepared): Record<SqueezeCause, number> {
   const threshold = p.plan.model.shareThreshold;
   const clampAtShareDrop = p.contactShare < threshold ? Math.min(p.bodyTouchClampN, p.lineYieldClampN) : p.lineYieldClampN;
   const bore = leastClampedBore(p);
-  const shareN = clampAtShareDrop / p.boreStudWeight[bore];
-  return { share: toTorque(shareN), "head-bearing": toTorque(bearingN), "stud-yield": toTorque(studN) };
+  let shareNm = toTorque(clampAtShareDrop / p.boreStudWeight[bore]);
+  if (p.plan.model.shareBasis === "assembled-or-fired") {
+    // ours: under firing each added newton of clamp reaches the seal line in full until the body
+    // carries (1 − s)·relief hot and settled; only past that does the assembled share decide
+    shareNm = Math.max(shareNm, bufferTorque(p, bore, toTorque(studN) * 10));
+  }
+  return { share: shareNm, "head-bearing": toTorque(bearingN), "stud-yield": toTorque(studN) };
+}
+
+/** Torque at which the bore's hot, settled body load first covers (1 − s)·relief (bisection). */
+export function bufferTorque(p: Prepared, bore: number, ceilingNm: number): number {
+  const need = (1 - p.contactShare) * p.reliefPerBoreN;
+  const w = p.boreStudWeight[bore];
+  const covered = (T: number) => {
+    const F = (T * 1000) / p.torquePerPreloadMm;
+    return boreSeal(p, w * F, w * hotSettledPreload(p, F)).hot.bodyN >= need;
+  };
+  if (!covered(ceilingNm)) return ceilingNm;
+  let lo = 0;
+  let hi = ceilingNm;
+  for (let i = 0; i < 60; i++) {
+    const mid = (lo + hi) / 2;
+    if (covered(mid)) hi = mid;
+    else lo = mid;
+  }
+  return hi;
 }
 
 const nm = (x: number) => `${x.toFixed(0)} N·m`;
@@ -50,8 +75,9 @@ export function squeezePoint(p: Prepared): SqueezePoint {
   let explanation: string;
   if (cause === "share") {
     const yielded = p.contactShare >= p.plan.model.shareThreshold || p.lineYieldClampN <= p.bodyTouchClampN;
+    const fired = p.plan.model.shareBasis === "assembled-or-fired";
     explanation = yielded
-      ? `Past ${nm(torqueNm)} the seal line on cylinder ${bore} reaches its indentation limit and stops taking load; added torque goes into the gasket body and the head.`
+      ? `Past ${nm(torqueNm)} the seal line on cylinder ${bore} reaches its indentation limit and stops taking load; added torque goes into the gasket body and the head${fired ? ", and the body already carries enough to ride out firing" : ""}.`
       : `Past ${nm(torqueNm)} the gasket body touches on cylinder ${bore}; then only ${Math.round(p.contactShare * 100)} % of added clamp (under the ${threshold} % threshold) reaches the seal line, the rest squeezes the body and head.`;
     if (torqueNm === 0)
       explanation = `From the first turn, under ${threshold} % of added clamp reaches the seal line (it does not stand proud of the body): more torque mostly squeezes the body and head.`;

@@ -1,4 +1,5 @@
 // The engine form: fields as typed in the person's units ⇄ the SI engine input.
+import { defaultStudPattern } from "../clamp/pattern";
 import type { Stud } from "../clamp/schema";
 import { EngineSchema, type EngineInput } from "./schema";
 import { fromDisplay, inputValue, type Quantity, type Units } from "./units";
@@ -165,3 +166,78 @@ export function patternSummary(studs: Stud[]): string {
   return `${studs.length} stud${studs.length === 1 ? "" : "s"}: ${parts.join(", ")}`;
 }
 
+
+// ─── One post of the engine form ──────────────────────────────────────────────────────────
+
+/**
+ * What a post of the engine form asks for. Besides saving, the stud editor's buttons post the form
+ * back (so it works without JavaScript): "pattern" regenerates the studs from the layout,
+ * "add-stud" appends a blank row, "remove-stud:<i>" drops one.
+ */
+export type EngineFormStep =
+  | { step: "render"; values: EngineFormValues; errors: Record<string, string> }
+  | { step: "save"; engine: EngineInput; values: EngineFormValues }
+  | { step: "invalid"; values: EngineFormValues; errors: Record<string, string> };
+
+export function engineFormStep(form: Record<string, string>, units: Units): EngineFormStep {
+  const intent = form.intent ?? "save";
+  const values: EngineFormValues = { fields: {}, studs: studRowsFromForm(form), studsPerSide: form.studsPerSide ?? "" };
+  for (const [k, v] of Object.entries(form)) if (!k.startsWith("stud-") && k !== "intent") values.fields[k] = v;
+  if (intent === "pattern") {
+    const r = generateStudRows(values.fields.layout, values.fields.cylinders, values.studsPerSide);
+    if ("error" in r) return { step: "render", values, errors: { studsPerSide: r.error } };
+    return { step: "render", values: { ...values, studs: r.rows }, errors: {} };
+  }
+  if (intent === "add-stud") return { step: "render", values: { ...values, studs: [...values.studs, { label: "", cylinders: "", shares: "" }] }, errors: {} };
+  if (intent.startsWith("remove-stud:")) {
+    const i = Number(intent.slice("remove-stud:".length));
+    return { step: "render", values: { ...values, studs: values.studs.filter((_, j) => j !== i) }, errors: {} };
+  }
+  const parsed = parseEngineForm(values.fields, values.studs, units);
+  if (!parsed.ok) return { step: "invalid", values, errors: parsed.errors };
+  return { step: "save", engine: parsed.engine, values };
+}
+
+/** The default stud pattern as editor rows, or a message saying why it cannot be made. */
+export function generateStudRows(
+  layout: string | undefined,
+  cylindersRaw: string | undefined,
+  studsPerSideRaw: string | undefined,
+): { rows: StudRow[] } | { error: string } {
+  const cylinders = readNumber(cylindersRaw);
+  const perSide = readNumber(studsPerSideRaw);
+  if (layout !== "inline" && layout !== "V") return { error: "Pick inline or V first" };
+  if (cylinders === undefined || !Number.isInteger(cylinders) || cylinders < 1 || cylinders > 16)
+    return { error: "Give a cylinder count from 1 to 16 first" };
+  if (perSide !== undefined && (!Number.isInteger(perSide) || perSide < 2 || perSide > 20))
+    return { error: "Studs per side is a whole number from 2 to 20" };
+  try {
+    return { rows: defaultStudPattern(layout, cylinders, perSide).map(studToRow) };
+  } catch (e) {
+    return { error: e instanceof Error ? e.message : "That layout has no default pattern" };
+  }
+}
+
+/** Blank form for a new engine: an inline four with its default studs. */
+export function blankEngineForm(units: Units): EngineFormValues {
+  return {
+    fields: {
+      name: "",
+      customer: "",
+      cylinders: "4",
+      layout: "inline",
+      sleeveKind: "none",
+      peakPressureSource: "estimated",
+      status: "quoted",
+      sleeveProtrusionMm: "0",
+      blockDepthToThreadMm: "0",
+      deckClearanceMm: "0",
+      pistonVolumeCc: "0",
+      pressureRiseFactor: "3",
+      runningHeadC: inputValue("temperature", 110, units),
+      runningBlockC: inputValue("temperature", 95, units),
+    },
+    studs: defaultStudPattern("inline", 4).map(studToRow),
+    studsPerSide: "",
+  };
+}

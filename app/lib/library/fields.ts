@@ -1,0 +1,160 @@
+// The library forms: which fields each kind has, in what units they are typed, and how a posted
+// form turns into an SI record (or field errors). Pure: used by the route action and the form.
+import type { z } from "zod";
+import { fromSi, toSi, type Quantity, type UnitSystem } from "./quantities";
+import { FastenerSchema, GasketSchema, MaterialSchema, type LibraryKind } from "./schemas";
+
+export interface NumberField {
+  name: string;
+  label: string;
+  quantity: Quantity;
+  optional?: boolean;
+  hint?: string;
+  /** Typed in something other than the quantity's display unit (the pitch). */
+  special?: "pitch";
+}
+
+export const MATERIAL_NUMBER_FIELDS: NumberField[] = [
+  { name: "modulusMpa", label: "Modulus (Young's)", quantity: "modulus" },
+  { name: "yieldMpa", label: "Yield strength", quantity: "stress", optional: true, hint: "Leave empty when the material has no yield point (gray iron)." },
+  { name: "expansionUmPerMC", label: "Expansion coefficient", quantity: "expansion" },
+  {
+    name: "limitingSurfacePressureMpa",
+    label: "Limiting surface pressure",
+    quantity: "stress",
+    optional: true,
+    hint: "What the face can carry under a washer before it sinks in.",
+  },
+];
+
+export const FASTENER_GEOMETRY_FIELDS: NumberField[] = [
+  { name: "diameterMm", label: "Thread diameter", quantity: "length" },
+  { name: "pitchMm", label: "Pitch", quantity: "plain", special: "pitch", hint: "Metric: pitch in mm. Unified inch: threads per inch." },
+  { name: "reducedShankDiameterMm", label: "Reduced shank diameter", quantity: "length", optional: true, hint: "Empty for a full-shank stud." },
+  { name: "reducedShankLengthMm", label: "Reduced shank length", quantity: "length" },
+  { name: "freeThreadLengthMm", label: "Free thread in the grip", quantity: "length", hint: "Loaded thread between nut and block, both ends together." },
+  { name: "engagementMm", label: "Thread engagement in the block", quantity: "length" },
+  { name: "washerOdMm", label: "Washer outer diameter", quantity: "length" },
+  { name: "washerHoleMm", label: "Washer hole", quantity: "length" },
+  { name: "washerThicknessMm", label: "Washer thickness", quantity: "length" },
+];
+
+export const FASTENER_MAKER_FIELDS: NumberField[] = [
+  { name: "makerTorqueNm", label: "Maker's recommended torque", quantity: "torque", optional: true },
+  { name: "makerStretchMm", label: "Maker's stretch figure", quantity: "small-length", optional: true, hint: "Elongation at full torque, if the sheet gives one." },
+];
+
+export const FASTENER_FRICTION_FIELDS: NumberField[] = [
+  { name: "threadFriction", label: "Thread friction μG", quantity: "plain", hint: "About 0.10–0.14 with moly paste, 0.14–0.18 with engine oil." },
+  { name: "bearingFriction", label: "Bearing friction μK", quantity: "plain" },
+];
+
+export const GASKET_NUMBER_FIELDS: NumberField[] = [
+  { name: "compressedThicknessMm", label: "Compressed thickness", quantity: "length" },
+  { name: "boreMm", label: "Gasket bore", quantity: "length" },
+  { name: "sealDiameterMm", label: "Seal diameter (mean of the band)", quantity: "length" },
+  { name: "ringWidthMm", label: "Ring width", quantity: "length" },
+  { name: "ringModulusMpa", label: "Ring modulus", quantity: "modulus" },
+  { name: "sealLineYieldMpa", label: "Seal-line yield", quantity: "stress", hint: "The softest material in the seal line." },
+  { name: "bodyModulusMpa", label: "Body modulus (effective)", quantity: "modulus" },
+  { name: "bodyAreaPerBoreMm2", label: "Body area per bore", quantity: "area" },
+  { name: "expansionUmPerMC", label: "Expansion coefficient", quantity: "expansion" },
+  { name: "m", label: "Gasket factor m", quantity: "plain" },
+  { name: "yMpa", label: "Seating stress y", quantity: "stress" },
+  { name: "relaxationPercent", label: "Relaxation after heat cycles (%)", quantity: "plain" },
+  { name: "finishMinRaUm", label: "Smoothest finish", quantity: "roughness", optional: true },
+  { name: "finishMaxRaUm", label: "Roughest finish", quantity: "roughness", optional: true },
+];
+
+export const NUMBER_FIELDS: Record<LibraryKind, NumberField[]> = {
+  materials: MATERIAL_NUMBER_FIELDS,
+  fasteners: [...FASTENER_GEOMETRY_FIELDS, ...FASTENER_MAKER_FIELDS, ...FASTENER_FRICTION_FIELDS],
+  gaskets: GASKET_NUMBER_FIELDS,
+};
+
+const TEXT_FIELDS: Record<LibraryKind, string[]> = {
+  materials: ["name", "kind"],
+  fasteners: ["name", "threadSystem", "makerLubricant", "makerStages"],
+  gaskets: ["name", "type"],
+};
+
+const SCHEMAS = { materials: MaterialSchema, fasteners: FastenerSchema, gaskets: GasketSchema } as const;
+
+const MM_PER_IN = 25.4;
+
+/** Pitch as typed: mm for metric threads, threads per inch for unified. */
+export function pitchToMm(typed: number, threadSystem: string): number {
+  return threadSystem === "unified" ? MM_PER_IN / typed : typed;
+}
+export function pitchFromMm(pitchMm: number, threadSystem: string): number {
+  return threadSystem === "unified" ? MM_PER_IN / pitchMm : pitchMm;
+}
+
+function parseNumber(raw: string): number | null | typeof NaN {
+  const t = raw.trim().replace(/,/g, "");
+  if (t === "") return null;
+  return Number(t);
+}
+
+export type ParsedLibrary<K extends LibraryKind> =
+  | { ok: true; value: z.infer<(typeof SCHEMAS)[K]> }
+  | { ok: false; errors: Record<string, string> };
+
+/**
+ * A posted form (strings, in the person's units) → the SI record, or one message per field.
+ * Empty optional numbers become null; an empty required number is reported, not guessed.
+ */
+export function parseLibraryForm<K extends LibraryKind>(kind: K, form: Record<string, string>, units: UnitSystem): ParsedLibrary<K> {
+  const errors: Record<string, string> = {};
+  const out: Record<string, unknown> = {};
+  for (const f of TEXT_FIELDS[kind]) out[f] = form[f] ?? "";
+  if (kind === "fasteners") {
+    const id = (form.materialId ?? "").trim();
+    out.materialId = id === "" ? undefined : Number(id);
+  }
+  for (const field of NUMBER_FIELDS[kind]) {
+    const n = parseNumber(form[field.name] ?? "");
+    if (n === null) {
+      if (field.optional) out[field.name] = null;
+      else if (field.name === "reducedShankLengthMm" || field.name === "washerThicknessMm" || field.name === "relaxationPercent") out[field.name] = 0;
+      else errors[field.name] = `Enter the ${field.label.toLowerCase()}`;
+      continue;
+    }
+    if (!Number.isFinite(n)) {
+      errors[field.name] = `${field.label} must be a number`;
+      continue;
+    }
+    if (field.special === "pitch") {
+      if (n <= 0) errors[field.name] = "Thread pitch must be greater than zero";
+      else out[field.name] = pitchToMm(n, String(out.threadSystem));
+      continue;
+    }
+    out[field.name] = toSi(field.quantity, n, units);
+  }
+  const parsed = SCHEMAS[kind].safeParse(out);
+  if (!parsed.success) {
+    for (const issue of parsed.error.issues) {
+      const key = issue.path.map(String).join(".");
+      errors[key] ??= issue.message;
+    }
+  }
+  if (Object.keys(errors).length > 0 || !parsed.success) return { ok: false, errors };
+  return { ok: true, value: parsed.data as z.infer<(typeof SCHEMAS)[K]> };
+}
+
+/** A stored SI record → the strings the form shows, in the person's units. */
+export function formValues(kind: LibraryKind, record: Record<string, unknown>, units: UnitSystem): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const f of TEXT_FIELDS[kind]) out[f] = record[f] == null ? "" : String(record[f]);
+  if (kind === "fasteners") out.materialId = record.materialId == null ? "" : String(record.materialId);
+  for (const field of NUMBER_FIELDS[kind]) {
+    const v = record[field.name];
+    if (typeof v !== "number" || !Number.isFinite(v)) {
+      out[field.name] = "";
+      continue;
+    }
+    const shown = field.special === "pitch" ? pitchFromMm(v, String(record.threadSystem)) : fromSi(field.quantity, v, units);
+    out[field.name] = String(Number(shown.toPrecision(6)));
+  }
+  return out;
+}
