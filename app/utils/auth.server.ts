@@ -93,3 +93,15 @@ export function safeRedirect(to: string | null | undefined, fallback = "/dashboa
   if (!to || !to.startsWith("/") || to.startsWith("//") || to.startsWith("/\\")) return fallback;
   return to;
 }
+
+/** For JSON API routes: the signed-in member, or a 401 JSON answer (never a redirect). */
+export async function requireApiMember(request: Request): Promise<Member> {
+  try {
+    return await requireUser(request);
+  } catch (thrown) {
+    if (thrown instanceof Response && thrown.status === 302) {
+      throw Response.json({ error: "Sign in first: this API needs a session." }, { status: 401 });
+    }
+    throw thrown;
+  }
+}

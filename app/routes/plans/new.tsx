@@ -1,0 +1,75 @@
+import { data, Form, redirect } from "react-router";
+import type { Route } from "./+types/new";
+import { Caution } from "~/components/caution";
+import { Button, FormError } from "~/components/form";
+import { PlanFields } from "~/components/plan-form";
+import { parsePlanForm, planFormValues } from "~/lib/plan/form";
+import { formatQuantity } from "~/lib/units";
+import { requireEngine } from "~/models/engine.server";
+import { createPlan, planChoices } from "~/models/plan.server";
+import { requireRole } from "~/utils/auth.server";
+import { previewPlan } from "~/utils/plan-actions.server";
+import { flashToast } from "~/utils/toast.server";
+
+export const meta: Route.MetaFunction = () => [{ title: "New seal plan · Sealwright" }];
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const { user, team } = await requireRole(request, "builder");
+  const engine = await requireEngine(team.id, params.engineId);
+  const choices = await planChoices(team.id);
+  const fastener = choices.fasteners[0];
+  const gasket = choices.gaskets.find((g) => g.boreMm >= engine.boreMm) ?? choices.gaskets[0];
+  // Start from the maker's torque and friction for the first fastener; the builder changes what differs.
+  const torqueNm = fastener?.makerTorqueNm ?? 100;
+  const values = planFormValues(
+    {
+      name: "",
+      gasketId: gasket?.id ?? 0,
+      fastenerId: fastener?.id ?? 0,
+      lubricant: fastener?.makerLubricant ?? "",
+      threadFriction: fastener?.threadFriction ?? 0.12,
+      bearingFriction: fastener?.bearingFriction ?? 0.12,
+      method: "torque-estimated-friction",
+      torqueNm,
+      stagesNm: [Math.round(torqueNm * 0.4), Math.round(torqueNm * 0.7), torqueNm],
+      wireLocation: gasket?.type === "solid-copper" ? "block" : "none",
+      wireProjectionMm: gasket?.type === "solid-copper" ? 0.1 : 0,
+      receiverGrooveDepthMm: 0,
+      sleeveProtrusionMm: null,
+      targetMargin: 1.5,
+      notes: "",
+    },
+    user.units,
+  );
+  return { units: user.units, engine, choices, values, emptyLibrary: !fastener || !gasket };
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const { user, team } = await requireRole(request, "builder");
+  const engine = await requireEngine(team.id, params.engineId);
+  const form = Object.fromEntries(await request.formData());
+  const values = Object.fromEntries(Object.entries(form).map(([k, v]) => [k, String(v)]));
+  const parsed = parsePlanForm(form, user.units);
+  if (!parsed.ok) return data({ errors: parsed.errors, values, problems: [] as string[] }, { status: 400 });
+  const { problems } = await previewPlan(team.id, engine, parsed.plan, false);
+  if (problems.length > 0) return data({ errors: {}, values, problems }, { status: 400 });
+  const id = await createPlan(team.id, user.id, engine.id, parsed.plan);
+  return redirect(`/engines/${engine.id}/plans/${id}`, { headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: "Plan created." }) } });
+}
+
+export default function NewPlan({ loaderData, actionData }: Route.ComponentProps) {
+  const { units, engine, choices, emptyLibrary } = loaderData;
+  const values = actionData?.values ?? loaderData.values;
+  return (
+    <div className="max-w-xl">
+      <h2 className="mb-4 text-2xl font-bold">New seal plan</h2>
+      {emptyLibrary ? <FormError message="Add at least one fastener and one gasket in Libraries first." /> : null}
+      {actionData?.problems?.length ? <FormError message={`The estimate cannot run: ${actionData.problems.join(" ")}`} /> : null}
+      <Form method="post" className="space-y-4" noValidate>
+        <PlanFields values={values} errors={actionData?.errors ?? {}} choices={choices} units={units} sleeved={engine.sleeveKind !== "none"} engineProtrusion={formatQuantity(engine.sleeveProtrusionMm, "smallLength", units)} />
+        <Button type="submit">Create plan</Button>
+      </Form>
+      <Caution className="mt-6" />
+    </div>
+  );
+}

@@ -1,0 +1,32 @@
+import { suggest, parsePlan, type Suggestion } from "~/lib/clamp";
+import { assemblePlanInput } from "~/lib/plan/assemble";
+import { estimateView, type EstimateView } from "~/lib/plan/estimate-view";
+import type { PlanWrite } from "~/lib/plan/form";
+import type { EngineRow } from "~/models/engine.server";
+import { planParts } from "~/models/plan.server";
+
+/** Estimate (and optionally a suggestion) for plan values that may not be saved yet. */
+export async function previewPlan(
+  teamId: number,
+  engine: EngineRow,
+  plan: PlanWrite,
+  withSuggestion: boolean,
+): Promise<{ view: EstimateView | null; suggestion: Suggestion | null; problems: string[] }> {
+  const parts = await planParts(teamId, engine, plan);
+  if (!parts) return { view: null, suggestion: null, problems: ["Pick a gasket and fastener from this shop's library."] };
+  const parsed = parsePlan(assemblePlanInput(parts));
+  if (!parsed.ok) return { view: null, suggestion: null, problems: parsed.errors.map((e) => e.message) };
+  return {
+    view: estimateView(parsed.plan),
+    suggestion: withSuggestion ? suggest(parsed.plan, { targetMargin: plan.targetMargin }) : null,
+    problems: [],
+  };
+}
+
+/** Stages scaled to a new final torque, keeping their proportions. */
+export function scaleStages(stagesNm: number[], fromNm: number, toNm: number): number[] {
+  if (stagesNm.length === 0 || fromNm <= 0) return [toNm];
+  const scaled = stagesNm.map((s) => Math.round((s * toNm) / fromNm));
+  scaled[scaled.length - 1] = toNm;
+  return scaled;
+}
