@@ -183,8 +183,8 @@ describe("plan editor", () => {
       // convert-units carries lbf·ft as 1.355818 N·m: within 1e-6 relative of NIST SP 811's 1.3558179
       expect(Math.abs(row.torque_nm / (120 * LBF_FT) - 1)).toBeLessThan(1e-6);
       expect(Math.abs(JSON.parse(row.stages)[0] / (50 * LBF_FT) - 1)).toBeLessThan(1e-6);
-      // 4 thou = 0.1016 mm
-      expect(row.wire_projection_mm).toBeCloseTo(0.1016, 9);
+      // 4 thou = 0.1016 mm exactly; convert-units carries the thou to 8 significant figures
+      expect(row.wire_projection_mm).toBeCloseTo(0.1016, 7);
     } finally {
       await db()("users").where({ id: user.id }).update({ units: "metric" });
     }
