@@ -14,7 +14,7 @@ export const NUMBER_FIELDS = {
   blockDepthToThreadMm: "length",
   sleeveWallMm: "length",
   sleeveSupportLengthMm: "length",
-  sleeveProtrusionMm: "length",
+  sleeveProtrusionMm: "smallLength",
   targetManifoldKpa: "manifold",
   peakPressureMpa: "peak",
   pressureRiseFactor: null,
@@ -22,7 +22,7 @@ export const NUMBER_FIELDS = {
   runningBlockC: "temperature",
   chamberCc: "volume",
   pistonVolumeCc: "volume",
-  deckClearanceMm: "length",
+  deckClearanceMm: "smallLength",
 } as const satisfies Record<string, Quantity | null>;
 export type NumberField = keyof typeof NUMBER_FIELDS;
 
@@ -140,13 +140,14 @@ export function studRowsFromForm(form: Record<string, string>): StudRow[] {
 }
 
 /** An engine as stored (SI) → what the form shows in the person's units. */
-export function engineToForm(e: Omit<EngineInput, "studs"> & { studs: Stud[] }, units: Units): EngineFormValues {
+export function engineToForm(engine: object & { studs: Stud[] }, units: Units): EngineFormValues {
+  const e = engine as Record<string, unknown> & { studs: Stud[] };
   const fields: Record<string, string> = {};
   for (const f of TEXT_FIELDS) fields[f] = String(e[f] ?? "");
   for (const f of ID_FIELDS) fields[f] = e[f] === undefined || e[f] === null ? "" : String(e[f]);
   for (const [f, q] of Object.entries(NUMBER_FIELDS) as [NumberField, Quantity | null][]) {
-    const v = e[f] as number | null | undefined;
-    fields[f] = v === undefined || v === null ? "" : q === null ? String(v) : inputValue(q, v, units);
+    const v = e[f];
+    fields[f] = typeof v !== "number" ? "" : q === null ? String(v) : inputValue(q, v, units);
   }
   return { fields, studs: e.studs.map(studToRow), studsPerSide: "" };
 }

@@ -1,45 +1,51 @@
-// Display units for the engine record: one call per direction, so the shared units module
-// (app/lib/units) can take over without touching the form or the pages.
-export type Units = "metric" | "imperial";
-export type Quantity = "length" | "manifold" | "peak" | "temperature" | "volume";
+// Display units for the engine record, on top of the shared units module (app/lib/units) so the
+// engine pages read the same as the plan pages. The few quantities it does not carry
+// (manifold pressure in kPa absolute, temperature, volume) are converted here.
+import {
+  DEFAULT_DECIMALS,
+  fromDisplay as sharedFromDisplay,
+  toDisplay as sharedToDisplay,
+  unitFor,
+  type UnitSystem,
+} from "../units";
 
-// Exact definitions: 1 in = 25.4 mm; 1 psi = 6.894757293168 kPa (NIST SP 811 B.8); °F = °C·9/5 + 32.
-const MM_PER_IN = 25.4;
-const KPA_PER_PSI = 6.894757293168;
+export type Units = UnitSystem;
+/** length: bore, stroke…; smallLength: protrusion, deck clearance; manifold: kPa abs (SI) shown kPa abs or psi abs;
+ *  peak: MPa (SI) shown bar or psi; temperature: °C; volume: cc. */
+export type Quantity = "length" | "smallLength" | "manifold" | "peak" | "temperature" | "volume";
 
-const LABEL: Record<Quantity, Record<Units, string>> = {
-  length: { metric: "mm", imperial: "in" },
-  manifold: { metric: "kPa abs", imperial: "psi abs" },
-  peak: { metric: "MPa", imperial: "psi" },
-  temperature: { metric: "°C", imperial: "°F" },
-  volume: { metric: "cc", imperial: "cc" },
-};
-
-// Decimals worth showing for each quantity in each system.
-const DECIMALS: Record<Quantity, Record<Units, number>> = {
-  length: { metric: 3, imperial: 4 },
-  manifold: { metric: 0, imperial: 1 },
-  peak: { metric: 1, imperial: 0 },
-  temperature: { metric: 0, imperial: 0 },
-  volume: { metric: 1, imperial: 1 },
-};
+// °F = °C·9/5 + 32 (NIST SP 811 §B.9, exact).
+const cToF = (c: number) => (c * 9) / 5 + 32;
+const fToC = (f: number) => ((f - 32) * 5) / 9;
 
 export function unitLabel(q: Quantity, units: Units): string {
-  return LABEL[q][units];
+  switch (q) {
+    case "length":
+    case "smallLength":
+      return unitFor(q, units);
+    case "manifold":
+      return units === "imperial" ? "psi abs" : "kPa abs";
+    case "peak":
+      return unitFor("pressure", units);
+    case "temperature":
+      return units === "imperial" ? "°F" : "°C";
+    case "volume":
+      return "cc";
+  }
 }
 
 /** SI (mm, kPa, MPa, °C, cc) → the person's units. */
 export function toDisplay(q: Quantity, si: number, units: Units): number {
-  if (units === "metric") return si;
   switch (q) {
     case "length":
-      return si / MM_PER_IN;
+    case "smallLength":
+      return sharedToDisplay(q, si, unitFor(q, units));
     case "manifold":
-      return si / KPA_PER_PSI;
+      return units === "imperial" ? sharedToDisplay("pressure", si / 1000, "psi") : si;
     case "peak":
-      return (si * 1000) / KPA_PER_PSI;
+      return sharedToDisplay("pressure", si, unitFor("pressure", units));
     case "temperature":
-      return (si * 9) / 5 + 32;
+      return units === "imperial" ? cToF(si) : si;
     case "volume":
       return si;
   }
@@ -47,30 +53,46 @@ export function toDisplay(q: Quantity, si: number, units: Units): number {
 
 /** The person's units → SI. */
 export function fromDisplay(q: Quantity, value: number, units: Units): number {
-  if (units === "metric") return value;
   switch (q) {
     case "length":
-      return value * MM_PER_IN;
+    case "smallLength":
+      return sharedFromDisplay(q, value, unitFor(q, units));
     case "manifold":
-      return value * KPA_PER_PSI;
+      return units === "imperial" ? sharedFromDisplay("pressure", value, "psi") * 1000 : value;
     case "peak":
-      return (value * KPA_PER_PSI) / 1000;
+      return sharedFromDisplay("pressure", value, unitFor("pressure", units));
     case "temperature":
-      return ((value - 32) * 5) / 9;
+      return units === "imperial" ? fToC(value) : value;
     case "volume":
       return value;
   }
 }
 
-/** A figure for an input's value: rounded to the quantity's decimals, trailing zeros dropped. */
-export function inputValue(q: Quantity, si: number | null | undefined, units: Units): string {
-  if (si === null || si === undefined) return "";
-  const d = DECIMALS[q][units] + 1;
-  return String(Number(toDisplay(q, si, units).toFixed(d)));
+function decimals(q: Quantity, units: Units): number {
+  switch (q) {
+    case "length":
+    case "smallLength":
+      return DEFAULT_DECIMALS[unitFor(q, units)];
+    case "manifold":
+      return units === "imperial" ? 1 : 0;
+    case "peak":
+      return DEFAULT_DECIMALS[unitFor("pressure", units)];
+    case "temperature":
+      return 0;
+    case "volume":
+      return 1;
+  }
 }
 
-/** A figure with its unit for reading, e.g. "86.000 mm" or "3.3858 in". */
+/** A figure for an input's value: a little finer than the display, trailing zeros dropped. */
+export function inputValue(q: Quantity, si: number | null | undefined, units: Units): string {
+  if (si === null || si === undefined || !Number.isFinite(si)) return "";
+  return String(Number(toDisplay(q, si, units).toFixed(decimals(q, units) + 2)));
+}
+
+/** A figure with its unit for reading, e.g. "86.00 mm" or "3.386 in"; a dash when missing. */
 export function formatQuantity(q: Quantity, si: number | null | undefined, units: Units): string {
-  if (si === null || si === undefined) return "—";
-  return `${toDisplay(q, si, units).toFixed(DECIMALS[q][units])} ${LABEL[q][units]}`;
+  if (si === null || si === undefined || !Number.isFinite(si)) return "—";
+  const text = toDisplay(q, si, units).toFixed(decimals(q, units));
+  return `${/^-0(\.0+)?$/.test(text) ? text.slice(1) : text} ${unitLabel(q, units)}`;
 }

@@ -45,7 +45,7 @@ export default function EngineOverview({ loaderData }: Route.ComponentProps) {
         <Row k="Rod length">{len(e.rodLengthMm)}</Row>
         <Row k="Head thickness at the stud">{len(e.headThicknessAtStudMm)}</Row>
         <Row k="Block depth to the engaged thread">{len(e.blockDepthToThreadMm)}</Row>
-        <Row k="Deck clearance">{len(e.deckClearanceMm)}</Row>
+        <Row k="Deck clearance">{formatQuantity("smallLength", e.deckClearanceMm, units)}</Row>
         <Row k="Chamber volume">{formatQuantity("volume", e.chamberCc, units)}</Row>
         <Row k="Piston volume (dish +, dome −)">{formatQuantity("volume", e.pistonVolumeCc, units)}</Row>
         </dl>
@@ -62,7 +62,7 @@ export default function EngineOverview({ loaderData }: Route.ComponentProps) {
             {e.sleeveKind === "wet-mid" ? <Row k="Support length (top to seat)">{len(e.sleeveSupportLengthMm)}</Row> : null}
           </>
         ) : null}
-        <Row k="Protrusion as machined">{len(e.sleeveProtrusionMm)}</Row>
+        <Row k="Protrusion as machined">{formatQuantity("smallLength", e.sleeveProtrusionMm, units)}</Row>
         </dl>
       </Section>
       <Section title="Boost and firing">

@@ -1,0 +1,450 @@
+import { useState, type ReactNode, type SelectHTMLAttributes } from "react";
+import { Form, Link } from "react-router";
+import { Button, Field, FormError } from "~/components/form";
+import {
+  ENGINE_STATUSES,
+  formatShare,
+  generateStudRows,
+  readStudRow,
+  SHARE_TOLERANCE,
+  shareSum,
+  SLEEVE_KINDS,
+  SLEEVE_LABEL,
+  STATUS_LABEL,
+  unitLabel,
+  type EngineFormValues,
+  type StudRow,
+  type Units,
+} from "~/lib/engine";
+
+export interface MaterialChoice {
+  id: number;
+  name: string;
+  kind: string;
+}
+
+interface Props {
+  values: EngineFormValues;
+  errors: Record<string, string>;
+  materials: MaterialChoice[];
+  units: Units;
+  submitLabel: string;
+  cancelTo: string;
+  /** Shown on edit: archive this engine. */
+  canArchive?: boolean;
+}
+
+// The engine record form, in the person's units. Works as a plain post without JavaScript:
+// the stud editor's buttons post back and the server answers with the changed rows.
+export function EngineForm({ values, errors, materials, units, submitLabel, cancelTo, canArchive }: Props) {
+  const f = values.fields;
+  const [layout, setLayout] = useState(f.layout ?? "inline");
+  const [cylinders, setCylinders] = useState(f.cylinders ?? "");
+  const [sleeveKind, setSleeveKind] = useState(f.sleeveKind ?? "none");
+  const [studs, setStuds] = useState<StudRow[]>(values.studs);
+  const [studsPerSide, setStudsPerSide] = useState(values.studsPerSide);
+  const [patternError, setPatternError] = useState<string | undefined>(errors.studsPerSide);
+  const len = unitLabel("length", units);
+  const small = unitLabel("smallLength", units);
+  const count = Object.keys(errors).length;
+  const n = (name: string, label: string, extra: Partial<Parameters<typeof Field>[0]> = {}) => (
+    <Field label={label} name={name} defaultValue={f[name] ?? ""} error={errors[name]} inputMode="decimal" {...extra} />
+  );
+  const perBank = Number(cylinders) / (layout === "V" ? 2 : 1);
+
+  return (
+    <Form method="post" noValidate className="space-y-6">
+      {count > 0 ? (
+        <FormError
+          message={`The engine was not saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention. ${Object.values(errors)[0]}.`}
+        />
+      ) : null}
+      <div className="flex flex-wrap gap-3">
+        <Button type="submit" name="intent" value="save">
+          {submitLabel}
+        </Button>
+        <Link to={cancelTo} className="rounded border border-forge-300 bg-white px-4 py-2 font-medium hover:bg-forge-100">
+          Cancel
+        </Link>
+      </div>
+
+      <Fieldset legend="The engine">
+        <Field label="Name" name="name" defaultValue={f.name} error={errors.name} required maxLength={120} />
+        <Field label="Customer" name="customer" defaultValue={f.customer} error={errors.customer} maxLength={120} />
+        <Select label="Status" name="status" defaultValue={f.status} error={errors.status}>
+          {ENGINE_STATUSES.map((s) => (
+            <option key={s} value={s}>
+              {STATUS_LABEL[s].word}
+            </option>
+          ))}
+        </Select>
+      </Fieldset>
+
+      <Fieldset legend="Layout and geometry">
+        <Field
+          label="Cylinders"
+          name="cylinders"
+          value={cylinders}
+          onChange={(e) => setCylinders(e.target.value)}
+          error={errors.cylinders}
+          inputMode="numeric"
+          hint="1 to 16; a V needs an even count."
+        />
+        <Select label="Layout" name="layout" value={layout} onChange={(e) => setLayout(e.target.value)} error={errors.layout}>
+          <option value="inline">Inline (one bank)</option>
+          <option value="V">V (two banks)</option>
+        </Select>
+        {n("boreMm", `Bore (${len})`)}
+        {n("strokeMm", `Stroke (${len})`)}
+        {n("rodLengthMm", `Rod length (${len}), optional`, { hint: "Centre to centre; longer than half the stroke." })}
+        {n("headThicknessAtStudMm", `Head thickness at the stud (${len})`, { hint: "Deck face to the washer seat." })}
+        {n("blockDepthToThreadMm", `Block depth to the engaged thread (${len})`, { hint: "Deck to the first engaged thread; 0 if the thread starts at the deck." })}
+      </Fieldset>
+
+      <Fieldset legend="Materials and sleeves">
+        <MaterialSelect label="Block (deck) material" name="blockMaterialId" value={f.blockMaterialId} error={errors.blockMaterialId} materials={materials} />
+        <MaterialSelect label="Head material" name="headMaterialId" value={f.headMaterialId} error={errors.headMaterialId} materials={materials} />
+        <Select label="Sleeves" name="sleeveKind" value={sleeveKind} onChange={(e) => setSleeveKind(e.target.value)} error={errors.sleeveKind}>
+          {SLEEVE_KINDS.map((k) => (
+            <option key={k} value={k}>
+              {SLEEVE_LABEL[k]}
+            </option>
+          ))}
+        </Select>
+        {sleeveKind !== "none" ? (
+          <>
+            <MaterialSelect label="Sleeve material" name="sleeveMaterialId" value={f.sleeveMaterialId} error={errors.sleeveMaterialId} materials={materials} />
+            {n("sleeveWallMm", `Sleeve wall at the top (${len})`)}
+            {sleeveKind === "wet-mid" ? n("sleeveSupportLengthMm", `Support length, top to seat (${len})`) : null}
+          </>
+        ) : null}
+        {n("sleeveProtrusionMm", `Protrusion as machined (${small})`, {
+          hint: `Sleeve top above the deck; −0.5 to 1 mm${units === "imperial" ? " (−20 to 39 thou)" : ""}. 0 without sleeves.`,
+        })}
+      </Fieldset>
+
+      <Fieldset legend="Boost and firing">
+        <Field label="Fuel" name="fuel" defaultValue={f.fuel} error={errors.fuel} maxLength={60} hint="As the shop names it, e.g. E85, methanol, race gasoline." />
+        {n("targetManifoldKpa", `Target manifold pressure (${unitLabel("manifold", units)})`, {
+          hint: `Absolute: atmosphere is about ${units === "imperial" ? "14.7 psi" : "101 kPa"}.`,
+        })}
+        {n("peakPressureMpa", `Peak cylinder pressure (${unitLabel("peak", units)}), optional`, {
+          hint: "Leave blank to let each plan estimate it from boost.",
+        })}
+        <fieldset aria-describedby={errors.peakPressureSource ? "f-peakPressureSource-error" : undefined}>
+          <legend className="block text-sm font-medium text-forge-800">That peak pressure is</legend>
+          <label className="mt-2 flex items-center gap-2">
+            <input type="radio" name="peakPressureSource" value="measured" defaultChecked={f.peakPressureSource === "measured"} /> measured (pressure trace)
+          </label>
+          <label className="mt-1 flex items-center gap-2">
+            <input type="radio" name="peakPressureSource" value="estimated" defaultChecked={f.peakPressureSource !== "measured"} /> an estimate
+          </label>
+          {errors.peakPressureSource ? (
+            <p id="f-peakPressureSource-error" className="mt-1 text-sm font-medium text-failed">
+              ✖ {errors.peakPressureSource}
+            </p>
+          ) : null}
+        </fieldset>
+        {n("pressureRiseFactor", "Pressure-rise factor", { hint: "Peak over compression pressure, 1 to 10; used when peak pressure is estimated." })}
+        {n("runningHeadC", `Running head temperature (${unitLabel("temperature", units)})`)}
+        {n("runningBlockC", `Running block temperature (${unitLabel("temperature", units)})`)}
+      </Fieldset>
+
+      <Fieldset legend="Chamber (for compression and quench)">
+        {n("chamberCc", "Head chamber volume (cc), optional")}
+        {n("pistonVolumeCc", "Piston volume (cc)", { hint: "Dish or valve reliefs positive, dome negative." })}
+        {n("deckClearanceMm", `Deck clearance (${small})`, { hint: "Piston below the deck at top centre is positive." })}
+      </Fieldset>
+
+      <section className="rounded border border-forge-100 bg-white p-4" aria-labelledby="studs-heading">
+        <h2 id="studs-heading" className="text-xl font-bold">
+          Stud pattern
+        </h2>
+        <p className="mt-1 text-sm text-forge-700">
+          Each stud's preload is split among the bores it borders; its shares must add up to 1. Generate the usual
+          pattern from the layout, then edit shares or add studs (e.g. extra studs in the valley). Shares may be typed as
+          0.5 or 1/2. Clear a row's cylinders and label to drop it.
+        </p>
+        <div className="mt-3 flex flex-wrap items-end gap-3">
+          <Field
+            label="Studs per side per bank"
+            name="studsPerSide"
+            value={studsPerSide}
+            onChange={(e) => setStudsPerSide(e.target.value)}
+            error={patternError}
+            inputMode="numeric"
+            placeholder={Number.isInteger(perBank) && perBank > 0 ? String(perBank + 1) : ""}
+            hint={Number.isInteger(perBank) && perBank > 0 ? `Blank: ${perBank + 1} (bores per bank + 1).` : "Blank: bores per bank + 1."}
+          />
+          <Button
+            type="submit"
+            kind="plain"
+            name="intent"
+            value="pattern"
+            onClick={(e) => {
+              e.preventDefault();
+              const r = generateStudRows(layout, cylinders, studsPerSide);
+              if ("error" in r) setPatternError(r.error);
+              else {
+                setPatternError(undefined);
+                setStuds(r.rows);
+              }
+            }}
+          >
+            Generate pattern
+          </Button>
+        </div>
+        {errors.studs ? (
+          <p id="studs-error" role="alert" className="mt-3 text-sm font-medium text-failed">
+            ✖ {errors.studs}
+          </p>
+        ) : null}
+        <StudTable studs={studs} setStuds={setStuds} errors={errors} />
+        <Button
+          type="submit"
+          kind="plain"
+          name="intent"
+          value="add-stud"
+          onClick={(e) => {
+            e.preventDefault();
+            setStuds((rows) => [...rows, { label: "", cylinders: "", shares: "" }]);
+          }}
+        >
+          Add a stud
+        </Button>
+      </section>
+
+      <Fieldset legend="Notes">
+        <div className="md:col-span-2">
+          <label htmlFor="f-notes" className="block text-sm font-medium text-forge-800">
+            Notes
+          </label>
+          <textarea
+            id="f-notes"
+            name="notes"
+            rows={5}
+            maxLength={4000}
+            defaultValue={f.notes}
+            aria-invalid={errors.notes ? true : undefined}
+            aria-describedby={errors.notes ? "f-notes-error" : "f-notes-hint"}
+            className="mt-1 block w-full rounded border border-forge-300 bg-white px-3 py-2"
+          />
+          <p id="f-notes-hint" className="mt-1 text-xs text-forge-700">
+            Up to 4000 characters.
+          </p>
+          {errors.notes ? (
+            <p id="f-notes-error" className="mt-1 text-sm font-medium text-failed">
+              ✖ {errors.notes}
+            </p>
+          ) : null}
+        </div>
+      </Fieldset>
+
+      <div className="flex flex-wrap items-center gap-3">
+        <Button type="submit" name="intent" value="save">
+          {submitLabel}
+        </Button>
+        <Link to={cancelTo} className="rounded border border-forge-300 bg-white px-4 py-2 font-medium hover:bg-forge-100">
+          Cancel
+        </Link>
+      </div>
+      {canArchive ? (
+        <div className="rounded border border-failed/40 bg-white p-4">
+          <h2 className="font-bold">Archive this engine</h2>
+          <p className="mt-1 text-sm text-forge-700">
+            It leaves the engine table and its pages; its plans stay in the database. Unsaved edits above are dropped.
+          </p>
+          <button
+            type="submit"
+            name="intent"
+            value="archive"
+            formNoValidate
+            className="mt-3 rounded border border-failed px-4 py-2 font-medium text-failed hover:bg-failed-50"
+          >
+            Archive engine
+          </button>
+        </div>
+      ) : null}
+    </Form>
+  );
+}
+
+function StudTable({
+  studs,
+  setStuds,
+  errors,
+}: {
+  studs: StudRow[];
+  setStuds: (update: (rows: StudRow[]) => StudRow[]) => void;
+  errors: Record<string, string>;
+}) {
+  const edit = (i: number, key: keyof StudRow, value: string) =>
+    setStuds((rows) => rows.map((r, j) => (j === i ? { ...r, [key]: value } : r)));
+  return (
+    <div className="my-3 overflow-x-auto">
+      <table className="w-full border-collapse text-left text-sm tabular">
+        <caption className="sr-only">Studs, the cylinders each serves and its share of each</caption>
+        <thead className="bg-forge-100">
+          <tr>
+            <th scope="col" className="px-2 py-1">Stud label</th>
+            <th scope="col" className="px-2 py-1">Cylinders served</th>
+            <th scope="col" className="px-2 py-1">Share of each</th>
+            <th scope="col" className="px-2 py-1">Sum</th>
+            <th scope="col" className="px-2 py-1">
+              <span className="sr-only">Remove</span>
+            </th>
+          </tr>
+        </thead>
+        <tbody>
+          {studs.map((row, i) => {
+            const error = Object.entries(errors).find(([k]) => k === `studs.${i}` || k.startsWith(`studs.${i}.`))?.[1];
+            const errorId = `stud-${i}-error`;
+            const name = row.label.trim() || `${i + 1}`;
+            return (
+              <tr key={i} className="border-t border-forge-100 align-top">
+                <td className="px-2 py-1">
+                  <input
+                    name={`stud-${i}-label`}
+                    value={row.label}
+                    onChange={(e) => edit(i, "label", e.target.value)}
+                    aria-label={`Stud ${i + 1} label`}
+                    maxLength={40}
+                    className="w-24 rounded border border-forge-300 px-2 py-1"
+                  />
+                </td>
+                <td className="px-2 py-1">
+                  <input
+                    name={`stud-${i}-cylinders`}
+                    value={row.cylinders}
+                    onChange={(e) => edit(i, "cylinders", e.target.value)}
+                    aria-label={`Stud ${name}: cylinders served`}
+                    aria-invalid={error ? true : undefined}
+                    aria-describedby={error ? errorId : undefined}
+                    className="w-28 rounded border border-forge-300 px-2 py-1 aria-[invalid]:border-failed"
+                  />
+                </td>
+                <td className="px-2 py-1">
+                  <input
+                    name={`stud-${i}-shares`}
+                    value={row.shares}
+                    onChange={(e) => edit(i, "shares", e.target.value)}
+                    aria-label={`Stud ${name}: share of each cylinder`}
+                    aria-invalid={error ? true : undefined}
+                    aria-describedby={error ? errorId : undefined}
+                    className="w-36 rounded border border-forge-300 px-2 py-1 aria-[invalid]:border-failed"
+                  />
+                  {error ? (
+                    <p id={errorId} className="mt-1 max-w-xs text-sm font-medium text-failed">
+                      ✖ {error}
+                    </p>
+                  ) : null}
+                </td>
+                <td className="px-2 py-1">
+                  <ShareSum row={row} />
+                </td>
+                <td className="px-2 py-1">
+                  <button
+                    type="submit"
+                    name="intent"
+                    value={`remove-stud:${i}`}
+                    formNoValidate
+                    onClick={(e) => {
+                      e.preventDefault();
+                      setStuds((rows) => rows.filter((_, j) => j !== i));
+                    }}
+                    className="rounded border border-forge-300 px-2 py-1 hover:bg-forge-100"
+                  >
+                    Remove<span className="sr-only"> stud {name}</span>
+                  </button>
+                </td>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function ShareSum({ row }: { row: StudRow }) {
+  const stud = readStudRow(row);
+  if (!stud || stud.serves.length === 0) return <span className="text-forge-700">—</span>;
+  const sum = shareSum(stud);
+  if (!Number.isFinite(sum)) return <span className="font-medium text-failed">✖ unreadable</span>;
+  const ok = Math.abs(sum - 1) <= SHARE_TOLERANCE;
+  return ok ? (
+    <span className="whitespace-nowrap font-medium text-held">✔ {formatShare(sum)} adds up</span>
+  ) : (
+    <span className="whitespace-nowrap font-medium text-failed">✖ {formatShare(sum)}, needs 1</span>
+  );
+}
+
+function Fieldset({ legend, children }: { legend: string; children: ReactNode }) {
+  return (
+    <fieldset className="rounded border border-forge-100 bg-white p-4">
+      <legend className="px-1 text-xl font-bold">{legend}</legend>
+      <div className="grid gap-4 md:grid-cols-2 lg:grid-cols-3">{children}</div>
+    </fieldset>
+  );
+}
+
+interface SelectProps extends SelectHTMLAttributes<HTMLSelectElement> {
+  label: string;
+  name: string;
+  error?: string;
+}
+
+function Select({ label, name, error, children, ...rest }: SelectProps) {
+  const id = `f-${name}`;
+  return (
+    <div>
+      <label htmlFor={id} className="block text-sm font-medium text-forge-800">
+        {label}
+      </label>
+      <select
+        id={id}
+        name={name}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${id}-error` : undefined}
+        className="mt-1 block w-full rounded border border-forge-300 bg-white px-3 py-2 text-base aria-[invalid]:border-failed"
+        {...rest}
+      >
+        {children}
+      </select>
+      {error ? (
+        <p id={`${id}-error`} className="mt-1 text-sm font-medium text-failed">
+          ✖ {error}
+        </p>
+      ) : null}
+    </div>
+  );
+}
+
+const KIND_WORD: Record<string, string> = {
+  aluminium: "Aluminium",
+  iron: "Iron",
+  steel: "Steel",
+  stainless: "Stainless steel",
+  copper: "Copper",
+  other: "Other",
+};
+
+function MaterialSelect({ label, name, value, error, materials }: { label: string; name: string; value?: string; error?: string; materials: MaterialChoice[] }) {
+  const kinds = [...new Set(materials.map((m) => m.kind))];
+  return (
+    <Select label={label} name={name} defaultValue={value ?? ""} error={error}>
+      <option value="">{materials.length === 0 ? "No materials in the library yet" : "Choose…"}</option>
+      {kinds.map((k) => (
+        <optgroup key={k} label={KIND_WORD[k] ?? k}>
+          {materials
+            .filter((m) => m.kind === k)
+            .map((m) => (
+              <option key={m.id} value={m.id}>
+                {m.name}
+              </option>
+            ))}
+        </optgroup>
+      ))}
+    </Select>
+  );
+}

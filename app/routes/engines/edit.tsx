@@ -1,0 +1,60 @@
+import { data, redirect } from "react-router";
+import type { Route } from "./+types/edit";
+import { EngineForm } from "~/components/engine-form";
+import { engineFormStep, engineToForm, type Units } from "~/lib/engine";
+import { archiveEngine, EngineInputError, listMaterialOptions, requireEngine, updateEngine } from "~/models/engine.server";
+import { requireRole } from "~/utils/auth.server";
+import { flashToast } from "~/utils/toast.server";
+
+export const meta: Route.MetaFunction = () => [{ title: "Edit engine · Sealwright" }];
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const { user, team } = await requireRole(request, "builder");
+  const engine = await requireEngine(team.id, params.engineId);
+  const units = user.units as Units;
+  const values = engineToForm(engine, units);
+  return { units, materials: await listMaterialOptions(team.id), values, engineId: engine.id };
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const { user, team } = await requireRole(request, "builder");
+  const engine = await requireEngine(team.id, params.engineId);
+  const form = Object.fromEntries([...(await request.formData())].map(([k, v]) => [k, String(v)]));
+  if (form.intent === "archive") {
+    await archiveEngine(team.id, user.id, engine.id);
+    return redirect("/engines", {
+      headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: `Engine “${engine.name}” archived.` }) },
+    });
+  }
+  const step = engineFormStep(form, user.units as Units);
+  if (step.step === "render") return { values: step.values, errors: step.errors };
+  if (step.step === "invalid") return data({ values: step.values, errors: step.errors }, { status: 400 });
+  try {
+    await updateEngine(team.id, user.id, engine.id, step.engine);
+  } catch (e) {
+    if (e instanceof EngineInputError) return data({ values: step.values, errors: e.errors }, { status: 400 });
+    throw e;
+  }
+  return redirect(`/engines/${engine.id}`, {
+    headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: "Engine saved." }) },
+  });
+}
+
+export default function EditEngine({ loaderData, actionData }: Route.ComponentProps) {
+  const values = actionData?.values ?? loaderData.values;
+  return (
+    <section>
+      <h2 className="mb-4 text-2xl font-bold">Edit the engine record</h2>
+      <EngineForm
+        key={JSON.stringify(values)}
+        values={values}
+        errors={actionData?.errors ?? {}}
+        materials={loaderData.materials}
+        units={loaderData.units}
+        submitLabel="Save changes"
+        cancelTo={`/engines/${loaderData.engineId}`}
+        canArchive
+      />
+    </section>
+  );
+}

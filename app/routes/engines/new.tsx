@@ -1,0 +1,54 @@
+import { data, redirect } from "react-router";
+import type { Route } from "./+types/new";
+import { PageTitle } from "~/components/app-shell";
+import { EngineForm } from "~/components/engine-form";
+import { blankEngineForm, engineFormStep, type Units } from "~/lib/engine";
+import { createEngine, EngineInputError, listMaterialOptions } from "~/models/engine.server";
+import { requireRole } from "~/utils/auth.server";
+import { flashToast } from "~/utils/toast.server";
+
+export const meta: Route.MetaFunction = () => [{ title: "New engine · Sealwright" }];
+
+export async function loader({ request }: Route.LoaderArgs) {
+  const { user, team } = await requireRole(request, "builder");
+  const units = user.units as Units;
+  return { units, materials: await listMaterialOptions(team.id), blank: blankEngineForm(units) };
+}
+
+export async function action({ request }: Route.ActionArgs) {
+  const { user, team } = await requireRole(request, "builder");
+  const form = Object.fromEntries([...(await request.formData())].map(([k, v]) => [k, String(v)]));
+  const step = engineFormStep(form, user.units as Units);
+  if (step.step === "render") return { values: step.values, errors: step.errors };
+  if (step.step === "invalid") return data({ values: step.values, errors: step.errors }, { status: 400 });
+  try {
+    const id = await createEngine(team.id, user.id, step.engine);
+    return redirect(`/engines/${id}`, {
+      headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: `Engine “${step.engine.name}” added.` }) },
+    });
+  } catch (e) {
+    if (e instanceof EngineInputError) return data({ values: step.values, errors: e.errors }, { status: 400 });
+    throw e;
+  }
+}
+
+export default function NewEngine({ loaderData, actionData }: Route.ComponentProps) {
+  const values = actionData?.values ?? loaderData.blank;
+  return (
+    <>
+      <PageTitle sub={`Geometry, materials, sleeves, studs and boost: what every seal plan for it starts from. Lengths in ${loaderData.units === "imperial" ? "inches" : "millimetres"}; change units in Settings.`}>
+        New engine
+      </PageTitle>
+      <EngineForm
+        // a post-back (pattern, add or remove stud, errors) re-seeds the form with what the server answered
+        key={JSON.stringify(values)}
+        values={values}
+        errors={actionData?.errors ?? {}}
+        materials={loaderData.materials}
+        units={loaderData.units}
+        submitLabel="Save engine"
+        cancelTo="/engines"
+      />
+    </>
+  );
+}
