@@ -1,6 +1,7 @@
 import type { Knex } from "knex";
 import { db, now } from "~/utils/db.server";
 import { hashPassword } from "~/utils/password.server";
+import { seedTeamLibrary } from "./library-seed.server";
 
 export type Role = "owner" | "builder" | "viewer";
 export type Units = "metric" | "imperial";
@@ -53,6 +54,7 @@ export async function createUserWithTeam(input: {
     const teamId = await insertTeam(trx, input.teamName);
     await trx("memberships").insert({ user_id: user.id, team_id: teamId, role: "owner", created_at: now() });
     await trx("audit_events").insert({ team_id: teamId, user_id: user.id, action: "team.created", created_at: now() });
+    await seedTeamLibrary(trx, teamId);
     return { user, teamId };
   });
 }

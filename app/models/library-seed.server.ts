@@ -1,0 +1,311 @@
+import type { Knex } from "knex";
+
+// The handbook library every shop starts with: materials from /work/shared/REFERENCES.md §7 (each row
+// names its source), and a few demo fasteners and gaskets whose maker figures are invented.
+// Imported by the seed files with a relative path, so nothing here may use the "~" alias or the app's db().
+
+const LIMIT = "limiting surface pressure from VDI 2230 (2003) as quoted by a fastener catalogue (REFERENCES §7)";
+const STUD_MEMORY = "modulus 205 GPa and expansion 12 µm/m·°C from memory";
+
+export const HANDBOOK_MATERIALS = [
+  {
+    name: "A356.0-T6 cast aluminium",
+    kind: "aluminium",
+    modulus_mpa: 72_400,
+    yield_mpa: 165,
+    expansion_um_per_m_c: 21.4,
+    limiting_surface_pressure_mpa: 380,
+    source: `Aluminum Association data via MatWeb (REFERENCES §7), sand-cast minimum yield; ${LIMIT}: cast AlSi7Mg heat-treated, the closest listed alloy`,
+  },
+  {
+    name: "6061-T6 wrought aluminium",
+    kind: "aluminium",
+    modulus_mpa: 68_900,
+    yield_mpa: 276,
+    expansion_um_per_m_c: 23.6,
+    limiting_surface_pressure_mpa: 260,
+    source: `MatWeb (REFERENCES §7); ${LIMIT}: AlMgSi1, the closest listed alloy`,
+  },
+  {
+    name: "7075-T6 wrought aluminium",
+    kind: "aluminium",
+    modulus_mpa: 71_700,
+    yield_mpa: 503,
+    expansion_um_per_m_c: 23.4,
+    limiting_surface_pressure_mpa: null,
+    source: "MatWeb (REFERENCES §7); no close alloy in the VDI 2230 list, so no limiting surface pressure is given",
+  },
+  {
+    name: "Gray cast iron, class 30–40",
+    kind: "iron",
+    modulus_mpa: 100_000,
+    yield_mpa: null,
+    expansion_um_per_m_c: 10.8,
+    limiting_surface_pressure_mpa: 900,
+    source: `ASTM A48; Shigley table A-5 (REFERENCES §7), no yield point (UTS ≥ 207–276 MPa); ${LIMIT}: GJL-250, the closest listed grade`,
+  },
+  {
+    name: "Ductile iron 65-45-12",
+    kind: "iron",
+    modulus_mpa: 169_000,
+    yield_mpa: 310,
+    expansion_um_per_m_c: 11.5,
+    limiting_surface_pressure_mpa: 900,
+    source: `ASTM A536 (REFERENCES §7); ${LIMIT}: GJS-500, the closest listed grade`,
+  },
+  {
+    name: "4340 steel, quenched and tempered",
+    kind: "steel",
+    modulus_mpa: 205_000,
+    yield_mpa: 1379,
+    expansion_um_per_m_c: 12.3,
+    limiting_surface_pressure_mpa: null,
+    source: "MatWeb (REFERENCES §7), tempered at 425 °C; no steel in the VDI 2230 list quoted there",
+  },
+  {
+    name: "300-series stainless wire, annealed",
+    kind: "stainless",
+    modulus_mpa: 193_000,
+    yield_mpa: 207,
+    expansion_um_per_m_c: 17.3,
+    limiting_surface_pressure_mpa: null,
+    source: "MatWeb (REFERENCES §7), annealed",
+  },
+  {
+    name: "C11000 copper, annealed",
+    kind: "copper",
+    modulus_mpa: 115_000,
+    yield_mpa: 70,
+    expansion_um_per_m_c: 17.0,
+    limiting_surface_pressure_mpa: null,
+    source: "Copper producer data sheet (REFERENCES §7), annealed; yield about 70 MPa",
+  },
+  {
+    name: "Alloy steel stud, ISO 898-1 class 12.9",
+    kind: "steel",
+    modulus_mpa: 205_000,
+    yield_mpa: 970,
+    expansion_um_per_m_c: 12,
+    limiting_surface_pressure_mpa: null,
+    source: `ISO 898-1 (REFERENCES §7): proof stress 970 MPa, used here as the yield (conservative); ${STUD_MEMORY}`,
+  },
+  {
+    name: "Alloy steel stud, SAE J429 grade 8",
+    kind: "steel",
+    // 130 ksi × 6.894757 MPa/ksi (NIST SP 811)
+    modulus_mpa: 205_000,
+    yield_mpa: 896.3,
+    expansion_um_per_m_c: 12,
+    limiting_surface_pressure_mpa: null,
+    source: `SAE J429 grade 8 (REFERENCES §7): yield 130 ksi (896 MPa), proof 120 ksi; ${STUD_MEMORY}`,
+  },
+] as const;
+
+const IN = 25.4;
+const LBF_FT = 1.3558179;
+const DEMO = "demo data (invented)";
+
+// Demo fasteners: thread geometry of the standard thread; every maker figure is invented for the demo.
+export const DEMO_FASTENERS = [
+  {
+    name: "½-20 alloy steel head stud, full shank",
+    material: "Alloy steel stud, SAE J429 grade 8",
+    thread_system: "unified",
+    diameter_mm: 0.5 * IN,
+    pitch_mm: IN / 20,
+    reduced_shank_diameter_mm: null,
+    reduced_shank_length_mm: 0,
+    free_thread_length_mm: 20,
+    engagement_mm: 28,
+    washer_od_mm: 0.95 * IN,
+    washer_hole_mm: 0.53 * IN,
+    washer_thickness_mm: 0.125 * IN,
+    maker_torque_nm: 110 * LBF_FT,
+    maker_lubricant: "The stud maker's thread lube (moly-based)",
+    maker_stages: "Three even steps to 110 lbf·ft, centre outward",
+    maker_stretch_mm: null,
+    thread_friction: 0.12,
+    bearing_friction: 0.12,
+    source: `${DEMO}: maker's torque, lubricant and stages invented; thread per ASME B1.1`,
+  },
+  {
+    name: "½-20 chromoly head stud, reduced shank",
+    material: "4340 steel, quenched and tempered",
+    thread_system: "unified",
+    diameter_mm: 0.5 * IN,
+    pitch_mm: IN / 20,
+    reduced_shank_diameter_mm: 0.41 * IN,
+    reduced_shank_length_mm: 60,
+    free_thread_length_mm: 15,
+    engagement_mm: 28,
+    washer_od_mm: 0.95 * IN,
+    washer_hole_mm: 0.53 * IN,
+    washer_thickness_mm: 0.125 * IN,
+    maker_torque_nm: 115 * LBF_FT,
+    maker_lubricant: "The stud maker's thread lube (moly-based)",
+    maker_stages: "40, 80, then 115 lbf·ft",
+    maker_stretch_mm: 0.007 * IN,
+    thread_friction: 0.11,
+    bearing_friction: 0.12,
+    source: `${DEMO}: maker's torque, lubricant, stages and stretch invented; thread per ASME B1.1`,
+  },
+  {
+    name: "7/16-20 alloy steel head stud, full shank",
+    material: "Alloy steel stud, SAE J429 grade 8",
+    thread_system: "unified",
+    diameter_mm: 0.4375 * IN,
+    pitch_mm: IN / 20,
+    reduced_shank_diameter_mm: null,
+    reduced_shank_length_mm: 0,
+    free_thread_length_mm: 18,
+    engagement_mm: 16,
+    washer_od_mm: 0.75 * IN,
+    washer_hole_mm: 0.47 * IN,
+    washer_thickness_mm: 0.12 * IN,
+    maker_torque_nm: 85 * LBF_FT,
+    maker_lubricant: "Clean engine oil on threads and washer face",
+    maker_stages: "35, 65, then 85 lbf·ft",
+    maker_stretch_mm: null,
+    thread_friction: 0.15,
+    bearing_friction: 0.16,
+    source: `${DEMO}: maker's torque, lubricant and stages invented; thread per ASME B1.1`,
+  },
+  {
+    name: "M12×1.5 head stud, reduced shank",
+    material: "Alloy steel stud, ISO 898-1 class 12.9",
+    thread_system: "metric",
+    diameter_mm: 12,
+    pitch_mm: 1.5,
+    reduced_shank_diameter_mm: 9.5,
+    reduced_shank_length_mm: 55,
+    free_thread_length_mm: 15,
+    engagement_mm: 24,
+    washer_od_mm: 22,
+    washer_hole_mm: 12.5,
+    washer_thickness_mm: 3,
+    maker_torque_nm: 150,
+    maker_lubricant: "Moly assembly paste",
+    maker_stages: "40, 90, then 150 N·m",
+    maker_stretch_mm: 0.15,
+    thread_friction: 0.11,
+    bearing_friction: 0.12,
+    source: `${DEMO}: maker's torque, lubricant, stages and stretch invented; thread per ISO 68-1`,
+  },
+] as const;
+
+const KSI = 6.894757; // MPa per ksi (NIST SP 811)
+const ASME = "m and y from ASME VIII-1 App. 2 Table 2-5.1 (REFERENCES §6): flange design values, used as a conservative seal criterion, not head-gasket data";
+
+export const DEMO_GASKETS = [
+  {
+    name: "Solid copper 1.1 mm, 87 mm bore, wire-ring groove",
+    type: "solid-copper",
+    compressed_thickness_mm: 1.1,
+    bore_mm: 87,
+    seal_diameter_mm: 91,
+    ring_width_mm: 1.5,
+    ring_modulus_mpa: 193_000,
+    seal_line_yield_mpa: 70,
+    body_modulus_mpa: 115_000,
+    body_area_per_bore_mm2: 3_500,
+    expansion_um_per_m_c: 17.0,
+    m: 4.75,
+    y_mpa: 13 * KSI,
+    relaxation_percent: 5,
+    finish_min_ra_um: 0.8,
+    finish_max_ra_um: 3.2,
+    source: `${DEMO} geometry; ${ASME} (solid flat copper 4.75 / 13,000 psi); ring = stainless wire (REFERENCES §7), seal-line yield = annealed copper 70 MPa; relaxation 5 % an estimate; copper tolerates a rougher face (common practice, REFERENCES §9)`,
+  },
+  {
+    name: "Solid copper 1.1 mm, 87 mm bore, plain",
+    type: "solid-copper",
+    compressed_thickness_mm: 1.1,
+    bore_mm: 87,
+    seal_diameter_mm: 92,
+    ring_width_mm: 4,
+    ring_modulus_mpa: 115_000,
+    seal_line_yield_mpa: 70,
+    body_modulus_mpa: 115_000,
+    body_area_per_bore_mm2: 3_500,
+    expansion_um_per_m_c: 17.0,
+    m: 4.75,
+    y_mpa: 13 * KSI,
+    relaxation_percent: 5,
+    finish_min_ra_um: 0.8,
+    finish_max_ra_um: 3.2,
+    source: `${DEMO} geometry; ${ASME} (solid flat copper 4.75 / 13,000 psi); copper modulus and yield REFERENCES §7; seal line = the sleeve top land; relaxation 5 % an estimate`,
+  },
+  {
+    name: "Multilayer steel 1.3 mm, 87 mm bore",
+    type: "mls",
+    compressed_thickness_mm: 1.3,
+    bore_mm: 87,
+    seal_diameter_mm: 91,
+    ring_width_mm: 2.5,
+    ring_modulus_mpa: 193_000,
+    seal_line_yield_mpa: 1_000,
+    body_modulus_mpa: 5_000,
+    body_area_per_bore_mm2: 3_800,
+    expansion_um_per_m_c: 17.3,
+    m: 3.0,
+    y_mpa: 10 * KSI,
+    relaxation_percent: 1,
+    finish_min_ra_um: 0.5,
+    finish_max_ra_um: 1.3,
+    source: `${DEMO} geometry; ${ASME} (spiral-wound stainless 3.00 / 10,000 psi, the closest listed construction); embossed-layer body modulus 5 GPa and bead yield 1000 MPa are estimates (common practice); finish Ra 0.5–1.3 µm (about 20–50 µin, common practice, REFERENCES §9)`,
+  },
+  {
+    name: "Multilayer steel 1.3 mm, 107 mm bore, ring in the sleeve",
+    type: "mls-with-ring",
+    compressed_thickness_mm: 1.3,
+    bore_mm: 107,
+    seal_diameter_mm: 112,
+    ring_width_mm: 3,
+    ring_modulus_mpa: 193_000,
+    seal_line_yield_mpa: 207,
+    body_modulus_mpa: 5_000,
+    body_area_per_bore_mm2: 5_000,
+    expansion_um_per_m_c: 17.3,
+    m: 3.0,
+    y_mpa: 10 * KSI,
+    relaxation_percent: 1,
+    finish_min_ra_um: 0.5,
+    finish_max_ra_um: 1.3,
+    source: `${DEMO} geometry; ${ASME} (spiral-wound stainless 3.00 / 10,000 psi, the closest listed construction); ring = annealed 300-series stainless (REFERENCES §7); body modulus 5 GPa an estimate (common practice); finish per REFERENCES §9`,
+  },
+  {
+    name: "Fire-ring gasket 1.2 mm, 107 mm bore",
+    type: "fire-ring",
+    compressed_thickness_mm: 1.2,
+    bore_mm: 107,
+    seal_diameter_mm: 111,
+    ring_width_mm: 2,
+    ring_modulus_mpa: 200_000,
+    seal_line_yield_mpa: 250,
+    body_modulus_mpa: 3_000,
+    body_area_per_bore_mm2: 5_000,
+    expansion_um_per_m_c: 12,
+    m: 5.5,
+    y_mpa: 18 * KSI,
+    relaxation_percent: 2,
+    finish_min_ra_um: 0.8,
+    finish_max_ra_um: 2.0,
+    source: `${DEMO} geometry; ${ASME} (ring joint soft steel 5.50 / 18,000 psi); soft-steel ring yield 250 MPa, body modulus 3 GPa and finish window are estimates (common practice)`,
+  },
+] as const;
+
+/** Inserts the handbook materials and the demo fasteners and gaskets for one team. */
+export async function seedTeamLibrary(trx: Knex | Knex.Transaction, teamId: number): Promise<void> {
+  const at = new Date().toISOString();
+  const stamp = { team_id: teamId, created_at: at, updated_at: at, entered_by: null, archived_at: null };
+  const materialIds = new Map<string, number>();
+  for (const m of HANDBOOK_MATERIALS) {
+    const [row] = await trx("materials").insert({ ...stamp, ...m }).returning("id");
+    materialIds.set(m.name, (row as { id: number }).id);
+  }
+  for (const { material, ...f } of DEMO_FASTENERS) {
+    await trx("fasteners").insert({ ...stamp, ...f, material_id: materialIds.get(material) });
+  }
+  for (const g of DEMO_GASKETS) await trx("gaskets").insert({ ...stamp, ...g });
+  await trx("audit_events").insert({ team_id: teamId, action: "library.seeded", created_at: at });
+}
