@@ -6,7 +6,7 @@ import { PlanFields } from "~/components/plan-form";
 import { parsePlanForm, planFormValues } from "~/lib/plan/form";
 import { formatQuantity } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
-import { createPlan, planChoices } from "~/models/plan.server";
+import { createPlan, listPlans, planChoices } from "~/models/plan.server";
 import { requireRole } from "~/utils/auth.server";
 import { previewPlan } from "~/utils/plan-actions.server";
 import { flashToast } from "~/utils/toast.server";
@@ -16,29 +16,32 @@ export const meta: Route.MetaFunction = () => [{ title: "New seal plan · Sealwr
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team } = await requireRole(request, "builder");
   const engine = await requireEngine(team.id, params.engineId);
-  const choices = await planChoices(team.id);
-  const fastener = choices.fasteners[0];
-  const gasket = choices.gaskets.find((g) => g.boreMm >= engine.boreMm) ?? choices.gaskets[0];
-  // Start from the maker's torque and friction for the first fastener; the builder changes what differs.
-  const torqueNm = fastener?.makerTorqueNm ?? 100;
+  const [choices, plans] = await Promise.all([planChoices(team.id), listPlans(team.id, engine.id)]);
+  // Start from the chosen plan (or the latest), so a new plan differs only where the builder changes it.
+  const template = plans.find((p) => p.id === engine.chosenPlanId) ?? plans[plans.length - 1];
+  const fastener = choices.fasteners.find((f) => f.id === template?.fastenerId) ?? choices.fasteners[0];
+  const gasket = choices.gaskets.find((g) => g.id === template?.gasketId) ?? choices.gaskets.find((g) => g.boreMm >= engine.boreMm) ?? choices.gaskets[0];
+  const torqueNm = template?.torqueNm ?? fastener?.makerTorqueNm ?? 100;
   const values = planFormValues(
-    {
-      name: "",
-      gasketId: gasket?.id ?? 0,
-      fastenerId: fastener?.id ?? 0,
-      lubricant: fastener?.makerLubricant ?? "",
-      threadFriction: fastener?.threadFriction ?? 0.12,
-      bearingFriction: fastener?.bearingFriction ?? 0.12,
-      method: "torque-estimated-friction",
-      torqueNm,
-      stagesNm: [Math.round(torqueNm * 0.4), Math.round(torqueNm * 0.7), torqueNm],
-      wireLocation: gasket?.type === "solid-copper" ? "block" : "none",
-      wireProjectionMm: gasket?.type === "solid-copper" ? 0.1 : 0,
-      receiverGrooveDepthMm: 0,
-      sleeveProtrusionMm: null,
-      targetMargin: 1.5,
-      notes: "",
-    },
+    template
+      ? { ...template, name: "", notes: "" }
+      : {
+          name: "",
+          gasketId: gasket?.id ?? 0,
+          fastenerId: fastener?.id ?? 0,
+          lubricant: fastener?.makerLubricant ?? "",
+          threadFriction: fastener?.threadFriction ?? 0.12,
+          bearingFriction: fastener?.bearingFriction ?? 0.12,
+          method: "torque-estimated-friction",
+          torqueNm,
+          stagesNm: [Math.round(torqueNm * 0.4), Math.round(torqueNm * 0.7), torqueNm],
+          wireLocation: gasket?.type === "solid-copper" ? "block" : "none",
+          wireProjectionMm: gasket?.type === "solid-copper" ? 0.1 : 0,
+          receiverGrooveDepthMm: 0,
+          sleeveProtrusionMm: null,
+          targetMargin: 1.5,
+          notes: "",
+        },
     user.units,
   );
   return { units: user.units, engine, choices, values, emptyLibrary: !fastener || !gasket };

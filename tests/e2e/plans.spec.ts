@@ -1,0 +1,95 @@
+import { expect, test, type Page } from "@playwright/test";
+import { screenshot, seriousViolations, signIn } from "./fixtures";
+
+const FOUR = "Fenwick-Oddy 2.0 four";
+
+async function openFirstPlan(page: Page) {
+  await page.goto("/engines");
+  await page.getByRole("link", { name: FOUR }).click();
+  await page.getByRole("navigation", { name: "Engine" }).getByRole("link", { name: "Seal plans" }).click();
+  await expect(page.getByRole("heading", { name: "Seal plans" })).toBeVisible();
+  await page.getByRole("table").getByRole("link").first().click();
+  await expect(page.getByRole("heading", { name: "Estimate" })).toBeVisible();
+}
+
+test("the builder adds two plans, watches the estimate follow the torque, compares and chooses", async ({ page }) => {
+  await signIn(page, "builder@example.com");
+  await page.goto("/engines");
+  await page.getByRole("link", { name: FOUR }).click();
+  const engineUrl = page.url().replace(/\/$/, "");
+
+  for (const [name, torque] of [["Bench plan A", "140"], ["Bench plan B", "175"]] as const) {
+    await page.goto(`${engineUrl}/plans/new`);
+    await page.getByLabel("Plan name").fill(name);
+    await page.getByLabel(/Final torque/).fill(torque);
+    await page.getByLabel(/Stages/).fill(`60, ${torque}`);
+    await page.getByRole("button", { name: "Create plan" }).click();
+    await expect(page.getByRole("heading", { name })).toBeVisible();
+    await expect(page.getByRole("status")).toHaveText("✔ Plan created.");
+  }
+
+  // Live estimate: change the torque, the preload figure follows without saving.
+  const preload = page.getByTestId("preload");
+  const before = await preload.textContent();
+  await page.getByLabel(/Final torque/).fill("120");
+  await page.getByLabel(/Stages/).fill("60, 120");
+  await expect(preload).not.toHaveText(before ?? "");
+  await expect(page.getByTestId("maker-figure")).toContainText("Fastener maker's figure");
+  await expect(page.getByRole("note", { name: "Caution" })).toBeVisible();
+  await expect(page.getByTestId("maker-figure")).toContainText("below the maker's figure");
+  await page.waitForTimeout(300);
+  await screenshot(page, "plan-editor");
+  expect(await seriousViolations(page)).toEqual([]);
+
+  // Suggest a torque for the target.
+  await page.getByRole("button", { name: "Suggest torque for the target" }).click();
+  await expect(page.getByTestId("suggestion")).toBeVisible();
+
+  // Compare the two new plans and choose one.
+  await page.goto(`${engineUrl}/plans`);
+  for (const box of await page.getByRole("checkbox").all()) await box.uncheck();
+  await page.getByRole("checkbox", { name: "Compare Bench plan A" }).check();
+  await page.getByRole("checkbox", { name: "Compare Bench plan B" }).check();
+  await page.getByRole("button", { name: "Compare ticked plans" }).click();
+  await expect(page.getByRole("heading", { name: "Compare plans" })).toBeVisible();
+  const table = page.getByRole("table");
+  await expect(table.getByRole("columnheader")).toHaveText(["Output", /Bench plan A/, /Bench plan B/]);
+  await expect(table.getByText("★ best").first()).toBeVisible();
+  await expect(page.getByRole("note", { name: "Caution" })).toBeVisible();
+  await screenshot(page, "compare");
+  expect(await seriousViolations(page)).toEqual([]);
+  await page.getByRole("button", { name: "Mark “Bench plan B” as chosen" }).click();
+  await expect(page.getByRole("status")).toHaveText("✔ “Bench plan B” is now the chosen plan.");
+  await expect(table.getByRole("columnheader", { name: /Bench plan B/ })).toContainText("✔ chosen");
+});
+
+test("switching to imperial converts the figures", async ({ page }) => {
+  await signIn(page, "owner@example.com");
+  await openFirstPlan(page);
+  await expect(page.getByLabel(/Final torque \(N·m\)/)).toBeVisible();
+  const metricTorque = Number(await page.getByLabel(/Final torque/).inputValue());
+  await page.goto("/settings");
+  await page.getByLabel(/Imperial/).check();
+  await page.getByRole("button", { name: "Save" }).click();
+  await expect(page.getByRole("status")).toHaveText("✔ Units saved.");
+  await openFirstPlan(page);
+  const imperialTorque = Number(await page.getByLabel(/Final torque \(lbf·ft\)/).inputValue());
+  // 1 lbf·ft = 1.3558179 N·m (NIST SP 811)
+  expect(imperialTorque).toBeCloseTo(metricTorque / 1.3558179, 0);
+  await expect(page.getByTestId("preload")).toContainText("lbf");
+  await page.goto("/settings");
+  await page.getByLabel(/Metric/).check();
+  await page.getByRole("button", { name: "Save" }).click();
+});
+
+test("the viewer reads plans but has no edit controls", async ({ page }) => {
+  await signIn(page, "viewer@example.com");
+  await openFirstPlan(page);
+  await expect(page.getByRole("button", { name: "Save plan" })).toHaveCount(0);
+  await expect(page.getByRole("button", { name: "Mark as chosen" })).toHaveCount(0);
+  await expect(page.getByLabel(/Final torque/)).toBeDisabled();
+  await expect(page.getByTestId("maker-figure")).toBeVisible();
+  await expect(page.getByRole("note", { name: "Caution" })).toBeVisible();
+  await page.goBack();
+  await expect(page.getByRole("link", { name: "New plan" })).toHaveCount(0);
+});
