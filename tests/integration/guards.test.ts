@@ -3,7 +3,7 @@ import * as dashboard from "~/routes/app/dashboard";
 import * as engineList from "~/routes/engines/list";
 import * as evidence from "~/routes/app/evidence";
 import * as layout from "~/routes/app/layout";
-import * as libraries from "~/routes/app/libraries";
+import * as libraries from "~/routes/libraries/list";
 import * as settings from "~/routes/app/settings";
 import * as team from "~/routes/app/team";
 import * as teamSwitch from "~/routes/app/team-switch";
@@ -41,7 +41,7 @@ const MATRIX: Cell[] = [
   { name: "GET app shell", run: page(layout.loader, "/dashboard"), expect: { anonymous: 302, viewer: 200, builder: 200, owner: 200, otherTeam: 200 } },
   { name: "GET /dashboard", run: page(dashboard.loader, "/dashboard"), expect: { anonymous: 302, viewer: 200, builder: 200, owner: 200, otherTeam: 200 } },
   { name: "GET /engines", run: page(engineList.loader, "/engines"), expect: { anonymous: 302, viewer: 200, builder: 200, owner: 200, otherTeam: 200 } },
-  { name: "GET /libraries", run: page(libraries.loader, "/libraries"), expect: { anonymous: 302, viewer: 403, builder: 200, owner: 200, otherTeam: 200 } },
+  { name: "GET /libraries", run: (cookie) => call(libraries.loader as Handler, get("/libraries/fasteners", cookie), { kind: "fasteners" }), expect: { anonymous: 302, viewer: 403, builder: 200, owner: 200, otherTeam: 200 } },
   { name: "GET /evidence", run: page(evidence.loader, "/evidence"), expect: { anonymous: 302, viewer: 403, builder: 200, owner: 200, otherTeam: 200 } },
   { name: "GET /team", run: page(team.loader, "/team"), expect: { anonymous: 302, viewer: 403, builder: 403, owner: 200, otherTeam: 200 } },
   {

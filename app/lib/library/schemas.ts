@@ -136,3 +136,7 @@ export function gasketConsistency(g: {
     out.push({ field: "finishMaxRaUm", message: "The roughest finish must be at least the smoothest" });
   return out;
 }
+
+export function isLibraryKind(s: string | undefined): s is LibraryKind {
+  return (LIBRARY_KINDS as readonly string[]).includes(s ?? "");
+}

@@ -1,0 +1,285 @@
+import { data, Form, Link, redirect, useNavigation } from "react-router";
+import type { ReactNode } from "react";
+import type { Route } from "./+types/edit";
+import { Caution } from "~/components/caution";
+import { Button, Field, FormError } from "~/components/form";
+import { sourceLine } from "~/lib/library/display";
+import {
+  FASTENER_FRICTION_FIELDS,
+  FASTENER_GEOMETRY_FIELDS,
+  FASTENER_MAKER_FIELDS,
+  formValues,
+  GASKET_NUMBER_FIELDS,
+  MATERIAL_NUMBER_FIELDS,
+  parseLibraryForm,
+  type NumberField,
+} from "~/lib/library/fields";
+import { unitLabel, type UnitSystem } from "~/lib/library/quantities";
+import {
+  GASKET_TYPE_LABELS,
+  isLibraryKind,
+  LIBRARY_GASKET_TYPES,
+  MATERIAL_KIND_LABELS,
+  MATERIAL_KINDS,
+  type LibraryKind,
+} from "~/lib/library/schemas";
+import {
+  createLibraryItem,
+  getMaterial,
+  listMaterials,
+  requireLibraryItem,
+  setLibraryArchived,
+  updateLibraryItem,
+} from "~/models/library.server";
+import { requireRole } from "~/utils/auth.server";
+import { flashToast } from "~/utils/toast.server";
+
+// One module for two routes: "library-new" (:kind/new) and "library-edit" (:kind/:itemId).
+
+const SINGULAR: Record<LibraryKind, string> = { fasteners: "fastener", gaskets: "gasket", materials: "material" };
+
+export const meta: Route.MetaFunction = ({ params }) => {
+  const kind = params.kind as LibraryKind;
+  const what = SINGULAR[kind] ?? "library item";
+  return [{ title: `${"itemId" in params && params.itemId ? "Edit" : "New"} ${what} · Sealwright` }];
+};
+
+function kindOf(param: string | undefined): LibraryKind {
+  if (!isLibraryKind(param)) throw data("There is no such library.", { status: 404 });
+  return param;
+}
+
+const itemIdOf = (params: Record<string, string | undefined>) => params.itemId;
+
+export async function loader({ request, params }: Route.LoaderArgs) {
+  const { user, team } = await requireRole(request, "builder");
+  const kind = kindOf(params.kind);
+  const units = user.units as UnitSystem;
+  const itemId = itemIdOf(params);
+  const item = itemId ? await requireLibraryItem(kind, team.id, itemId) : null;
+  const materials =
+    kind === "fasteners"
+      ? (await listMaterials(team.id, { includeArchived: true }))
+          .filter((m) => !m.archivedAt || (item && "materialId" in item && item.materialId === m.id))
+          .map((m) => ({ id: m.id, name: m.name, kind: m.kind }))
+      : [];
+  return {
+    kind,
+    units,
+    materials,
+    item: item
+      ? { id: item.id, name: item.name, archived: Boolean(item.archivedAt), provenance: sourceLine(item), seeded: Boolean(item.source) }
+      : null,
+    values: item ? formValues(kind, item as unknown as Record<string, unknown>, units) : defaults(kind),
+  };
+}
+
+function defaults(kind: LibraryKind): Record<string, string> {
+  if (kind === "fasteners") return { threadSystem: "unified", reducedShankLengthMm: "0", washerThicknessMm: "0", threadFriction: "0.12", bearingFriction: "0.12" };
+  if (kind === "gaskets") return { type: "mls", relaxationPercent: "0" };
+  return { kind: "aluminium" };
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const { user, team } = await requireRole(request, "builder");
+  const kind = kindOf(params.kind);
+  const itemId = itemIdOf(params);
+  // Another team's row is a 404 before anything is read from the form.
+  const item = itemId ? await requireLibraryItem(kind, team.id, itemId) : null;
+  const form = Object.fromEntries([...(await request.formData())].map(([k, v]) => [k, typeof v === "string" ? v : ""]));
+  const intent = form.intent ?? "save";
+  const back = `/libraries/${kind}`;
+  const done = async (message: string, to = back) =>
+    redirect(to, { headers: { "Set-Cookie": await flashToast(request, { kind: "done", message }) } });
+
+  if (intent === "archive" || intent === "unarchive") {
+    if (!item) throw data("Save it first; only a saved row can be archived.", { status: 400 });
+    await setLibraryArchived(kind, team.id, item.id, user.id, intent === "archive");
+    return done(intent === "archive" ? `Archived “${item.name}”. It no longer appears in pickers.` : `“${item.name}” is back in the library.`);
+  }
+  if (intent !== "save") return data({ errors: { form: "Unknown action." } as Record<string, string>, values: form }, { status: 400 });
+
+  const parsed = parseLibraryForm(kind, form, user.units as UnitSystem);
+  if (!parsed.ok) return data({ errors: parsed.errors, values: form }, { status: 400 });
+  if ("materialId" in parsed.value && !(await getMaterial(team.id, parsed.value.materialId)))
+    return data({ errors: { materialId: "Pick one of this shop's materials" } as Record<string, string>, values: form }, { status: 400 });
+  if (item) {
+    await updateLibraryItem(kind, team.id, item.id, user.id, parsed.value);
+    return done(`Saved “${parsed.value.name}”.`);
+  }
+  await createLibraryItem(kind, team.id, user.id, parsed.value);
+  return done(`Added “${parsed.value.name}” to the ${kind}.`);
+}
+
+export default function LibraryEdit({ loaderData, actionData }: Route.ComponentProps) {
+  const { kind, units, materials, item } = loaderData;
+  const values: Record<string, string> = actionData?.values ?? loaderData.values;
+  const errors: Record<string, string> = actionData?.errors ?? {};
+  const busy = useNavigation().state === "submitting";
+  const what = SINGULAR[kind];
+  const count = Object.keys(errors).length;
+  const props = { values, errors, units };
+  return (
+    <section aria-labelledby="edit-heading" className="max-w-4xl">
+      <p className="mb-2 text-sm">
+        <Link to={`/libraries/${kind}`} className="text-copper-700 underline">
+          ← All {kind}
+        </Link>
+      </p>
+      <h2 id="edit-heading" className="text-2xl font-bold">
+        {item ? `Edit ${what}: ${item.name}` : `New ${what}`}
+        {item?.archived ? <span className="ml-2 rounded border border-forge-300 px-1 text-sm font-normal">⊘ Archived</span> : null}
+      </h2>
+      <p className="mb-4 text-sm text-forge-700">
+        {item ? <>Source: {item.provenance}. </> : null}
+        Figures in your units ({units}); the shop's data is stored in SI.
+      </p>
+      {kind === "fasteners" ? <Caution className="mb-4" /> : null}
+      {count > 0 ? <FormError message={errors.form ?? `Nothing was saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention.`} /> : null}
+
+      <Form method="post" noValidate className="mt-4 space-y-6">
+        <Field label="Name" name="name" defaultValue={values.name ?? ""} error={errors.name} required maxLength={120} />
+        {kind === "materials" ? (
+          <>
+            <Select name="kind" label="Kind" value={values.kind} error={errors.kind} options={MATERIAL_KINDS.map((k) => [k, MATERIAL_KIND_LABELS[k]])} />
+            <Grid fields={MATERIAL_NUMBER_FIELDS} {...props} />
+          </>
+        ) : null}
+        {kind === "gaskets" ? (
+          <>
+            <Select name="type" label="Type" value={values.type} error={errors.type} options={LIBRARY_GASKET_TYPES.map((t) => [t, GASKET_TYPE_LABELS[t]])} />
+            <Grid fields={GASKET_NUMBER_FIELDS} {...props} />
+          </>
+        ) : null}
+        {kind === "fasteners" ? (
+          <>
+            <fieldset className="rounded border-2 border-copper-600 bg-copper-50 p-4">
+              <legend className="px-1 text-lg font-bold">From the fastener maker's sheet</legend>
+              <p className="mb-3 text-sm">
+                Record the maker's own torque, lubricant, stages and stretch exactly as the sheet gives them. Wherever our estimate shows a torque,
+                these figures stand beside it, and they govern.
+              </p>
+              <div className="grid gap-4 sm:grid-cols-2">
+                <NumberInput field={FASTENER_MAKER_FIELDS[0]!} {...props} />
+                <Field label="Maker's lubricant" name="makerLubricant" defaultValue={values.makerLubricant ?? ""} error={errors.makerLubricant} maxLength={120} />
+                <Field
+                  label="Maker's stages"
+                  name="makerStages"
+                  defaultValue={values.makerStages ?? ""}
+                  error={errors.makerStages}
+                  maxLength={200}
+                  hint="As the sheet words it, e.g. “40, 80, then 115 lbf·ft, centre outward”."
+                />
+                <NumberInput field={FASTENER_MAKER_FIELDS[1]!} {...props} />
+              </div>
+              <p className="mt-3 text-sm text-forge-700">📎 Attach the maker's sheet: arrives with uploads.</p>
+            </fieldset>
+            <fieldset className="rounded border border-forge-300 bg-white p-4">
+              <legend className="px-1 font-bold">Thread, shank and washer</legend>
+              <div className="mb-4 grid gap-4 sm:grid-cols-2">
+                <Select
+                  name="threadSystem"
+                  label="Thread system"
+                  value={values.threadSystem}
+                  error={errors.threadSystem}
+                  options={[
+                    ["unified", "Unified inch (UNF/UNC)"],
+                    ["metric", "Metric (ISO)"],
+                  ]}
+                />
+                <Select
+                  name="materialId"
+                  label="Stud material"
+                  value={values.materialId}
+                  error={errors.materialId}
+                  options={[["", "Pick a material…"], ...materials.map((m): [string, string] => [String(m.id), m.name])]}
+                />
+              </div>
+              <Grid fields={FASTENER_GEOMETRY_FIELDS} {...props} />
+            </fieldset>
+            <fieldset className="rounded border border-forge-300 bg-white p-4">
+              <legend className="px-1 font-bold">Friction for our estimate</legend>
+              <Grid fields={FASTENER_FRICTION_FIELDS} {...props} />
+            </fieldset>
+          </>
+        ) : null}
+
+        <div className="flex flex-wrap items-center gap-3 border-t border-forge-100 pt-4">
+          <Button type="submit" name="intent" value="save" disabled={busy}>
+            {item ? "Save" : `Add ${what}`}
+          </Button>
+          {item ? (
+            <Button type="submit" kind="plain" name="intent" value={item.archived ? "unarchive" : "archive"} formNoValidate disabled={busy}>
+              {item.archived ? "Bring back from archive" : "Archive"}
+            </Button>
+          ) : null}
+          <Link to={`/libraries/${kind}`} className="text-copper-700 underline">
+            Cancel
+          </Link>
+        </div>
+      </Form>
+    </section>
+  );
+}
+
+interface InputProps {
+  values: Record<string, string>;
+  errors: Record<string, string>;
+  units: UnitSystem;
+}
+
+function Grid({ fields, ...props }: InputProps & { fields: NumberField[] }) {
+  return (
+    <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
+      {fields.map((f) => (
+        <NumberInput key={f.name} field={f} {...props} />
+      ))}
+    </div>
+  );
+}
+
+function NumberInput({ field, values, errors, units }: InputProps & { field: NumberField }) {
+  const unit = field.special === "pitch" ? "" : unitLabel(field.quantity, units);
+  const label = `${field.label}${unit ? ` (${unit})` : ""}${field.optional ? " — optional" : ""}`;
+  return (
+    <Field
+      label={label}
+      name={field.name}
+      inputMode="decimal"
+      autoComplete="off"
+      defaultValue={values[field.name] ?? ""}
+      error={errors[field.name]}
+      hint={field.hint}
+    />
+  );
+}
+
+function Select({ name, label, value, error, options }: { name: string; label: string; value?: string; error?: string; options: [string, string][] }): ReactNode {
+  const id = `f-${name}`;
+  return (
+    <div>
+      <label htmlFor={id} className="block text-sm font-medium text-forge-800">
+        {label}
+      </label>
+      <select
+        id={id}
+        name={name}
+        defaultValue={value ?? ""}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${id}-error` : undefined}
+        className="mt-1 block w-full rounded border border-forge-300 bg-white px-3 py-2 text-base aria-[invalid]:border-failed"
+      >
+        {options.map(([v, text]) => (
+          <option key={v} value={v}>
+            {text}
+          </option>
+        ))}
+      </select>
+      {error ? (
+        <p id={`${id}-error`} className="mt-1 text-sm font-medium text-failed">
+          ✖ {error}
+        </p>
+      ) : null}
+    </div>
+  );
+}
