@@ -93,6 +93,8 @@ export const GasketSchema = z
   });
 export type GasketInput = z.infer<typeof GasketSchema>;
 
+const round3 = (x: number) => String(Math.round(x * 1000) / 1000);
+
 export interface ConsistencyIssue {
   field: string;
   message: string;
@@ -109,6 +111,9 @@ export function fastenerConsistency(f: {
 }): ConsistencyIssue[] {
   const out: ConsistencyIssue[] = [];
   if (f.pitchMm >= f.diameterMm) out.push({ field: "pitchMm", message: "Thread pitch must be smaller than the diameter" });
+  // the clamp model refuses pitches coarser than d/4 (app/lib/clamp/schema.ts); say so here first
+  else if (f.pitchMm > f.diameterMm / 4)
+    out.push({ field: "pitchMm", message: `A ${round3(f.pitchMm)} mm pitch is too coarse for a ${round3(f.diameterMm)} mm thread` });
   if (f.reducedShankDiameterMm !== null && f.reducedShankDiameterMm >= f.diameterMm)
     out.push({ field: "reducedShankDiameterMm", message: "Reduced shank must be narrower than the thread" });
   if (f.reducedShankLengthMm > 0 && f.reducedShankDiameterMm === null)
