@@ -62,17 +62,18 @@ export default function EngineLayout({ loaderData }: Route.ComponentProps) {
 }
 
 export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
-  const notFound = isRouteErrorResponse(error) && error.status === 404;
+  const status = isRouteErrorResponse(error) ? error.status : 500;
+  const title = status === 404 ? "No such engine" : status === 403 ? "Not open to your role" : "Something went wrong";
+  const text =
+    status === 404
+      ? "This shop has no engine at that address. It may have been archived, or it belongs to another shop."
+      : isRouteErrorResponse(error)
+        ? String(error.data)
+        : "The engine page could not be shown.";
   return (
     <div className="rounded border border-forge-300 bg-white p-6">
-      <h1 className="text-2xl font-bold">{notFound ? "No such engine" : "Something went wrong"}</h1>
-      <p className="mt-2 text-forge-700">
-        {notFound
-          ? "This shop has no engine at that address. It may have been archived, or it belongs to another shop."
-          : isRouteErrorResponse(error)
-            ? String(error.data)
-            : "The engine page could not be shown."}
-      </p>
+      <h1 className="text-2xl font-bold">{title}</h1>
+      <p className="mt-2 text-forge-700">{text}</p>
       <p className="mt-4">
         <Link to="/engines" className="text-copper-700 underline">
           Back to the engines
