@@ -194,7 +194,7 @@ export const DEMO_FASTENERS = [
 ] as const;
 
 const KSI = 6.894757; // MPa per ksi (NIST SP 811)
-const ASME = "m and y from ASME VIII-1 App. 2 Table 2-5.1 (REFERENCES §6): flange design values, used as a conservative seal criterion, not head-gasket data";
+const ASME = "m, y: ASME VIII-1 App. 2 Table 2-5.1 (REFERENCES §6), flange design values used as a conservative criterion";
 
 export const DEMO_GASKETS = [
   {
@@ -214,7 +214,7 @@ export const DEMO_GASKETS = [
     relaxation_percent: 5,
     finish_min_ra_um: 0.8,
     finish_max_ra_um: 3.2,
-    source: `${DEMO} geometry; ${ASME} (solid flat copper 4.75 / 13,000 psi); ring = stainless wire (REFERENCES §7), seal-line yield = annealed copper 70 MPa; relaxation 5 % an estimate; copper tolerates a rougher face (common practice, REFERENCES §9)`,
+    source: `${DEMO} geometry; ${ASME}: solid flat copper; wire = 300-series stainless, seal-line yield = annealed copper 70 MPa (REFERENCES §7); relaxation 5 % and finish window estimates`,
   },
   {
     name: "Solid copper 1.1 mm, 87 mm bore, plain",
@@ -233,7 +233,7 @@ export const DEMO_GASKETS = [
     relaxation_percent: 5,
     finish_min_ra_um: 0.8,
     finish_max_ra_um: 3.2,
-    source: `${DEMO} geometry; ${ASME} (solid flat copper 4.75 / 13,000 psi); copper modulus and yield REFERENCES §7; seal line = the sleeve top land; relaxation 5 % an estimate`,
+    source: `${DEMO} geometry; ${ASME}: solid flat copper; copper E and yield REFERENCES §7; seal line = sleeve top land; relaxation 5 % an estimate`,
   },
   {
     name: "Multilayer steel 1.3 mm, 87 mm bore",
@@ -252,7 +252,7 @@ export const DEMO_GASKETS = [
     relaxation_percent: 1,
     finish_min_ra_um: 0.5,
     finish_max_ra_um: 1.3,
-    source: `${DEMO} geometry; ${ASME} (spiral-wound stainless 3.00 / 10,000 psi, the closest listed construction); embossed-layer body modulus 5 GPa and bead yield 1000 MPa are estimates (common practice); finish Ra 0.5–1.3 µm (about 20–50 µin, common practice, REFERENCES §9)`,
+    source: `${DEMO} geometry; ${ASME}: spiral-wound stainless, the closest listed; body modulus 5 GPa, bead yield 1000 MPa estimates; finish Ra 0.5–1.3 µm common practice (REFERENCES §9)`,
   },
   {
     name: "Multilayer steel 1.3 mm, 107 mm bore, ring in the sleeve",
@@ -271,7 +271,7 @@ export const DEMO_GASKETS = [
     relaxation_percent: 1,
     finish_min_ra_um: 0.5,
     finish_max_ra_um: 1.3,
-    source: `${DEMO} geometry; ${ASME} (spiral-wound stainless 3.00 / 10,000 psi, the closest listed construction); ring = annealed 300-series stainless (REFERENCES §7); body modulus 5 GPa an estimate (common practice); finish per REFERENCES §9`,
+    source: `${DEMO} geometry; ${ASME}: spiral-wound stainless, the closest listed; ring = annealed 300-series stainless (REFERENCES §7); body modulus 5 GPa an estimate; finish per REFERENCES §9`,
   },
   {
     name: "Fire-ring gasket 1.2 mm, 107 mm bore",
@@ -290,7 +290,7 @@ export const DEMO_GASKETS = [
     relaxation_percent: 2,
     finish_min_ra_um: 0.8,
     finish_max_ra_um: 2.0,
-    source: `${DEMO} geometry; ${ASME} (ring joint soft steel 5.50 / 18,000 psi); soft-steel ring yield 250 MPa, body modulus 3 GPa and finish window are estimates (common practice)`,
+    source: `${DEMO} geometry; ${ASME}: ring joint soft steel; ring yield 250 MPa, body modulus 3 GPa and finish window estimates (common practice)`,
   },
 ] as const;
 

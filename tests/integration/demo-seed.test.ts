@@ -162,6 +162,15 @@ describe("the demo seed", () => {
     }
   });
 
+  it("every library source fits its column (300 characters) and every seeded row has one", async () => {
+    for (const table of ["materials", "fasteners", "gaskets"]) {
+      for (const r of await db()(table).whereNull("entered_by")) {
+        expect(r.source, `${table}: ${r.name}`).toBeTruthy();
+        expect(r.source.length, `${table}: ${r.name}`).toBeLessThanOrEqual(300);
+      }
+    }
+  });
+
   it("the other team has the handbook library but no demo engines", async () => {
     const other = await db()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id");
     expect((await db()("materials").where({ team_id: other.id })).length).toBe(10);

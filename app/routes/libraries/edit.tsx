@@ -172,7 +172,7 @@ export default function LibraryEdit({ loaderData, actionData }: Route.ComponentP
                 />
                 <NumberInput field={FASTENER_MAKER_FIELDS[1]!} {...props} />
               </div>
-              <p className="mt-3 text-sm text-forge-700">📎 Attach the maker's sheet: arrives with uploads.</p>
+              <p className="mt-3 text-sm text-forge-700">Attach the maker's sheet: arrives with uploads.</p>
             </fieldset>
             <fieldset className="rounded border border-forge-300 bg-white p-4">
               <legend className="px-1 font-bold">Thread, shank and washer</legend>

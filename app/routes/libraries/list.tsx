@@ -101,7 +101,7 @@ function SourceCell({ row }: { row: LibraryRow }) {
   const seeded = Boolean(row.source);
   return (
     <td className={`${td} max-w-md text-xs text-forge-700`}>
-      <span aria-hidden="true">{seeded ? "📖 " : "✎ "}</span>
+      <span aria-hidden="true">{seeded ? "§ " : "✎ "}</span>
       {sourceLine(row)}
     </td>
   );
