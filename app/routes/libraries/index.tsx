@@ -6,3 +6,9 @@ export async function loader({ request }: Route.LoaderArgs) {
   await requireRole(request, "builder");
   return redirect("/libraries/fasteners");
 }
+
+// A page component keeps this a UI route, so a refusal (403) shows the kind "Not allowed" page
+// rather than a bare response; the loader always redirects before it renders.
+export default function LibrariesIndex() {
+  return null;
+}

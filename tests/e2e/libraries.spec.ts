@@ -1,0 +1,55 @@
+import { expect, test } from "@playwright/test";
+import { screenshot, seriousViolations, signIn } from "./fixtures";
+
+test("the builder adds a fastener with the maker's figures, sees it listed, and archives it", async ({ page }) => {
+  await signIn(page, "builder@example.com");
+  await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Libraries" }).click();
+  await expect(page).toHaveURL(/\/libraries\/fasteners$/);
+  await expect(page.getByRole("heading", { name: /Fasteners/ })).toBeVisible();
+  // seeded rows name their source
+  await expect(page.getByRole("cell", { name: /demo data \(invented\)/ }).first()).toBeVisible();
+  await expect(page.getByRole("note", { name: "Caution" })).toBeVisible();
+
+  await page.getByRole("link", { name: "New fastener" }).click();
+  await expect(page.getByRole("group", { name: "From the fastener maker's sheet" })).toBeVisible();
+  await expect(page.getByText("Attach the maker's sheet: arrives with uploads")).toBeVisible();
+  await page.getByLabel("Name").fill("E2E M11×1.5 head stud");
+  await page.getByLabel(/^Maker's recommended torque/).fill("118");
+  await page.getByLabel("Maker's lubricant").fill("Moly assembly paste");
+  await page.getByLabel("Maker's stages").fill("40, 80, then 118 N·m");
+  await page.getByLabel("Thread system").selectOption("metric");
+  await page.getByLabel("Stud material").selectOption({ label: "Alloy steel stud, ISO 898-1 class 12.9" });
+  await page.getByLabel(/^Thread diameter/).fill("11");
+  await page.getByLabel(/^Pitch/).fill("1.5");
+  await page.getByLabel(/^Free thread in the grip/).fill("15");
+  await page.getByLabel(/^Thread engagement/).fill("22");
+  await page.getByLabel(/^Washer outer diameter/).fill("20");
+  await page.getByLabel(/^Washer hole/).fill("11.5");
+  await page.getByLabel(/^Washer thickness/).fill("3");
+  expect(await seriousViolations(page)).toEqual([]);
+  await screenshot(page, "library-fastener-form");
+  await page.getByRole("button", { name: "Add fastener" }).click();
+
+  await expect(page).toHaveURL(/\/libraries\/fasteners$/);
+  await expect(page.getByRole("status")).toContainText("Added “E2E M11×1.5 head stud”");
+  const row = page.getByRole("row", { name: /E2E M11×1\.5 head stud/ });
+  await expect(row).toContainText("118 N·m");
+  await expect(row).toContainText("Moly assembly paste");
+  await expect(row).toContainText("entered by Teo Vastrick");
+  await screenshot(page, "library-fasteners");
+
+  await row.getByRole("link", { name: "E2E M11×1.5 head stud" }).click();
+  await page.getByRole("button", { name: "Archive" }).click();
+  await expect(page.getByRole("status")).toContainText("Archived");
+  await expect(page.getByRole("row", { name: /E2E M11×1\.5 head stud/ })).toHaveCount(0);
+  await page.getByRole("button", { name: /Show archived/ }).click();
+  await expect(page.getByRole("row", { name: /E2E M11×1\.5 head stud/ })).toContainText("Archived");
+});
+
+test("the viewer is not allowed into the libraries", async ({ page }) => {
+  await signIn(page, "viewer@example.com");
+  await page.goto("/libraries");
+  await expect(page.getByRole("heading", { name: "Not allowed" })).toBeVisible();
+  await page.goto("/libraries/gaskets");
+  await expect(page.getByRole("heading", { name: "Not allowed" })).toBeVisible();
+});
