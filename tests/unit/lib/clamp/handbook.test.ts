@@ -1,0 +1,53 @@
+// REFERENCES.md §7 materials and §6 gasket factors as carried in app/lib/clamp/handbook.ts.
+// These are transcription checks (a wrong digit fails) plus the one conversion in the table.
+import { describe, expect, it } from "vitest";
+import { ASME_GASKET_FACTORS, FASTENER_CLASSES, HANDBOOK_MATERIALS, LIMITING_SURFACE_PRESSURE_MPA } from "../../../../app/lib/clamp";
+import { PSI_TO_MPA, relErr } from "../nist";
+
+describe("§7 materials (typical or minimum, as REFERENCES notes)", () => {
+  it.each([
+    ["a356-t6", 72_400, 165, 21.4, "Aluminum Association data via MatWeb"],
+    ["6061-t6", 68_900, 276, 23.6, "MatWeb"],
+    ["7075-t6", 71_700, 503, 23.4, "MatWeb"],
+    ["gray-iron-30-40", 100_000, undefined, 10.8, "ASTM A48; Shigley table A-5"],
+    ["ductile-65-45-12", 169_000, 310, 11.5, "ASTM A536"],
+    ["4340-qt", 205_000, 1379, 12.3, "MatWeb"],
+    ["stainless-300-wire", 193_000, 207, 17.3, "MatWeb"],
+    ["c11000-annealed", 115_000, 70, 17.0, "copper producer data sheet"],
+  ])("%s: E %d MPa, yield %s MPa, α %d µm/m·°C (%s)", (key, E, y, a, source) => {
+    const m = HANDBOOK_MATERIALS[key];
+    expect(m.modulusMpa).toBe(E);
+    expect(m.yieldMpa).toBe(y);
+    expect(m.expansionUmPerMC).toBe(a);
+    expect(m.source).toBe(source);
+  });
+  it("fastener classes: ISO 898-1 10.9 proof 830, 12.9 proof 970; SAE J429 grade 8 130 ksi yield = 896.3 MPa (NIST SP 811)", () => {
+    expect(FASTENER_CLASSES["iso-10.9"].proofMpa).toBe(830);
+    expect(FASTENER_CLASSES["iso-12.9"].proofMpa).toBe(970);
+    // 130 000 psi × 0.006894757 MPa/psi = 896.318 MPa, ±0.01 %
+    expect(relErr(FASTENER_CLASSES["sae-grade-8"].yieldMpa, 130_000 * PSI_TO_MPA)).toBeLessThan(1e-4);
+    expect(FASTENER_CLASSES["sae-grade-8"].yieldMpa).toBeCloseTo(896.318, 2);
+    expect(FASTENER_CLASSES["sae-grade-8"].tensileMpa).toBeCloseTo(1034.21, 1);
+  });
+  it("limiting surface pressures (VDI 2230 2003 via a catalogue)", () => {
+    expect(LIMITING_SURFACE_PRESSURE_MPA).toEqual({
+      "AlSi7Mg heat-treated (cast)": 380,
+      "AlSi9Cu3 die cast": 290,
+      AlMgSi1: 260,
+      "GJL-250 gray iron": 900,
+      "GJS-500 ductile iron": 900,
+    });
+  });
+  it("§6 ASME Table 2-5.1 m / y (flange design values)", () => {
+    expect(ASME_GASKET_FACTORS["solid flat copper"]).toEqual({ m: 4.75, yPsi: 13_000 });
+    expect(ASME_GASKET_FACTORS["solid flat soft steel"]).toEqual({ m: 5.5, yPsi: 18_000 });
+    expect(ASME_GASKET_FACTORS["solid flat stainless"]).toEqual({ m: 6.5, yPsi: 26_000 });
+    expect(ASME_GASKET_FACTORS["solid flat aluminium"]).toEqual({ m: 4.0, yPsi: 8_800 });
+    expect(ASME_GASKET_FACTORS["corrugated metal, copper"]).toEqual({ m: 3.0, yPsi: 4_500 });
+    expect(ASME_GASKET_FACTORS["ring joint, soft steel"]).toEqual({ m: 5.5, yPsi: 18_000 });
+    expect(ASME_GASKET_FACTORS["spiral-wound stainless"]).toEqual({ m: 3.0, yPsi: 10_000 });
+  });
+  it("§5 statement: an aluminium head on steel studs gains preload when hot (handbook expansions)", () => {
+    expect(HANDBOOK_MATERIALS["a356-t6"].expansionUmPerMC).toBeGreaterThan(HANDBOOK_MATERIALS["4340-qt"].expansionUmPerMC);
+  });
+});
