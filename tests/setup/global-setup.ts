@@ -2,19 +2,25 @@ import fs from "node:fs";
 import path from "node:path";
 import knexFactory from "knex";
 import { register } from "tsx/esm/api";
+import type { TestProject } from "vitest/node";
 import { knexConfig } from "../../app/utils/knex-config.server.ts";
 
-export const TMP_DIR = path.resolve("tests/.tmp");
-export const TEMPLATE_DB = path.join(TMP_DIR, "template.sqlite");
+declare module "vitest" {
+  export interface ProvidedContext {
+    testDbDir: string;
+  }
+}
 
 // Build the test database once per run from the migrations and the demo seed, so it can never go stale.
-// Each test file copies it (tests/setup/setup-file.ts).
-export default async function setup() {
+// Each test file copies it (tests/setup/setup-file.ts). Each run has its own folder, so two runs at
+// once (a developer and an editor plugin, say) never share files.
+export default async function setup(project: TestProject) {
+  const dir = path.resolve("tests/.tmp", `run-${process.pid}`);
+  fs.rmSync(dir, { recursive: true, force: true });
+  fs.mkdirSync(dir, { recursive: true });
   // Knex imports the TypeScript migrations itself; the main Vitest process needs tsx for that.
   const unregister = register();
-  fs.rmSync(TMP_DIR, { recursive: true, force: true });
-  fs.mkdirSync(TMP_DIR, { recursive: true });
-  const knex = knexFactory(knexConfig(TEMPLATE_DB));
+  const knex = knexFactory(knexConfig(path.join(dir, "template.sqlite")));
   try {
     await knex.migrate.latest();
     await knex.seed.run();
@@ -24,5 +30,6 @@ export default async function setup() {
     await knex.destroy();
     await unregister();
   }
-  return () => fs.rmSync(TMP_DIR, { recursive: true, force: true });
+  project.provide("testDbDir", dir);
+  return () => fs.rmSync(dir, { recursive: true, force: true });
 }

@@ -1,10 +1,10 @@
 import crypto from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
-import { afterAll, afterEach, beforeEach, vi } from "vitest";
+import { afterAll, afterEach, beforeEach, inject, vi } from "vitest";
 
 // Each test file gets its own copy of the migrated, seeded template database.
-const tmp = path.resolve("tests/.tmp");
+const tmp = inject("testDbDir");
 const file = path.join(tmp, `db-${process.pid}-${crypto.randomBytes(4).toString("hex")}.sqlite`);
 fs.copyFileSync(path.join(tmp, "template.sqlite"), file);
 process.env.DATABASE_PATH = file;
@@ -19,7 +19,7 @@ beforeEach(() => {
 afterEach(() => {
   const calls = errorSpy.mock.calls;
   errorSpy.mockRestore();
-  if (calls.length > 0) throw new Error(`console.error was called: ${calls.map((c) => c.join(" ")).join("\n")}`);
+  if (calls.length > 0) throw new Error(`console.error was called: ${calls.map((c: unknown[]) => c.join(" ")).join("\n")}`);
 });
 
 afterAll(async () => {
