@@ -16,7 +16,8 @@ test("the builder adds two plans, watches the estimate follow the torque, compar
   await signIn(page, "builder@example.com");
   await page.goto("/engines");
   await page.getByRole("link", { name: FOUR }).click();
-  const engineUrl = page.url().replace(/\/$/, "");
+  await page.waitForURL(/\/engines\/\d+$/);
+  const engineUrl = page.url();
 
   for (const [name, torque] of [["Bench plan A", "140"], ["Bench plan B", "175"]] as const) {
     await page.goto(`${engineUrl}/plans/new`);
