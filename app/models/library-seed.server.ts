@@ -150,8 +150,8 @@ export const DEMO_FASTENERS = [
     source: `${DEMO}: maker's torque, lubricant, stages and stretch invented; thread per ASME B1.1`,
   },
   {
-    name: "7/16-20 alloy steel head stud, full shank",
-    material: "Alloy steel stud, SAE J429 grade 8",
+    name: "7/16-20 chromoly head stud, full shank",
+    material: "4340 steel, quenched and tempered",
     thread_system: "unified",
     diameter_mm: 0.4375 * IN,
     pitch_mm: IN / 20,
@@ -244,7 +244,7 @@ export const DEMO_GASKETS = [
     ring_width_mm: 2.5,
     ring_modulus_mpa: 193_000,
     seal_line_yield_mpa: 1_000,
-    body_modulus_mpa: 5_000,
+    body_modulus_mpa: 2_000,
     body_area_per_bore_mm2: 3_800,
     expansion_um_per_m_c: 17.3,
     m: 3.0,
@@ -252,7 +252,7 @@ export const DEMO_GASKETS = [
     relaxation_percent: 1,
     finish_min_ra_um: 0.5,
     finish_max_ra_um: 1.3,
-    source: `${DEMO} geometry; ${ASME}: spiral-wound stainless, the closest listed; body modulus 5 GPa, bead yield 1000 MPa estimates; finish Ra 0.5–1.3 µm common practice (REFERENCES §9)`,
+    source: `${DEMO} geometry; ${ASME}: spiral-wound stainless, the closest listed; body modulus 2 GPa (embossed layers), bead yield 1000 MPa estimates; finish Ra 0.5–1.3 µm common practice (REFERENCES §9)`,
   },
   {
     name: "Multilayer steel 1.3 mm, 107 mm bore, ring in the sleeve",

@@ -153,7 +153,7 @@ export const DEMO_ENGINES: EngineSeed[] = [
       {
         name: "MLS 1.3 mm at maker torque",
         gasket: "Multilayer steel 1.3 mm, 87 mm bore",
-        fastener: "7/16-20 alloy steel head stud, full shank",
+        fastener: "7/16-20 chromoly head stud, full shank",
         lubricant: "Clean engine oil",
         thread_friction: 0.15,
         bearing_friction: 0.16,
@@ -170,7 +170,7 @@ export const DEMO_ENGINES: EngineSeed[] = [
       {
         name: "MLS 1.3 mm, extra 10 %",
         gasket: "Multilayer steel 1.3 mm, 87 mm bore",
-        fastener: "7/16-20 alloy steel head stud, full shank",
+        fastener: "7/16-20 chromoly head stud, full shank",
         lubricant: "Clean engine oil",
         thread_friction: 0.15,
         bearing_friction: 0.16,
