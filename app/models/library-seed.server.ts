@@ -252,7 +252,7 @@ export const DEMO_GASKETS = [
     relaxation_percent: 1,
     finish_min_ra_um: 0.5,
     finish_max_ra_um: 1.3,
-    source: `${DEMO} geometry; ${ASME}: spiral-wound stainless, the closest listed; body modulus 2 GPa (embossed layers), bead yield 1000 MPa estimates; finish Ra 0.5–1.3 µm common practice (REFERENCES §9)`,
+    source: `${DEMO} geometry; ${ASME}: spiral-wound stainless, the closest listed; body modulus 2 GPa, bead yield 1000 MPa estimates; finish Ra 0.5–1.3 µm common practice (REFERENCES §9)`,
   },
   {
     name: "Multilayer steel 1.3 mm, 107 mm bore, ring in the sleeve",
