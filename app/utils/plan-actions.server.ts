@@ -2,6 +2,8 @@ import { suggest, parsePlan, type Suggestion } from "~/lib/clamp";
 import { assemblePlanInput } from "~/lib/plan/assemble";
 import { estimateView, type EstimateView } from "~/lib/plan/estimate-view";
 import type { PlanWrite } from "~/lib/plan/form";
+import { displayWording } from "~/lib/plan/wording";
+import type { UnitSystem } from "~/lib/units";
 import type { EngineRow } from "~/models/engine.server";
 import { planParts } from "~/models/plan.server";
 
@@ -11,14 +13,15 @@ export async function previewPlan(
   engine: EngineRow,
   plan: PlanWrite,
   withSuggestion: boolean,
+  units: UnitSystem = "metric",
 ): Promise<{ view: EstimateView | null; suggestion: Suggestion | null; problems: string[] }> {
   const parts = await planParts(teamId, engine, plan);
   if (!parts) return { view: null, suggestion: null, problems: ["Pick a gasket and fastener from this shop's library."] };
   const parsed = parsePlan(assemblePlanInput(parts));
   if (!parsed.ok) return { view: null, suggestion: null, problems: parsed.errors.map((e) => e.message) };
   return {
-    view: estimateView(parsed.plan),
-    suggestion: withSuggestion ? suggest(parsed.plan, { targetMargin: plan.targetMargin }) : null,
+    view: estimateView(parsed.plan, displayWording(units)),
+    suggestion: withSuggestion ? suggest(parsed.plan, { targetMargin: plan.targetMargin, wording: displayWording(units) }) : null,
     problems: [],
   };
 }

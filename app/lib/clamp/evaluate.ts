@@ -7,6 +7,7 @@ import { jointUnderLoad } from "./stiffness";
 import type { ThreadGeometry } from "./thread";
 import { preloadBand, tighteningStress, type PreloadBand, type TighteningStress } from "./torque";
 import { planWarnings } from "./warnings";
+import { SI_WORDING, type Wording } from "./wording";
 
 export interface CylinderEstimate {
   /** 1-based cylinder number. */
@@ -108,11 +109,11 @@ export function targetTorqueAndPreload(p: Prepared): { torqueNm: number; preload
 }
 
 /** Full estimate for a validated plan (parse with PlanInputSchema first). */
-export function evaluatePlan(input: PlanInput): PlanEstimate {
-  return evaluatePrepared(prepare(input), undefined);
+export function evaluatePlan(input: PlanInput, wording: Wording = SI_WORDING): PlanEstimate {
+  return evaluatePrepared(prepare(input), undefined, wording);
 }
 
-export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefined): PlanEstimate {
+export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefined, wording: Wording = SI_WORDING): PlanEstimate {
   const base = targetTorqueAndPreload(p);
   const torqueNm = torqueOverrideNm ?? base.torqueNm;
   const F = torqueOverrideNm === undefined ? base.preloadN : (torqueOverrideNm * 1000) / p.torquePerPreloadMm;
@@ -232,6 +233,6 @@ export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefin
     },
     warnings: [],
   };
-  estimate.warnings = planWarnings(p, estimate);
+  estimate.warnings = planWarnings(p, estimate, wording);
   return estimate;
 }

@@ -1,8 +1,16 @@
 // The squeeze point: the torque past which more torque mostly compresses the head (ours, DESIGN.md).
 import { boreSeal } from "./cylinders";
+import { SI_WORDING, type Wording } from "./wording";
 import { hotSettledPreload, type Prepared } from "./model";
 
 export type SqueezeCause = "share" | "head-bearing" | "stud-yield";
+
+/** The causes in words, for sentences. */
+export const CAUSE_WORDS: Record<SqueezeCause, string> = {
+  share: "seal-line share",
+  "head-bearing": "head bearing pressure",
+  "stud-yield": "stud stress",
+};
 
 export interface SqueezePoint {
   torqueNm: number;
@@ -61,10 +69,10 @@ export function bufferTorque(p: Prepared, bore: number, ceilingNm: number): numb
   return hi;
 }
 
-const nm = (x: number) => `${x.toFixed(0)} N·m`;
 
 /** The first limit reached as torque rises, with a plain explanation. */
-export function squeezePoint(p: Prepared): SqueezePoint {
+export function squeezePoint(p: Prepared, w: Wording = SI_WORDING): SqueezePoint {
+  const nm = w.torque;
   const t = squeezeTorques(p);
   let cause: SqueezeCause = "share";
   if (t["head-bearing"] < t[cause]) cause = "head-bearing";
@@ -82,7 +90,7 @@ export function squeezePoint(p: Prepared): SqueezePoint {
     if (torqueNm === 0)
       explanation = `From the first turn, under ${threshold} % of added clamp reaches the seal line (it does not stand proud of the body): more torque mostly squeezes the body and head.`;
   } else if (cause === "head-bearing") {
-    explanation = `Past ${nm(torqueNm)} the washer at the top of the preload band presses the head harder than its alloy's ${p.plan.head.limitingSurfacePressureMpa.toFixed(0)} MPa limit; more torque sinks the washer into the head.`;
+    explanation = `Past ${nm(torqueNm)} the washer at the top of the preload band presses the head harder than its alloy's ${w.stress(p.plan.head.limitingSurfacePressureMpa)} limit; more torque sinks the washer into the head.`;
   } else {
     explanation = `Past ${nm(torqueNm)} the stud at the top of the preload band passes ${Math.round(p.plan.model.studLimitFraction * 100)} % of its yield strength in equivalent stress.`;
   }

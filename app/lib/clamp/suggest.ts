@@ -3,10 +3,13 @@
 import { boreSeal } from "./cylinders";
 import { prepare, type Prepared } from "./model";
 import type { PlanInput } from "./schema";
-import { leastClampedBore, squeezePoint, type SqueezePoint } from "./squeeze";
+import { CAUSE_WORDS, leastClampedBore, squeezePoint, type SqueezePoint } from "./squeeze";
+import { SI_WORDING, type Wording } from "./wording";
 
 export interface SuggestOptions {
   targetMargin: number;
+  /** How figures read in the sentences (SI unless given). */
+  wording?: Wording;
 }
 
 export interface Suggestion {
@@ -51,9 +54,6 @@ function smallestTorque(p: Prepared, target: number, limitNm: number): number | 
   return hi;
 }
 
-const nm = (x: number) => `${x.toFixed(0)} N·m`;
-const kN = (x: number) => `${(x / 1000).toFixed(1)} kN`;
-const mm = (x: number) => `${x.toFixed(3)} mm`;
 
 function withProtrusion(input: PlanInput, protrusionMm: number): PlanInput {
   return { ...input, sealing: { ...input.sealing, sleeveProtrusionMm: protrusionMm } };
@@ -74,9 +74,10 @@ function protrusionSearch(input: PlanInput, target: number): { protrusionMm: num
 }
 
 export function suggest(input: PlanInput, options: SuggestOptions): Suggestion {
+  const { torque: nm, force: kN, length: mm } = options.wording ?? SI_WORDING;
   const target = options.targetMargin;
   const p = prepare(input);
-  const limit = squeezePoint(p);
+  const limit = squeezePoint(p, options.wording);
   const marginAtLimit = weakestMarginAtTorque(p, limit.torqueNm);
   const torqueNm = smallestTorque(p, target, limit.torqueNm);
   const found = protrusionSearch(input, target);
@@ -90,7 +91,7 @@ export function suggest(input: PlanInput, options: SuggestOptions): Suggestion {
       protrusion: helps,
       changes: [],
       summary:
-        `${nm(torqueNm)} reaches a seal margin of ${target.toFixed(2)} on the weakest cylinder, below the squeeze point (${nm(limit.torqueNm)}, ${limit.cause}).` +
+        `${nm(torqueNm)} reaches a seal margin of ${target.toFixed(2)} on the weakest cylinder, below the squeeze point (${nm(limit.torqueNm)}, ${CAUSE_WORDS[limit.cause]}).` +
         (helps ? ` With ${mm(helps.protrusionMm)} sleeve protrusion it would take ${nm(helps.torqueNm)}.` : ""),
     };
   }
@@ -124,7 +125,7 @@ export function suggest(input: PlanInput, options: SuggestOptions): Suggestion {
     }
     const more = hi / (w * F) - 1;
     changes.push(
-      `Cylinder ${bore + 1} needs ${kN(hi)} of clamp for a seal margin of ${target.toFixed(2)}; at the limit (${nm(limit.torqueNm)}, ${limit.cause}) its studs give ${kN(w * F)}. That is ${Math.round(more * 100)} % more stud load around that bore: more studs there, or larger studs that can carry more.`,
+      `Cylinder ${bore + 1} needs ${kN(hi)} of clamp for a seal margin of ${target.toFixed(2)}; at the limit (${nm(limit.torqueNm)}, ${CAUSE_WORDS[limit.cause]}) its studs give ${kN(w * F)}. That is ${Math.round(more * 100)} % more stud load around that bore: more studs there, or larger studs that can carry more.`,
     );
   }
   if (found) {
@@ -141,6 +142,6 @@ export function suggest(input: PlanInput, options: SuggestOptions): Suggestion {
     marginAtLimit,
     protrusion: found,
     changes,
-    summary: `No torque reaches a seal margin of ${target.toFixed(2)} before the limit: at ${nm(limit.torqueNm)} (${limit.cause}) the weakest cylinder has ${marginAtLimit.toFixed(2)}.`,
+    summary: `No torque reaches a seal margin of ${target.toFixed(2)} before the limit: at ${nm(limit.torqueNm)} (${CAUSE_WORDS[limit.cause]}) the weakest cylinder has ${marginAtLimit.toFixed(2)}.`,
   };
 }

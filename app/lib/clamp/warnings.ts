@@ -1,12 +1,13 @@
 // Plain-English warnings for the builder. Figures are SI; the UI may restate them in its units.
 import type { PlanEstimate } from "./evaluate";
 import type { Prepared } from "./model";
+import { SI_WORDING, type Wording } from "./wording";
 
-const kN = (n: number) => `${(n / 1000).toFixed(1)} kN`;
 const pct = (x: number) => `${Math.round(x * 100)} %`;
 const f2 = (x: number) => x.toFixed(2);
 
-export function planWarnings(p: Prepared, e: PlanEstimate): string[] {
+export function planWarnings(p: Prepared, e: PlanEstimate, w: Wording = SI_WORDING): string[] {
+  const kN = w.force;
   const out: string[] = [];
   const plan = p.plan;
   const limitFraction = plan.model.studLimitFraction;
@@ -17,7 +18,7 @@ export function planWarnings(p: Prepared, e: PlanEstimate): string[] {
   }
   if (e.head.bearingUtilizationMax > 1) {
     out.push(
-      `Under the washer the head sees up to ${e.head.bearingPressureMaxMpa.toFixed(0)} MPa, above the ${e.head.limitMpa.toFixed(0)} MPa the head alloy carries: the washer will sink into the head. Use a larger washer or less torque.`,
+      `Under the washer the head sees up to ${w.stress(e.head.bearingPressureMaxMpa)}, above the ${w.stress(e.head.limitMpa)} the head alloy carries: the washer will sink into the head. Use a larger washer or less torque.`,
     );
   }
   const below = e.cylinders.filter((c) => c.sealMargin < 1);
@@ -51,9 +52,9 @@ export function planWarnings(p: Prepared, e: PlanEstimate): string[] {
   const needed = plan.block.modulusMpa < 90_000 ? 2 * d : 1.25 * d;
   if (plan.fastener.engagementMm < needed) {
     out.push(
-      `Thread engagement ${plan.fastener.engagementMm.toFixed(1)} mm is short for this block; shops usually want ${needed.toFixed(1)} mm.`,
+      `Thread engagement ${w.length(plan.fastener.engagementMm)} is short for this block; shops usually want ${w.length(needed)}.`,
     );
   }
-  if (p.peakEstimated) out.push(`Peak cylinder pressure ${p.peakPressureMpa.toFixed(1)} MPa is an estimate. ${p.peakNote}`);
+  if (p.peakEstimated) out.push(`Peak cylinder pressure ${w.stress(p.peakPressureMpa)} is an estimate. ${p.peakNote}`);
   return out;
 }

@@ -1,6 +1,6 @@
 // What the plan editor and the API show for one plan: the estimate, a torque sweep around the
 // plan's torque, and the uncertainty run. Pure; SI throughout (the page converts for display).
-import { evaluatePlan, prepare, squeezePoint, torqueSweep, uncertainty, type PlanInput, type PlanEstimate, type SqueezePoint } from "../clamp";
+import { evaluatePlan, prepare, SI_WORDING, squeezePoint, torqueSweep, uncertainty, type PlanInput, type PlanEstimate, type SqueezePoint, type Wording } from "../clamp";
 
 export interface SweepRow {
   torqueNm: number;
@@ -31,8 +31,8 @@ export function sweepRange(torqueNm: number): { fromNm: number; toNm: number } {
   return { fromNm: torqueNm * 0.4, toNm: Math.min(5000, torqueNm * 1.6) };
 }
 
-export function estimateView(input: PlanInput): EstimateView {
-  const estimate = evaluatePlan(input);
+export function estimateView(input: PlanInput, wording: Wording = SI_WORDING): EstimateView {
+  const estimate = evaluatePlan(input, wording);
   const torqueNm = estimate.tightening.torqueNm;
   const sweep = torqueSweep(input, { ...sweepRange(torqueNm), points: SWEEP_POINTS });
   const run = uncertainty(input, { samples: UNCERTAINTY_SAMPLES, seed: SEED });
@@ -47,7 +47,7 @@ export function estimateView(input: PlanInput): EstimateView {
       studUtilizationMax: pt.studUtilizationMax,
       bearingUtilizationMax: pt.bearingPressureMaxMpa / limit,
     })),
-    squeezePoint: squeezePoint(prepare(input)),
+    squeezePoint: squeezePoint(prepare(input), wording),
     shareThreshold: sweep.shareThreshold,
     probabilityMarginBelowOne: run.probabilityMarginBelowOne,
     weakestMarginBand: run.weakestMargin,

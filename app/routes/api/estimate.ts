@@ -1,20 +1,23 @@
 import { PlanInputSchema } from "~/lib/clamp";
 import { estimateView } from "~/lib/plan/estimate-view";
+import { displayWording } from "~/lib/plan/wording";
 import { requireApiMember } from "~/utils/auth.server";
 import { readJsonBody } from "~/utils/json-body.server";
 
-// POST /api/v1/estimate  { input: PlanInput (SI) } → the estimate, sweep and uncertainty.
+// POST /api/v1/estimate  { input: PlanInput (SI), units?: "metric" | "imperial" } → the estimate, sweep and
+// uncertainty. Figures are SI; `units` only sets how the sentences (warnings, squeeze point) read.
 // Session-authorized; validated with the clamp model's own schema; computes only, stores nothing.
 export async function action({ request }: { request: Request }) {
   if (request.method !== "POST") return Response.json({ error: "Use POST." }, { status: 405 });
   await requireApiMember(request);
-  const body = (await readJsonBody(request)) as { input?: unknown } | null;
+  const body = (await readJsonBody(request)) as { input?: unknown; units?: unknown } | null;
   const parsed = PlanInputSchema.safeParse(body && typeof body === "object" ? body.input : undefined);
   if (!parsed.success) {
     const errors = parsed.error.issues.map((i) => ({ path: i.path.join("."), message: i.message }));
     return Response.json({ error: "The plan has problems; nothing was estimated.", errors }, { status: 400 });
   }
-  return Response.json(estimateView(parsed.data));
+  const units = body && body.units === "imperial" ? "imperial" : "metric";
+  return Response.json(estimateView(parsed.data, displayWording(units)));
 }
 
 export function loader() {

@@ -17,7 +17,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const plans = await listPlans(team.id, engine.id);
   const wanted = new URL(request.url).searchParams.getAll("ids").map(Number);
   const picked = (wanted.length ? plans.filter((p) => wanted.includes(p.id)) : plans).slice(0, 4);
-  const columns = await Promise.all(picked.map(async (plan) => ({ plan, result: await estimatePlan(team.id, engine, plan) })));
+  const columns = await Promise.all(picked.map(async (plan) => ({ plan, result: await estimatePlan(team.id, engine, plan, user.units) })));
   return { units: user.units, canEdit: roleAtLeast(role, "builder"), engineId: engine.id, chosenPlanId: engine.chosenPlanId, plans: plans.map((p) => ({ id: p.id, name: p.name })), columns, tooMany: wanted.length > 4 };
 }
 

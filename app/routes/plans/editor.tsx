@@ -25,7 +25,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team, role } = await requireUser(request);
   const engine = await requireEngine(team.id, params.engineId);
   const plan = await requirePlan(team.id, engine.id, params.planId);
-  const [choices, materials, result] = await Promise.all([planChoices(team.id), engineMaterials(team.id, engine), estimatePlan(team.id, engine, plan)]);
+  const [choices, materials, result] = await Promise.all([planChoices(team.id), engineMaterials(team.id, engine), estimatePlan(team.id, engine, plan, user.units)]);
   return {
     units: user.units,
     canEdit: roleAtLeast(role, "builder"),
@@ -81,7 +81,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     return redirect(`${base}/${plan.id}`, { headers: await toast("Plan saved.") });
   }
   // "estimate" and "suggest": compute for the values as typed; nothing is written.
-  const out = await previewPlan(team.id, engine, parsed.plan, intent === "suggest");
+  const out = await previewPlan(team.id, engine, parsed.plan, intent === "suggest", user.units);
   return data({ errors: {}, values, preview: out.view, suggestion: out.suggestion, problems: out.problems }, { status: out.problems.length ? 400 : 200 });
 }
 
@@ -180,7 +180,7 @@ function useLiveEstimate(d: Route.ComponentProps["loaderData"]) {
       const gasket = d.choices.gaskets.find((g) => g.id === parsed.plan.gasketId);
       if (!fastener || !gasket || !d.materials.head || !d.materials.block) return;
       const input = assemblePlanInput({ engine: d.engine, plan: parsed.plan, fastener, gasket, head: d.materials.head, block: d.materials.block, sleeve: d.materials.sleeve });
-      fetcher.submit({ input } as never, { method: "post", action: "/api/v1/estimate", encType: "application/json" });
+      fetcher.submit({ input, units: d.units } as never, { method: "post", action: "/api/v1/estimate", encType: "application/json" });
     }, 300);
   };
 

@@ -16,7 +16,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const plans = await listPlans(team.id, engine.id);
   const rows = await Promise.all(
     plans.map(async (plan) => {
-      const r = await estimatePlan(team.id, engine, plan);
+      const r = await estimatePlan(team.id, engine, plan, user.units);
       return {
         id: plan.id,
         name: plan.name,
