@@ -1,6 +1,6 @@
-import { useState, type ReactNode, type SelectHTMLAttributes } from "react";
+import { useState, type ReactNode } from "react";
 import { Form, Link } from "react-router";
-import { Button, Field, FormError } from "~/components/form";
+import { Button, Field, FormError, SelectField } from "~/components/form";
 import {
   ENGINE_STATUSES,
   formatShare,
@@ -71,13 +71,13 @@ export function EngineForm({ values, errors, materials, units, submitLabel, canc
       <Fieldset legend="The engine">
         <Field label="Name" name="name" defaultValue={f.name} error={errors.name} required maxLength={120} />
         <Field label="Customer" name="customer" defaultValue={f.customer} error={errors.customer} maxLength={120} />
-        <Select label="Status" name="status" defaultValue={f.status} error={errors.status}>
+        <SelectField label="Status" name="status" defaultValue={f.status} error={errors.status}>
           {ENGINE_STATUSES.map((s) => (
             <option key={s} value={s}>
               {STATUS_LABEL[s].word}
             </option>
           ))}
-        </Select>
+        </SelectField>
       </Fieldset>
 
       <Fieldset legend="Layout and geometry">
@@ -90,10 +90,10 @@ export function EngineForm({ values, errors, materials, units, submitLabel, canc
           inputMode="numeric"
           hint="1 to 16; a V needs an even count."
         />
-        <Select label="Layout" name="layout" value={layout} onChange={(e) => setLayout(e.target.value)} error={errors.layout}>
+        <SelectField label="Layout" name="layout" value={layout} onChange={(e) => setLayout(e.target.value)} error={errors.layout}>
           <option value="inline">Inline (one bank)</option>
           <option value="V">V (two banks)</option>
-        </Select>
+        </SelectField>
         {n("boreMm", `Bore (${len})`)}
         {n("strokeMm", `Stroke (${len})`)}
         {n("rodLengthMm", `Rod length (${len}), optional`, { hint: "Centre to centre; longer than half the stroke." })}
@@ -104,13 +104,13 @@ export function EngineForm({ values, errors, materials, units, submitLabel, canc
       <Fieldset legend="Materials and sleeves">
         <MaterialSelect label="Block (deck) material" name="blockMaterialId" value={f.blockMaterialId} error={errors.blockMaterialId} materials={materials} />
         <MaterialSelect label="Head material" name="headMaterialId" value={f.headMaterialId} error={errors.headMaterialId} materials={materials} />
-        <Select label="Sleeves" name="sleeveKind" value={sleeveKind} onChange={(e) => setSleeveKind(e.target.value)} error={errors.sleeveKind}>
+        <SelectField label="Sleeves" name="sleeveKind" value={sleeveKind} onChange={(e) => setSleeveKind(e.target.value)} error={errors.sleeveKind}>
           {SLEEVE_KINDS.map((k) => (
             <option key={k} value={k}>
               {SLEEVE_LABEL[k]}
             </option>
           ))}
-        </Select>
+        </SelectField>
         {sleeveKind !== "none" ? (
           <>
             <MaterialSelect label="Sleeve material" name="sleeveMaterialId" value={f.sleeveMaterialId} error={errors.sleeveMaterialId} materials={materials} />
@@ -388,37 +388,7 @@ function Fieldset({ legend, children }: { legend: string; children: ReactNode })
   );
 }
 
-interface SelectProps extends SelectHTMLAttributes<HTMLSelectElement> {
-  label: string;
-  name: string;
-  error?: string;
-}
 
-function Select({ label, name, error, children, ...rest }: SelectProps) {
-  const id = `f-${name}`;
-  return (
-    <div>
-      <label htmlFor={id} className="block text-sm font-medium text-forge-800">
-        {label}
-      </label>
-      <select
-        id={id}
-        name={name}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${id}-error` : undefined}
-        className="mt-1 block w-full rounded border border-forge-300 bg-white px-3 py-2 text-base aria-[invalid]:border-failed"
-        {...rest}
-      >
-        {children}
-      </select>
-      {error ? (
-        <p id={`${id}-error`} className="mt-1 text-sm font-medium text-failed">
-          ✖ {error}
-        </p>
-      ) : null}
-    </div>
-  );
-}
 
 const KIND_WORD: Record<string, string> = {
   aluminium: "Aluminium",
@@ -432,7 +402,7 @@ const KIND_WORD: Record<string, string> = {
 function MaterialSelect({ label, name, value, error, materials }: { label: string; name: string; value?: string; error?: string; materials: MaterialChoice[] }) {
   const kinds = [...new Set(materials.map((m) => m.kind))];
   return (
-    <Select label={label} name={name} defaultValue={value ?? ""} error={error}>
+    <SelectField label={label} name={name} defaultValue={value ?? ""} error={error}>
       <option value="">{materials.length === 0 ? "No materials in the library yet" : "Choose…"}</option>
       {kinds.map((k) => (
         <optgroup key={k} label={KIND_WORD[k] ?? k}>
@@ -445,6 +415,6 @@ function MaterialSelect({ label, name, value, error, materials }: { label: strin
             ))}
         </optgroup>
       ))}
-    </Select>
+    </SelectField>
   );
 }

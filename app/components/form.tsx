@@ -1,4 +1,4 @@
-import type { InputHTMLAttributes, ReactNode } from "react";
+import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes } from "react";
 
 interface FieldProps extends InputHTMLAttributes<HTMLInputElement> {
   label: string;
@@ -29,11 +29,52 @@ export function Field({ label, name, error, hint, id, className = "", ...input }
           {hint}
         </p>
       ) : null}
-      {error ? (
-        <p id={`${fieldId}-error`} className="mt-1 text-sm font-medium text-failed">
-          ✖ {error}
-        </p>
-      ) : null}
+      <FieldError id={fieldId} error={error} />
+    </div>
+  );
+}
+
+function FieldError({ id, error }: { id: string; error?: string }) {
+  if (!error) return null;
+  return (
+    <p id={`${id}-error`} className="mt-1 text-sm font-medium text-failed">
+      ✖ {error}
+    </p>
+  );
+}
+
+interface SelectFieldProps extends SelectHTMLAttributes<HTMLSelectElement> {
+  label: string;
+  name: string;
+  error?: string;
+  /** [value, text] pairs; or pass <option>s as children. */
+  options?: [string, string][];
+}
+
+// A labelled select, tied to its error message like Field.
+export function SelectField({ label, name, error, options, children, ...rest }: SelectFieldProps) {
+  const id = `f-${name}`;
+  return (
+    <div>
+      <label htmlFor={id} className="block text-sm font-medium text-forge-800">
+        {label}
+      </label>
+      <select
+        id={id}
+        name={name}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${id}-error` : undefined}
+        className="mt-1 block w-full rounded border border-forge-300 bg-white px-3 py-2 text-base aria-[invalid]:border-failed"
+        {...rest}
+      >
+        {options?.map(([v, text]) => (
+          <option key={v} value={v}>
+            {text}
+          </option>
+        ))}
+        {children}
+      </select>
+      <FieldError id={id} error={error} />
     </div>
   );
 }

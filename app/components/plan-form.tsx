@@ -1,7 +1,7 @@
 import type { FastenerInfo, GasketInfo } from "~/models/plan.server";
 import { METHOD_LABEL, WIRE_LABEL } from "~/lib/plan/form";
 import { unitFor, type UnitSystem } from "~/lib/units";
-import { Field } from "./form";
+import { Field, SelectField } from "./form";
 
 interface Props {
   values: Record<string, string>;
@@ -19,10 +19,10 @@ export function PlanFields({ values, errors, choices, units, sleeved, engineProt
   return (
     <div className="space-y-4">
       <Field label="Plan name" name="name" defaultValue={values.name} error={errors.name} required />
-      <Select label="Gasket" name="gasketId" value={values.gasketId} error={errors.gasketId} options={choices.gaskets.map((g) => [String(g.id), g.name])} />
+      <SelectField label="Gasket" name="gasketId" defaultValue={values.gasketId} error={errors.gasketId} options={choices.gaskets.map((g) => [String(g.id), g.name])} />
       <fieldset className="space-y-3 rounded border border-forge-100 p-3">
         <legend className="px-1 font-bold">Sealing details</legend>
-        <Select label="Wire ring" name="wireLocation" value={values.wireLocation} error={errors.wireLocation} options={Object.entries(WIRE_LABEL)} />
+        <SelectField label="Wire ring" name="wireLocation" defaultValue={values.wireLocation} error={errors.wireLocation} options={Object.entries(WIRE_LABEL)} />
         <div className="grid grid-cols-2 gap-3">
           <Field label={`Wire projection (${smallUnit})`} name="wireProjection" inputMode="decimal" defaultValue={values.wireProjection} error={errors.wireProjection} hint="How far the wire stands above its face." />
           <Field label={`Receiver groove depth (${smallUnit})`} name="receiverGrooveDepth" inputMode="decimal" defaultValue={values.receiverGrooveDepth} error={errors.receiverGrooveDepth} />
@@ -35,13 +35,13 @@ export function PlanFields({ values, errors, choices, units, sleeved, engineProt
       </fieldset>
       <fieldset className="space-y-3 rounded border border-forge-100 p-3">
         <legend className="px-1 font-bold">Fastener and tightening</legend>
-        <Select label="Fastener" name="fastenerId" value={values.fastenerId} error={errors.fastenerId} options={choices.fasteners.map((f) => [String(f.id), f.name])} />
+        <SelectField label="Fastener" name="fastenerId" defaultValue={values.fastenerId} error={errors.fastenerId} options={choices.fasteners.map((f) => [String(f.id), f.name])} />
         <Field label="Lubricant" name="lubricant" defaultValue={values.lubricant} error={errors.lubricant} hint="Use the fastener maker's lubricant; friction below should match it." />
         <div className="grid grid-cols-2 gap-3">
           <Field label="Thread friction μG" name="threadFriction" inputMode="decimal" defaultValue={values.threadFriction} error={errors.threadFriction} />
           <Field label="Bearing friction μK" name="bearingFriction" inputMode="decimal" defaultValue={values.bearingFriction} error={errors.bearingFriction} />
         </div>
-        <Select label="Tightening method" name="method" value={values.method} error={errors.method} options={Object.entries(METHOD_LABEL)} />
+        <SelectField label="Tightening method" name="method" defaultValue={values.method} error={errors.method} options={Object.entries(METHOD_LABEL)} />
         <div className="grid grid-cols-2 gap-3">
           <Field label={`Final torque (${torqueUnit})`} name="torque" inputMode="decimal" defaultValue={values.torque} error={errors.torque} required />
           <Field label={`Stages (${torqueUnit}, comma-separated)`} name="stages" defaultValue={values.stages} error={errors.stages} hint="Rising, ending at the final torque." />
@@ -60,25 +60,3 @@ export function PlanFields({ values, errors, choices, units, sleeved, engineProt
   );
 }
 
-function Select({ label, name, value, error, options }: { label: string; name: string; value?: string; error?: string; options: [string, string][] }) {
-  const id = `f-${name}`;
-  return (
-    <div>
-      <label htmlFor={id} className="block text-sm font-medium text-forge-800">
-        {label}
-      </label>
-      <select id={id} name={name} defaultValue={value} aria-invalid={error ? true : undefined} aria-describedby={error ? `${id}-error` : undefined} className="mt-1 block w-full rounded border border-forge-300 bg-white px-3 py-2">
-        {options.map(([v, text]) => (
-          <option key={v} value={v}>
-            {text}
-          </option>
-        ))}
-      </select>
-      {error ? (
-        <p id={`${id}-error`} className="mt-1 text-sm font-medium text-failed">
-          ✖ {error}
-        </p>
-      ) : null}
-    </div>
-  );
-}

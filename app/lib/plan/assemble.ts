@@ -1,6 +1,6 @@
 // Builds the clamp model's input from the shop's records (engine, plan, fastener, gasket, materials).
 // Pure: plain records in, PlanInputRaw out; the schema in app/lib/clamp validates it.
-import { compressionRatio } from "../chamber";
+import { compressionRatio, type CompressionInput } from "../chamber";
 import type { PlanInputRaw, Stud } from "../clamp";
 
 export interface MaterialRecord {
@@ -88,10 +88,13 @@ const ASSEMBLY_C = 20;
 export const ASSUMED_COMPRESSION_RATIO = 9.5;
 const ATMOSPHERE_KPA = 101.325;
 
-/** Compression ratio of the engine with this gasket, or the assumed figure when the chamber is unknown. */
-export function engineCompressionRatio(engine: EngineRecord, gasket: Pick<GasketRecord, "boreMm" | "compressedThicknessMm">) {
-  if (!engine.chamberCc) return { ratio: ASSUMED_COMPRESSION_RATIO, assumed: true };
-  const result = compressionRatio({
+/** The chamber figures of this engine with this gasket, or null while the chamber volume is unknown. */
+export function chamberInput(
+  engine: Pick<EngineRecord, "boreMm" | "strokeMm" | "chamberCc" | "deckClearanceMm" | "pistonVolumeCc">,
+  gasket: Pick<GasketRecord, "boreMm" | "compressedThicknessMm">,
+): CompressionInput | null {
+  if (!engine.chamberCc) return null;
+  return {
     boreMm: engine.boreMm,
     strokeMm: engine.strokeMm,
     chamberCc: engine.chamberCc,
@@ -99,8 +102,14 @@ export function engineCompressionRatio(engine: EngineRecord, gasket: Pick<Gasket
     gasketThicknessMm: gasket.compressedThicknessMm,
     deckClearanceMm: engine.deckClearanceMm,
     pistonVolumeCc: engine.pistonVolumeCc,
-  });
-  return { ratio: result.compressionRatio, assumed: false };
+  };
+}
+
+/** Compression ratio of the engine with this gasket, or the assumed figure when the chamber is unknown. */
+export function engineCompressionRatio(engine: EngineRecord, gasket: Pick<GasketRecord, "boreMm" | "compressedThicknessMm">) {
+  const input = chamberInput(engine, gasket);
+  if (!input) return { ratio: ASSUMED_COMPRESSION_RATIO, assumed: true };
+  return { ratio: compressionRatio(input).compressionRatio, assumed: false };
 }
 
 export function assemblePlanInput(parts: PlanParts): PlanInputRaw {

@@ -1,6 +1,7 @@
 import { Form, Link } from "react-router";
 import type { Route } from "./+types/chamber";
-import { chamberProblems, gasketThicknessWhatIf, type CompressionInput } from "~/lib/chamber";
+import { chamberProblems, gasketThicknessWhatIf } from "~/lib/chamber";
+import { chamberInput } from "~/lib/plan/assemble";
 import { formatQuantity, parseQuantity, unitFor } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
 import { listPlans, planChoices } from "~/models/plan.server";
@@ -20,20 +21,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const whatIf = whatIfText ? parseQuantity(whatIfText, "smallLength", smallUnit) : null;
   const whatIfError = whatIf && !whatIf.ok ? whatIf.message : whatIf && whatIf.ok && !(whatIf.valueSi > 0 && whatIf.valueSi < 10) ? "Give a compressed thickness between 0 and 10 mm" : null;
   const base = { units: user.units, engine, gaskets: gaskets.map((g) => ({ id: g.id, name: g.name })), gasketId: gasket?.id ?? null, fromChosen: gasket?.id === chosen?.gasketId, whatIfText, whatIfError };
-  if (!gasket || !engine.chamberCc) return { ...base, problems: [!gasket ? "Add a gasket in Libraries first." : "Enter the chamber volume on the engine record (Overview → Edit)."], result: null };
-  const input: CompressionInput = {
-    boreMm: engine.boreMm,
-    strokeMm: engine.strokeMm,
-    chamberCc: engine.chamberCc,
-    gasketBoreMm: gasket.boreMm,
-    gasketThicknessMm: gasket.compressedThicknessMm,
-    deckClearanceMm: engine.deckClearanceMm,
-    pistonVolumeCc: engine.pistonVolumeCc,
-  };
+  const input = gasket ? chamberInput(engine, gasket) : null;
+  if (!input) return { ...base, problems: [!gasket ? "Add a gasket in Libraries first." : "Enter the chamber volume on the engine record (Overview → Edit)."], result: null };
   const problems = chamberProblems(input);
   if (problems.length) return { ...base, problems, result: null };
-  const newThickness = whatIf?.ok && !whatIfError ? whatIf.valueSi : gasket.compressedThicknessMm;
-  return { ...base, problems: [], result: gasketThicknessWhatIf(input, newThickness), thicknessMm: gasket.compressedThicknessMm, newThicknessMm: newThickness };
+  const newThickness = whatIf?.ok && !whatIfError ? whatIf.valueSi : input.gasketThicknessMm;
+  return { ...base, problems: [], result: gasketThicknessWhatIf(input, newThickness), thicknessMm: input.gasketThicknessMm, newThicknessMm: newThickness };
 }
 
 export default function Chamber({ loaderData }: Route.ComponentProps) {

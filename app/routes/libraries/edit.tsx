@@ -2,7 +2,7 @@ import { data, Form, Link, redirect, useNavigation } from "react-router";
 import type { ReactNode } from "react";
 import type { Route } from "./+types/edit";
 import { Caution } from "~/components/caution";
-import { Button, Field, FormError } from "~/components/form";
+import { Button, Field, FormError, SelectField } from "~/components/form";
 import { sourceLine } from "~/lib/library/display";
 import {
   FASTENER_FRICTION_FIELDS,
@@ -141,13 +141,13 @@ export default function LibraryEdit({ loaderData, actionData }: Route.ComponentP
         <Field label="Name" name="name" defaultValue={values.name ?? ""} error={errors.name} required maxLength={120} />
         {kind === "materials" ? (
           <>
-            <Select name="kind" label="Kind" value={values.kind} error={errors.kind} options={MATERIAL_KINDS.map((k) => [k, MATERIAL_KIND_LABELS[k]])} />
+            <SelectField name="kind" label="Kind" defaultValue={values.kind} error={errors.kind} options={MATERIAL_KINDS.map((k) => [k, MATERIAL_KIND_LABELS[k]])} />
             <Grid fields={MATERIAL_NUMBER_FIELDS} {...props} />
           </>
         ) : null}
         {kind === "gaskets" ? (
           <>
-            <Select name="type" label="Type" value={values.type} error={errors.type} options={LIBRARY_GASKET_TYPES.map((t) => [t, GASKET_TYPE_LABELS[t]])} />
+            <SelectField name="type" label="Type" defaultValue={values.type} error={errors.type} options={LIBRARY_GASKET_TYPES.map((t) => [t, GASKET_TYPE_LABELS[t]])} />
             <Grid fields={GASKET_NUMBER_FIELDS} {...props} />
           </>
         ) : null}
@@ -177,20 +177,20 @@ export default function LibraryEdit({ loaderData, actionData }: Route.ComponentP
             <fieldset className="rounded border border-forge-300 bg-white p-4">
               <legend className="px-1 font-bold">Thread, shank and washer</legend>
               <div className="mb-4 grid gap-4 sm:grid-cols-2">
-                <Select
+                <SelectField
                   name="threadSystem"
                   label="Thread system"
-                  value={values.threadSystem}
+                  defaultValue={values.threadSystem}
                   error={errors.threadSystem}
                   options={[
                     ["unified", "Unified inch (UNF/UNC)"],
                     ["metric", "Metric (ISO)"],
                   ]}
                 />
-                <Select
+                <SelectField
                   name="materialId"
                   label="Stud material"
-                  value={values.materialId}
+                  defaultValue={values.materialId}
                   error={errors.materialId}
                   options={[["", "Pick a material…"], ...materials.map((m): [string, string] => [String(m.id), m.name])]}
                 />
@@ -254,32 +254,3 @@ function NumberInput({ field, values, errors, units }: InputProps & { field: Num
   );
 }
 
-function Select({ name, label, value, error, options }: { name: string; label: string; value?: string; error?: string; options: [string, string][] }): ReactNode {
-  const id = `f-${name}`;
-  return (
-    <div>
-      <label htmlFor={id} className="block text-sm font-medium text-forge-800">
-        {label}
-      </label>
-      <select
-        id={id}
-        name={name}
-        defaultValue={value ?? ""}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${id}-error` : undefined}
-        className="mt-1 block w-full rounded border border-forge-300 bg-white px-3 py-2 text-base aria-[invalid]:border-failed"
-      >
-        {options.map(([v, text]) => (
-          <option key={v} value={v}>
-            {text}
-          </option>
-        ))}
-      </select>
-      {error ? (
-        <p id={`${id}-error`} className="mt-1 text-sm font-medium text-failed">
-          ✖ {error}
-        </p>
-      ) : null}
-    </div>
-  );
-}
