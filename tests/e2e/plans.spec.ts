@@ -12,14 +12,22 @@ async function openFirstPlan(page: Page) {
   await expect(page.getByRole("heading", { name: "Estimate" })).toBeVisible();
 }
 
-test("the builder adds two plans, watches the estimate follow the torque, compares and chooses", async ({ page }) => {
+test("the builder creates an engine, adds two plans, watches the estimate follow the torque, compares and chooses", async ({ page }) => {
   await signIn(page, "builder@example.com");
-  await page.goto("/engines");
-  await page.getByRole("link", { name: FOUR }).click();
+  await page.goto("/engines/new");
+  await page.getByLabel("Name", { exact: true }).fill("Bench four for plans");
+  await page.getByLabel("Bore (mm)", { exact: true }).fill("86");
+  await page.getByLabel("Stroke (mm)", { exact: true }).fill("86");
+  await page.getByLabel("Head thickness at the stud (mm)", { exact: true }).fill("100");
+  await page.getByLabel("Block (deck) material", { exact: true }).selectOption({ label: "Ductile iron 65-45-12" });
+  await page.getByLabel("Head material", { exact: true }).selectOption({ label: "A356.0-T6 cast aluminium" });
+  await page.getByLabel("Fuel", { exact: true }).fill("E85");
+  await page.getByLabel("Target manifold pressure (kPa abs)", { exact: true }).fill("300");
+  await page.getByRole("button", { name: "Save engine" }).first().click();
   await page.waitForURL(/\/engines\/\d+$/);
   const engineUrl = page.url();
 
-  for (const [name, torque] of [["Bench plan A", "140"], ["Bench plan B", "175"]] as const) {
+  for (const [name, torque] of [["Bench plan A", "110"], ["Bench plan B", "130"]] as const) {
     await page.goto(`${engineUrl}/plans/new`);
     await page.getByLabel("Plan name").fill(name);
     await page.getByLabel(/Final torque/).fill(torque);
@@ -32,8 +40,8 @@ test("the builder adds two plans, watches the estimate follow the torque, compar
   // Live estimate: change the torque, the preload figure follows without saving.
   const preload = page.getByTestId("preload");
   const before = await preload.textContent();
-  await page.getByLabel(/Final torque/).fill("120");
-  await page.getByLabel(/Stages/).fill("60, 120");
+  await page.getByLabel(/Final torque/).fill("100");
+  await page.getByLabel(/Stages/).fill("60, 100");
   await expect(preload).not.toHaveText(before ?? "");
   await expect(page.getByTestId("maker-figure")).toContainText("Fastener maker's figure");
   await expect(page.getByRole("note", { name: "Caution" })).toBeVisible();

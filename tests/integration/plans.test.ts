@@ -241,6 +241,23 @@ describe("plan editor", () => {
   });
 });
 
+describe("archiving a plan", () => {
+  it("hides it from the engine's plans and clears it as the chosen plan", async () => {
+    const params = { engineId: String(engineId) };
+    const made = await call(newPlan.action as Handler, post(`/engines/${engineId}/plans/new`, await currentForm({ name: "To be archived" }), builder), params);
+    const id = Number(made.location!.split("/").pop());
+    const planParams = { engineId: String(engineId), planId: String(id) };
+    await call(editor.action as Handler, post(`/engines/${engineId}/plans/${id}`, { intent: "choose" }, builder), planParams);
+    expect((await db()("engines").where({ id: engineId }).first()).chosen_plan_id).toBe(id);
+    expect((await call(editor.action as Handler, post(`/engines/${engineId}/plans/${id}`, { intent: "archive" }, viewer), planParams)).status).toBe(403);
+    const out = await call(editor.action as Handler, post(`/engines/${engineId}/plans/${id}`, { intent: "archive" }, builder), planParams);
+    expect(out.status).toBe(302);
+    expect((await listPlans(teamId, engineId)).map((p) => p.id)).not.toContain(id);
+    expect((await db()("engines").where({ id: engineId }).first()).chosen_plan_id).toBeNull();
+    expect((await call(editor.loader as Handler, get(`/engines/${engineId}/plans/${id}`, builder), planParams)).status).toBe(404);
+  });
+});
+
 describe("new plan", () => {
   it("creates a plan, and refuses bad input writing nothing", async () => {
     const params = { engineId: String(engineId) };

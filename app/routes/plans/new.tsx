@@ -20,7 +20,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   // Start from the chosen plan (or the latest), so a new plan differs only where the builder changes it.
   const template = plans.find((p) => p.id === engine.chosenPlanId) ?? plans[plans.length - 1];
   const fastener = choices.fasteners.find((f) => f.id === template?.fastenerId) ?? choices.fasteners[0];
-  const gasket = choices.gaskets.find((g) => g.id === template?.gasketId) ?? choices.gaskets.find((g) => g.boreMm >= engine.boreMm) ?? choices.gaskets[0];
+  // Without a plan to start from: the gasket whose bore fits this engine most closely.
+  const fitting = choices.gaskets.filter((g) => g.boreMm >= engine.boreMm).sort((x, y) => x.boreMm - y.boreMm);
+  const gasket = choices.gaskets.find((g) => g.id === template?.gasketId) ?? fitting[0] ?? choices.gaskets[0];
   const torqueNm = template?.torqueNm ?? fastener?.makerTorqueNm ?? 100;
   const values = planFormValues(
     template
