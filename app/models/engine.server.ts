@@ -322,3 +322,11 @@ export async function chosenPlanName(teamId: number, engine: EngineRow): Promise
     .first("name");
   return row?.name ?? null;
 }
+
+/** How many of the team's engines are in each status. */
+export async function engineStatusCounts(teamId: number): Promise<Record<EngineStatus, number>> {
+  const rows = await db()("engines").where({ team_id: teamId }).whereNull("archived_at").groupBy("status").select("status").count({ n: "*" });
+  const out: Record<EngineStatus, number> = { quoted: 0, "in-build": 0, running: 0, retired: 0 };
+  for (const r of rows as { status: EngineStatus; n: number }[]) out[r.status] = Number(r.n);
+  return out;
+}

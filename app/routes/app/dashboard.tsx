@@ -1,58 +1,120 @@
+import { Link } from "react-router";
 import type { Route } from "./+types/dashboard";
 import { PageTitle } from "~/components/app-shell";
 import { Caution } from "~/components/caution";
-import { listAuditEvents, listMembers } from "~/models/team.server";
+import { StatusBadge } from "~/components/engine-status";
+import { layoutName, STATUS_LABEL } from "~/lib/engine";
+import { engineStatusCounts, listEngines, type EngineStatus } from "~/models/engine.server";
+import { listAuditEvents } from "~/models/team.server";
 import { requireUser } from "~/utils/auth.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Dashboard · Sealwright" }];
 
 export async function loader({ request }: Route.LoaderArgs) {
   const { user, team, role } = await requireUser(request);
-  const [members, events] = await Promise.all([listMembers(team.id), listAuditEvents(team.id, 10)]);
-  return { user, team, role, memberCount: members.length, events };
+  const [counts, recent, events] = await Promise.all([
+    engineStatusCounts(team.id),
+    listEngines(team.id, { sort: "updated", dir: "desc", pageSize: 5 }),
+    listAuditEvents(team.id, 10),
+  ]);
+  return { user, team, role, counts, recent: recent.rows, events };
 }
 
+// The audit trail's actions, in words.
+const ACTION_WORDS: Record<string, string> = {
+  "team.created": "Shop created",
+  "team.renamed": "Shop renamed",
+  "demo.seeded": "Demo shop set up",
+  "demo.engines-seeded": "Demo engines added",
+  "library.seeded": "Handbook library added",
+  "engine.created": "Engine added",
+  "engine.updated": "Engine edited",
+  "engine.archived": "Engine archived",
+  "plan.created": "Seal plan created",
+  "plan.updated": "Seal plan edited",
+  "plan.chosen": "Seal plan chosen",
+  "plan.archived": "Seal plan archived",
+};
+
+function actionWords(action: string): string {
+  if (ACTION_WORDS[action]) return ACTION_WORDS[action]!;
+  const [thing = action, verb = ""] = action.split(".");
+  return `${thing.charAt(0).toUpperCase()}${thing.slice(1)} ${verb}`.trim();
+}
+
+const STATUSES: EngineStatus[] = ["quoted", "in-build", "running", "retired"];
+
 export default function Dashboard({ loaderData }: Route.ComponentProps) {
-  const { user, team, role, memberCount, events } = loaderData;
+  const { user, team, role, counts, recent, events } = loaderData;
   return (
     <>
       <PageTitle sub={`Signed in as ${user.name}, ${role} in ${team.name}.`}>{team.name}</PageTitle>
-      <div className="grid gap-4 sm:grid-cols-3">
-        <Stat label="People in this shop" value={String(memberCount)} />
-        <Stat label="Your role" value={role} />
-        <Stat label="Display units" value={user.units} />
-      </div>
-      <section className="mt-8" aria-labelledby="recent">
-        <h2 id="recent" className="text-xl font-bold">
-          Recent activity
+      <section aria-labelledby="engines-by-status">
+        <h2 id="engines-by-status" className="sr-only">
+          Engines by status
         </h2>
-        {events.length === 0 ? (
-          <p className="mt-2 text-forge-700">Nothing recorded yet.</p>
-        ) : (
-          <ul className="mt-2 divide-y divide-forge-100 rounded border border-forge-100 bg-white">
-            {events.map((e) => (
-              <li key={e.id} className="flex justify-between gap-4 px-4 py-2 text-sm">
-                <span>
-                  {e.action} {e.who ? `· ${e.who}` : ""}
-                </span>
-                <time className="tabular text-forge-700" dateTime={e.at}>
-                  {e.at.slice(0, 16).replace("T", " ")}
-                </time>
-              </li>
-            ))}
-          </ul>
-        )}
+        <div className="grid grid-cols-2 gap-4 sm:grid-cols-4">
+          {STATUSES.map((s) => (
+            <Link key={s} to={`/engines?status=${s}`} className="rounded border border-forge-100 bg-white p-4 hover:border-copper-500">
+              <p className="text-sm text-forge-700">
+                {STATUS_LABEL[s].icon} {STATUS_LABEL[s].word}
+              </p>
+              <p className="mt-1 text-3xl font-bold tabular">{counts[s]}</p>
+            </Link>
+          ))}
+        </div>
       </section>
+      <div className="mt-8 grid gap-8 lg:grid-cols-2">
+        <section aria-labelledby="recent-engines">
+          <h2 id="recent-engines" className="text-xl font-bold">
+            Recently worked on
+          </h2>
+          {recent.length === 0 ? (
+            <p className="mt-2 text-forge-700">
+              No engines yet. <Link to="/engines" className="text-copper-700 underline">Go to Engines</Link>
+            </p>
+          ) : (
+            <ul className="mt-2 divide-y divide-forge-100 rounded border border-forge-100 bg-white">
+              {recent.map((e) => (
+                <li key={e.id} className="flex flex-wrap items-center justify-between gap-2 px-4 py-2">
+                  <span>
+                    <Link to={`/engines/${e.id}`} className="font-medium text-copper-700 underline">
+                      {e.name}
+                    </Link>{" "}
+                    <span className="text-sm text-forge-700">
+                      {layoutName(e.layout, e.cylinders)} · {e.chosenPlanName ? `plan: ${e.chosenPlanName}` : "no plan chosen"}
+                    </span>
+                  </span>
+                  <StatusBadge status={e.status} />
+                </li>
+              ))}
+            </ul>
+          )}
+        </section>
+        <section aria-labelledby="recent">
+          <h2 id="recent" className="text-xl font-bold">
+            Recent activity
+          </h2>
+          {events.length === 0 ? (
+            <p className="mt-2 text-forge-700">Nothing recorded yet.</p>
+          ) : (
+            <ul className="mt-2 divide-y divide-forge-100 rounded border border-forge-100 bg-white">
+              {events.map((e) => (
+                <li key={e.id} className="flex justify-between gap-4 px-4 py-2 text-sm">
+                  <span>
+                    {actionWords(e.action)}
+                    {e.who ? ` · ${e.who}` : ""}
+                  </span>
+                  <time className="tabular text-forge-700" dateTime={e.at}>
+                    {e.at.slice(0, 16).replace("T", " ")}
+                  </time>
+                </li>
+              ))}
+            </ul>
+          )}
+        </section>
+      </div>
       <Caution className="mt-8" />
     </>
-  );
-}
-
-function Stat({ label, value }: { label: string; value: string }) {
-  return (
-    <div className="rounded border border-forge-100 bg-white p-4">
-      <p className="text-sm text-forge-700">{label}</p>
-      <p className="mt-1 text-3xl font-bold capitalize tabular">{value}</p>
-    </div>
   );
 }
