@@ -15,6 +15,8 @@ export function marginStatus(margin: number, target: number): MarginStatus {
 }
 
 const pct = (x: number) => `${(x * 100).toFixed(0)} %`;
+/** A probability as the compare page shows it too. */
+export const chance = (x: number) => `${(x * 100).toFixed(1)} %`;
 
 export function EstimatePanel({ view, units, targetMargin, busy = false }: { view: EstimateView; units: UnitSystem; targetMargin: number; busy?: boolean }) {
   const e = view.estimate;
@@ -33,15 +35,15 @@ export function EstimatePanel({ view, units, targetMargin, busy = false }: { vie
         <p className="text-3xl font-bold tabular">
           {status.icon} Cylinder {e.weakestCylinder}: margin {e.weakestMargin.toFixed(2)} — {status.word}
         </p>
-        <p className="text-sm">Target margin {targetMargin.toFixed(2)}; chance the weakest margin falls below 1: {pct(view.probabilityMarginBelowOne)} (friction sampled {view.weakestMarginBand.p5.toFixed(2)}–{view.weakestMarginBand.p95.toFixed(2)}, 5th–95th percentile).</p>
+        <p className="text-sm">Target margin {targetMargin.toFixed(2)}. With friction sampled, the chance the weakest margin falls below 1 is {chance(view.probabilityMarginBelowOne)}; the weakest margin lies between {view.weakestMarginBand.p5.toFixed(2)} and {view.weakestMarginBand.p95.toFixed(2)} (5th to 95th percentile).</p>
       </div>
 
       <dl className="grid grid-cols-2 gap-3 text-sm sm:grid-cols-3">
         <Figure label="Preload per stud (min / nominal / max)" value={`${formatQuantity(e.tightening.preload.minN, "force", units)} / ${formatQuantity(e.tightening.preload.nominalN, "force", units)} / ${formatQuantity(e.tightening.preload.maxN, "force", units)}`} testId="preload" />
-        <Figure label="Stud equivalent stress at max preload" value={`${pct(stress.atMax.utilization)} of yield`} note={`limit ${formatQuantity(stress.limitMpa, "stress", units)}`} />
+        <Figure label="Stud equivalent stress at max preload" value={`${pct(stress.atMax.utilization)} of yield`} note={`checked against ${formatQuantity(stress.limitMpa, "stress", units)}, 90 % of yield (VDI 2230)`} />
         <Figure label="Head bearing pressure (max)" value={formatQuantity(e.head.bearingPressureMaxMpa, "stress", units)} note={`${pct(e.head.bearingUtilizationMax)} of the head's ${formatQuantity(e.head.limitMpa, "stress", units)}`} />
         <Figure label="Hot and settled preload per stud" value={formatQuantity(e.hotSettled.preloadN, "force", units)} note={`heat ${formatQuantity(e.hotSettled.thermalChangeN, "force", units)}, embedding −${formatQuantity(e.hotSettled.embeddingLossN, "force", units)}, relaxation −${formatQuantity(e.hotSettled.relaxationLossN, "force", units)}`} />
-        <Figure label="Share of added clamp reaching the seal line" value={pct(e.squeeze.marginalShareWeakest)} note={`joint constant C = ${e.stiffness.jointConstant.toFixed(3)}`} />
+        <Figure label="Added clamp still on the seal line under firing" value={pct(view.firedShare)} note={`as assembled ${pct(e.squeeze.marginalShareWeakest)} · joint constant C = ${e.stiffness.jointConstant.toFixed(3)}`} />
         <Figure label={`Peak cylinder pressure${e.firing.estimated ? " (estimate)" : ""}`} value={formatQuantity(e.firing.peakPressureMpa, "pressure", units)} note={e.firing.note} />
       </dl>
 

@@ -52,12 +52,13 @@ export function SweepChart({ view, units }: { view: EstimateView; units: UnitSys
   const inRange = squeeze && squeeze.torqueNm >= view.sweep[0]!.torqueNm && squeeze.torqueNm <= view.sweep[view.sweep.length - 1]!.torqueNm;
   return (
     <Line
-      aria-label="Chart: weakest seal margin and the share of added clamp reaching the seal line, over torque, with the squeeze point and this plan's torque marked. The text beside it states the same."
+      aria-label="Chart: weakest seal margin and the share of added clamp still on the seal line under firing (and as assembled), over torque, with the squeeze point and this plan's torque marked. The text beside it states the same."
       role="img"
       data={{
         datasets: [
           { label: "Weakest seal margin", data: view.sweep.map((p) => ({ x: t(p.torqueNm), y: p.weakestMargin })), borderColor: COPPER, backgroundColor: COPPER, pointRadius: 0, borderWidth: 3 },
-          { label: "Share of added clamp reaching the seal line", data: view.sweep.map((p) => ({ x: t(p.torqueNm), y: p.marginalShareWeakest })), borderColor: FORGE, backgroundColor: FORGE, pointRadius: 0, borderWidth: 2, borderDash: [6, 4] },
+          { label: "Added clamp still on the seal line under firing", data: view.sweep.map((p) => ({ x: t(p.torqueNm), y: p.firedShareWeakest })), borderColor: FORGE, backgroundColor: FORGE, pointRadius: 0, borderWidth: 2 },
+          { label: "…as assembled", data: view.sweep.map((p) => ({ x: t(p.torqueNm), y: p.marginalShareWeakest })), borderColor: "#5b7386", backgroundColor: "#5b7386", pointRadius: 0, borderWidth: 1, borderDash: [6, 4] },
           { label: "This plan's torque", data: [{ x: t(view.torqueNm), y: 0 }, { x: t(view.torqueNm), y: top }], borderColor: HELD, backgroundColor: HELD, pointRadius: 0, borderWidth: 2 },
           ...(inRange
             ? [{ label: "Squeeze point", data: [{ x: t(squeeze.torqueNm), y: 0 }, { x: t(squeeze.torqueNm), y: top }], borderColor: FAILED, backgroundColor: FAILED, pointRadius: 0, borderWidth: 2, borderDash: [2, 3] }]

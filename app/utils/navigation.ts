@@ -4,7 +4,7 @@ import type { Role } from "~/models/user.server";
 export const PAGE_ROLE: Record<string, Role> = {
   "/dashboard": "viewer",
   "/engines": "viewer",
-  "/libraries": "builder",
+  "/libraries": "viewer",
   "/evidence": "builder",
   "/team": "owner",
   "/settings": "viewer",

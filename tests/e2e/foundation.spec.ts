@@ -4,7 +4,7 @@ import { screenshot, seriousViolations, signIn, signOut } from "./fixtures";
 const NAV: Record<string, string[]> = {
   "owner@example.com": ["Dashboard", "Engines", "Libraries", "Evidence", "Team", "Settings"],
   "builder@example.com": ["Dashboard", "Engines", "Libraries", "Evidence", "Settings"],
-  "viewer@example.com": ["Dashboard", "Engines", "Settings"],
+  "viewer@example.com": ["Dashboard", "Engines", "Libraries", "Settings"],
 };
 
 for (const [email, items] of Object.entries(NAV)) {

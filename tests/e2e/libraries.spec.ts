@@ -46,10 +46,17 @@ test("the builder adds a fastener with the maker's figures, sees it listed, and 
   await expect(page.getByRole("row", { name: /E2E M11×1\.5 head stud/ })).toContainText("Archived");
 });
 
-test("the viewer is not allowed into the libraries", async ({ page }) => {
+test("the viewer reads the libraries but has no edit controls", async ({ page }) => {
   await signIn(page, "viewer@example.com");
-  await page.goto("/libraries");
-  await expect(page.getByRole("heading", { name: "Not allowed" })).toBeVisible();
-  await page.goto("/libraries/gaskets");
+  await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Libraries" }).click();
+  await expect(page.getByRole("heading", { name: /Fasteners/, level: 2 })).toBeVisible();
+  await expect(page.getByRole("link", { name: "New fastener" })).toHaveCount(0);
+  await page.getByRole("table").getByRole("link").first().click();
+  await expect(page.getByText("You can read the shop's library; builders and owners change it.")).toBeVisible();
+  await expect(page.getByRole("button", { name: "Save" })).toHaveCount(0);
+  await expect(page.getByLabel("Name", { exact: true })).toBeDisabled();
+  await expect(page.getByRole("note", { name: "Caution" })).toBeVisible();
+  const response = await page.goto("/libraries/gaskets/new");
+  expect(response?.status()).toBe(403);
   await expect(page.getByRole("heading", { name: "Not allowed" })).toBeVisible();
 });

@@ -41,7 +41,7 @@ const MATRIX: Cell[] = [
   { name: "GET app shell", run: page(layout.loader, "/dashboard"), expect: { anonymous: 302, viewer: 200, builder: 200, owner: 200, otherTeam: 200 } },
   { name: "GET /dashboard", run: page(dashboard.loader, "/dashboard"), expect: { anonymous: 302, viewer: 200, builder: 200, owner: 200, otherTeam: 200 } },
   { name: "GET /engines", run: page(engineList.loader, "/engines"), expect: { anonymous: 302, viewer: 200, builder: 200, owner: 200, otherTeam: 200 } },
-  { name: "GET /libraries", run: (cookie) => call(libraries.loader as unknown as Handler, get("/libraries/fasteners", cookie), { kind: "fasteners" }), expect: { anonymous: 302, viewer: 403, builder: 200, owner: 200, otherTeam: 200 } },
+  { name: "GET /libraries", run: (cookie) => call(libraries.loader as unknown as Handler, get("/libraries/fasteners", cookie), { kind: "fasteners" }), expect: { anonymous: 302, viewer: 200, builder: 200, owner: 200, otherTeam: 200 } },
   { name: "GET /evidence", run: page(evidence.loader, "/evidence"), expect: { anonymous: 302, viewer: 403, builder: 200, owner: 200, otherTeam: 200 } },
   { name: "GET /team", run: page(team.loader, "/team"), expect: { anonymous: 302, viewer: 403, builder: 403, owner: 200, otherTeam: 200 } },
   {
@@ -109,6 +109,6 @@ describe("team switching", () => {
     const body = shell.body as { team: { id: number }; role: string; nav: { to: string }[] };
     expect(body.team.id).toBe(other.id);
     expect(body.role).toBe("viewer");
-    expect(body.nav.map((n) => n.to)).toEqual(["/dashboard", "/engines", "/settings"]);
+    expect(body.nav.map((n) => n.to)).toEqual(["/dashboard", "/engines", "/libraries", "/settings"]);
   });
 });

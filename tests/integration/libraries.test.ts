@@ -308,13 +308,20 @@ describe("invalid input → 400 with messages, nothing written", () => {
 });
 
 describe("viewers may not use the libraries", () => {
-  it("every library page is 403 for a viewer", async () => {
+  it("a viewer reads every library page, read-only, but cannot open the new-row form", async () => {
     const someFastener = await db()("fasteners").where({ team_id: teamId }).first("id");
-    expect((await call(h(layout.loader), get("/libraries/fasteners", cookies.viewer))).status).toBe(403);
-    expect((await call(h(index.loader), get("/libraries", cookies.viewer))).status).toBe(403);
-    for (const kind of ["fasteners", "gaskets", "materials"]) expect((await listPage(kind, cookies.viewer)).status).toBe(403);
+    expect((await call(h(layout.loader), get("/libraries/fasteners", cookies.viewer))).status).toBe(200);
+    for (const kind of ["fasteners", "gaskets", "materials"]) {
+      const out = await listPage(kind, cookies.viewer);
+      expect(out.status).toBe(200);
+      expect((out.body as { canEdit: boolean }).canEdit).toBe(false);
+    }
+    const item = await editPage("fasteners", someFastener.id, cookies.viewer);
+    expect(item.status).toBe(200);
+    expect((item.body as { canEdit: boolean }).canEdit).toBe(false);
     expect((await newPage("fasteners", cookies.viewer)).status).toBe(403);
-    expect((await editPage("fasteners", someFastener.id, cookies.viewer)).status).toBe(403);
+    const builderView = await listPage("fasteners", cookies.builder);
+    expect((builderView.body as { canEdit: boolean }).canEdit).toBe(true);
   });
 
   it("a viewer's writes are 403 and write nothing", async () => {

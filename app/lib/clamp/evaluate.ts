@@ -7,7 +7,7 @@ import { jointUnderLoad } from "./stiffness";
 import type { ThreadGeometry } from "./thread";
 import { preloadBand, tighteningStress, type PreloadBand, type TighteningStress } from "./torque";
 import { planWarnings } from "./warnings";
-import { SI_WORDING, type Wording } from "./wording";
+import { peakPressureNote, SI_WORDING, type Wording } from "./wording";
 
 export interface CylinderEstimate {
   /** 1-based cylinder number. */
@@ -203,7 +203,7 @@ export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefin
       lineYieldClampN: p.lineYieldClampN,
       asme: p.asme,
     },
-    firing: { peakPressureMpa: p.peakPressureMpa, estimated: p.peakEstimated, note: p.peakNote },
+    firing: { peakPressureMpa: p.peakPressureMpa, estimated: p.peakEstimated, note: peakPressureNote(p.plan.firing, wording) },
     studs,
     cylinders,
     weakestCylinder: w.cylinder,

@@ -36,7 +36,6 @@ export interface Prepared {
   asme: AsmeRequirement;
   peakPressureMpa: number;
   peakEstimated: boolean;
-  peakNote: string;
   cylinders: number;
   studCount: number;
   /** CSR layout of the shares: stud s serves bores boreOf[start[s]..start[s+1]). */
@@ -130,13 +129,8 @@ export function prepare(plan: PlanInput): Prepared {
 
   const firing = plan.firing;
   let peakPressureMpa: number;
-  let peakNote = "Peak cylinder pressure as entered.";
   if (firing.mode === "entered") peakPressureMpa = firing.peakPressureMpa;
-  else {
-    const e = estimatePeakPressure(firing);
-    peakPressureMpa = e.peakMpa;
-    peakNote = e.note;
-  }
+  else peakPressureMpa = estimatePeakPressure(firing).peakMpa;
   const asme = asmeRequirement(g.sealDiameterMm, g.ringWidthMm, peakPressureMpa, g.m, g.yMpa);
 
   // Shares in CSR form; firing load of each bore goes back to its studs in proportion to their shares
@@ -215,7 +209,6 @@ export function prepare(plan: PlanInput): Prepared {
     asme,
     peakPressureMpa,
     peakEstimated: firing.mode === "estimated",
-    peakNote,
     cylinders,
     studCount,
     start,

@@ -61,6 +61,8 @@ function withProtrusion(input: PlanInput, protrusionMm: number): PlanInput {
 
 /** Protrusion (current … current + 0.30 mm, 0.005 mm steps) that reaches the target at the lowest torque. */
 function protrusionSearch(input: PlanInput, target: number): { protrusionMm: number; torqueNm: number } | null {
+  // Only a sleeve can stand proud of the deck.
+  if (input.sleeve.kind === "none") return null;
   const now = input.sealing.sleeveProtrusionMm;
   let best: { protrusionMm: number; torqueNm: number } | null = null;
   for (let i = 1; i <= 60; i++) {
@@ -132,8 +134,8 @@ export function suggest(input: PlanInput, options: SuggestOptions): Suggestion {
     changes.push(
       `With ${mm(found.protrusionMm)} sleeve protrusion (now ${mm(input.sealing.sleeveProtrusionMm)}) ${nm(found.torqueNm)} would reach the target within the limits.`,
     );
-  } else {
-    changes.push(`More sleeve protrusion (up to 0.30 mm more) does not reach the target by itself.`);
+  } else if (input.sleeve.kind !== "none") {
+    changes.push(`More sleeve protrusion (up to ${mm(0.3)} more) does not reach the target by itself.`);
   }
   return {
     reachable: false,

@@ -1,7 +1,7 @@
 // Plain-English warnings for the builder. Figures are SI; the UI may restate them in its units.
 import type { PlanEstimate } from "./evaluate";
 import type { Prepared } from "./model";
-import { SI_WORDING, type Wording } from "./wording";
+import { peakPressureNote, SI_WORDING, type Wording } from "./wording";
 
 const pct = (x: number) => `${Math.round(x * 100)} %`;
 const f2 = (x: number) => x.toFixed(2);
@@ -13,7 +13,7 @@ export function planWarnings(p: Prepared, e: PlanEstimate, w: Wording = SI_WORDI
   const limitFraction = plan.model.studLimitFraction;
   if (e.studStress.atMax.utilization > limitFraction) {
     out.push(
-      `At the top of the preload band the stud's equivalent stress is ${pct(e.studStress.atMax.utilization)} of yield, past the ${pct(limitFraction)} limit. Lower the torque or use a stronger or larger stud.`,
+      `At the top of the preload band the stud's equivalent stress is ${pct(e.studStress.atMax.utilization)} of yield, past the ${pct(limitFraction)} we check against. Ask the fastener maker before going on: their torque and lubricant govern. A tightening method with less scatter (friction tested, angle, or measured stretch) narrows the band; a stronger or larger stud raises the limit.`,
     );
   }
   if (e.head.bearingUtilizationMax > 1) {
@@ -55,6 +55,6 @@ export function planWarnings(p: Prepared, e: PlanEstimate, w: Wording = SI_WORDI
       `Thread engagement ${w.length(plan.fastener.engagementMm)} is short for this block; shops usually want ${w.length(needed)}.`,
     );
   }
-  if (p.peakEstimated) out.push(`Peak cylinder pressure ${w.stress(p.peakPressureMpa)} is an estimate. ${p.peakNote}`);
+  if (p.peakEstimated) out.push(`Peak cylinder pressure ${w.pressure(p.peakPressureMpa)} is an estimate. ${peakPressureNote(plan.firing, w)}`);
   return out;
 }

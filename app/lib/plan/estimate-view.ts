@@ -5,7 +5,10 @@ import { evaluatePlan, prepare, SI_WORDING, squeezePoint, torqueSweep, uncertain
 export interface SweepRow {
   torqueNm: number;
   weakestMargin: number;
+  /** dF_r/dF as assembled, on the plan's weakest cylinder. */
   marginalShareWeakest: number;
+  /** Of added clamp on that cylinder, the share still on its seal line under firing, hot and settled. */
+  firedShareWeakest: number;
   studUtilizationMax: number;
   bearingUtilizationMax: number;
 }
@@ -13,6 +16,8 @@ export interface SweepRow {
 export interface EstimateView {
   torqueNm: number;
   estimate: PlanEstimate;
+  /** firedShareWeakest at the plan's torque. */
+  firedShare: number;
   sweep: SweepRow[];
   /** The first limit as torque rises, wherever it falls (also outside the swept range). */
   squeezePoint: SqueezePoint;
@@ -37,16 +42,28 @@ export function estimateView(input: PlanInput, wording: Wording = SI_WORDING): E
   const sweep = torqueSweep(input, { ...sweepRange(torqueNm), points: SWEEP_POINTS });
   const run = uncertainty(input, { samples: UNCERTAINTY_SAMPLES, seed: SEED });
   const limit = input.head.limitingSurfacePressureMpa;
+  const bore = estimate.weakestCylinder - 1;
+  const pts = sweep.points;
+  // ours: central differences of the seal-line load left under firing against the bore's clamp
+  const firedShare = (i: number) => {
+    const a = pts[Math.max(0, i - 1)]!;
+    const b = pts[Math.min(pts.length - 1, i + 1)]!;
+    const dClamp = b.clampN[bore]! - a.clampN[bore]!;
+    return dClamp > 0 ? Math.min(1, Math.max(0, (b.remainingSealLineN[bore]! - a.remainingSealLineN[bore]!) / dClamp)) : 0;
+  };
+  const rows = pts.map((pt, i) => ({
+    torqueNm: pt.torqueNm,
+    weakestMargin: pt.weakestMargin,
+    marginalShareWeakest: pt.marginalShareWeakest,
+    firedShareWeakest: firedShare(i),
+    studUtilizationMax: pt.studUtilizationMax,
+    bearingUtilizationMax: pt.bearingPressureMaxMpa / limit,
+  }));
   return {
     torqueNm,
     estimate,
-    sweep: sweep.points.map((pt) => ({
-      torqueNm: pt.torqueNm,
-      weakestMargin: pt.weakestMargin,
-      marginalShareWeakest: pt.marginalShareWeakest,
-      studUtilizationMax: pt.studUtilizationMax,
-      bearingUtilizationMax: pt.bearingPressureMaxMpa / limit,
-    })),
+    firedShare: rows[Math.floor(rows.length / 2)]!.firedShareWeakest,
+    sweep: rows,
     squeezePoint: squeezePoint(prepare(input), wording),
     shareThreshold: sweep.shareThreshold,
     probabilityMarginBelowOne: run.probabilityMarginBelowOne,

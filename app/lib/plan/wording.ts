@@ -8,5 +8,6 @@ export function displayWording(system: UnitSystem): Wording {
     force: (n) => formatQuantity(n, "force", system),
     stress: (mpa) => formatQuantity(mpa, "stress", system),
     length: (mm) => formatQuantity(mm, "smallLength", system),
+    pressure: (mpa) => formatQuantity(mpa, "pressure", system),
   };
 }

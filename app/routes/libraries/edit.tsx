@@ -15,23 +15,9 @@ import {
   type NumberField,
 } from "~/lib/library/fields";
 import { unitLabel, type UnitSystem } from "~/lib/library/quantities";
-import {
-  GASKET_TYPE_LABELS,
-  isLibraryKind,
-  LIBRARY_GASKET_TYPES,
-  MATERIAL_KIND_LABELS,
-  MATERIAL_KINDS,
-  type LibraryKind,
-} from "~/lib/library/schemas";
-import {
-  createLibraryItem,
-  getMaterial,
-  listMaterials,
-  requireLibraryItem,
-  setLibraryArchived,
-  updateLibraryItem,
-} from "~/models/library.server";
-import { requireRole } from "~/utils/auth.server";
+import { GASKET_TYPE_LABELS, isLibraryKind, LIBRARY_GASKET_TYPES, MATERIAL_KIND_LABELS, MATERIAL_KINDS, type LibraryKind } from "~/lib/library/schemas";
+import { createLibraryItem, getMaterial, listMaterials, requireLibraryItem, setLibraryArchived, updateLibraryItem } from "~/models/library.server";
+import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
 import { flashToast } from "~/utils/toast.server";
 
 // One module for two routes: "library-new" (:kind/new) and "library-edit" (:kind/:itemId).
@@ -52,10 +38,11 @@ function kindOf(param: string | undefined): LibraryKind {
 const itemIdOf = (params: Record<string, string | undefined>) => params.itemId;
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { user, team } = await requireRole(request, "builder");
+  const itemId = itemIdOf(params);
+  // Everyone in the shop may read a library row; adding one needs a builder.
+  const { user, team, role } = itemId ? await requireUser(request) : await requireRole(request, "builder");
   const kind = kindOf(params.kind);
   const units = user.units as UnitSystem;
-  const itemId = itemIdOf(params);
   const item = itemId ? await requireLibraryItem(kind, team.id, itemId) : null;
   const materials =
     kind === "fasteners"
@@ -66,16 +53,16 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   return {
     kind,
     units,
+    canEdit: roleAtLeast(role, "builder"),
     materials,
-    item: item
-      ? { id: item.id, name: item.name, archived: Boolean(item.archivedAt), provenance: sourceLine(item), seeded: Boolean(item.source) }
-      : null,
+    item: item ? { id: item.id, name: item.name, archived: Boolean(item.archivedAt), provenance: sourceLine(item), seeded: Boolean(item.source) } : null,
     values: item ? formValues(kind, item as unknown as Record<string, unknown>, units) : defaults(kind),
   };
 }
 
 function defaults(kind: LibraryKind): Record<string, string> {
-  if (kind === "fasteners") return { threadSystem: "unified", reducedShankLengthMm: "0", washerThicknessMm: "0", threadFriction: "0.12", bearingFriction: "0.12" };
+  if (kind === "fasteners")
+    return { threadSystem: "unified", reducedShankLengthMm: "0", washerThicknessMm: "0", threadFriction: "0.12", bearingFriction: "0.12" };
   if (kind === "gaskets") return { type: "mls", relaxationPercent: "0" };
   return { kind: "aluminium" };
 }
@@ -89,8 +76,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const form = Object.fromEntries([...(await request.formData())].map(([k, v]) => [k, typeof v === "string" ? v : ""]));
   const intent = form.intent ?? "save";
   const back = `/libraries/${kind}`;
-  const done = async (message: string, to = back) =>
-    redirect(to, { headers: { "Set-Cookie": await flashToast(request, { kind: "done", message }) } });
+  const done = async (message: string, to = back) => redirect(to, { headers: { "Set-Cookie": await flashToast(request, { kind: "done", message }) } });
 
   if (intent === "archive" || intent === "unarchive") {
     if (!item) throw data("Save it first; only a saved row can be archived.", { status: 400 });
@@ -112,7 +98,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function LibraryEdit({ loaderData, actionData }: Route.ComponentProps) {
-  const { kind, units, materials, item } = loaderData;
+  const { kind, units, materials, item, canEdit } = loaderData;
   const values: Record<string, string> = actionData?.values ?? loaderData.values;
   const errors: Record<string, string> = actionData?.errors ?? {};
   const busy = useNavigation().state === "submitting";
@@ -127,7 +113,7 @@ export default function LibraryEdit({ loaderData, actionData }: Route.ComponentP
         </Link>
       </p>
       <h2 id="edit-heading" className="text-2xl font-bold">
-        {item ? `Edit ${what}: ${item.name}` : `New ${what}`}
+        {item ? `${canEdit ? "Edit " : ""}${what}: ${item.name}` : `New ${what}`}
         {item?.archived ? <span className="ml-2 rounded border border-forge-300 px-1 text-sm font-normal">⊘ Archived</span> : null}
       </h2>
       <p className="mb-4 text-sm text-forge-700">
@@ -137,86 +123,110 @@ export default function LibraryEdit({ loaderData, actionData }: Route.ComponentP
       {kind === "fasteners" ? <Caution className="mb-4" /> : null}
       {count > 0 ? <FormError message={errors.form ?? `Nothing was saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention.`} /> : null}
 
-      <Form method="post" noValidate className="mt-4 space-y-6">
-        <Field label="Name" name="name" defaultValue={values.name ?? ""} error={errors.name} required maxLength={120} />
-        {kind === "materials" ? (
-          <>
-            <SelectField name="kind" label="Kind" defaultValue={values.kind} error={errors.kind} options={MATERIAL_KINDS.map((k) => [k, MATERIAL_KIND_LABELS[k]])} />
-            <Grid fields={MATERIAL_NUMBER_FIELDS} {...props} />
-          </>
-        ) : null}
-        {kind === "gaskets" ? (
-          <>
-            <SelectField name="type" label="Type" defaultValue={values.type} error={errors.type} options={LIBRARY_GASKET_TYPES.map((t) => [t, GASKET_TYPE_LABELS[t]])} />
-            <Grid fields={GASKET_NUMBER_FIELDS} {...props} />
-          </>
-        ) : null}
-        {kind === "fasteners" ? (
-          <>
-            <fieldset className="rounded border-2 border-copper-600 bg-copper-50 p-4">
-              <legend className="px-1 text-lg font-bold">From the fastener maker's sheet</legend>
-              <p className="mb-3 text-sm">
-                Record the maker's own torque, lubricant, stages and stretch exactly as the sheet gives them. Wherever our estimate shows a torque,
-                these figures stand beside it, and they govern.
-              </p>
-              <div className="grid gap-4 sm:grid-cols-2">
-                <NumberInput field={FASTENER_MAKER_FIELDS[0]!} {...props} />
-                <Field label="Maker's lubricant" name="makerLubricant" defaultValue={values.makerLubricant ?? ""} error={errors.makerLubricant} maxLength={120} />
-                <Field
-                  label="Maker's stages"
-                  name="makerStages"
-                  defaultValue={values.makerStages ?? ""}
-                  error={errors.makerStages}
-                  maxLength={200}
-                  hint="As the sheet words it, e.g. “40, 80, then 115 lbf·ft, centre outward”."
-                />
-                <NumberInput field={FASTENER_MAKER_FIELDS[1]!} {...props} />
-              </div>
-              <p className="mt-3 text-sm text-forge-700">Attach the maker's sheet: arrives with uploads.</p>
-            </fieldset>
-            <fieldset className="rounded border border-forge-300 bg-white p-4">
-              <legend className="px-1 font-bold">Thread, shank and washer</legend>
-              <div className="mb-4 grid gap-4 sm:grid-cols-2">
-                <SelectField
-                  name="threadSystem"
-                  label="Thread system"
-                  defaultValue={values.threadSystem}
-                  error={errors.threadSystem}
-                  options={[
-                    ["unified", "Unified inch (UNF/UNC)"],
-                    ["metric", "Metric (ISO)"],
-                  ]}
-                />
-                <SelectField
-                  name="materialId"
-                  label="Stud material"
-                  defaultValue={values.materialId}
-                  error={errors.materialId}
-                  options={[["", "Pick a material…"], ...materials.map((m): [string, string] => [String(m.id), m.name])]}
-                />
-              </div>
-              <Grid fields={FASTENER_GEOMETRY_FIELDS} {...props} />
-            </fieldset>
-            <fieldset className="rounded border border-forge-300 bg-white p-4">
-              <legend className="px-1 font-bold">Friction for our estimate</legend>
-              <Grid fields={FASTENER_FRICTION_FIELDS} {...props} />
-            </fieldset>
-          </>
-        ) : null}
-
-        <div className="flex flex-wrap items-center gap-3 border-t border-forge-100 pt-4">
-          <Button type="submit" name="intent" value="save" disabled={busy}>
-            {item ? "Save" : `Add ${what}`}
-          </Button>
-          {item ? (
-            <Button type="submit" kind="plain" name="intent" value={item.archived ? "unarchive" : "archive"} formNoValidate disabled={busy}>
-              {item.archived ? "Bring back from archive" : "Archive"}
-            </Button>
+      <Form method="post" noValidate className="mt-4">
+        <fieldset disabled={!canEdit} className="space-y-6">
+          <legend className="sr-only">{canEdit ? `Edit the ${what}` : `The ${what} (read only)`}</legend>
+          <Field label="Name" name="name" defaultValue={values.name ?? ""} error={errors.name} required maxLength={120} />
+          {kind === "materials" ? (
+            <>
+              <SelectField
+                name="kind"
+                label="Kind"
+                defaultValue={values.kind}
+                error={errors.kind}
+                options={MATERIAL_KINDS.map((k) => [k, MATERIAL_KIND_LABELS[k]])}
+              />
+              <Grid fields={MATERIAL_NUMBER_FIELDS} {...props} />
+            </>
           ) : null}
-          <Link to={`/libraries/${kind}`} className="text-copper-700 underline">
-            Cancel
-          </Link>
-        </div>
+          {kind === "gaskets" ? (
+            <>
+              <SelectField
+                name="type"
+                label="Type"
+                defaultValue={values.type}
+                error={errors.type}
+                options={LIBRARY_GASKET_TYPES.map((t) => [t, GASKET_TYPE_LABELS[t]])}
+              />
+              <Grid fields={GASKET_NUMBER_FIELDS} {...props} />
+            </>
+          ) : null}
+          {kind === "fasteners" ? (
+            <>
+              <fieldset className="rounded border-2 border-copper-600 bg-copper-50 p-4">
+                <legend className="px-1 text-lg font-bold">From the fastener maker's sheet</legend>
+                <p className="mb-3 text-sm">
+                  Record the maker's own torque, lubricant, stages and stretch exactly as the sheet gives them. Wherever our estimate shows a torque, these
+                  figures stand beside it, and they govern.
+                </p>
+                <div className="grid gap-4 sm:grid-cols-2">
+                  <NumberInput field={FASTENER_MAKER_FIELDS[0]!} {...props} />
+                  <Field
+                    label="Maker's lubricant"
+                    name="makerLubricant"
+                    defaultValue={values.makerLubricant ?? ""}
+                    error={errors.makerLubricant}
+                    maxLength={120}
+                  />
+                  <Field
+                    label="Maker's stages"
+                    name="makerStages"
+                    defaultValue={values.makerStages ?? ""}
+                    error={errors.makerStages}
+                    maxLength={200}
+                    hint="As the sheet words it, e.g. “40, 80, then 115 lbf·ft, centre outward”."
+                  />
+                  <NumberInput field={FASTENER_MAKER_FIELDS[1]!} {...props} />
+                </div>
+                <p className="mt-3 text-sm text-forge-700">Attach the maker's sheet: arrives with uploads.</p>
+              </fieldset>
+              <fieldset className="rounded border border-forge-300 bg-white p-4">
+                <legend className="px-1 font-bold">Thread, shank and washer</legend>
+                <div className="mb-4 grid gap-4 sm:grid-cols-2">
+                  <SelectField
+                    name="threadSystem"
+                    label="Thread system"
+                    defaultValue={values.threadSystem}
+                    error={errors.threadSystem}
+                    options={[
+                      ["unified", "Unified inch (UNF/UNC)"],
+                      ["metric", "Metric (ISO)"],
+                    ]}
+                  />
+                  <SelectField
+                    name="materialId"
+                    label="Stud material"
+                    defaultValue={values.materialId}
+                    error={errors.materialId}
+                    options={[["", "Pick a material…"], ...materials.map((m): [string, string] => [String(m.id), m.name])]}
+                  />
+                </div>
+                <Grid fields={FASTENER_GEOMETRY_FIELDS} {...props} />
+              </fieldset>
+              <fieldset className="rounded border border-forge-300 bg-white p-4">
+                <legend className="px-1 font-bold">Friction for our estimate</legend>
+                <Grid fields={FASTENER_FRICTION_FIELDS} {...props} />
+              </fieldset>
+            </>
+          ) : null}
+        </fieldset>
+        {canEdit ? (
+          <div className="mt-6 flex flex-wrap items-center gap-3 border-t border-forge-100 pt-4">
+            <Button type="submit" name="intent" value="save" disabled={busy}>
+              {item ? "Save" : `Add ${what}`}
+            </Button>
+            {item ? (
+              <Button type="submit" kind="plain" name="intent" value={item.archived ? "unarchive" : "archive"} formNoValidate disabled={busy}>
+                {item.archived ? "Bring back from archive" : "Archive"}
+              </Button>
+            ) : null}
+            <Link to={`/libraries/${kind}`} className="text-copper-700 underline">
+              Cancel
+            </Link>
+          </div>
+        ) : (
+          <p className="mt-4 text-sm text-forge-700">You can read the shop's library; builders and owners change it.</p>
+        )}
       </Form>
     </section>
   );
@@ -253,4 +263,3 @@ function NumberInput({ field, values, errors, units }: InputProps & { field: Num
     />
   );
 }
-

@@ -1,9 +1,9 @@
 import { redirect } from "react-router";
 import type { Route } from "./+types/index";
-import { requireRole } from "~/utils/auth.server";
+import { requireUser } from "~/utils/auth.server";
 
 export async function loader({ request }: Route.LoaderArgs) {
-  await requireRole(request, "builder");
+  await requireUser(request);
   return redirect("/libraries/fasteners");
 }
 

@@ -1,13 +1,13 @@
 import { NavLink, Outlet } from "react-router";
 import type { Route } from "./+types/layout";
 import { PageTitle } from "~/components/app-shell";
-import { requireRole } from "~/utils/auth.server";
+import { requireUser } from "~/utils/auth.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Libraries · Sealwright" }];
 
-// Libraries are the builders' and owners' working lists; a viewer gets 403 here and below.
+// Everyone in the shop reads the libraries; only builders and owners change them (edit.tsx).
 export async function loader({ request }: Route.LoaderArgs) {
-  await requireRole(request, "builder");
+  await requireUser(request);
   return null;
 }
 

@@ -6,7 +6,7 @@ import { sourceLine, threadLabel } from "~/lib/library/display";
 import { formatQuantity, type UnitSystem } from "~/lib/library/quantities";
 import { GASKET_TYPE_LABELS, isLibraryKind, MATERIAL_KIND_LABELS, type LibraryKind } from "~/lib/library/schemas";
 import { listLibrary, type FastenerRow, type GasketRow, type LibraryRow, type MaterialRow } from "~/models/library.server";
-import { requireRole } from "~/utils/auth.server";
+import { requireUser, roleAtLeast } from "~/utils/auth.server";
 
 export const meta: Route.MetaFunction = ({ params }) => [{ title: `${TITLE[params.kind as LibraryKind] ?? "Libraries"} · Sealwright` }];
 
@@ -14,16 +14,16 @@ const TITLE: Record<LibraryKind, string> = { fasteners: "Fasteners", gaskets: "G
 const NEW_LABEL: Record<LibraryKind, string> = { fasteners: "New fastener", gaskets: "New gasket", materials: "New material" };
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { user, team } = await requireRole(request, "builder");
+  const { user, team, role } = await requireUser(request);
   const kind = params.kind;
   if (!isLibraryKind(kind)) throw data("There is no such library.", { status: 404 });
   const showArchived = new URL(request.url).searchParams.get("archived") === "1";
   const rows = await listLibrary(kind, team.id, { includeArchived: showArchived });
-  return { kind, rows, showArchived, units: user.units as UnitSystem };
+  return { kind, rows, showArchived, units: user.units as UnitSystem, canEdit: roleAtLeast(role, "builder") };
 }
 
 export default function LibraryList({ loaderData }: Route.ComponentProps) {
-  const { kind, rows, showArchived, units } = loaderData;
+  const { kind, rows, showArchived, units, canEdit } = loaderData;
   return (
     <section aria-labelledby="library-heading">
       <div className="mb-4 flex flex-wrap items-center justify-between gap-3">
@@ -38,15 +38,17 @@ export default function LibraryList({ loaderData }: Route.ComponentProps) {
               {showArchived ? "☑ Showing archived — hide them" : "☐ Show archived"}
             </button>
           </Form>
-          <Link to={`/libraries/${kind}/new`} className="rounded bg-copper-700 px-4 py-2 font-medium text-white hover:bg-copper-600">
-            {NEW_LABEL[kind]}
-          </Link>
+          {canEdit ? (
+            <Link to={`/libraries/${kind}/new`} className="rounded bg-copper-700 px-4 py-2 font-medium text-white hover:bg-copper-600">
+              {NEW_LABEL[kind]}
+            </Link>
+          ) : null}
         </div>
       </div>
       {kind === "fasteners" ? <Caution className="mb-4" /> : null}
       {rows.length === 0 ? (
         <p className="rounded border border-dashed border-forge-300 bg-white p-6 text-forge-700">
-          Nothing here yet. Use “{NEW_LABEL[kind]}” to add the first one.
+          Nothing here yet.{canEdit ? ` Use “${NEW_LABEL[kind]}” to add the first one.` : ""}
         </p>
       ) : (
         <div className="overflow-x-auto">

@@ -1,7 +1,8 @@
 import { data, Form, Link, redirect } from "react-router";
 import type { Route } from "./+types/compare";
 import { Caution } from "~/components/caution";
-import { marginStatus } from "~/components/estimate-panel";
+import { chance, marginStatus } from "~/components/estimate-panel";
+import { CAUSE_WORDS } from "~/lib/clamp";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
 import { estimatePlan, type PlanEstimateResult } from "~/models/plan-estimate.server";
@@ -16,9 +17,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const engine = await requireEngine(team.id, params.engineId);
   const plans = await listPlans(team.id, engine.id);
   const wanted = new URL(request.url).searchParams.getAll("ids").map(Number);
-  const picked = (wanted.length ? plans.filter((p) => wanted.includes(p.id)) : plans).slice(0, 4);
+  const chosen = plans.filter((p) => wanted.includes(p.id));
+  // Fewer than two ticked: show the first four and say so.
+  const tooFew = wanted.length > 0 && chosen.length < 2;
+  const picked = (chosen.length >= 2 ? chosen : plans).slice(0, 4);
   const columns = await Promise.all(picked.map(async (plan) => ({ plan, result: await estimatePlan(team.id, engine, plan, user.units) })));
-  return { units: user.units, canEdit: roleAtLeast(role, "builder"), engineId: engine.id, chosenPlanId: engine.chosenPlanId, plans: plans.map((p) => ({ id: p.id, name: p.name })), columns, tooMany: wanted.length > 4 };
+  return { units: user.units, canEdit: roleAtLeast(role, "builder"), engineId: engine.id, chosenPlanId: engine.chosenPlanId, plans: plans.map((p) => ({ id: p.id, name: p.name })), columns, tooMany: wanted.length > 4, tooFew };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -44,18 +48,18 @@ const ROWS: Row[] = [
   { label: "Final torque (ours)", value: (c) => c.plan.torqueNm, show: (v, u) => formatQuantity(v, "torque", u) },
   { label: "Fastener maker's figure", value: (c) => c.result.fastener?.makerTorqueNm ?? null, show: (v, u, c) => `${formatQuantity(v, "torque", u)}${c.result.fastener?.makerLubricant ? ` · ${c.result.fastener.makerLubricant}` : ""}` },
   { label: "Weakest seal margin", better: "higher", value: (c) => ok(c)?.estimate.weakestMargin ?? null, show: (v, _u, c) => `${marginStatus(v, c.plan.targetMargin).icon} ${v.toFixed(2)} (cyl ${ok(c)?.estimate.weakestCylinder})` },
-  { label: "Chance weakest margin < 1", better: "lower", value: (c) => ok(c)?.probabilityMarginBelowOne ?? null, show: (v) => `${(v * 100).toFixed(1)} %` },
+  { label: "Chance weakest margin < 1", better: "lower", value: (c) => ok(c)?.probabilityMarginBelowOne ?? null, show: (v) => chance(v) },
   { label: "Nominal preload per stud", value: (c) => ok(c)?.estimate.tightening.preload.nominalN ?? null, show: (v, u) => formatQuantity(v, "force", u) },
   { label: "Hot and settled preload per stud", better: "higher", value: (c) => ok(c)?.estimate.hotSettled.preloadN ?? null, show: (v, u) => formatQuantity(v, "force", u) },
   { label: "Stud stress at max preload (of yield)", better: "lower", value: (c) => ok(c)?.estimate.studStress.atMax.utilization ?? null, show: (v) => `${(v * 100).toFixed(0)} %` },
   { label: "Head bearing pressure (of limit)", better: "lower", value: (c) => ok(c)?.estimate.head.bearingUtilizationMax ?? null, show: (v) => `${(v * 100).toFixed(0)} %` },
-  { label: "Share of added clamp reaching the seal line", better: "higher", value: (c) => ok(c)?.estimate.squeeze.marginalShareWeakest ?? null, show: (v) => `${(v * 100).toFixed(0)} %` },
-  { label: "Headroom to the squeeze point", better: "higher", value: (c) => { const v = ok(c); return v ? v.squeezePoint.torqueNm - v.torqueNm : null; }, show: (v, u, c) => `${formatQuantity(v, "torque", u)} (${ok(c)?.squeezePoint.cause})` },
+  { label: "Added clamp still on the seal line under firing", value: (c) => ok(c)?.firedShare ?? null, show: (v) => `${(v * 100).toFixed(0)} %` },
+  { label: "Headroom to the squeeze point", better: "higher", value: (c) => { const v = ok(c); return v ? v.squeezePoint.torqueNm - v.torqueNm : null; }, show: (v, u, c) => `${v < 0 ? "⚠ past it by " : ""}${formatQuantity(Math.abs(v), "torque", u)} (${CAUSE_WORDS[ok(c)!.squeezePoint.cause]})` },
   { label: "Joint constant C", value: (c) => ok(c)?.estimate.stiffness.jointConstant ?? null, show: (v) => v.toFixed(3) },
 ];
 
 export default function Compare({ loaderData }: Route.ComponentProps) {
-  const { units, canEdit, engineId, chosenPlanId, plans, columns, tooMany } = loaderData;
+  const { units, canEdit, engineId, chosenPlanId, plans, columns, tooMany, tooFew } = loaderData;
   if (plans.length < 2) {
     return <p className="rounded border border-dashed border-forge-300 bg-white p-6">Comparing needs at least two plans. <Link className="text-copper-700 underline" to={`/engines/${engineId}/plans`}>Back to the plans</Link></p>;
   }
@@ -71,6 +75,7 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
         ))}
         <button type="submit" className="rounded border border-forge-300 bg-white px-3 py-1">Show</button>
         {tooMany ? <span className="text-failed">✖ At most four plans side by side; showing the first four.</span> : null}
+        {tooFew ? <span className="text-failed">✖ Tick two to four plans to compare; showing the first ones.</span> : null}
       </Form>
       <div className="overflow-x-auto">
         <table className="w-full border-collapse bg-white text-sm tabular">

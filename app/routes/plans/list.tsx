@@ -91,7 +91,10 @@ export default function PlanList({ loaderData }: Route.ComponentProps) {
                       <td className="px-2 py-2 text-right">
                         {s ? `${s.icon} ${r.weakestMargin!.toFixed(2)} ${s.word} (cyl ${r.weakestCylinder})` : `✖ ${r.problems[0] ?? "cannot estimate"}`}
                       </td>
-                      <td className="px-2 py-2 text-right">{r.squeezeNm === null ? "—" : formatQuantity(r.squeezeNm, "torque", units)}</td>
+                      <td className="px-2 py-2 text-right">
+                        {r.squeezeNm === null ? "—" : formatQuantity(r.squeezeNm, "torque", units)}
+                        {r.squeezeNm !== null && r.squeezeNm < r.torqueNm ? <span className="block text-xs font-medium text-failed">⚠ below this plan's torque</span> : null}
+                      </td>
                     </tr>
                   );
                 })}

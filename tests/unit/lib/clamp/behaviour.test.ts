@@ -105,13 +105,22 @@ describe("suggest", () => {
   });
   it("reports a protrusion that would reach an otherwise unreachable target", () => {
     // soft body, no protrusion, assembled share basis: the share governs at 0 N·m, so only protrusion helps
+    // (a dry sleeve, since only a sleeve can stand proud of the deck)
     const base = workedExample();
-    const soft = { ...base, sealing: { ...base.sealing, sleeveProtrusionMm: 0 }, gasket: { ...base.gasket, bodyModulusMpa: 20_000 }, model: { ...base.model, shareBasis: "assembled" as const } };
+    const soft = { ...base, sleeve: { kind: "dry" as const, modulusMpa: 169_000, wallMm: 6 }, sealing: { ...base.sealing, sleeveProtrusionMm: 0 }, gasket: { ...base.gasket, bodyModulusMpa: 20_000 }, model: { ...base.model, shareBasis: "assembled" as const } };
     const r = suggest(soft, { targetMargin: 1.0 });
     expect(r.reachable).toBe(false);
     expect(r.protrusion).not.toBeNull();
     expect(r.protrusion?.protrusionMm).toBeGreaterThan(0);
     expect(r.changes.join(" ")).toMatch(/sleeve protrusion/);
+  });
+  it("never suggests sleeve protrusion for an engine without sleeves", () => {
+    const base = workedExample();
+    const soft = { ...base, sealing: { ...base.sealing, sleeveProtrusionMm: 0 }, gasket: { ...base.gasket, bodyModulusMpa: 20_000 }, model: { ...base.model, shareBasis: "assembled" as const } };
+    const r = suggest(soft, { targetMargin: 1.0 });
+    expect(base.sleeve.kind).toBe("none");
+    expect(r.protrusion).toBeNull();
+    expect(r.changes.join(" ")).not.toMatch(/protrusion/);
   });
   it("prepare() is pure: the same input gives the same prepared figures", () => {
     const a = prepare(workedExample());
