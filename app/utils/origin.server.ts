@@ -3,11 +3,12 @@
 export function isSameOriginPost(request: Request): boolean {
   const method = request.method.toUpperCase();
   if (method === "GET" || method === "HEAD" || method === "OPTIONS") return true;
-  // API clients with a bearer token carry no cookie, so there is nothing to forge.
-  if (request.headers.get("Authorization")?.startsWith("Bearer ")) return true;
   const host = request.headers.get("X-Forwarded-Host") ?? request.headers.get("Host") ?? new URL(request.url).host;
   const source = request.headers.get("Origin") ?? request.headers.get("Referer");
-  if (!source || source === "null") return false;
+  // Browsers always name the origin of a post. A request that names none and carries no cookie is a
+  // script or an API client: it has no session to forge, and the route's own guard answers it.
+  if (!source) return !request.headers.get("Cookie");
+  if (source === "null") return false;
   try {
     return new URL(source).host === host;
   } catch {

@@ -100,8 +100,11 @@ describe("estimate API", () => {
     expect(out.status).toBe(401);
   });
 
-  it("rejects bad JSON, a wrong content type and an oversized body", async () => {
+  it("rejects bad JSON, a body without an input object, a wrong content type and an oversized body", async () => {
     expect((await call(api, json("{ not json", builder))).status).toBe(400);
+    const noInput = await call(api, json("[1, 2]", builder));
+    expect(noInput.status).toBe(400);
+    expect((noInput.body as { error: string }).error).toMatch(/Send a JSON object \{ "input"/);
     expect((await call(api, json("{}", builder, "text/plain"))).status).toBe(415);
     const big = JSON.stringify({ input: { pad: "x".repeat(70 * 1024) } });
     const out = await call(api, json(big, builder));
@@ -238,6 +241,19 @@ describe("plan editor", () => {
     const chosen = await call(act, post(url(), { intent: "choose" }, builder), params);
     expect(chosen.status).toBe(302);
     expect((await db()("engines").where({ id: engineId }).first()).chosen_plan_id).toBe(planId);
+  });
+});
+
+describe("gasket fit", () => {
+  it("refuses a plan whose gasket bore does not suit the engine, and writes nothing", async () => {
+    const params = { engineId: String(engineId) };
+    const big = await db()("gaskets").where({ team_id: teamId }).where("bore_mm", ">", 100).first();
+    const count = async () => Number((await db()("seal_plans").where({ engine_id: engineId }).count({ n: "*" }))[0]!.n);
+    const before = await count();
+    const out = await call(newPlan.action as Handler, post(`/engines/${engineId}/plans/new`, await currentForm({ name: "Wrong gasket", gasketId: String(big.id) }), builder), params);
+    expect(out.status).toBe(400);
+    expect((out.body as { problems: string[] }).problems[0]).toMatch(/far larger than the 86\.00 mm cylinder bore/);
+    expect(await count()).toBe(before);
   });
 });
 

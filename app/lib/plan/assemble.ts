@@ -200,3 +200,16 @@ export function assemblePlanInput(parts: PlanParts): PlanInputRaw {
     },
   };
 }
+
+// common practice: a head gasket's bore sits a little over the cylinder bore; far over it, the fire
+// ring or wire no longer lands on the deck or sleeve top.
+export const GASKET_BORE_OVERSIZE_LIMIT_MM = 6;
+
+/** Why this gasket does not fit this bore, or null when it does. `length` words a length in mm. */
+export function gasketFitProblem(engineBoreMm: number, gasketBoreMm: number, length: (mm: number) => string): string | null {
+  if (gasketBoreMm < engineBoreMm)
+    return `The gasket's ${length(gasketBoreMm)} bore is smaller than the ${length(engineBoreMm)} cylinder bore: it would hang into the bore.`;
+  if (gasketBoreMm > engineBoreMm + GASKET_BORE_OVERSIZE_LIMIT_MM)
+    return `The gasket's ${length(gasketBoreMm)} bore is far larger than the ${length(engineBoreMm)} cylinder bore: its seal ring would not sit on the deck or sleeve top. Pick a gasket made for this bore.`;
+  return null;
+}

@@ -11,7 +11,10 @@ export async function action({ request }: { request: Request }) {
   if (request.method !== "POST") return Response.json({ error: "Use POST." }, { status: 405 });
   await requireApiMember(request);
   const body = (await readJsonBody(request)) as { input?: unknown; units?: unknown } | null;
-  const parsed = PlanInputSchema.safeParse(body && typeof body === "object" ? body.input : undefined);
+  if (!body || typeof body !== "object" || Array.isArray(body) || !body.input || typeof body.input !== "object") {
+    return Response.json({ error: 'Send a JSON object { "input": { …the plan in SI… } }; see docs/clamp-model.md for its fields.' }, { status: 400 });
+  }
+  const parsed = PlanInputSchema.safeParse(body.input);
   if (!parsed.success) {
     const errors = parsed.error.issues.map((i) => ({ path: i.path.join("."), message: i.message }));
     return Response.json({ error: "The plan has problems; nothing was estimated.", errors }, { status: 400 });

@@ -8,7 +8,7 @@ import { MakerTorque } from "~/components/maker-torque";
 import { PlanFields } from "~/components/plan-form";
 import { SuggestionBox } from "~/components/suggestion-box";
 import type { Suggestion } from "~/lib/clamp";
-import { assemblePlanInput } from "~/lib/plan/assemble";
+import { assemblePlanInput, gasketFitProblem } from "~/lib/plan/assemble";
 import type { EstimateView } from "~/lib/plan/estimate-view";
 import { parsePlanForm, planFormValues, type PlanWrite } from "~/lib/plan/form";
 import { formatQuantity } from "~/lib/units";
@@ -152,6 +152,11 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
         {suggestion ? <SuggestionBox suggestion={suggestion} units={units} canEdit={canEdit} /> : null}
         <Caution />
         {problems.length > 0 ? <FormError message={`The estimate cannot run: ${problems.join(" ")}`} /> : null}
+        {live.stale ? (
+          <p role="status" className="rounded border border-caution bg-caution-50 px-3 py-2 text-sm font-medium">
+            ⚠ The estimate below is for the last inputs that made sense; fix the marked fields to update it.
+          </p>
+        ) : null}
         {view ? <EstimatePanel view={view} units={units} targetMargin={Number(values.targetMargin) || plan.targetMargin} busy={live.busy} /> : null}
       </div>
     </div>
@@ -165,6 +170,7 @@ function useLiveEstimate(d: Route.ComponentProps["loaderData"]) {
   const timer = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
   const [errors, setErrors] = useState<Record<string, string> | null>(null);
   const [fastenerId, setFastenerId] = useState<string | null>(null);
+  const [stale, setStale] = useState(false);
   useEffect(() => () => clearTimeout(timer.current), []);
 
   const onChange = () => {
@@ -173,12 +179,20 @@ function useLiveEstimate(d: Route.ComponentProps["loaderData"]) {
       if (!formRef.current) return;
       const form = Object.fromEntries(new FormData(formRef.current));
       setFastenerId(String(form.fastenerId ?? ""));
-      const parsed = parsePlanForm(form, d.units);
-      if (!parsed.ok) return setErrors(parsed.errors);
-      setErrors(null);
+      const full = parsePlanForm(form, d.units);
+      setErrors(full.ok ? null : full.errors);
+      // Stages do not change the estimate, so a half-typed stage list does not hold it back.
+      const parsed = full.ok ? full : parsePlanForm({ ...form, stages: "" }, d.units);
+      setStale(!parsed.ok);
+      if (!parsed.ok) return;
       const fastener = d.choices.fasteners.find((f) => f.id === parsed.plan.fastenerId);
       const gasket = d.choices.gaskets.find((g) => g.id === parsed.plan.gasketId);
       if (!fastener || !gasket || !d.materials.head || !d.materials.block) return;
+      const misfit = gasketFitProblem(d.engine.boreMm, gasket.boreMm, (mm) => formatQuantity(mm, "length", d.units));
+      if (misfit) {
+        setErrors({ ...(full.ok ? {} : full.errors), gasketId: misfit });
+        return setStale(true);
+      }
       const input = assemblePlanInput({ engine: d.engine, plan: parsed.plan, fastener, gasket, head: d.materials.head, block: d.materials.block, sleeve: d.materials.sleeve });
       fetcher.submit({ input, units: d.units } as never, { method: "post", action: "/api/v1/estimate", encType: "application/json" });
     }, 300);
@@ -188,7 +202,7 @@ function useLiveEstimate(d: Route.ComponentProps["loaderData"]) {
     const answer = fetcher.data;
     const view = answer && "estimate" in answer ? answer : null;
     const problems = answer && "error" in answer ? (answer.errors?.map((e) => e.message) ?? [answer.error]) : null;
-    return { onChange, formRef, errors, fastenerId, busy: fetcher.state !== "idle", view, problems };
+    return { onChange, formRef, errors, fastenerId, stale, busy: fetcher.state !== "idle", view, problems };
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [fetcher.data, fetcher.state, errors, fastenerId]);
+  }, [fetcher.data, fetcher.state, errors, fastenerId, stale]);
 }
