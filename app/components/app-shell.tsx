@@ -27,7 +27,12 @@ export function AppShell({ user, team, role, memberships, nav, children }: Shell
             Sealwright
           </NavLink>
           <TeamSwitcher team={team} memberships={memberships} returnTo={location.pathname} />
+          {/* Without JavaScript the menu button cannot open anything, so the navigation simply stays open. */}
+          <noscript>
+            <style>{"#main-nav{display:block!important}#menu-button{display:none!important}"}</style>
+          </noscript>
           <button
+            id="menu-button"
             type="button"
             className="ml-auto rounded border border-forge-500 px-3 py-1 md:hidden"
             aria-expanded={open}

@@ -99,8 +99,8 @@ export function EngineForm({ values, errors, materials, units, submitLabel, canc
       </Fieldset>
 
       <Fieldset legend="Materials and sleeves">
-        <MaterialSelect label="Block (deck) material" name="blockMaterialId" value={f.blockMaterialId} error={errors.blockMaterialId} materials={materials} />
-        <MaterialSelect label="Head material" name="headMaterialId" value={f.headMaterialId} error={errors.headMaterialId} materials={materials} />
+        <MaterialSelect label="Block (deck) material" name="blockMaterialId" value={f.blockMaterialId} error={errors.blockMaterialId} materials={materials} kinds={CASTING_KINDS} />
+        <MaterialSelect label="Head material" name="headMaterialId" value={f.headMaterialId} error={errors.headMaterialId} materials={materials} kinds={CASTING_KINDS} />
         <SelectField label="Sleeves" name="sleeveKind" value={sleeveKind} onChange={(e) => setSleeveKind(e.target.value)} error={errors.sleeveKind}>
           {SLEEVE_KINDS.map((k) => (
             <option key={k} value={k}>
@@ -110,7 +110,7 @@ export function EngineForm({ values, errors, materials, units, submitLabel, canc
         </SelectField>
         {sleeveKind !== "none" ? (
           <>
-            <MaterialSelect label="Sleeve material" name="sleeveMaterialId" value={f.sleeveMaterialId} error={errors.sleeveMaterialId} materials={materials} />
+            <MaterialSelect label="Sleeve material" name="sleeveMaterialId" value={f.sleeveMaterialId} error={errors.sleeveMaterialId} materials={materials} kinds={SLEEVE_KINDS_OF_MATERIAL} />
             {n("sleeveWallMm", `Sleeve wall at the top (${len})`)}
             {sleeveKind === "wet-mid" ? n("sleeveSupportLengthMm", `Support length, top to seat (${len})`) : null}
           </>
@@ -286,7 +286,27 @@ const KIND_WORD: Record<string, string> = {
   other: "Other",
 };
 
-function MaterialSelect({ label, name, value, error, materials }: { label: string; name: string; value?: string; error?: string; materials: MaterialChoice[] }) {
+// Blocks and heads are castings; sleeves are iron or steel. Stud steels, wire and copper stay out of those lists.
+const CASTING_KINDS = ["aluminium", "iron", "other"];
+const SLEEVE_KINDS_OF_MATERIAL = ["iron", "steel", "other"];
+
+function MaterialSelect({
+  label,
+  name,
+  value,
+  error,
+  materials: all,
+  kinds: allowed,
+}: {
+  label: string;
+  name: string;
+  value?: string;
+  error?: string;
+  materials: MaterialChoice[];
+  kinds: string[];
+}) {
+  // The current choice stays listed even if its kind is not one usually chosen here.
+  const materials = all.filter((m) => allowed.includes(m.kind) || String(m.id) === value);
   const kinds = [...new Set(materials.map((m) => m.kind))];
   return (
     <SelectField label={label} name={name} defaultValue={value ?? ""} error={error}>

@@ -35,19 +35,50 @@ export function EstimatePanel({ view, units, targetMargin, busy = false }: { vie
         <p className="text-3xl font-bold tabular">
           {status.icon} Cylinder {e.weakestCylinder}: margin {e.weakestMargin.toFixed(2)} — {status.word}
         </p>
-        <p className="text-sm">Target margin {targetMargin.toFixed(2)}. With friction sampled, the chance the weakest margin falls below 1 is {chance(view.probabilityMarginBelowOne)}; the weakest margin lies between {view.weakestMarginBand.p5.toFixed(2)} and {view.weakestMarginBand.p95.toFixed(2)} (5th to 95th percentile).</p>
+        <p className="text-sm">
+          Target margin {targetMargin.toFixed(2)}. With friction sampled, the chance the weakest margin falls below 1 is{" "}
+          {chance(view.probabilityMarginBelowOne)}; the weakest margin lies between {view.weakestMarginBand.p5.toFixed(2)} and{" "}
+          {view.weakestMarginBand.p95.toFixed(2)} (5th to 95th percentile).
+        </p>
       </div>
 
       <dl className="grid grid-cols-2 gap-3 text-sm sm:grid-cols-3">
-        <Figure label="Preload per stud (min / nominal / max)" value={`${formatQuantity(e.tightening.preload.minN, "force", units)} / ${formatQuantity(e.tightening.preload.nominalN, "force", units)} / ${formatQuantity(e.tightening.preload.maxN, "force", units)}`} testId="preload" />
-        <Figure label="Stud equivalent stress at max preload" value={`${pct(stress.atMax.utilization)} of yield`} note={`checked against ${formatQuantity(stress.limitMpa, "stress", units)}, 90 % of yield (VDI 2230)`} />
-        <Figure label="Head bearing pressure (max)" value={formatQuantity(e.head.bearingPressureMaxMpa, "stress", units)} note={`${pct(e.head.bearingUtilizationMax)} of the head's ${formatQuantity(e.head.limitMpa, "stress", units)}`} />
-        <Figure label="Hot and settled preload per stud" value={formatQuantity(e.hotSettled.preloadN, "force", units)} note={`heat ${formatQuantity(e.hotSettled.thermalChangeN, "force", units)}, embedding −${formatQuantity(e.hotSettled.embeddingLossN, "force", units)}, relaxation −${formatQuantity(e.hotSettled.relaxationLossN, "force", units)}`} />
-        <Figure label="Added clamp still on the seal line under firing" value={pct(view.firedShare)} note={`as assembled ${pct(e.squeeze.marginalShareWeakest)} · joint constant C = ${e.stiffness.jointConstant.toFixed(3)}`} />
-        <Figure label={`Peak cylinder pressure${e.firing.estimated ? " (estimate)" : ""}`} value={formatQuantity(e.firing.peakPressureMpa, "pressure", units)} note={e.firing.note} />
+        <Figure
+          label="Preload per stud (min / nominal / max)"
+          value={`${formatQuantity(e.tightening.preload.minN, "force", units)} / ${formatQuantity(e.tightening.preload.nominalN, "force", units)} / ${formatQuantity(e.tightening.preload.maxN, "force", units)}`}
+          testId="preload"
+        />
+        <Figure
+          label="Stud equivalent stress at max preload"
+          value={`${pct(stress.atMax.utilization)} of yield`}
+          note={`checked against ${formatQuantity(stress.limitMpa, "stress", units)}, 90 % of yield (VDI 2230)`}
+        />
+        <Figure
+          label="Head bearing pressure (max)"
+          value={formatQuantity(e.head.bearingPressureMaxMpa, "stress", units)}
+          note={`${pct(e.head.bearingUtilizationMax)} of the head's ${formatQuantity(e.head.limitMpa, "stress", units)}`}
+        />
+        <Figure
+          label="Hot and settled preload per stud"
+          value={formatQuantity(e.hotSettled.preloadN, "force", units)}
+          note={`heat ${formatQuantity(e.hotSettled.thermalChangeN, "force", units)}, embedding −${formatQuantity(e.hotSettled.embeddingLossN, "force", units)}, relaxation −${formatQuantity(e.hotSettled.relaxationLossN, "force", units)}`}
+        />
+        <Figure
+          label="Added clamp still on the seal line under firing"
+          value={pct(view.firedShare)}
+          note={`as assembled ${pct(e.squeeze.marginalShareWeakest)} · joint constant C = ${e.stiffness.jointConstant.toFixed(3)}`}
+        />
+        <Figure
+          label={`Peak cylinder pressure${e.firing.estimated ? " (estimate)" : ""}`}
+          value={formatQuantity(e.firing.peakPressureMpa, "pressure", units)}
+          note={e.firing.note}
+        />
       </dl>
 
-      <div className={`rounded border px-4 py-3 text-sm ${e.squeeze.mostlySqueezing ? "border-failed bg-failed-50" : "border-forge-300 bg-white"}`} data-testid="squeeze">
+      <div
+        className={`rounded border px-4 py-3 text-sm ${e.squeeze.mostlySqueezing ? "border-failed bg-failed-50" : "border-forge-300 bg-white"}`}
+        data-testid="squeeze"
+      >
         <p className="font-bold">
           {e.squeeze.mostlySqueezing ? "✖ At this torque, more torque mostly squeezes the head." : "Squeeze point"}
           {" · "}
@@ -56,45 +87,61 @@ export function EstimatePanel({ view, units, targetMargin, busy = false }: { vie
         <p>{view.squeezePoint.explanation}</p>
       </div>
 
-      <table className="w-full border-collapse bg-white text-right text-sm tabular">
-        <caption className="mb-1 text-left font-bold">Per cylinder (cold clamp; firing and hot, settled seal-line load)</caption>
-        <thead className="bg-forge-100">
-          <tr>
-            <th scope="col" className="px-2 py-1 text-left">Cyl</th>
-            <th scope="col" className="px-2 py-1">Clamp</th>
-            <th scope="col" className="px-2 py-1">Seal line</th>
-            <th scope="col" className="px-2 py-1">Firing takes</th>
-            <th scope="col" className="px-2 py-1">Left, hot</th>
-            <th scope="col" className="px-2 py-1">Needed</th>
-            <th scope="col" className="px-2 py-1">Margin</th>
-          </tr>
-        </thead>
-        <tbody>
-          {e.cylinders.map((c) => {
-            const s = marginStatus(c.sealMargin, targetMargin);
-            return (
-              <tr key={c.cylinder} className={`border-t border-forge-100 ${c.cylinder === e.weakestCylinder ? "font-bold" : ""}`}>
-                <th scope="row" className="px-2 py-1 text-left">
-                  {c.cylinder}
-                  {c.cylinder === e.weakestCylinder ? " (weakest)" : ""}
-                </th>
-                <td className="px-2 py-1">{formatQuantity(c.clampN, "force", units)}</td>
-                <td className="px-2 py-1">{formatQuantity(c.sealLineN, "force", units)}</td>
-                <td className="px-2 py-1">{formatQuantity(c.clampReliefN, "force", units)}</td>
-                <td className="px-2 py-1">{formatQuantity(c.remainingSealLineHotSettledN, "force", units)}</td>
-                <td className="px-2 py-1">{formatQuantity(Math.max(c.requiredOperatingN, c.requiredSeatingN), "force", units)}</td>
-                <td className="px-2 py-1">
-                  {s.icon} {c.sealMargin.toFixed(2)}
-                </td>
-              </tr>
-            );
-          })}
-        </tbody>
-      </table>
+      <div className="overflow-x-auto">
+        <table className="w-full border-collapse bg-white text-right text-sm tabular">
+          <caption className="mb-1 text-left font-bold">Per cylinder (cold clamp; firing and hot, settled seal-line load)</caption>
+          <thead className="bg-forge-100">
+            <tr>
+              <th scope="col" className="px-2 py-1 text-left">
+                Cyl
+              </th>
+              <th scope="col" className="px-2 py-1">
+                Clamp
+              </th>
+              <th scope="col" className="px-2 py-1">
+                Seal line
+              </th>
+              <th scope="col" className="px-2 py-1">
+                Firing takes
+              </th>
+              <th scope="col" className="px-2 py-1">
+                Left, hot
+              </th>
+              <th scope="col" className="px-2 py-1">
+                Needed
+              </th>
+              <th scope="col" className="px-2 py-1">
+                Margin
+              </th>
+            </tr>
+          </thead>
+          <tbody>
+            {e.cylinders.map((c) => {
+              const s = marginStatus(c.sealMargin, targetMargin);
+              return (
+                <tr key={c.cylinder} className={`border-t border-forge-100 ${c.cylinder === e.weakestCylinder ? "font-bold" : ""}`}>
+                  <th scope="row" className="px-2 py-1 text-left">
+                    {c.cylinder}
+                    {c.cylinder === e.weakestCylinder ? " (weakest)" : ""}
+                  </th>
+                  <td className="px-2 py-1">{formatQuantity(c.clampN, "force", units)}</td>
+                  <td className="px-2 py-1">{formatQuantity(c.sealLineN, "force", units)}</td>
+                  <td className="px-2 py-1">{formatQuantity(c.clampReliefN, "force", units)}</td>
+                  <td className="px-2 py-1">{formatQuantity(c.remainingSealLineHotSettledN, "force", units)}</td>
+                  <td className="px-2 py-1">{formatQuantity(Math.max(c.requiredOperatingN, c.requiredSeatingN), "force", units)}</td>
+                  <td className="px-2 py-1">
+                    {s.icon} {c.sealMargin.toFixed(2)}
+                  </td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
       <p className="text-xs text-forge-700">
-        Needed: the larger of the ASME BPVC VIII-1 Appendix 2 seating (y) and operating (m) loads for the seal band — flange design
-        values used here as a conservative published criterion, not head-gasket data. Weakest cylinder {weakest.cylinder} serves{" "}
-        {weakest.effectiveStuds.toFixed(2)} studs' worth of clamp.
+        Needed: the larger of the ASME BPVC VIII-1 Appendix 2 seating (y) and operating (m) loads for the seal band — flange design values used here as a
+        conservative published criterion, not head-gasket data. Weakest cylinder {weakest.cylinder} serves {weakest.effectiveStuds.toFixed(2)} studs' worth of
+        clamp.
       </p>
 
       {mounted ? (

@@ -25,8 +25,7 @@ export function MakerTorque({ ourTorqueNm, makerTorqueNm, makerLubricant, makerS
     <div className="rounded border border-forge-300 bg-white px-3 py-2 text-sm" data-testid="maker-figure">
       <p>
         <strong>Fastener maker's figure:</strong> {formatQuantity(makerTorqueNm, "torque", units)}
-        {makerLubricant ? ` with ${makerLubricant}` : ", lubricant not recorded"}
-        {makerStages ? ` · stages ${makerStages}` : ""}.
+        {makerStages ? ` (stages: ${makerStages})` : ""}. Lubricant: {makerLubricant || "not recorded"}.
       </p>
       <p className="mt-1">
         {same

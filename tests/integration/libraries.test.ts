@@ -242,6 +242,14 @@ describe("imperial input is stored as SI", () => {
       expect(Math.abs(row.maker_torque_nm - 110 * 1.3558179)).toBeLessThan(1e-9);
       expect(Math.abs(row.maker_stretch_mm - 0.1778)).toBeLessThan(1e-9);
 
+      // a unit typed after the number wins over the field's unit (display units via convert-units)
+      const typed = await create("fasteners", fastener({ name: "Shop test: typed units", threadSystem: "unified", diameterMm: "11.1125 mm", pitchMm: "20", reducedShankDiameterMm: "", reducedShankLengthMm: "0 mm", freeThreadLengthMm: "15 mm", engagementMm: "22 mm", washerOdMm: "20 mm", washerHoleMm: "0.5 in", washerThicknessMm: "3 mm", makerTorqueNm: "150 N·m" }), cookies.builder);
+      expect(typed.status).toBe(302);
+      const t = await db()("fasteners").where({ team_id: teamId, name: "Shop test: typed units" }).first();
+      expect(t.diameter_mm).toBeCloseTo(11.1125, 9);
+      expect(t.washer_hole_mm).toBeCloseTo(12.7, 6);
+      expect(t.maker_torque_nm).toBeCloseTo(150, 9);
+
       // and it reads back in the same units
       const page = (await editPage("fasteners", row.id, cookies.builder)).body as { values: Record<string, string> };
       expect(page.values.diameterMm).toBe("0.5");

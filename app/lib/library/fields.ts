@@ -1,6 +1,7 @@
 // The library forms: which fields each kind has, in what units they are typed, and how a posted
 // form turns into an SI record (or field errors). Pure: used by the route action and the form.
 import type { z } from "zod";
+import { parseQuantity, unitFor, type Quantity as DisplayQuantity } from "../units";
 import { fromSi, toSi, type Quantity, type UnitSystem } from "./quantities";
 import { FastenerSchema, GasketSchema, MaterialSchema, type LibraryKind } from "./schemas";
 
@@ -50,7 +51,7 @@ export const FASTENER_FRICTION_FIELDS: NumberField[] = [
 ];
 
 export const GASKET_NUMBER_FIELDS: NumberField[] = [
-  { name: "compressedThicknessMm", label: "Compressed thickness", quantity: "length" },
+  { name: "compressedThicknessMm", label: "Compressed thickness", quantity: "small-length" },
   { name: "boreMm", label: "Gasket bore", quantity: "length" },
   { name: "sealDiameterMm", label: "Seal diameter (mean of the band)", quantity: "length" },
   { name: "ringWidthMm", label: "Ring width", quantity: "length" },
@@ -81,6 +82,9 @@ const TEXT_FIELDS: Record<LibraryKind, string[]> = {
 const SCHEMAS = { materials: MaterialSchema, fasteners: FastenerSchema, gaskets: GasketSchema } as const;
 
 const MM_PER_IN = 25.4;
+
+// Library quantities that the display-units module also knows, so a typed unit can be read.
+const UNIT_QUANTITY: Partial<Record<Quantity, DisplayQuantity>> = { length: "length", "small-length": "smallLength", torque: "torque" };
 
 /** Pitch as typed: mm for metric threads, threads per inch for unified. */
 export function pitchToMm(typed: number, threadSystem: string): number {
@@ -113,11 +117,20 @@ export function parseLibraryForm<K extends LibraryKind>(kind: K, form: Record<st
     out.materialId = id === "" ? undefined : Number(id);
   }
   for (const field of NUMBER_FIELDS[kind]) {
-    const n = parseNumber(form[field.name] ?? "");
+    const typed = (form[field.name] ?? "").trim();
+    const withUnit = UNIT_QUANTITY[field.quantity];
+    // A unit typed after the number ("0.4375 in", "4 thou") wins over the field's unit.
+    if (withUnit && /\d\s*[a-zA-Zµ"·]/.test(typed)) {
+      const r = parseQuantity(typed, withUnit, unitFor(withUnit, units));
+      if (r.ok) out[field.name] = r.valueSi;
+      else errors[field.name] = `${field.label}: ${r.message}`;
+      continue;
+    }
+    const n = parseNumber(typed);
     if (n === null) {
       if (field.optional) out[field.name] = null;
       else if (field.name === "reducedShankLengthMm" || field.name === "washerThicknessMm" || field.name === "relaxationPercent") out[field.name] = 0;
-      else errors[field.name] = `Enter the ${field.label.toLowerCase()}`;
+      else errors[field.name] = `Enter the ${field.label.charAt(0).toLowerCase()}${field.label.slice(1)}`;
       continue;
     }
     if (!Number.isFinite(n)) {

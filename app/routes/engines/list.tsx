@@ -91,7 +91,14 @@ export default function EngineList({ loaderData }: Route.ComponentProps) {
 
       {rows.length === 0 ? (
         <div className="rounded border border-dashed border-forge-300 bg-white p-6">
-          {filtered ? (
+          {total > 0 ? (
+            <p>
+              No engines on page {page}; the list has {pages} page{pages > 1 ? "s" : ""}.{" "}
+              <Link to={href({ page: 1 })} className="text-copper-700 underline">
+                Back to page 1
+              </Link>
+            </p>
+          ) : filtered ? (
             <p>No engine matches {q ? <>“{q}”</> : "that filter"}{status ? ` with status ${STATUS_LABEL[status as EngineStatus].word.toLowerCase()}` : ""}.</p>
           ) : (
             <>

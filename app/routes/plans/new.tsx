@@ -2,6 +2,7 @@ import { data, Form, redirect } from "react-router";
 import type { Route } from "./+types/new";
 import { Caution } from "~/components/caution";
 import { Button, FormError } from "~/components/form";
+import { MakerTorque } from "~/components/maker-torque";
 import { PlanFields } from "~/components/plan-form";
 import { parsePlanForm, planFormValues } from "~/lib/plan/form";
 import { formatQuantity } from "~/lib/units";
@@ -46,7 +47,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
         },
     user.units,
   );
-  return { units: user.units, engine, choices, values, emptyLibrary: !fastener || !gasket };
+  return { units: user.units, engine, choices, values, torqueNm, emptyLibrary: !fastener || !gasket };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -65,11 +66,17 @@ export async function action({ request, params }: Route.ActionArgs) {
 export default function NewPlan({ loaderData, actionData }: Route.ComponentProps) {
   const { units, engine, choices, emptyLibrary } = loaderData;
   const values = actionData?.values ?? loaderData.values;
+  const fastener = choices.fasteners.find((f) => String(f.id) === values.fastenerId);
   return (
     <div className="max-w-xl">
       <h2 className="mb-4 text-2xl font-bold">New seal plan</h2>
       {emptyLibrary ? <FormError message="Add at least one fastener and one gasket in Libraries first." /> : null}
       {actionData?.problems?.length ? <FormError message={`The estimate cannot run: ${actionData.problems.join(" ")}`} /> : null}
+      {fastener ? (
+        <div className="mb-4">
+          <MakerTorque ourTorqueNm={loaderData.torqueNm} makerTorqueNm={fastener.makerTorqueNm} makerLubricant={fastener.makerLubricant} makerStages={fastener.makerStages} units={units} />
+        </div>
+      ) : null}
       <Form method="post" className="space-y-4" noValidate>
         <PlanFields values={values} errors={actionData?.errors ?? {}} choices={choices} units={units} sleeved={engine.sleeveKind !== "none"} engineProtrusion={formatQuantity(engine.sleeveProtrusionMm, "smallLength", units)} />
         <Button type="submit">Create plan</Button>
