@@ -6,6 +6,7 @@ import type { AsmeRequirement } from "./seal";
 import { jointUnderLoad } from "./stiffness";
 import type { ThreadGeometry } from "./thread";
 import { preloadBand, tighteningStress, type PreloadBand, type TighteningStress } from "./torque";
+import { squeezeTorques } from "./squeeze";
 import { planWarnings } from "./warnings";
 import { peakPressureNote, SI_WORDING, type Wording } from "./wording";
 
@@ -222,7 +223,8 @@ export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefin
     squeeze: {
       marginalShareWeakest: w.marginalSealLineShare,
       yieldedCylinders: cylinders.filter((c) => c.sealLineYielded).map((c) => c.cylinder),
-      mostlySqueezing: w.marginalSealLineShare < p.plan.model.shareThreshold,
+      // ours: past the squeeze point (the first of its three limits), whatever the assembled share says
+      mostlySqueezing: torqueNm >= Math.min(...Object.values(squeezeTorques(p))),
     },
     hotSettled: {
       thermalChangeN: p.thermalChangeN,

@@ -37,7 +37,7 @@ export function planWarnings(p: Prepared, e: PlanEstimate, w: Wording = SI_WORDI
     );
   } else if (e.squeeze.mostlySqueezing) {
     out.push(
-      `On cylinder ${e.weakestCylinder} only ${pct(e.squeeze.marginalShareWeakest)} of added clamp reaches the seal line; more torque now mostly squeezes the head and gasket body.`,
+      `This torque is past the squeeze point: more torque now mostly squeezes the head and gasket body instead of adding seal on cylinder ${e.weakestCylinder}.`,
     );
   }
   const opened = e.studs.filter((s) => s.memberFiredN <= 0);
