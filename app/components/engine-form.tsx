@@ -2,6 +2,7 @@ import { useState, type ReactNode } from "react";
 import { Form, Link } from "react-router";
 import { Button, Field, FormError, SelectField } from "~/components/form";
 import { StudTable } from "~/components/stud-table";
+import { MATERIAL_KIND_LABELS } from "~/lib/library/schemas";
 import {
   ENGINE_STATUSES,
   generateStudRows,
@@ -277,14 +278,6 @@ function Fieldset({ legend, children }: { legend: string; children: ReactNode })
 
 
 
-const KIND_WORD: Record<string, string> = {
-  aluminium: "Aluminium",
-  iron: "Iron",
-  steel: "Steel",
-  stainless: "Stainless steel",
-  copper: "Copper",
-  other: "Other",
-};
 
 // Blocks and heads are castings; sleeves are iron or steel. Stud steels, wire and copper stay out of those lists.
 const CASTING_KINDS = ["aluminium", "iron", "other"];
@@ -312,7 +305,7 @@ function MaterialSelect({
     <SelectField label={label} name={name} defaultValue={value ?? ""} error={error}>
       <option value="">{materials.length === 0 ? "No materials in the library yet" : "Choose…"}</option>
       {kinds.map((k) => (
-        <optgroup key={k} label={KIND_WORD[k] ?? k}>
+        <optgroup key={k} label={MATERIAL_KIND_LABELS[k as keyof typeof MATERIAL_KIND_LABELS] ?? k}>
           {materials
             .filter((m) => m.kind === k)
             .map((m) => (
