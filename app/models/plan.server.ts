@@ -1,8 +1,19 @@
 import { data } from "react-router";
-import type { FastenerRecord, GasketRecord, MaterialRecord, PlanParts, PlanRecord } from "~/lib/plan/assemble";
+import type { PlanParts, PlanRecord } from "~/lib/plan/assemble";
 import type { PlanWrite } from "~/lib/plan/form";
 import { db, now } from "~/utils/db.server";
 import type { EngineRow } from "./engine.server";
+import {
+  getFastener as getLibraryFastener,
+  getGasket,
+  getMaterial,
+  listFasteners,
+  listGaskets,
+  listMaterials,
+  type FastenerRow,
+  type GasketRow,
+  type MaterialRow,
+} from "./library.server";
 
 export interface PlanRow extends PlanRecord {
   id: number;
@@ -17,21 +28,9 @@ export interface PlanRow extends PlanRecord {
   updatedAt: string;
 }
 
-export interface FastenerInfo extends FastenerRecord {
-  id: number;
-  name: string;
-  makerTorqueNm: number | null;
-  makerLubricant: string | null;
-  makerStages: string | null;
-  makerStretchMm: number | null;
-  threadFriction: number;
-  bearingFriction: number;
-}
-
-export interface GasketInfo extends GasketRecord {
-  id: number;
-  name: string;
-}
+/** A library fastener with its stud material, as the clamp model needs it. */
+export type FastenerInfo = FastenerRow & { material: MaterialRow };
+export type GasketInfo = GasketRow;
 
 type Row = Record<string, any>;
 
@@ -58,20 +57,8 @@ function toPlan(r: Row): PlanRow {
   };
 }
 
-function toMaterial(r: Row): MaterialRecord {
-  return {
-    name: r.name,
-    modulusMpa: r.modulus_mpa,
-    yieldMpa: r.yield_mpa,
-    expansionUmPerMC: r.expansion_um_per_m_c,
-    limitingSurfacePressureMpa: r.limiting_surface_pressure_mpa,
-  };
-}
-
-async function material(teamId: number, id: number | null): Promise<MaterialRecord | null> {
-  if (id === null) return null;
-  const row = await db()("materials").where({ team_id: teamId, id }).first();
-  return row ? toMaterial(row) : null;
+async function material(teamId: number, id: number | null): Promise<MaterialRow | null> {
+  return id === null ? null : getMaterial(teamId, id);
 }
 
 export async function listPlans(teamId: number, engineId: number): Promise<PlanRow[]> {
@@ -88,72 +75,26 @@ export async function requirePlan(teamId: number, engineId: number, planIdParam:
   return toPlan(row);
 }
 
-/** Active fasteners and gaskets of the team, for the plan editor's pickers. */
+/** Active fasteners (each with its stud material) and gaskets of the team, for the plan editor's pickers. */
 export async function planChoices(teamId: number): Promise<{ fasteners: FastenerInfo[]; gaskets: GasketInfo[] }> {
-  const [fasteners, gaskets] = await Promise.all([
-    db()("fasteners").where({ team_id: teamId }).whereNull("archived_at").orderBy("name"),
-    db()("gaskets").where({ team_id: teamId }).whereNull("archived_at").orderBy("name"),
+  const [fasteners, gaskets, materials] = await Promise.all([
+    listFasteners(teamId),
+    listGaskets(teamId),
+    // archived materials too: an active fastener may still point at one
+    listMaterials(teamId, { includeArchived: true }),
   ]);
-  const out: FastenerInfo[] = [];
-  for (const f of fasteners) {
-    const m = await material(teamId, f.material_id);
-    if (m) out.push(toFastener(f, m));
-  }
-  return { fasteners: out, gaskets: gaskets.map(toGasket) };
-}
-
-function toFastener(f: Row, m: MaterialRecord): FastenerInfo {
-  return {
-    id: f.id,
-    name: f.name,
-    diameterMm: f.diameter_mm,
-    pitchMm: f.pitch_mm,
-    reducedShankDiameterMm: f.reduced_shank_diameter_mm,
-    reducedShankLengthMm: f.reduced_shank_length_mm,
-    freeThreadLengthMm: f.free_thread_length_mm,
-    engagementMm: f.engagement_mm,
-    washerOdMm: f.washer_od_mm,
-    washerHoleMm: f.washer_hole_mm,
-    washerThicknessMm: f.washer_thickness_mm,
-    material: m,
-    makerTorqueNm: f.maker_torque_nm,
-    makerLubricant: f.maker_lubricant,
-    makerStages: f.maker_stages,
-    makerStretchMm: f.maker_stretch_mm,
-    threadFriction: f.thread_friction,
-    bearingFriction: f.bearing_friction,
-  };
-}
-
-function toGasket(g: Row): GasketInfo {
-  return {
-    id: g.id,
-    name: g.name,
-    type: g.type,
-    compressedThicknessMm: g.compressed_thickness_mm,
-    boreMm: g.bore_mm,
-    sealDiameterMm: g.seal_diameter_mm,
-    ringWidthMm: g.ring_width_mm,
-    ringModulusMpa: g.ring_modulus_mpa,
-    sealLineYieldMpa: g.seal_line_yield_mpa,
-    bodyModulusMpa: g.body_modulus_mpa,
-    bodyAreaPerBoreMm2: g.body_area_per_bore_mm2,
-    expansionUmPerMC: g.expansion_um_per_m_c,
-    m: g.m,
-    yMpa: g.y_mpa,
-    relaxationPercent: g.relaxation_percent,
-  };
+  const byId = new Map(materials.map((m) => [m.id, m]));
+  const withMaterial = fasteners.flatMap((f) => {
+    const m = byId.get(f.materialId);
+    return m ? [{ ...f, material: m }] : [];
+  });
+  return { fasteners: withMaterial, gaskets };
 }
 
 export async function getFastener(teamId: number, id: number): Promise<FastenerInfo | null> {
-  const f = Number.isInteger(id) ? await db()("fasteners").where({ team_id: teamId, id }).first() : null;
-  const m = f ? await material(teamId, f.material_id) : null;
-  return f && m ? toFastener(f, m) : null;
-}
-
-export async function getGasket(teamId: number, id: number): Promise<GasketInfo | null> {
-  const g = Number.isInteger(id) ? await db()("gaskets").where({ team_id: teamId, id }).first() : null;
-  return g ? toGasket(g) : null;
+  const f = await getLibraryFastener(teamId, id);
+  const m = f ? await getMaterial(teamId, f.materialId) : null;
+  return f && m ? { ...f, material: m } : null;
 }
 
 /** The engine's head, block and sleeve materials (this team's rows). */
