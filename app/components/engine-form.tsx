@@ -57,14 +57,7 @@ export function EngineForm({ values, errors, materials, units, submitLabel, canc
           message={`The engine was not saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention. ${Object.values(errors)[0]}.`}
         />
       ) : null}
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" name="intent" value="save">
-          {submitLabel}
-        </Button>
-        <Link to={cancelTo} className="rounded border border-forge-300 bg-white px-4 py-2 font-medium hover:bg-forge-100">
-          Cancel
-        </Link>
-      </div>
+      <SaveOrCancel submitLabel={submitLabel} cancelTo={cancelTo} />
 
       <Fieldset legend="The engine">
         <Field label="Name" name="name" defaultValue={f.name} error={errors.name} required maxLength={120} />
@@ -238,14 +231,7 @@ export function EngineForm({ values, errors, materials, units, submitLabel, canc
         </div>
       </Fieldset>
 
-      <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" name="intent" value="save">
-          {submitLabel}
-        </Button>
-        <Link to={cancelTo} className="rounded border border-forge-300 bg-white px-4 py-2 font-medium hover:bg-forge-100">
-          Cancel
-        </Link>
-      </div>
+      <SaveOrCancel submitLabel={submitLabel} cancelTo={cancelTo} />
       {canArchive ? (
         <div className="rounded border border-failed/40 bg-white p-4">
           <h2 className="font-bold">Archive this engine</h2>
@@ -264,6 +250,20 @@ export function EngineForm({ values, errors, materials, units, submitLabel, canc
         </div>
       ) : null}
     </Form>
+  );
+}
+
+// Save and Cancel, at the top and again at the foot of the long form.
+function SaveOrCancel({ submitLabel, cancelTo }: { submitLabel: string; cancelTo: string }) {
+  return (
+    <div className="flex flex-wrap items-center gap-3">
+      <Button type="submit" name="intent" value="save">
+        {submitLabel}
+      </Button>
+      <Link to={cancelTo} className="rounded border border-forge-300 bg-white px-4 py-2 font-medium hover:bg-forge-100">
+        Cancel
+      </Link>
+    </div>
   );
 }
 
