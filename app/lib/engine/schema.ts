@@ -12,6 +12,14 @@ export const PEAK_SOURCES = ["measured", "estimated"] as const;
 
 /** Tolerance on a stud's shares adding up to 1 (the same rule the clamp model's plan input uses). */
 export const SHARE_TOLERANCE = 0.005;
+/** Largest cylinder count and stud count a record may have. */
+export const CYLINDERS_MAX = 16;
+export const STUDS_MAX = 80;
+/**
+ * At most this many cross-field messages: enough to fix any real form, and never a list whose length
+ * follows a number the sender chose (a cylinder count of 10⁹ once built one message per cylinder).
+ */
+export const CROSS_FIELD_ISSUES_MAX = 40;
 
 // A number the builder typed: missing and not-a-number get their own words.
 const num = (label: string, missing = `Give the ${label.toLowerCase()}`) =>
@@ -32,7 +40,7 @@ export const EngineSchema = z
     cylinders: num("Cylinder count")
       .int("Cylinder count is a whole number")
       .gte(1, "An engine has at least one cylinder")
-      .lte(16, "At most 16 cylinders"),
+      .lte(CYLINDERS_MAX, `At most ${CYLINDERS_MAX} cylinders`),
     layout: z.enum(LAYOUTS, "Pick inline or V"),
     boreMm: positive("Bore", 300, "mm"),
     strokeMm: positive("Stroke", 400, "mm"),
@@ -46,7 +54,7 @@ export const EngineSchema = z
     sleeveWallMm: positive("Sleeve wall", 30, "mm").optional(),
     sleeveSupportLengthMm: positive("Sleeve support length", 300, "mm").optional(),
     sleeveProtrusionMm: between("Sleeve protrusion", -0.5, 1, "mm").default(0),
-    studs: z.array(StudSchema).min(1, "Add at least one stud").max(80, "At most 80 studs"),
+    studs: z.array(StudSchema).min(1, "Add at least one stud").max(STUDS_MAX, `At most ${STUDS_MAX} studs`),
     fuel: z.string().trim().max(60, "Keep the fuel under 60 characters").default(""),
     targetManifoldKpa: positive("Target manifold pressure", 1000, "kPa absolute (145 psi abs)"),
     peakPressureMpa: positive("Peak cylinder pressure", 100, "MPa (1000 bar, 14500 psi)").optional(),
@@ -70,11 +78,17 @@ const fmt = (x: number) => String(Math.round(x * 1000) / 1000);
 const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 const isNum = (v: unknown): v is number => typeof v === "number" && Number.isFinite(v);
+/** A cylinder count that passed its own check (whole, 1 to CYLINDERS_MAX). */
+const isCylinderCount = (v: unknown): v is number => Number.isInteger(v) && (v as number) >= 1 && (v as number) <= CYLINDERS_MAX;
 
-// May see a partly invalid record (see `when` above): every check first asks whether its fields are usable.
+// May see a partly invalid record (see `when` above): every check first asks whether its fields passed
+// their own checks, so no loop or message list here grows with a number that already failed.
 function checkEngine(e: EngineInput, ctx: z.RefinementCtx): void {
-  const issue = (path: (string | number)[], message: string) => ctx.addIssue({ code: "custom", path, message });
-  if (e.layout === "V" && isNum(e.cylinders) && e.cylinders % 2 !== 0)
+  let left = CROSS_FIELD_ISSUES_MAX;
+  const issue = (path: (string | number)[], message: string) => {
+    if (left-- > 0) ctx.addIssue({ code: "custom", path, message });
+  };
+  if (e.layout === "V" && isCylinderCount(e.cylinders) && e.cylinders % 2 !== 0)
     issue(["cylinders"], "A V engine needs an even number of cylinders");
   if (isNum(e.rodLengthMm) && isNum(e.strokeMm) && e.rodLengthMm <= e.strokeMm / 2)
     issue(["rodLengthMm"], `The rod must be longer than half the stroke (${fmt(e.strokeMm / 2)} mm)`);
@@ -87,8 +101,16 @@ function checkEngine(e: EngineInput, ctx: z.RefinementCtx): void {
   if (e.peakPressureSource === "measured" && e.peakPressureMpa === undefined)
     issue(["peakPressureMpa"], "A measured peak pressure needs its value");
   const studsUsable =
-    Array.isArray(e.studs) && e.studs.every((s) => s && Array.isArray(s.serves) && s.serves.every((v) => isNum(v?.cylinder) && isNum(v?.share)));
-  if (studsUsable && isNum(e.cylinders)) for (const i of studShareIssues(e.studs, e.cylinders)) issue(i.path, i.message);
+    Array.isArray(e.studs) &&
+    e.studs.length <= STUDS_MAX &&
+    e.studs.every(
+      (s) =>
+        s &&
+        Array.isArray(s.serves) &&
+        s.serves.length <= CYLINDERS_MAX &&
+        s.serves.every((v) => Number.isInteger(v?.cylinder) && v.cylinder >= 1 && isNum(v?.share)),
+    );
+  if (studsUsable && isCylinderCount(e.cylinders)) for (const i of studShareIssues(e.studs, e.cylinders)) issue(i.path, i.message);
 }
 
 /**
@@ -98,6 +120,8 @@ function checkEngine(e: EngineInput, ctx: z.RefinementCtx): void {
  */
 export function studShareIssues(studs: Stud[], cylinders: number): { path: (string | number)[]; message: string }[] {
   const out: { path: (string | number)[]; message: string }[] = [];
+  // Only a count that passed its own check is looped over; the caller words a bad count.
+  if (!isCylinderCount(cylinders)) return out;
   const served = new Set<number>();
   studs.forEach((stud, i) => {
     const name = studName(stud, i);
@@ -121,7 +145,7 @@ export function studShareIssues(studs: Stud[], cylinders: number): { path: (stri
   for (let c = 1; c <= cylinders; c++) if (!served.has(c)) missing.push(c);
   if (missing.length > 0)
     out.push({ path: ["studs"], message: `No stud serves cylinder${missing.length > 1 ? "s" : ""} ${missing.join(", ")}` });
-  return out;
+  return out.slice(0, CROSS_FIELD_ISSUES_MAX);
 }
 
 export function studName(stud: Stud, index: number): string {

@@ -30,6 +30,15 @@ const positive = (label: string, max: number, unit: string) =>
     .lte(max, `${label} looks too large (over ${max} ${unit})`);
 const nonNegative = (label: string, max: number, unit: string) =>
   num(label).gte(0, `${label} cannot be negative`).lte(max, `${label} looks too large (over ${max} ${unit})`);
+/**
+ * A cross-field check runs only when the fields it reads passed their own checks: it never sees a value
+ * that was already refused (an out-of-range number, a missing one), and the builder gets one message per field.
+ */
+function fieldsPassed(fields: readonly string[]) {
+  return (payload: { issues: readonly { path?: readonly PropertyKey[] }[] }) =>
+    // an issue without a path is the record itself (not an object at all): nothing to cross-check
+    !payload.issues.some((i) => !i.path?.length || fields.includes(String(i.path[0])));
+}
 const name = z.string().trim().min(1, "Give it a name the shop will recognise").max(120, "Keep the name under 120 characters");
 const text = (label: string, max: number) => z.string().trim().max(max, `Keep ${label} under ${max} characters`);
 
@@ -64,9 +73,12 @@ export const FastenerSchema = z
     threadFriction: num("Thread friction").gte(0.02, "Thread friction is at least 0.02").lte(0.6, "Thread friction is at most 0.6"),
     bearingFriction: num("Bearing friction").gte(0.02, "Bearing friction is at least 0.02").lte(0.6, "Bearing friction is at most 0.6"),
   })
-  .superRefine((f, ctx) => {
-    for (const issue of fastenerConsistency(f)) ctx.addIssue({ code: "custom", path: [issue.field], message: issue.message });
-  });
+  .superRefine(
+    (f, ctx) => {
+      for (const issue of fastenerConsistency(f)) ctx.addIssue({ code: "custom", path: [issue.field], message: issue.message });
+    },
+    { when: fieldsPassed(["diameterMm", "pitchMm", "reducedShankDiameterMm", "reducedShankLengthMm", "washerOdMm", "washerHoleMm"]) },
+  );
 export type FastenerInput = z.infer<typeof FastenerSchema>;
 
 export const GasketSchema = z
@@ -88,9 +100,12 @@ export const GasketSchema = z
     finishMinRaUm: positive("Smoothest finish", 25, "µm Ra").nullable(),
     finishMaxRaUm: positive("Roughest finish", 25, "µm Ra").nullable(),
   })
-  .superRefine((g, ctx) => {
-    for (const issue of gasketConsistency(g)) ctx.addIssue({ code: "custom", path: [issue.field], message: issue.message });
-  });
+  .superRefine(
+    (g, ctx) => {
+      for (const issue of gasketConsistency(g)) ctx.addIssue({ code: "custom", path: [issue.field], message: issue.message });
+    },
+    { when: fieldsPassed(["boreMm", "sealDiameterMm", "ringWidthMm", "finishMinRaUm", "finishMaxRaUm"]) },
+  );
 export type GasketInput = z.infer<typeof GasketSchema>;
 
 const round3 = (x: number) => String(Math.round(x * 1000) / 1000);

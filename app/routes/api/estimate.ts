@@ -14,6 +14,13 @@ export async function action({ request }: { request: Request }) {
   if (!body || typeof body !== "object" || Array.isArray(body) || !body.input || typeof body.input !== "object") {
     return Response.json({ error: 'Send a JSON object { "input": { …the plan in SI… } }; see docs/clamp-model.md for its fields.' }, { status: 400 });
   }
+  // The engine part first: the plan's cross-field checks loop over its cylinder count, so they only
+  // ever see a count that passed its own check (a count of 10⁹ once exhausted the heap).
+  const engine = PlanInputSchema.shape.engine.safeParse((body.input as { engine?: unknown }).engine);
+  if (!engine.success) {
+    const errors = engine.error.issues.map((i) => ({ path: ["engine", ...i.path].join("."), message: i.message }));
+    return Response.json({ error: "The plan has problems; nothing was estimated.", errors }, { status: 400 });
+  }
   const parsed = PlanInputSchema.safeParse(body.input);
   if (!parsed.success) {
     const errors = parsed.error.issues.map((i) => ({ path: i.path.join("."), message: i.message }));
