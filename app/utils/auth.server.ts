@@ -88,10 +88,26 @@ export async function endSession(request: Request) {
   return redirect("/login", { headers: { "Set-Cookie": await sessionStorage().destroySession(session) } });
 }
 
-/** Only same-site paths; anything else goes to the dashboard. */
+// A stand-in origin to resolve a path against: only where the path lands matters, not this name.
+const REDIRECT_BASE = "http://sealwright.invalid";
+
+/**
+ * Only paths on this site; anything else goes to the fallback. Browsers drop tabs and newlines from a
+ * URL and read "\\" as "/", so "/\t/evil.example" is "//evil.example" to them: control characters and
+ * backslashes are refused outright, then the path is resolved as a URL and must stay on our origin.
+ * What comes back is the URL's own (percent-encoded) form, always a valid Location header.
+ */
 export function safeRedirect(to: string | null | undefined, fallback = "/dashboard"): string {
-  if (!to || !to.startsWith("/") || to.startsWith("//") || to.startsWith("/\\")) return fallback;
-  return to;
+  if (typeof to !== "string" || !to.startsWith("/") || to.startsWith("//")) return fallback;
+  if (/[\u0000-\u001f\u007f-\u009f\\]/.test(to)) return fallback;
+  let url: URL;
+  try {
+    url = new URL(to, REDIRECT_BASE);
+  } catch {
+    return fallback;
+  }
+  if (url.origin !== REDIRECT_BASE) return fallback;
+  return url.pathname + url.search + url.hash;
 }
 
 /** For JSON API routes: the signed-in member, or a 401 JSON answer (never a redirect). */
