@@ -4,9 +4,10 @@ import { createReadableStreamFromReadable } from "@react-router/node";
 import { isbot } from "isbot";
 import type { RenderToPipeableStreamOptions } from "react-dom/server";
 import { renderToPipeableStream } from "react-dom/server";
-import { ServerRouter, type EntryContext, type HandleDataRequestFunction } from "react-router";
+import { isRouteErrorResponse, ServerRouter, type EntryContext, type HandleDataRequestFunction, type HandleErrorFunction } from "react-router";
 import { NonceProvider } from "./components/nonce";
-import { securityHeaders } from "./utils/security-headers.server";
+import { logCrossSiteRefusal } from "./utils/request-guard.server";
+import { fillSecurityHeaders, securityHeaders } from "./utils/security-headers.server";
 
 export const streamTimeout = 5_000;
 
@@ -20,8 +21,20 @@ function applyHeaders(headers: Headers, nonce: string) {
 }
 
 export const handleDataRequest: HandleDataRequestFunction = (response) => {
-  applyHeaders(response.headers, "");
+  fillSecurityHeaders(response.headers, "other", production);
   return response;
+};
+
+// React Router refuses an action whose Origin is not the request's own before any middleware runs,
+// and hands us the refusal as an error (on a data request, as a bare "Bad Request").
+const ROUTER_CSRF_REFUSAL = /^(Bad Request$|The `request\.url` origin does not match|`origin` header is not a valid URL)/;
+
+// One line for a refused cross-site write, nothing for answers in words (4xx), the stack for real faults.
+export const handleError: HandleErrorFunction = (error, { request }) => {
+  if (request.signal.aborted) return;
+  if (error instanceof Error && ROUTER_CSRF_REFUSAL.test(error.message)) return logCrossSiteRefusal(request);
+  if (isRouteErrorResponse(error) && error.status < 500) return;
+  console.error(error);
 };
 
 export default function handleRequest(

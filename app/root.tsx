@@ -3,16 +3,10 @@ import type { Route } from "./+types/root";
 import "./app.css";
 import { useNonce } from "./components/nonce";
 import { readToast } from "./utils/toast.server";
-import { isSameOriginPost } from "./utils/origin.server";
+import { guardRequest } from "./utils/request-middleware.server";
 
-export const middleware: Route.MiddlewareFunction[] = [
-  async ({ request }, next) => {
-    if (!isSameOriginPost(request)) {
-      throw data("This form was sent from another site, so it was refused.", { status: 403 });
-    }
-    return next();
-  },
-];
+// Every request: refused writes and bad ids answered first, security headers on whatever goes out.
+export const middleware: Route.MiddlewareFunction[] = [guardRequest];
 
 export const links: Route.LinksFunction = () => [{ rel: "icon", href: "/favicon.svg", type: "image/svg+xml" }];
 

@@ -3,6 +3,7 @@ import { data } from "react-router";
 import type { Stud } from "~/lib/clamp/schema";
 import type { EngineInput } from "~/lib/engine/schema";
 import { db, now } from "~/utils/db.server";
+import { parseId } from "~/utils/ids";
 
 export type EngineStatus = "quoted" | "in-build" | "running" | "retired";
 export type SleeveKind = "none" | "dry" | "wet-flange" | "wet-mid";
@@ -93,7 +94,8 @@ export async function getEngine(teamId: number, engineId: number): Promise<Engin
 
 /** As getEngine, but throws a 404 the ErrorBoundary shows kindly. */
 export async function requireEngine(teamId: number, engineIdParam: string | undefined): Promise<EngineRow> {
-  const engine = await getEngine(teamId, Number(engineIdParam));
+  const id = parseId(engineIdParam);
+  const engine = id === null ? null : await getEngine(teamId, id);
   if (!engine) throw data("No such engine in this shop.", { status: 404 });
   return engine;
 }
@@ -113,6 +115,11 @@ export const ENGINE_SORTS = {
   updated: "e.updated_at",
 } as const;
 export type EngineSort = keyof typeof ENGINE_SORTS;
+
+/** Own keys only: "toString", "constructor" or "__proto__" are not columns. */
+export function isEngineSort(s: unknown): s is EngineSort {
+  return typeof s === "string" && Object.hasOwn(ENGINE_SORTS, s);
+}
 
 export interface EngineListRow {
   id: number;
@@ -143,7 +150,7 @@ const likeEscape = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 export async function listEngines(teamId: number, query: EngineListQuery = {}): Promise<{ rows: EngineListRow[]; total: number }> {
   const pageSize = query.pageSize ?? 25;
   const page = Math.max(1, Math.floor(query.page ?? 1));
-  const sort: EngineSort = query.sort && query.sort in ENGINE_SORTS ? query.sort : "updated";
+  const sort: EngineSort = isEngineSort(query.sort) ? query.sort : "updated";
   const dir = query.dir === "asc" ? "asc" : query.dir === "desc" ? "desc" : sort === "updated" ? "desc" : "asc";
   const base = db()("engines as e")
     // the chosen plan must be this team's and this engine's, or it shows as none

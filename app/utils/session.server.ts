@@ -18,7 +18,8 @@ export function hashSessionId(id: string): string {
   return crypto.createHash("sha256").update(id).digest("hex");
 }
 
-function sessionSecret(): string {
+/** The secret that signs the session cookie (and the toast cookie). */
+export function sessionSecret(): string {
   const env = getEnv();
   if (env.SESSION_SECRET) return env.SESSION_SECRET;
   // No secret configured: keep a random one beside the database so restarts keep people signed in.

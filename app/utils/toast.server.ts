@@ -1,24 +1,35 @@
 import { createCookieSessionStorage } from "react-router";
 import { cookieIsSecure } from "./env.server";
+import { sessionSecret } from "./session.server";
 
 export interface Toast {
   kind: "done" | "problem";
   message: string;
 }
 
-// A short-lived, flash-only cookie: shown once on the next page, then gone.
-const toastStorage = createCookieSessionStorage<{ toast: Toast }, { toast: Toast }>({
-  cookie: { name: "sw_toast", httpOnly: true, sameSite: "lax", path: "/", maxAge: 60, secure: cookieIsSecure(), secrets: ["toast-not-secret"] },
-});
+// A short-lived, flash-only cookie: shown once on the next page, then gone. Signed with the session
+// secret, so nobody can forge a message that appears to come from the app.
+let toastStorage: ReturnType<typeof build> | undefined;
+
+function build() {
+  return createCookieSessionStorage<{ toast: Toast }, { toast: Toast }>({
+    cookie: { name: "sw_toast", httpOnly: true, sameSite: "lax", path: "/", maxAge: 60, secure: cookieIsSecure(), secrets: [sessionSecret()] },
+  });
+}
+
+function storage() {
+  toastStorage ??= build();
+  return toastStorage;
+}
 
 export async function flashToast(request: Request, toast: Toast): Promise<string> {
-  const session = await toastStorage.getSession(request.headers.get("Cookie"));
+  const session = await storage().getSession(request.headers.get("Cookie"));
   session.flash("toast", toast);
-  return toastStorage.commitSession(session);
+  return storage().commitSession(session);
 }
 
 export async function readToast(request: Request): Promise<{ toast: Toast | null; setCookie: string | null }> {
-  const session = await toastStorage.getSession(request.headers.get("Cookie"));
+  const session = await storage().getSession(request.headers.get("Cookie"));
   const toast = session.get("toast") ?? null;
-  return { toast, setCookie: toast ? await toastStorage.destroySession(session) : null };
+  return { toast, setCookie: toast ? await storage().destroySession(session) : null };
 }

@@ -3,12 +3,14 @@ import type { Route } from "./+types/list";
 import { PageTitle } from "~/components/app-shell";
 import { StatusBadge } from "~/components/engine-status";
 import { ENGINE_STATUSES, formatQuantity, layoutName, STATUS_LABEL, type EngineStatus, type Units } from "~/lib/engine";
-import { ENGINE_SORTS, listEngines, type EngineSort } from "~/models/engine.server";
+import { isEngineSort, listEngines, type EngineSort } from "~/models/engine.server";
 import { requireUser, roleAtLeast } from "~/utils/auth.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Engines · Sealwright" }];
 
 const PAGE_SIZE = 25;
+// Past any real list; a larger page number would overflow SQLite's integer offset.
+const MAX_PAGE = 1_000_000;
 
 export async function loader({ request }: Route.LoaderArgs) {
   const { user, team, role } = await requireUser(request);
@@ -17,9 +19,9 @@ export async function loader({ request }: Route.LoaderArgs) {
   const statusParam = sp.get("status") ?? "";
   const status = (ENGINE_STATUSES as readonly string[]).includes(statusParam) ? (statusParam as EngineStatus) : "";
   const sortParam = sp.get("sort") ?? "";
-  const sort: EngineSort = sortParam in ENGINE_SORTS ? (sortParam as EngineSort) : "updated";
+  const sort: EngineSort = isEngineSort(sortParam) ? sortParam : "updated";
   const dir = sp.get("dir") === "asc" ? "asc" : sp.get("dir") === "desc" ? "desc" : sort === "updated" ? "desc" : "asc";
-  const page = Math.max(1, Math.floor(Number(sp.get("page")) || 1));
+  const page = Math.min(MAX_PAGE, Math.max(1, Math.floor(Number(sp.get("page")) || 1)));
   const { rows, total } = await listEngines(team.id, { q, status, sort, dir, page, pageSize: PAGE_SIZE });
   return { rows, total, page, pageSize: PAGE_SIZE, q, status, sort, dir, units: user.units as Units, canEdit: roleAtLeast(role, "builder") };
 }

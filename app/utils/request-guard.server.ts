@@ -1,0 +1,115 @@
+import { parseId, idParamNames } from "./ids";
+import { isSameOriginPost } from "./origin.server";
+import { MAX_JSON_BYTES } from "./json-body.server";
+
+// Checks every request passes before any loader or action sees it (root middleware, and the
+// production server before React Router): where a write may come from, what body it may carry and how
+// big, and that record ids in the path are decimal. A refusal is an answer in words, never a 500.
+
+/** Form posts larger than this are refused (413) before they are parsed. The engine form at its 80-stud
+ * maximum with 4,000 characters of notes is under 40 KiB. */
+export const MAX_FORM_BYTES = 128 * 1024;
+
+const FORM_TYPES = new Set(["application/x-www-form-urlencoded", "multipart/form-data"]);
+const JSON_TYPES = new Set(["application/json"]);
+
+export interface Refusal {
+  status: 400 | 403 | 404 | 413 | 415;
+  message: string;
+}
+
+export const CROSS_SITE_MESSAGE = "This form was sent from another site, so it was refused.";
+
+export function isMutation(method: string): boolean {
+  const m = method.toUpperCase();
+  return m !== "GET" && m !== "HEAD" && m !== "OPTIONS";
+}
+
+export function isApiPath(pathname: string): boolean {
+  return pathname.startsWith("/api/");
+}
+
+/** "multipart/form-data; boundary=x" → "multipart/form-data". */
+function mediaType(contentType: string | null): string {
+  return (contentType ?? "").split(";")[0]!.trim().toLowerCase();
+}
+
+function bodyLimit(pathname: string): number {
+  return isApiPath(pathname) ? MAX_JSON_BYTES : MAX_FORM_BYTES;
+}
+
+/** What the request line and headers alone already refuse; null when they pass. */
+export function headerRefusal(request: Request, params: Record<string, string | undefined> = {}): Refusal | null {
+  for (const name of idParamNames(params)) {
+    if (parseId(params[name]) === null) return { status: 404, message: "There is nothing at this address." };
+  }
+  if (!isMutation(request.method)) return null;
+  if (!isSameOriginPost(request)) return { status: 403, message: CROSS_SITE_MESSAGE };
+  const pathname = new URL(request.url).pathname;
+  const contentType = request.headers.get("Content-Type");
+  const type = mediaType(contentType);
+  if (isApiPath(pathname)) {
+    if (!JSON_TYPES.has(type)) return { status: 415, message: "Send the body as JSON (Content-Type: application/json)." };
+  } else if (!FORM_TYPES.has(type)) {
+    return { status: 415, message: "Send the form as application/x-www-form-urlencoded or multipart/form-data." };
+  } else if (type === "multipart/form-data" && !/;\s*boundary=/i.test(contentType ?? "")) {
+    return { status: 400, message: "The form's multipart body names no boundary." };
+  }
+  const declared = request.headers.get("Content-Length");
+  if (declared !== null) {
+    if (!/^\d+$/.test(declared.trim())) return { status: 400, message: "The Content-Length header is not a number." };
+    if (Number(declared) > bodyLimit(pathname)) return tooLarge(pathname);
+  }
+  return null;
+}
+
+function tooLarge(pathname: string): Refusal {
+  return { status: 413, message: `The body is larger than ${Math.round(bodyLimit(pathname) / 1024)} KiB.` };
+}
+
+/**
+ * Reads a copy of the body up to the limit (a chunked body names no length): 413 past it. A multipart
+ * body that does not parse is a 400 here rather than a 500 in the action. The action still reads the
+ * original, which holds at most the limit.
+ */
+export async function bodyRefusal(request: Request): Promise<Refusal | null> {
+  if (!isMutation(request.method) || !request.body) return null;
+  const pathname = new URL(request.url).pathname;
+  const limit = bodyLimit(pathname);
+  const reader = request.clone().body!.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > limit) {
+      // A tee's branch only finishes cancelling once both have: cancel the copy and the original
+      // (nobody reads a refused body) so the source stops.
+      await Promise.all([reader.cancel(), request.body.cancel()]).catch(() => {});
+      return tooLarge(pathname);
+    }
+    chunks.push(value);
+  }
+  const contentType = request.headers.get("Content-Type") ?? "";
+  if (mediaType(contentType) === "multipart/form-data") {
+    try {
+      await new Response(Buffer.concat(chunks), { headers: { "Content-Type": contentType } }).formData();
+    } catch {
+      return { status: 400, message: "The form's multipart body could not be read." };
+    }
+  }
+  return null;
+}
+
+/** Refusal for the request, from its headers or its body; null when it may go on. */
+export async function requestRefusal(request: Request, params: Record<string, string | undefined> = {}): Promise<Refusal | null> {
+  return headerRefusal(request, params) ?? (await bodyRefusal(request));
+}
+
+/** One line for a refused cross-site write (React Router's own refusal logged a stack trace per request). */
+export function logCrossSiteRefusal(request: Request): void {
+  const url = new URL(request.url);
+  const from = request.headers.get("Origin") ?? request.headers.get("Referer") ?? "no origin";
+  console.warn(`refused cross-site ${request.method.toUpperCase()} ${url.pathname} from ${JSON.stringify(from.slice(0, 200))}`);
+}
