@@ -11,6 +11,13 @@ const EnvSchema = z.object({
   SESSION_MAX_DAYS: z.coerce.number().positive().default(14),
   // Secure cookies in production unless the shop serves plain HTTP on its own network.
   COOKIE_SECURE: z.enum(["true", "false"]).optional(),
+  // The demo shop (published password) is seeded into an empty database unless this is "false".
+  SEED_DEMO: z.enum(["true", "false"], "SEED_DEMO must be true or false").default("true"),
+  // Where the sign-in, sign-up and API throttles keep their counts (app/utils/rate-limit.server.ts).
+  RATE_LIMIT_STORE: z.enum(["memory", "sqlite"], "RATE_LIMIT_STORE must be memory or sqlite").default("memory"),
+  RATE_LIMIT_SQLITE_PATH: z.string().min(1).optional(),
+  // Behind a reverse proxy, the client's address is the proxy's X-Forwarded-For entry.
+  TRUST_PROXY: z.enum(["true", "false"], "TRUST_PROXY must be true or false").default("false"),
 });
 
 export type Env = z.infer<typeof EnvSchema>;

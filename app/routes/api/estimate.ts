@@ -2,14 +2,21 @@ import { PlanInputSchema } from "~/lib/clamp";
 import { estimateView } from "~/lib/plan/estimate-view";
 import { displayWording } from "~/lib/plan/wording";
 import { requireApiMember } from "~/utils/auth.server";
+import { clientAddress } from "~/utils/client-address.server";
 import { readJsonBody } from "~/utils/json-body.server";
+import { takeAll, tooManyHeaders, waitWords } from "~/utils/rate-limit.server";
 
 // POST /api/v1/estimate  { input: PlanInput (SI), units?: "metric" | "imperial" } → the estimate, sweep and
 // uncertainty. Figures are SI; `units` only sets how the sentences (warnings, squeeze point) read.
 // Session-authorized; validated with the clamp model's own schema; computes only, stores nothing.
-export async function action({ request }: { request: Request }) {
+export async function action({ request, context }: { request: Request; context?: unknown }) {
   if (request.method !== "POST") return Response.json({ error: "Use POST." }, { status: 405 });
-  await requireApiMember(request);
+  const address = clientAddress(context);
+  const beforeSignIn = await takeAll([["apiAddress", address]]);
+  if (beforeSignIn > 0) return tooMany(beforeSignIn);
+  const { user } = await requireApiMember(request);
+  const wait = await takeAll([["apiUser", String(user.id)]]);
+  if (wait > 0) return tooMany(wait);
   const body = (await readJsonBody(request)) as { input?: unknown; units?: unknown } | null;
   if (!body || typeof body !== "object" || Array.isArray(body) || !body.input || typeof body.input !== "object") {
     return Response.json({ error: 'Send a JSON object { "input": { …the plan in SI… } }; see docs/clamp-model.md for its fields.' }, { status: 400 });
@@ -28,6 +35,10 @@ export async function action({ request }: { request: Request }) {
   }
   const units = body && body.units === "imperial" ? "imperial" : "metric";
   return Response.json(estimateView(parsed.data, displayWording(units)));
+}
+
+function tooMany(waitMs: number) {
+  return Response.json({ error: `Too many estimates at once; try again in ${waitWords(waitMs)}.` }, { status: 429, headers: tooManyHeaders(waitMs) });
 }
 
 export function loader() {

@@ -4,6 +4,8 @@ import { AuthFrame } from "~/components/auth-frame";
 import { Button, Field, FormError } from "~/components/form";
 import { listMemberships } from "~/models/user.server";
 import { authenticator, getUser, safeRedirect, SignInError, startSession } from "~/utils/auth.server";
+import { clientAddress } from "~/utils/client-address.server";
+import { signInAttempt, signInSucceeded } from "~/utils/sign-in-throttle.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Sealwright" }];
 
@@ -12,11 +14,16 @@ export async function loader({ request }: Route.LoaderArgs) {
   return null;
 }
 
-export async function action({ request }: Route.ActionArgs) {
+export async function action({ request, context }: Route.ActionArgs) {
   const redirectTo = safeRedirect(new URL(request.url).searchParams.get("redirectTo"));
   const email = String((await request.clone().formData()).get("email") ?? "");
+  const address = clientAddress(context);
+  // Throttled before the password is checked: a refused guess never reaches the hash.
+  const refused = await signInAttempt(email, address);
+  if (refused) return data({ error: refused.message, email }, { status: 429, headers: refused.headers });
   try {
     const user = await authenticator.authenticate("form", request);
+    await signInSucceeded(email, address);
     const [first] = await listMemberships(user.id);
     return startSession(request, user.id, first?.teamId ?? null, redirectTo);
   } catch (error) {
