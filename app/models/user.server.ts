@@ -41,7 +41,20 @@ export async function emailTaken(email: string): Promise<boolean> {
   return Boolean(await db()("users").where({ email: normalizeEmail(email) }).first("id"));
 }
 
-// A new person and their own shop, of which they are the owner; one transaction.
+/** The e-mail already has an account (found by the UNIQUE constraint, so two sign-ups at once agree). */
+export class EmailTakenError extends Error {
+  constructor() {
+    super("e-mail already has an account");
+  }
+}
+
+function isEmailUniqueViolation(error: unknown): boolean {
+  const e = error as { code?: string; message?: string } | null;
+  return Boolean(e && e.code === "SQLITE_CONSTRAINT_UNIQUE" && /users\.email/.test(e.message ?? ""));
+}
+
+// A new person and their own shop, of which they are the owner; one transaction. The password is hashed
+// first, whether or not the e-mail turns out to be free, so both answers cost the same.
 export async function createUserWithTeam(input: {
   email: string;
   name: string;
@@ -49,14 +62,19 @@ export async function createUserWithTeam(input: {
   teamName: string;
 }): Promise<{ user: UserRow; teamId: number }> {
   const passwordHash = await hashPassword(input.password);
-  return db().transaction(async (trx) => {
-    const user = await insertUser(trx, { email: input.email, name: input.name, passwordHash });
-    const teamId = await insertTeam(trx, input.teamName);
-    await trx("memberships").insert({ user_id: user.id, team_id: teamId, role: "owner", created_at: now() });
-    await trx("audit_events").insert({ team_id: teamId, user_id: user.id, action: "team.created", created_at: now() });
-    await seedTeamLibrary(trx, teamId);
-    return { user, teamId };
-  });
+  try {
+    return await db().transaction(async (trx) => {
+      const user = await insertUser(trx, { email: input.email, name: input.name, passwordHash });
+      const teamId = await insertTeam(trx, input.teamName);
+      await trx("memberships").insert({ user_id: user.id, team_id: teamId, role: "owner", created_at: now() });
+      await trx("audit_events").insert({ team_id: teamId, user_id: user.id, action: "team.created", created_at: now() });
+      await seedTeamLibrary(trx, teamId);
+      return { user, teamId };
+    });
+  } catch (error) {
+    if (isEmailUniqueViolation(error)) throw new EmailTakenError();
+    throw error;
+  }
 }
 
 export async function insertUser(

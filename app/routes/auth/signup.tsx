@@ -3,9 +3,12 @@ import { z } from "zod";
 import type { Route } from "./+types/signup";
 import { AuthFrame } from "~/components/auth-frame";
 import { Button, Field, fieldErrors, FormError } from "~/components/form";
-import { createUserWithTeam, emailTaken } from "~/models/user.server";
+import { createUserWithTeam, EmailTakenError } from "~/models/user.server";
 import { getUser, startSession } from "~/utils/auth.server";
-import { PASSWORD_MAX, PASSWORD_MIN } from "~/utils/password-rules";
+import { clientAddress } from "~/utils/client-address.server";
+import { isCommonPassword } from "~/utils/password.server";
+import { isBlankPassword, PASSWORD_MAX, PASSWORD_MIN } from "~/utils/password-rules";
+import { takeAll, tooManyHeaders, waitWords } from "~/utils/rate-limit.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Create your shop · Sealwright" }];
 
@@ -16,24 +19,39 @@ const SignUpSchema = z.object({
   password: z
     .string()
     .min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters`)
-    .max(PASSWORD_MAX, `Use at most ${PASSWORD_MAX} characters`),
+    .max(PASSWORD_MAX, `Use at most ${PASSWORD_MAX} characters`)
+    .refine((p) => !isBlankPassword(p), "Use letters, digits or symbols, not only spaces")
+    .refine((p) => !isCommonPassword(p), "That password is on a public list of common passwords; pick another (a short sentence works well)"),
 });
+
+// The same words whether the e-mail is taken now or was taken a moment ago by a second sign-up.
+export const EMAIL_NOT_AVAILABLE = "That e-mail cannot start a new shop. If it is yours, sign in instead.";
 
 export async function loader({ request }: Route.LoaderArgs) {
   if (await getUser(request)) throw redirect("/dashboard");
   return null;
 }
 
-export async function action({ request }: Route.ActionArgs) {
+export async function action({ request, context }: Route.ActionArgs) {
   const form = Object.fromEntries(await request.formData());
   const values = { name: String(form.name ?? ""), email: String(form.email ?? ""), teamName: String(form.teamName ?? "") };
   const parsed = SignUpSchema.safeParse(form);
   if (!parsed.success) return data({ errors: fieldErrors(parsed.error.issues), values, formError: null }, { status: 400 });
-  if (await emailTaken(parsed.data.email)) {
-    return data({ errors: { email: "That e-mail already has an account. Sign in instead." }, values, formError: null }, { status: 400 });
+  // Each attempt that would hash and write counts against the address, taken or not.
+  const wait = await takeAll([["signUpAddress", clientAddress(context)]]);
+  if (wait > 0) {
+    const formError = `Too many new shops from this network; try again in ${waitWords(wait)}.`;
+    return data({ errors: {} as Record<string, string>, values, formError }, { status: 429, headers: tooManyHeaders(wait) });
   }
-  const { user, teamId } = await createUserWithTeam(parsed.data);
-  return startSession(request, user.id, teamId, "/dashboard");
+  try {
+    // Hashes first, then lets the UNIQUE constraint say whether the e-mail is free: no separate look-up
+    // that answers faster for a taken e-mail, and no race between two sign-ups of the same e-mail.
+    const { user, teamId } = await createUserWithTeam(parsed.data);
+    return startSession(request, user.id, teamId, "/dashboard");
+  } catch (error) {
+    if (error instanceof EmailTakenError) return data({ errors: { email: EMAIL_NOT_AVAILABLE }, values, formError: null }, { status: 400 });
+    throw error;
+  }
 }
 
 export default function SignUp({ actionData }: Route.ComponentProps) {
