@@ -18,6 +18,16 @@ export function db(): Knex {
   return instance;
 }
 
+/**
+ * A write and everything that belongs with it (its audit row above all) as one transaction, begun
+ * IMMEDIATE: it holds SQLite's write lock from its first statement, so a read inside it cannot go stale
+ * and another process's writer makes it wait (busy_timeout), never fail. Every write that is more than
+ * one statement goes through here.
+ */
+export function writeTransaction<T>(work: (trx: Knex.Transaction) => Promise<T>): Promise<T> {
+  return db().transaction(work);
+}
+
 export async function closeDb(): Promise<void> {
   const closing = instance;
   instance = undefined;
