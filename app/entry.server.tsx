@@ -11,6 +11,11 @@ import { fillSecurityHeaders, securityHeaders } from "./utils/security-headers.s
 
 export const streamTimeout = 5_000;
 
+// For the production server (scripts/serve.mjs), which must use the build's own copies: the router
+// context key it puts the client's address under, and the header table it puts on static files.
+export { clientAddressContext } from "./utils/client-address.server";
+export { fillHeaderValues, kindOf } from "./utils/security-headers.server";
+
 const production = process.env.NODE_ENV === "production";
 
 function applyHeaders(headers: Headers, nonce: string) {

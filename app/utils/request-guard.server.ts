@@ -84,9 +84,10 @@ export async function bodyRefusal(request: Request): Promise<Refusal | null> {
     if (done) break;
     size += value.byteLength;
     if (size > limit) {
-      // A tee's branch only finishes cancelling once both have: cancel the copy and the original
-      // (nobody reads a refused body) so the source stops.
-      await Promise.all([reader.cancel(), request.body.cancel()]).catch(() => {});
+      // Stop reading the copy (a tee's cancel settles only once both branches are cancelled, so it is
+      // not awaited). The original is left alone: destroying it would reset the connection before
+      // the 413 is sent; the server discards the unread rest once the answer is out.
+      reader.cancel().catch(() => {});
       return tooLarge(pathname);
     }
     chunks.push(value);

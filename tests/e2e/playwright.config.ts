@@ -22,7 +22,7 @@ export default defineConfig({
     },
   },
   webServer: {
-    command: "rm -rf tests/.e2e-data && npm run db:setup --silent && react-router-serve ./build/server/index.js",
+    command: "rm -rf tests/.e2e-data && npm run db:setup --silent && node scripts/serve.mjs build/server/index.js",
     cwd: ROOT,
     url: `http://localhost:${PORT}/healthz`,
     reuseExistingServer: false,

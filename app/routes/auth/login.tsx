@@ -9,6 +9,12 @@ import { signInAttempt, signInSucceeded } from "~/utils/sign-in-throttle.server"
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Sealwright" }];
 
+// A throttled attempt's Retry-After reaches the page response too (not only the data).
+export const headers: Route.HeadersFunction = ({ actionHeaders }) => {
+  const retryAfter = actionHeaders.get("Retry-After");
+  return retryAfter ? { "Retry-After": retryAfter } : new Headers();
+};
+
 export async function loader({ request }: Route.LoaderArgs) {
   if (await getUser(request)) throw redirect("/dashboard");
   return null;

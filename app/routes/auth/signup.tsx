@@ -27,6 +27,12 @@ const SignUpSchema = z.object({
 // The same words whether the e-mail is taken now or was taken a moment ago by a second sign-up.
 export const EMAIL_NOT_AVAILABLE = "That e-mail cannot start a new shop. If it is yours, sign in instead.";
 
+// A throttled attempt's Retry-After reaches the page response too (not only the data).
+export const headers: Route.HeadersFunction = ({ actionHeaders }) => {
+  const retryAfter = actionHeaders.get("Retry-After");
+  return retryAfter ? { "Retry-After": retryAfter } : new Headers();
+};
+
 export async function loader({ request }: Route.LoaderArgs) {
   if (await getUser(request)) throw redirect("/dashboard");
   return null;
