@@ -1,0 +1,203 @@
+import crypto from "node:crypto";
+import { beforeAll, describe, expect, it, vi } from "vitest";
+import { db } from "~/utils/db.server";
+import { DEMO_PASSWORD, ORIGIN, signIn } from "./helpers";
+import { through, type Answer } from "./pipeline";
+import { appRoutes, fill, type RouteInfo } from "./routes-list";
+
+// The role and tenant matrix, generated from app/routes.ts: every route × method (GET when it has a
+// loader, POST when it has an action) × {anonymous, viewer, builder, owner, another team's owner},
+// run behind the root middleware. A route in routes.ts without a row here fails; so does a row for a
+// route that is gone. Expected answers: a status, "signin" (302 to /login?redirectTo=…) or "→/path".
+
+type Who = "anonymous" | "viewer" | "builder" | "owner" | "otherTeam";
+const WHO: Who[] = ["anonymous", "viewer", "builder", "owner", "otherTeam"];
+const EMAIL: Record<Exclude<Who, "anonymous">, string> = {
+  viewer: "viewer@example.com",
+  builder: "builder@example.com",
+  owner: "owner@example.com",
+  otherTeam: "other-owner@example.com",
+};
+
+type Row = [anonymous: string, viewer: string, builder: string, owner: string, otherTeam: string];
+const all = (x: string): Row => [x, x, x, x, x];
+const member = (x: string): Row => ["signin", x, x, x, x];
+const demoOnly = (x: string): Row => ["signin", x, x, x, "404"];
+const builderDemo = (x: string): Row => ["signin", "403", x, x, "404"];
+
+// Harmless bodies: each reaches the action's own checks and writes nothing.
+const MATRIX: Record<string, Row> = {
+  "routes/home GET": ["→/login", "→/dashboard", "→/dashboard", "→/dashboard", "→/dashboard"],
+  "routes/auth/login GET": ["200", "→/dashboard", "→/dashboard", "→/dashboard", "→/dashboard"],
+  "routes/auth/login POST": all("400"),
+  "routes/auth/signup GET": ["200", "→/dashboard", "→/dashboard", "→/dashboard", "→/dashboard"],
+  "routes/auth/signup POST": all("400"),
+  "routes/auth/logout GET": all("→/dashboard"),
+  "routes/auth/logout POST": all("→/login"),
+  "routes/app/team-switch GET": all("→/dashboard"),
+  "routes/app/team-switch POST": ["signin", "→/dashboard", "→/dashboard", "→/dashboard", "403"],
+  "routes/app/layout GET": member("200"),
+  "routes/app/dashboard GET": member("200"),
+  "routes/engines/list GET": member("200"),
+  "routes/engines/new GET": ["signin", "403", "200", "200", "200"],
+  "routes/engines/new POST": ["signin", "403", "200", "200", "200"],
+  "routes/engines/engine GET": demoOnly("200"),
+  "routes/engines/overview GET": demoOnly("200"),
+  "routes/engines/edit GET": builderDemo("200"),
+  "routes/engines/edit POST": builderDemo("200"),
+  "routes/plans/list GET": demoOnly("200"),
+  "routes/plans/new GET": builderDemo("200"),
+  "routes/plans/new POST": builderDemo("400"),
+  "routes/plans/editor GET": demoOnly("200"),
+  "routes/plans/editor POST": builderDemo("400"),
+  "routes/plans/compare GET": demoOnly("200"),
+  "routes/plans/compare POST": builderDemo("404"),
+  "routes/engines/chamber GET": demoOnly("200"),
+  "routes/libraries/layout GET": member("200"),
+  "routes/libraries/index GET": member("→/libraries/fasteners"),
+  "routes/libraries/list GET": member("200"),
+  "library-new GET": ["signin", "403", "200", "200", "200"],
+  "library-new POST": ["signin", "403", "400", "400", "400"],
+  "library-edit GET": demoOnly("200"),
+  "library-edit POST": builderDemo("400"),
+  "routes/app/evidence GET": ["signin", "403", "200", "200", "200"],
+  "routes/app/team GET": ["signin", "403", "403", "200", "200"],
+  "routes/app/team POST": ["signin", "403", "403", "400", "400"],
+  "routes/app/settings GET": member("200"),
+  "routes/app/settings POST": member("400"),
+  "routes/api/estimate GET": all("405"),
+  "routes/api/estimate POST": ["401", "400", "400", "400", "400"],
+  "routes/api/healthz GET": all("200"),
+};
+
+let routes: RouteInfo[] = [];
+const cookies: Partial<Record<Who, string>> = {};
+let values: Record<string, string> = {};
+let demoTeamId = 0;
+let otherTeamId = 0;
+
+beforeAll(async () => {
+  routes = await appRoutes();
+  for (const who of WHO) if (who !== "anonymous") cookies[who] = await signIn(EMAIL[who]);
+  demoTeamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+  otherTeamId = (await db()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id")).id;
+  const engine = await db()("engines").where({ team_id: demoTeamId, cylinders: 4 }).first("id");
+  const plan = await db()("seal_plans").where({ team_id: demoTeamId, engine_id: engine.id }).first("id");
+  const gasket = await db()("gaskets").where({ team_id: demoTeamId }).first("id");
+  values = { engineId: String(engine.id), planId: String(plan.id), kind: "gaskets", itemId: String(gasket.id) };
+});
+
+const HARMLESS: Record<string, Record<string, string>> = {
+  "routes/auth/login": { email: "", password: "" },
+  "routes/app/team-switch": { returnTo: "/dashboard" },
+  "routes/engines/new": { intent: "add-stud" },
+  "routes/engines/edit": { intent: "add-stud" },
+  "routes/plans/editor": { intent: "estimate" },
+  "routes/plans/compare": { planId: "" },
+  "library-new": { intent: "no-such-intent" },
+  "library-edit": { intent: "no-such-intent" },
+  "routes/app/team": { name: "" },
+  "routes/app/settings": { units: "" },
+};
+
+function request(route: RouteInfo, method: "GET" | "POST", cookie: string | undefined, body: Record<string, string> | string, origin = ORIGIN) {
+  const { url } = fill(route.path, values);
+  const headers = new Headers({ Origin: origin });
+  if (cookie) headers.set("Cookie", cookie);
+  if (method === "GET") return new Request(ORIGIN + url, { headers });
+  const json = route.path.startsWith("/api/");
+  headers.set("Content-Type", json ? "application/json" : "application/x-www-form-urlencoded");
+  return new Request(ORIGIN + url, { method, headers, body: json ? (typeof body === "string" ? body : JSON.stringify(body)) : new URLSearchParams(body as Record<string, string>).toString() });
+}
+
+function classify(a: Answer): string {
+  if (a.status === 302) return a.location?.startsWith("/login?redirectTo=") ? "signin" : `→${a.location}`;
+  return String(a.status);
+}
+
+async function run(route: RouteInfo, method: "GET" | "POST", who: Who): Promise<Answer> {
+  let cookie = cookies[who];
+  // signing out ends the session: give that cell a session of its own
+  if (route.id === "routes/auth/logout" && method === "POST" && who !== "anonymous") cookie = await signIn(EMAIL[who]);
+  const body = route.id === "routes/app/team-switch" ? { ...HARMLESS[route.id], teamId: String(demoTeamId) } : (HARMLESS[route.id] ?? {});
+  return through(method === "GET" ? route.loader : route.action, request(route, method, cookie, route.path.startsWith("/api/") ? "{}" : body), fill(route.path, values).params);
+}
+
+describe("the matrix covers app/routes.ts exactly", () => {
+  it("every route × method has a row, and every row is a route", () => {
+    const cells = routes.flatMap((r) => [r.loader ? `${r.id} GET` : null, r.action ? `${r.id} POST` : null]).filter((c): c is string => c !== null);
+    const pageOnly = routes.filter((r) => !r.loader && !r.action).map((r) => r.id);
+    expect(cells.filter((c) => !(c in MATRIX)), "routes without a row").toEqual([]);
+    expect(Object.keys(MATRIX).filter((k) => !cells.includes(k)), "rows without a route").toEqual([]);
+    // routes with neither loader nor action serve only the page of their parent's data
+    expect(pageOnly.sort()).toEqual(["engine-assembly", "engine-files", "engine-runs"]);
+  });
+});
+
+describe("role and tenant matrix (generated from app/routes.ts)", () => {
+  it("every cell answers as its row says", async () => {
+    const wrong: string[] = [];
+    for (const route of routes) {
+      for (const method of ["GET", "POST"] as const) {
+        if (!(method === "GET" ? route.loader : route.action)) continue;
+        const row = MATRIX[`${route.id} ${method}`]!;
+        for (const [i, who] of WHO.entries()) {
+          const got = classify(await run(route, method, who));
+          if (got !== row[i]) wrong.push(`${method} ${route.path} (${route.id}) as ${who}: ${got}, expected ${row[i]}`);
+        }
+      }
+    }
+    expect(wrong).toEqual([]);
+  });
+});
+
+// What a forged cross-site post would change if it got through: each one writes when sent from our own pages.
+const WRITING: Record<string, Record<string, string>> = {
+  "routes/auth/login": { email: "owner@example.com", password: DEMO_PASSWORD },
+  "routes/auth/signup": { name: "Forged", email: "forged@example.com", teamName: "Forged", password: "a sentence for the bench" },
+  "routes/auth/logout": {},
+  "routes/app/team-switch": { returnTo: "/dashboard" },
+  "routes/engines/new": { intent: "save", name: "Forged" },
+  "routes/engines/edit": { intent: "archive" },
+  "routes/plans/new": { name: "Forged" },
+  "routes/plans/editor": { intent: "archive" },
+  "routes/plans/compare": { planId: "" },
+  "library-new": { intent: "save", name: "Forged" },
+  "library-edit": { intent: "archive" },
+  "routes/app/team": { name: "Forged" },
+  "routes/app/settings": { units: "imperial" },
+  "routes/api/estimate": {},
+};
+
+async function digest(): Promise<string> {
+  const tables = (await db().raw("select name from sqlite_master where type = 'table' and name not like 'knex_%' order by name")) as { name: string }[];
+  const hash = crypto.createHash("sha256");
+  for (const { name } of tables) hash.update(name + JSON.stringify(await db()(name).select("*").orderByRaw("rowid")));
+  return hash.digest("hex");
+}
+
+describe("cross-site writes", () => {
+  it("every action and API route refuses a post from another site (403) for everyone, and nothing changes", async () => {
+    const warn = vi.spyOn(console, "warn").mockImplementation(() => {});
+    const actions = routes.filter((r) => r.action);
+    expect(actions.map((r) => r.id).filter((id) => !(id in WRITING)), "actions without a forged body").toEqual([]);
+    const before = await digest();
+    const answers: string[] = [];
+    let sent = 0;
+    for (const route of actions) {
+      for (const who of WHO) {
+        const body = route.id === "routes/app/team-switch" ? { ...WRITING[route.id], teamId: String(who === "otherTeam" ? otherTeamId : demoTeamId) } : WRITING[route.id]!;
+        for (const origin of ["http://evil.example", "null", "https://localhost.evil.example"]) {
+          const out = await through(route.action, request(route, "POST", cookies[who], route.path.startsWith("/api/") ? "{}" : body, origin), fill(route.path, values).params);
+          sent++;
+          if (out.status !== 403) answers.push(`${route.id} as ${who} from ${origin}: ${out.status}`);
+        }
+      }
+    }
+    expect(answers).toEqual([]);
+    expect(sent).toBe(actions.length * WHO.length * 3);
+    expect(await digest()).toBe(before);
+    expect(warn).toHaveBeenCalledTimes(sent);
+    warn.mockRestore();
+  });
+});
