@@ -7,6 +7,7 @@ export default [
   route("signup", "routes/auth/signup.tsx"),
   route("logout", "routes/auth/logout.tsx"),
   route("team/switch", "routes/app/team-switch.tsx"),
+  route("team/export", "routes/app/team-export.ts"),
   layout("routes/app/layout.tsx", [
     route("dashboard", "routes/app/dashboard.tsx"),
     route("engines", "routes/engines/list.tsx"),

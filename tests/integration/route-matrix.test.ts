@@ -35,6 +35,7 @@ const MATRIX: Record<string, Row> = {
   "routes/auth/logout GET": all("→/dashboard"),
   "routes/auth/logout POST": all("→/login"),
   "routes/app/team-switch GET": all("→/dashboard"),
+  "routes/app/team-export GET": ["signin", "403", "403", "200", "200"],
   "routes/app/team-switch POST": ["signin", "→/dashboard", "→/dashboard", "→/dashboard", "403"],
   "routes/app/layout GET": member("200"),
   "routes/app/dashboard GET": member("200"),

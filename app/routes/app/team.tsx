@@ -50,6 +50,13 @@ export default function TeamPage({ loaderData, actionData }: Route.ComponentProp
           ))}
         </tbody>
       </table>
+      <p className="mt-6">
+        {/* a plain link: the browser saves the file */}
+        <a href="/team/export" className="text-copper-700 underline" download>
+          Download the shop's data (JSON)
+        </a>{" "}
+        <span className="text-sm text-forge-700">— engines, plans, libraries and the activity log, for your own backup.</span>
+      </p>
       <Form method="post" className="mt-8 flex max-w-xl items-end gap-3">
         <Field className="flex-1" label="Shop name" name="name" defaultValue={team.name} error={actionData?.errors?.name} />
         <Button type="submit">Rename</Button>
