@@ -17,10 +17,20 @@ export interface Friction {
 
 const COS_30 = Math.cos(Math.PI / 6);
 
-/** Mean bearing diameter of the nut face. */
-export function bearingDiameterMm(washerOdMm: number, washerHoleMm: number): number {
+/** Mean bearing diameter of the face that turns: DKm = (dw + dh)/2. */
+export function bearingDiameterMm(faceOdMm: number, holeMm: number): number {
   // ISO 16047 / VDI 2230 Part 1: DKm = (dw + dh)/2
-  return (washerOdMm + washerHoleMm) / 2;
+  return (faceOdMm + holeMm) / 2;
+}
+
+/**
+ * Outer diameter of the face where bearing friction acts: the nut's own face on a washer that stays
+ * put, the washer's face when it turns with the nut. Without a nut face figure we take 1.45·d, about
+ * a hex nut's bearing-face diameter (ISO 4032 dw,min ≈ 1.4–1.5·d, from memory), never past the washer.
+ */
+export function frictionFaceOdMm(f: { diameterMm: number; washerOdMm: number; nutFaceOdMm?: number; washerTurns: boolean }): number {
+  if (f.washerTurns) return f.washerOdMm;
+  return Math.min(f.washerOdMm, f.nutFaceOdMm ?? 1.45 * f.diameterMm);
 }
 
 /** Torque per unit preload, in N·mm per N (i.e. mm): the bracket of the long form. */

@@ -71,6 +71,8 @@ export interface PlanRecord {
   wireProjectionMm: number;
   receiverGrooveDepthMm: number;
   sleeveProtrusionMm: number | null;
+  /** Seal margin the shop wants at the bottom of the scatter band. */
+  targetMargin?: number;
 }
 
 export interface PlanParts {
@@ -182,6 +184,7 @@ export function assemblePlanInput(parts: PlanParts): PlanInputRaw {
       wireProjectionMm: plan.wireLocation === "none" ? 0 : plan.wireProjectionMm,
       receiverGrooveDepthMm: plan.wireLocation === "none" ? 0 : plan.receiverGrooveDepthMm,
     },
+    ...(plan.targetMargin !== undefined ? { targetMargin: plan.targetMargin } : {}),
     firing:
       engine.peakPressureMpa && engine.peakPressureMpa > 0
         ? { mode: "entered", peakPressureMpa: engine.peakPressureMpa }
