@@ -9,6 +9,7 @@ export interface MaterialRecord {
   yieldMpa: number | null;
   expansionUmPerMC: number;
   limitingSurfacePressureMpa: number | null;
+  shearStrengthMpa?: number | null;
 }
 
 export interface FastenerRecord {
@@ -21,6 +22,7 @@ export interface FastenerRecord {
   washerOdMm: number;
   washerHoleMm: number;
   washerThicknessMm: number;
+  nutFaceOdMm?: number | null;
   material: MaterialRecord;
 }
 
@@ -38,6 +40,20 @@ export interface GasketRecord {
   m: number;
   yMpa: number;
   relaxationPercent: number;
+  sealLineHardnessMpa?: number | null;
+  beadLoadNPerMm?: number | null;
+  beadTravelMm?: number | null;
+  seatingPressureMpa?: number | null;
+  minServicePressureMpa?: number | null;
+  maxPressureMpa?: number | null;
+  bodySealPressureMpa?: number | null;
+}
+
+/** The optional figures a record may carry: present ones pass on, absent ones are left out. */
+function present<T extends Record<string, number | null | undefined>>(o: T): { [K in keyof T]?: number } {
+  const out: Record<string, number> = {};
+  for (const [k, v] of Object.entries(o)) if (typeof v === "number" && Number.isFinite(v)) out[k] = v;
+  return out as { [K in keyof T]?: number };
 }
 
 export interface EngineRecord {
@@ -134,6 +150,7 @@ export function assemblePlanInput(parts: PlanParts): PlanInputRaw {
       washerOdMm: f.washerOdMm,
       washerHoleMm: f.washerHoleMm,
       washerThicknessMm: f.washerThicknessMm,
+      ...present({ nutFaceOdMm: f.nutFaceOdMm }),
     },
     tightening: {
       target: { mode: "torque", torqueNm: plan.torqueNm },
@@ -162,12 +179,22 @@ export function assemblePlanInput(parts: PlanParts): PlanInputRaw {
       m: gasket.m,
       yMpa: gasket.yMpa,
       relaxationPercent: gasket.relaxationPercent,
+      ...present({
+        sealLineHardnessMpa: gasket.sealLineHardnessMpa,
+        beadLoadNPerMm: gasket.beadLoadNPerMm,
+        beadTravelMm: gasket.beadTravelMm,
+        seatingPressureMpa: gasket.seatingPressureMpa,
+        minServicePressureMpa: gasket.minServicePressureMpa,
+        maxPressureMpa: gasket.maxPressureMpa,
+        bodySealPressureMpa: gasket.bodySealPressureMpa,
+      }),
     },
     block: {
       modulusMpa: block.modulusMpa,
       expansionUmPerMC: block.expansionUmPerMC,
       clampedDepthMm: engine.blockDepthToThreadMm,
       ...(block.yieldMpa ? { yieldMpa: block.yieldMpa } : {}),
+      ...present({ shearStrengthMpa: block.shearStrengthMpa }),
     },
     sleeve: sleeved
       ? engine.sleeveKind === "dry"
