@@ -260,7 +260,7 @@ export const DEMO_GASKETS = [
     relaxation_percent: 5,
     finish_min_ra_um: 0.8,
     finish_max_ra_um: 3.2,
-    source: `${DEMO} geometry; ${ASME}: solid flat copper; wire = 300-series stainless biting into annealed copper (yield 70 MPa, REFERENCES §7; hardness 40 HV, copper industry data); 0.8 mm contact band, relaxation 5 % and finish window estimates`,
+    source: `${DEMO} geometry; ${ASME}: solid flat copper; stainless wire into annealed copper (70 MPa yield, REFERENCES §7; 40 HV); 0.8 mm band, relaxation 5 %, finish: estimates`,
   },
   {
     name: "Solid copper 1.1 mm, 87 mm bore, plain",
