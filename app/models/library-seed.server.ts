@@ -300,7 +300,7 @@ export const DEMO_GASKETS = [
     finish_max_ra_um: 1.3,
     bead_load_n_per_mm: 90,
     bead_travel_mm: 0.12,
-    source: `${DEMO} geometry and bead (90 N/mm over 0.12 mm to the stopper); ${ASME}: spiral-wound stainless, the closest listed; body modulus 2 GPa, stopper yield 1000 MPa estimates; finish Ra 0.5–1.3 µm common practice (REFERENCES §9)`,
+    source: `${DEMO} geometry and bead (90 N/mm, 0.12 mm to the stopper); ${ASME}: spiral-wound stainless; body 2 GPa, stopper 1000 MPa: estimates; finish Ra 0.5–1.3 µm common practice (REFERENCES §9)`,
   },
   {
     name: "Multilayer steel 1.3 mm, 107 mm bore, ring in the sleeve",

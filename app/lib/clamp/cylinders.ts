@@ -13,6 +13,8 @@ export interface BoreSeal {
   remainingHotN: number;
   /** How far firing lifts the head off the seal line, hot. */
   liftMm: number;
+  /** MLS: bead compression left under firing (hot closure less the lift, past first contact); null without a bead. */
+  beadReserveMm: number | null;
   seatingMargin: number;
   operatingMargin: number;
   /** min(seating, operating): the combustion seal margin. */
@@ -47,6 +49,7 @@ export function boreSeal(p: Prepared, clampColdN: number, clampHotN: number): Bo
   let crushUtilization = 0;
   if (r.maxLoadN !== null) crushUtilization = Math.max(cold.lineN, hot.lineN) / r.maxLoadN;
   const stopper = p.paths.elements.findIndex((e) => e.kind === "stopper");
+  const bead = p.paths.elements.find((e) => e.kind === "bead");
   if (stopper >= 0 && (cold.lineAtLimit || hot.lineAtLimit)) crushUtilization = Math.max(crushUtilization, 1);
   return {
     cold,
@@ -55,6 +58,8 @@ export function boreSeal(p: Prepared, clampColdN: number, clampHotN: number): Bo
     remainingColdN,
     remainingHotN: fired.lineN,
     liftMm: hot.closureMm - fired.closureMm,
+    // ours: the bead recovers as the head lifts; once the lift passes its compression it lets go
+    beadReserveMm: bead ? fired.closureMm - bead.engageMm : null,
     seatingMargin,
     operatingMargin,
     sealMargin: Math.min(seatingMargin, operatingMargin),

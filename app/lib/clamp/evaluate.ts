@@ -36,6 +36,8 @@ export interface CylinderEstimate {
   bodyFiredN: number;
   /** How far firing lifts the head at the seal line. */
   liftMm: number;
+  /** MLS: bead compression left under firing at the bottom of the band (null without a bead). */
+  beadReserveMm: number | null;
   requiredSeatingN: number;
   requiredOperatingN: number;
   seatingMargin: number;
@@ -157,6 +159,7 @@ export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefin
       remainingSealLineHotSettledN: s.remainingHotN,
       bodyFiredN: s.fired.bodyN,
       liftMm: s.liftMm,
+      beadReserveMm: min.beadReserveMm,
       requiredSeatingN: p.requirement.seatingLoadN,
       requiredOperatingN: p.requirement.operatingContactN,
       seatingMargin: min.seatingMargin,

@@ -5,7 +5,7 @@ import type { GASKET_TYPES } from "./schema";
 
 export type GasketFamily = (typeof GASKET_TYPES)[number];
 
-/** Annealed copper's hardness: 40–65 HV (copper industry data, UK Copper Development Association, temper H040); 1 HV = 9.807 MPa. */
+/** Annealed copper's hardness: 40–65 HV for temper H040 (copper industry data); the lower bound, 1 HV = 9.807 MPa. */
 export const ANNEALED_COPPER_HARDNESS_MPA = 40 * 9.807;
 
 export interface TypicalGasket {

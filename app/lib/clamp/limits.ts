@@ -241,7 +241,9 @@ export function verdictFor(p: Prepared, nominalN: number, targetMargin: number, 
     if (!c.checked) continue;
     const sc = SEVERITY[c.status];
     const sw = SEVERITY[worst.status];
-    if (sc > sw || (sc === sw && sc > 0 && c.ratio / c.thinBelow < worst.ratio / worst.thinBelow)) worst = c;
+    // among failing checks the furthest under its limit; among thin ones the furthest into its comfort band
+    const depth = (x: LimitCheck) => (x.status === "short" ? x.ratio : x.ratio / x.thinBelow);
+    if (sc > sw || (sc === sw && sc > 0 && depth(c) < depth(worst))) worst = c;
   }
   return { verdict: { status: worst.status, headline: headline(worst, targetMargin, seatingShort), limiting: worst.id, checks }, bands, working: work };
 }

@@ -64,6 +64,10 @@ export function planWarnings(p: Prepared, e: PlanEstimate, w: Wording = SI_WORDI
   if (lifted.length > 0) {
     out.push(`Firing lifts the seal line off cylinder${lifted.length > 1 ? "s" : ""} ${lifted.map((c) => c.cylinder).join(", ")} when hot and settled.`);
   }
+  const letGo = e.cylinders.filter((c) => c.beadReserveMm !== null && c.beadReserveMm <= 0);
+  if (letGo.length > 0) {
+    out.push(`Firing lifts the head further than the bead can follow on cylinder${letGo.length > 1 ? "s" : ""} ${letGo.map((c) => c.cylinder).join(", ")} (bottom of the band): the bead lets go of the head.`);
+  }
   if (e.squeeze.mostlySqueezing) {
     out.push(
       e.squeeze.reason === "line-at-limit"
