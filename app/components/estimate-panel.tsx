@@ -63,7 +63,7 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
       </h2>
       <div className={`rounded border-2 px-4 py-3 ${look.tone}`} data-testid="weakest">
         <p className="text-sm font-medium">Verdict (the worst of every check below)</p>
-        <p className="text-2xl font-bold" role="status" data-testid="verdict">
+        <p className="text-2xl font-bold" aria-live="polite" data-testid="verdict">
           {look.icon} {look.word}: {v.headline}
         </p>
         <p className="text-sm tabular" data-testid="weakest-margin">

@@ -1,7 +1,7 @@
 // The torque ceiling (the first limit torque reaches), what +10 % torque buys at the seal line, and
 // whether more torque now mostly squeezes the head. Kept apart on purpose: a ceiling set by the stud
 // says nothing about whether torque still helps the seal.
-import { bandSeal, workingState } from "./limits";
+import { bandSeal, weakestAtMin, workingState } from "./limits";
 import { hotSettledPreload, preloadForTorque, torqueForPreloadNm, type Prepared } from "./model";
 import { preloadBand } from "./torque";
 import { SI_WORDING, type Wording } from "./wording";
@@ -42,6 +42,8 @@ export interface HeadSqueeze {
   headStrain: number;
   headCompressionMm: number;
   strainLimit: number;
+  /** The seal gained per +10 % torque it was judged on. */
+  gain: SealGain;
 }
 
 const maxOverNominal = (p: Prepared) => (2 * p.tighteningFactor) / (1 + p.tighteningFactor);
@@ -107,7 +109,7 @@ function ceilingSentence(p: Prepared, cause: CeilingCause, T: number, w: Wording
 /** Seal gained per +10 % torque on the weakest bore, at the bottom of the band, hot and fired. */
 export function sealGainPer10(p: Prepared, torqueNm: number): SealGain {
   const F = preloadForTorque(p, torqueNm);
-  const bore = bandSeal(p, F).weakestAtMin;
+  const bore = weakestAtMin(p, F).bore;
   const w = p.boreStudWeight[bore];
   const at = (Fn: number) => {
     const min = preloadBand(Fn, p.tighteningFactor).minN;
@@ -148,19 +150,20 @@ export function headSqueeze(p: Prepared, torqueNm: number): HeadSqueeze {
     headStrain,
     headCompressionMm,
     strainLimit,
+    gain,
   };
 }
 
 /** Lowest torque at which more torque mostly squeezes the head (scan, then bisect), or null below `upToNm`. */
 export function headSqueezeOnset(p: Prepared, upToNm: number): number | null {
-  const steps = 40;
+  const steps = 24;
   let prev = 0;
   for (let i = 1; i <= steps; i++) {
     const T = (upToNm * i) / steps;
     if (headSqueeze(p, T).mostlySqueezing) {
       let lo = prev;
       let hi = T;
-      for (let k = 0; k < 30; k++) {
+      for (let k = 0; k < 20; k++) {
         const mid = (lo + hi) / 2;
         if (headSqueeze(p, mid).mostlySqueezing) hi = mid;
         else lo = mid;

@@ -68,18 +68,29 @@ export function boreSeal(p: Prepared, clampColdN: number, clampHotN: number): Bo
   };
 }
 
+/** Seal and body margins of one bore without the extra figures (for the scatter run's inner loop). */
+export function boreMargins(p: Prepared, clampColdN: number, clampHotN: number): { seal: number; body: number } {
+  const cold = loadBore(p.paths, clampColdN);
+  const hot = moveBore(p.paths, cold, clampHotN);
+  const fired = moveBore(p.paths, hot, clampHotN - p.reliefPerBoreN);
+  const r = p.requirement;
+  // as boreSeal: seating ≥ Wm2 at assembly, contact under firing ≥ Hp
+  const seal = Math.min(cold.lineN / r.seatingLoadN, fired.lineN / r.operatingContactN);
+  return { seal, body: p.bodyRequirementN > 0 ? fired.bodyN / p.bodyRequirementN : Infinity };
+}
+
 /** Weakest seal margin over the bores for given per-bore cold and hot clamps. */
 export function weakestMargin(p: Prepared, coldClamps: Float64Array, hotClamps: Float64Array): { margin: number; bore: number; bodyMargin: number } {
   let margin = Infinity;
   let bodyMargin = Infinity;
   let bore = 0;
   for (let b = 0; b < p.cylinders; b++) {
-    const s = boreSeal(p, coldClamps[b], hotClamps[b]);
-    if (s.sealMargin < margin) {
-      margin = s.sealMargin;
+    const s = boreMargins(p, coldClamps[b], hotClamps[b]);
+    if (s.seal < margin) {
+      margin = s.seal;
       bore = b;
     }
-    if (s.bodyMargin < bodyMargin) bodyMargin = s.bodyMargin;
+    if (s.body < bodyMargin) bodyMargin = s.body;
   }
   return { margin, bore, bodyMargin };
 }

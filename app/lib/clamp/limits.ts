@@ -1,7 +1,7 @@
 // Every limit the model checks, at the preload that is worst for it, and the one verdict that carries
 // the worst of them. Seal checks use the bottom of the scatter band; stud, washer, thread and crush
 // checks the top of it, hot and under firing.
-import { boreSeal, type BoreSeal } from "./cylinders";
+import { boreMargins, boreSeal, type BoreSeal } from "./cylinders";
 import { hotSettledPreload, type Prepared } from "./model";
 import { preloadBand, type PreloadBand } from "./torque";
 import { SI_WORDING, type Wording } from "./wording";
@@ -80,6 +80,23 @@ export function bandSeal(p: Prepared, nominalN: number): BandSeal {
     if (atMin[b].bodyMargin < atMin[worstBodyAtMin].bodyMargin) worstBodyAtMin = b;
   }
   return { band, atMin, atMax, weakestAtMin, worstBodyAtMin };
+}
+
+/** The weakest bore at the bottom of the band and its seal margin (lean: no per-bore records). */
+export function weakestAtMin(p: Prepared, nominalN: number): { bore: number; margin: number; minN: number } {
+  const minN = preloadBand(nominalN, p.tighteningFactor).minN;
+  const hot = hotSettledPreload(p, minN);
+  let bore = 0;
+  let margin = Infinity;
+  for (let b = 0; b < p.cylinders; b++) {
+    const w = p.boreStudWeight[b];
+    const m = boreMargins(p, w * minN, w * hot).seal;
+    if (m < margin) {
+      margin = m;
+      bore = b;
+    }
+  }
+  return { bore, margin, minN };
 }
 
 /** Stud stress hot and under firing at the top of the band, fatigue amplitude and thread stripping. */

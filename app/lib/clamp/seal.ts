@@ -120,31 +120,43 @@ function totalForce(paths: BorePaths, closureMm: number, set: readonly number[])
   return F;
 }
 
+// Scratch for the breakpoints of one solve (at most two per element); the core is synchronous.
+const scratch = new Float64Array(16);
+
 /** The closure at which the paths carry F (piecewise linear and rising: found between breakpoints). */
 function closureFor(paths: BorePaths, F: number, set: readonly number[]): number {
   const els = paths.elements;
-  const points: number[] = [];
+  let n = 0;
+  let kFree = 0;
   for (let i = 0; i < els.length; i++) {
     const start = els[i].engageMm + set[i];
-    points.push(start);
-    if (Number.isFinite(els[i].limitN)) points.push(start + els[i].limitN / els[i].kNPerMm);
+    scratch[n++] = start;
+    if (Number.isFinite(els[i].limitN)) scratch[n++] = start + els[i].limitN / els[i].kNPerMm;
+    else kFree += els[i].kNPerMm;
   }
-  points.sort((x, y) => x - y);
-  const first = points[0];
+  // insertion sort: a handful of points
+  for (let i = 1; i < n; i++) {
+    const x = scratch[i];
+    let j = i;
+    while (j > 0 && scratch[j - 1] > x) {
+      scratch[j] = scratch[j - 1];
+      j--;
+    }
+    scratch[j] = x;
+  }
+  const first = scratch[0];
   if (F <= 0) return first;
   let prevX = first;
   let prevF = 0;
-  for (let j = 1; j < points.length; j++) {
-    const x = points[j];
+  for (let j = 1; j < n; j++) {
+    const x = scratch[j];
     const f = totalForce(paths, x, set);
     if (f >= F) return f > prevF ? prevX + ((F - prevF) * (x - prevX)) / (f - prevF) : x;
     prevX = x;
     prevF = f;
   }
   // past the last breakpoint only elastic paths without a limit still stiffen
-  let k = 0;
-  for (let i = 0; i < els.length; i++) if (!Number.isFinite(els[i].limitN)) k += els[i].kNPerMm;
-  return prevX + (F - prevF) / k;
+  return prevX + (F - prevF) / kFree;
 }
 
 function stateAt(paths: BorePaths, F: number, closureMm: number, set: number[]): BoreState {

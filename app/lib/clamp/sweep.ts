@@ -1,10 +1,11 @@
 // The estimate over a torque range, for charts: margins at the bottom of the band and nominal, the
 // stud and washer limits at the top, and what +10 % torque buys at the seal line.
-import { headSqueeze, headSqueezeOnset, sealGainPer10, torqueCeiling, type Ceiling } from "./ceiling";
-import { bandSeal, workingState } from "./limits";
+import { headSqueeze, headSqueezeOnset, torqueCeiling, type Ceiling } from "./ceiling";
+import { weakestAtMin, workingState } from "./limits";
+import { preloadBand } from "./torque";
 import { hotSettledPreload, prepare, type Prepared } from "./model";
 import type { PlanInput } from "./schema";
-import { boreSeal } from "./cylinders";
+import { boreMargins } from "./cylinders";
 import { SI_WORDING, type Wording } from "./wording";
 
 export interface SweepPoint {
@@ -54,27 +55,28 @@ export function sweepPrepared(p: Prepared, o: SweepOptions, wording: Wording = S
     const T = from + ((to - from) * i) / (n - 1);
     // ISO 16047 long form solved for F
     const F = (T * 1000) / p.torquePerPreloadMm;
-    const bands = bandSeal(p, F);
-    const work = workingState(p, bands.band.maxN);
+    const band = preloadBand(F, p.tighteningFactor);
+    const weak = weakestAtMin(p, F);
+    const work = workingState(p, band.maxN);
     let nominal = Infinity;
     const Fhs = hotSettledPreload(p, F);
     for (let b = 0; b < p.cylinders; b++) {
       const w = p.boreStudWeight[b];
-      nominal = Math.min(nominal, boreSeal(p, w * F, w * Fhs).sealMargin);
+      nominal = Math.min(nominal, boreMargins(p, w * F, w * Fhs).seal);
     }
     const sq = headSqueeze(p, T);
     points.push({
       torqueNm: T,
-      preloadMinN: bands.band.minN,
+      preloadMinN: band.minN,
       preloadN: F,
-      preloadMaxN: bands.band.maxN,
-      weakestMargin: bands.atMin[bands.weakestAtMin].sealMargin,
-      weakestCylinder: bands.weakestAtMin + 1,
+      preloadMaxN: band.maxN,
+      weakestMargin: weak.margin,
+      weakestCylinder: weak.bore + 1,
       weakestMarginNominal: nominal,
-      studUtilizationMax: (p.stressPerN.equivalent * bands.band.maxN) / p.plan.fastener.yieldMpa,
+      studUtilizationMax: (p.stressPerN.equivalent * band.maxN) / p.plan.fastener.yieldMpa,
       studWorkingUtilization: work.utilization,
       bearingUtilizationMax: work.studLoadN / p.bearingAreaMm2 / p.plan.head.limitingSurfacePressureMpa,
-      gainShare: sealGainPer10(p, T).share,
+      gainShare: sq.gain.share,
       headStrain: sq.headStrain,
       mostlySqueezing: sq.mostlySqueezing,
     });

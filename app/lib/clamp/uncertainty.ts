@@ -78,6 +78,17 @@ export function uncertaintyPrepared(p: Prepared, o: UncertaintyOptions): Uncerta
   const limitAssembly = p.studLimitMpa;
   const { axial, torsion } = p.stressPerN;
   const base = p.thread.pitchMm / (Math.PI * p.thread.pitchDiameterMm);
+  // the stud preload at which the working state reaches yield (rises with preload: bisection once)
+  let lo = 0;
+  let hi = F0 * 4;
+  if (workingState(p, hi).utilization < 1) lo = hi;
+  else
+    for (let i = 0; i < 50; i++) {
+      const mid = (lo + hi) / 2;
+      if (workingState(p, mid).utilization >= 1) hi = mid;
+      else lo = mid;
+    }
+  const workingLimitN = lo === hi ? Infinity : hi;
   let below = 0;
   let over = 0;
   let k = 0;
@@ -99,7 +110,7 @@ export function uncertaintyPrepared(p: Prepared, o: UncertaintyOptions): Uncerta
     if (!studOver) {
       let maxF = 0;
       for (let s = 0; s < p.studCount; s++) maxF = Math.max(maxF, studLoads[s]);
-      if (workingState(p, maxF).utilization >= 1) studOver = true;
+      if (maxF > workingLimitN) studOver = true;
     }
     boreClamps(p, studLoads, cold);
     boreClamps(p, hotLoads, hot);
