@@ -1,5 +1,5 @@
 import { lazy, Suspense, useEffect, useState } from "react";
-import { CEILING_WORDS, type Status } from "~/lib/clamp";
+import { CEILING_WORDS, rankChecks, type Status } from "~/lib/clamp";
 import type { EstimateView } from "~/lib/plan/estimate-view";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
 
@@ -88,9 +88,7 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
             </tr>
           </thead>
           <tbody>
-            {[...v.checks]
-              .sort((a, b) => (a.checked === b.checked ? a.ratio / a.thinBelow - b.ratio / b.thinBelow : a.checked ? -1 : 1))
-              .map((c) => {
+            {rankChecks(v.checks).map((c) => {
                 const l = STATUS_LOOK[c.status];
                 return (
                   <tr key={c.id} className="border-t border-forge-100">

@@ -66,8 +66,7 @@ function firstFailing(fails: (T: number) => boolean, hi: number): number {
 
 export function torqueCeiling(p: Prepared, w: Wording = SI_WORDING): Ceiling {
   const f = p.plan.fastener;
-  let fa = 0;
-  for (let s = 0; s < p.studCount; s++) fa = Math.max(fa, p.studExternalN[s]);
+  const fa = p.peakFiringN;
   const extra = Math.max(0, p.thermalChangeN) + p.phi * fa;
   const toT = (maxN: number) => Math.max(0, torqueForPreloadNm(p, nominalForMax(p, maxN)));
   // VDI 2230: σred(FMmax) = ν·Rp0.2

@@ -1,6 +1,6 @@
 // Per-bore clamp and seal: studs to bores, then the bore's paths through assembly, heat and firing.
 import type { Prepared } from "./model";
-import { loadBore, moveBore, type BoreState } from "./seal";
+import { elementForce, loadBore, moveBore, type BoreState } from "./seal";
 
 export interface BoreSeal {
   cold: BoreState;
@@ -50,7 +50,12 @@ export function boreSeal(p: Prepared, clampColdN: number, clampHotN: number): Bo
   if (r.maxLoadN !== null) crushUtilization = Math.max(cold.lineN, hot.lineN) / r.maxLoadN;
   const stopper = p.paths.elements.findIndex((e) => e.kind === "stopper");
   const bead = p.paths.elements.find((e) => e.kind === "bead");
-  if (stopper >= 0 && (cold.lineAtLimit || hot.lineAtLimit)) crushUtilization = Math.max(crushUtilization, 1);
+  if (stopper >= 0) {
+    // ours: the stopper's own load against its indentation limit on the head face
+    const e = p.paths.elements[stopper];
+    const at = (s: BoreState) => elementForce(e, s.closureMm, s.set[stopper]) / e.limitN;
+    crushUtilization = Math.max(crushUtilization, at(cold), at(hot));
+  }
   return {
     cold,
     hot,

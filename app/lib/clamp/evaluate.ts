@@ -53,8 +53,11 @@ export interface CylinderEstimate {
 export interface StudEstimate {
   label: string;
   preloadN: number;
+  /** Firing load summed over the bores the stud serves. */
   externalN: number;
-  /** Stud load under firing, FV + Φn·FA. */
+  /** The largest firing load it sees at once (one bore fires at a time). */
+  peakFiringN: number;
+  /** Stud load while its biggest bore fires, FV + Φn·FA. */
   firedLoadN: number;
   /** Clamp left on the gasket and block at this stud under firing, FV − (1 − Φn)·FA. */
   memberFiredN: number;
@@ -171,11 +174,12 @@ export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefin
   }
 
   const studs: StudEstimate[] = p.plan.studs.map((st, i) => {
-    const j = jointUnderLoad(F, p.studExternalN[i], p.phi);
+    const j = jointUnderLoad(F, p.studPeakFiringN[i], p.phi);
     return {
       label: st.label ?? String(i + 1),
       preloadN: F,
       externalN: p.studExternalN[i],
+      peakFiringN: p.studPeakFiringN[i],
       firedLoadN: j.studLoadN,
       memberFiredN: j.memberLoadN,
       separationLoadN: j.separationLoadN,

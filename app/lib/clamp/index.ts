@@ -5,7 +5,7 @@ export { defaultStudPattern } from "./pattern";
 export { evaluatePlan, type PlanEstimate, type CylinderEstimate, type StudEstimate } from "./evaluate";
 export { torqueSweep, type SweepOptions, type SweepPoint, type SweepResult } from "./sweep";
 export { torqueCeiling, sealGainPer10, headSqueeze, headSqueezeOnset, CEILING_WORDS, type Ceiling, type CeilingCause, type SealGain, type HeadSqueeze } from "./ceiling";
-export { verdictFor, bandSeal, workingState, TORSION_RELIEF, type Verdict, type LimitCheck, type CheckId, type Status, type WorkingState } from "./limits";
+export { verdictFor, bandSeal, workingState, rankChecks, TORSION_RELIEF, type Verdict, type LimitCheck, type CheckId, type Status, type WorkingState } from "./limits";
 export { REMEDIES } from "./warnings";
 export { TYPICAL_GASKETS, ANNEALED_COPPER_HARDNESS_MPA, type TypicalGasket, type GasketFamily } from "./gasket-families";
 export { SI_WORDING, type Wording } from "./wording";

@@ -102,8 +102,7 @@ export function weakestAtMin(p: Prepared, nominalN: number): { bore: number; mar
 /** Stud stress hot and under firing at the top of the band, fatigue amplitude and thread stripping. */
 export function workingState(p: Prepared, maxPreloadN: number): WorkingState {
   const f = p.plan.fastener;
-  let fa = 0;
-  for (let s = 0; s < p.studCount; s++) fa = Math.max(fa, p.studExternalN[s]);
+  const fa = p.peakFiringN;
   // VDI 2230 Part 1: FSmax = FMmax + Φn·FA, plus the thermal gain when the head grows more than the stud
   const studLoadN = maxPreloadN + Math.max(0, p.thermalChangeN) + p.phi * fa;
   const axialMpa = studLoadN / p.section.areaMm2;
@@ -253,16 +252,26 @@ export function verdictFor(p: Prepared, nominalN: number, targetMargin: number, 
     checked: crushApplies,
   });
 
-  let worst = checks[0];
-  for (const c of checks) {
-    if (!c.checked) continue;
-    const sc = SEVERITY[c.status];
-    const sw = SEVERITY[worst.status];
-    // among failing checks the furthest under its limit; among thin ones the furthest into its comfort band
-    const depth = (x: LimitCheck) => (x.status === "short" ? x.ratio : x.ratio / x.thinBelow);
-    if (sc > sw || (sc === sw && sc > 0 && depth(c) < depth(worst))) worst = c;
-  }
+  const ranked = rankChecks(checks);
+  // every check passing: the headline speaks of the seal
+  const worst = ranked[0].checked && ranked[0].status !== "holds" ? ranked[0] : checks[0];
   return { verdict: { status: worst.status, headline: headline(worst, targetMargin, seatingShort), limiting: worst.id, checks }, bands, working: work };
+}
+
+/**
+ * Checks worst first: failing before thin before passing; among failing ones the furthest under its
+ * limit, among thin ones the furthest into its comfort band; unchecked ones last.
+ */
+export function rankChecks(checks: readonly LimitCheck[]): LimitCheck[] {
+  const depth = (x: LimitCheck) => (x.status === "short" ? x.ratio : x.ratio / x.thinBelow);
+  const key = (x: LimitCheck): [number, number] => [x.checked ? SEVERITY[x.status] : -1, depth(x)];
+  return [...checks].sort((a, b) => {
+    const [sa, da] = key(a);
+    const [sb, db] = key(b);
+    if (sa !== sb) return sb - sa;
+    if (da === db) return 0;
+    return da < db ? -1 : 1;
+  });
 }
 
 function headline(c: LimitCheck, target: number, seatingShort: boolean): string {

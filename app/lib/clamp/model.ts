@@ -59,8 +59,12 @@ export interface Prepared {
   shareOf: Float64Array;
   /** Σ of shares per bore: the effective number of studs clamping it. */
   boreStudWeight: Float64Array;
-  /** Firing load each stud carries (external FA per stud). */
+  /** Firing load each stud carries, summed over the bores it serves (Σ = cylinders × H). */
   studExternalN: Float64Array;
+  /** The largest firing load a stud sees at once: one bore fires at a time, so the biggest of its bores' shares. */
+  studPeakFiringN: Float64Array;
+  /** The largest of those over all studs (FA for the stud checks). */
+  peakFiringN: number;
   /** (1 − Φn)·H, clamp that firing takes off each bore's gasket. */
   reliefPerBoreN: number;
   thermalChangeN: number;
@@ -213,10 +217,21 @@ export function prepare(plan: PlanInput): Prepared {
   start[studCount] = k;
   const H = requirement.pressureForceN;
   const studExternalN = new Float64Array(studCount);
+  const studPeakFiringN = new Float64Array(studCount);
+  let peakFiringN = 0;
   for (let s = 0; s < studCount; s++) {
-    let p = 0;
-    for (let j = start[s]; j < start[s + 1]; j++) p += (H * shareOf[j]) / boreStudWeight[boreOf[j]];
-    studExternalN[s] = p;
+    let sum = 0;
+    let peak = 0;
+    for (let j = start[s]; j < start[s + 1]; j++) {
+      // ours: each bore's gas force goes back to its studs in proportion to their shares
+      const fromBore = (H * shareOf[j]) / boreStudWeight[boreOf[j]];
+      sum += fromBore;
+      // common practice: the cylinders fire one after another, never two neighbours at once
+      peak = Math.max(peak, fromBore);
+    }
+    studExternalN[s] = sum;
+    studPeakFiringN[s] = peak;
+    peakFiringN = Math.max(peakFiringN, peak);
   }
 
   const t = plan.temperatures;
@@ -281,6 +296,8 @@ export function prepare(plan: PlanInput): Prepared {
     shareOf,
     boreStudWeight,
     studExternalN,
+    studPeakFiringN,
+    peakFiringN,
     // VDI 2230 Part 1 (load introduced at the gasket plane): the gasket and block lose (1 − Φn)·FA
     reliefPerBoreN: (1 - phi) * H,
     thermalChangeN,

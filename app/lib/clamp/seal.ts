@@ -106,7 +106,8 @@ export function effectiveGapMm(protrusionMm: number, wireProjectionMm: number, r
   return protrusionMm + Math.max(0, wireProjectionMm - receiverDepthMm);
 }
 
-function elementForce(e: PathElement, closureMm: number, setMm: number): number {
+/** The load one path carries at a closure, given its set. */
+export function elementForce(e: PathElement, closureMm: number, setMm: number): number {
   const d = closureMm - e.engageMm - setMm;
   if (d <= 0) return 0;
   const f = e.kNPerMm * d;
