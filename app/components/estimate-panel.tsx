@@ -229,6 +229,40 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
         </Suspense>
       ) : null}
 
+      <details className="text-sm" data-testid="sweep-table">
+        <summary className="cursor-pointer font-medium">The torque sweep as a table</summary>
+        <div className="mt-1 overflow-x-auto">
+          <table className="w-full border-collapse bg-white text-right tabular">
+            <caption className="sr-only">Over torque: weakest seal margin, seal gained per +10 % torque, the stud's use of its yield and the washer on the head</caption>
+            <thead className="bg-forge-100">
+              <tr>
+                <th scope="col" className="px-2 py-1">Torque</th>
+                <th scope="col" className="px-2 py-1">Weakest margin, bottom of band</th>
+                <th scope="col" className="px-2 py-1">At nominal</th>
+                <th scope="col" className="px-2 py-1">Seal gained per +10 %</th>
+                <th scope="col" className="px-2 py-1">Stud hot and fired (of yield)</th>
+                <th scope="col" className="px-2 py-1">Washer (of limit)</th>
+              </tr>
+            </thead>
+            <tbody>
+              {view.sweep.filter((_, i) => i % 4 === 0 || i === view.sweep.length - 1).map((pt) => (
+                <tr key={pt.torqueNm} className="border-t border-forge-100">
+                  <th scope="row" className="px-2 py-1">
+                    {torque(pt.torqueNm)}
+                    {pt.torqueNm > view.ceiling.torqueNm ? " ⚠ past the ceiling" : ""}
+                  </th>
+                  <td className="px-2 py-1">{pt.weakestMargin.toFixed(2)}</td>
+                  <td className="px-2 py-1">{pt.weakestMarginNominal.toFixed(2)}</td>
+                  <td className="px-2 py-1">{pct(pt.gainShare)}{pt.mostlySqueezing ? " (squeezes the head)" : ""}</td>
+                  <td className="px-2 py-1">{pct(pt.studWorkingUtilization)}</td>
+                  <td className="px-2 py-1">{pct(pt.bearingUtilizationMax)}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      </details>
+
       {e.warnings.length > 0 ? (
         <ul className="space-y-1 text-sm" aria-label="Warnings">
           {e.warnings.map((w) => (
