@@ -308,7 +308,8 @@ export const DEMO_GASKETS = [
     compressed_thickness_mm: 1.3,
     bore_mm: 107,
     seal_diameter_mm: 112,
-    ring_width_mm: 3,
+    // the band the stainless ring presses into the head
+    ring_width_mm: 1.2,
     ring_modulus_mpa: 193_000,
     seal_line_yield_mpa: 207,
     body_modulus_mpa: 5_000,

@@ -53,7 +53,11 @@ export function boreSeal(p: Prepared, clampColdN: number, clampHotN: number): Bo
   if (stopper >= 0) {
     // ours: the stopper's own load against its indentation limit on the head face
     const e = p.paths.elements[stopper];
-    const at = (s: BoreState) => elementForce(e, s.closureMm, s.set[stopper]) / e.limitN;
+    // a capped path carries its limit to the last bit of rounding: count that as reaching it
+    const at = (s: BoreState) => {
+      const u = elementForce(e, s.closureMm, s.set[stopper]) / e.limitN;
+      return u > 1 - 1e-9 ? 1 : u;
+    };
     crushUtilization = Math.max(crushUtilization, at(cold), at(hot));
   }
   return {

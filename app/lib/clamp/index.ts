@@ -6,7 +6,7 @@ export { evaluatePlan, type PlanEstimate, type CylinderEstimate, type StudEstima
 export { torqueSweep, type SweepOptions, type SweepPoint, type SweepResult } from "./sweep";
 export { torqueCeiling, sealGainPer10, headSqueeze, headSqueezeOnset, CEILING_WORDS, type Ceiling, type CeilingCause, type SealGain, type HeadSqueeze } from "./ceiling";
 export { verdictFor, bandSeal, workingState, rankChecks, TORSION_RELIEF, type Verdict, type LimitCheck, type CheckId, type Status, type WorkingState } from "./limits";
-export { REMEDIES } from "./warnings";
+export { REMEDIES, remediesFor } from "./warnings";
 export { TYPICAL_GASKETS, ANNEALED_COPPER_HARDNESS_MPA, type TypicalGasket, type GasketFamily } from "./gasket-families";
 export { SI_WORDING, type Wording } from "./wording";
 export { uncertainty, mulberry32, type UncertaintyOptions, type UncertaintyResult } from "./uncertainty";

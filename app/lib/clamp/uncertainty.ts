@@ -5,6 +5,7 @@ import { boreClamps, weakestMargin } from "./cylinders";
 import { workingState } from "./limits";
 import { hotSettledPreload, prepare, type Prepared } from "./model";
 import type { PlanInput } from "./schema";
+import { PLASTIC_TORSION_FACTOR } from "./torque";
 
 /** mulberry32: a tiny deterministic 32-bit generator (public-domain construction). */
 export function mulberry32(seed: number): () => number {
@@ -101,8 +102,9 @@ export function uncertaintyPrepared(p: Prepared, o: UncertaintyOptions): Uncerta
       const muG = p.friction.thread * scale;
       // VDI 2230: MG ∝ (P/(π·d2) + 1.155·μG); rescale the torsion from the entered μG
       const tau = (torsion * (base + 1.155 * muG)) / (base + 1.155 * p.friction.thread);
-      // VDI 2230 (von Mises): σred = √(σ² + 3τ²) per newton, times this stud's preload
-      if (Math.sqrt(axial * axial + 3 * tau * tau) * F > limitAssembly) studOver = true;
+      // VDI 2230 FMzul (von Mises, torsion on π·d0³/12): σred = √(σ² + 3·(¾τ)²) per newton, times this preload
+      const tp = PLASTIC_TORSION_FACTOR * tau;
+      if (Math.sqrt(axial * axial + 3 * tp * tp) * F > limitAssembly) studOver = true;
       studLoads[s] = F;
       hotLoads[s] = hotSettledPreload(p, F);
       if (s === 0) spread[k++] = F / F0;

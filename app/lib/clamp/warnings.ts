@@ -3,6 +3,7 @@
 import type { PlanEstimate } from "./evaluate";
 import type { CheckId } from "./limits";
 import type { Prepared } from "./model";
+import type { PlanInput } from "./schema";
 import { peakPressureNote, SI_WORDING, type Wording } from "./wording";
 
 /** What a builder would try for each failed check, in the order they would try it. */
@@ -44,6 +45,23 @@ export const REMEDIES: Record<CheckId, string[]> = {
   crush: ["less torque", "a gasket whose seal line takes more pressure without damage"],
 };
 
+/**
+ * The remedies for one check that fit this plan: sleeve protrusion only where there is a sleeve, wire
+ * projection only where there is a wire (or as a wire ring to add), less of either only where there is some.
+ */
+export function remediesFor(id: CheckId, plan: PlanInput): string[] {
+  const sleeve = plan.sleeve.kind !== "none";
+  const wire = plan.sealing.wireProjectionMm > 0;
+  const proud = sleeve ? (wire ? "sleeve protrusion or wire projection" : "sleeve protrusion") : wire ? "wire projection" : null;
+  const stands = sleeve || wire ? plan.sealing.sleeveProtrusionMm > 0 || plan.sealing.wireProjectionMm > plan.sealing.receiverGrooveDepthMm : false;
+  return REMEDIES[id].flatMap((r) => {
+    if (r.startsWith("more sleeve protrusion or wire projection"))
+      return proud ? [r.replace("sleeve protrusion or wire projection", proud)] : ["a wire ring standing proud of the gasket, so the seal line takes clamp before the body"];
+    if (r.startsWith("less sleeve protrusion or wire projection")) return proud && stands ? [r.replace("sleeve protrusion or wire projection", proud)] : [];
+    return [r];
+  });
+}
+
 const pct = (x: number) => `${Math.round(x * 100)} %`;
 
 function list(xs: string[]): string {
@@ -58,7 +76,7 @@ export function planWarnings(p: Prepared, e: PlanEstimate, w: Wording = SI_WORDI
   for (const c of e.verdict.checks) {
     if (!c.checked || c.status === "holds") continue;
     const word = c.status === "short" ? "fails" : "is thin";
-    out.push(`${c.label} ${word}: ${c.detail}. Try ${list(REMEDIES[c.id])}.`);
+    out.push(`${c.label} ${word}: ${c.detail}. Try ${list(remediesFor(c.id, plan))}.`);
   }
   const lifted = e.cylinders.filter((c) => c.remainingSealLineHotSettledN <= 0);
   if (lifted.length > 0) {

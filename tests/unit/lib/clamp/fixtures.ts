@@ -214,3 +214,45 @@ export function demoV8Raw(): PlanInputRaw {
     temperatures: { assemblyC: 20, headC: 95, blockC: 85, studC: 90 },
   };
 }
+
+// The demo as re-worked for the corrected model (issue 7): the four's chosen copper + wire plan and the
+// V8's chosen MLS + sleeve-ring plan, copied from the seed like the ones above.
+const nineSixteenthsChromoly = {
+  diameterMm: 0.5625 * IN,
+  pitchMm: IN / 18,
+  freeThreadLengthMm: 16,
+  engagementMm: 24,
+  modulusMpa: 205_000,
+  yieldMpa: 1379,
+  expansionUmPerMC: 12.3,
+  washerOdMm: 1.0 * IN,
+  washerHoleMm: 0.6 * IN,
+  washerThicknessMm: 0.15 * IN,
+  nutFaceOdMm: 0.8 * IN,
+};
+
+/** The four now: 9/16-18 studs seven a side at the maker's 125 lbf·ft, copper with a 0.8 mm wire band, 14 MPa measured. */
+export function demoFourNowRaw(): PlanInputRaw {
+  const old = demoFourRaw();
+  return {
+    ...old,
+    studs: defaultStudPattern("inline", 4, 7),
+    fastener: { ...nineSixteenthsChromoly },
+    tightening: { target: { mode: "torque", torqueNm: 125 * LBF_FT }, threadFriction: 0.11, bearingFriction: 0.12, method: "stretch-measured" },
+    gasket: { ...(old.gasket as object), ringWidthMm: 0.8 } as PlanInputRaw["gasket"],
+    firing: { mode: "entered", peakPressureMpa: 14 },
+  };
+}
+
+/** The V8 now: ½-20 reduced-shank studs in full-depth inserts (40 mm) at 105 lbf·ft, a 1.2 mm ring band, 0.02 mm proud. */
+export function demoV8NowRaw(): PlanInputRaw {
+  const old = demoV8Raw();
+  return {
+    ...old,
+    fastener: { ...halfInchChromoly, engagementMm: 40 },
+    tightening: { target: { mode: "torque", torqueNm: 105 * LBF_FT }, threadFriction: 0.11, bearingFriction: 0.12, method: "stretch-measured" },
+    gasket: { ...(old.gasket as object), ringWidthMm: 1.2 } as PlanInputRaw["gasket"],
+    sealing: { sleeveProtrusionMm: 0.02 },
+    firing: { mode: "estimated", manifoldAbsKpa: 420, compressionRatio: 9.37, pressureRiseFactor: 2.2 },
+  };
+}

@@ -8,7 +8,8 @@ import { demoFourRaw, workedExample } from "./fixtures";
 describe("working state (VDI 2230 Part 1)", () => {
   const p = prepare(PlanInputSchema.parse(demoFourRaw()));
   const w = workingState(p, 100_000);
-  const fa = Math.max(...p.studExternalN);
+  // one bore fires at a time: FA is the biggest single bore's share any stud sees
+  const fa = Math.max(...p.studPeakFiringN);
 
   it("stud load hot and fired = FMmax + thermal gain + Φn·FA", () => {
     // VDI 2230: FSmax = FMmax + ΔFth + Φn·FA; the thermal gain counts only when positive (aluminium head)
@@ -71,8 +72,9 @@ describe("one verdict: the worst of every check", () => {
     // the seal is as good as before, the verdict is not
     expect(e.verdict.checks.find((c) => c.id === "seal")?.status).toBe("holds");
     expect(e.verdict.status).toBe("short");
-    expect(e.verdict.limiting).toBe("stud-assembly");
-    expect(e.verdict.headline).toBe("Stud past yield at the top of the scatter band");
+    // past yield both while tightened and hot and fired: whichever is further under its limit names it
+    expect(["stud-assembly", "stud-working"]).toContain(e.verdict.limiting);
+    expect(e.verdict.headline).toMatch(/^Stud past yield (at the top of the scatter band|hot and under firing)$/);
   });
   it("between the 90 % tightening limit (VDI 2230 ν = 0.9) and yield the plan reads thin", () => {
     const e = evaluatePlan(withYield((1379 * u0) / 0.95));
@@ -80,8 +82,8 @@ describe("one verdict: the worst of every check", () => {
     expect(e.verdict.limiting).toBe("stud-assembly");
     expect(e.verdict.headline).toBe("Stud over the 90 % tightening limit at the top of the scatter band");
   });
-  it("a stud fine at assembly but past yield hot and fired (head and block at 350 °C) reads short on the working state", () => {
-    const e = evaluatePlan({ ...ok, temperatures: { ...ok.temperatures, headC: 350, blockC: 350 } });
+  it("a stud fine at assembly but past yield hot and fired (head and block at 400 °C) reads short on the working state", () => {
+    const e = evaluatePlan({ ...ok, temperatures: { ...ok.temperatures, headC: 400, blockC: 400 } });
     expect(e.studStress.atMax.utilization).toBeLessThan(0.9);
     expect(e.studStress.working.utilization).toBeGreaterThanOrEqual(1);
     expect(e.verdict.status).toBe("short");

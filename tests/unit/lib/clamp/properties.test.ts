@@ -19,7 +19,7 @@ import {
 } from "../../../../app/lib/clamp";
 import { targetTorqueAndPreload } from "../../../../app/lib/clamp/evaluate";
 import { plan } from "./arbitraries";
-import { demoFourRaw, demoV8Raw, workedExample } from "./fixtures";
+import { demoFourNowRaw, demoFourRaw, demoV8NowRaw, demoV8Raw, workedExample } from "./fixtures";
 
 const RUNS = { numRuns: 1000 };
 // A sweep run is 12 estimates and a ceiling: half the runs keep the file near a minute.
@@ -102,8 +102,8 @@ describe("sleeve protrusion 0.05–0.15 mm (the shop's usual range, common pract
   // gasket body keeps load to seal coolant and oil. Demo-like plans (the seed's sleeved engines, whose
   // bores carry 160–330 kN of clamp) must show it: the body carries load at assembly at every protrusion.
   it.each([
-    ["demo four: copper + wire, wet sleeves", demoFourRaw],
-    ["demo V8: MLS + ring in the sleeve, dry sleeves", demoV8Raw],
+    ["demo four: copper + wire, wet sleeves", demoFourNowRaw],
+    ["demo V8: MLS + ring in the sleeve, dry sleeves", demoV8NowRaw],
   ])("%s: the body keeps load at assembly from 0.05 to 0.15 mm", (_name, raw) => {
     const p0 = PlanInputSchema.parse(raw());
     const F = targetTorqueAndPreload(prepare(p0)).preloadN;
@@ -120,7 +120,7 @@ describe("sleeve protrusion 0.05–0.15 mm (the shop's usual range, common pract
   it("demo-like plans at ±15 % torque and ±0.02 friction: the seal-line load still rises with protrusion until the line is at its limit or the body has lifted", () => {
     // 200 runs: each run prepares 11 plans.
     fc.assert(
-      fc.property(fc.constantFrom(demoFourRaw, demoV8Raw), dbl(0.85, 1.15), dbl(-0.02, 0.02), (raw, tq, dmu) => {
+      fc.property(fc.constantFrom(demoFourRaw, demoV8Raw, demoFourNowRaw, demoV8NowRaw), dbl(0.85, 1.15), dbl(-0.02, 0.02), (raw, tq, dmu) => {
         const base = PlanInputSchema.parse(raw());
         const t = base.tightening;
         const torqueNm = (t.target.mode === "torque" ? t.target.torqueNm : Number.NaN) * tq;
