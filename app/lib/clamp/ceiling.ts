@@ -1,7 +1,7 @@
 // The torque ceiling (the first limit torque reaches), what +10 % torque buys at the seal line, and
 // whether more torque now mostly squeezes the head. Kept apart on purpose: a ceiling set by the stud
 // says nothing about whether torque still helps the seal.
-import { bandSeal, weakestAtMin, workingState } from "./limits";
+import { bandSeal, crushApplies, TORSION_RELIEF, weakestAtMin, workingState } from "./limits";
 import { hotSettledPreload, preloadForTorque, torqueForPreloadNm, type Prepared } from "./model";
 import { preloadBand } from "./torque";
 import { SI_WORDING, type Wording } from "./wording";
@@ -76,10 +76,14 @@ export function torqueCeiling(p: Prepared, w: Wording = SI_WORDING): Ceiling {
   const work0 = workingState(p, 1);
   const strip = work0.stripCapacityN === null ? Infinity : toT(work0.stripCapacityN - extra);
   const hi = Math.max(studAssembly, 1) * 4;
-  // VDI 2230 working state: σred,B = Rp0.2 (rises with torque: bisection)
-  const studWorking = firstFailing((T) => workingState(p, preloadBand(preloadForTorque(p, T), p.tighteningFactor).maxN).utilization >= 1, hi);
-  const crushApplies = p.requirement.maxLoadN !== null || p.paths.elements.some((e) => e.kind === "stopper");
-  const crush = crushApplies
+  // VDI 2230 working state: ((Fmax + extra)/A0)² + 3·(kτ·τ₁·Fmax)² = Rp0.2², a quadratic in Fmax
+  const a0 = p.section.areaMm2;
+  const kt = TORSION_RELIEF * p.stressPerN.torsion;
+  const qa = 1 / (a0 * a0) + 3 * kt * kt;
+  const qb = (2 * extra) / (a0 * a0);
+  const qc = (extra * extra) / (a0 * a0) - f.yieldMpa * f.yieldMpa;
+  const studWorking = qc >= 0 ? 0 : toT((-qb + Math.sqrt(qb * qb - 4 * qa * qc)) / (2 * qa));
+  const crush = crushApplies(p)
     ? firstFailing((T) => bandSeal(p, preloadForTorque(p, T)).atMax.some((s) => s.crushUtilization >= 1), hi)
     : Infinity;
   const torques: Record<CeilingCause, number> = { "stud-assembly": studAssembly, "stud-working": studWorking, bearing, "thread-strip": strip, crush };

@@ -7,8 +7,6 @@ export interface BoreSeal {
   hot: BoreState;
   /** Hot, settled and fired: the running case. */
   fired: BoreState;
-  /** Seal-line load left under firing with the cold clamp. */
-  remainingColdN: number;
   /** Seal-line load left under firing, hot and settled. */
   remainingHotN: number;
   /** How far firing lifts the head off the seal line, hot. */
@@ -41,7 +39,6 @@ export function boreSeal(p: Prepared, clampColdN: number, clampHotN: number): Bo
   const hot = moveBore(p.paths, cold, clampHotN);
   // VDI 2230 Part 1 (load at the gasket plane): firing takes (1 − Φn)·FA off the gasket
   const fired = moveBore(p.paths, hot, clampHotN - p.reliefPerBoreN);
-  const remainingColdN = moveBore(p.paths, cold, clampColdN - p.reliefPerBoreN).lineN;
   const r = p.requirement;
   // the seal's needs (EN 13555, or the ASME VIII-1 App. 2 stand-in): seating ≥ Wm2, contact under firing ≥ Hp
   const seatingMargin = cold.lineN / r.seatingLoadN;
@@ -64,7 +61,6 @@ export function boreSeal(p: Prepared, clampColdN: number, clampHotN: number): Bo
     cold,
     hot,
     fired,
-    remainingColdN,
     remainingHotN: fired.lineN,
     liftMm: hot.closureMm - fired.closureMm,
     // ours: the bead recovers as the head lifts; once the lift passes its compression it lets go

@@ -54,7 +54,7 @@ export interface BandSeal {
   band: PreloadBand;
   /** Per bore at the bottom of the band. */
   atMin: BoreSeal[];
-  /** Per bore at the top of the band. */
+  /** Per bore at the top of the band (empty where no crush limit applies). */
   atMax: BoreSeal[];
   weakestAtMin: number;
   worstBodyAtMin: number;
@@ -63,11 +63,17 @@ export interface BandSeal {
 /** VDI 2230 (from memory): torsion relief in service, kτ = 0.5 of the tightening torsion. */
 export const TORSION_RELIEF = 0.5;
 
-/** Seal of every bore at both ends of the band (equal preload on every stud). */
+/** True when the plan has a seal-line damage limit to check (EN 13555 QSmax, or an MLS stopper). */
+export function crushApplies(p: Prepared): boolean {
+  return p.requirement.maxLoadN !== null || p.paths.elements.some((e) => e.kind === "stopper");
+}
+
+/** Seal of every bore at both ends of the band (equal preload on every stud; the top only where crush is checked). */
 export function bandSeal(p: Prepared, nominalN: number): BandSeal {
   const band = preloadBand(nominalN, p.tighteningFactor);
   const atMin: BoreSeal[] = [];
   const atMax: BoreSeal[] = [];
+  const withMax = crushApplies(p);
   const hotMin = hotSettledPreload(p, band.minN);
   const hotMax = hotSettledPreload(p, band.maxN);
   let weakestAtMin = 0;
@@ -75,7 +81,7 @@ export function bandSeal(p: Prepared, nominalN: number): BandSeal {
   for (let b = 0; b < p.cylinders; b++) {
     const w = p.boreStudWeight[b];
     atMin.push(boreSeal(p, w * band.minN, w * hotMin));
-    atMax.push(boreSeal(p, w * band.maxN, w * hotMax));
+    if (withMax) atMax.push(boreSeal(p, w * band.maxN, w * hotMax));
     if (atMin[b].sealMargin < atMin[weakestAtMin].sealMargin) weakestAtMin = b;
     if (atMin[b].bodyMargin < atMin[worstBodyAtMin].bodyMargin) worstBodyAtMin = b;
   }
@@ -240,16 +246,16 @@ export function verdictFor(p: Prepared, nominalN: number, targetMargin: number, 
       crushBore = b;
     }
   });
-  const crushApplies = p.requirement.maxLoadN !== null || p.paths.elements.some((e) => e.kind === "stopper");
+  const crushChecked = crushApplies(p);
   checks.push({
     id: "crush",
     label: "Seal line crush, top of the band",
-    ratio: crushApplies ? (crush > 0 ? 1 / crush : Infinity) : Infinity,
+    ratio: crushChecked ? (crush > 0 ? 1 / crush : Infinity) : Infinity,
     thinBelow: 1,
-    status: crushApplies && crush >= 1 ? "short" : "holds",
-    detail: crushApplies ? `${pct(crush)} of what the seal line takes without damage on cylinder ${crushBore + 1}` : "not checked: no damage limit for this seal line",
+    status: crushChecked && crush >= 1 ? "short" : "holds",
+    detail: crushChecked ? `${pct(crush)} of what the seal line takes without damage on cylinder ${crushBore + 1}` : "not checked: no damage limit for this seal line",
     cylinder: crushBore + 1,
-    checked: crushApplies,
+    checked: crushChecked,
   });
 
   const ranked = rankChecks(checks);
