@@ -30,7 +30,7 @@ export default function EngineOverview({ loaderData }: Route.ComponentProps) {
           Chosen seal plan: <strong className="text-forge-950">{chosenPlan ?? "none chosen yet"}</strong>
         </p>
         {canEdit ? (
-          <Link to="../edit" relative="path" className="rounded bg-copper-700 px-4 py-2 font-medium text-white hover:bg-copper-600">
+          <Link to={`/engines/${e.id}/edit`} className="rounded bg-copper-700 px-4 py-2 font-medium text-white hover:bg-copper-600">
             Edit engine
           </Link>
         ) : null}

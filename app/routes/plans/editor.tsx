@@ -100,7 +100,7 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
   const torqueNm = view?.torqueNm ?? plan.torqueNm;
 
   return (
-    <div className="grid gap-6 lg:grid-cols-[minmax(0,26rem)_minmax(0,1fr)]">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,26rem)_minmax(0,1fr)]">
       <div>
         <div className="mb-3 flex flex-wrap items-center gap-2">
           <h2 className="text-2xl font-bold">{plan.name}</h2>

@@ -1,6 +1,7 @@
 import { data, Form, redirect } from "react-router";
 import type { Route } from "./+types/new";
 import { Caution } from "~/components/caution";
+import { RoleRefusal } from "~/components/refusal";
 import { Button, FormError } from "~/components/form";
 import { MakerTorque } from "~/components/maker-torque";
 import { PlanFields } from "~/components/plan-form";
@@ -84,4 +85,9 @@ export default function NewPlan({ loaderData, actionData }: Route.ComponentProps
       <Caution className="mt-6" />
     </div>
   );
+}
+
+// Inside the engine layout: a viewer who types this address reads why, with the engine's tabs still there.
+export function ErrorBoundary({ error, params }: Route.ErrorBoundaryProps) {
+  return <RoleRefusal error={error} who="A builder or the owner makes seal plans." backTo={`/engines/${params.engineId}/plans`} backLabel="Back to the seal plans" />;
 }
