@@ -16,6 +16,7 @@ import {
 } from "./library.server";
 
 export interface PlanRow extends PlanRecord {
+  targetStretchMm: number | null;
   id: number;
   engineId: number;
   name: string;
@@ -51,6 +52,7 @@ function toPlan(r: Row): PlanRow {
     wireProjectionMm: r.wire_projection_mm,
     receiverGrooveDepthMm: r.receiver_groove_depth_mm,
     sleeveProtrusionMm: r.sleeve_protrusion_mm,
+    targetStretchMm: r.target_stretch_mm ?? null,
     targetMargin: r.target_margin,
     notes: r.notes,
     updatedAt: r.updated_at,
@@ -138,6 +140,7 @@ function planColumns(w: PlanWrite) {
     wire_projection_mm: w.wireProjectionMm,
     receiver_groove_depth_mm: w.receiverGrooveDepthMm,
     sleeve_protrusion_mm: w.sleeveProtrusionMm,
+    target_stretch_mm: w.targetStretchMm,
     target_margin: w.targetMargin,
     notes: w.notes,
   };
