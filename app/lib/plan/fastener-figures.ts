@@ -21,7 +21,8 @@ export const DEFAULT_STAGE_FRACTIONS = [0.4, 0.7];
 /** A torque rounded to what a torque wrench is set to: whole N·m, or whole lbf·ft. */
 export function wrenchSetting(torqueNm: number, system: UnitSystem): number {
   const unit = unitFor("torque", system);
-  return fromDisplay("torque", Math.round(toDisplay("torque", torqueNm, unit)), unit);
+  // a hair added so a half (0.7 × 115 = 80.5) rounds up even when floating point makes it 80.4999…
+  return fromDisplay("torque", Math.round(toDisplay("torque", torqueNm, unit) + 1e-9), unit);
 }
 
 /** Stages at the given fractions of the final torque, each at a wrench setting, ending at the torque itself. */
