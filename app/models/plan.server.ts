@@ -177,3 +177,14 @@ export async function choosePlan(teamId: number, userId: number, engineId: numbe
   await db()("engines").where({ team_id: teamId, id: engineId }).update({ chosen_plan_id: planId, updated_at: now() });
   await audit(teamId, userId, "plan.chosen", { engineId, planId });
 }
+
+/** A copy of the plan on another engine of the same team (the caller checks the gasket fits). Returns the new id. */
+export async function copyPlanToEngine(teamId: number, userId: number, plan: PlanRow, targetEngineId: number): Promise<number> {
+  const at = now();
+  const [row] = await db()("seal_plans")
+    .insert({ team_id: teamId, engine_id: targetEngineId, created_at: at, updated_at: at, ...planColumns(plan) })
+    .returning("id");
+  const id = (row as { id: number }).id;
+  await audit(teamId, userId, "plan.copied", { engineId: targetEngineId, planId: id, fromEngineId: plan.engineId, fromPlanId: plan.id, name: plan.name });
+  return id;
+}

@@ -194,6 +194,9 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
             <Link to={`/engines/${engine.id}/compare`} className="rounded border border-forge-300 bg-white px-4 py-2 font-medium">
               Compare plans
             </Link>
+            <Link to={`/engines/${engine.id}/plans/${plan.id}/copy`} className="rounded border border-forge-300 bg-white px-4 py-2 font-medium">
+              Copy to another engine
+            </Link>
           </div>
         ) : null}
       </div>
