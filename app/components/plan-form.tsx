@@ -3,7 +3,7 @@ import { followFastener, lubricantWarning, type MakerFigures } from "~/lib/plan/
 import { gasketsByFit } from "~/lib/plan/assemble";
 import { METHOD_HELP, METHOD_LABEL, WIRE_LABEL, type PlanWrite } from "~/lib/plan/form";
 import type { StretchLine } from "~/lib/plan/stretch";
-import { formatQuantity, unitFor, type UnitSystem } from "~/lib/units";
+import { formatQuantity, toDisplay, unitFor, type UnitSystem } from "~/lib/units";
 import { Button, Field, SelectField } from "./form";
 
 export interface GasketChoice {
@@ -63,6 +63,15 @@ export function PlanFields({ values, errors, choices, units, sleeved, engineProt
     setLubricant(followed.values.lubricant ?? "");
     setNote(followed.note);
     onFiguresFollowed?.(followed.values);
+  };
+
+  // Turning to the stretch gauge with no target yet: start from the maker's stretch figure.
+  const methodChanged = (e: ChangeEvent<HTMLSelectElement>) => {
+    const next = e.target.value as Method;
+    setMethod(next);
+    const field = e.target.form?.elements.namedItem("targetStretch");
+    if (next === "stretch-measured" && field instanceof HTMLInputElement && field.value.trim() === "" && fastener?.makerStretchMm)
+      field.value = String(Number(toDisplay("smallLength", fastener.makerStretchMm, smallUnit).toFixed(units === "metric" ? 3 : 2)));
   };
 
   return (
@@ -163,7 +172,7 @@ export function PlanFields({ values, errors, choices, units, sleeved, engineProt
           />
         </div>
         <div>
-          <SelectField label="How the studs are tightened" name="method" value={method} onChange={(e) => setMethod(e.target.value as Method)} error={errors.method} options={Object.entries(METHOD_LABEL)} aria-describedby="f-method-hint" />
+          <SelectField label="How the studs are tightened" name="method" value={method} onChange={methodChanged} error={errors.method} options={Object.entries(METHOD_LABEL)} aria-describedby="f-method-hint" />
           <p id="f-method-hint" className="mt-1 text-xs text-forge-700">
             {METHOD_HELP[method]}
           </p>

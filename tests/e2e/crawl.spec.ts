@@ -128,7 +128,7 @@ test("a four-plan compare and the new-engine form fit a phone", async ({ page })
   await page.setViewportSize(PHONE);
   await signIn(page, "builder@example.com");
   await page.goto("/engines");
-  await page.getByRole("link", { name: "Fenwick-Oddy 2.0 four" }).click();
+  await page.getByRole("link", { name: "Fenwick-Oddy 2.0 four", exact: true }).click();
   await page.waitForURL(/\/engines\/\d+$/);
   const engineUrl = page.url();
   await page.goto(`${engineUrl}/plans`);

@@ -45,6 +45,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
         targetMargin: 1.5,
         notes: "",
       };
+  // planned by stretch gauge: the maker's stretch figure is the starting target
+  if (plan.method === "stretch-measured" && plan.targetStretchMm == null) plan.targetStretchMm = fastener?.makerStretchMm ?? null;
   return {
     units: user.units,
     engine,
