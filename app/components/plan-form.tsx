@@ -78,7 +78,7 @@ export function PlanFields({ values, errors, choices, units, sleeved, engineProt
     <div className="space-y-4">
       <Field label="Plan name" name="name" defaultValue={values.name} error={errors.name} required />
       <div>
-        <SelectField label="Gasket" name="gasketId" defaultValue={values.gasketId} error={errors.gasketId}>
+        <SelectField label="Gasket" name="gasketId" defaultValue={values.gasketId} error={errors.gasketId} aria-describedby={errors.gasketId ? "f-gasketId-error f-gasketId-hint" : "f-gasketId-hint"}>
           {fitting.map((g) => (
             <option key={g.id} value={g.id}>
               {g.name}
@@ -172,7 +172,7 @@ export function PlanFields({ values, errors, choices, units, sleeved, engineProt
           />
         </div>
         <div>
-          <SelectField label="How the studs are tightened" name="method" value={method} onChange={methodChanged} error={errors.method} options={Object.entries(METHOD_LABEL)} aria-describedby="f-method-hint" />
+          <SelectField label="How the studs are tightened" name="method" value={method} onChange={methodChanged} error={errors.method} options={Object.entries(METHOD_LABEL)} aria-describedby={errors.method ? "f-method-error f-method-hint" : "f-method-hint"} />
           <p id="f-method-hint" className="mt-1 text-xs text-forge-700">
             {METHOD_HELP[method]}
           </p>

@@ -116,7 +116,10 @@ test("a viewer who types a builder's address reads a kind refusal inside the eng
   await page.getByRole("row").nth(1).getByRole("link").first().click();
   await page.waitForURL(/\/engines\/\d+$/);
   const engineUrl = page.url();
-  for (const path of ["/edit", "/plans/new"]) {
+  await page.goto(`${engineUrl}/plans`);
+  const planPath = new URL(await page.getByRole("table").getByRole("link").first().evaluate((a) => (a as HTMLAnchorElement).href)).pathname;
+  const planId = planPath.split("/").pop();
+  for (const path of ["/edit", "/plans/new", `/plans/${planId}/copy`]) {
     const response = await page.goto(engineUrl + path);
     expect(response?.status()).toBe(403);
     await expect(page.getByRole("heading", { name: "Not open to your role" })).toBeVisible();

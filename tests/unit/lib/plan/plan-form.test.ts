@@ -107,3 +107,20 @@ describe("words on the plan form", () => {
     if (!r.ok) expect(r.errors.bearingFriction).toBe("Washer-face friction is a number like 0.12");
   });
 });
+
+describe("gaskets by bore", () => {
+  it("the ones whose bore suits the engine first (closest first), the others apart", async () => {
+    const { gasketsByFit } = await import("../../../../app/lib/plan/assemble");
+    const gaskets = [
+      { id: 1, boreMm: 107 },
+      { id: 2, boreMm: 88 },
+      { id: 3, boreMm: 87 },
+      { id: 4, boreMm: 85 },
+      { id: 5, boreMm: 92.5 },
+    ];
+    const { fitting, others } = gasketsByFit(gaskets, 86);
+    // common practice: not smaller than the bore, at most 6 mm over it
+    expect(fitting.map((g) => g.id)).toEqual([3, 2]);
+    expect(others.map((g) => g.id)).toEqual([1, 4, 5]);
+  });
+});
