@@ -353,3 +353,13 @@ describe("copying a plan to another engine", () => {
     expect(await plansOn(theirs[0].id)).toBe(before);
   });
 });
+
+describe("copying a plan: the form", () => {
+  it("asks for an engine when none is picked, and writes nothing", async () => {
+    const count = Number((await db()("seal_plans").count({ n: "*" }))[0]!.n);
+    const out = await call(copy.action as Handler, post(`/engines/${four}/plans/${planId}/copy`, {}, builder), { engineId: String(four), planId: String(planId) });
+    expect(out.status).toBe(400);
+    expect((out.body as { error: string }).error).toBe("Pick the engine to copy the plan to.");
+    expect(Number((await db()("seal_plans").count({ n: "*" }))[0]!.n)).toBe(count);
+  });
+});

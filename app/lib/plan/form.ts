@@ -212,3 +212,8 @@ export function planFormValues(plan: PlanWrite, system: UnitSystem): Record<stri
   values.figuresSeen = figuresFingerprint(values);
   return values;
 }
+
+/** The copy-a-plan form: which engine of the shop gets the copy. */
+export const CopyPlanSchema = z.object({
+  targetEngineId: z.coerce.number({ error: "Pick the engine to copy the plan to." }).int("Pick the engine to copy the plan to.").positive("Pick the engine to copy the plan to."),
+});

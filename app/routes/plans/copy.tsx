@@ -3,6 +3,7 @@ import type { Route } from "./+types/copy";
 import { Button, FormError } from "~/components/form";
 import { RoleRefusal } from "~/components/refusal";
 import { gasketFitProblem } from "~/lib/plan/assemble";
+import { CopyPlanSchema } from "~/lib/plan/form";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
 import { engineChoices, requireEngine } from "~/models/engine.server";
 import { getGasket } from "~/models/library.server";
@@ -40,11 +41,10 @@ export async function action({ request, params }: Route.ActionArgs) {
   const { user, team } = await requireRole(request, "builder");
   const engine = await requireEngine(team.id, params.engineId);
   const plan = await requirePlan(team.id, engine.id, params.planId);
-  const form = await request.formData();
-  const raw = String(form.get("targetEngineId") ?? "");
-  if (raw === "") return data({ error: "Pick the engine to copy the plan to." }, { status: 400 });
-  // another shop's engine (or none) is not found, as everywhere
-  const target = await requireEngine(team.id, raw);
+  const parsed = CopyPlanSchema.safeParse(Object.fromEntries(await request.formData()));
+  if (!parsed.success) return data({ error: parsed.error.issues[0]!.message }, { status: 400 });
+  // another shop's engine is not found, as everywhere
+  const target = await requireEngine(team.id, String(parsed.data.targetEngineId));
   if (target.id === engine.id) return data({ error: "That is this plan's own engine; pick another." }, { status: 400 });
   const gasket = await getGasket(team.id, plan.gasketId);
   const misfit = gasket
