@@ -13,6 +13,8 @@ async function openFirstPlan(page: Page) {
 }
 
 test("the builder creates an engine, adds two plans, watches the estimate follow the torque, compares and chooses", async ({ page }) => {
+  // a long walk through five pages with two axe scans: more room than the suite's 30 s default
+  test.setTimeout(90_000);
   await signIn(page, "builder@example.com");
   await page.goto("/engines/new");
   await page.getByLabel("Name", { exact: true }).fill("Bench four for plans");

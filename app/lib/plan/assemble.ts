@@ -10,6 +10,7 @@ export interface MaterialRecord {
   yieldMpa: number | null;
   expansionUmPerMC: number;
   limitingSurfacePressureMpa: number | null;
+  shearStrengthMpa?: number | null;
 }
 
 export interface FastenerRecord {
@@ -22,6 +23,7 @@ export interface FastenerRecord {
   washerOdMm: number;
   washerHoleMm: number;
   washerThicknessMm: number;
+  nutFaceOdMm?: number | null;
   material: MaterialRecord;
 }
 
@@ -39,6 +41,20 @@ export interface GasketRecord {
   m: number;
   yMpa: number;
   relaxationPercent: number;
+  sealLineHardnessMpa?: number | null;
+  beadLoadNPerMm?: number | null;
+  beadTravelMm?: number | null;
+  seatingPressureMpa?: number | null;
+  minServicePressureMpa?: number | null;
+  maxPressureMpa?: number | null;
+  bodySealPressureMpa?: number | null;
+}
+
+/** The optional figures a record may carry: present ones pass on, absent ones are left out. */
+function present<T extends Record<string, number | null | undefined>>(o: T): { [K in keyof T]?: number } {
+  const out: Record<string, number> = {};
+  for (const [k, v] of Object.entries(o)) if (typeof v === "number" && Number.isFinite(v)) out[k] = v;
+  return out as { [K in keyof T]?: number };
 }
 
 export interface EngineRecord {
@@ -72,6 +88,8 @@ export interface PlanRecord {
   wireProjectionMm: number;
   receiverGrooveDepthMm: number;
   sleeveProtrusionMm: number | null;
+  /** Seal margin the shop wants at the bottom of the scatter band. */
+  targetMargin?: number;
   /** Planned by the stretch a stretch gauge reads (method "stretch-measured"); null or absent: planned by torque. */
   targetStretchMm?: number | null;
 }
@@ -146,6 +164,7 @@ function assembleTorqueInput(parts: PlanParts): PlanInputRaw {
       washerOdMm: f.washerOdMm,
       washerHoleMm: f.washerHoleMm,
       washerThicknessMm: f.washerThicknessMm,
+      ...present({ nutFaceOdMm: f.nutFaceOdMm }),
     },
     tightening: {
       target: { mode: "torque", torqueNm: plan.torqueNm },
@@ -174,12 +193,22 @@ function assembleTorqueInput(parts: PlanParts): PlanInputRaw {
       m: gasket.m,
       yMpa: gasket.yMpa,
       relaxationPercent: gasket.relaxationPercent,
+      ...present({
+        sealLineHardnessMpa: gasket.sealLineHardnessMpa,
+        beadLoadNPerMm: gasket.beadLoadNPerMm,
+        beadTravelMm: gasket.beadTravelMm,
+        seatingPressureMpa: gasket.seatingPressureMpa,
+        minServicePressureMpa: gasket.minServicePressureMpa,
+        maxPressureMpa: gasket.maxPressureMpa,
+        bodySealPressureMpa: gasket.bodySealPressureMpa,
+      }),
     },
     block: {
       modulusMpa: block.modulusMpa,
       expansionUmPerMC: block.expansionUmPerMC,
       clampedDepthMm: engine.blockDepthToThreadMm,
       ...(block.yieldMpa ? { yieldMpa: block.yieldMpa } : {}),
+      ...present({ shearStrengthMpa: block.shearStrengthMpa }),
     },
     sleeve: sleeved
       ? engine.sleeveKind === "dry"
@@ -196,6 +225,7 @@ function assembleTorqueInput(parts: PlanParts): PlanInputRaw {
       wireProjectionMm: plan.wireLocation === "none" ? 0 : plan.wireProjectionMm,
       receiverGrooveDepthMm: plan.wireLocation === "none" ? 0 : plan.receiverGrooveDepthMm,
     },
+    ...(plan.targetMargin !== undefined ? { targetMargin: plan.targetMargin } : {}),
     firing:
       engine.peakPressureMpa && engine.peakPressureMpa > 0
         ? { mode: "entered", peakPressureMpa: engine.peakPressureMpa }
