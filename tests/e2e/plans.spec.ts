@@ -24,7 +24,7 @@ test("the builder creates an engine, adds two plans, watches the estimate follow
   await page.getByLabel("Block (deck) material", { exact: true }).selectOption({ label: "Ductile iron 65-45-12" });
   await page.getByLabel("Head material", { exact: true }).selectOption({ label: "A356.0-T6 cast aluminium" });
   await page.getByLabel("Fuel", { exact: true }).fill("E85");
-  await page.getByLabel("Target manifold pressure (kPa abs)", { exact: true }).fill("300");
+  await page.getByLabel("Target manifold pressure, absolute (kPa)", { exact: true }).fill("300");
   await page.getByRole("button", { name: "Save engine" }).first().click();
   await page.waitForURL(/\/engines\/\d+$/);
   const engineUrl = page.url();

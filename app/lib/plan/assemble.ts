@@ -2,6 +2,7 @@
 // Pure: plain records in, PlanInputRaw out; the schema in app/lib/clamp validates it.
 import { compressionRatio, type CompressionInput } from "../chamber";
 import type { PlanInputRaw, Stud } from "../clamp";
+import { withStretchTarget } from "./stretch";
 
 export interface MaterialRecord {
   name: string;
@@ -89,6 +90,13 @@ export interface PlanRecord {
   sleeveProtrusionMm: number | null;
   /** Seal margin the shop wants at the bottom of the scatter band. */
   targetMargin?: number;
+  /** Planned by the stretch a stretch gauge reads (method "stretch-measured"); null or absent: planned by torque. */
+  targetStretchMm?: number | null;
+}
+
+/** Whether the plan's tightening target is a stud stretch rather than a torque. */
+export function plannedByStretch(plan: Pick<PlanRecord, "method" | "targetStretchMm">): plan is { method: "stretch-measured"; targetStretchMm: number } {
+  return plan.method === "stretch-measured" && typeof plan.targetStretchMm === "number" && plan.targetStretchMm > 0;
 }
 
 export interface PlanParts {
@@ -131,6 +139,12 @@ export function engineCompressionRatio(engine: EngineRecord, gasket: Pick<Gasket
 }
 
 export function assemblePlanInput(parts: PlanParts): PlanInputRaw {
+  const raw = assembleTorqueInput(parts);
+  // A stretch target becomes a preload through the stud's stiffness, which does not depend on the target.
+  return plannedByStretch(parts.plan) ? withStretchTarget(raw, parts.plan.targetStretchMm) : raw;
+}
+
+function assembleTorqueInput(parts: PlanParts): PlanInputRaw {
   const { engine, plan, fastener, gasket, head, block, sleeve } = parts;
   const f = fastener;
   const sleeved = engine.sleeveKind !== "none" && sleeve !== null;
@@ -242,4 +256,10 @@ export function gasketFitProblem(engineBoreMm: number, gasketBoreMm: number, len
   if (gasketBoreMm > engineBoreMm + GASKET_BORE_OVERSIZE_LIMIT_MM)
     return `The gasket's ${length(gasketBoreMm)} bore is far larger than the ${length(engineBoreMm)} cylinder bore: its seal ring would not sit on the deck or sleeve top. Pick a gasket made for this bore.`;
   return null;
+}
+
+/** The gaskets that fit this bore (closest bore first), and the others. */
+export function gasketsByFit<G extends { boreMm: number }>(gaskets: G[], engineBoreMm: number): { fitting: G[]; others: G[] } {
+  const fits = (g: G) => gasketFitProblem(engineBoreMm, g.boreMm, String) === null;
+  return { fitting: gaskets.filter(fits).sort((a, b) => a.boreMm - b.boreMm), others: gaskets.filter((g) => !fits(g)) };
 }
