@@ -146,7 +146,8 @@ export const DEMO_FASTENERS = [
     maker_torque_nm: 105 * LBF_FT,
     maker_lubricant: "The stud maker's thread lube (moly-based)",
     maker_stages: "35, 70, then 105 lbf·ft",
-    maker_stretch_mm: 0.007 * IN,
+    // the stretch the maker's torque gives on the maker's lube in the demo V8's 134 mm grip
+    maker_stretch_mm: 0.0225 * IN,
     thread_friction: 0.11,
     bearing_friction: 0.12,
     source: `${DEMO}: maker's torque, lubricant, stages and stretch invented; thread per ASME B1.1`,
@@ -167,7 +168,8 @@ export const DEMO_FASTENERS = [
     maker_torque_nm: 105 * LBF_FT,
     maker_lubricant: "The stud maker's thread lube (moly-based)",
     maker_stages: "35, 70, then 105 lbf·ft",
-    maker_stretch_mm: 0.007 * IN,
+    // the stretch the maker's torque gives on the maker's lube in the demo V8's 134 mm grip
+    maker_stretch_mm: 0.0225 * IN,
     thread_friction: 0.11,
     bearing_friction: 0.12,
     source: `${DEMO}: as the reduced-shank stud with 40 mm of thread for full-depth inserts; maker's figures invented; thread per ASME B1.1`,
@@ -189,7 +191,8 @@ export const DEMO_FASTENERS = [
     maker_torque_nm: 125 * LBF_FT,
     maker_lubricant: "The stud maker's thread lube (moly-based)",
     maker_stages: "45, 90, then 125 lbf·ft, centre outward",
-    maker_stretch_mm: 0.0065 * IN,
+    // the stretch the maker's torque gives on the maker's lube in the demo four's 120 mm grip
+    maker_stretch_mm: 0.0145 * IN,
     thread_friction: 0.11,
     bearing_friction: 0.12,
     source: `${DEMO}: maker's torque, lubricant, stages and stretch invented; thread per ASME B1.1`,

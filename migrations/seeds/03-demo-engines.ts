@@ -36,13 +36,14 @@ interface EngineSeed {
   plans: PlanSeed[];
 }
 
-const MOLY = "Moly assembly paste (the stud maker's lube)";
+// The stud makers' own lubricants, word for word as their library rows record them.
+const MOLY = "The stud maker's thread lube (moly-based)";
 
 const COPPER_WIRE = "Solid copper 1.1 mm, 87 mm bore, wire-ring groove";
 const MLS_87 = "Multilayer steel 1.3 mm, 87 mm bore";
 const STUD_916 = "9/16-18 chromoly head stud, full shank";
 const STUD_716 = "7/16-20 chromoly head stud, full shank";
-const OIL = "Clean engine oil";
+const OIL = "Clean engine oil on threads and washer face";
 const STUD_12_FULL = "½-20 alloy steel head stud, full shank";
 const plan = (p: Partial<PlanSeed> & Pick<PlanSeed, "name" | "gasket" | "fastener" | "stages" | "notes">): PlanSeed => ({
   lubricant: MOLY,
@@ -162,7 +163,7 @@ export const DEMO_ENGINES: EngineSeed[] = [
         fastener: STUD_12_FULL,
         thread_friction: 0.12,
         bearing_friction: 0.12,
-        lubricant: "The stud maker's thread lube (moly-based)",
+        lubricant: MOLY,
         method: "torque-tested-friction",
         stages: [nm(30), nm(60), nm(85)],
         notes: "As built and running since the ½-inch stud upgrade, on the maker's lube.",

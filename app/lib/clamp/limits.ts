@@ -286,7 +286,7 @@ function headline(c: LimitCheck, target: number, seatingShort: boolean): string 
     case "seal":
       if (c.status === "short") return seatingShort ? `Seal short at seating in cylinder ${cyl}` : `Seal short under firing in cylinder ${cyl}`;
       if (c.status === "thin") return `Seal thin in cylinder ${cyl}: margin ${c.ratio.toFixed(2)}, under the ${target.toFixed(2)} target`;
-      return `Holds: weakest seal margin ${c.ratio.toFixed(2)} in cylinder ${cyl}, every check passed`;
+      return `Every check passed; the weakest seal margin is ${c.ratio.toFixed(2)} in cylinder ${cyl}`;
     case "body-seal":
       return `Gasket body short of seal in cylinder ${cyl} (coolant and oil)`;
     case "stud-assembly":

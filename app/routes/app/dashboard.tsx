@@ -45,6 +45,8 @@ const ACTION_WORDS: Record<string, string> = {
   "plan.updated": "Seal plan edited",
   "plan.chosen": "Seal plan chosen",
   "plan.archived": "Seal plan archived",
+  "plan.copied": "Seal plan copied",
+  "engine.duplicated": "Engine duplicated",
 };
 
 function actionWords(action: string): string {

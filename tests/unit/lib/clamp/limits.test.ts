@@ -63,7 +63,7 @@ describe("one verdict: the worst of every check", () => {
   it("holds when every check passes, and says so", () => {
     const e = evaluatePlan(ok);
     expect(e.verdict.status).toBe("holds");
-    expect(e.verdict.headline).toMatch(/^Holds: weakest seal margin/);
+    expect(e.verdict.headline).toMatch(/^Every check passed; the weakest seal margin is \d\.\d\d in cylinder \d$/);
     for (const c of e.verdict.checks) if (c.checked) expect(c.status, c.id).toBe("holds");
   });
   it("the new-user trial's case: the same plan with its stud at 169 % of yield reads short, naming the stud", () => {
