@@ -161,5 +161,10 @@ test("the plan editor on a phone", async ({ page }) => {
   await page.getByRole("table").getByRole("link").first().click();
   await expect(page.getByRole("heading", { name: "Estimate" })).toBeVisible();
   expect(await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth + 1)).toBe(true);
+  // the verdict stays in sight while the builder types in the torque field, far above the estimate
+  const bar = page.getByTestId("verdict-bar");
+  await page.getByLabel(/Final torque/).scrollIntoViewIfNeeded();
+  await expect(bar).toBeInViewport();
+  await expect(bar).toContainText(/Holds|Thin|Short/);
   await screenshot(page, "phone-plan-editor");
 });

@@ -104,3 +104,27 @@ test("the viewer reads plans but has no edit controls", async ({ page }) => {
   await page.goBack();
   await expect(page.getByRole("link", { name: "New plan" })).toHaveCount(0);
 });
+
+test("the demo four compares copper + wire with MLS at the maker's torque, and the verdict names what decides", async ({ page }) => {
+  await signIn(page, "viewer@example.com");
+  await page.goto("/engines");
+  await page.getByRole("link", { name: FOUR }).click();
+  await page.getByRole("navigation", { name: "Engine" }).getByRole("link", { name: "Seal plans" }).click();
+  const list = page.getByRole("table");
+  await expect(list.getByRole("row", { name: /Copper \+ wire at the maker's 125 lbf·ft/ })).toContainText("✔ Holds");
+  await expect(list.getByRole("row", { name: /Copper \+ wire, 150 lbf·ft/ })).toContainText("Washer sinks into the head");
+  for (const box of await page.getByRole("checkbox").all()) await box.uncheck();
+  await page.getByRole("checkbox", { name: "Compare Copper + wire at the maker's 125 lbf·ft" }).check();
+  await page.getByRole("checkbox", { name: "Compare MLS with stopper at the maker's 125 lbf·ft" }).check();
+  await page.getByRole("button", { name: "Compare ticked plans" }).click();
+  await expect(page.getByRole("heading", { name: "Compare plans" })).toBeVisible();
+  const table = page.getByRole("table");
+  await expect(table.getByRole("row", { name: /^Verdict/ })).toContainText("✔ Holds");
+  await expect(table.getByRole("row", { name: /^Seal gained per \+10 % torque/ })).toContainText("% of the added clamp");
+  await screenshot(page, "demo-copper-vs-mls");
+  // the plan where more torque only squeezes the head says so, and only there
+  await page.goto(page.url().replace(/\/compare.*$/, "/plans"));
+  await page.getByRole("link", { name: "Copper + wire, 150 lbf·ft" }).click();
+  await expect(page.getByTestId("squeeze")).toContainText("More torque now mostly squeezes the head");
+  await expect(page.getByTestId("verdict")).toContainText("Short: Washer sinks into the head");
+});

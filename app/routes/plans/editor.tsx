@@ -2,7 +2,7 @@ import { useEffect, useMemo, useRef, useState } from "react";
 import { data, Form, Link, redirect, useFetcher, useNavigation } from "react-router";
 import type { Route } from "./+types/editor";
 import { Caution } from "~/components/caution";
-import { EstimatePanel } from "~/components/estimate-panel";
+import { EstimatePanel, STATUS_LOOK, VerdictLine } from "~/components/estimate-panel";
 import { Button, FormError } from "~/components/form";
 import { MakerTorque } from "~/components/maker-torque";
 import { PlanFields } from "~/components/plan-form";
@@ -142,6 +142,15 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
   return (
     <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,26rem)_minmax(0,1fr)]">
       <div>
+        {view ? (
+          // On a phone the estimate is far below the form: keep the verdict in sight while typing.
+          <p
+            className={`sticky top-0 z-10 mb-3 rounded border-2 px-3 py-2 text-sm shadow lg:hidden ${STATUS_LOOK[view.estimate.verdict.status].tone}`}
+            data-testid="verdict-bar"
+          >
+            <VerdictLine view={view} /> <a href="#estimate-title" className="underline">Estimate ↓</a>
+          </p>
+        ) : null}
         <div className="mb-3 flex flex-wrap items-center gap-2">
           <h2 className="text-2xl font-bold">{plan.name}</h2>
           {chosen ? <span className="rounded border border-held bg-held-50 px-2 py-0.5 text-sm font-bold text-held">✔ Chosen plan</span> : null}
