@@ -128,3 +128,15 @@ test("the demo four compares copper + wire with MLS at the maker's torque, and t
   await expect(page.getByTestId("squeeze")).toContainText("More torque now mostly squeezes the head");
   await expect(page.getByTestId("verdict")).toContainText("Short: Washer sinks into the head");
 });
+
+test.describe("without JavaScript", () => {
+  test.use({ javaScriptEnabled: false });
+  test("a refused save says the estimate on the page is still the saved plan's", async ({ page }) => {
+    await signIn(page, "builder@example.com");
+    await openFirstPlan(page);
+    await page.getByLabel(/Final torque/).fill("");
+    await page.getByRole("button", { name: "Save plan" }).click();
+    await expect(page.getByTestId("estimate-stale")).toContainText("Nothing was saved");
+    await expect(page.getByRole("heading", { name: "Estimate" })).toBeVisible();
+  });
+});

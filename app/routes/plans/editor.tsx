@@ -138,6 +138,8 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
   const fastener = choices.fasteners.find((f) => String(f.id) === (live.fastenerId ?? values.fastenerId)) ?? (result.fastener as (typeof choices.fasteners)[number] | null);
   const sleeved = engine.sleeveKind !== "none" && materials.sleeve !== null;
   const torqueNm = view?.torqueNm ?? plan.torqueNm;
+  // a refused save or recalculation that brought no estimate back: what shows is the stored plan's
+  const refusedWithoutPreview = Boolean(actionData && Object.keys(actionData.errors ?? {}).length > 0 && !actionData.preview);
 
   return (
     <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,26rem)_minmax(0,1fr)]">
@@ -214,9 +216,11 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
         {suggestion ? <SuggestionBox suggestion={suggestion} units={units} canEdit={canEdit} /> : null}
         <Caution />
         {problems.length > 0 ? <FormError message={`The estimate cannot run: ${problems.join(" ")}`} /> : null}
-        {live.stale ? (
-          <p role="status" className="rounded border border-caution bg-caution-50 px-3 py-2 text-sm font-medium">
-            ⚠ The estimate below is for the last inputs that made sense; fix the marked fields to update it.
+        {live.stale || refusedWithoutPreview ? (
+          <p role="status" className="rounded border border-caution bg-caution-50 px-3 py-2 text-sm font-medium" data-testid="estimate-stale">
+            {refusedWithoutPreview && !live.view
+              ? "⚠ Nothing was saved, and the estimate below is still the saved plan's, not these figures: fix the marked fields, then Recalculate."
+              : "⚠ The estimate below is for the last inputs that made sense; fix the marked fields to update it."}
           </p>
         ) : null}
         {view ? <EstimatePanel view={view} units={units} targetMargin={Number(values.targetMargin) || plan.targetMargin} busy={live.busy} /> : null}
