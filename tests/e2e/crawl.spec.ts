@@ -66,6 +66,9 @@ async function crawl(page: Page, origin: string) {
       findings.push({ url, from, problem: `is linked but answers 403${kind ? "" : " (and not kindly)"}` });
       continue;
     }
+    // the caution once per page: in full beside the figures, or in the footer, never both
+    const cautions = await page.getByText("Estimates, not instructions.").count();
+    if (cautions !== 1) findings.push({ url, from, problem: `shows the caution ${cautions} times` });
     const widths = await page.evaluate(() => ({ scroll: document.documentElement.scrollWidth, viewport: window.innerWidth }));
     if (widths.scroll > widths.viewport + 1) findings.push({ url, from, problem: `is ${widths.scroll} px wide on a ${widths.viewport} px phone` });
     const here = new URL(page.url());

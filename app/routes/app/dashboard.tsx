@@ -1,7 +1,7 @@
 import { Link } from "react-router";
 import type { Route } from "./+types/dashboard";
 import { PageTitle } from "~/components/app-shell";
-import { Caution } from "~/components/caution";
+import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { StatusBadge } from "~/components/engine-status";
 import { layoutName, STATUS_LABEL } from "~/lib/engine";
 import { engineStatusCounts, listEngines, type EngineStatus } from "~/models/engine.server";
@@ -11,6 +11,9 @@ import { STATUS_LOOK } from "~/components/estimate-panel";
 import { requireUser } from "~/utils/auth.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Dashboard · Sealwright" }];
+
+// this page shows the full caution beside its figures (the footer leaves it out)
+export const handle = CAUTION_HANDLE;
 
 export async function loader({ request }: Route.LoaderArgs) {
   const { user, team, role } = await requireUser(request);

@@ -1,7 +1,7 @@
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import type { ReactNode } from "react";
 import type { Route } from "./+types/edit";
-import { Caution } from "~/components/caution";
+import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { Button, Field, FormError, SelectField } from "~/components/form";
 import { TYPICAL_GASKETS } from "~/lib/clamp";
 import { sourceLine } from "~/lib/library/display";
@@ -30,6 +30,9 @@ export const meta: Route.MetaFunction = ({ params }) => {
   const what = SINGULAR[kind] ?? "library item";
   return [{ title: `${"itemId" in params && params.itemId ? "Edit" : "New"} ${what} · Sealwright` }];
 };
+
+// this page shows the full caution beside its figures (the footer leaves it out)
+export const handle = CAUTION_HANDLE;
 
 function kindOf(param: string | undefined): LibraryKind {
   if (!isLibraryKind(param)) throw data("There is no such library.", { status: 404 });
@@ -130,7 +133,7 @@ export default function LibraryEdit({ loaderData, actionData }: Route.ComponentP
         {item ? <>Source: {item.provenance}. </> : null}
         Figures in your units ({units}); the shop's data is stored in SI.
       </p>
-      {kind === "fasteners" ? <Caution className="mb-4" /> : null}
+      <Caution className="mb-4" />
       {count > 0 ? <FormError message={errors.form ?? `Nothing was saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention.`} /> : null}
 
       <Form method="post" noValidate className="mt-4">

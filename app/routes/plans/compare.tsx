@@ -1,6 +1,6 @@
 import { data, Form, Link, redirect } from "react-router";
 import type { Route } from "./+types/compare";
-import { Caution } from "~/components/caution";
+import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { chance, marginStatus, STATUS_LOOK } from "~/components/estimate-panel";
 import { CEILING_WORDS, type Status } from "~/lib/clamp";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
@@ -11,6 +11,9 @@ import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
 import { flashToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Compare plans · Sealwright" }];
+
+// this page shows the full caution beside its figures (the footer leaves it out)
+export const handle = CAUTION_HANDLE;
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team, role } = await requireUser(request);

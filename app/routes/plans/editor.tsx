@@ -1,7 +1,7 @@
 import { useEffect, useMemo, useRef, useState } from "react";
 import { data, Form, Link, redirect, useFetcher, useNavigation } from "react-router";
 import type { Route } from "./+types/editor";
-import { Caution } from "~/components/caution";
+import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { EstimatePanel, STATUS_LOOK, VerdictLine } from "~/components/estimate-panel";
 import { Button, FormError } from "~/components/form";
 import { MakerTorque } from "~/components/maker-torque";
@@ -22,6 +22,9 @@ import { previewPlan } from "~/utils/plan-actions.server";
 import { flashToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.plan.name ?? "Seal plan"} · Sealwright` }];
+
+// this page shows the full caution beside its figures (the footer leaves it out)
+export const handle = CAUTION_HANDLE;
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team, role } = await requireUser(request);

@@ -1,6 +1,6 @@
 import { Form, Link } from "react-router";
 import type { Route } from "./+types/list";
-import { Caution } from "~/components/caution";
+import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { STATUS_LOOK } from "~/components/estimate-panel";
 import { CEILING_WORDS } from "~/lib/clamp";
 import { formatQuantity } from "~/lib/units";
@@ -10,6 +10,9 @@ import { listPlans } from "~/models/plan.server";
 import { requireUser, roleAtLeast } from "~/utils/auth.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Seal plans · Sealwright" }];
+
+// this page shows the full caution beside its figures (the footer leaves it out)
+export const handle = CAUTION_HANDLE;
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team, role } = await requireUser(request);

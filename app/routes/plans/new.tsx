@@ -1,7 +1,7 @@
 import { useState } from "react";
 import { data, Form, redirect } from "react-router";
 import type { Route } from "./+types/new";
-import { Caution } from "~/components/caution";
+import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { RoleRefusal } from "~/components/refusal";
 import { Button, FormError } from "~/components/form";
 import { MakerTorque } from "~/components/maker-torque";
@@ -19,6 +19,9 @@ import { previewPlan } from "~/utils/plan-actions.server";
 import { flashToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "New seal plan · Sealwright" }];
+
+// this page shows the full caution beside its figures (the footer leaves it out)
+export const handle = CAUTION_HANDLE;
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team } = await requireRole(request, "builder");
