@@ -1,7 +1,7 @@
 import { useState, type ReactNode } from "react";
-import { Form, NavLink, useLocation } from "react-router";
+import { Form, NavLink, useLocation, useMatches } from "react-router";
 import type { Role } from "~/models/user.server";
-import { CAUTION_SHORT } from "./caution";
+import { CAUTION_SHORT, pageShowsCaution } from "./caution";
 
 export interface ShellProps {
   user: { name: string; email: string };
@@ -81,9 +81,12 @@ export function AppShell({ user, team, role, memberships, nav, children }: Shell
         </nav>
       </header>
       <main className="mx-auto w-full max-w-7xl flex-1 px-4 py-6">{children}</main>
-      <footer className="border-t border-forge-100 bg-white px-4 py-3 text-center text-xs text-forge-700">
-        ⚠ {CAUTION_SHORT} A failed seal or broken stud under boost can injure people.
-      </footer>
+      {/* the caution once per page: in full beside the figures where a page has them, else here */}
+      {pageShowsCaution(useMatches()) ? null : (
+        <footer className="border-t border-forge-100 bg-white px-4 py-3 text-center text-xs text-forge-700">
+          ⚠ {CAUTION_SHORT} A failed seal or broken stud under boost can injure people.
+        </footer>
+      )}
     </div>
   );
 }

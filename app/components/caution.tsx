@@ -1,4 +1,12 @@
-// The caution shown wherever a torque or clamp figure appears, and in short form in the footer.
+// The caution shown wherever a torque or clamp figure appears, and in short form in the footer of the
+// pages that show none — once per page. A route whose page shows it in full says so in its handle.
+
+/** A route module's `handle` when its page shows the full caution beside its figures. */
+export const CAUTION_HANDLE = { caution: true } as const;
+
+export function pageShowsCaution(matches: readonly { handle?: unknown }[]): boolean {
+  return matches.some((m) => typeof m.handle === "object" && m.handle !== null && (m.handle as { caution?: unknown }).caution === true);
+}
 export const CAUTION_SHORT =
   "Estimates, not instructions. The fastener and engine makers' torque, lubricant and procedure govern.";
 

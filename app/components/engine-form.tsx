@@ -58,6 +58,10 @@ export function EngineForm({ values, errors, materials, units, submitLabel, canc
         />
       ) : null}
       <SaveOrCancel submitLabel={submitLabel} cancelTo={cancelTo} />
+      <p className="text-sm text-forge-700">
+        Figures are in your units ({units === "imperial" ? "inches, thou, psi, °F" : "millimetres, kPa, bar, °C"}). A figure may carry its own unit — “3.386 in”,
+        “4 thou”, “230 °F”, “2 bar boost” — and that unit wins; a decimal comma (“86,5”) reads as a point.
+      </p>
 
       <Fieldset legend="The engine">
         <Field label="Name" name="name" defaultValue={f.name} error={errors.name} required maxLength={120} />
@@ -109,15 +113,18 @@ export function EngineForm({ values, errors, materials, units, submitLabel, canc
             {sleeveKind === "wet-mid" ? n("sleeveSupportLengthMm", `Support length, top to seat (${len})`) : null}
           </>
         ) : null}
-        {n("sleeveProtrusionMm", `Protrusion as machined (${small})`, {
+        {n("sleeveProtrusionMm", `Sleeve protrusion as machined (${small})`, {
           hint: `Sleeve top above the deck; −0.5 to 1 mm${units === "imperial" ? " (−20 to 39 thou)" : ""}. 0 without sleeves.`,
         })}
       </Fieldset>
 
       <Fieldset legend="Boost and firing">
         <Field label="Fuel" name="fuel" defaultValue={f.fuel} error={errors.fuel} maxLength={60} hint="As the shop names it, e.g. E85, methanol, race gasoline." />
-        {n("targetManifoldKpa", `Target manifold pressure (${unitLabel("manifold", units)})`, {
-          hint: `Absolute: atmosphere is about ${units === "imperial" ? "14.7 psi" : "101 kPa"}.`,
+        {n("targetManifoldKpa", `Target manifold pressure, absolute (${unitLabel("manifold", units).replace(" abs", "")})`, {
+          hint:
+            units === "imperial"
+              ? "Absolute = what the boost gauge reads plus the atmosphere (about 14.7 psi): 20 psi of boost is about 34.7 psi absolute. You may type the boost itself, as “20 psi boost”."
+              : "Absolute = what the boost gauge reads plus the atmosphere (about 101 kPa): 200 kPa (2 bar) of boost is about 301 kPa absolute. You may type the boost itself, as “2 bar boost”.",
         })}
         {n("peakPressureMpa", `Peak cylinder pressure (${unitLabel("peak", units)}), optional`, {
           hint: "Leave blank to let each plan estimate it from boost.",
@@ -136,7 +143,7 @@ export function EngineForm({ values, errors, materials, units, submitLabel, canc
             </p>
           ) : null}
         </fieldset>
-        {n("pressureRiseFactor", "Pressure-rise factor", { hint: "Peak over compression pressure, 1 to 10; used when peak pressure is estimated." })}
+        {n("pressureRiseFactor", "Pressure-rise factor", { hint: "How many times the compression pressure the firing peak reaches, 1 to 10 (3 unless you know better). Used only while the peak pressure is estimated." })}
         {n("runningHeadC", `Running head temperature (${unitLabel("temperature", units)})`)}
         {n("runningBlockC", `Running block temperature (${unitLabel("temperature", units)})`)}
       </Fieldset>

@@ -34,35 +34,49 @@ export function CylinderChart({ view, units }: { view: EstimateView; units: Unit
       data={{
         labels: cyl.map((c) => `Cyl ${c.cylinder}`),
         datasets: [
-          { label: `Seal-line load under firing, hot and settled (${unit})`, data: cyl.map((c) => f(c.remainingSealLineHotSettledN)), backgroundColor: cyl.map((c) => (c.sealMargin < 1 ? FAILED : COPPER)) },
-          { label: `Needed by the seal (${unit})`, data: cyl.map((c) => f(Math.max(c.requiredOperatingN, c.requiredSeatingN))), backgroundColor: FORGE },
+          { label: `Seal line, hot and fired (${unit})`, data: cyl.map((c) => f(c.remainingSealLineHotSettledN)), backgroundColor: cyl.map((c) => (c.sealMarginNominal < 1 ? FAILED : COPPER)) },
+          { label: `Seal line needs (${unit})`, data: cyl.map((c) => f(Math.max(c.requiredOperatingN, c.requiredSeatingN))), backgroundColor: FORGE },
         ],
       }}
-      options={{ responsive: true, maintainAspectRatio: false, animation: false, scales: { y: { beginAtZero: true, title: { display: true, text: unit } } } }}
+      options={{ responsive: true, maintainAspectRatio: false, animation: false, plugins: { legend: { position: "bottom", labels: { boxWidth: 12, font: { size: 10 } } } }, scales: { y: { beginAtZero: true, title: { display: true, text: unit } } } }}
     />
   );
 }
 
-/** Weakest margin and marginal seal-line share over torque, with the squeeze point marked. */
+/** A vertical marker at torque x on the margin axis. */
+function marker(label: string, x: number, top: number, color: string, dash: number[] = []) {
+  return { label, data: [{ x, y: 0 }, { x, y: top }], borderColor: color, backgroundColor: color, pointRadius: 0, borderWidth: 2, borderDash: dash, yAxisID: "margin" };
+}
+
+/**
+ * Over torque: the weakest seal margin (bottom of the band and nominal) and the target on the margin
+ * axis; the seal gained per +10 % torque and the stud's use of its yield on a separate percent axis;
+ * the plan's torque, the ceiling and the head-squeeze onset as labelled vertical markers.
+ */
 export function SweepChart({ view, units }: { view: EstimateView; units: UnitSystem }) {
   const unit = unitFor("torque", units);
   const t = (nm: number) => toDisplay("torque", nm, unit);
-  const top = Math.max(2, ...view.sweep.map((p) => p.weakestMargin)) * 1.05;
-  const squeeze = view.squeezePoint;
-  const inRange = squeeze && squeeze.torqueNm >= view.sweep[0]!.torqueNm && squeeze.torqueNm <= view.sweep[view.sweep.length - 1]!.torqueNm;
+  const pts = view.sweep;
+  const top = Math.max(2, view.targetMargin, ...pts.map((p) => p.weakestMarginNominal)) * 1.05;
+  const first = pts[0]!.torqueNm;
+  const last = pts[pts.length - 1]!.torqueNm;
+  const inRange = (x: number | null) => x !== null && Number.isFinite(x) && x >= first && x <= last;
+  const pctTop = Math.max(120, ...pts.map((p) => p.studWorkingUtilization * 100)) * 1.05;
   return (
     <Line
-      aria-label="Chart: weakest seal margin and the share of added clamp still on the seal line under firing (and as assembled), over torque, with the squeeze point and this plan's torque marked. The text beside it states the same."
+      aria-label={`Chart: over torque, the weakest seal margin at the bottom of the scatter band and at nominal preload against the target ${view.targetMargin.toFixed(2)} (left axis), and the seal gained per +10 % torque and the stud's share of its yield (right axis, percent), with this plan's torque, the torque ceiling and where more torque mostly squeezes the head marked. The figures beside it state the same.`}
       role="img"
       data={{
         datasets: [
-          { label: "Weakest seal margin", data: view.sweep.map((p) => ({ x: t(p.torqueNm), y: p.weakestMargin })), borderColor: COPPER, backgroundColor: COPPER, pointRadius: 0, borderWidth: 3 },
-          { label: "Added clamp still on the seal line under firing", data: view.sweep.map((p) => ({ x: t(p.torqueNm), y: p.firedShareWeakest })), borderColor: FORGE, backgroundColor: FORGE, pointRadius: 0, borderWidth: 2 },
-          { label: "…as assembled", data: view.sweep.map((p) => ({ x: t(p.torqueNm), y: p.marginalShareWeakest })), borderColor: "#5b7386", backgroundColor: "#5b7386", pointRadius: 0, borderWidth: 1, borderDash: [6, 4] },
-          { label: "This plan's torque", data: [{ x: t(view.torqueNm), y: 0 }, { x: t(view.torqueNm), y: top }], borderColor: HELD, backgroundColor: HELD, pointRadius: 0, borderWidth: 2 },
-          ...(inRange
-            ? [{ label: "Squeeze point", data: [{ x: t(squeeze.torqueNm), y: 0 }, { x: t(squeeze.torqueNm), y: top }], borderColor: FAILED, backgroundColor: FAILED, pointRadius: 0, borderWidth: 2, borderDash: [2, 3] }]
-            : []),
+          { label: "Weakest margin, bottom of band", data: pts.map((p) => ({ x: t(p.torqueNm), y: p.weakestMargin })), borderColor: COPPER, backgroundColor: COPPER, pointRadius: 0, borderWidth: 3, yAxisID: "margin" },
+          { label: "…at nominal preload", data: pts.map((p) => ({ x: t(p.torqueNm), y: p.weakestMarginNominal })), borderColor: COPPER, backgroundColor: COPPER, pointRadius: 0, borderWidth: 1, borderDash: [6, 4], yAxisID: "margin" },
+          { label: "Target margin", data: [{ x: t(first), y: view.targetMargin }, { x: t(last), y: view.targetMargin }], borderColor: HELD, backgroundColor: HELD, pointRadius: 0, borderWidth: 1, borderDash: [2, 2], yAxisID: "margin" },
+          { label: "Seal gained per +10 % torque (%)", data: pts.map((p) => ({ x: t(p.torqueNm), y: p.gainShare * 100 })), borderColor: FORGE, backgroundColor: FORGE, pointRadius: 0, borderWidth: 2, yAxisID: "percent" },
+          { label: "Stud, hot and fired (% of yield)", data: pts.map((p) => ({ x: t(p.torqueNm), y: p.studWorkingUtilization * 100 })), borderColor: "#5b7386", backgroundColor: "#5b7386", pointRadius: 0, borderWidth: 1, yAxisID: "percent" },
+          { label: "Stud yield (100 %)", data: [{ x: t(first), y: 100 }, { x: t(last), y: 100 }], borderColor: FAILED, backgroundColor: FAILED, pointRadius: 0, borderWidth: 1, borderDash: [4, 4], yAxisID: "percent" },
+          marker("This plan's torque", t(view.torqueNm), top, HELD),
+          ...(inRange(view.ceiling.torqueNm) ? [marker("Torque ceiling", t(view.ceiling.torqueNm), top, FAILED, [2, 3])] : []),
+          ...(inRange(view.headSqueezeOnsetNm) ? [marker("Mostly squeezes the head from here", t(view.headSqueezeOnsetNm!), top, "#7a4a94", [8, 3])] : []),
         ],
       }}
       options={{
@@ -70,9 +84,12 @@ export function SweepChart({ view, units }: { view: EstimateView; units: UnitSys
         maintainAspectRatio: false,
         animation: false,
         parsing: false,
+        interaction: { mode: "nearest", intersect: false },
+        plugins: { legend: { position: "bottom", labels: { boxWidth: 12, font: { size: 10 } } } },
         scales: {
           x: { type: "linear", title: { display: true, text: `Torque (${unit})` } },
-          y: { min: 0, max: top, title: { display: true, text: "Margin / share" } },
+          margin: { type: "linear", position: "left", min: 0, max: top, title: { display: true, text: "Seal margin" } },
+          percent: { type: "linear", position: "right", min: 0, max: pctTop, grid: { drawOnChartArea: false }, title: { display: true, text: "Percent" } },
         },
       }}
     />

@@ -14,7 +14,8 @@ export function StudTable({
   const edit = (i: number, key: keyof StudRow, value: string) =>
     setStuds((rows) => rows.map((r, j) => (j === i ? { ...r, [key]: value } : r)));
   return (
-    <div className="my-3 overflow-x-auto">
+    // relative: the screen-reader-only labels inside are positioned, and must scroll with the table, not widen the page
+    <div className="relative my-3 overflow-x-auto">
       <table className="w-full border-collapse text-left text-sm tabular">
         <caption className="sr-only">Studs, the cylinders each serves and its share of each</caption>
         <thead className="bg-forge-100">

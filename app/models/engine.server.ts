@@ -337,3 +337,38 @@ export async function engineStatusCounts(teamId: number): Promise<Record<EngineS
   for (const r of rows as { status: EngineStatus; n: number }[]) out[r.status] = Number(r.n);
   return out;
 }
+
+// ─── Duplicating an engine ─────────────────────────────────────────────────────────────────
+
+/** Longest engine name the table holds. */
+const NAME_MAX = 120;
+
+/** "Name (copy)", shortened so it fits the name column. */
+export function copyName(name: string): string {
+  const suffix = " (copy)";
+  return name.length + suffix.length <= NAME_MAX ? name + suffix : `${name.slice(0, NAME_MAX - suffix.length - 1)}…${suffix}`;
+}
+
+/**
+ * A new engine with this engine's record and stud pattern (not its plans, nor its chosen plan),
+ * named "… (copy)". Returns the new id; another team's engine is not found (404).
+ */
+export async function duplicateEngine(teamId: number, userId: number, engineId: number): Promise<{ id: number; name: string }> {
+  return db().transaction(async (trx) => {
+    const row = await trx("engines").where({ team_id: teamId, id: engineId }).whereNull("archived_at").first();
+    if (!row) throw data("No such engine in this shop.", { status: 404 });
+    const { id: _id, chosen_plan_id: _chosen, archived_at: _archived, created_at: _c, updated_at: _u, ...record } = row as Record<string, unknown>;
+    const name = copyName(String(record.name));
+    const at = now();
+    const [{ id }] = await trx("engines")
+      .insert({ ...record, name, team_id: teamId, chosen_plan_id: null, archived_at: null, created_at: at, updated_at: at })
+      .returning("id");
+    await audit(trx, teamId, userId, "engine.duplicated", { engineId: id, fromEngineId: engineId, name });
+    return { id: id as number, name };
+  });
+}
+
+/** The team's active engines for a picker: id, name and bore. */
+export async function engineChoices(teamId: number): Promise<{ id: number; name: string; boreMm: number }[]> {
+  return db()("engines").where({ team_id: teamId }).whereNull("archived_at").orderBy("name").select("id", "name", { boreMm: "bore_mm" });
+}

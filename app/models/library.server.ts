@@ -39,6 +39,7 @@ const COLUMNS: Record<LibraryKind, Record<string, string>> = {
     yieldMpa: "yield_mpa",
     expansionUmPerMC: "expansion_um_per_m_c",
     limitingSurfacePressureMpa: "limiting_surface_pressure_mpa",
+    shearStrengthMpa: "shear_strength_mpa",
   },
   fasteners: {
     threadSystem: "thread_system",
@@ -52,6 +53,7 @@ const COLUMNS: Record<LibraryKind, Record<string, string>> = {
     washerOdMm: "washer_od_mm",
     washerHoleMm: "washer_hole_mm",
     washerThicknessMm: "washer_thickness_mm",
+    nutFaceOdMm: "nut_face_od_mm",
     makerTorqueNm: "maker_torque_nm",
     makerLubricant: "maker_lubricant",
     makerStages: "maker_stages",
@@ -75,6 +77,13 @@ const COLUMNS: Record<LibraryKind, Record<string, string>> = {
     relaxationPercent: "relaxation_percent",
     finishMinRaUm: "finish_min_ra_um",
     finishMaxRaUm: "finish_max_ra_um",
+    sealLineHardnessMpa: "seal_line_hardness_mpa",
+    beadLoadNPerMm: "bead_load_n_per_mm",
+    beadTravelMm: "bead_travel_mm",
+    seatingPressureMpa: "seating_pressure_mpa",
+    minServicePressureMpa: "min_service_pressure_mpa",
+    maxPressureMpa: "max_pressure_mpa",
+    bodySealPressureMpa: "body_seal_pressure_mpa",
   },
 };
 

@@ -1,10 +1,11 @@
-import { parsePlan } from "~/lib/clamp";
+import { evaluatePlan, parsePlan, type Status } from "~/lib/clamp";
 import { assemblePlanInput, type PlanRecord } from "~/lib/plan/assemble";
 import { estimateView, type EstimateView } from "~/lib/plan/estimate-view";
 import { displayWording } from "~/lib/plan/wording";
 import type { UnitSystem } from "~/lib/units";
-import type { EngineRow } from "./engine.server";
-import { planParts, type FastenerInfo, type GasketInfo } from "./plan.server";
+import { toEngine, type EngineRow } from "./engine.server";
+import { db } from "~/utils/db.server";
+import { planParts, requirePlan, type FastenerInfo, type GasketInfo } from "./plan.server";
 
 export type PlanEstimateResult =
   | { ok: true; view: EstimateView; fastener: FastenerInfo; gasket: GasketInfo }
@@ -24,4 +25,48 @@ export async function estimatePlan(
     return { ok: false, problems: parsed.errors.map((e) => e.message), fastener: parts.fastenerInfo, gasket: parts.gasketInfo };
   }
   return { ok: true, view: estimateView(parsed.plan, displayWording(units)), fastener: parts.fastenerInfo, gasket: parts.gasketInfo };
+}
+
+export interface ChosenPlanVerdict {
+  engineId: number;
+  engineName: string;
+  planId: number;
+  planName: string;
+  status: Status;
+  headline: string;
+  /** The check that decides: "stud-assembly", "seal", … */
+  limiting: string;
+}
+
+/**
+ * The verdict of each working engine's chosen plan (not retired, most recently touched first, at most
+ * `limit`): the evaluation only, no sweep or scatter run. Plans that cannot be estimated are left out.
+ */
+export async function chosenPlanVerdicts(teamId: number, limit = 50): Promise<ChosenPlanVerdict[]> {
+  const rows = await db()("engines")
+    .where({ team_id: teamId })
+    .whereNull("archived_at")
+    .whereNot("status", "retired")
+    .whereNotNull("chosen_plan_id")
+    .orderBy("updated_at", "desc")
+    .orderBy("id", "desc")
+    .limit(limit);
+  const out: ChosenPlanVerdict[] = [];
+  for (const row of rows) {
+    const engine = toEngine(row);
+    const plan = await requirePlan(teamId, engine.id, String(engine.chosenPlanId)).catch(() => null);
+    if (!plan) continue;
+    const parts = await planParts(teamId, engine, plan);
+    if (!parts) continue;
+    const parsed = parsePlan(assemblePlanInput(parts));
+    if (!parsed.ok) continue;
+    const v = evaluatePlan(parsed.plan).verdict;
+    out.push({ engineId: engine.id, engineName: engine.name, planId: plan.id, planName: plan.name, status: v.status, headline: v.headline, limiting: v.limiting });
+  }
+  return out;
+}
+
+/** At risk: the chosen plan is short, or the stud is what limits it (the check that decides is the stud's). */
+export function atRisk(v: ChosenPlanVerdict): boolean {
+  return v.status === "short" || (v.status !== "holds" && v.limiting.startsWith("stud-"));
 }

@@ -16,6 +16,7 @@ import {
 } from "./library.server";
 
 export interface PlanRow extends PlanRecord {
+  targetStretchMm: number | null;
   id: number;
   engineId: number;
   name: string;
@@ -51,6 +52,7 @@ function toPlan(r: Row): PlanRow {
     wireProjectionMm: r.wire_projection_mm,
     receiverGrooveDepthMm: r.receiver_groove_depth_mm,
     sleeveProtrusionMm: r.sleeve_protrusion_mm,
+    targetStretchMm: r.target_stretch_mm ?? null,
     targetMargin: r.target_margin,
     notes: r.notes,
     updatedAt: r.updated_at,
@@ -138,6 +140,7 @@ function planColumns(w: PlanWrite) {
     wire_projection_mm: w.wireProjectionMm,
     receiver_groove_depth_mm: w.receiverGrooveDepthMm,
     sleeve_protrusion_mm: w.sleeveProtrusionMm,
+    target_stretch_mm: w.targetStretchMm,
     target_margin: w.targetMargin,
     notes: w.notes,
   };
@@ -173,4 +176,15 @@ export async function archivePlan(teamId: number, userId: number, engineId: numb
 export async function choosePlan(teamId: number, userId: number, engineId: number, planId: number): Promise<void> {
   await db()("engines").where({ team_id: teamId, id: engineId }).update({ chosen_plan_id: planId, updated_at: now() });
   await audit(teamId, userId, "plan.chosen", { engineId, planId });
+}
+
+/** A copy of the plan on another engine of the same team (the caller checks the gasket fits). Returns the new id. */
+export async function copyPlanToEngine(teamId: number, userId: number, plan: PlanRow, targetEngineId: number): Promise<number> {
+  const at = now();
+  const [row] = await db()("seal_plans")
+    .insert({ team_id: teamId, engine_id: targetEngineId, created_at: at, updated_at: at, ...planColumns(plan) })
+    .returning("id");
+  const id = (row as { id: number }).id;
+  await audit(teamId, userId, "plan.copied", { engineId: targetEngineId, planId: id, fromEngineId: plan.engineId, fromPlanId: plan.id, name: plan.name });
+  return id;
 }

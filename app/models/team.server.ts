@@ -39,5 +39,30 @@ export async function listAuditEvents(teamId: number, limit = 20) {
     .where("a.team_id", teamId)
     .orderBy("a.id", "desc")
     .limit(limit)
-    .select({ id: "a.id", action: "a.action", at: "a.created_at", who: "u.name" });
+    .select({ id: "a.id", action: "a.action", at: "a.created_at", who: "u.name", detail: "a.detail" });
+}
+
+/** What an audit row's detail names (engine and plan ids, a name), read leniently: old rows have none. */
+export function auditSubject(detail: unknown): { engineId?: number; planId?: number; name?: string } {
+  if (typeof detail !== "string" || detail === "") return {};
+  try {
+    const d = JSON.parse(detail) as Record<string, unknown>;
+    const int = (x: unknown) => (typeof x === "number" && Number.isInteger(x) ? x : undefined);
+    return { engineId: int(d.engineId), planId: int(d.planId), name: typeof d.name === "string" ? d.name : undefined };
+  } catch {
+    return {};
+  }
+}
+
+/** Of these plan ids, the ones that still exist (not archived) in this team, with their engine and name. */
+export async function livePlans(teamId: number, planIds: number[]): Promise<Map<number, { engineId: number; name: string }>> {
+  if (planIds.length === 0) return new Map();
+  const rows = await db()("seal_plans as p")
+    .join("engines as e", "e.id", "p.engine_id")
+    .where("p.team_id", teamId)
+    .whereIn("p.id", planIds)
+    .whereNull("p.archived_at")
+    .whereNull("e.archived_at")
+    .select({ id: "p.id", engineId: "p.engine_id", name: "p.name" });
+  return new Map(rows.map((r: { id: number; engineId: number; name: string }) => [r.id, { engineId: r.engineId, name: r.name }]));
 }

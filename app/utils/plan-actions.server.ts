@@ -27,11 +27,3 @@ export async function previewPlan(
     problems: [],
   };
 }
-
-/** Stages scaled to a new final torque, keeping their proportions. */
-export function scaleStages(stagesNm: number[], fromNm: number, toNm: number): number[] {
-  if (stagesNm.length === 0 || fromNm <= 0) return [toNm];
-  const scaled = stagesNm.map((s) => Math.round((s * toNm) / fromNm));
-  scaled[scaled.length - 1] = toNm;
-  return scaled;
-}

@@ -20,7 +20,7 @@ test("a builder adds an engine through the form: a bad figure first, then a clea
   await page.getByLabel("Block (deck) material", { exact: true }).selectOption({ index: 1 });
   await page.getByLabel("Head material", { exact: true }).selectOption({ index: 1 });
   await page.getByLabel("Fuel", { exact: true }).fill("Methanol");
-  await page.getByLabel("Target manifold pressure (kPa abs)", { exact: true }).fill("300");
+  await page.getByLabel("Target manifold pressure, absolute (kPa)", { exact: true }).fill("300");
   // a stud whose shares do not add up shows it at once, in words as well as colour
   const shares = page.getByRole("textbox", { name: "Stud LA2: share of each cylinder" });
   await shares.fill("0.5 0.3");

@@ -1,95 +1,126 @@
 import { describe, expect, it } from "vitest";
-import { evaluatePlan, PlanInputSchema } from "~/lib/clamp";
-import { assemblePlanInput, type EngineRecord, type GasketRecord, type MaterialRecord, type PlanParts } from "~/lib/plan/assemble";
 import { toEngine } from "~/models/engine.server";
-import { getFastener, getGasket, getMaterial } from "~/models/library.server";
+import { estimatePlan, type PlanEstimateResult } from "~/models/plan-estimate.server";
+import { listPlans, type PlanRow } from "~/models/plan.server";
 import { db } from "~/utils/db.server";
 
-// Every seeded demo plan must be a plan the clamp model accepts and evaluates to finite numbers,
-// assembled from the stored rows the way the app does it (app/lib/plan/assemble.ts).
+// Every seeded demo plan, estimated the way the app does it (stored rows → planParts → the clamp
+// model), and the story the demo is there to tell (migrations/seeds/03-demo-engines.ts).
 
 type Row = Record<string, any>;
+type Estimated = { engine: string; plan: PlanRow; result: Extract<PlanEstimateResult, { ok: true }>; chosen: boolean };
 
-async function rows() {
+async function demo(): Promise<{ engines: Row[]; estimated: Estimated[] }> {
   const team = await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id");
-  return {
-    teamId: team.id as number,
-    engines: (await db()("engines").where({ team_id: team.id })) as Row[],
-    plans: (await db()("seal_plans").where({ team_id: team.id })) as Row[],
-  };
-}
-
-async function partsFor(teamId: number, e: Row, p: Row): Promise<PlanParts> {
-  const engine = toEngine(e);
-  const material = async (id: number | null) => (id ? ((await getMaterial(teamId, id)) as MaterialRecord) : null);
-  const fastener = (await getFastener(teamId, p.fastener_id))!;
-  const gasket = (await getGasket(teamId, p.gasket_id))!;
-  return {
-    engine: engine as unknown as EngineRecord,
-    plan: {
-      torqueNm: p.torque_nm,
-      threadFriction: p.thread_friction,
-      bearingFriction: p.bearing_friction,
-      method: p.method,
-      wireLocation: p.wire_location,
-      wireProjectionMm: p.wire_projection_mm,
-      receiverGrooveDepthMm: p.receiver_groove_depth_mm,
-      sleeveProtrusionMm: p.sleeve_protrusion_mm,
-    },
-    fastener: { ...fastener, material: (await material(fastener.materialId))! },
-    gasket: gasket as GasketRecord,
-    head: (await material(engine.headMaterialId))!,
-    block: (await material(engine.blockMaterialId))!,
-    sleeve: await material(engine.sleeveMaterialId),
-  };
+  const engines = (await db()("engines").where({ team_id: team.id }).orderBy("id")) as Row[];
+  const estimated: Estimated[] = [];
+  for (const row of engines) {
+    const engine = toEngine(row);
+    for (const plan of await listPlans(team.id, engine.id)) {
+      const result = await estimatePlan(team.id, engine, plan);
+      if (!result.ok) throw new Error(`${plan.name}: ${result.problems.join("; ")}`);
+      estimated.push({ engine: engine.name, plan, result, chosen: engine.chosenPlanId === plan.id });
+    }
+  }
+  return { engines, estimated };
 }
 
 function finiteEverywhere(value: unknown, path = "estimate"): string[] {
-  if (typeof value === "number") return Number.isFinite(value) ? [] : [path];
+  if (typeof value === "number") return Number.isFinite(value) || path.endsWith("ratio") ? [] : [path];
   if (Array.isArray(value)) return value.flatMap((v, i) => finiteEverywhere(v, `${path}[${i}]`));
   if (value && typeof value === "object") return Object.entries(value).flatMap(([k, v]) => finiteEverywhere(v, `${path}.${k}`));
   return [];
 }
 
+const named = (all: Estimated[], name: string) => {
+  const e = all.find((x) => x.plan.name === name);
+  if (!e) throw new Error(`no demo plan "${name}"`);
+  return e.result.view;
+};
+
 describe("the demo seed", () => {
   it("gives the demo shop three engines with two or three plans each, one chosen per engine", async () => {
-    const { engines, plans } = await rows();
+    const { engines, estimated } = await demo();
     expect(engines.map((e) => [e.cylinders, e.layout, e.status]).sort()).toEqual([
       [4, "inline", "in-build"],
       [6, "inline", "running"],
       [8, "V", "quoted"],
     ]);
     for (const e of engines) {
-      const own = plans.filter((p) => p.engine_id === e.id);
+      const own = estimated.filter((x) => x.plan.engineId === e.id);
       expect(own.length).toBeGreaterThanOrEqual(2);
       expect(own.length).toBeLessThanOrEqual(3);
-      expect(own.map((p) => p.id)).toContain(e.chosen_plan_id);
+      expect(own.map((x) => x.plan.id)).toContain(e.chosen_plan_id);
     }
+    expect(estimated).toHaveLength(9);
   });
 
   it("keeps every plan's stages ending at its torque", async () => {
-    const { plans } = await rows();
+    const plans = await db()("seal_plans");
     for (const p of plans) {
       const stages = JSON.parse(p.stages) as number[];
-      expect(stages.length).toBeGreaterThan(0);
       expect(stages.at(-1)).toBe(p.torque_nm);
       for (let i = 1; i < stages.length; i++) expect(stages[i]!).toBeGreaterThan(stages[i - 1]!);
     }
   });
 
-  it("every seeded plan parses as a PlanInput and evaluates to finite numbers", async () => {
-    const lib = await rows();
-    const engines = new Map(lib.engines.map((e) => [e.id, e]));
-    expect(lib.plans).toHaveLength(7);
-    for (const p of lib.plans) {
-      const parsed = PlanInputSchema.safeParse(assemblePlanInput(await partsFor(lib.teamId, engines.get(p.engine_id)!, p)));
-      expect(parsed.success ? [] : parsed.error.issues.map((i) => `${p.name}: ${i.path.join(".")} ${i.message}`)).toEqual([]);
-      if (!parsed.success) continue;
-      const estimate = evaluatePlan(parsed.data);
-      expect(finiteEverywhere(estimate), p.name).toEqual([]);
-      expect(estimate.warnings.filter((w) => /NaN|Infinity/.test(w)), p.name).toEqual([]);
-      expect(estimate.weakestMargin, p.name).toBeGreaterThan(0);
+  it("every seeded plan evaluates to finite numbers with a verdict that names its cause", async () => {
+    for (const { plan, result } of (await demo()).estimated) {
+      const e = result.view.estimate;
+      expect(finiteEverywhere({ ...e, verdict: undefined, ceiling: { ...e.ceiling, torques: undefined } }), plan.name).toEqual([]);
+      expect(e.verdict.headline.length, plan.name).toBeGreaterThan(10);
+      expect(e.weakestMargin, plan.name).toBeGreaterThan(0);
     }
+  });
+
+  it("no chosen plan is short, and no plan at the stud maker's own torque and lubricant puts the stud past yield", async () => {
+    const { estimated } = await demo();
+    for (const x of estimated.filter((x) => x.chosen)) expect(x.result.view.estimate.verdict.status, x.plan.name).not.toBe("short");
+    const atMaker = estimated.filter((x) => x.result.fastener.makerTorqueNm !== null && Math.abs(x.plan.torqueNm - x.result.fastener.makerTorqueNm) < 1 && x.plan.threadFriction === x.result.fastener.threadFriction);
+    expect(atMaker.length).toBeGreaterThanOrEqual(5);
+    for (const x of atMaker) {
+      const checks = x.result.view.estimate.verdict.checks;
+      for (const id of ["stud-assembly", "stud-working"]) expect(checks.find((c) => c.id === id)!.status, `${x.plan.name}: ${id}`).not.toBe("short");
+    }
+  });
+
+  it("the four compares copper + wire with MLS at the maker's torque, and shows torque that only squeezes the head", async () => {
+    const { estimated } = await demo();
+    const copper = named(estimated, "Copper + wire at the maker's 125 lbf·ft");
+    const mls = named(estimated, "MLS with stopper at the maker's 125 lbf·ft");
+    expect(copper.torqueNm).toBeCloseTo(mls.torqueNm, 6);
+    expect(copper.estimate.verdict.status).toBe("holds");
+    expect(mls.estimate.verdict.status).toBe("holds");
+    // at the same torque the copper's wire line holds more seal than the MLS bead and stopper
+    expect(copper.estimate.weakestMargin).toBeGreaterThan(mls.estimate.weakestMargin);
+    const more = named(estimated, "Copper + wire, 150 lbf·ft");
+    expect(more.estimate.squeeze.mostlySqueezing).toBe(true);
+    expect(more.estimate.squeeze.reason).toBe("line-at-limit");
+    expect(more.estimate.gain.share).toBeLessThan(0.1);
+    // and past the ceiling the washer sinks into the head: the extra torque is refused, not praised
+    expect(more.estimate.verdict.status).toBe("short");
+    expect(more.estimate.verdict.limiting).toBe("bearing");
+    expect(more.ceiling.torqueNm).toBeLessThan(more.torqueNm);
+    // the wire line is already at its limit: the margin did not move with 25 lbf·ft more
+    expect(Math.abs(more.estimate.weakestMargin - copper.estimate.weakestMargin)).toBeLessThan(0.05);
+  });
+
+  it("the six's running plan holds; the same torque on a slicker lubricant is limited by the stud", async () => {
+    const { estimated } = await demo();
+    expect(named(estimated, "MLS, ½ studs at the maker's 85 lbf·ft").estimate.verdict.status).toBe("holds");
+    const slick = named(estimated, "MLS, ½ studs at 85 lbf·ft on a slicker lube");
+    expect(slick.estimate.verdict.status).toBe("short");
+    expect(slick.estimate.verdict.headline).toMatch(/^Stud past yield/);
+    expect(["stud-assembly", "stud-working"]).toContain(slick.ceiling.cause);
+    expect(slick.ceiling.torqueNm).toBeLessThan(slick.torqueNm);
+  });
+
+  it("the V8's aluminium thread decides without inserts", async () => {
+    const { estimated } = await demo();
+    const bare = named(estimated, "MLS + sleeve ring, studs in the aluminium thread");
+    expect(bare.estimate.verdict.limiting).toBe("thread-strip");
+    expect(bare.ceiling.cause).toBe("thread-strip");
+    expect(named(estimated, "MLS + sleeve ring, studs in full-depth inserts").estimate.verdict.status).not.toBe("short");
   });
 
   it("every library source fits its column (300 characters) and every seeded row has one", async () => {

@@ -109,7 +109,7 @@ describe("library pages for the builder", () => {
   it("lists the demo fasteners with the maker's figures marked as invented demo data", async () => {
     const out = await listPage("fasteners", cookies.builder);
     const rows = (out.body as { rows: { name: string; source: string; makerTorqueNm: number; materialName: string }[] }).rows;
-    expect(rows.length).toBe(4);
+    expect(rows.length).toBe(6);
     for (const r of rows) expect(r.source).toMatch(/demo data \(invented\)/);
     const m12 = rows.find((r) => r.name.startsWith("M12×1.5"))!;
     expect(m12.makerTorqueNm).toBe(150);
@@ -375,7 +375,7 @@ describe("a new shop starts with the handbook library", () => {
     const before = await count("materials");
     const { teamId: fresh } = await createUserWithTeam({ email: "new-shop@example.com", name: "Dana Pellow", password: "a-long-enough-password", teamName: "Fresh Shop" });
     expect((await db()("materials").where({ team_id: fresh })).length).toBe(10);
-    expect((await db()("fasteners").where({ team_id: fresh })).length).toBe(4);
+    expect((await db()("fasteners").where({ team_id: fresh })).length).toBe(6);
     expect((await db()("gaskets").where({ team_id: fresh })).length).toBe(5);
     expect(await count("materials")).toBe(before + 10);
     const f = await db()("fasteners").where({ team_id: fresh });

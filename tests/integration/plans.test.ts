@@ -193,18 +193,19 @@ describe("plan editor", () => {
     }
   });
 
-  it("words the squeeze point and warnings in the person's units", async () => {
+  it("words the torque ceiling, the checks and warnings in the person's units", async () => {
     const user = await db()("users").where({ email: "viewer@example.com" }).first("id");
     const params = { engineId: String(engineId), planId: String(planId) };
-    type Loaded = { result: { view: { squeezePoint: { explanation: string }; estimate: { warnings: string[] } } } };
+    type Loaded = { result: { view: { ceiling: { explanation: string }; estimate: { warnings: string[]; verdict: { checks: { detail: string }[] } } } } };
     const metric = (await call(editor.loader as Handler, get(url(), viewer), params)).body as Loaded;
-    expect(metric.result.view.squeezePoint.explanation).toMatch(/N·m/);
+    expect(metric.result.view.ceiling.explanation).toMatch(/N·m/);
     await db()("users").where({ id: user.id }).update({ units: "imperial" });
     try {
       const imperial = (await call(editor.loader as Handler, get(url(), viewer), params)).body as Loaded;
-      expect(imperial.result.view.squeezePoint.explanation).toMatch(/lbf·ft/);
-      expect(imperial.result.view.squeezePoint.explanation).not.toMatch(/N·m|MPa|kN/);
+      expect(imperial.result.view.ceiling.explanation).toMatch(/lbf·ft/);
+      expect(imperial.result.view.ceiling.explanation).not.toMatch(/N·m|MPa|kN/);
       for (const w of imperial.result.view.estimate.warnings) expect(w).not.toMatch(/ N·m| kN| MPa/);
+      for (const c of imperial.result.view.estimate.verdict.checks) expect(c.detail).not.toMatch(/ N·m| kN| MPa| mm\b/);
     } finally {
       await db()("users").where({ id: user.id }).update({ units: "metric" });
     }

@@ -1,18 +1,26 @@
-// Per-bore clamp and seal margin: studs to bores, then the two-spring seal under firing.
+// Per-bore clamp and seal: studs to bores, then the bore's paths through assembly, heat and firing.
 import type { Prepared } from "./model";
-import { splitClamp, unloadSealLine, type SealSplit } from "./seal";
+import { elementForce, loadBore, moveBore, type BoreState } from "./seal";
 
 export interface BoreSeal {
-  cold: SealSplit;
-  /** Seal-line load left under firing with the cold clamp. */
-  remainingColdN: number;
-  hot: SealSplit;
-  /** Seal-line load left under firing, hot and settled: the running case. */
+  cold: BoreState;
+  hot: BoreState;
+  /** Hot, settled and fired: the running case. */
+  fired: BoreState;
+  /** Seal-line load left under firing, hot and settled. */
   remainingHotN: number;
+  /** How far firing lifts the head off the seal line, hot. */
+  liftMm: number;
+  /** MLS: bead compression left under firing (hot closure less the lift, past first contact); null without a bead. */
+  beadReserveMm: number | null;
   seatingMargin: number;
   operatingMargin: number;
-  /** min(seating, operating): the seal margin. */
+  /** min(seating, operating): the combustion seal margin. */
   sealMargin: number;
+  /** Body load left hot and fired over what seals coolant and oil. */
+  bodyMargin: number;
+  /** Largest seal-line load over its damage limit (EN 13555 QSmax, or the MLS stopper's), 0 when none applies. */
+  crushUtilization: number;
 }
 
 /** Bore clamps from per-stud loads: F_bore = Σ share·F_stud. */
@@ -26,44 +34,68 @@ export function boreClamps(p: Prepared, studLoads: ArrayLike<number>, out: Float
   return out;
 }
 
-function settle(cold: SealSplit, clampColdN: number, clampHotN: number, p: Prepared): SealSplit {
-  // ours: a rising clamp keeps loading along the split; a falling one unloads elastically
-  if (clampHotN >= clampColdN) return splitClamp(clampHotN, p.springs);
-  const line = Math.max(0, unloadSealLine(cold, clampColdN - clampHotN, p.springs));
-  const lineN = Math.min(line, clampHotN);
-  return { lineN, bodyN: clampHotN - lineN, marginalShare: cold.marginalShare, lineYielded: cold.lineYielded };
-}
-
 export function boreSeal(p: Prepared, clampColdN: number, clampHotN: number): BoreSeal {
-  const cold = splitClamp(clampColdN, p.springs);
-  const relief = p.reliefPerBoreN;
-  const remainingColdN = Math.max(0, unloadSealLine(cold, relief, p.springs));
-  const hot = settle(cold, clampColdN, clampHotN, p);
-  const remainingHotN = Math.max(0, unloadSealLine(hot, relief, p.springs));
-  // ASME VIII-1 App. 2 (flange values, conservative criterion): seating ≥ Wm2, contact under pressure ≥ Hp
-  const seatingMargin = cold.lineN / p.asme.seatingLoadN;
-  const operatingMargin = remainingHotN / p.asme.operatingContactN;
+  const cold = loadBore(p.paths, clampColdN);
+  const hot = moveBore(p.paths, cold, clampHotN);
+  // VDI 2230 Part 1 (load at the gasket plane): firing takes (1 − Φn)·FA off the gasket
+  const fired = moveBore(p.paths, hot, clampHotN - p.reliefPerBoreN);
+  const r = p.requirement;
+  // the seal's needs (EN 13555, or the ASME VIII-1 App. 2 stand-in): seating ≥ Wm2, contact under firing ≥ Hp
+  const seatingMargin = cold.lineN / r.seatingLoadN;
+  const operatingMargin = fired.lineN / r.operatingContactN;
+  let crushUtilization = 0;
+  if (r.maxLoadN !== null) crushUtilization = Math.max(cold.lineN, hot.lineN) / r.maxLoadN;
+  const stopper = p.paths.elements.findIndex((e) => e.kind === "stopper");
+  const bead = p.paths.elements.find((e) => e.kind === "bead");
+  if (stopper >= 0) {
+    // ours: the stopper's own load against its indentation limit on the head face
+    const e = p.paths.elements[stopper];
+    // a capped path carries its limit to the last bit of rounding: count that as reaching it
+    const at = (s: BoreState) => {
+      const u = elementForce(e, s.closureMm, s.set[stopper]) / e.limitN;
+      return u > 1 - 1e-9 ? 1 : u;
+    };
+    crushUtilization = Math.max(crushUtilization, at(cold), at(hot));
+  }
   return {
     cold,
-    remainingColdN,
     hot,
-    remainingHotN,
+    fired,
+    remainingHotN: fired.lineN,
+    liftMm: hot.closureMm - fired.closureMm,
+    // ours: the bead recovers as the head lifts; once the lift passes its compression it lets go
+    beadReserveMm: bead ? fired.closureMm - bead.engageMm : null,
     seatingMargin,
     operatingMargin,
     sealMargin: Math.min(seatingMargin, operatingMargin),
+    bodyMargin: p.bodyRequirementN > 0 ? fired.bodyN / p.bodyRequirementN : Infinity,
+    crushUtilization,
   };
 }
 
-/** Weakest seal margin over the bores for given per-bore cold and hot clamps (lean, no allocation). */
-export function weakestMargin(p: Prepared, coldClamps: Float64Array, hotClamps: Float64Array): { margin: number; bore: number } {
+/** Seal and body margins of one bore without the extra figures (for the scatter run's inner loop). */
+export function boreMargins(p: Prepared, clampColdN: number, clampHotN: number): { seal: number; body: number } {
+  const cold = loadBore(p.paths, clampColdN);
+  const hot = moveBore(p.paths, cold, clampHotN);
+  const fired = moveBore(p.paths, hot, clampHotN - p.reliefPerBoreN);
+  const r = p.requirement;
+  // as boreSeal: seating ≥ Wm2 at assembly, contact under firing ≥ Hp
+  const seal = Math.min(cold.lineN / r.seatingLoadN, fired.lineN / r.operatingContactN);
+  return { seal, body: p.bodyRequirementN > 0 ? fired.bodyN / p.bodyRequirementN : Infinity };
+}
+
+/** Weakest seal margin over the bores for given per-bore cold and hot clamps. */
+export function weakestMargin(p: Prepared, coldClamps: Float64Array, hotClamps: Float64Array): { margin: number; bore: number; bodyMargin: number } {
   let margin = Infinity;
+  let bodyMargin = Infinity;
   let bore = 0;
   for (let b = 0; b < p.cylinders; b++) {
-    const m = boreSeal(p, coldClamps[b], hotClamps[b]).sealMargin;
-    if (m < margin) {
-      margin = m;
+    const s = boreMargins(p, coldClamps[b], hotClamps[b]);
+    if (s.seal < margin) {
+      margin = s.seal;
       bore = b;
     }
+    if (s.body < bodyMargin) bodyMargin = s.body;
   }
-  return { margin, bore };
+  return { margin, bore, bodyMargin };
 }

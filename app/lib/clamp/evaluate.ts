@@ -1,13 +1,14 @@
 // One full estimate for a plan: evaluatePlan(). SI in, SI out.
+import { headSqueeze, sealGainPer10, torqueCeiling, type Ceiling, type HeadSqueeze, type SealGain } from "./ceiling";
 import { boreClamps, boreSeal } from "./cylinders";
+import { verdictFor, type Verdict, type WorkingState } from "./limits";
 import { hotSettledPreload, prepare, type Prepared } from "./model";
 import type { PlanInput } from "./schema";
-import type { AsmeRequirement } from "./seal";
+import type { SealRequirement } from "./seal";
 import { jointUnderLoad } from "./stiffness";
-import type { ThreadGeometry } from "./thread";
-import { preloadBand, tighteningStress, type PreloadBand, type TighteningStress } from "./torque";
-import { squeezeTorques } from "./squeeze";
-import { planWarnings } from "./warnings";
+import type { ThreadForm, ThreadGeometry } from "./thread";
+import { tighteningStress, type PreloadBand, type TighteningStress } from "./torque";
+import { planAssumptions, planWarnings } from "./warnings";
 import { peakPressureNote, SI_WORDING, type Wording } from "./wording";
 
 export interface CylinderEstimate {
@@ -15,73 +16,95 @@ export interface CylinderEstimate {
   cylinder: number;
   /** Σ of stud shares on this bore. */
   effectiveStuds: number;
+  /** Cold clamp at the nominal preload. */
   clampN: number;
   sealLineN: number;
   bodyN: number;
-  /** dF_r/dF at this clamp: 1 before the body touches, k_r/(k_r+k_b) after, 0 once the line flows. */
+  /** dF_line/dF at this clamp (loading further). */
   marginalSealLineShare: number;
-  sealLineYielded: boolean;
+  sealLineAtLimit: boolean;
   /** H = π/4·G²·p over the seal diameter. */
   separatingForceN: number;
-  /** (1 − C)·H: clamp that firing takes off this bore. */
+  /** (1 − Φn)·H: clamp that firing takes off this bore's gasket. */
   clampReliefN: number;
-  remainingSealLineColdN: number;
+  /** Heat and settling: hot, settled clamp minus cold clamp (negative when it is lost). */
+  heatAndSettlingN: number;
   clampHotSettledN: number;
   sealLineHotSettledN: number;
+  /** Seal-line load left hot, settled and fired (nominal preload). */
   remainingSealLineHotSettledN: number;
+  bodyFiredN: number;
+  /** How far firing lifts the head at the seal line. */
+  liftMm: number;
+  /** MLS: bead compression left under firing at the bottom of the band (null without a bead). */
+  beadReserveMm: number | null;
   requiredSeatingN: number;
   requiredOperatingN: number;
   seatingMargin: number;
   operatingMargin: number;
+  /** Seal margin at the nominal preload (shown beside, labelled as such). */
+  sealMarginNominal: number;
+  /** Seal margin at the bottom of the scatter band, hot and fired: the verdict's basis. */
   sealMargin: number;
-  sealMarginAtMinPreload: number;
+  /** Body load left hot and fired at the bottom of the band over what seals coolant and oil. */
+  bodyMargin: number;
 }
 
 export interface StudEstimate {
   label: string;
   preloadN: number;
+  /** Firing load summed over the bores the stud serves. */
   externalN: number;
-  /** Stud load under firing, Fi + C·P. */
+  /** The largest firing load it sees at once (one bore fires at a time). */
+  peakFiringN: number;
+  /** Stud load while its biggest bore fires, FV + Φn·FA. */
   firedLoadN: number;
-  /** Member clamp at this stud under firing, Fi − (1 − C)·P. */
+  /** Clamp left on the gasket and block at this stud under firing, FV − (1 − Φn)·FA. */
   memberFiredN: number;
-  /** External load per stud that would open the joint. */
+  /** External load per stud that would open the joint at the gasket. */
   separationLoadN: number;
   hotSettledPreloadN: number;
 }
 
 export interface PlanEstimate {
+  threadForm: ThreadForm;
   thread: ThreadGeometry;
-  tightening: {
-    torqueNm: number;
-    preload: PreloadBand;
-    torquePerPreloadMm: number;
-    equivalentNutFactor: number;
-  };
-  studStress: { nominal: TighteningStress; atMax: TighteningStress; limitMpa: number };
+  tightening: { torqueNm: number; preload: PreloadBand; torquePerPreloadMm: number; equivalentNutFactor: number; frictionDiameterMm: number };
+  studStress: { nominal: TighteningStress; atMax: TighteningStress; limitMpa: number; working: WorkingState };
   stiffness: {
     gripMm: number;
     studNPerMm: number;
     memberNPerMm: number;
     memberWilemanNPerMm: number;
     jointConstant: number;
+    /** Φn: the share of the firing load each stud takes (load at the gasket plane). */
+    loadFactor: number;
+    coneLimitMm: number;
+    studSpacingAssumed: boolean;
     layers: { name: string; thicknessMm: number; complianceMmPerN: number }[];
   };
   seal: {
     lineNPerMm: number;
     bodyNPerMm: number;
     gapMm: number;
-    contactShare: number;
     lineLimitN: number;
-    bodyTouchClampN: number;
-    lineYieldClampN: number;
-    asme: AsmeRequirement;
+    paths: string[];
+    requirement: SealRequirement;
+    deck: { thicknessMm: number; outerRadiusMm: number; assumed: boolean };
+    bodyRequirementN: number;
   };
   firing: { peakPressureMpa: number; estimated: boolean; note: string };
   studs: StudEstimate[];
   cylinders: CylinderEstimate[];
+  /** Weakest at the bottom of the band, hot and fired (the verdict's basis). */
   weakestCylinder: number;
   weakestMargin: number;
+  /** The same bore's margin at the nominal preload. */
+  weakestMarginNominal: number;
+  verdict: Verdict;
+  ceiling: Ceiling;
+  gain: SealGain;
+  squeeze: HeadSqueeze;
   head: {
     bearingAreaMm2: number;
     bearingPressureMpa: number;
@@ -89,17 +112,11 @@ export interface PlanEstimate {
     limitMpa: number;
     bearingUtilizationMax: number;
     compressionPerStudMm: number;
-    compressionMaxMm: number;
   };
-  squeeze: { marginalShareWeakest: number; yieldedCylinders: number[]; mostlySqueezing: boolean };
-  hotSettled: {
-    thermalChangeN: number;
-    embeddingMm: number;
-    embeddingLossN: number;
-    relaxationLossN: number;
-    preloadN: number;
-  };
+  hotSettled: { thermalChangeN: number; embeddingMm: number; embeddingLossN: number; relaxationLossN: number; preloadN: number };
   warnings: string[];
+  /** Where the estimate assumed a figure the plan did not give. */
+  assumptions: string[];
 }
 
 /** Nominal torque and preload for the plan's tightening target. */
@@ -118,22 +135,17 @@ export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefin
   const base = targetTorqueAndPreload(p);
   const torqueNm = torqueOverrideNm ?? base.torqueNm;
   const F = torqueOverrideNm === undefined ? base.preloadN : (torqueOverrideNm * 1000) / p.torquePerPreloadMm;
-  const band = preloadBand(F, p.tighteningFactor);
+  const { verdict, bands, working } = verdictFor(p, F, p.plan.targetMargin, wording);
+  const band = bands.band;
   const yieldMpa = p.plan.fastener.yieldMpa;
   const Fhs = hotSettledPreload(p, F);
-  const minRatio = band.minN / F;
 
-  const studLoads = new Float64Array(p.studCount).fill(F);
-  const hotLoads = new Float64Array(p.studCount).fill(Fhs);
-  const cold = boreClamps(p, studLoads, new Float64Array(p.cylinders));
-  const hot = boreClamps(p, hotLoads, new Float64Array(p.cylinders));
-  const FhsMin = hotSettledPreload(p, band.minN);
-
+  const cold = boreClamps(p, new Float64Array(p.studCount).fill(F), new Float64Array(p.cylinders));
+  const hot = boreClamps(p, new Float64Array(p.studCount).fill(Fhs), new Float64Array(p.cylinders));
   const cylinders: CylinderEstimate[] = [];
-  let weakest = 0;
   for (let b = 0; b < p.cylinders; b++) {
     const s = boreSeal(p, cold[b], hot[b]);
-    const sMin = boreSeal(p, cold[b] * minRatio, p.boreStudWeight[b] * FhsMin);
+    const min = bands.atMin[b];
     cylinders.push({
       cylinder: b + 1,
       effectiveStuds: p.boreStudWeight[b],
@@ -141,29 +153,33 @@ export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefin
       sealLineN: s.cold.lineN,
       bodyN: s.cold.bodyN,
       marginalSealLineShare: s.cold.marginalShare,
-      sealLineYielded: s.cold.lineYielded,
-      separatingForceN: p.asme.pressureForceN,
+      sealLineAtLimit: s.cold.lineAtLimit,
+      separatingForceN: p.requirement.pressureForceN,
       clampReliefN: p.reliefPerBoreN,
-      remainingSealLineColdN: s.remainingColdN,
+      heatAndSettlingN: hot[b] - cold[b],
       clampHotSettledN: hot[b],
       sealLineHotSettledN: s.hot.lineN,
       remainingSealLineHotSettledN: s.remainingHotN,
-      requiredSeatingN: p.asme.seatingLoadN,
-      requiredOperatingN: p.asme.operatingContactN,
-      seatingMargin: s.seatingMargin,
-      operatingMargin: s.operatingMargin,
-      sealMargin: s.sealMargin,
-      sealMarginAtMinPreload: sMin.sealMargin,
+      bodyFiredN: s.fired.bodyN,
+      liftMm: s.liftMm,
+      beadReserveMm: min.beadReserveMm,
+      requiredSeatingN: p.requirement.seatingLoadN,
+      requiredOperatingN: p.requirement.operatingContactN,
+      seatingMargin: min.seatingMargin,
+      operatingMargin: min.operatingMargin,
+      sealMarginNominal: s.sealMargin,
+      sealMargin: min.sealMargin,
+      bodyMargin: min.bodyMargin,
     });
-    if (s.sealMargin < cylinders[weakest].sealMargin) weakest = b;
   }
 
   const studs: StudEstimate[] = p.plan.studs.map((st, i) => {
-    const j = jointUnderLoad(F, p.studExternalN[i], p.C);
+    const j = jointUnderLoad(F, p.studPeakFiringN[i], p.phi);
     return {
       label: st.label ?? String(i + 1),
       preloadN: F,
       externalN: p.studExternalN[i],
+      peakFiringN: p.studPeakFiringN[i],
       firedLoadN: j.studLoadN,
       memberFiredN: j.memberLoadN,
       separationLoadN: j.separationLoadN,
@@ -171,8 +187,9 @@ export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefin
     };
   });
 
-  const w = cylinders[weakest];
+  const w = cylinders[bands.weakestAtMin];
   const estimate: PlanEstimate = {
+    threadForm: p.threadForm,
     thread: p.thread,
     tightening: {
       torqueNm,
@@ -180,11 +197,13 @@ export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefin
       torquePerPreloadMm: p.torquePerPreloadMm,
       // Shigley eq. 8-27 solved for K
       equivalentNutFactor: p.torquePerPreloadMm / p.thread.diameterMm,
+      frictionDiameterMm: p.torqueGeometry.bearingDiameterMm,
     },
     studStress: {
       nominal: tighteningStress(F, p.stressPerN, yieldMpa),
       atMax: tighteningStress(band.maxN, p.stressPerN, yieldMpa),
       limitMpa: p.studLimitMpa,
+      working,
     },
     stiffness: {
       gripMm: p.member.gripMm,
@@ -192,39 +211,40 @@ export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefin
       memberNPerMm: p.member.stiffnessNPerMm,
       memberWilemanNPerMm: p.wilemanNPerMm,
       jointConstant: p.C,
+      loadFactor: p.phi,
+      coneLimitMm: p.coneLimitMm,
+      studSpacingAssumed: p.studSpacingAssumed,
       layers: p.layers.map((l, i) => ({ name: l.name, thicknessMm: l.thicknessMm, complianceMmPerN: p.member.layerCompliance[i] })),
     },
     seal: {
-      lineNPerMm: p.springs.lineNPerMm,
-      bodyNPerMm: p.springs.bodyNPerMm,
-      gapMm: p.springs.gapMm,
-      contactShare: p.contactShare,
-      lineLimitN: p.springs.lineLimitN,
-      bodyTouchClampN: p.bodyTouchClampN,
-      lineYieldClampN: p.lineYieldClampN,
-      asme: p.asme,
+      lineNPerMm: p.lineNPerMm,
+      bodyNPerMm: p.bodyNPerMm,
+      gapMm: p.gapMm,
+      lineLimitN: p.lineLimitN,
+      paths: p.paths.elements.map((e) => e.kind),
+      requirement: p.requirement,
+      deck: p.deck,
+      bodyRequirementN: p.bodyRequirementN,
     },
     firing: { peakPressureMpa: p.peakPressureMpa, estimated: p.peakEstimated, note: peakPressureNote(p.plan.firing, wording) },
     studs,
     cylinders,
     weakestCylinder: w.cylinder,
     weakestMargin: w.sealMargin,
+    weakestMarginNominal: w.sealMarginNominal,
+    verdict,
+    ceiling: torqueCeiling(p, wording),
+    gain: sealGainPer10(p, torqueNm),
+    squeeze: headSqueeze(p, torqueNm),
     head: {
       bearingAreaMm2: p.bearingAreaMm2,
       // VDI 2230: surface pressure p = F/Ap
       bearingPressureMpa: F / p.bearingAreaMm2,
-      bearingPressureMaxMpa: band.maxN / p.bearingAreaMm2,
+      bearingPressureMaxMpa: working.studLoadN / p.bearingAreaMm2,
       limitMpa: p.plan.head.limitingSurfacePressureMpa,
-      bearingUtilizationMax: band.maxN / p.bearingAreaMm2 / p.plan.head.limitingSurfacePressureMpa,
+      bearingUtilizationMax: working.studLoadN / p.bearingAreaMm2 / p.plan.head.limitingSurfacePressureMpa,
       // Shigley §8-5: the head layer's share of the member compression, δ = F·c_head
       compressionPerStudMm: F * p.headComplianceMmPerN,
-      compressionMaxMm: band.maxN * p.headComplianceMmPerN,
-    },
-    squeeze: {
-      marginalShareWeakest: w.marginalSealLineShare,
-      yieldedCylinders: cylinders.filter((c) => c.sealLineYielded).map((c) => c.cylinder),
-      // ours: past the squeeze point (the first of its three limits), whatever the assembled share says
-      mostlySqueezing: torqueNm >= Math.min(...Object.values(squeezeTorques(p))),
     },
     hotSettled: {
       thermalChangeN: p.thermalChangeN,
@@ -234,6 +254,7 @@ export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefin
       preloadN: Fhs,
     },
     warnings: [],
+    assumptions: planAssumptions(p, wording),
   };
   estimate.warnings = planWarnings(p, estimate, wording);
   return estimate;

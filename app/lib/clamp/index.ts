@@ -4,18 +4,22 @@ export type { PlanInput, PlanInputRaw, Stud } from "./schema";
 export { defaultStudPattern } from "./pattern";
 export { evaluatePlan, type PlanEstimate, type CylinderEstimate, type StudEstimate } from "./evaluate";
 export { torqueSweep, type SweepOptions, type SweepPoint, type SweepResult } from "./sweep";
-export { squeezePoint, CAUSE_WORDS, type SqueezePoint, type SqueezeCause } from "./squeeze";
+export { torqueCeiling, sealGainPer10, headSqueeze, headSqueezeOnset, CEILING_WORDS, type Ceiling, type CeilingCause, type SealGain, type HeadSqueeze } from "./ceiling";
+export { verdictFor, bandSeal, workingState, rankChecks, TORSION_RELIEF, type Verdict, type LimitCheck, type CheckId, type Status, type WorkingState } from "./limits";
+export { REMEDIES, remediesFor } from "./warnings";
+export { TYPICAL_GASKETS, ANNEALED_COPPER_HARDNESS_MPA, type TypicalGasket, type GasketFamily } from "./gasket-families";
 export { SI_WORDING, type Wording } from "./wording";
 export { uncertainty, mulberry32, type UncertaintyOptions, type UncertaintyResult } from "./uncertainty";
 export { suggest, type SuggestOptions, type Suggestion } from "./suggest";
 export { prepare, type Prepared } from "./model";
-export { threadGeometry, unifiedStressAreaIn2, circleAreaMm2, type ThreadGeometry } from "./thread";
+export { threadGeometry, looksUnified, unifiedStressAreaIn2, circleAreaMm2, type ThreadGeometry } from "./thread";
 export {
   torqueForPreload,
   preloadFromTorque,
   torquePerPreloadMm,
   equivalentNutFactor,
   bearingDiameterMm,
+  frictionFaceOdMm,
   preloadBand,
   tighteningStressPerN,
   tighteningStress,
@@ -34,8 +38,9 @@ export {
   wilemanMemberStiffness,
   jointConstant,
   jointUnderLoad,
+  loadFactorAtInnerPlane,
   WILEMAN,
 } from "./stiffness";
-export { asmeRequirement, splitClamp, unloadSealLine, effectiveGapMm, sealLineStiffness, gasketBodyStiffness } from "./seal";
+export { asmeRequirement, sealRequirement, loadBore, moveBore, ringLoadPlateCompliance, effectiveGapMm, sealLineStiffness, gasketBodyStiffness, type SealRequirement, type BorePaths, type PathElement, type BoreState } from "./seal";
 export { thermalPreloadChangeN, embeddingMm, embeddingLossN, EMBEDDING_UM, type Roughness } from "./thermal";
 export { HANDBOOK_MATERIALS, LIMITING_SURFACE_PRESSURE_MPA, FASTENER_CLASSES, ASME_GASKET_FACTORS, type HandbookMaterial } from "./handbook";

@@ -1,16 +1,18 @@
 // Everything about a plan that does not depend on the torque, computed once and reused by the
-// evaluation, the sweep, the uncertainty run and the suggestion.
+// evaluation, the sweep, the uncertainty run, the ceiling and the suggestion.
 import { estimatePeakPressure } from "../chamber/peak-pressure";
+import { TYPICAL_GASKETS } from "./gasket-families";
 import type { PlanInput } from "./schema";
 import { gripLengthMm } from "./schema";
-import { asmeRequirement, effectiveGapMm, gasketBodyStiffness, sealBandAreaMm2, sealLineStiffness, type AsmeRequirement, type SealSprings } from "./seal";
-import { jointConstant, memberStiffness, studStiffness, wilemanMemberStiffness, type Layer, type MemberStiffness, type StudStiffness } from "./stiffness";
+import { effectiveGapMm, gasketBodyStiffness, sealBandAreaMm2, sealLineStiffness, sealRequirement, surroundCompliance, type BorePaths, type PathElement, type SealLineBuild, type SealRequirement } from "./seal";
+import { jointConstant, loadFactorAtInnerPlane, memberStiffness, studStiffness, wilemanMemberStiffness, type Layer, type MemberStiffness, type StudStiffness } from "./stiffness";
 import { embeddingLossN, embeddingMm, thermalPreloadChangeN } from "./thermal";
-import { circleAreaMm2, threadGeometry, type ThreadGeometry } from "./thread";
-import { bearingDiameterMm, TIGHTENING_FACTOR, tighteningStressPerN, torquePerPreloadMm, type Friction, type TorqueGeometry } from "./torque";
+import { circleAreaMm2, looksUnified, threadGeometry, type ThreadForm, type ThreadGeometry } from "./thread";
+import { bearingDiameterMm, frictionFaceOdMm, TIGHTENING_FACTOR, tighteningStressPerN, torquePerPreloadMm, type Friction, type TorqueGeometry } from "./torque";
 
 export interface Prepared {
   plan: PlanInput;
+  threadForm: ThreadForm;
   thread: ThreadGeometry;
   torqueGeometry: TorqueGeometry;
   friction: Friction;
@@ -20,20 +22,33 @@ export interface Prepared {
   stud: StudStiffness;
   member: MemberStiffness;
   layers: Layer[];
+  /** Limiting outside diameter of the pressure cones (the stud spacing). */
+  coneLimitMm: number;
+  studSpacingMm: number;
+  studSpacingAssumed: boolean;
   wilemanNPerMm: number;
+  /** Shigley's C (load under the nut), shown for comparison. */
   C: number;
+  /** VDI 2230 Φn for the gas load at the gasket plane: what each stud gains of its firing load. */
+  phi: number;
+  /** The smallest section A0 and its diameter. */
+  section: { areaMm2: number; diameterMm: number };
   stressPerN: { axial: number; torsion: number; equivalent: number };
   studLimitMpa: number;
   bearingAreaMm2: number;
   headComplianceMmPerN: number;
-  springs: SealSprings;
-  /** k_r/(k_r + k_b). */
-  contactShare: number;
-  /** Bore clamp at which the body starts to carry load (0 when it carries from the start). */
-  bodyTouchClampN: number;
-  /** Bore clamp at which the seal line reaches its indentation limit. */
-  lineYieldClampN: number;
-  asme: AsmeRequirement;
+  deck: { thicknessMm: number; outerRadiusMm: number; assumed: boolean };
+  paths: BorePaths;
+  gapMm: number;
+  /** Seal-path stiffness of the ring/wire/stopper with its surround (the first seal element). */
+  lineNPerMm: number;
+  bodyNPerMm: number;
+  lineLimitN: number;
+  requirement: SealRequirement;
+  /** Load the body must keep, hot and fired, to seal coolant and oil. */
+  bodyRequirementN: number;
+  bodySealPressureMpa: number;
+  bodySealAssumed: boolean;
   peakPressureMpa: number;
   peakEstimated: boolean;
   cylinders: number;
@@ -44,9 +59,13 @@ export interface Prepared {
   shareOf: Float64Array;
   /** Σ of shares per bore: the effective number of studs clamping it. */
   boreStudWeight: Float64Array;
-  /** Firing load each stud carries (external P per stud). */
+  /** Firing load each stud carries, summed over the bores it serves (Σ = cylinders × H). */
   studExternalN: Float64Array;
-  /** (1 − C)·H, clamp that firing takes off each bore. */
+  /** The largest firing load a stud sees at once: one bore fires at a time, so the biggest of its bores' shares. */
+  studPeakFiringN: Float64Array;
+  /** The largest of those over all studs (FA for the stud checks). */
+  peakFiringN: number;
+  /** (1 − Φn)·H, clamp that firing takes off each bore's gasket. */
   reliefPerBoreN: number;
   thermalChangeN: number;
   embedMm: number;
@@ -54,13 +73,35 @@ export interface Prepared {
   relaxationFraction: number;
 }
 
+/** Plate radius and thickness of the head's fire deck around a bore. */
+function deckPlate(plan: PlanInput): { thicknessMm: number; outerRadiusMm: number; assumed: boolean } {
+  const d = plan.fastener.diameterMm;
+  // assumption (ours): the stud circle lies 1.3·d outside the bore, never inside the seal band + d/2
+  const outerRadiusMm = Math.max(plan.engine.boreMm / 2 + 1.3 * d, plan.gasket.sealDiameterMm / 2 + plan.gasket.ringWidthMm / 2 + d / 2);
+  const given = plan.head.deckThicknessMm;
+  // assumption (ours): without a figure, a fire deck about an eighth of the bore thick
+  return { thicknessMm: given ?? plan.engine.boreMm / 8, outerRadiusMm, assumed: given === undefined };
+}
+
+/** Distance between neighbouring studs along a side, given or from the pattern. */
+function studSpacing(plan: PlanInput): { mm: number; assumed: boolean } {
+  if (plan.engine.studSpacingMm !== undefined) return { mm: plan.engine.studSpacingMm, assumed: false };
+  const banks = plan.engine.layout === "V" ? 2 : 1;
+  const perBank = plan.engine.cylinders / banks;
+  const perSide = plan.studs.length / (2 * banks);
+  // assumption (common practice): bores sit about 1.15 bores apart; the side's studs span the bank
+  const bankLength = perBank * 1.15 * plan.engine.boreMm;
+  return { mm: perSide > 1 ? bankLength / (perSide - 1) : bankLength, assumed: true };
+}
+
 export function prepare(plan: PlanInput): Prepared {
   const f = plan.fastener;
-  const thread = threadGeometry(f.diameterMm, f.pitchMm);
+  const threadForm: ThreadForm = f.threadForm ?? (looksUnified(f.diameterMm, f.pitchMm) ? "unified" : "iso");
+  const thread = threadGeometry(f.diameterMm, f.pitchMm, threadForm);
   const torqueGeometry: TorqueGeometry = {
     pitchMm: f.pitchMm,
     pitchDiameterMm: thread.pitchDiameterMm,
-    bearingDiameterMm: bearingDiameterMm(f.washerOdMm, f.washerHoleMm),
+    bearingDiameterMm: bearingDiameterMm(frictionFaceOdMm(f), f.washerHoleMm),
   };
   const friction = { thread: plan.tightening.threadFriction, bearing: plan.tightening.bearingFriction };
   const grip = gripLengthMm(plan);
@@ -77,16 +118,23 @@ export function prepare(plan: PlanInput): Prepared {
   if (f.washerThicknessMm > 0) layers.push({ name: "washer", thicknessMm: f.washerThicknessMm, modulusMpa: f.modulusMpa });
   layers.push({ name: "head", thicknessMm: plan.head.thicknessAtStudMm, modulusMpa: plan.head.modulusMpa });
   layers.push({ name: "gasket", thicknessMm: plan.gasket.compressedThicknessMm, modulusMpa: plan.gasket.bodyModulusMpa });
-  if (plan.block.clampedDepthMm > 0)
-    layers.push({ name: "block", thicknessMm: plan.block.clampedDepthMm, modulusMpa: plan.block.modulusMpa });
+  if (plan.block.clampedDepthMm > 0) layers.push({ name: "block", thicknessMm: plan.block.clampedDepthMm, modulusMpa: plan.block.modulusMpa });
+  const spacing = studSpacing(plan);
+  // VDI 2230 Part 1: the substitute body's outside diameter DA is limited by the neighbouring studs
+  const coneLimitMm = spacing.mm;
   // Shigley §8-5: cones from the washer face at the top and 1.5·d at the bottom, hole = d
-  const member = memberStiffness(layers, f.diameterMm, f.washerOdMm, 1.5 * f.diameterMm);
+  const member = memberStiffness(layers, f.diameterMm, f.washerOdMm, 1.5 * f.diameterMm, coneLimitMm);
   const headIndex = layers.findIndex((l) => l.name === "head");
   // Wileman fit with the stack's series-average modulus, as a cross-check only
   let tOverE = 0;
   for (const l of layers) tOverE += l.thicknessMm / l.modulusMpa;
   const wilemanNPerMm = wilemanMemberStiffness(grip / tOverE, f.diameterMm, grip, "general");
   const C = jointConstant(stud.stiffnessNPerMm, member.stiffnessNPerMm);
+  let below = 0;
+  layers.forEach((l, i) => {
+    if (l.name === "gasket" || l.name === "block") below += member.layerCompliance[i];
+  });
+  const phi = loadFactorAtInnerPlane(stud.complianceMmPerN, member.complianceMmPerN, below);
 
   // VDI 2230: A0 is the smallest section (stress area or reduced shank), d0 its diameter
   const reduced = f.reducedShankDiameterMm !== undefined && f.reducedShankDiameterMm < thread.stressDiameterMm;
@@ -96,42 +144,56 @@ export function prepare(plan: PlanInput): Prepared {
   const stressPerN = tighteningStressPerN(thread, section, friction.thread);
 
   const g = plan.gasket;
+  const typical = TYPICAL_GASKETS[g.type];
   const sleeve = plan.sleeve;
-  const landModulusMpa = sleeve.kind === "none" ? plan.block.modulusMpa : sleeve.modulusMpa;
-  const lineNPerMm = sealLineStiffness({
+  const deck = deckPlate(plan);
+  const build: SealLineBuild = {
     sealDiameterMm: g.sealDiameterMm,
     ringWidthMm: g.ringWidthMm,
     gasketThicknessMm: g.compressedThicknessMm,
     ringModulusMpa: g.ringModulusMpa,
     headModulusMpa: plan.head.modulusMpa,
-    landModulusMpa,
+    landModulusMpa: sleeve.kind === "none" ? plan.block.modulusMpa : sleeve.modulusMpa,
+    deck,
+    blockDeck:
+      sleeve.kind === "wet-flange" || sleeve.kind === "wet-mid"
+        ? undefined
+        : { thicknessMm: plan.block.deckThicknessMm ?? deck.thicknessMm, modulusMpa: plan.block.modulusMpa },
     sleeve:
       sleeve.kind === "wet-flange" || sleeve.kind === "wet-mid"
         ? { boreMm: plan.engine.boreMm, wallMm: sleeve.wallMm, supportLengthMm: sleeve.supportLengthMm, modulusMpa: sleeve.modulusMpa }
         : undefined,
-  });
+  };
+  const lineNPerMm = sealLineStiffness(build);
   const bodyNPerMm = gasketBodyStiffness(g.bodyModulusMpa, g.bodyAreaPerBoreMm2, g.compressedThicknessMm);
   const gapMm = effectiveGapMm(plan.sealing.sleeveProtrusionMm, plan.sealing.wireProjectionMm, plan.sealing.receiverGrooveDepthMm);
   const landYield = sleeve.kind === "none" ? plan.block.yieldMpa : sleeve.yieldMpa;
-  const softest = Math.min(g.sealLineYieldMpa, plan.head.yieldMpa ?? Infinity, landYield ?? Infinity);
-  // ours: indentation limit = a few × the softer material's yield, over the band area
-  const lineLimitN = plan.model.indentationFactor * softest * sealBandAreaMm2(g.sealDiameterMm, g.ringWidthMm);
-  const springs: SealSprings = { lineNPerMm, bodyNPerMm, gapMm, lineLimitN };
-  const contactShare = lineNPerMm / (lineNPerMm + bodyNPerMm);
-  const bodyTouchClampN = gapMm > 0 ? lineNPerMm * gapMm : 0;
-  let lineYieldClampN: number;
-  if (gapMm >= 0) {
-    const touch = lineNPerMm * gapMm;
-    lineYieldClampN = lineLimitN <= touch ? lineLimitN : touch + (lineLimitN - touch) / contactShare;
+  const softestYield = Math.min(g.sealLineYieldMpa, plan.head.yieldMpa ?? Infinity, landYield ?? Infinity);
+  // ours: contact pressure on the band is capped by the softer face's hardness (published for
+  // annealed copper); without a hardness, a few times the softest yield
+  const hardness =
+    g.sealLineHardnessMpa ?? (g.type === "solid-copper" ? typical.sealLineHardnessMpa : plan.model.indentationFactor * softestYield);
+  const lineLimitN = hardness * sealBandAreaMm2(g.sealDiameterMm, g.ringWidthMm);
+  const elements: PathElement[] = [];
+  if (g.type === "mls") {
+    // ours: the bead as a spring over its travel, then the stopper carries (MLS = bead + stopper)
+    const travel = g.beadTravelMm ?? (typical.beadTravelMm as number);
+    const beadLoad = (g.beadLoadNPerMm ?? (typical.beadLoadNPerMm as number)) * Math.PI * g.sealDiameterMm;
+    const beadK = beadLoad / travel;
+    // the bead in series with the same surround as the stopper (the deck bends under both)
+    const beadSeries = 1 / (1 / beadK + surroundCompliance(build));
+    elements.push({ kind: "bead", seal: true, kNPerMm: beadSeries, engageMm: Math.max(0, -gapMm), limitN: Infinity });
+    elements.push({ kind: "stopper", seal: true, kNPerMm: lineNPerMm, engageMm: Math.max(0, -gapMm) + travel, limitN: lineLimitN });
+    elements.push({ kind: "body", seal: false, kNPerMm: bodyNPerMm, engageMm: travel + Math.max(0, gapMm), limitN: Infinity });
   } else {
-    lineYieldClampN = bodyNPerMm * -gapMm + lineLimitN / contactShare;
+    elements.push({ kind: "ring", seal: true, kNPerMm: lineNPerMm, engageMm: Math.max(0, -gapMm), limitN: lineLimitN });
+    elements.push({ kind: "body", seal: false, kNPerMm: bodyNPerMm, engageMm: Math.max(0, gapMm), limitN: Infinity });
   }
 
   const firing = plan.firing;
-  let peakPressureMpa: number;
-  if (firing.mode === "entered") peakPressureMpa = firing.peakPressureMpa;
-  else peakPressureMpa = estimatePeakPressure(firing).peakMpa;
-  const asme = asmeRequirement(g.sealDiameterMm, g.ringWidthMm, peakPressureMpa, g.m, g.yMpa);
+  const peakPressureMpa = firing.mode === "entered" ? firing.peakPressureMpa : estimatePeakPressure(firing).peakMpa;
+  const requirement = sealRequirement(g, peakPressureMpa);
+  const bodySealPressureMpa = g.bodySealPressureMpa ?? typical.bodySealPressureMpa;
 
   // Shares in CSR form; firing load of each bore goes back to its studs in proportion to their shares
   const cylinders = plan.engine.cylinders;
@@ -153,12 +215,23 @@ export function prepare(plan: PlanInput): Prepared {
     }
   }
   start[studCount] = k;
-  const H = asme.pressureForceN;
+  const H = requirement.pressureForceN;
   const studExternalN = new Float64Array(studCount);
+  const studPeakFiringN = new Float64Array(studCount);
+  let peakFiringN = 0;
   for (let s = 0; s < studCount; s++) {
-    let p = 0;
-    for (let j = start[s]; j < start[s + 1]; j++) p += (H * shareOf[j]) / boreStudWeight[boreOf[j]];
-    studExternalN[s] = p;
+    let sum = 0;
+    let peak = 0;
+    for (let j = start[s]; j < start[s + 1]; j++) {
+      // ours: each bore's gas force goes back to its studs in proportion to their shares
+      const fromBore = (H * shareOf[j]) / boreStudWeight[boreOf[j]];
+      sum += fromBore;
+      // common practice: the cylinders fire one after another, never two neighbours at once
+      peak = Math.max(peak, fromBore);
+    }
+    studExternalN[s] = sum;
+    studPeakFiringN[s] = peak;
+    peakFiringN = Math.max(peakFiringN, peak);
   }
 
   const t = plan.temperatures;
@@ -179,14 +252,11 @@ export function prepare(plan: PlanInput): Prepared {
   });
   // VDI 2230 interfaces: two threads (nut, block), the nut face, and the inner joints
   // head/gasket, gasket/deck, and washer/head when there is a washer
-  const embedMm = embeddingMm(plan.surfaceRoughness, {
-    threads: 2,
-    bearings: 1,
-    innerInterfaces: 2 + (f.washerThicknessMm > 0 ? 1 : 0),
-  });
+  const embedMm = embeddingMm(plan.surfaceRoughness, { threads: 2, bearings: 1, innerInterfaces: 2 + (f.washerThicknessMm > 0 ? 1 : 0) });
 
   return {
     plan,
+    threadForm,
     thread,
     torqueGeometry,
     friction,
@@ -195,18 +265,28 @@ export function prepare(plan: PlanInput): Prepared {
     stud,
     member,
     layers,
+    coneLimitMm,
+    studSpacingMm: spacing.mm,
+    studSpacingAssumed: spacing.assumed,
     wilemanNPerMm,
     C,
+    phi,
+    section,
     stressPerN,
     studLimitMpa: plan.model.studLimitFraction * f.yieldMpa,
     // geometry: annulus under the washer π/4·(dw² − dh²)
     bearingAreaMm2: circleAreaMm2(f.washerOdMm) - circleAreaMm2(f.washerHoleMm),
     headComplianceMmPerN: headLayer,
-    springs,
-    contactShare,
-    bodyTouchClampN,
-    lineYieldClampN,
-    asme,
+    deck,
+    paths: { elements },
+    gapMm,
+    lineNPerMm,
+    bodyNPerMm,
+    lineLimitN,
+    requirement,
+    bodyRequirementN: bodySealPressureMpa * g.bodyAreaPerBoreMm2,
+    bodySealPressureMpa,
+    bodySealAssumed: g.bodySealPressureMpa === undefined,
     peakPressureMpa,
     peakEstimated: firing.mode === "estimated",
     cylinders,
@@ -216,8 +296,10 @@ export function prepare(plan: PlanInput): Prepared {
     shareOf,
     boreStudWeight,
     studExternalN,
-    // Shigley §8-7: the members lose (1 − C)·P
-    reliefPerBoreN: (1 - C) * H,
+    studPeakFiringN,
+    peakFiringN,
+    // VDI 2230 Part 1 (load introduced at the gasket plane): the gasket and block lose (1 − Φn)·FA
+    reliefPerBoreN: (1 - phi) * H,
     thermalChangeN,
     embedMm,
     embeddingLossN: embeddingLossN(embedMm, stud.complianceMmPerN, member.complianceMmPerN),
@@ -229,6 +311,12 @@ export function prepare(plan: PlanInput): Prepared {
 export function preloadForTorque(p: Prepared, torqueNm: number): number {
   // ISO 16047 long form, solved for F
   return (torqueNm * 1000) / p.torquePerPreloadMm;
+}
+
+/** Torque (N·m) for a nominal preload (N). */
+export function torqueForPreloadNm(p: Prepared, preloadN: number): number {
+  // ISO 16047 long form
+  return (preloadN * p.torquePerPreloadMm) / 1000;
 }
 
 /** Preload after heat, embedding and relaxation (never below zero). */

@@ -31,7 +31,8 @@ export const StudSchema = z.object({
           .lte(1, "A stud's share cannot exceed 1"),
       }),
     )
-    .min(1, "Every stud must serve at least one cylinder"),
+    .min(1, "Every stud must serve at least one cylinder")
+    .max(16, "A stud serves at most 16 cylinders"),
 });
 export type Stud = z.infer<typeof StudSchema>;
 
@@ -63,6 +64,8 @@ export const PlanInputSchema = z
         .lte(16, "At most 16 cylinders"),
       layout: z.enum(["inline", "V"]),
       boreMm: positive("Bore", 300),
+      /** Distance between neighbouring studs along a side (limits the pressure cones). */
+      studSpacingMm: positive("Stud spacing", 500).optional(),
     }),
     studs: z.array(StudSchema).min(1, "Add at least one stud").max(80, "At most 80 studs"),
     fastener: z.object({
@@ -79,6 +82,14 @@ export const PlanInputSchema = z
       washerOdMm: positive("Washer outer diameter", 100),
       washerHoleMm: positive("Washer hole", 60),
       washerThicknessMm: nonNegative("Washer thickness", 20).default(0),
+      /** "iso" (ISO 68-1 / 898-1) or "unified" (ASME B1.1); detected from the size when not given. */
+      threadForm: z.enum(["iso", "unified"]).optional(),
+      /** Outer diameter of the nut's (or stud head's) bearing face, where the bearing friction acts. */
+      nutFaceOdMm: positive("Nut face diameter", 100).optional(),
+      /** True when the washer turns with the nut, so friction acts at the washer's face instead. */
+      washerTurns: z.boolean().default(false),
+      /** Thread rolled after heat treatment (higher endurance limit, VDI 2230). */
+      rolledAfterHeatTreatment: z.boolean().default(false),
     }),
     tightening: z.object({
       target: z.discriminatedUnion("mode", [
@@ -98,6 +109,8 @@ export const PlanInputSchema = z
       limitingSurfacePressureMpa: positive("Head limiting surface pressure", 3000),
       /** Yield of the head face under the seal line, when it is the softer material. */
       yieldMpa: positive("Head yield", 3000).optional(),
+      /** Fire-deck thickness of the head between the stud bosses (the plate the seal line bends). */
+      deckThicknessMm: positive("Head deck thickness", 100).optional(),
     }),
     gasket: z.object({
       type: z.enum(GASKET_TYPES),
@@ -116,6 +129,20 @@ export const PlanInputSchema = z
       yMpa: positive("Seating stress y", 1000),
       /** Preload lost to gasket relaxation after heat cycles (copper), percent. */
       relaxationPercent: between("Gasket relaxation", 0, 50).default(0),
+      /** Indentation pressure (hardness) of the softer face the ring or wire bites into. */
+      sealLineHardnessMpa: positive("Seal-line hardness", 5000).optional(),
+      /** MLS: bead line load per mm of circumference when pressed down to the stopper. */
+      beadLoadNPerMm: positive("Bead load", 5000).optional(),
+      /** MLS: bead travel from first contact until the stopper carries. */
+      beadTravelMm: positive("Bead travel", 2).optional(),
+      /** EN 13555 Qmin(L): seating pressure for the tightness class wanted. */
+      seatingPressureMpa: positive("Seating pressure", 2000).optional(),
+      /** EN 13555 QSmin(L): least pressure in service that keeps that tightness. */
+      minServicePressureMpa: positive("Minimum service pressure", 2000).optional(),
+      /** EN 13555 QSmax: most pressure the seal line takes without damage. */
+      maxPressureMpa: positive("Maximum pressure", 5000).optional(),
+      /** Least pressure on the gasket body that still seals coolant and oil, hot and fired. */
+      bodySealPressureMpa: positive("Body seal pressure", 500).optional(),
     }),
     block: z.object({
       modulusMpa: positive("Block modulus", 400_000),
@@ -124,6 +151,10 @@ export const PlanInputSchema = z
       clampedDepthMm: nonNegative("Block depth to the engaged thread", 200).default(0),
       /** Yield of the deck land under the ring (no sleeve), when known. */
       yieldMpa: positive("Block yield", 3000).optional(),
+      /** Deck thickness of the block around the bore (a plate between the studs, like the head's). */
+      deckThicknessMm: positive("Block deck thickness", 100).optional(),
+      /** Shear strength of the block's internal thread material (gray iron has no yield point). */
+      shearStrengthMpa: positive("Block shear strength", 3000).optional(),
     }),
     sleeve: sleeveSchema.default({ kind: "none" }),
     sealing: z.object({
@@ -132,6 +163,8 @@ export const PlanInputSchema = z
       receiverGrooveDepthMm: nonNegative("Receiver groove depth", 2).default(0),
     }),
     surfaceRoughness: z.enum(ROUGHNESS).default("rz-10-40"),
+    /** Seal margin the shop wants at the bottom of the scatter band (a plan under it reads "thin"). */
+    targetMargin: between("Target margin", 1, 5).default(1.5),
     firing: z.discriminatedUnion("mode", [
       z.object({ mode: z.literal("entered"), peakPressureMpa: positive("Peak cylinder pressure", 100) }),
       z.object({
@@ -150,20 +183,16 @@ export const PlanInputSchema = z
     }),
     model: z
       .object({
-        /** Marginal seal-line share below which more torque "mostly squeezes the head". */
-        shareThreshold: between("Share threshold", 0.05, 0.95).default(0.5),
-        /** Indentation limit of the seal line as a multiple of the softer material's yield. */
+        /** "Mostly squeezes the head" once +10 % torque puts less than this share of the added clamp on the seal line under firing. */
+        squeezeGainThreshold: between("Squeeze gain threshold", 0.01, 0.5).default(0.1),
+        /** Indentation limit as a multiple of the softer face's yield, used only when no hardness is given. */
         indentationFactor: between("Indentation factor", 1, 6).default(3),
-        /** Equivalent stress limit as a fraction of yield (VDI's usual 0.9). */
+        /** Equivalent stress limit at assembly as a fraction of yield (VDI 2230's ν = 0.9). */
         studLimitFraction: between("Stud limit fraction", 0.5, 1).default(0.9),
-        /**
-         * "assembled": the squeeze share is dF_r/dF at assembly (DESIGN.md as written).
-         * "assembled-or-fired" (default): torque still counts as helping while it adds to the seal-line
-         * load left under firing, i.e. until the body carries enough to ride out the firing relief.
-         */
-        shareBasis: z.enum(["assembled", "assembled-or-fired"]).default("assembled-or-fired"),
+        /** Mean compressive strain of the head at the stud boss past which the head itself is being squeezed. */
+        headStrainLimit: between("Head strain limit", 0.0002, 0.01).default(0.002),
       })
-      .default({ shareThreshold: 0.5, indentationFactor: 3, studLimitFraction: 0.9, shareBasis: "assembled-or-fired" }),
+      .default({ squeezeGainThreshold: 0.1, indentationFactor: 3, studLimitFraction: 0.9, headStrainLimit: 0.002 }),
   })
   .superRefine((p, ctx) => checkPlan(p, ctx));
 
@@ -180,8 +209,17 @@ export function gripLengthMm(p: Pick<PlanInput, "fastener" | "head" | "gasket" |
   );
 }
 
+/** At most this many cross-field messages: a runaway input cannot build a runaway list. */
+export const MAX_PLAN_ISSUES = 50;
+
 function checkPlan(p: PlanInput, ctx: z.RefinementCtx): void {
-  const issue = (path: (string | number)[], message: string) => ctx.addIssue({ code: "custom", path, message });
+  // zod runs refinements even when fields failed their own checks: never loop over a count that did
+  const c = p.engine?.cylinders;
+  if (!Number.isInteger(c) || c < 1 || c > 16 || !Array.isArray(p.studs) || p.studs.length > 80) return;
+  let count = 0;
+  const issue = (path: (string | number)[], message: string) => {
+    if (count++ < MAX_PLAN_ISSUES) ctx.addIssue({ code: "custom", path, message });
+  };
   const f = p.fastener;
   if (f.pitchMm >= f.diameterMm) issue(["fastener", "pitchMm"], "Thread pitch must be smaller than the diameter");
   else if (f.pitchMm > f.diameterMm / 4)
@@ -212,6 +250,7 @@ function checkPlan(p: PlanInput, ctx: z.RefinementCtx): void {
     issue(["sleeve", "wallMm"], "The sleeve wall must be at least as wide as the ring that sits on it");
   const served = new Set<number>();
   p.studs.forEach((stud, i) => {
+    if (!Array.isArray(stud?.serves) || stud.serves.length > 16) return;
     const name = stud.label ? `stud ${stud.label}` : `stud ${i + 1}`;
     let sum = 0;
     const seen = new Set<number>();

@@ -106,20 +106,41 @@ export interface MemberStiffness {
 }
 
 /**
+ * Compliance of one layer's part in a cone, from depth a to b below the cone's start, where the
+ * cone's diameter is D0 at the start. Past the limiting outside diameter DA the cone becomes a
+ * cylinder of that diameter (VDI 2230 Part 1 substitute body: cone, then sleeve, when DA is small).
+ */
+function coneLayerCompliance(E: number, a: number, b: number, D0: number, hole: number, DA: number): number {
+  // Shigley §8-5: cone angle 30°, so diameter grows by 2·tan 30° = 1.155 per unit depth
+  const grow = 1.155;
+  const zLimit = (DA - D0) / grow;
+  let c = 0;
+  const coneEnd = Math.min(b, Math.max(a, zLimit));
+  if (coneEnd > a) c += 1 / frustumStiffness(E, coneEnd - a, D0 + grow * a, hole);
+  const sleeveStart = Math.max(a, Math.min(b, zLimit));
+  if (b > sleeveStart) {
+    // VDI 2230 Part 1: the part beyond DA as a sleeve, δ = l/(E·π/4·(DA² − dh²))
+    c += (b - sleeveStart) / (E * (circleAreaMm2(DA) - circleAreaMm2(hole)));
+  }
+  return c;
+}
+
+/**
  * Member stiffness of a stack with cones from both ends meeting at mid-grip.
- * Top cone starts at the washer face (topDiameterMm), bottom cone at 1.5·d.
+ * Top cone starts at the washer face (topDiameterMm), bottom cone at 1.5·d; neither grows past the
+ * limiting outside diameter (the stud spacing: a neighbour's cone takes the material beyond it).
  */
 export function memberStiffness(
   layers: readonly Layer[],
   holeMm: number,
   topDiameterMm: number,
   bottomDiameterMm: number,
+  limitDiameterMm: number = Infinity,
 ): MemberStiffness {
   let grip = 0;
   for (const l of layers) grip += l.thicknessMm;
   const mid = grip / 2;
-  // Shigley §8-5: cone angle 30°, so diameter grows by 2·tan 30° = 1.155 per unit depth
-  const grow = 1.155;
+  const DA = Math.max(limitDiameterMm, Math.max(topDiameterMm, bottomDiameterMm) * 1.0001);
   const layerCompliance: number[] = [];
   let z = 0;
   let total = 0;
@@ -127,18 +148,11 @@ export function memberStiffness(
     const z1 = z;
     const z2 = z + l.thicknessMm;
     let c = 0;
-    if (z1 < mid) {
-      // part of the layer in the upper cone, measured from the top
-      const a = z1;
-      const b = Math.min(z2, mid);
-      if (b > a) c += 1 / frustumStiffness(l.modulusMpa, b - a, topDiameterMm + grow * a, holeMm);
-    }
-    if (z2 > mid) {
-      // part of the layer in the lower cone, measured from the bottom
-      const a = grip - z2;
-      const b = grip - Math.max(z1, mid);
-      if (b > a) c += 1 / frustumStiffness(l.modulusMpa, b - a, bottomDiameterMm + grow * a, holeMm);
-    }
+    // part of the layer in the upper cone, measured from the top
+    if (z1 < mid && Math.min(z2, mid) > z1) c += coneLayerCompliance(l.modulusMpa, z1, Math.min(z2, mid), topDiameterMm, holeMm, DA);
+    // part of the layer in the lower cone, measured from the bottom
+    if (z2 > mid && grip - Math.max(z1, mid) > grip - z2)
+      c += coneLayerCompliance(l.modulusMpa, grip - z2, grip - Math.max(z1, mid), bottomDiameterMm, holeMm, DA);
     layerCompliance.push(c);
     total += c;
     z = z2;
@@ -181,13 +195,28 @@ export interface JointUnderLoad {
   separationLoadN: number;
 }
 
-export function jointUnderLoad(preloadN: number, externalN: number, C: number): JointUnderLoad {
+/**
+ * Stud and clamped-part loads under an external load P per stud. `phi` is the load factor: Shigley's
+ * C when P enters under the nut and at the thread (n = 1), VDI 2230's Φn = n·C when it enters inside.
+ */
+export function jointUnderLoad(preloadN: number, externalN: number, phi: number): JointUnderLoad {
   return {
-    // Shigley §8-7: Fb = Fi + C·P
-    studLoadN: preloadN + C * externalN,
-    // Shigley §8-7: Fm = Fi − (1 − C)·P
-    memberLoadN: preloadN - (1 - C) * externalN,
-    // Shigley §8-7: P0 = Fi/(1 − C)
-    separationLoadN: preloadN / (1 - C),
+    // Shigley §8-7 / VDI 2230 Part 1: FS = FV + Φ·FA
+    studLoadN: preloadN + phi * externalN,
+    // Shigley §8-7 / VDI 2230 Part 1: FK = FV − (1 − Φ)·FA
+    memberLoadN: preloadN - (1 - phi) * externalN,
+    // Shigley §8-7 / VDI 2230 Part 1: opening at FA = FV/(1 − Φ)
+    separationLoadN: preloadN / (1 - phi),
   };
+}
+
+/**
+ * Load factor Φn for a load that enters at an inner plane of the joint (VDI 2230 Part 1, load
+ * introduction factor n; REFERENCES §4). The gas load acts on the fire deck at the gasket plane: the
+ * head sits on the stud's side, and only the parts below the plane (gasket, block, sleeve) are relieved.
+ * From the two compatibility conditions: Φn = δ_below/(δS + δP), so those parts lose (1 − Φn)·FA.
+ */
+export function loadFactorAtInnerPlane(studComplianceMmPerN: number, memberComplianceMmPerN: number, belowComplianceMmPerN: number): number {
+  // VDI 2230 Part 1: Φn = n·δP/(δS + δP) with n·δP = δ of the parts between the load planes
+  return belowComplianceMmPerN / (studComplianceMmPerN + memberComplianceMmPerN);
 }

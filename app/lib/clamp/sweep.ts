@@ -1,35 +1,39 @@
-// The estimate over a torque range, for charts.
-import { boreClamps, boreSeal } from "./cylinders";
+// The estimate over a torque range, for charts: margins at the bottom of the band and nominal, the
+// stud and washer limits at the top, and what +10 % torque buys at the seal line.
+import { headSqueeze, headSqueezeOnset, torqueCeiling, type Ceiling } from "./ceiling";
+import { weakestAtMin, workingState } from "./limits";
+import { preloadBand } from "./torque";
 import { hotSettledPreload, prepare, type Prepared } from "./model";
 import type { PlanInput } from "./schema";
-import { squeezePoint, type SqueezePoint } from "./squeeze";
-import { preloadBand } from "./torque";
+import { boreMargins } from "./cylinders";
+import { SI_WORDING, type Wording } from "./wording";
 
 export interface SweepPoint {
   torqueNm: number;
   preloadMinN: number;
   preloadN: number;
   preloadMaxN: number;
-  /** σred/yield at the top of the band. */
-  studUtilizationMax: number;
-  bearingPressureMaxMpa: number;
-  headCompressionMm: number;
-  /** Per cylinder, same order as the plan. */
-  clampN: number[];
-  sealLineN: number[];
-  remainingSealLineN: number[];
-  sealMargin: number[];
-  weakestCylinder: number;
+  /** Weakest seal margin at the bottom of the band, hot and fired (the verdict's basis). */
   weakestMargin: number;
-  marginalShareWeakest: number;
+  weakestCylinder: number;
+  /** The same at the nominal preload. */
+  weakestMarginNominal: number;
+  /** σred/yield at the top of the band while tightened. */
+  studUtilizationMax: number;
+  /** σred,B/yield hot and fired at the top of the band. */
+  studWorkingUtilization: number;
+  bearingUtilizationMax: number;
+  /** Share of the clamp +10 % torque adds that stays on the weakest seal line under firing. */
+  gainShare: number;
+  headStrain: number;
+  mostlySqueezing: boolean;
 }
 
 export interface SweepResult {
   points: SweepPoint[];
-  /** First limit in the range, or null when none is reached by toNm. */
-  squeezePoint: SqueezePoint | null;
-  /** The share threshold used (documented default 0.5). */
-  shareThreshold: number;
+  ceiling: Ceiling;
+  /** Lowest torque where more torque mostly squeezes the head, if within twice the range's end. */
+  headSqueezeOnsetNm: number | null;
 }
 
 export interface SweepOptions {
@@ -38,62 +42,44 @@ export interface SweepOptions {
   points: number;
 }
 
-export function torqueSweep(input: PlanInput, options: SweepOptions): SweepResult {
-  return sweepPrepared(prepare(input), options);
+export function torqueSweep(input: PlanInput, options: SweepOptions, wording: Wording = SI_WORDING): SweepResult {
+  return sweepPrepared(prepare(input), options, wording);
 }
 
-export function sweepPrepared(p: Prepared, o: SweepOptions): SweepResult {
+export function sweepPrepared(p: Prepared, o: SweepOptions, wording: Wording = SI_WORDING): SweepResult {
   const n = Math.max(2, Math.floor(o.points));
   const from = Math.max(0, o.fromNm);
   const to = Math.max(from, o.toNm);
-  const studLoads = new Float64Array(p.studCount);
-  const hotLoads = new Float64Array(p.studCount);
-  const cold = new Float64Array(p.cylinders);
-  const hot = new Float64Array(p.cylinders);
   const points: SweepPoint[] = [];
   for (let i = 0; i < n; i++) {
     const T = from + ((to - from) * i) / (n - 1);
     // ISO 16047 long form solved for F
     const F = (T * 1000) / p.torquePerPreloadMm;
     const band = preloadBand(F, p.tighteningFactor);
-    studLoads.fill(F);
-    hotLoads.fill(hotSettledPreload(p, F));
-    boreClamps(p, studLoads, cold);
-    boreClamps(p, hotLoads, hot);
-    const clampN: number[] = new Array(p.cylinders);
-    const sealLineN: number[] = new Array(p.cylinders);
-    const remaining: number[] = new Array(p.cylinders);
-    const margin: number[] = new Array(p.cylinders);
-    let wb = 0;
-    let share = 1;
+    const weak = weakestAtMin(p, F);
+    const work = workingState(p, band.maxN);
+    let nominal = Infinity;
+    const Fhs = hotSettledPreload(p, F);
     for (let b = 0; b < p.cylinders; b++) {
-      const s = boreSeal(p, cold[b], hot[b]);
-      clampN[b] = cold[b];
-      sealLineN[b] = s.cold.lineN;
-      remaining[b] = s.remainingHotN;
-      margin[b] = s.sealMargin;
-      if (b === 0 || s.sealMargin < margin[wb]) {
-        wb = b;
-        share = s.cold.marginalShare;
-      }
+      const w = p.boreStudWeight[b];
+      nominal = Math.min(nominal, boreMargins(p, w * F, w * Fhs).seal);
     }
+    const sq = headSqueeze(p, T);
     points.push({
       torqueNm: T,
       preloadMinN: band.minN,
       preloadN: F,
       preloadMaxN: band.maxN,
+      weakestMargin: weak.margin,
+      weakestCylinder: weak.bore + 1,
+      weakestMarginNominal: nominal,
       studUtilizationMax: (p.stressPerN.equivalent * band.maxN) / p.plan.fastener.yieldMpa,
-      bearingPressureMaxMpa: band.maxN / p.bearingAreaMm2,
-      headCompressionMm: F * p.headComplianceMmPerN,
-      clampN,
-      sealLineN,
-      remainingSealLineN: remaining,
-      sealMargin: margin,
-      weakestCylinder: wb + 1,
-      weakestMargin: margin[wb],
-      marginalShareWeakest: share,
+      studWorkingUtilization: work.utilization,
+      bearingUtilizationMax: work.studLoadN / p.bearingAreaMm2 / p.plan.head.limitingSurfacePressureMpa,
+      gainShare: sq.gain.share,
+      headStrain: sq.headStrain,
+      mostlySqueezing: sq.mostlySqueezing,
     });
   }
-  const sq = squeezePoint(p);
-  return { points, squeezePoint: sq.torqueNm <= to ? sq : null, shareThreshold: p.plan.model.shareThreshold };
+  return { points, ceiling: torqueCeiling(p, wording), headSqueezeOnsetNm: headSqueezeOnset(p, Math.max(to, 1) * 2) };
 }

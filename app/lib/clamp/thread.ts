@@ -25,19 +25,33 @@ export function circleAreaMm2(diameterMm: number): number {
   return QUARTER_PI * diameterMm * diameterMm;
 }
 
-export function threadGeometry(diameterMm: number, pitchMm: number): ThreadGeometry {
+export type ThreadForm = "iso" | "unified";
+
+/** A unified inch size: the diameter a whole number of 1/64 in and the pitch 1/n in for a whole n. */
+export function looksUnified(diameterMm: number, pitchMm: number): boolean {
+  const sixtyFourths = (diameterMm / 25.4) * 64;
+  const tpi = 25.4 / pitchMm;
+  return Math.abs(sixtyFourths - Math.round(sixtyFourths)) < 0.02 && Math.abs(tpi - Math.round(tpi)) < 0.002;
+}
+
+export function threadGeometry(diameterMm: number, pitchMm: number, form: ThreadForm = "iso"): ThreadGeometry {
   // ISO 68-1 / ASME B1.1 basic profile: d2 = d − 0.649519·P
   const pitchDiameterMm = diameterMm - 0.649519 * pitchMm;
   // ISO 68-1 basic profile, minor diameter for stress purposes: d3 = d − 1.226869·P
   const minorDiameterMm = diameterMm - 1.226869 * pitchMm;
-  const stressDiameterMm = (pitchDiameterMm + minorDiameterMm) / 2;
+  const stressDiameterMm =
+    form === "unified"
+      ? // ASME B1.1: At = 0.7854·(d − 0.9743/n)², i.e. a stress diameter d − 0.9743·P
+        diameterMm - 0.9743 * pitchMm
+      : // ISO 898-1: ds = (d2 + d3)/2
+        (pitchDiameterMm + minorDiameterMm) / 2;
   return {
     diameterMm,
     pitchMm,
     pitchDiameterMm,
     minorDiameterMm,
     stressDiameterMm,
-    // ISO 898-1: As = π/4·((d2 + d3)/2)²
+    // ISO 898-1 / ASME B1.1: As = π/4·ds²
     stressAreaMm2: circleAreaMm2(stressDiameterMm),
     minorAreaMm2: circleAreaMm2(minorDiameterMm),
     nominalAreaMm2: circleAreaMm2(diameterMm),

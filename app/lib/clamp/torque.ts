@@ -17,10 +17,20 @@ export interface Friction {
 
 const COS_30 = Math.cos(Math.PI / 6);
 
-/** Mean bearing diameter of the nut face. */
-export function bearingDiameterMm(washerOdMm: number, washerHoleMm: number): number {
+/** Mean bearing diameter of the face that turns: DKm = (dw + dh)/2. */
+export function bearingDiameterMm(faceOdMm: number, holeMm: number): number {
   // ISO 16047 / VDI 2230 Part 1: DKm = (dw + dh)/2
-  return (washerOdMm + washerHoleMm) / 2;
+  return (faceOdMm + holeMm) / 2;
+}
+
+/**
+ * Outer diameter of the face where bearing friction acts: the nut's own face on a washer that stays
+ * put, the washer's face when it turns with the nut. Without a nut face figure we take 1.45·d, about
+ * a hex nut's bearing-face diameter (ISO 4032 dw,min ≈ 1.4–1.5·d, from memory), never past the washer.
+ */
+export function frictionFaceOdMm(f: { diameterMm: number; washerOdMm: number; nutFaceOdMm?: number; washerTurns: boolean }): number {
+  if (f.washerTurns) return f.washerOdMm;
+  return Math.min(f.washerOdMm, f.nutFaceOdMm ?? 1.45 * f.diameterMm);
 }
 
 /** Torque per unit preload, in N·mm per N (i.e. mm): the bracket of the long form. */
@@ -98,6 +108,14 @@ export interface TighteningStress {
   utilization: number;
 }
 
+/**
+ * VDI 2230 Part 1's FMzul takes the tightening torsion on the plastic section modulus π·d0³/12 (the
+ * factor 3/2 in its formula); REFERENCES §2 writes the elastic π·d0³/16. The VDI tables of assembly
+ * preload (fine threads, 2001/2003 edition, tests/unit/lib/clamp/references.test.ts) follow the former
+ * to 0.2 %, so the tightening check uses it; the working state keeps the elastic τ (with kτ).
+ */
+export const PLASTIC_TORSION_FACTOR = 12 / 16;
+
 /** Equivalent stress per newton of preload while tightening (linear in F). */
 export function tighteningStressPerN(
   thread: ThreadGeometry,
@@ -110,11 +128,12 @@ export function tighteningStressPerN(
   const threadTorquePerN =
     (thread.pitchDiameterMm / 2) *
     (thread.pitchMm / (Math.PI * thread.pitchDiameterMm) + 1.155 * threadFriction);
-  // VDI 2230: τ = MG/Wp, Wp = π·d0³/16
+  // VDI 2230: τ = MG/Wp, Wp = π·d0³/16 (elastic)
   const wp = (Math.PI * section.diameterMm ** 3) / 16;
   const torsion = threadTorquePerN / wp;
-  // VDI 2230 (von Mises): σred = √(σ² + 3τ²)
-  const equivalent = Math.sqrt(axial * axial + 3 * torsion * torsion);
+  // VDI 2230 Part 1 (FMzul, von Mises): σred = √(σ² + 3·(3/4·τ)²), the torsion on π·d0³/12
+  const t = PLASTIC_TORSION_FACTOR * torsion;
+  const equivalent = Math.sqrt(axial * axial + 3 * t * t);
   return { axial, torsion, equivalent };
 }
 

@@ -1,9 +1,11 @@
-// Friction is never known exactly: sample it, per stud, and see how often the weakest bore
-// falls below a seal margin of 1.
+// Tightening is never exact: sample each stud's preload from the method's scatter band (and the
+// friction that goes with it), and see how often the weakest bore falls below a seal margin of 1 or a
+// stud passes its limit.
 import { boreClamps, weakestMargin } from "./cylinders";
+import { workingState } from "./limits";
 import { hotSettledPreload, prepare, type Prepared } from "./model";
 import type { PlanInput } from "./schema";
-import { torquePerPreloadMm } from "./torque";
+import { PLASTIC_TORSION_FACTOR } from "./torque";
 
 /** mulberry32: a tiny deterministic 32-bit generator (public-domain construction). */
 export function mulberry32(seed: number): () => number {
@@ -27,16 +29,18 @@ export function normal(rand: () => number): number {
 export interface UncertaintyOptions {
   samples: number;
   seed: number;
-  /** Coefficient of variation of each friction value (default 0.10). */
+  /** Coefficient of variation of thread friction where it varies on its own (stretch-measured plans). */
   frictionCv?: number;
 }
 
 export interface UncertaintyResult {
   samples: number;
   probabilityMarginBelowOne: number;
-  /** Chance that a stud at its sampled preload passes the equivalent-stress limit. */
+  /** Chance that some stud passes its tightening limit (ν·Rp0.2) or yields hot and fired. */
   probabilityStudOverLimit: number;
   weakestMargin: { p5: number; p50: number; p95: number };
+  /** Sampled stud preloads over the nominal: 2.5th and 97.5th percentiles (the band is ±2σ). */
+  preloadSpread: { p2_5: number; p97_5: number };
 }
 
 export function uncertainty(input: PlanInput, options: UncertaintyOptions): UncertaintyResult {
@@ -51,41 +55,64 @@ function percentile(sorted: Float64Array, q: number): number {
   return sorted[i] + (sorted[j] - sorted[i]) * (x - i);
 }
 
+const clamp3 = (z: number) => (z > 3 ? 3 : z < -3 ? -3 : z);
+
 export function uncertaintyPrepared(p: Prepared, o: UncertaintyOptions): UncertaintyResult {
   const n = Math.max(1, Math.floor(o.samples));
-  // capped at 0.3 so that a −3σ friction stays positive
-  const cv = Math.min(0.3, Math.max(0, o.frictionCv ?? 0.1));
   const rand = mulberry32(o.seed);
   const target = p.plan.tightening.target;
   const g = p.torqueGeometry;
-  const mu = p.friction;
-  // ours: a preload-controlled method's band taken as ±2 standard deviations
-  const bandHalf = (p.tighteningFactor - 1) / (p.tighteningFactor + 1);
+  const F0 = target.mode === "torque" ? (target.torqueNm * 1000) / p.torquePerPreloadMm : target.preloadN;
+  // VDI 2230: the band F·(1 ± (αA − 1)/(αA + 1)); ours: the band taken as ±2 standard deviations
+  const sigma = (p.tighteningFactor - 1) / (p.tighteningFactor + 1) / 2;
+  const cv = Math.min(0.3, Math.max(0, o.frictionCv ?? 0.1));
+  const torqueControlled = p.plan.tightening.method !== "stretch-measured" && target.mode === "torque";
+  // ISO 16047 bracket split into the pitch part and the friction part (which scales with μ)
+  const pitchPart = g.pitchMm / (2 * Math.PI);
+  const frictionPart = p.torquePerPreloadMm - pitchPart;
   const studLoads = new Float64Array(p.studCount);
   const hotLoads = new Float64Array(p.studCount);
   const cold = new Float64Array(p.cylinders);
   const hot = new Float64Array(p.cylinders);
   const margins = new Float64Array(n);
-  const limitPerN = p.studLimitMpa;
+  const spread = new Float64Array(n);
+  const limitAssembly = p.studLimitMpa;
+  const { axial, torsion } = p.stressPerN;
+  const base = p.thread.pitchMm / (Math.PI * p.thread.pitchDiameterMm);
+  // the stud preload at which the working state reaches yield (rises with preload: bisection once)
+  let lo = 0;
+  let hi = F0 * 4;
+  if (workingState(p, hi).utilization < 1) lo = hi;
+  else
+    for (let i = 0; i < 50; i++) {
+      const mid = (lo + hi) / 2;
+      if (workingState(p, mid).utilization >= 1) hi = mid;
+      else lo = mid;
+    }
+  const workingLimitN = lo === hi ? Infinity : hi;
   let below = 0;
   let over = 0;
+  let k = 0;
   for (let i = 0; i < n; i++) {
     let studOver = false;
     for (let s = 0; s < p.studCount; s++) {
-      // ours: each friction value normal about its entered value, cut at ±3 standard deviations
-      const muG = mu.thread * (1 + cv * clamp3(normal(rand)));
-      let F: number;
-      if (target.mode === "torque") {
-        const muK = mu.bearing * (1 + cv * clamp3(normal(rand)));
-        // ISO 16047 long form with the sampled friction
-        F = (target.torqueNm * 1000) / torquePerPreloadMm(g, { thread: muG, bearing: muK });
-      } else {
-        F = target.preloadN * (1 + (bandHalf / 2) * clamp3(normal(rand)));
-      }
+      const F = F0 * (1 + sigma * clamp3(normal(rand)));
+      // the friction that gives this preload at this torque (torque-controlled), else friction on its own
+      const scale = torqueControlled ? Math.max(0.05, ((p.torquePerPreloadMm * F0) / F - pitchPart) / frictionPart) : 1 + cv * clamp3(normal(rand));
+      const muG = p.friction.thread * scale;
+      // VDI 2230: MG ∝ (P/(π·d2) + 1.155·μG); rescale the torsion from the entered μG
+      const tau = (torsion * (base + 1.155 * muG)) / (base + 1.155 * p.friction.thread);
+      // VDI 2230 FMzul (von Mises, torsion on π·d0³/12): σred = √(σ² + 3·(¾τ)²) per newton, times this preload
+      const tp = PLASTIC_TORSION_FACTOR * tau;
+      if (Math.sqrt(axial * axial + 3 * tp * tp) * F > limitAssembly) studOver = true;
       studLoads[s] = F;
       hotLoads[s] = hotSettledPreload(p, F);
-      // VDI 2230: σred with this stud's thread friction (torsion scales with μG)
-      if (equivalentPerN(p, muG) * F > limitPerN) studOver = true;
+      if (s === 0) spread[k++] = F / F0;
+    }
+    if (!studOver) {
+      let maxF = 0;
+      for (let s = 0; s < p.studCount; s++) maxF = Math.max(maxF, studLoads[s]);
+      if (maxF > workingLimitN) studOver = true;
     }
     boreClamps(p, studLoads, cold);
     boreClamps(p, hotLoads, hot);
@@ -95,22 +122,12 @@ export function uncertaintyPrepared(p: Prepared, o: UncertaintyOptions): Uncerta
     if (studOver) over++;
   }
   margins.sort();
+  spread.sort();
   return {
     samples: n,
     probabilityMarginBelowOne: below / n,
     probabilityStudOverLimit: over / n,
     weakestMargin: { p5: percentile(margins, 0.05), p50: percentile(margins, 0.5), p95: percentile(margins, 0.95) },
+    preloadSpread: { p2_5: percentile(spread, 0.025), p97_5: percentile(spread, 0.975) },
   };
-}
-
-const clamp3 = (z: number) => (z > 3 ? 3 : z < -3 ? -3 : z);
-
-/** σred per newton for another thread friction (the tension part is unchanged). */
-function equivalentPerN(p: Prepared, muG: number): number {
-  const { axial, torsion } = p.stressPerN;
-  const t = p.thread;
-  // VDI 2230: MG ∝ (P/(π·d2) + 1.155·μG); rescale the torsion from the entered μG
-  const base = t.pitchMm / (Math.PI * t.pitchDiameterMm);
-  const tau = (torsion * (base + 1.155 * muG)) / (base + 1.155 * p.friction.thread);
-  return Math.sqrt(axial * axial + 3 * tau * tau);
 }

@@ -2,7 +2,8 @@
 import { defaultStudPattern } from "../clamp/pattern";
 import type { Stud } from "../clamp/schema";
 import { EngineSchema, type EngineInput } from "./schema";
-import { fromDisplay, inputValue, type Quantity, type Units } from "./units";
+import { decimalPoint } from "../units/decimal-comma";
+import { inputValue, readEngineQuantity, type Quantity, type Units } from "./units";
 
 /** Numeric fields of the form and the quantity each is typed in (null: a plain number). */
 export const NUMBER_FIELDS = {
@@ -43,11 +44,11 @@ export interface EngineFormValues {
   studsPerSide: string;
 }
 
-/** A typed number: blank → undefined, anything unreadable → NaN (the schema words both). */
+/** A typed number: blank → undefined, anything unreadable → NaN (the schema words both). Decimal commas are read. */
 export function readNumber(raw: string | undefined): number | undefined {
   const s = (raw ?? "").trim();
   if (s === "") return undefined;
-  return Number(s);
+  return Number(decimalPoint(s));
 }
 
 /** "1 2", "1, 2" or "1;2" → numbers. */
@@ -99,8 +100,9 @@ export function formToRaw(form: Record<string, string>, studs: StudRow[], units:
   for (const f of TEXT_FIELDS) raw[f] = form[f] ?? "";
   for (const f of ID_FIELDS) raw[f] = readNumber(form[f]);
   for (const [f, q] of Object.entries(NUMBER_FIELDS)) {
-    const n = readNumber(form[f]);
-    raw[f] = n === undefined || q === null ? n : fromDisplay(q, n, units);
+    const text = (form[f] ?? "").trim();
+    // a unit typed after the number wins over the field's ("3.386 in", "20 psi boost")
+    raw[f] = text === "" ? undefined : q === null ? readNumber(text) : readEngineQuantity(text, q, units);
   }
   // A sleeve's fields mean nothing without a sleeve.
   if (raw.sleeveKind === "none") {

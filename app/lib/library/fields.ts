@@ -21,10 +21,17 @@ export const MATERIAL_NUMBER_FIELDS: NumberField[] = [
   { name: "expansionUmPerMC", label: "Expansion coefficient", quantity: "expansion" },
   {
     name: "limitingSurfacePressureMpa",
-    label: "Limiting surface pressure",
+    label: "Washer bearing limit",
     quantity: "stress",
     optional: true,
-    hint: "What the face can carry under a washer before it sinks in.",
+    hint: "What the face can carry under a washer before it sinks in (the limiting surface pressure of VDI 2230).",
+  },
+  {
+    name: "shearStrengthMpa",
+    label: "Shear strength",
+    quantity: "stress",
+    optional: true,
+    hint: "For the thread in a block of this material. Without it the yield ÷ √3 is used; gray iron has no yield, so give it here.",
   },
 ];
 
@@ -38,6 +45,13 @@ export const FASTENER_GEOMETRY_FIELDS: NumberField[] = [
   { name: "washerOdMm", label: "Washer outer diameter", quantity: "length" },
   { name: "washerHoleMm", label: "Washer hole", quantity: "length" },
   { name: "washerThicknessMm", label: "Washer thickness", quantity: "length" },
+  {
+    name: "nutFaceOdMm",
+    label: "Nut face diameter",
+    quantity: "length",
+    optional: true,
+    hint: "Outer diameter of the nut's bearing face, where the washer-face friction acts. Empty: 1.45 × the stud diameter.",
+  },
 ];
 
 export const FASTENER_MAKER_FIELDS: NumberField[] = [
@@ -46,8 +60,8 @@ export const FASTENER_MAKER_FIELDS: NumberField[] = [
 ];
 
 export const FASTENER_FRICTION_FIELDS: NumberField[] = [
-  { name: "threadFriction", label: "Thread friction μG", quantity: "plain", hint: "About 0.10–0.14 with moly paste, 0.14–0.18 with engine oil." },
-  { name: "bearingFriction", label: "Bearing friction μK", quantity: "plain" },
+  { name: "threadFriction", label: "Thread friction", quantity: "plain", hint: "μG. About 0.10–0.14 with moly paste, 0.14–0.18 with engine oil." },
+  { name: "bearingFriction", label: "Washer-face friction", quantity: "plain", hint: "μK, between the nut face and the washer." },
 ];
 
 export const GASKET_NUMBER_FIELDS: NumberField[] = [
@@ -55,13 +69,38 @@ export const GASKET_NUMBER_FIELDS: NumberField[] = [
   { name: "boreMm", label: "Gasket bore", quantity: "length" },
   { name: "sealDiameterMm", label: "Seal diameter (mean of the band)", quantity: "length" },
   { name: "ringWidthMm", label: "Ring width", quantity: "length" },
-  { name: "ringModulusMpa", label: "Ring modulus", quantity: "modulus" },
+  { name: "ringModulusMpa", label: "Ring modulus", quantity: "modulus", hint: "The ring, wire or stopper layer." },
   { name: "sealLineYieldMpa", label: "Seal-line yield", quantity: "stress", hint: "The softest material in the seal line." },
+  {
+    name: "sealLineHardnessMpa",
+    label: "Seal-line hardness",
+    quantity: "stress",
+    optional: true,
+    hint: "Indentation pressure of the softer face the ring or wire bites into (HV × 9.807 MPa). Empty: annealed copper (40 HV) for copper gaskets, else 3 × the yield.",
+  },
   { name: "bodyModulusMpa", label: "Body modulus (effective)", quantity: "modulus" },
   { name: "bodyAreaPerBoreMm2", label: "Body area per bore", quantity: "area" },
+  {
+    name: "bodySealPressureMpa",
+    label: "Body seal pressure",
+    quantity: "stress",
+    optional: true,
+    hint: "Least pressure on the body that still seals coolant and oil. Empty: the typical figure of the family.",
+  },
+  { name: "beadLoadNPerMm", label: "Bead load (N per mm of circumference)", quantity: "plain", optional: true, hint: "Multilayer steel: line load of the bead pressed down to the stopper." },
+  { name: "beadTravelMm", label: "Bead travel to the stopper", quantity: "small-length", optional: true, hint: "Multilayer steel: how far the bead gives before the stopper carries." },
   { name: "expansionUmPerMC", label: "Expansion coefficient", quantity: "expansion" },
-  { name: "m", label: "Gasket factor m", quantity: "plain" },
-  { name: "yMpa", label: "Seating stress y", quantity: "stress" },
+  {
+    name: "seatingPressureMpa",
+    label: "Seating pressure (maker's)",
+    quantity: "stress",
+    optional: true,
+    hint: "From the gasket maker, in the terms of EN 13555: Qmin(L), the pressure that seats it tight. Give it with the service pressure; together they replace the flange-code factors.",
+  },
+  { name: "minServicePressureMpa", label: "Minimum service pressure (maker's)", quantity: "stress", optional: true, hint: "EN 13555 QSmin(L): least pressure left in service that keeps it tight." },
+  { name: "maxPressureMpa", label: "Maximum pressure (maker's)", quantity: "stress", optional: true, hint: "EN 13555 QSmax: most the seal line takes without damage." },
+  { name: "m", label: "Seal hold factor m (flange code)", quantity: "plain", hint: "A stand-in from the pressure-vessel flange code (ASME VIII-1 table 2-5.1) used while the maker's pressures are not known." },
+  { name: "yMpa", label: "Seating stress y (flange code)", quantity: "stress", hint: "Flange-code stand-in, as m." },
   { name: "relaxationPercent", label: "Relaxation after heat cycles (%)", quantity: "plain" },
   { name: "finishMinRaUm", label: "Smoothest finish", quantity: "roughness", optional: true },
   { name: "finishMaxRaUm", label: "Roughest finish", quantity: "roughness", optional: true },

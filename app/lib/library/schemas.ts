@@ -48,7 +48,8 @@ export const MaterialSchema = z.object({
   modulusMpa: positive("Modulus", 400_000, "MPa"),
   yieldMpa: positive("Yield strength", 3000, "MPa").nullable(),
   expansionUmPerMC: positive("Expansion coefficient", 40, "µm/m·°C"),
-  limitingSurfacePressureMpa: positive("Limiting surface pressure", 3000, "MPa").nullable(),
+  limitingSurfacePressureMpa: positive("Washer bearing limit", 3000, "MPa").nullable(),
+  shearStrengthMpa: positive("Shear strength", 3000, "MPa").nullable().default(null),
 });
 export type MaterialInput = z.infer<typeof MaterialSchema>;
 
@@ -66,6 +67,7 @@ export const FastenerSchema = z
     washerOdMm: positive("Washer outer diameter", 100, "mm"),
     washerHoleMm: positive("Washer hole", 60, "mm"),
     washerThicknessMm: nonNegative("Washer thickness", 20, "mm"),
+    nutFaceOdMm: positive("Nut face diameter", 100, "mm").nullable().default(null),
     makerTorqueNm: positive("Maker's torque", 5000, "N·m").nullable(),
     makerLubricant: text("the lubricant", 120),
     makerStages: text("the stages", 200),
@@ -99,6 +101,13 @@ export const GasketSchema = z
     relaxationPercent: num("Relaxation").gte(0, "Relaxation cannot be negative").lte(50, "Relaxation is at most 50 %"),
     finishMinRaUm: positive("Smoothest finish", 25, "µm Ra").nullable(),
     finishMaxRaUm: positive("Roughest finish", 25, "µm Ra").nullable(),
+    sealLineHardnessMpa: positive("Seal-line hardness", 5000, "MPa").nullable().default(null),
+    beadLoadNPerMm: positive("Bead load", 5000, "N/mm").nullable().default(null),
+    beadTravelMm: positive("Bead travel", 2, "mm").nullable().default(null),
+    seatingPressureMpa: positive("Seating pressure", 2000, "MPa").nullable().default(null),
+    minServicePressureMpa: positive("Minimum service pressure", 2000, "MPa").nullable().default(null),
+    maxPressureMpa: positive("Maximum pressure", 5000, "MPa").nullable().default(null),
+    bodySealPressureMpa: positive("Body seal pressure", 500, "MPa").nullable().default(null),
   })
   .superRefine(
     (g, ctx) => {
@@ -145,6 +154,9 @@ export function gasketConsistency(g: {
   ringWidthMm: number;
   finishMinRaUm: number | null;
   finishMaxRaUm: number | null;
+  seatingPressureMpa?: number | null;
+  minServicePressureMpa?: number | null;
+  maxPressureMpa?: number | null;
 }): ConsistencyIssue[] {
   const out: ConsistencyIssue[] = [];
   if (g.sealDiameterMm - g.ringWidthMm <= g.boreMm)
@@ -152,6 +164,10 @@ export function gasketConsistency(g: {
       field: "sealDiameterMm",
       message: "The seal band (seal diameter less ring width) must sit outside the gasket bore",
     });
+  if ((g.seatingPressureMpa ?? null) === null !== ((g.minServicePressureMpa ?? null) === null))
+    out.push({ field: "minServicePressureMpa", message: "Give both the seating pressure and the minimum service pressure, or neither" });
+  if (g.minServicePressureMpa != null && g.maxPressureMpa != null && g.maxPressureMpa <= g.minServicePressureMpa)
+    out.push({ field: "maxPressureMpa", message: "The maximum pressure must be above the minimum service pressure" });
   if (g.finishMinRaUm !== null && g.finishMaxRaUm !== null && g.finishMinRaUm > g.finishMaxRaUm)
     out.push({ field: "finishMaxRaUm", message: "The roughest finish must be at least the smoothest" });
   return out;

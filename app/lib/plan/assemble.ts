@@ -2,6 +2,7 @@
 // Pure: plain records in, PlanInputRaw out; the schema in app/lib/clamp validates it.
 import { compressionRatio, type CompressionInput } from "../chamber";
 import type { PlanInputRaw, Stud } from "../clamp";
+import { withStretchTarget } from "./stretch";
 
 export interface MaterialRecord {
   name: string;
@@ -9,6 +10,7 @@ export interface MaterialRecord {
   yieldMpa: number | null;
   expansionUmPerMC: number;
   limitingSurfacePressureMpa: number | null;
+  shearStrengthMpa?: number | null;
 }
 
 export interface FastenerRecord {
@@ -21,6 +23,7 @@ export interface FastenerRecord {
   washerOdMm: number;
   washerHoleMm: number;
   washerThicknessMm: number;
+  nutFaceOdMm?: number | null;
   material: MaterialRecord;
 }
 
@@ -38,6 +41,20 @@ export interface GasketRecord {
   m: number;
   yMpa: number;
   relaxationPercent: number;
+  sealLineHardnessMpa?: number | null;
+  beadLoadNPerMm?: number | null;
+  beadTravelMm?: number | null;
+  seatingPressureMpa?: number | null;
+  minServicePressureMpa?: number | null;
+  maxPressureMpa?: number | null;
+  bodySealPressureMpa?: number | null;
+}
+
+/** The optional figures a record may carry: present ones pass on, absent ones are left out. */
+function present<T extends Record<string, number | null | undefined>>(o: T): { [K in keyof T]?: number } {
+  const out: Record<string, number> = {};
+  for (const [k, v] of Object.entries(o)) if (typeof v === "number" && Number.isFinite(v)) out[k] = v;
+  return out as { [K in keyof T]?: number };
 }
 
 export interface EngineRecord {
@@ -71,6 +88,15 @@ export interface PlanRecord {
   wireProjectionMm: number;
   receiverGrooveDepthMm: number;
   sleeveProtrusionMm: number | null;
+  /** Seal margin the shop wants at the bottom of the scatter band. */
+  targetMargin?: number;
+  /** Planned by the stretch a stretch gauge reads (method "stretch-measured"); null or absent: planned by torque. */
+  targetStretchMm?: number | null;
+}
+
+/** Whether the plan's tightening target is a stud stretch rather than a torque. */
+export function plannedByStretch(plan: Pick<PlanRecord, "method" | "targetStretchMm">): plan is { method: "stretch-measured"; targetStretchMm: number } {
+  return plan.method === "stretch-measured" && typeof plan.targetStretchMm === "number" && plan.targetStretchMm > 0;
 }
 
 export interface PlanParts {
@@ -113,6 +139,12 @@ export function engineCompressionRatio(engine: EngineRecord, gasket: Pick<Gasket
 }
 
 export function assemblePlanInput(parts: PlanParts): PlanInputRaw {
+  const raw = assembleTorqueInput(parts);
+  // A stretch target becomes a preload through the stud's stiffness, which does not depend on the target.
+  return plannedByStretch(parts.plan) ? withStretchTarget(raw, parts.plan.targetStretchMm) : raw;
+}
+
+function assembleTorqueInput(parts: PlanParts): PlanInputRaw {
   const { engine, plan, fastener, gasket, head, block, sleeve } = parts;
   const f = fastener;
   const sleeved = engine.sleeveKind !== "none" && sleeve !== null;
@@ -132,6 +164,7 @@ export function assemblePlanInput(parts: PlanParts): PlanInputRaw {
       washerOdMm: f.washerOdMm,
       washerHoleMm: f.washerHoleMm,
       washerThicknessMm: f.washerThicknessMm,
+      ...present({ nutFaceOdMm: f.nutFaceOdMm }),
     },
     tightening: {
       target: { mode: "torque", torqueNm: plan.torqueNm },
@@ -160,12 +193,22 @@ export function assemblePlanInput(parts: PlanParts): PlanInputRaw {
       m: gasket.m,
       yMpa: gasket.yMpa,
       relaxationPercent: gasket.relaxationPercent,
+      ...present({
+        sealLineHardnessMpa: gasket.sealLineHardnessMpa,
+        beadLoadNPerMm: gasket.beadLoadNPerMm,
+        beadTravelMm: gasket.beadTravelMm,
+        seatingPressureMpa: gasket.seatingPressureMpa,
+        minServicePressureMpa: gasket.minServicePressureMpa,
+        maxPressureMpa: gasket.maxPressureMpa,
+        bodySealPressureMpa: gasket.bodySealPressureMpa,
+      }),
     },
     block: {
       modulusMpa: block.modulusMpa,
       expansionUmPerMC: block.expansionUmPerMC,
       clampedDepthMm: engine.blockDepthToThreadMm,
       ...(block.yieldMpa ? { yieldMpa: block.yieldMpa } : {}),
+      ...present({ shearStrengthMpa: block.shearStrengthMpa }),
     },
     sleeve: sleeved
       ? engine.sleeveKind === "dry"
@@ -182,6 +225,7 @@ export function assemblePlanInput(parts: PlanParts): PlanInputRaw {
       wireProjectionMm: plan.wireLocation === "none" ? 0 : plan.wireProjectionMm,
       receiverGrooveDepthMm: plan.wireLocation === "none" ? 0 : plan.receiverGrooveDepthMm,
     },
+    ...(plan.targetMargin !== undefined ? { targetMargin: plan.targetMargin } : {}),
     firing:
       engine.peakPressureMpa && engine.peakPressureMpa > 0
         ? { mode: "entered", peakPressureMpa: engine.peakPressureMpa }
@@ -212,4 +256,10 @@ export function gasketFitProblem(engineBoreMm: number, gasketBoreMm: number, len
   if (gasketBoreMm > engineBoreMm + GASKET_BORE_OVERSIZE_LIMIT_MM)
     return `The gasket's ${length(gasketBoreMm)} bore is far larger than the ${length(engineBoreMm)} cylinder bore: its seal ring would not sit on the deck or sleeve top. Pick a gasket made for this bore.`;
   return null;
+}
+
+/** The gaskets that fit this bore (closest bore first), and the others. */
+export function gasketsByFit<G extends { boreMm: number }>(gaskets: G[], engineBoreMm: number): { fitting: G[]; others: G[] } {
+  const fits = (g: G) => gasketFitProblem(engineBoreMm, g.boreMm, String) === null;
+  return { fitting: gaskets.filter(fits).sort((a, b) => a.boreMm - b.boreMm), others: gaskets.filter((g) => !fits(g)) };
 }

@@ -1,29 +1,33 @@
-// What the plan editor and the API show for one plan: the estimate, a torque sweep around the
-// plan's torque, and the uncertainty run. Pure; SI throughout (the page converts for display).
-import { evaluatePlan, prepare, SI_WORDING, squeezePoint, torqueSweep, uncertainty, type PlanInput, type PlanEstimate, type SqueezePoint, type Wording } from "../clamp";
+// What the plan editor and the API show for one plan: the estimate with its verdict, a torque sweep
+// around the plan's torque, and the scatter run. Pure; SI throughout (the page converts for display).
+import { evaluatePlan, SI_WORDING, torqueSweep, uncertainty, type Ceiling, type PlanEstimate, type PlanInput, type Wording } from "../clamp";
 
 export interface SweepRow {
   torqueNm: number;
+  /** Weakest seal margin at the bottom of the scatter band, hot and fired (the verdict's basis). */
   weakestMargin: number;
-  /** dF_r/dF as assembled, on the plan's weakest cylinder. */
-  marginalShareWeakest: number;
-  /** Of added clamp on that cylinder, the share still on its seal line under firing, hot and settled. */
-  firedShareWeakest: number;
+  weakestMarginNominal: number;
+  /** Of the clamp +10 % torque adds, the share still on the weakest seal line under firing. */
+  gainShare: number;
   studUtilizationMax: number;
+  studWorkingUtilization: number;
   bearingUtilizationMax: number;
+  mostlySqueezing: boolean;
 }
 
 export interface EstimateView {
   torqueNm: number;
   estimate: PlanEstimate;
-  /** firedShareWeakest at the plan's torque. */
-  firedShare: number;
   sweep: SweepRow[];
-  /** The first limit as torque rises, wherever it falls (also outside the swept range). */
-  squeezePoint: SqueezePoint;
-  shareThreshold: number;
+  ceiling: Ceiling;
+  /** Lowest torque where more torque mostly squeezes the head, or null when it never does in reach. */
+  headSqueezeOnsetNm: number | null;
+  targetMargin: number;
   probabilityMarginBelowOne: number;
+  probabilityStudOverLimit: number;
   weakestMarginBand: { p5: number; p50: number; p95: number };
+  /** Sampled preload over nominal, 2.5th to 97.5th percentile: it spans the tightening band. */
+  preloadSpread: { p2_5: number; p97_5: number };
 }
 
 export const SWEEP_POINTS = 41;
@@ -31,42 +35,36 @@ export const UNCERTAINTY_SAMPLES = 2000;
 // Fixed seed: the same plan always shows the same chance, so two views can be compared.
 const SEED = 20261201;
 
-/** The sweep runs from 40 % to 160 % of the plan's torque (never past 5000 N·m). */
-export function sweepRange(torqueNm: number): { fromNm: number; toNm: number } {
-  return { fromNm: torqueNm * 0.4, toNm: Math.min(5000, torqueNm * 1.6) };
+/** The sweep runs from 40 % to 160 % of the plan's torque, stretched to show the ceiling (never past 5000 N·m). */
+export function sweepRange(torqueNm: number, ceilingNm = Infinity): { fromNm: number; toNm: number } {
+  const reach = Number.isFinite(ceilingNm) ? Math.min(ceilingNm * 1.15, torqueNm * 3) : 0;
+  return { fromNm: torqueNm * 0.4, toNm: Math.min(5000, Math.max(torqueNm * 1.6, reach)) };
 }
 
 export function estimateView(input: PlanInput, wording: Wording = SI_WORDING): EstimateView {
   const estimate = evaluatePlan(input, wording);
   const torqueNm = estimate.tightening.torqueNm;
-  const sweep = torqueSweep(input, { ...sweepRange(torqueNm), points: SWEEP_POINTS });
+  const sweep = torqueSweep(input, { ...sweepRange(torqueNm, estimate.ceiling.torqueNm), points: SWEEP_POINTS }, wording);
   const run = uncertainty(input, { samples: UNCERTAINTY_SAMPLES, seed: SEED });
-  const limit = input.head.limitingSurfacePressureMpa;
-  const bore = estimate.weakestCylinder - 1;
-  const pts = sweep.points;
-  // ours: central differences of the seal-line load left under firing against the bore's clamp
-  const firedShare = (i: number) => {
-    const a = pts[Math.max(0, i - 1)]!;
-    const b = pts[Math.min(pts.length - 1, i + 1)]!;
-    const dClamp = b.clampN[bore]! - a.clampN[bore]!;
-    return dClamp > 0 ? Math.min(1, Math.max(0, (b.remainingSealLineN[bore]! - a.remainingSealLineN[bore]!) / dClamp)) : 0;
-  };
-  const rows = pts.map((pt, i) => ({
-    torqueNm: pt.torqueNm,
-    weakestMargin: pt.weakestMargin,
-    marginalShareWeakest: pt.marginalShareWeakest,
-    firedShareWeakest: firedShare(i),
-    studUtilizationMax: pt.studUtilizationMax,
-    bearingUtilizationMax: pt.bearingPressureMaxMpa / limit,
-  }));
   return {
     torqueNm,
     estimate,
-    firedShare: rows[Math.floor(rows.length / 2)]!.firedShareWeakest,
-    sweep: rows,
-    squeezePoint: squeezePoint(prepare(input), wording),
-    shareThreshold: sweep.shareThreshold,
+    sweep: sweep.points.map((pt) => ({
+      torqueNm: pt.torqueNm,
+      weakestMargin: pt.weakestMargin,
+      weakestMarginNominal: pt.weakestMarginNominal,
+      gainShare: pt.gainShare,
+      studUtilizationMax: pt.studUtilizationMax,
+      studWorkingUtilization: pt.studWorkingUtilization,
+      bearingUtilizationMax: pt.bearingUtilizationMax,
+      mostlySqueezing: pt.mostlySqueezing,
+    })),
+    ceiling: estimate.ceiling,
+    headSqueezeOnsetNm: sweep.headSqueezeOnsetNm,
+    targetMargin: input.targetMargin,
     probabilityMarginBelowOne: run.probabilityMarginBelowOne,
+    probabilityStudOverLimit: run.probabilityStudOverLimit,
     weakestMarginBand: run.weakestMargin,
+    preloadSpread: run.preloadSpread,
   };
 }

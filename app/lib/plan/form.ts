@@ -2,7 +2,9 @@
 // Shared by the editor's action (server) and its live estimate (browser).
 import { z } from "zod";
 import { TIGHTENING_METHODS } from "../clamp/schema";
-import { formatQuantity, parseQuantity, toDisplay, unitFor, type Quantity, type UnitSystem } from "../units";
+import { formatQuantity, parseQuantity, toDisplay, unitFor, type DisplayUnit, type Quantity, type UnitSystem } from "../units";
+import { decimalPoint, splitList } from "../units/decimal-comma";
+import { figuresFingerprint } from "./fastener-figures";
 
 export const WIRE_LOCATIONS = ["none", "head", "block"] as const;
 
@@ -20,15 +22,26 @@ export interface PlanWrite {
   wireProjectionMm: number;
   receiverGrooveDepthMm: number;
   sleeveProtrusionMm: number | null;
+  /** With a stretch gauge: the stretch to tighten to (the estimate then follows it); null: planned by torque. */
+  targetStretchMm: number | null;
   targetMargin: number;
   notes: string;
 }
 
+// How the studs are tightened, in a builder's words (the stored values stay the model's names).
 export const METHOD_LABEL: Record<PlanWrite["method"], string> = {
-  "torque-estimated-friction": "Torque wrench, friction estimated",
-  "torque-tested-friction": "Torque wrench, friction tested on the parts",
-  "angle-or-yield": "Torque plus angle, or yield-controlled",
-  "stretch-measured": "Stud stretch measured",
+  "torque-estimated-friction": "Torque wrench",
+  "torque-tested-friction": "Torque wrench, lube tested on these studs",
+  "angle-or-yield": "Torque, then angle",
+  "stretch-measured": "Stretch gauge",
+};
+
+/** What each method means for the clamp, for the help under the select. */
+export const METHOD_HELP: Record<PlanWrite["method"], string> = {
+  "torque-estimated-friction": "Torque wrench with the friction taken from the library or the lube's usual range: the clamp varies most from stud to stud.",
+  "torque-tested-friction": "Torque wrench, with the friction found by tightening these studs with this lube and measuring: less spread than an estimated friction.",
+  "angle-or-yield": "Snug to a torque, then turn a set angle (or to the yield point): the least spread of clamp.",
+  "stretch-measured": "Tighten until a stretch gauge on the stud reads the target stretch: the clamp follows the stretch, not the torque.",
 };
 
 export const WIRE_LABEL: Record<PlanWrite["wireLocation"], string> = {
@@ -47,9 +60,9 @@ const Plain = z.object({
     .min(0.02, "Thread friction must be at least 0.02")
     .max(0.6, "Thread friction must be at most 0.6"),
   bearingFriction: z.coerce
-    .number({ error: "Bearing friction is a number like 0.12" })
-    .min(0.02, "Bearing friction must be at least 0.02")
-    .max(0.6, "Bearing friction must be at most 0.6"),
+    .number({ error: "Washer-face friction is a number like 0.12" })
+    .min(0.02, "Washer-face friction must be at least 0.02")
+    .max(0.6, "Washer-face friction must be at most 0.6"),
   method: z.enum(TIGHTENING_METHODS, "Pick how the studs are tightened"),
   wireLocation: z.enum(WIRE_LOCATIONS, "Pick where the wire ring sits"),
   targetMargin: z.coerce
@@ -67,52 +80,82 @@ const QUANTITIES: QuantityField[] = [
   { name: "wireProjection", quantity: "smallLength", min: 0, max: 2, label: "Wire projection" },
   { name: "receiverGrooveDepth", quantity: "smallLength", min: 0, max: 2, label: "Receiver groove depth" },
   { name: "sleeveProtrusion", quantity: "smallLength", optional: true, min: -0.5, max: 1, label: "Sleeve protrusion" },
+  { name: "targetStretch", quantity: "smallLength", optional: true, min: 0.01, max: 2, label: "Target stretch" },
 ];
+
+// Plain numbers typed with a decimal comma are read like the quantities (see app/lib/units/decimal-comma.ts).
+const PLAIN_NUMBERS = ["threadFriction", "bearingFriction", "targetMargin"] as const;
 
 export type PlanFormResult =
   | { ok: true; plan: PlanWrite }
   | { ok: false; errors: Record<string, string> };
 
-function quantityIn(text: string, f: QuantityField, system: UnitSystem): { value?: number; error?: string } {
-  const r = parseQuantity(text, f.quantity, unitFor(f.quantity, system));
+function quantityIn(text: string, f: QuantityField, system: UnitSystem, fieldUnit: DisplayUnit = unitFor(f.quantity, system)): { value?: number; unit?: DisplayUnit; error?: string } {
+  const r = parseQuantity(decimalPoint(text), f.quantity, fieldUnit);
   if (!r.ok) return { error: `${f.label}: ${r.message}` };
   const lo = formatQuantity(f.min, f.quantity, system);
   const hi = formatQuantity(f.max, f.quantity, system);
   if (r.valueSi < f.min - 1e-9 || r.valueSi > f.max + 1e-9) return { error: `${f.label} must be between ${lo} and ${hi}` };
-  return { value: r.valueSi };
+  return { value: r.valueSi, unit: r.unit };
+}
+
+const STAGE: QuantityField = { name: "stages", quantity: "torque", min: 1, max: 5000, label: "Each stage" };
+
+/**
+ * The stage list as typed: "60, 110, 150", "40, 80, then 115 lbf·ft" or "54,2; 108,5; 156".
+ * A stage without a unit is read in the unit written in the list, else the unit typed with the
+ * final torque, else the field's: the stages go with the torque when its unit changes.
+ */
+function stagesIn(text: string, torqueUnit: DisplayUnit, system: UnitSystem): { stagesNm: number[]; error?: string } {
+  const parts = splitList(text).map((p) => p.replace(/^(then|and)\s+/i, ""));
+  const suffixed = parts.map((p) => /\d\s*[^\d\s.,]/.test(p));
+  let listUnit: DisplayUnit = torqueUnit;
+  for (let i = parts.length - 1; i >= 0; i--) {
+    if (!suffixed[i]) continue;
+    const r = parseQuantity(decimalPoint(parts[i]!), "torque", torqueUnit);
+    if (r.ok) listUnit = r.unit;
+    break;
+  }
+  const stagesNm: number[] = [];
+  for (const part of parts) {
+    const r = quantityIn(part, STAGE, system, listUnit);
+    if (r.error) return { stagesNm, error: r.error };
+    stagesNm.push(r.value!);
+  }
+  return { stagesNm };
 }
 
 /** Parse the submitted form (display units) into an SI plan, or messages keyed by field name. */
 export function parsePlanForm(form: Record<string, unknown>, system: UnitSystem): PlanFormResult {
   const errors: Record<string, string> = {};
-  const plain = Plain.safeParse(form);
+  const normalized: Record<string, unknown> = { ...form };
+  for (const k of PLAIN_NUMBERS) if (typeof form[k] === "string") normalized[k] = decimalPoint(form[k] as string);
+  const plain = Plain.safeParse(normalized);
   if (!plain.success) for (const i of plain.error.issues) errors[String(i.path[0])] ??= i.message;
 
+  const byStretch = form.method === "stretch-measured";
   const q: Record<string, number | null> = {};
+  let torqueUnit = unitFor("torque", system);
   for (const f of QUANTITIES) {
     const text = String(form[f.name] ?? "").trim();
-    if (text === "" && f.optional) {
+    // the target stretch means something only with a stretch gauge
+    if ((text === "" && f.optional) || (f.name === "targetStretch" && !byStretch)) {
       q[f.name] = null;
       continue;
     }
     const r = quantityIn(text, f, system);
     if (r.error) errors[f.name] = r.error;
     else q[f.name] = r.value!;
+    if (f.name === "torque" && r.unit) torqueUnit = r.unit;
   }
 
   const stagesText = String(form.stages ?? "").trim();
-  const stagesNm: number[] = [];
+  let stagesNm: number[] = [];
   if (stagesText !== "") {
-    for (const part of stagesText.split(/[,;/]+/)) {
-      const r = quantityIn(part, { name: "stages", quantity: "torque", min: 1, max: 5000, label: "Each stage" }, system);
-      if (r.error) {
-        errors.stages ??= r.error;
-        break;
-      }
-      stagesNm.push(r.value!);
-    }
-    if (!errors.stages && stagesNm.some((s, i) => i > 0 && s <= stagesNm[i - 1]!))
-      errors.stages = "Stages must rise, ending at the final torque";
+    const r = stagesIn(stagesText, torqueUnit, system);
+    stagesNm = r.stagesNm;
+    if (r.error) errors.stages = r.error;
+    else if (stagesNm.some((s, i) => i > 0 && s <= stagesNm[i - 1]!)) errors.stages = "Stages must rise, ending at the final torque";
   }
   const torqueNm = q.torque;
   if (!errors.stages && !errors.torque && torqueNm != null && stagesNm.length > 0) {
@@ -133,6 +176,7 @@ export function parsePlanForm(form: Record<string, unknown>, system: UnitSystem)
       wireProjectionMm: plain.data.wireLocation === "none" ? 0 : q.wireProjection!,
       receiverGrooveDepthMm: plain.data.wireLocation === "none" ? 0 : q.receiverGrooveDepth!,
       sleeveProtrusionMm: q.sleeveProtrusion ?? null,
+      targetStretchMm: byStretch ? (q.targetStretch ?? null) : null,
     },
   };
 }
@@ -145,7 +189,7 @@ function num(valueSi: number, quantity: Quantity, system: UnitSystem, decimals: 
 /** A saved plan as the form shows it, in the person's units. */
 export function planFormValues(plan: PlanWrite, system: UnitSystem): Record<string, string> {
   const smallDecimals = system === "metric" ? 3 : 2;
-  return {
+  const values: Record<string, string> = {
     name: plan.name,
     gasketId: String(plan.gasketId),
     fastenerId: String(plan.fastenerId),
@@ -159,7 +203,17 @@ export function planFormValues(plan: PlanWrite, system: UnitSystem): Record<stri
     wireProjection: num(plan.wireProjectionMm, "smallLength", system, smallDecimals),
     receiverGrooveDepth: num(plan.receiverGrooveDepthMm, "smallLength", system, smallDecimals),
     sleeveProtrusion: plan.sleeveProtrusionMm === null ? "" : num(plan.sleeveProtrusionMm, "smallLength", system, smallDecimals),
+    targetStretch: plan.targetStretchMm === null || plan.targetStretchMm === undefined ? "" : num(plan.targetStretchMm, "smallLength", system, smallDecimals),
     targetMargin: String(plan.targetMargin),
     notes: plan.notes,
   };
+  // which fastener the torque, stages, lubricant and friction shown belong to (see figuresFollowStep)
+  values.figuresFastenerId = values.fastenerId!;
+  values.figuresSeen = figuresFingerprint(values);
+  return values;
 }
+
+/** The copy-a-plan form: which engine of the shop gets the copy. */
+export const CopyPlanSchema = z.object({
+  targetEngineId: z.coerce.number({ error: "Pick the engine to copy the plan to." }).int("Pick the engine to copy the plan to.").positive("Pick the engine to copy the plan to."),
+});

@@ -1,23 +1,37 @@
 import { Link } from "react-router";
 import type { Route } from "./+types/dashboard";
 import { PageTitle } from "~/components/app-shell";
-import { Caution } from "~/components/caution";
+import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { StatusBadge } from "~/components/engine-status";
 import { layoutName, STATUS_LABEL } from "~/lib/engine";
 import { engineStatusCounts, listEngines, type EngineStatus } from "~/models/engine.server";
-import { listAuditEvents } from "~/models/team.server";
+import { atRisk, chosenPlanVerdicts } from "~/models/plan-estimate.server";
+import { auditSubject, listAuditEvents, livePlans } from "~/models/team.server";
+import { STATUS_LOOK } from "~/components/estimate-panel";
 import { requireUser } from "~/utils/auth.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Dashboard · Sealwright" }];
 
+// this page shows the full caution beside its figures (the footer leaves it out)
+export const handle = CAUTION_HANDLE;
+
 export async function loader({ request }: Route.LoaderArgs) {
   const { user, team, role } = await requireUser(request);
-  const [counts, recent, events] = await Promise.all([
+  const [counts, recent, rawEvents, verdicts] = await Promise.all([
     engineStatusCounts(team.id),
     listEngines(team.id, { sort: "updated", dir: "desc", pageSize: 5 }),
     listAuditEvents(team.id, 10),
+    chosenPlanVerdicts(team.id),
   ]);
-  return { user, team, role, counts, recent: recent.rows, events };
+  // Activity names the plan it touched and links to it while the plan is still there.
+  const subjects = rawEvents.map((e) => auditSubject(e.detail));
+  const live = await livePlans(team.id, subjects.flatMap((s) => (s.planId ? [s.planId] : [])));
+  const events = rawEvents.map((e, i) => {
+    const s = subjects[i]!;
+    const plan = s.planId ? live.get(s.planId) : undefined;
+    return { id: e.id, action: e.action, at: e.at, who: e.who, plan: plan && s.planId ? { name: plan.name, href: `/engines/${plan.engineId}/plans/${s.planId}` } : null };
+  });
+  return { user, team, role, counts, recent: recent.rows, events, atRisk: verdicts.filter(atRisk) };
 }
 
 // The audit trail's actions, in words.
@@ -34,6 +48,8 @@ const ACTION_WORDS: Record<string, string> = {
   "plan.updated": "Seal plan edited",
   "plan.chosen": "Seal plan chosen",
   "plan.archived": "Seal plan archived",
+  "plan.copied": "Seal plan copied",
+  "engine.duplicated": "Engine duplicated",
 };
 
 function actionWords(action: string): string {
@@ -45,10 +61,34 @@ function actionWords(action: string): string {
 const STATUSES: EngineStatus[] = ["quoted", "in-build", "running", "retired"];
 
 export default function Dashboard({ loaderData }: Route.ComponentProps) {
-  const { user, team, role, counts, recent, events } = loaderData;
+  const { user, team, role, counts, recent, events, atRisk } = loaderData;
   return (
     <>
       <PageTitle sub={`Signed in as ${user.name}, ${role} in ${team.name}.`}>{team.name}</PageTitle>
+      <section aria-labelledby="at-risk" className="mb-8" data-testid="at-risk">
+        <h2 id="at-risk" className="text-xl font-bold">
+          Needs attention
+        </h2>
+        {atRisk.length === 0 ? (
+          <p className="mt-2 text-forge-700">No working engine's chosen plan is short or limited by its stud.</p>
+        ) : (
+          <ul className="mt-2 divide-y divide-forge-100 rounded border-2 border-failed bg-white">
+            {atRisk.map((v) => {
+              const look = STATUS_LOOK[v.status];
+              return (
+                <li key={v.engineId} className="px-4 py-2">
+                  <Link to={`/engines/${v.engineId}/plans/${v.planId}`} className="font-medium text-copper-700 underline">
+                    {v.engineName}: {v.planName}
+                  </Link>
+                  <span className="block text-sm">
+                    {look.icon} {look.word}: {v.headline}
+                  </span>
+                </li>
+              );
+            })}
+          </ul>
+        )}
+      </section>
       <section aria-labelledby="engines-by-status">
         <h2 id="engines-by-status" className="sr-only">
           Engines by status
@@ -103,6 +143,14 @@ export default function Dashboard({ loaderData }: Route.ComponentProps) {
                 <li key={e.id} className="flex justify-between gap-4 px-4 py-2 text-sm">
                   <span>
                     {actionWords(e.action)}
+                    {e.plan ? (
+                      <>
+                        {" "}
+                        <Link to={e.plan.href} className="text-copper-700 underline">
+                          “{e.plan.name}”
+                        </Link>
+                      </>
+                    ) : null}
                     {e.who ? ` · ${e.who}` : ""}
                   </span>
                   <time className="tabular text-forge-700" dateTime={e.at}>

@@ -5,12 +5,12 @@ import { chamberInput } from "~/lib/plan/assemble";
 import { formatQuantity, parseQuantity, unitFor } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
 import { listPlans, planChoices } from "~/models/plan.server";
-import { requireUser } from "~/utils/auth.server";
+import { requireUser, roleAtLeast } from "~/utils/auth.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Chamber · Sealwright" }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { user, team } = await requireUser(request);
+  const { user, team, role } = await requireUser(request);
   const engine = await requireEngine(team.id, params.engineId);
   const [{ gaskets }, plans] = await Promise.all([planChoices(team.id), listPlans(team.id, engine.id)]);
   const url = new URL(request.url);
@@ -20,9 +20,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const whatIfText = url.searchParams.get("thickness") ?? "";
   const whatIf = whatIfText ? parseQuantity(whatIfText, "smallLength", smallUnit) : null;
   const whatIfError = whatIf && !whatIf.ok ? whatIf.message : whatIf && whatIf.ok && !(whatIf.valueSi > 0 && whatIf.valueSi < 10) ? "Give a compressed thickness between 0 and 10 mm" : null;
-  const base = { units: user.units, engine, gaskets: gaskets.map((g) => ({ id: g.id, name: g.name })), gasketId: gasket?.id ?? null, fromChosen: gasket?.id === chosen?.gasketId, whatIfText, whatIfError };
+  const base = { units: user.units, engine, gaskets: gaskets.map((g) => ({ id: g.id, name: g.name })), gasketId: gasket?.id ?? null, fromChosen: gasket?.id === chosen?.gasketId, whatIfText, whatIfError, canEdit: roleAtLeast(role, "builder") };
   const input = gasket ? chamberInput(engine, gasket) : null;
-  if (!input) return { ...base, problems: [!gasket ? "Add a gasket in Libraries first." : "Enter the chamber volume on the engine record (Overview → Edit)."], result: null };
+  if (!input) return { ...base, problems: [!gasket ? "Add a gasket in Libraries first." : "The engine record has no chamber volume yet."], result: null };
   const problems = chamberProblems(input);
   if (problems.length) return { ...base, problems, result: null };
   const newThickness = whatIf?.ok && !whatIfError ? whatIf.valueSi : input.gasketThicknessMm;
@@ -38,9 +38,9 @@ export default function Chamber({ loaderData }: Route.ComponentProps) {
     <div className="max-w-3xl space-y-4">
       <h2 className="text-2xl font-bold">Chamber</h2>
       <Form method="get" className="flex flex-wrap items-end gap-3 rounded border border-forge-100 bg-white p-3">
-        <div>
+        <div className="min-w-0 max-w-full">
           <label htmlFor="gasketId" className="block text-sm font-medium">Gasket</label>
-          <select id="gasketId" name="gasketId" defaultValue={d.gasketId ?? undefined} className="mt-1 rounded border border-forge-300 px-2 py-2">
+          <select id="gasketId" name="gasketId" defaultValue={d.gasketId ?? undefined} className="mt-1 block w-full max-w-full rounded border border-forge-300 px-2 py-2">
             {d.gaskets.map((g) => <option key={g.id} value={g.id}>{g.name}</option>)}
           </select>
         </div>
@@ -52,7 +52,7 @@ export default function Chamber({ loaderData }: Route.ComponentProps) {
         {d.whatIfError ? <p id="thickness-error" className="w-full text-sm font-medium text-failed">✖ {d.whatIfError}</p> : null}
       </Form>
       <p className="text-sm text-forge-700">{d.fromChosen ? "Gasket of the chosen plan." : "Gasket picked above."}</p>
-      {d.problems.length ? <p role="alert" className="rounded border border-caution bg-caution-50 p-3">⚠ {d.problems.join(" ")} <Link to={`/engines/${d.engine.id}/edit`} className="underline">Edit the engine</Link></p> : null}
+      {d.problems.length ? <p role="alert" className="rounded border border-caution bg-caution-50 p-3">⚠ {d.problems.join(" ")} {d.canEdit ? <Link to={`/engines/${d.engine.id}/edit`} className="underline">Edit the engine</Link> : "A builder in this shop can add it."}</p> : null}
       {r ? (
         <table className="w-full border-collapse bg-white text-sm tabular">
           <caption className="sr-only">Compression ratio and quench, now and with the what-if thickness</caption>

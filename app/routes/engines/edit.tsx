@@ -1,6 +1,7 @@
-import { data, isRouteErrorResponse, Link, redirect } from "react-router";
+import { data, redirect } from "react-router";
 import type { Route } from "./+types/edit";
 import { EngineForm } from "~/components/engine-form";
+import { RoleRefusal } from "~/components/refusal";
 import { engineFormStep, engineToForm, type Units } from "~/lib/engine";
 import { archiveEngine, EngineInputError, listMaterialOptions, requireEngine, updateEngine } from "~/models/engine.server";
 import { requireRole } from "~/utils/auth.server";
@@ -60,18 +61,6 @@ export default function EditEngine({ loaderData, actionData }: Route.ComponentPr
 }
 
 // Inside the engine layout, so the header and tabs stay: a viewer who follows an edit link reads why.
-export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
-  const forbidden = isRouteErrorResponse(error) && error.status === 403;
-  if (!forbidden) throw error;
-  return (
-    <div className="rounded border border-forge-300 bg-white p-6">
-      <h2 className="text-xl font-bold">Not open to your role</h2>
-      <p className="mt-2 text-forge-700">{String(error.data)} A builder or the owner edits engine records.</p>
-      <p className="mt-4">
-        <Link to=".." relative="path" className="text-copper-700 underline">
-          Back to the overview
-        </Link>
-      </p>
-    </div>
-  );
+export function ErrorBoundary({ error, params }: Route.ErrorBoundaryProps) {
+  return <RoleRefusal error={error} who="A builder or the owner edits engine records." backTo={`/engines/${params.engineId}`} backLabel="Back to the overview" />;
 }

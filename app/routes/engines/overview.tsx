@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import { Link } from "react-router";
+import { Form, Link } from "react-router";
 import type { Route } from "./+types/overview";
 import { StatusBadge } from "~/components/engine-status";
 import { formatQuantity, formatShare, layoutName, patternSummary, PEAK_SOURCE_LABEL, SLEEVE_LABEL, type Units } from "~/lib/engine";
@@ -25,14 +25,21 @@ export default function EngineOverview({ loaderData }: Route.ComponentProps) {
   const len = (v: number | null) => formatQuantity("length", v, units);
   return (
     <div className="grid gap-6 lg:grid-cols-2">
-      <div className="flex items-center justify-between lg:col-span-2">
+      <div className="flex flex-wrap items-center justify-between gap-3 lg:col-span-2">
         <p className="text-forge-700">
           Chosen seal plan: <strong className="text-forge-950">{chosenPlan ?? "none chosen yet"}</strong>
         </p>
         {canEdit ? (
-          <Link to="../edit" relative="path" className="rounded bg-copper-700 px-4 py-2 font-medium text-white hover:bg-copper-600">
-            Edit engine
-          </Link>
+          <div className="flex flex-wrap gap-2">
+            <Link to={`/engines/${e.id}/edit`} className="rounded bg-copper-700 px-4 py-2 font-medium text-white hover:bg-copper-600">
+              Edit engine
+            </Link>
+            <Form method="post" action={`/engines/${e.id}/duplicate`}>
+              <button type="submit" className="rounded border border-forge-300 bg-white px-4 py-2 font-medium hover:bg-forge-100">
+                Duplicate engine
+              </button>
+            </Form>
+          </div>
         ) : null}
       </div>
       <Section title="Geometry">

@@ -1,8 +1,9 @@
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import type { ReactNode } from "react";
 import type { Route } from "./+types/edit";
-import { Caution } from "~/components/caution";
+import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { Button, Field, FormError, SelectField } from "~/components/form";
+import { TYPICAL_GASKETS } from "~/lib/clamp";
 import { sourceLine } from "~/lib/library/display";
 import {
   FASTENER_FRICTION_FIELDS,
@@ -30,6 +31,9 @@ export const meta: Route.MetaFunction = ({ params }) => {
   return [{ title: `${"itemId" in params && params.itemId ? "Edit" : "New"} ${what} · Sealwright` }];
 };
 
+// this page shows the full caution beside its figures (the footer leaves it out)
+export const handle = CAUTION_HANDLE;
+
 function kindOf(param: string | undefined): LibraryKind {
   if (!isLibraryKind(param)) throw data("There is no such library.", { status: 404 });
   return param;
@@ -56,14 +60,23 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     canEdit: roleAtLeast(role, "builder"),
     materials,
     item: item ? { id: item.id, name: item.name, archived: Boolean(item.archivedAt), provenance: sourceLine(item), seeded: Boolean(item.source) } : null,
-    values: item ? formValues(kind, item as unknown as Record<string, unknown>, units) : defaults(kind),
+    values: item ? formValues(kind, item as unknown as Record<string, unknown>, units) : defaults(kind, new URL(request.url).searchParams.get("type"), units),
+    typicalFor: !item && kind === "gaskets" ? typicalType(new URL(request.url).searchParams.get("type")) : null,
   };
 }
 
-function defaults(kind: LibraryKind): Record<string, string> {
+const typicalType = (t: string | null) => (LIBRARY_GASKET_TYPES as readonly string[]).includes(t ?? "") ? (t as (typeof LIBRARY_GASKET_TYPES)[number]) : null;
+
+function defaults(kind: LibraryKind, type: string | null, units: UnitSystem): Record<string, string> {
   if (kind === "fasteners")
     return { threadSystem: "unified", reducedShankLengthMm: "0", washerThicknessMm: "0", threadFriction: "0.12", bearingFriction: "0.12" };
-  if (kind === "gaskets") return { type: "mls", relaxationPercent: "0" };
+  if (kind === "gaskets") {
+    const family = typicalType(type);
+    if (!family) return { type: "mls", relaxationPercent: "0" };
+    // The family's typical figures, to be replaced with the gasket maker's (the form says so).
+    const { label: _label, notes: _notes, ...figures } = TYPICAL_GASKETS[family];
+    return { ...formValues("gaskets", { ...figures, type: family }, units), name: "" };
+  }
   return { kind: "aluminium" };
 }
 
@@ -98,7 +111,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function LibraryEdit({ loaderData, actionData }: Route.ComponentProps) {
-  const { kind, units, materials, item, canEdit } = loaderData;
+  const { kind, units, materials, item, canEdit, typicalFor } = loaderData;
   const values: Record<string, string> = actionData?.values ?? loaderData.values;
   const errors: Record<string, string> = actionData?.errors ?? {};
   const busy = useNavigation().state === "submitting";
@@ -120,7 +133,7 @@ export default function LibraryEdit({ loaderData, actionData }: Route.ComponentP
         {item ? <>Source: {item.provenance}. </> : null}
         Figures in your units ({units}); the shop's data is stored in SI.
       </p>
-      {kind === "fasteners" ? <Caution className="mb-4" /> : null}
+      <Caution className="mb-4" />
       {count > 0 ? <FormError message={errors.form ?? `Nothing was saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention.`} /> : null}
 
       <Form method="post" noValidate className="mt-4">
@@ -141,6 +154,23 @@ export default function LibraryEdit({ loaderData, actionData }: Route.ComponentP
           ) : null}
           {kind === "gaskets" ? (
             <>
+              {!item ? (
+                <div className="rounded border border-forge-300 bg-white p-3 text-sm" data-testid="typical">
+                  <p className="font-medium">Start from typical figures for a family:</p>
+                  <p className="mt-1 flex flex-wrap gap-3">
+                    {LIBRARY_GASKET_TYPES.map((t) => (
+                      <Link key={t} to={`?type=${t}`} className="text-copper-700 underline">
+                        {GASKET_TYPE_LABELS[t]}
+                      </Link>
+                    ))}
+                  </p>
+                  {typicalFor ? (
+                    <p className="mt-2 rounded border border-caution bg-caution-50 px-2 py-1" role="note">
+                      ⚠ Typical figures for {TYPICAL_GASKETS[typicalFor].label.toLowerCase()} — replace each with the gasket maker's figure. {TYPICAL_GASKETS[typicalFor].notes}
+                    </p>
+                  ) : null}
+                </div>
+              ) : null}
               <SelectField
                 name="type"
                 label="Type"

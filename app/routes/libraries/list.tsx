@@ -1,7 +1,7 @@
 import { data, Form, Link } from "react-router";
 import type { ReactNode } from "react";
 import type { Route } from "./+types/list";
-import { Caution } from "~/components/caution";
+import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { sourceLine, threadLabel } from "~/lib/library/display";
 import { formatQuantity, type UnitSystem } from "~/lib/library/quantities";
 import { GASKET_TYPE_LABELS, isLibraryKind, MATERIAL_KIND_LABELS, type LibraryKind } from "~/lib/library/schemas";
@@ -9,6 +9,9 @@ import { listLibrary, type FastenerRow, type GasketRow, type LibraryRow, type Ma
 import { requireUser, roleAtLeast } from "~/utils/auth.server";
 
 export const meta: Route.MetaFunction = ({ params }) => [{ title: `${TITLE[params.kind as LibraryKind] ?? "Libraries"} · Sealwright` }];
+
+// this page shows the full caution beside its figures (the footer leaves it out)
+export const handle = CAUTION_HANDLE;
 
 const TITLE: Record<LibraryKind, string> = { fasteners: "Fasteners", gaskets: "Gaskets", materials: "Materials" };
 const NEW_LABEL: Record<LibraryKind, string> = { fasteners: "New fastener", gaskets: "New gasket", materials: "New material" };
@@ -45,7 +48,7 @@ export default function LibraryList({ loaderData }: Route.ComponentProps) {
           ) : null}
         </div>
       </div>
-      {kind === "fasteners" ? <Caution className="mb-4" /> : null}
+      <Caution className="mb-4" />
       {rows.length === 0 ? (
         <p className="rounded border border-dashed border-forge-300 bg-white p-6 text-forge-700">
           Nothing here yet.{canEdit ? ` Use “${NEW_LABEL[kind]}” to add the first one.` : ""}

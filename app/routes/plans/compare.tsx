@@ -1,8 +1,8 @@
 import { data, Form, Link, redirect } from "react-router";
 import type { Route } from "./+types/compare";
-import { Caution } from "~/components/caution";
-import { chance, marginStatus } from "~/components/estimate-panel";
-import { CAUSE_WORDS } from "~/lib/clamp";
+import { Caution, CAUTION_HANDLE } from "~/components/caution";
+import { chance, marginStatus, STATUS_LOOK } from "~/components/estimate-panel";
+import { CEILING_WORDS, type Status } from "~/lib/clamp";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
 import { estimatePlan, type PlanEstimateResult } from "~/models/plan-estimate.server";
@@ -11,6 +11,9 @@ import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
 import { flashToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Compare plans · Sealwright" }];
+
+// this page shows the full caution beside its figures (the footer leaves it out)
+export const handle = CAUTION_HANDLE;
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team, role } = await requireUser(request);
@@ -44,18 +47,23 @@ type Row = { label: string; better?: "higher" | "lower"; value: (c: Column) => n
 const ok = (c: Column) => (c.result.ok ? c.result.view : null);
 
 // The outputs compared, and which way is better where one way is.
+const SEVERITY: Record<Status, number> = { holds: 2, thin: 1, short: 0 };
 const ROWS: Row[] = [
+  { label: "Verdict", better: "higher", value: (c) => { const v = ok(c); return v ? SEVERITY[v.estimate.verdict.status] : null; }, show: (_v, _u, c) => { const v = ok(c)!.estimate.verdict; const l = STATUS_LOOK[v.status]; return `${l.icon} ${l.word}: ${v.headline}`; } },
   { label: "Final torque (ours)", value: (c) => c.plan.torqueNm, show: (v, u) => formatQuantity(v, "torque", u) },
   { label: "Fastener maker's figure", value: (c) => c.result.fastener?.makerTorqueNm ?? null, show: (v, u, c) => `${formatQuantity(v, "torque", u)}${c.result.fastener?.makerLubricant ? ` · ${c.result.fastener.makerLubricant}` : ""}` },
-  { label: "Weakest seal margin", better: "higher", value: (c) => ok(c)?.estimate.weakestMargin ?? null, show: (v, _u, c) => `${marginStatus(v, c.plan.targetMargin).icon} ${v.toFixed(2)} (cyl ${ok(c)?.estimate.weakestCylinder})` },
+  { label: "Weakest seal margin, bottom of the scatter band", better: "higher", value: (c) => ok(c)?.estimate.weakestMargin ?? null, show: (v, _u, c) => `${marginStatus(v, c.plan.targetMargin).icon} ${v.toFixed(2)} (cyl ${ok(c)?.estimate.weakestCylinder})` },
+  { label: "…at the nominal preload", value: (c) => ok(c)?.estimate.weakestMarginNominal ?? null, show: (v) => v.toFixed(2) },
   { label: "Chance weakest margin < 1", better: "lower", value: (c) => ok(c)?.probabilityMarginBelowOne ?? null, show: (v) => chance(v) },
   { label: "Nominal preload per stud", value: (c) => ok(c)?.estimate.tightening.preload.nominalN ?? null, show: (v, u) => formatQuantity(v, "force", u) },
   { label: "Hot and settled preload per stud", better: "higher", value: (c) => ok(c)?.estimate.hotSettled.preloadN ?? null, show: (v, u) => formatQuantity(v, "force", u) },
-  { label: "Stud stress at max preload (of yield)", better: "lower", value: (c) => ok(c)?.estimate.studStress.atMax.utilization ?? null, show: (v) => `${(v * 100).toFixed(0)} %` },
-  { label: "Head bearing pressure (of limit)", better: "lower", value: (c) => ok(c)?.estimate.head.bearingUtilizationMax ?? null, show: (v) => `${(v * 100).toFixed(0)} %` },
-  { label: "Added clamp still on the seal line under firing", value: (c) => ok(c)?.firedShare ?? null, show: (v) => `${(v * 100).toFixed(0)} %` },
-  { label: "Headroom to the squeeze point", better: "higher", value: (c) => { const v = ok(c); return v ? v.squeezePoint.torqueNm - v.torqueNm : null; }, show: (v, u, c) => `${v < 0 ? "⚠ past it by " : ""}${formatQuantity(Math.abs(v), "torque", u)} (${CAUSE_WORDS[ok(c)!.squeezePoint.cause]})` },
-  { label: "Joint constant C", value: (c) => ok(c)?.estimate.stiffness.jointConstant ?? null, show: (v) => v.toFixed(3) },
+  { label: "Stud while tightened, top of the band (of yield)", better: "lower", value: (c) => ok(c)?.estimate.studStress.atMax.utilization ?? null, show: (v) => `${(v * 100).toFixed(0)} %` },
+  { label: "Stud hot and fired, top of the band (of yield)", better: "lower", value: (c) => ok(c)?.estimate.studStress.working.utilization ?? null, show: (v) => `${(v * 100).toFixed(0)} %` },
+  { label: "Washer on the head (of its limit)", better: "lower", value: (c) => ok(c)?.estimate.head.bearingUtilizationMax ?? null, show: (v) => `${(v * 100).toFixed(0)} %` },
+  { label: "Seal gained per +10 % torque", better: "higher", value: (c) => ok(c)?.estimate.gain.share ?? null, show: (v) => `${(v * 100).toFixed(0)} % of the added clamp` },
+  { label: "Headroom to the torque ceiling", better: "higher", value: (c) => { const v = ok(c); return v && Number.isFinite(v.ceiling.torqueNm) ? v.ceiling.torqueNm - v.torqueNm : null; }, show: (v, u, c) => `${v < 0 ? "⚠ past it by " : ""}${formatQuantity(Math.abs(v), "torque", u)} (${CEILING_WORDS[ok(c)!.ceiling.cause]})` },
+  { label: "More torque mostly squeezes the head", value: (c) => { const v = ok(c); return v ? (v.estimate.squeeze.mostlySqueezing ? 1 : 0) : null; }, show: (v) => (v ? "✖ yes, at this torque" : "no") },
+  { label: "Firing load the stud takes", value: (c) => ok(c)?.estimate.stiffness.loadFactor ?? null, show: (v) => `${(v * 100).toFixed(0)} %` },
 ];
 
 export default function Compare({ loaderData }: Route.ComponentProps) {

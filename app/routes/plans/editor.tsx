@@ -1,32 +1,43 @@
 import { useEffect, useMemo, useRef, useState } from "react";
 import { data, Form, Link, redirect, useFetcher, useNavigation } from "react-router";
 import type { Route } from "./+types/editor";
-import { Caution } from "~/components/caution";
-import { EstimatePanel } from "~/components/estimate-panel";
+import { Caution, CAUTION_HANDLE } from "~/components/caution";
+import { EstimatePanel, STATUS_LOOK, VerdictLine } from "~/components/estimate-panel";
 import { Button, FormError } from "~/components/form";
 import { MakerTorque } from "~/components/maker-torque";
 import { PlanFields } from "~/components/plan-form";
 import { SuggestionBox } from "~/components/suggestion-box";
 import type { Suggestion } from "~/lib/clamp";
-import { assemblePlanInput, gasketFitProblem } from "~/lib/plan/assemble";
+import { assemblePlanInput, gasketFitProblem, plannedByStretch, type PlanRecord } from "~/lib/plan/assemble";
 import type { EstimateView } from "~/lib/plan/estimate-view";
+import { figuresFollowStep, scaledWrenchStages } from "~/lib/plan/fastener-figures";
 import { parsePlanForm, planFormValues, type PlanWrite } from "~/lib/plan/form";
+import { stretchLine, stretchLineFor, studStiffnessFor, type StretchLine } from "~/lib/plan/stretch";
 import { formatQuantity } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
 import { estimatePlan } from "~/models/plan-estimate.server";
-import { archivePlan, choosePlan, createPlan, engineMaterials, planChoices, requirePlan, updatePlan } from "~/models/plan.server";
+import { archivePlan, choosePlan, createPlan, engineMaterials, planChoices, planParts, requirePlan, updatePlan } from "~/models/plan.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
-import { previewPlan, scaleStages } from "~/utils/plan-actions.server";
+import { previewPlan } from "~/utils/plan-actions.server";
 import { flashToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.plan.name ?? "Seal plan"} · Sealwright` }];
+
+// this page shows the full caution beside its figures (the footer leaves it out)
+export const handle = CAUTION_HANDLE;
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team, role } = await requireUser(request);
   const engine = await requireEngine(team.id, params.engineId);
   const plan = await requirePlan(team.id, engine.id, params.planId);
-  const [choices, materials, result] = await Promise.all([planChoices(team.id), engineMaterials(team.id, engine), estimatePlan(team.id, engine, plan, user.units)]);
+  const [choices, materials, result, stretch] = await Promise.all([
+    planChoices(team.id),
+    engineMaterials(team.id, engine),
+    estimatePlan(team.id, engine, plan, user.units),
+    stretchFor(team.id, engine, plan),
+  ]);
   return {
+    stretch,
     units: user.units,
     canEdit: roleAtLeast(role, "builder"),
     engine,
@@ -37,6 +48,12 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     result,
     chosen: engine.chosenPlanId === plan.id,
   };
+}
+
+/** The stretch line for plan figures (saved or as typed), or null when they cannot be estimated. */
+async function stretchFor(teamId: number, engine: Awaited<ReturnType<typeof requireEngine>>, plan: PlanRecord & { gasketId: number; fastenerId: number }): Promise<StretchLine | null> {
+  const parts = await planParts(teamId, engine, plan);
+  return parts ? stretchLineFor(assemblePlanInput(parts)) : null;
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -60,9 +77,14 @@ export async function action({ request, params }: Route.ActionArgs) {
     const torqueNm = Number(form.torqueNm);
     const protrusion = form.protrusionMm === undefined || form.protrusionMm === "" ? plan.sleeveProtrusionMm : Number(form.protrusionMm);
     if (!(torqueNm > 0 && torqueNm <= 5000) || (protrusion !== null && !(protrusion >= -0.5 && protrusion <= 1))) {
-      return data({ errors: { torque: "The suggested figures are out of range." }, values: planFormValues(plan, user.units), preview: null, suggestion: null, problems: [] }, { status: 400 });
+      return data(
+        { errors: { torque: "The suggested figures are out of range." }, values: planFormValues(plan, user.units), note: null, preview: null, suggestion: null, problems: [] as string[], stretch: null },
+        { status: 400 },
+      );
     }
-    const next: PlanWrite = { ...plan, torqueNm, stagesNm: scaleStages(plan.stagesNm, plan.torqueNm, torqueNm), sleeveProtrusionMm: protrusion };
+    const next: PlanWrite = { ...plan, torqueNm, stagesNm: scaledWrenchStages(plan.stagesNm, plan.torqueNm, torqueNm, user.units), sleeveProtrusionMm: protrusion };
+    // planned by stretch: the suggested torque becomes the stretch it gives, or the suggestion would change nothing
+    if (plannedByStretch(plan)) next.targetStretchMm = await stretchAtTorque(team.id, engine, { ...next, method: "torque-estimated-friction" });
     if (intent === "apply-torque") {
       await updatePlan(team.id, user.id, engine.id, plan.id, next);
       return redirect(`${base}/${plan.id}`, { headers: await toast("Suggested figures applied to this plan.") });
@@ -71,18 +93,39 @@ export async function action({ request, params }: Route.ActionArgs) {
     return redirect(`${base}/${id}`, { headers: await toast("New plan made from the suggestion.") });
   }
 
-  const parsed = parsePlanForm(form, user.units);
-  const values = Object.fromEntries(Object.entries(form).map(([k, v]) => [k, String(v)]));
-  if (!parsed.ok) return data({ errors: parsed.errors, values, preview: null, suggestion: null, problems: [] }, { status: 400 });
-  if (intent === "save") {
-    const { problems } = await previewPlan(team.id, engine, parsed.plan, false);
-    if (problems.length > 0) return data({ errors: {}, values, preview: null, suggestion: null, problems }, { status: 400 });
+  let values = Object.fromEntries(Object.entries(form).map(([k, v]) => [k, String(v)]));
+  let note: string | null = null;
+  const answer = (status: number, extra: { errors?: Record<string, string>; preview?: EstimateView | null; suggestion?: Suggestion | null; problems?: string[]; stretch?: StretchLine | null } = {}) =>
+    data({ errors: {}, values, note, preview: null, suggestion: null, problems: [] as string[], stretch: null, ...extra }, { status });
+  if (intent === "show-all-gaskets") {
+    values = { ...values, showAllGaskets: "1" };
+    return answer(200);
+  }
+  // Without JavaScript: the fastener changed but its figures are still the old stud's. Show the new
+  // maker's figures (and their estimate) and save nothing until the builder has seen them.
+  const followed = figuresFollowStep(values, (await planChoices(team.id)).fasteners, user.units);
+  if (followed) {
+    values = followed.values;
+    note = followed.note;
+  }
+  const parsed = parsePlanForm(values, user.units);
+  if (!parsed.ok) return answer(followed ? 200 : 400, { errors: followed ? {} : parsed.errors });
+  if (intent === "save" && !followed) {
+    const { problems } = await previewPlan(team.id, engine, parsed.plan, false, user.units);
+    if (problems.length > 0) return answer(400, { problems });
     await updatePlan(team.id, user.id, engine.id, plan.id, parsed.plan);
     return redirect(`${base}/${plan.id}`, { headers: await toast("Plan saved.") });
   }
-  // "estimate" and "suggest": compute for the values as typed; nothing is written.
+  // "estimate" and "suggest" (and a save held back above): compute for the values shown; nothing is written.
   const out = await previewPlan(team.id, engine, parsed.plan, intent === "suggest", user.units);
-  return data({ errors: {}, values, preview: out.view, suggestion: out.suggestion, problems: out.problems }, { status: out.problems.length ? 400 : 200 });
+  const stretch = out.view ? await stretchFor(team.id, engine, parsed.plan) : null;
+  return answer(out.problems.length ? 400 : 200, { preview: out.view, suggestion: out.suggestion, problems: out.problems, stretch });
+}
+
+/** The stud stretch (mm) a torque-planned version of the plan gives, or null when it cannot be estimated. */
+async function stretchAtTorque(teamId: number, engine: Awaited<ReturnType<typeof requireEngine>>, plan: PlanWrite): Promise<number | null> {
+  const line = await stretchFor(teamId, engine, plan);
+  return line ? Number(line.stretchMm.toFixed(4)) : null;
 }
 
 type ApiAnswer = EstimateView | { error: string; errors?: { path: string; message: string }[] };
@@ -98,10 +141,21 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
   const fastener = choices.fasteners.find((f) => String(f.id) === (live.fastenerId ?? values.fastenerId)) ?? (result.fastener as (typeof choices.fasteners)[number] | null);
   const sleeved = engine.sleeveKind !== "none" && materials.sleeve !== null;
   const torqueNm = view?.torqueNm ?? plan.torqueNm;
+  // a refused save or recalculation that brought no estimate back: what shows is the stored plan's
+  const refusedWithoutPreview = Boolean(actionData && Object.keys(actionData.errors ?? {}).length > 0 && !actionData.preview);
 
   return (
-    <div className="grid gap-6 lg:grid-cols-[minmax(0,26rem)_minmax(0,1fr)]">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,26rem)_minmax(0,1fr)]">
       <div>
+        {view ? (
+          // On a phone the estimate is far below the form: keep the verdict in sight while typing.
+          <p
+            className={`sticky top-0 z-10 mb-3 rounded border-2 px-3 py-2 text-sm shadow lg:hidden ${STATUS_LOOK[view.estimate.verdict.status].tone}`}
+            data-testid="verdict-bar"
+          >
+            <VerdictLine view={view} /> <a href="#estimate-title" className="underline">Estimate ↓</a>
+          </p>
+        ) : null}
         <div className="mb-3 flex flex-wrap items-center gap-2">
           <h2 className="text-2xl font-bold">{plan.name}</h2>
           {chosen ? <span className="rounded border border-held bg-held-50 px-2 py-0.5 text-sm font-bold text-held">✔ Chosen plan</span> : null}
@@ -109,7 +163,17 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
         <Form method="post" key={JSON.stringify(values)} onChange={live.onChange} ref={live.formRef} className="space-y-4" noValidate>
           <fieldset disabled={!canEdit} className="space-y-4">
             <legend className="sr-only">Plan inputs</legend>
-            <PlanFields values={values} errors={actionData?.errors ?? live.errors ?? {}} choices={choices} units={units} sleeved={sleeved} engineProtrusion={formatQuantity(engine.sleeveProtrusionMm, "smallLength", units)} />
+            <PlanFields
+              values={values}
+              errors={actionData?.errors ?? live.errors ?? {}}
+              choices={choices}
+              units={units}
+              sleeved={sleeved}
+              engineProtrusion={formatQuantity(engine.sleeveProtrusionMm, "smallLength", units)}
+              engineBoreMm={engine.boreMm}
+              note={actionData?.note}
+              stretch={live.stretch ?? (actionData ? actionData.stretch : loaderData.stretch)}
+            />
           </fieldset>
           {canEdit ? (
             <div className="flex flex-wrap gap-2">
@@ -144,6 +208,9 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
             <Link to={`/engines/${engine.id}/compare`} className="rounded border border-forge-300 bg-white px-4 py-2 font-medium">
               Compare plans
             </Link>
+            <Link to={`/engines/${engine.id}/plans/${plan.id}/copy`} className="rounded border border-forge-300 bg-white px-4 py-2 font-medium">
+              Copy to another engine
+            </Link>
           </div>
         ) : null}
       </div>
@@ -152,9 +219,11 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
         {suggestion ? <SuggestionBox suggestion={suggestion} units={units} canEdit={canEdit} /> : null}
         <Caution />
         {problems.length > 0 ? <FormError message={`The estimate cannot run: ${problems.join(" ")}`} /> : null}
-        {live.stale ? (
-          <p role="status" className="rounded border border-caution bg-caution-50 px-3 py-2 text-sm font-medium">
-            ⚠ The estimate below is for the last inputs that made sense; fix the marked fields to update it.
+        {live.stale || refusedWithoutPreview ? (
+          <p role="status" className="rounded border border-caution bg-caution-50 px-3 py-2 text-sm font-medium" data-testid="estimate-stale">
+            {refusedWithoutPreview && !live.view
+              ? "⚠ Nothing was saved, and the estimate below is still the saved plan's, not these figures: fix the marked fields, then Recalculate."
+              : "⚠ The estimate below is for the last inputs that made sense; fix the marked fields to update it."}
           </p>
         ) : null}
         {view ? <EstimatePanel view={view} units={units} targetMargin={Number(values.targetMargin) || plan.targetMargin} busy={live.busy} /> : null}
@@ -171,6 +240,8 @@ function useLiveEstimate(d: Route.ComponentProps["loaderData"]) {
   const [errors, setErrors] = useState<Record<string, string> | null>(null);
   const [fastenerId, setFastenerId] = useState<string | null>(null);
   const [stale, setStale] = useState(false);
+  // the stud stiffness and the target of the inputs last sent, to word the stretch beside the torque
+  const [stud, setStud] = useState<{ stiffnessNPerMm: number | null; byStretch: boolean } | null>(null);
   useEffect(() => () => clearTimeout(timer.current), []);
 
   const onChange = () => {
@@ -194,6 +265,7 @@ function useLiveEstimate(d: Route.ComponentProps["loaderData"]) {
         return setStale(true);
       }
       const input = assemblePlanInput({ engine: d.engine, plan: parsed.plan, fastener, gasket, head: d.materials.head, block: d.materials.block, sleeve: d.materials.sleeve });
+      setStud({ stiffnessNPerMm: studStiffnessFor(input), byStretch: plannedByStretch(parsed.plan) });
       fetcher.submit({ input, units: d.units } as never, { method: "post", action: "/api/v1/estimate", encType: "application/json" });
     }, 300);
   };
@@ -202,7 +274,8 @@ function useLiveEstimate(d: Route.ComponentProps["loaderData"]) {
     const answer = fetcher.data;
     const view = answer && "estimate" in answer ? answer : null;
     const problems = answer && "error" in answer ? (answer.errors?.map((e) => e.message) ?? [answer.error]) : null;
-    return { onChange, formRef, errors, fastenerId, stale, busy: fetcher.state !== "idle", view, problems };
+    const stretch = view && stud ? stretchLine(stud.byStretch ? "stretch" : "torque", view.estimate.tightening.preload.nominalN, view.torqueNm, stud.stiffnessNPerMm) : null;
+    return { onChange, formRef, errors, fastenerId, stale, busy: fetcher.state !== "idle", view, problems, stretch };
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [fetcher.data, fetcher.state, errors, fastenerId, stale]);
+  }, [fetcher.data, fetcher.state, errors, fastenerId, stale, stud]);
 }

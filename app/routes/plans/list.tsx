@@ -1,7 +1,8 @@
 import { Form, Link } from "react-router";
 import type { Route } from "./+types/list";
-import { Caution } from "~/components/caution";
-import { marginStatus } from "~/components/estimate-panel";
+import { Caution, CAUTION_HANDLE } from "~/components/caution";
+import { STATUS_LOOK } from "~/components/estimate-panel";
+import { CEILING_WORDS } from "~/lib/clamp";
 import { formatQuantity } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
 import { estimatePlan } from "~/models/plan-estimate.server";
@@ -9,6 +10,9 @@ import { listPlans } from "~/models/plan.server";
 import { requireUser, roleAtLeast } from "~/utils/auth.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Seal plans · Sealwright" }];
+
+// this page shows the full caution beside its figures (the footer leaves it out)
+export const handle = CAUTION_HANDLE;
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team, role } = await requireUser(request);
@@ -27,8 +31,9 @@ export async function loader({ request, params }: Route.LoaderArgs) {
         makerTorqueNm: r.fastener?.makerTorqueNm ?? null,
         makerLubricant: r.fastener?.makerLubricant ?? null,
         weakestMargin: r.ok ? r.view.estimate.weakestMargin : null,
-        weakestCylinder: r.ok ? r.view.estimate.weakestCylinder : null,
-        squeezeNm: r.ok ? r.view.squeezePoint.torqueNm : null,
+        verdict: r.ok ? { status: r.view.estimate.verdict.status, headline: r.view.estimate.verdict.headline } : null,
+        ceilingNm: r.ok ? r.view.ceiling.torqueNm : null,
+        ceilingCause: r.ok ? CEILING_WORDS[r.view.ceiling.cause] : null,
         problems: r.ok ? [] : r.problems,
       };
     }),
@@ -63,13 +68,13 @@ export default function PlanList({ loaderData }: Route.ComponentProps) {
                   <th scope="col" className="px-2 py-2">Fastener</th>
                   <th scope="col" className="px-2 py-2 text-right">Torque (ours)</th>
                   <th scope="col" className="px-2 py-2 text-right">Maker's figure</th>
-                  <th scope="col" className="px-2 py-2 text-right">Weakest margin</th>
-                  <th scope="col" className="px-2 py-2 text-right">Squeeze point</th>
+                  <th scope="col" className="px-2 py-2">Verdict</th>
+                  <th scope="col" className="px-2 py-2 text-right">Torque ceiling</th>
                 </tr>
               </thead>
               <tbody>
                 {rows.map((r) => {
-                  const s = r.weakestMargin === null ? null : marginStatus(r.weakestMargin, r.targetMargin);
+                  const s = r.verdict === null ? null : STATUS_LOOK[r.verdict.status];
                   return (
                     <tr key={r.id} className="border-t border-forge-100">
                       <td className="px-2 py-2">
@@ -88,12 +93,23 @@ export default function PlanList({ loaderData }: Route.ComponentProps) {
                         {r.makerTorqueNm === null ? "not recorded" : formatQuantity(r.makerTorqueNm, "torque", units)}
                         {r.makerLubricant ? <span className="block text-xs text-forge-700">{r.makerLubricant}</span> : null}
                       </td>
-                      <td className="px-2 py-2 text-right">
-                        {s ? `${s.icon} ${r.weakestMargin!.toFixed(2)} ${s.word} (cyl ${r.weakestCylinder})` : `✖ ${r.problems[0] ?? "cannot estimate"}`}
+                      <td className="px-2 py-2">
+                        {s && r.verdict ? (
+                          <>
+                            <span className="font-bold">
+                              {s.icon} {s.word}
+                            </span>{" "}
+                            {r.verdict.headline}
+                            <span className="block text-xs text-forge-700">weakest seal margin {r.weakestMargin!.toFixed(2)}, bottom of the scatter band</span>
+                          </>
+                        ) : (
+                          `✖ ${r.problems[0] ?? "cannot estimate"}`
+                        )}
                       </td>
                       <td className="px-2 py-2 text-right">
-                        {r.squeezeNm === null ? "—" : formatQuantity(r.squeezeNm, "torque", units)}
-                        {r.squeezeNm !== null && r.squeezeNm < r.torqueNm ? <span className="block text-xs font-medium text-failed">⚠ below this plan's torque</span> : null}
+                        {r.ceilingNm === null || !Number.isFinite(r.ceilingNm) ? "—" : formatQuantity(r.ceilingNm, "torque", units)}
+                        {r.ceilingCause ? <span className="block text-xs text-forge-700">{r.ceilingCause}</span> : null}
+                        {r.ceilingNm !== null && r.ceilingNm < r.torqueNm ? <span className="block text-xs font-medium text-failed">⚠ below this plan's torque</span> : null}
                       </td>
                     </tr>
                   );

@@ -1,18 +1,27 @@
+import { useState } from "react";
 import { data, Form, redirect } from "react-router";
 import type { Route } from "./+types/new";
-import { Caution } from "~/components/caution";
+import { Caution, CAUTION_HANDLE } from "~/components/caution";
+import { RoleRefusal } from "~/components/refusal";
 import { Button, FormError } from "~/components/form";
 import { MakerTorque } from "~/components/maker-torque";
 import { PlanFields } from "~/components/plan-form";
-import { parsePlanForm, planFormValues } from "~/lib/plan/form";
-import { formatQuantity } from "~/lib/units";
+import { assemblePlanInput, gasketsByFit } from "~/lib/plan/assemble";
+import { figuresFollowStep, makerPlanFigures } from "~/lib/plan/fastener-figures";
+import { parsePlanForm, planFormValues, type PlanWrite } from "~/lib/plan/form";
+import { stretchLineFor } from "~/lib/plan/stretch";
+import { formatQuantity, parseQuantity, unitFor } from "~/lib/units";
+import { decimalPoint } from "~/lib/units/decimal-comma";
 import { requireEngine } from "~/models/engine.server";
-import { createPlan, listPlans, planChoices } from "~/models/plan.server";
+import { createPlan, listPlans, planChoices, planParts } from "~/models/plan.server";
 import { requireRole } from "~/utils/auth.server";
 import { previewPlan } from "~/utils/plan-actions.server";
 import { flashToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "New seal plan · Sealwright" }];
+
+// this page shows the full caution beside its figures (the footer leaves it out)
+export const handle = CAUTION_HANDLE;
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team } = await requireRole(request, "builder");
@@ -20,34 +29,40 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const [choices, plans] = await Promise.all([planChoices(team.id), listPlans(team.id, engine.id)]);
   // Start from the chosen plan (or the latest), so a new plan differs only where the builder changes it.
   const template = plans.find((p) => p.id === engine.chosenPlanId) ?? plans[plans.length - 1];
+  // Without a plan to start from: the first fastener with the maker's figures, and the gasket whose bore fits most closely.
   const fastener = choices.fasteners.find((f) => f.id === template?.fastenerId) ?? choices.fasteners[0];
-  // Without a plan to start from: the gasket whose bore fits this engine most closely.
-  const fitting = choices.gaskets.filter((g) => g.boreMm >= engine.boreMm).sort((x, y) => x.boreMm - y.boreMm);
+  const { fitting } = gasketsByFit(choices.gaskets, engine.boreMm);
   const gasket = choices.gaskets.find((g) => g.id === template?.gasketId) ?? fitting[0] ?? choices.gaskets[0];
-  const torqueNm = template?.torqueNm ?? fastener?.makerTorqueNm ?? 100;
-  const values = planFormValues(
-    template
-      ? { ...template, name: "", notes: "" }
-      : {
-          name: "",
-          gasketId: gasket?.id ?? 0,
-          fastenerId: fastener?.id ?? 0,
-          lubricant: fastener?.makerLubricant ?? "",
-          threadFriction: fastener?.threadFriction ?? 0.12,
-          bearingFriction: fastener?.bearingFriction ?? 0.12,
-          method: "torque-estimated-friction",
-          torqueNm,
-          stagesNm: [Math.round(torqueNm * 0.4), Math.round(torqueNm * 0.7), torqueNm],
-          wireLocation: gasket?.type === "solid-copper" ? "block" : "none",
-          wireProjectionMm: gasket?.type === "solid-copper" ? 0.1 : 0,
-          receiverGrooveDepthMm: 0,
-          sleeveProtrusionMm: null,
-          targetMargin: 1.5,
-          notes: "",
-        },
-    user.units,
-  );
-  return { units: user.units, engine, choices, values, torqueNm, emptyLibrary: !fastener || !gasket };
+  const plan: PlanWrite = template
+    ? { ...template, name: "", notes: "" }
+    : {
+        name: "",
+        gasketId: gasket?.id ?? 0,
+        ...makerPlanFigures(fastener, user.units),
+        method: "torque-estimated-friction",
+        wireLocation: gasket?.type === "solid-copper" ? "block" : "none",
+        wireProjectionMm: gasket?.type === "solid-copper" ? 0.1 : 0,
+        receiverGrooveDepthMm: 0,
+        sleeveProtrusionMm: null,
+        targetStretchMm: null,
+        targetMargin: 1.5,
+        notes: "",
+      };
+  // planned by stretch gauge: the maker's stretch figure is the starting target
+  if (plan.method === "stretch-measured" && plan.targetStretchMm == null) plan.targetStretchMm = fastener?.makerStretchMm ?? null;
+  return {
+    units: user.units,
+    engine,
+    choices,
+    values: planFormValues(plan, user.units),
+    stretch: await stretchFor(team.id, engine, plan),
+    emptyLibrary: !fastener || !gasket,
+  };
+}
+
+async function stretchFor(teamId: number, engine: Awaited<ReturnType<typeof requireEngine>>, plan: PlanWrite) {
+  const parts = await planParts(teamId, engine, plan);
+  return parts ? stretchLineFor(assemblePlanInput(parts)) : null;
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -55,18 +70,36 @@ export async function action({ request, params }: Route.ActionArgs) {
   const engine = await requireEngine(team.id, params.engineId);
   const form = Object.fromEntries(await request.formData());
   const values = Object.fromEntries(Object.entries(form).map(([k, v]) => [k, String(v)]));
+  const answer = async (status: number, extra: { errors?: Record<string, string>; problems?: string[]; note?: string | null; values?: Record<string, string> } = {}) => {
+    const shown = parsePlanForm(extra.values ?? values, user.units);
+    const stretch = shown.ok ? await stretchFor(team.id, engine, shown.plan) : null;
+    return data({ errors: {}, problems: [] as string[], note: null as string | null, values, stretch, ...extra }, { status });
+  };
+  if (values.intent === "show-all-gaskets") return answer(200, { values: { ...values, showAllGaskets: "1" } });
+  // Without JavaScript: the fastener changed but its figures are still the old stud's; show the new maker's first.
+  const choices = await planChoices(team.id);
+  const followed = figuresFollowStep(values, choices.fasteners, user.units);
+  if (followed) return answer(200, { values: followed.values, note: followed.note });
   const parsed = parsePlanForm(form, user.units);
-  if (!parsed.ok) return data({ errors: parsed.errors, values, problems: [] as string[] }, { status: 400 });
-  const { problems } = await previewPlan(team.id, engine, parsed.plan, false);
-  if (problems.length > 0) return data({ errors: {}, values, problems }, { status: 400 });
+  if (!parsed.ok) return answer(400, { errors: parsed.errors });
+  const { problems } = await previewPlan(team.id, engine, parsed.plan, false, user.units);
+  if (problems.length > 0) return answer(400, { problems });
   const id = await createPlan(team.id, user.id, engine.id, parsed.plan);
   return redirect(`/engines/${engine.id}/plans/${id}`, { headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: "Plan created." }) } });
 }
 
 export default function NewPlan({ loaderData, actionData }: Route.ComponentProps) {
-  const { units, engine, choices, emptyLibrary } = loaderData;
   const values = actionData?.values ?? loaderData.values;
-  const fastener = choices.fasteners.find((f) => String(f.id) === values.fastenerId);
+  // a post-back (a changed fastener, "Show all gaskets", errors) re-seeds the form with what the server answered
+  return <NewPlanForm key={JSON.stringify(values)} values={values} loaderData={loaderData} actionData={actionData} />;
+}
+
+function NewPlanForm({ values, loaderData, actionData }: { values: Record<string, string> } & Pick<Route.ComponentProps, "loaderData" | "actionData">) {
+  const { units, engine, choices, emptyLibrary } = loaderData;
+  const [fastenerId, setFastenerId] = useState(values.fastenerId);
+  const [torqueText, setTorqueText] = useState(values.torque ?? "");
+  const fastener = choices.fasteners.find((f) => String(f.id) === fastenerId);
+  const torque = parseQuantity(decimalPoint(torqueText), "torque", unitFor("torque", units));
   return (
     <div className="max-w-xl">
       <h2 className="mb-4 text-2xl font-bold">New seal plan</h2>
@@ -74,14 +107,43 @@ export default function NewPlan({ loaderData, actionData }: Route.ComponentProps
       {actionData?.problems?.length ? <FormError message={`The estimate cannot run: ${actionData.problems.join(" ")}`} /> : null}
       {fastener ? (
         <div className="mb-4">
-          <MakerTorque ourTorqueNm={loaderData.torqueNm} makerTorqueNm={fastener.makerTorqueNm} makerLubricant={fastener.makerLubricant} makerStages={fastener.makerStages} units={units} />
+          <MakerTorque ourTorqueNm={torque.ok ? torque.valueSi : 0} makerTorqueNm={fastener.makerTorqueNm} makerLubricant={fastener.makerLubricant} makerStages={fastener.makerStages} units={units} />
         </div>
       ) : null}
-      <Form method="post" className="space-y-4" noValidate>
-        <PlanFields values={values} errors={actionData?.errors ?? {}} choices={choices} units={units} sleeved={engine.sleeveKind !== "none"} engineProtrusion={formatQuantity(engine.sleeveProtrusionMm, "smallLength", units)} />
-        <Button type="submit">Create plan</Button>
+      <Form
+        method="post"
+        className="space-y-4"
+        noValidate
+        onChange={(e) => {
+          const t = e.target as unknown as HTMLInputElement;
+          if (t.name === "torque") setTorqueText(t.value);
+        }}
+      >
+        <PlanFields
+          values={values}
+          errors={actionData?.errors ?? {}}
+          choices={choices}
+          units={units}
+          sleeved={engine.sleeveKind !== "none"}
+          engineProtrusion={formatQuantity(engine.sleeveProtrusionMm, "smallLength", units)}
+          engineBoreMm={engine.boreMm}
+          note={actionData?.note}
+          stretch={actionData ? actionData.stretch : loaderData.stretch}
+          onFiguresFollowed={(followed) => {
+            setFastenerId(followed.fastenerId ?? "");
+            setTorqueText(followed.torque ?? "");
+          }}
+        />
+        <Button type="submit" name="intent" value="create">
+          Create plan
+        </Button>
       </Form>
       <Caution className="mt-6" />
     </div>
   );
+}
+
+// Inside the engine layout: a viewer who types this address reads why, with the engine's tabs still there.
+export function ErrorBoundary({ error, params }: Route.ErrorBoundaryProps) {
+  return <RoleRefusal error={error} who="A builder or the owner makes seal plans." backTo={`/engines/${params.engineId}/plans`} backLabel="Back to the seal plans" />;
 }

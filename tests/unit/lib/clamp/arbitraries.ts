@@ -50,6 +50,23 @@ export const rawPlan: fc.Arbitrary<PlanInputRaw> = fc
     headC: dbl(-20, 200),
     blockC: dbl(-20, 200),
     studC: dbl(-20, 200),
+    // fields the model gained with issue 7 (each optional in the schema, so sometimes left out)
+    gasketType: fc.constantFrom("solid-copper", "mls", "mls-with-ring", "fire-ring" as const),
+    bead: fc.option(fc.record({ loadNPerMm: dbl(5, 400), travelMm: dbl(0.02, 0.4) }), { nil: undefined }),
+    hardness: fc.option(dbl(100, 3000), { nil: undefined }),
+    en13555: fc.option(fc.record({ seating: dbl(5, 300), service: dbl(2, 200), max: fc.option(dbl(100, 2000), { nil: undefined }) }), { nil: undefined }),
+    bodySeal: fc.option(dbl(0.5, 50), { nil: undefined }),
+    headDeck: fc.option(dbl(4, 30), { nil: undefined }),
+    blockDeck: fc.option(dbl(4, 30), { nil: undefined }),
+    headYield: fc.option(dbl(100, 600), { nil: undefined }),
+    blockYield: fc.option(dbl(100, 600), { nil: undefined }),
+    blockShear: fc.option(dbl(60, 400), { nil: undefined }),
+    studSpacing: fc.option(dbl(40, 250), { nil: undefined }),
+    nutFaceExtra: fc.option(dbl(0.5, 12), { nil: undefined }),
+    washerTurns: fc.boolean(),
+    rolledAfter: fc.boolean(),
+    wetMid: fc.boolean(),
+    targetMargin: dbl(1, 3),
   })
   .map((r): PlanInputRaw => {
     const banks = r.layout === "V" ? 2 : 1;
@@ -63,9 +80,9 @@ export const rawPlan: fc.Arbitrary<PlanInputRaw> = fc
         ? { kind: "none" as const }
         : r.sleeve === "dry"
           ? { kind: "dry" as const, modulusMpa: 169_000, wallMm: r.ringW + r.sleeveWallExtra }
-          : { kind: "wet-flange" as const, modulusMpa: 169_000, wallMm: r.ringW + r.sleeveWallExtra, supportLengthMm: r.support };
+          : { kind: r.wetMid ? ("wet-mid" as const) : ("wet-flange" as const), modulusMpa: 169_000, wallMm: r.ringW + r.sleeveWallExtra, supportLengthMm: r.support };
     return {
-      engine: { cylinders, layout: r.layout, boreMm: r.boreMm },
+      engine: { cylinders, layout: r.layout, boreMm: r.boreMm, studSpacingMm: r.studSpacing },
       studs: defaultStudPattern(r.layout, cylinders, perBank + 1 + r.extraStuds),
       fastener: {
         diameterMm: d,
@@ -80,6 +97,9 @@ export const rawPlan: fc.Arbitrary<PlanInputRaw> = fc
         washerOdMm: d + r.holeExtra + r.washerExtra,
         washerHoleMm: d + r.holeExtra,
         washerThicknessMm: r.washerT,
+        nutFaceOdMm: r.nutFaceExtra === undefined ? undefined : d + r.holeExtra + r.nutFaceExtra,
+        washerTurns: r.washerTurns,
+        rolledAfterHeatTreatment: r.rolledAfter,
       },
       tightening: {
         target: r.preloadMode ? { mode: "preload", preloadN: r.preloadN } : { mode: "torque", torqueNm: r.torqueNm },
@@ -87,9 +107,9 @@ export const rawPlan: fc.Arbitrary<PlanInputRaw> = fc
         bearingFriction: r.muK,
         method: r.method,
       },
-      head: { thicknessAtStudMm: r.headT, modulusMpa: r.headE, expansionUmPerMC: 21.4, limitingSurfacePressureMpa: r.pG },
+      head: { thicknessAtStudMm: r.headT, modulusMpa: r.headE, expansionUmPerMC: 21.4, limitingSurfacePressureMpa: r.pG, yieldMpa: r.headYield, deckThicknessMm: r.headDeck },
       gasket: {
-        type: "mls-with-ring",
+        type: r.gasketType,
         compressedThicknessMm: r.gasketT,
         sealDiameterMm: r.boreMm + r.ringW + r.sealExtra,
         ringWidthMm: r.ringW,
@@ -101,14 +121,22 @@ export const rawPlan: fc.Arbitrary<PlanInputRaw> = fc
         m: r.m,
         yMpa: r.y,
         relaxationPercent: r.relax,
+        sealLineHardnessMpa: r.hardness,
+        beadLoadNPerMm: r.bead?.loadNPerMm,
+        beadTravelMm: r.bead?.travelMm,
+        seatingPressureMpa: r.en13555?.seating,
+        minServicePressureMpa: r.en13555?.service,
+        maxPressureMpa: r.en13555?.max,
+        bodySealPressureMpa: r.bodySeal,
       },
-      block: { modulusMpa: r.blockE, expansionUmPerMC: 10.8, clampedDepthMm: r.blockDepth },
+      block: { modulusMpa: r.blockE, expansionUmPerMC: 10.8, clampedDepthMm: r.blockDepth, yieldMpa: r.blockYield, deckThicknessMm: r.blockDeck, shearStrengthMpa: r.blockShear },
       sleeve,
       sealing: { sleeveProtrusionMm: r.protrusion, wireProjectionMm: r.wire, receiverGrooveDepthMm: r.receiver },
       firing: r.estimated
         ? { mode: "estimated", manifoldAbsKpa: r.peakMpa * 20, compressionRatio: 9, pressureRiseFactor: 2 }
         : { mode: "entered", peakPressureMpa: r.peakMpa },
       temperatures: { assemblyC: 20, headC: r.headC, blockC: r.blockC, studC: r.studC },
+      targetMargin: r.targetMargin,
     };
   });
 

@@ -1,7 +1,7 @@
 // REFERENCES.md §7 materials and §6 gasket factors as carried in app/lib/clamp/handbook.ts.
 // These are transcription checks (a wrong digit fails) plus the one conversion in the table.
 import { describe, expect, it } from "vitest";
-import { ASME_GASKET_FACTORS, FASTENER_CLASSES, HANDBOOK_MATERIALS, LIMITING_SURFACE_PRESSURE_MPA } from "../../../../app/lib/clamp";
+import { ANNEALED_COPPER_HARDNESS_MPA, ASME_GASKET_FACTORS, FASTENER_CLASSES, HANDBOOK_MATERIALS, LIMITING_SURFACE_PRESSURE_MPA, TYPICAL_GASKETS } from "../../../../app/lib/clamp";
 import { PSI_TO_MPA, relErr } from "../nist";
 
 describe("§7 materials (typical or minimum, as REFERENCES notes)", () => {
@@ -49,5 +49,28 @@ describe("§7 materials (typical or minimum, as REFERENCES notes)", () => {
   });
   it("§5 statement: an aluminium head on steel studs gains preload when hot (handbook expansions)", () => {
     expect(HANDBOOK_MATERIALS["a356-t6"].expansionUmPerMC).toBeGreaterThan(HANDBOOK_MATERIALS["4340-qt"].expansionUmPerMC);
+  });
+});
+
+describe("typical gasket families (gasket-families.ts): the published figures they carry", () => {
+  it("ASME VIII-1 Table 2-5.1 stand-ins: solid copper 4.75 / 13 000 psi, the steel families soft steel 5.50 / 18 000 psi", () => {
+    const copper = ASME_GASKET_FACTORS["solid flat copper"];
+    const steel = ASME_GASKET_FACTORS["solid flat soft steel"];
+    expect(TYPICAL_GASKETS["solid-copper"].m).toBe(copper.m);
+    expect(TYPICAL_GASKETS["solid-copper"].yMpa).toBeCloseTo(copper.yPsi * PSI_TO_MPA, 9);
+    for (const f of ["mls", "mls-with-ring", "fire-ring"] as const) {
+      expect(TYPICAL_GASKETS[f].m, f).toBe(steel.m);
+      expect(TYPICAL_GASKETS[f].yMpa, f).toBeCloseTo(steel.yPsi * PSI_TO_MPA, 9);
+    }
+  });
+  it("solid copper: the wire bites into annealed copper at its published hardness (40 HV, Copper Development Association UK), copper yield and modulus from §7", () => {
+    const c = TYPICAL_GASKETS["solid-copper"];
+    expect(c.sealLineHardnessMpa).toBe(ANNEALED_COPPER_HARDNESS_MPA);
+    expect(c.sealLineYieldMpa).toBe(HANDBOOK_MATERIALS["c11000-annealed"].yieldMpa);
+    expect(c.bodyModulusMpa).toBe(HANDBOOK_MATERIALS["c11000-annealed"].modulusMpa);
+    expect(c.ringModulusMpa).toBe(HANDBOOK_MATERIALS["stainless-300-wire"].modulusMpa);
+  });
+  it("every family says its figures are typical and names what is assumed", () => {
+    for (const [k, g] of Object.entries(TYPICAL_GASKETS)) expect(g.notes, k).toMatch(/assumption|ours|typical/i);
   });
 });

@@ -1,8 +1,16 @@
-// Every check in REFERENCES.md §1–§7, each with its source and a stated tolerance.
-// §8 (chamber) lives in tests/unit/lib/chamber/chamber.test.ts.
+// Every check in REFERENCES.md §1–§7, each with its source and a stated tolerance, and the
+// published checks of the model's load-introduction factor, unified threads and copper hardness.
+// §8 (chamber) lives in tests/unit/lib/chamber/chamber.test.ts; the plate formula in plate.test.ts.
 import { describe, expect, it } from "vitest";
 import {
+  ANNEALED_COPPER_HARDNESS_MPA,
   asmeRequirement,
+  bearingDiameterMm,
+  loadBore,
+  loadFactorAtInnerPlane,
+  looksUnified,
+  PlanInputSchema,
+  prepare,
   embeddingMm,
   equivalentNutFactor,
   frustumStiffness,
@@ -22,6 +30,7 @@ import {
   wilemanMemberStiffness,
 } from "../../../../app/lib/clamp";
 import { IN_TO_MM, LBF_PER_IN_TO_N_PER_MM, LBF_TO_N, PSI_TO_MPA, relErr } from "../nist";
+import { v8Raw, workedExample } from "./fixtures";
 
 describe("§1 thread geometry", () => {
   it("M12×1.5 stress area 88.13 mm² (computed from ISO 898-1; ISO fine-thread table 88.1, from memory)", () => {
@@ -49,6 +58,37 @@ describe("§1 thread geometry", () => {
     expect(Math.abs(unifiedStressAreaIn2(0.5, 13) - 0.1419)).toBeLessThanOrEqual(0.0001);
   });
 });
+describe("§1 unified threads through the model (ASME B1.1)", () => {
+  // ASME B1.1 tensile stress areas, in² (from memory of the B1.1 table); ±0.0002 in² covers the table's
+  // rounding to four places and the formula-vs-table difference REFERENCES notes for 1/2-20 (0.1600 vs 0.1599).
+  const IN2 = IN_TO_MM * IN_TO_MM;
+  it.each([
+    { size: "1/2-13 UNC", dIn: 0.5, tpi: 13, tableIn2: 0.1419 },
+    { size: "1/2-20 UNF", dIn: 0.5, tpi: 20, tableIn2: 0.1599 },
+    { size: "7/16-14 UNC", dIn: 0.4375, tpi: 14, tableIn2: 0.1063 },
+    { size: "7/16-20 UNF", dIn: 0.4375, tpi: 20, tableIn2: 0.1187 },
+    { size: "3/8-16 UNC", dIn: 0.375, tpi: 16, tableIn2: 0.0775 },
+  ])("$size: threadGeometry(d, P, \"unified\") gives the B1.1 table's $tableIn2 in² (from memory), ±0.0002 in²", ({ dIn, tpi, tableIn2 }) => {
+    const d = dIn * IN_TO_MM;
+    const P = IN_TO_MM / tpi;
+    const t = threadGeometry(d, P, "unified");
+    expect(Math.abs(t.stressAreaMm2 / IN2 - tableIn2)).toBeLessThanOrEqual(0.0002);
+    // and the size is recognised as unified, so a plan without a thread form gets B1.1's area
+    expect(looksUnified(d, P)).toBe(true);
+    // the ISO form (d2 + d3)/2 = d − 0.9382·P would give 0.6–1 % more area for the same size: the switch matters
+    expect(threadGeometry(d, P, "iso").stressAreaMm2 / t.stressAreaMm2).toBeGreaterThan(1.005);
+  });
+  it("metric sizes are not taken for unified ones: M12×1.5, M12×1.25, M14×1.5, M10×1.25, M16×1.5", () => {
+    for (const [d, P] of [[12, 1.5], [12, 1.25], [14, 1.5], [10, 1.25], [16, 1.5]]) expect(looksUnified(d, P), `M${d}×${P}`).toBe(false);
+  });
+  it("a plan with 1/2-20 studs and no thread form is evaluated with the B1.1 area (0.1599 in², ±0.0002)", () => {
+    const p = prepare(PlanInputSchema.parse(v8Raw()));
+    expect(p.threadForm).toBe("unified");
+    expect(Math.abs(p.thread.stressAreaMm2 / IN2 - 0.1599)).toBeLessThanOrEqual(0.0002);
+    expect(prepare(workedExample()).threadForm).toBe("iso"); // M14×1.5
+  });
+});
+
 
 describe("§2 torque to preload", () => {
   // 1/2-20, μG = μK = 0.12, dw = 0.75 in, dh = 0.53 in → T/F = 0.07875 in, K 0.1575 (computed, ISO 16047 form)
@@ -110,12 +150,59 @@ describe("§2 torque to preload", () => {
     const s = tighteningStressPerN(t, { areaMm2: t.stressAreaMm2, diameterMm: t.stressDiameterMm }, 0.12);
     // σ = 50000/88.1263 = 567.37 MPa
     // MG = 50000·(11.025722/2)·(1.5/(π·11.025722) + 1.155·0.12) = 50000·5.512861·(0.043305 + 0.1386) = 50 140 N·mm
-    // Wp = π·10.592709³/16 = 233.36 mm³ → τ = 214.86 MPa; σred = √(567.37² + 3·214.86²) = 678.16 MPa
+    // Wp = π·10.592709³/16 = 233.36 mm³ → τ = 214.86 MPa (elastic); VDI's FMzul form takes ¾ of it
+    // (torsion on π·d0³/12): σred = √(567.37² + 3·161.145²) = 632.31 MPa
     expect(relErr(s.axial * 50_000, 567.37)).toBeLessThan(1e-3);
     expect(relErr(s.torsion * 50_000, 214.86)).toBeLessThan(1e-3);
-    expect(relErr(s.equivalent * 50_000, 678.16)).toBeLessThan(1e-3);
+    expect(relErr(s.equivalent * 50_000, 632.31)).toBeLessThan(1e-3);
   });
 });
+describe("§2 VDI 2230 tightening table: metric fine threads, hex-head screws, μG = μK = 0.12, ν = 0.9", () => {
+  // Source: a fastener supplier's table quoting VDI 2230 Part 1 (2001/2003 edition), assembly preload FM
+  // and tightening torque MA at 90 % use of the minimum Rp0.2, for μG = μK = 0.12.
+  // Rp0.2 minimum (ISO 898-1, from memory): 10.9 → 940 MPa, 12.9 → 1100 MPa; 8.8 → 640 MPa for d ≤ 16 mm
+  // (660 MPa is the figure for d > 16 mm; with 660 the M14×1.5 8.8 row comes out 3.3 % high, with 640 it
+  // matches to 0.2 %, so the table was computed with 640).
+  // Bearing: hex-head dw,min (ISO 4014/4017, from memory) M12 16.6, M14 19.6, M16 22.5 mm; medium
+  // clearance holes ISO 273 (from memory) 13.5 / 15.5 / 17.5 mm; DKm = (dw + dh)/2.
+  const rows = [
+    { size: "M12×1.25", cls: "10.9", d: 12, P: 1.25, rp: 940, fmKn: 70.5, maNm: 133, dw: 16.6, dh: 13.5 },
+    { size: "M14×1.5", cls: "10.9", d: 14, P: 1.5, rp: 940, fmKn: 95.2, maNm: 209, dw: 19.6, dh: 15.5 },
+    { size: "M14×1.5", cls: "12.9", d: 14, P: 1.5, rp: 1100, fmKn: 111.4, maNm: 244, dw: 19.6, dh: 15.5 },
+    { size: "M16×1.5", cls: "10.9", d: 16, P: 1.5, rp: 940, fmKn: 128.7, maNm: 320, dw: 22.5, dh: 17.5 },
+    { size: "M14×1.5", cls: "8.8", d: 14, P: 1.5, rp: 640, fmKn: 64.8, maNm: 142, dw: 19.6, dh: 15.5 },
+  ];
+  const mu = { thread: 0.12, bearing: 0.12 };
+
+  // Tolerance 1.5 %: the table rounds FM to 0.1 kN (≤ 0.15 %) and works from the minimum Rp0.2; the rest
+  // is room for the table's rounded constants. A different stress formula shows as several per cent:
+  // with the elastic Wp = π·d0³/16 the model put FM 6.0–6.3 % under every row; it now takes the
+  // torsion on π·d0³/12 as VDI's FMzul does (the next test shows the formula the table follows).
+  it.each(rows)("$size $cls: FM = 0.9·Rp0.2 / σred per newton (the model's tightening stress) gives $fmKn kN, ±1.5 %", (r) => {
+    const t = threadGeometry(r.d, r.P);
+    const perN = tighteningStressPerN(t, { areaMm2: t.stressAreaMm2, diameterMm: t.stressDiameterMm }, mu.thread);
+    const fm = (0.9 * r.rp) / perN.equivalent;
+    expect(relErr(fm / 1000, r.fmKn)).toBeLessThan(0.015);
+  });
+
+  it.each(rows)("$size $cls: the table itself follows VDI's FMzul = As·ν·Rp0.2/√(1 + 3·[3/2·(d2/d0)·(P/(π·d2) + 1.155·μG)]²), ±0.5 %", (r) => {
+    // VDI 2230 Part 1 FMzul with the plastic torsion modulus π·d0³/12, hence 3/2 where the elastic π·d0³/16
+    // gives 2 (from memory). This checks the transcription of the table and names the formula it follows.
+    const t = threadGeometry(r.d, r.P);
+    const k = 1.5 * (t.pitchDiameterMm / t.stressDiameterMm) * (r.P / (Math.PI * t.pitchDiameterMm) + 1.155 * mu.thread);
+    const fm = (t.stressAreaMm2 * 0.9 * r.rp) / Math.sqrt(1 + 3 * k * k);
+    expect(relErr(fm / 1000, r.fmKn)).toBeLessThan(0.005);
+  });
+
+  // Tolerance 3 %: dw,min and the ISO 273 holes are recalled, not read; the table rounds MA to 1 N·m and
+  // uses VDI's rounded 0.16·P and 0.58·d2 (0.5 % apart from the exact long form, see above).
+  it.each(rows)("$size $cls: MA = FM × long form (ISO 16047) with DKm = (dw + dh)/2 gives $maNm N·m, ±3 %", (r) => {
+    const t = threadGeometry(r.d, r.P);
+    const g = { pitchMm: r.P, pitchDiameterMm: t.pitchDiameterMm, bearingDiameterMm: bearingDiameterMm(r.dw, r.dh) };
+    expect(relErr(torqueForPreload(r.fmKn * 1000, g, mu), r.maNm)).toBeLessThan(0.03);
+  });
+});
+
 
 describe("§3 stud stiffness", () => {
   it("Shigley 8th ed. problem 8-20: Ad 113, At 84.3, E 207 GPa, lt 15, ld 30 → 466.8 MN/m, ±0.05 %", () => {
@@ -153,6 +240,63 @@ describe("§4 member stiffness and the joint", () => {
     expect(j.separationLoadN).toBeCloseTo(45_330.29, 1); // 40000/0.8824123
   });
 });
+describe("§4 load introduced inside the joint (VDI 2230 Φn; Shigley's joint diagram with the load plane moved)", () => {
+  it("n = 1 (all of the members below the load plane): Φn = C and the joint gives Shigley §8-7's numbers", () => {
+    // Shigley 8th ed. problem values (REFERENCES §3–§4): kb 466.8, km 3503 MN/m, Fi 40 kN, P 10 kN
+    const dS = 1 / 466_800;
+    const dP = 1 / 3_503_000;
+    const phi = loadFactorAtInnerPlane(dS, dP, dP);
+    expect(phi).toBeCloseTo(jointConstant(466_800, 3_503_000), 12);
+    const j = jointUnderLoad(40_000, 10_000, phi);
+    // Fb = Fi + C·P = 40 000 + 0.117588·10 000; Fm = Fb − P; P0 = Fi/(1 − C)
+    expect(j.studLoadN).toBeCloseTo(41_175.88, 1);
+    expect(j.memberLoadN).toBeCloseTo(31_175.88, 1);
+    expect(j.separationLoadN).toBeCloseTo(45_330.29, 1);
+  });
+
+  it("load at an inner plane: the compatibility conditions, solved by hand, give a gasket loss of (1 − Φn)·P > (1 − C)·P", () => {
+    // Stated case (ours): stud δS = 2e-6 mm/N; head (above the load plane) δA = 1e-6; gasket + block
+    // (below) δB = 0.5e-6; preload 40 kN; gas load P = 10 kN on the head at the gasket plane.
+    const dS = 2e-6;
+    const dA = 1e-6;
+    const dB = 0.5e-6;
+    const P = 10_000;
+    // The head carries the stud force (nut on top), so ΔFA = ΔFS; head equilibrium: ΔFS = ΔFB + P.
+    // Compatibility (stud stretch change = −(change of compression above + below)):
+    //   δS·ΔFS + δA·ΔFA + δB·ΔFB = 0  →  (δS + δA)·ΔFS + δB·ΔFB = 0
+    //   ΔFS − ΔFB = P
+    // Cramer's rule on [[δS + δA, δB], [1, −1]]·[ΔFS, ΔFB] = [0, P]:
+    const det = -(dS + dA) - dB;
+    const dFS = (0 * -1 - dB * P) / det;
+    const dFB = ((dS + dA) * P - 0) / det;
+    // by hand: det = −3.5e-6; ΔFS = −0.5e-6·10 000/−3.5e-6 = 1428.571 N; ΔFB = 3e-6·10 000/−3.5e-6 = −8571.429 N
+    expect(dFS).toBeCloseTo(1428.571, 3);
+    expect(dFB).toBeCloseTo(-8571.429, 3);
+    // the model's Φn = δB/(δS + δP) = 0.5/3.5 = 0.142857: the stud gains Φn·P, the gasket loses (1 − Φn)·P
+    const phi = loadFactorAtInnerPlane(dS, dA + dB, dB);
+    expect(phi).toBeCloseTo(0.142857, 6);
+    const j = jointUnderLoad(40_000, P, phi);
+    expect(j.studLoadN - 40_000).toBeCloseTo(dFS, 6);
+    expect(j.memberLoadN - 40_000).toBeCloseTo(dFB, 6);
+    // Shigley's C = δP/(δS + δP) = 1.5/3.5 = 0.428571 would have the gasket lose only 5714.29 N
+    const C = jointConstant(1 / dS, 1 / (dA + dB));
+    expect(C).toBeCloseTo(0.428571, 6);
+    expect((1 - C) * P).toBeCloseTo(5714.286, 3);
+    expect(-dFB).toBeGreaterThan((1 - C) * P);
+  });
+
+  it("the model takes Φn from the layers under the gasket plane and relieves each bore by (1 − Φn)·H (worked example)", () => {
+    const p = prepare(workedExample());
+    const below = p.layers.reduce((s, l, i) => s + (l.name === "gasket" || l.name === "block" ? p.member.layerCompliance[i] : 0), 0);
+    expect(below).toBeGreaterThan(0);
+    expect(p.phi).toBeCloseTo(below / (p.stud.complianceMmPerN + p.member.complianceMmPerN), 12);
+    expect(p.reliefPerBoreN).toBeCloseTo((1 - p.phi) * p.requirement.pressureForceN, 6);
+    // the head is on the stud's side: Φn < C, so the gasket loses more than Shigley's (1 − C)·H
+    expect(p.phi).toBeLessThan(p.C);
+    expect(p.reliefPerBoreN).toBeGreaterThan((1 - p.C) * p.requirement.pressureForceN);
+  });
+});
+
 
 describe("§5 settling and heat", () => {
   it("embedding amounts (VDI 2230 table, from memory): Rz 10–40, 2 threads + 1 bearing + 2 inner = 13 µm", () => {
@@ -200,5 +344,23 @@ describe("§6 gasket seal (ASME BPVC VIII-1 App. 2)", () => {
     const w = asmeRequirement(200, 16, 1, 3, 10); // b0 = 8 mm → b = 2.5·√8 = 7.0711; G = OD − 2b = 216 − 14.142 = 201.858
     expect(w.effectiveWidthMm).toBeCloseTo(7.0711, 4);
     expect(w.reactionDiameterMm).toBeCloseTo(201.858, 3);
+  });
+});
+
+describe("annealed copper's hardness as the wire's indentation limit", () => {
+  // Copper Development Association (UK) temper data: annealed copper H040 is 40–65 HV; the model takes the
+  // lower bound. 1 HV = 1 kgf/mm² = 9.80665 MPa (standard gravity, NIST SP 811); the code's 9.807 is within 0.01 %.
+  it("40 HV → 392.3 MPa, ±0.05 MPa", () => {
+    expect(Math.abs(ANNEALED_COPPER_HARDNESS_MPA - 40 * 9.80665)).toBeLessThan(0.05);
+    expect(ANNEALED_COPPER_HARDNESS_MPA).toBeCloseTo(392.3, 1);
+  });
+  it("a solid-copper plan without its own hardness figure limits the seal line at that hardness × π·G·w", () => {
+    // v8 fixture: G = 108 mm, w = 1.0 mm → 392.28 × π × 108 × 1.0 = 133 097 N (computed)
+    const p = prepare(PlanInputSchema.parse(v8Raw()));
+    expect(p.plan.gasket.sealLineHardnessMpa).toBeUndefined();
+    expect(p.lineLimitN).toBeCloseTo(ANNEALED_COPPER_HARDNESS_MPA * Math.PI * 108 * 1.0, 6);
+    expect(relErr(p.lineLimitN, 133_097)).toBeLessThan(1e-4);
+    // and the seal line carries no more than that however hard it is clamped
+    expect(loadBore(p.paths, 5 * p.lineLimitN).lineN).toBeCloseTo(p.lineLimitN, 6);
   });
 });

@@ -1,6 +1,7 @@
 // The plan schema refuses what a builder could mistype, in words a builder understands.
 import { describe, expect, it } from "vitest";
 import { defaultStudPattern, parsePlan, PlanInputSchema } from "../../../../app/lib/clamp";
+import { MAX_PLAN_ISSUES } from "../../../../app/lib/clamp/schema";
 import { workedExampleRaw } from "./fixtures";
 
 type Raw = ReturnType<typeof workedExampleRaw>;
@@ -14,8 +15,11 @@ function messages(edit: (r: Raw) => void): string[] {
 describe("PlanInputSchema", () => {
   it("accepts the worked example and fills defaults", () => {
     const p = PlanInputSchema.parse(workedExampleRaw());
-    expect(p.model.shareThreshold).toBe(0.5);
+    expect(p.model).toEqual({ squeezeGainThreshold: 0.1, indentationFactor: 3, studLimitFraction: 0.9, headStrainLimit: 0.002 });
     expect(p.fastener.reducedShankLengthMm).toBe(0);
+    expect(p.fastener.washerTurns).toBe(false);
+    expect(p.fastener.rolledAfterHeatTreatment).toBe(false);
+    expect(p.targetMargin).toBe(1.5);
     expect(p.sleeve).toEqual({ kind: "none" });
   });
   it.each([
@@ -103,5 +107,49 @@ describe("parsePlan on garbage", () => {
     delete r.fastener;
     const p = parsePlan(r);
     expect(!p.ok && p.errors.some((e) => e.path === "fastener")).toBe(true);
+  });
+});
+
+describe("parsePlan on runaway sizes (fuzz)", () => {
+  // The schema must not build one issue per cylinder or per stud: an API client can send anything.
+  // No timing assert (machines differ); a short error list is what keeps the answer quick.
+  const parse = (edit: (r: Raw) => void) => {
+    const r = structuredClone(workedExampleRaw());
+    edit(r);
+    const p = parsePlan(r);
+    expect(p.ok).toBe(false);
+    return p.ok ? [] : p.errors;
+  };
+  it.each([1e9, 1e7])("engine.cylinders = %d: one short list that names the 16-cylinder limit", (n) => {
+    const errors = parse((r) => (r.engine.cylinders = n));
+    expect(errors.length).toBeLessThanOrEqual(50);
+    expect(errors.some((e) => e.path === "engine.cylinders" && /16/.test(e.message))).toBe(true);
+    expect(errors.some((e) => /No stud serves cylinder/.test(e.message))).toBe(false);
+  });
+  it("10,000 studs: a short list that names the 80-stud limit", () => {
+    const errors = parse((r) => (r.studs = Array.from({ length: 10_000 }, () => ({ serves: [{ cylinder: 1, share: 1 }] }))));
+    expect(errors.length).toBeLessThanOrEqual(50);
+    expect(errors.some((e) => e.path === "studs" && /80/.test(e.message))).toBe(true);
+  });
+  it("a stud serving 10,000 cylinders: a short list that names the 16-bore limit", () => {
+    const errors = parse((r) => (r.studs[0].serves = Array.from({ length: 10_000 }, (_, i) => ({ cylinder: i + 1, share: 0.0001 }))));
+    expect(errors.length).toBeLessThanOrEqual(50);
+    expect(errors.some((e) => e.path === "studs.0.serves" && /16/.test(e.message))).toBe(true);
+  });
+  it("everything at once: 1e9 cylinders and 10,000 studs of 10,000 serves each stays short", () => {
+    const serves = Array.from({ length: 10_000 }, (_, i) => ({ cylinder: i + 1, share: 2 }));
+    const errors = parse((r) => {
+      r.engine.cylinders = 1e9;
+      r.studs = Array.from({ length: 10_000 }, () => ({ serves }));
+    });
+    expect(errors.length).toBeLessThanOrEqual(50);
+    expect(errors.some((e) => e.path === "engine.cylinders")).toBe(true);
+  });
+  it("within every size limit, 80 studs × 16 bad serves: the cross-field messages stop at the cap", () => {
+    // 80 × 16 wrong cylinder numbers would be 1280 messages (plus duplicates and share sums) without the cap
+    const errors = parse((r) => (r.studs = Array.from({ length: 80 }, () => ({ serves: Array.from({ length: 16 }, () => ({ cylinder: 99, share: 0.5 })) }))));
+    expect(MAX_PLAN_ISSUES).toBe(50);
+    expect(errors.length).toBeLessThanOrEqual(50);
+    expect(errors[0].message).toBe("Stud 1 serves cylinder 99, but the engine has 4 cylinders");
   });
 });

@@ -1,0 +1,83 @@
+// Typical figures per gasket family, for a shop that has only the gasket maker's catalogue line.
+// Each is "typical — replace with the gasket maker's figure"; where a figure has a published source
+// it is named, the rest are our assumptions and say so.
+import type { GASKET_TYPES } from "./schema";
+
+export type GasketFamily = (typeof GASKET_TYPES)[number];
+
+/** Annealed copper's hardness: 40–65 HV for temper H040 (copper industry data); the lower bound, 1 HV = 9.807 MPa. */
+export const ANNEALED_COPPER_HARDNESS_MPA = 40 * 9.807;
+
+export interface TypicalGasket {
+  label: string;
+  ringModulusMpa: number;
+  /** Indentation pressure of the softer face under the ring or wire. */
+  sealLineHardnessMpa: number;
+  sealLineYieldMpa: number;
+  bodyModulusMpa: number;
+  m: number;
+  yMpa: number;
+  relaxationPercent: number;
+  bodySealPressureMpa: number;
+  beadLoadNPerMm?: number;
+  beadTravelMm?: number;
+  notes: string;
+}
+
+const PSI = 0.006894757; // NIST SP 811: 1 psi = 6894.757 Pa
+
+export const TYPICAL_GASKETS: Record<GasketFamily, TypicalGasket> = {
+  "solid-copper": {
+    label: "Solid copper with a stainless wire ring",
+    ringModulusMpa: 193_000,
+    sealLineHardnessMpa: ANNEALED_COPPER_HARDNESS_MPA,
+    sealLineYieldMpa: 70,
+    bodyModulusMpa: 115_000,
+    // ASME VIII-1 Table 2-5.1, solid flat copper (a flange stand-in)
+    m: 4.75,
+    yMpa: 13_000 * PSI,
+    relaxationPercent: 3,
+    // with sealant or o-rings at the coolant holes, as is usual under solid copper (common practice)
+    bodySealPressureMpa: 5,
+    notes: "Ring: 300-series wire (REFERENCES §7); the wire bites into annealed copper (40 HV, published). Body pressure to seal coolant (with sealant or o-rings at the coolant holes, common practice) and relaxation are our assumptions.",
+  },
+  mls: {
+    label: "Multilayer steel with a stopper",
+    ringModulusMpa: 200_000,
+    sealLineHardnessMpa: 3 * 165,
+    sealLineYieldMpa: 165,
+    bodyModulusMpa: 2_000,
+    // ASME VIII-1 Table 2-5.1, solid flat soft steel (a flange stand-in)
+    m: 5.5,
+    yMpa: 18_000 * PSI,
+    relaxationPercent: 0,
+    bodySealPressureMpa: 5,
+    beadLoadNPerMm: 80,
+    beadTravelMm: 0.15,
+    notes: "Bead line load 80 N/mm over 0.15 mm of travel to the stopper, body modulus and body seal pressure are our assumptions; the stopper presses on a cast aluminium head (3 × its 165 MPa yield).",
+  },
+  "mls-with-ring": {
+    label: "Multilayer steel with a ring in the sleeve",
+    ringModulusMpa: 193_000,
+    sealLineHardnessMpa: 3 * 165,
+    sealLineYieldMpa: 165,
+    bodyModulusMpa: 2_000,
+    m: 5.5,
+    yMpa: 18_000 * PSI,
+    relaxationPercent: 0,
+    bodySealPressureMpa: 5,
+    notes: "Ring seated in the sleeve top against a cast aluminium head (3 × 165 MPa, ours); body as for MLS (assumption).",
+  },
+  "fire-ring": {
+    label: "Steel fire ring in a composite body",
+    ringModulusMpa: 200_000,
+    sealLineHardnessMpa: 3 * 350,
+    sealLineYieldMpa: 350,
+    bodyModulusMpa: 1_000,
+    m: 5.5,
+    yMpa: 18_000 * PSI,
+    relaxationPercent: 2,
+    bodySealPressureMpa: 10,
+    notes: "All figures are our assumptions for a steel ring in a soft composite body.",
+  },
+};
