@@ -161,6 +161,7 @@ beforeAll(async () => {
   ))!;
   const plan = (await listPlans(teamId, engine.id))[0]!;
   const gasket = await db()("gaskets").where({ team_id: teamId }).first("id");
+  const otherEngine = await db()("engines").where({ team_id: teamId }).whereNot({ id: engine.id }).first("id");
   values = {
     engineId: String(engine.id),
     planId: String(plan.id),
@@ -220,6 +221,8 @@ beforeAll(async () => {
     "routes/plans/new": planForm,
     "routes/plans/editor": planForm,
     "routes/plans/compare": { planId: String(plan.id) },
+    "routes/engines/duplicate": {},
+    "routes/plans/copy": { targetEngineId: String(otherEngine.id) },
     "library-new": gasketForm,
     "library-edit": gasketForm,
     "routes/app/team": { name: "Harrow Lane Boost Works" },
@@ -286,6 +289,7 @@ export const FUZZ_GROUPS = {
     "routes/app/settings",
     "routes/engines/new",
     "routes/engines/edit",
+    "routes/engines/duplicate",
   ],
   plans: [
     "routes/plans/new",
@@ -294,6 +298,7 @@ export const FUZZ_GROUPS = {
     "library-new",
     "library-edit",
     "routes/api/estimate",
+    "routes/plans/copy",
   ],
 };
 
