@@ -1,7 +1,8 @@
 import { data } from "react-router";
 import type { PlanParts, PlanRecord } from "~/lib/plan/assemble";
 import type { PlanWrite } from "~/lib/plan/form";
-import { db, now } from "~/utils/db.server";
+import type { Knex } from "knex";
+import { db, now, writeTransaction } from "~/utils/db.server";
 import type { EngineRow } from "./engine.server";
 import {
   getFastener as getLibraryFastener,
@@ -146,45 +147,54 @@ function planColumns(w: PlanWrite) {
   };
 }
 
-async function audit(teamId: number, userId: number, action: string, detail: object) {
-  await db()("audit_events").insert({ team_id: teamId, user_id: userId, action, detail: JSON.stringify(detail), created_at: now() });
+// Each write and its audit row in one write transaction (BEGIN IMMEDIATE on SQLite): both or neither.
+async function audit(trx: Knex.Transaction, teamId: number, userId: number, action: string, detail: object) {
+  await trx("audit_events").insert({ team_id: teamId, user_id: userId, action, detail: JSON.stringify(detail), created_at: now() });
 }
 
 export async function createPlan(teamId: number, userId: number, engineId: number, w: PlanWrite): Promise<number> {
-  const at = now();
-  const [row] = await db()("seal_plans")
-    .insert({ team_id: teamId, engine_id: engineId, created_at: at, updated_at: at, ...planColumns(w) })
-    .returning("id");
-  const id = (row as { id: number }).id;
-  await audit(teamId, userId, "plan.created", { engineId, planId: id, name: w.name });
-  return id;
+  return writeTransaction(async (trx) => {
+    const at = now();
+    const [row] = await trx("seal_plans")
+      .insert({ team_id: teamId, engine_id: engineId, created_at: at, updated_at: at, ...planColumns(w) })
+      .returning("id");
+    const id = (row as { id: number }).id;
+    await audit(trx, teamId, userId, "plan.created", { engineId, planId: id, name: w.name });
+    return id;
+  });
 }
 
 export async function updatePlan(teamId: number, userId: number, engineId: number, planId: number, w: PlanWrite): Promise<void> {
-  await db()("seal_plans").where({ team_id: teamId, engine_id: engineId, id: planId }).update({ ...planColumns(w), updated_at: now() });
-  await audit(teamId, userId, "plan.updated", { engineId, planId, name: w.name });
+  await writeTransaction(async (trx) => {
+    await trx("seal_plans").where({ team_id: teamId, engine_id: engineId, id: planId }).update({ ...planColumns(w), updated_at: now() });
+    await audit(trx, teamId, userId, "plan.updated", { engineId, planId, name: w.name });
+  });
 }
 
 export async function archivePlan(teamId: number, userId: number, engineId: number, planId: number): Promise<void> {
-  await db().transaction(async (trx) => {
+  await writeTransaction(async (trx) => {
     await trx("seal_plans").where({ team_id: teamId, engine_id: engineId, id: planId }).update({ archived_at: now() });
     await trx("engines").where({ team_id: teamId, id: engineId, chosen_plan_id: planId }).update({ chosen_plan_id: null });
+    await audit(trx, teamId, userId, "plan.archived", { engineId, planId });
   });
-  await audit(teamId, userId, "plan.archived", { engineId, planId });
 }
 
 export async function choosePlan(teamId: number, userId: number, engineId: number, planId: number): Promise<void> {
-  await db()("engines").where({ team_id: teamId, id: engineId }).update({ chosen_plan_id: planId, updated_at: now() });
-  await audit(teamId, userId, "plan.chosen", { engineId, planId });
+  await writeTransaction(async (trx) => {
+    await trx("engines").where({ team_id: teamId, id: engineId }).update({ chosen_plan_id: planId, updated_at: now() });
+    await audit(trx, teamId, userId, "plan.chosen", { engineId, planId });
+  });
 }
 
 /** A copy of the plan on another engine of the same team (the caller checks the gasket fits). Returns the new id. */
 export async function copyPlanToEngine(teamId: number, userId: number, plan: PlanRow, targetEngineId: number): Promise<number> {
-  const at = now();
-  const [row] = await db()("seal_plans")
-    .insert({ team_id: teamId, engine_id: targetEngineId, created_at: at, updated_at: at, ...planColumns(plan) })
-    .returning("id");
-  const id = (row as { id: number }).id;
-  await audit(teamId, userId, "plan.copied", { engineId: targetEngineId, planId: id, fromEngineId: plan.engineId, fromPlanId: plan.id, name: plan.name });
-  return id;
+  return writeTransaction(async (trx) => {
+    const at = now();
+    const [row] = await trx("seal_plans")
+      .insert({ team_id: teamId, engine_id: targetEngineId, created_at: at, updated_at: at, ...planColumns(plan) })
+      .returning("id");
+    const id = (row as { id: number }).id;
+    await audit(trx, teamId, userId, "plan.copied", { engineId: targetEngineId, planId: id, fromEngineId: plan.engineId, fromPlanId: plan.id, name: plan.name });
+    return id;
+  });
 }

