@@ -1,4 +1,4 @@
-import { evaluatePlan, parsePlan, type Status } from "~/lib/clamp";
+import { evaluatePlan, parsePlan, type PlanEstimate, type PlanInput, type Status } from "~/lib/clamp";
 import { assemblePlanInput, type PlanRecord } from "~/lib/plan/assemble";
 import { estimateView, type EstimateView } from "~/lib/plan/estimate-view";
 import { displayWording } from "~/lib/plan/wording";
@@ -11,20 +11,36 @@ export type PlanEstimateResult =
   | { ok: true; view: EstimateView; fastener: FastenerInfo; gasket: GasketInfo }
   | { ok: false; problems: string[]; fastener: FastenerInfo | null; gasket: GasketInfo | null };
 
-/** Loads the plan's parts from this team's rows, builds the model input and runs the estimate. */
-export async function estimatePlan(
-  teamId: number,
-  engine: EngineRow,
-  plan: PlanRecord & { gasketId: number; fastenerId: number },
-  units: UnitSystem = "metric",
-): Promise<PlanEstimateResult> {
+type StoredPlan = PlanRecord & { gasketId: number; fastenerId: number };
+type Parsed =
+  | { ok: true; plan: PlanInput; fastener: FastenerInfo; gasket: GasketInfo }
+  | { ok: false; problems: string[]; fastener: FastenerInfo | null; gasket: GasketInfo | null };
+
+/** The plan's parts from this team's rows, as the clamp model's validated input. */
+async function storedPlanInput(teamId: number, engine: EngineRow, plan: StoredPlan): Promise<Parsed> {
   const parts = await planParts(teamId, engine, plan);
   if (!parts) return { ok: false, problems: ["The plan's gasket, fastener or the engine's materials are missing from the library."], fastener: null, gasket: null };
   const parsed = parsePlan(assemblePlanInput(parts));
-  if (!parsed.ok) {
-    return { ok: false, problems: parsed.errors.map((e) => e.message), fastener: parts.fastenerInfo, gasket: parts.gasketInfo };
-  }
-  return { ok: true, view: estimateView(parsed.plan, displayWording(units)), fastener: parts.fastenerInfo, gasket: parts.gasketInfo };
+  if (!parsed.ok) return { ok: false, problems: parsed.errors.map((e) => e.message), fastener: parts.fastenerInfo, gasket: parts.gasketInfo };
+  return { ok: true, plan: parsed.plan, fastener: parts.fastenerInfo, gasket: parts.gasketInfo };
+}
+
+/** Loads the plan's parts from this team's rows, builds the model input and runs the estimate. */
+export async function estimatePlan(teamId: number, engine: EngineRow, plan: StoredPlan, units: UnitSystem = "metric"): Promise<PlanEstimateResult> {
+  const r = await storedPlanInput(teamId, engine, plan);
+  if (!r.ok) return r;
+  return { ok: true, view: estimateView(r.plan, displayWording(units)), fastener: r.fastener, gasket: r.gasket };
+}
+
+export type PlanEvaluationResult =
+  | { ok: true; estimate: PlanEstimate; fastener: FastenerInfo; gasket: GasketInfo }
+  | { ok: false; problems: string[]; fastener: FastenerInfo | null; gasket: GasketInfo | null };
+
+/** The evaluation alone (verdict, margins, ceiling): no sweep and no scatter run, for lists. */
+export async function evaluateStoredPlan(teamId: number, engine: EngineRow, plan: StoredPlan, units: UnitSystem = "metric"): Promise<PlanEvaluationResult> {
+  const r = await storedPlanInput(teamId, engine, plan);
+  if (!r.ok) return r;
+  return { ok: true, estimate: evaluatePlan(r.plan, displayWording(units)), fastener: r.fastener, gasket: r.gasket };
 }
 
 export interface ChosenPlanVerdict {
@@ -56,11 +72,9 @@ export async function chosenPlanVerdicts(teamId: number, limit = 50): Promise<Ch
     const engine = toEngine(row);
     const plan = await requirePlan(teamId, engine.id, String(engine.chosenPlanId)).catch(() => null);
     if (!plan) continue;
-    const parts = await planParts(teamId, engine, plan);
-    if (!parts) continue;
-    const parsed = parsePlan(assemblePlanInput(parts));
-    if (!parsed.ok) continue;
-    const v = evaluatePlan(parsed.plan).verdict;
+    const r = await evaluateStoredPlan(teamId, engine, plan);
+    if (!r.ok) continue;
+    const v = r.estimate.verdict;
     out.push({ engineId: engine.id, engineName: engine.name, planId: plan.id, planName: plan.name, status: v.status, headline: v.headline, limiting: v.limiting });
   }
   return out;

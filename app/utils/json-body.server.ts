@@ -20,20 +20,29 @@ function tooLarge(maxBytes: number) {
   return Response.json({ error: `The body is larger than ${Math.round(maxBytes / 1024)} KiB.` }, { status: 413 });
 }
 
-async function readCapped(request: Request, maxBytes: number): Promise<string> {
-  if (!request.body) return "";
-  const reader = request.body.getReader();
+/**
+ * The chunks of a body up to maxBytes, or null as soon as it passes them. Reading stops there; the
+ * cancel is not awaited (on a cloned body a tee's cancel settles only once both branches are cancelled).
+ */
+export async function readUpTo(body: ReadableStream<Uint8Array>, maxBytes: number): Promise<Uint8Array[] | null> {
+  const reader = body.getReader();
   const chunks: Uint8Array[] = [];
   let size = 0;
   for (;;) {
     const { done, value } = await reader.read();
-    if (done) break;
+    if (done) return chunks;
     size += value.byteLength;
     if (size > maxBytes) {
-      await reader.cancel();
-      throw tooLarge(maxBytes);
+      reader.cancel().catch(() => {});
+      return null;
     }
     chunks.push(value);
   }
+}
+
+async function readCapped(request: Request, maxBytes: number): Promise<string> {
+  if (!request.body) return "";
+  const chunks = await readUpTo(request.body, maxBytes);
+  if (chunks === null) throw tooLarge(maxBytes);
   return new TextDecoder().decode(Buffer.concat(chunks));
 }

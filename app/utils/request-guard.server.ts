@@ -1,6 +1,6 @@
 import { parseId, idParamNames } from "./ids";
 import { isSameOriginPost } from "./origin.server";
-import { MAX_JSON_BYTES } from "./json-body.server";
+import { MAX_JSON_BYTES, readUpTo } from "./json-body.server";
 
 // Checks every request passes before any loader or action sees it (root middleware, and the
 // production server before React Router): where a write may come from, what body it may carry and how
@@ -76,22 +76,10 @@ export async function bodyRefusal(request: Request): Promise<Refusal | null> {
   if (!isMutation(request.method) || !request.body) return null;
   const pathname = new URL(request.url).pathname;
   const limit = bodyLimit(pathname);
-  const reader = request.clone().body!.getReader();
-  const chunks: Uint8Array[] = [];
-  let size = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    size += value.byteLength;
-    if (size > limit) {
-      // Stop reading the copy (a tee's cancel settles only once both branches are cancelled, so it is
-      // not awaited). The original is left alone: destroying it would reset the connection before
-      // the 413 is sent; the server discards the unread rest once the answer is out.
-      reader.cancel().catch(() => {});
-      return tooLarge(pathname);
-    }
-    chunks.push(value);
-  }
+  // The original is left alone: destroying it would reset the connection before the 413 is sent; the
+  // server discards the unread rest once the answer is out.
+  const chunks = await readUpTo(request.clone().body!, limit);
+  if (chunks === null) return tooLarge(pathname);
   const contentType = request.headers.get("Content-Type") ?? "";
   if (mediaType(contentType) === "multipart/form-data") {
     try {

@@ -3,16 +3,8 @@ import * as layout from "~/routes/app/layout";
 import * as team from "~/routes/app/team";
 import * as teamSwitch from "~/routes/app/team-switch";
 import { db } from "~/utils/db.server";
-import { call, get, post, signIn, type Handler } from "./helpers";
+import { call, EMAIL, get, post, signIn, WHO, type Handler, type Who } from "./helpers";
 
-type Who = "anonymous" | "viewer" | "builder" | "owner" | "otherTeam";
-const WHO: Who[] = ["anonymous", "viewer", "builder", "owner", "otherTeam"];
-const EMAIL: Record<Exclude<Who, "anonymous">, string> = {
-  viewer: "viewer@example.com",
-  builder: "builder@example.com",
-  owner: "owner@example.com",
-  otherTeam: "other-owner@example.com",
-};
 
 let demoTeamId = 0;
 const cookies: Partial<Record<Who, string>> = {};

@@ -1,6 +1,16 @@
 import { isRouteErrorResponse } from "react-router";
 
 export const ORIGIN = "http://localhost:3000";
+
+/** The people every guard matrix runs as: nobody, the demo shop's three roles, and another shop's owner. */
+export type Who = "anonymous" | "viewer" | "builder" | "owner" | "otherTeam";
+export const WHO: Who[] = ["anonymous", "viewer", "builder", "owner", "otherTeam"];
+export const EMAIL: Record<Exclude<Who, "anonymous">, string> = {
+  viewer: "viewer@example.com",
+  builder: "builder@example.com",
+  owner: "owner@example.com",
+  otherTeam: "other-owner@example.com",
+};
 export const DEMO_PASSWORD = "sealwright-demo";
 
 export interface Outcome {

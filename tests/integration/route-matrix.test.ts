@@ -1,7 +1,7 @@
 import crypto from "node:crypto";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 import { db } from "~/utils/db.server";
-import { DEMO_PASSWORD, ORIGIN, signIn } from "./helpers";
+import { DEMO_PASSWORD, EMAIL, ORIGIN, signIn, WHO, type Who } from "./helpers";
 import { through, type Answer } from "./pipeline";
 import { appRoutes, fill, type RouteInfo } from "./routes-list";
 
@@ -10,14 +10,6 @@ import { appRoutes, fill, type RouteInfo } from "./routes-list";
 // run behind the root middleware. A route in routes.ts without a row here fails; so does a row for a
 // route that is gone. Expected answers: a status, "signin" (302 to /login?redirectTo=…) or "→/path".
 
-type Who = "anonymous" | "viewer" | "builder" | "owner" | "otherTeam";
-const WHO: Who[] = ["anonymous", "viewer", "builder", "owner", "otherTeam"];
-const EMAIL: Record<Exclude<Who, "anonymous">, string> = {
-  viewer: "viewer@example.com",
-  builder: "builder@example.com",
-  owner: "owner@example.com",
-  otherTeam: "other-owner@example.com",
-};
 
 type Row = [anonymous: string, viewer: string, builder: string, owner: string, otherTeam: string];
 const all = (x: string): Row => [x, x, x, x, x];

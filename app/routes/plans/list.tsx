@@ -5,7 +5,7 @@ import { STATUS_LOOK } from "~/components/estimate-panel";
 import { CEILING_WORDS } from "~/lib/clamp";
 import { formatQuantity } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
-import { estimatePlan } from "~/models/plan-estimate.server";
+import { evaluateStoredPlan } from "~/models/plan-estimate.server";
 import { listPlans } from "~/models/plan.server";
 import { requireUser, roleAtLeast } from "~/utils/auth.server";
 
@@ -20,7 +20,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const plans = await listPlans(team.id, engine.id);
   const rows = await Promise.all(
     plans.map(async (plan) => {
-      const r = await estimatePlan(team.id, engine, plan, user.units);
+      const r = await evaluateStoredPlan(team.id, engine, plan, user.units);
       return {
         id: plan.id,
         name: plan.name,
@@ -30,10 +30,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
         fastener: r.fastener?.name ?? "—",
         makerTorqueNm: r.fastener?.makerTorqueNm ?? null,
         makerLubricant: r.fastener?.makerLubricant ?? null,
-        weakestMargin: r.ok ? r.view.estimate.weakestMargin : null,
-        verdict: r.ok ? { status: r.view.estimate.verdict.status, headline: r.view.estimate.verdict.headline } : null,
-        ceilingNm: r.ok ? r.view.ceiling.torqueNm : null,
-        ceilingCause: r.ok ? CEILING_WORDS[r.view.ceiling.cause] : null,
+        weakestMargin: r.ok ? r.estimate.weakestMargin : null,
+        verdict: r.ok ? { status: r.estimate.verdict.status, headline: r.estimate.verdict.headline } : null,
+        ceilingNm: r.ok ? r.estimate.ceiling.torqueNm : null,
+        ceilingCause: r.ok ? CEILING_WORDS[r.estimate.ceiling.cause] : null,
         problems: r.ok ? [] : r.problems,
       };
     }),
