@@ -5,12 +5,13 @@ import { expect, test } from "@playwright/test";
 
 const ROOT = new URL("../..", import.meta.url).pathname;
 
-// The built server closes its database pool and exits when it is told to stop (SIGTERM).
+// The production server (`npm start` runs scripts/serve.mjs) closes its database pool and exits when it is
+// told to stop (SIGTERM).
 test("the server exits promptly on SIGTERM after serving a request", async () => {
   const dir = path.join(ROOT, "tests/.e2e-data/shutdown");
   fs.rmSync(dir, { recursive: true, force: true });
-  const port = 3219;
-  const child = spawn(process.execPath, [path.join(ROOT, "node_modules/@react-router/serve/bin.js"), "./build/server/index.js"], {
+  const port = Number(process.env.E2E_PORT ?? 3210) + 9;
+  const child = spawn(process.execPath, [path.join(ROOT, "scripts/serve.mjs"), "build/server/index.js"], {
     cwd: ROOT,
     env: { ...process.env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: "production", DATABASE_PATH: path.join(dir, "x.sqlite"), SESSION_SECRET: "shutdown-secret-shutdown-secret-0123456" },
     stdio: "ignore",
