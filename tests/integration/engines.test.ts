@@ -8,7 +8,7 @@ import * as list from "~/routes/engines/list";
 import * as create from "~/routes/engines/new";
 import * as overview from "~/routes/engines/overview";
 import { db } from "~/utils/db.server";
-import { call, get, post, signIn, type Handler } from "./helpers";
+import { call, get, post, signIn, type Handler, teamWide } from "./helpers";
 
 const h = (fn: unknown) => fn as Handler;
 let builder = "";
@@ -434,7 +434,7 @@ describe("the engine table: search, sort, filter, paging", () => {
   });
 
   it("listEngines never returns another team's rows", async () => {
-    const demo = await listEngines(demoTeamId, { q: "Bench engine", pageSize: 100 });
+    const demo = await listEngines(teamWide(demoTeamId), { q: "Bench engine", pageSize: 100 });
     expect(demo.total).toBe(0);
   });
 });
