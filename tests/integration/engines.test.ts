@@ -307,8 +307,10 @@ describe("editing and archiving", () => {
 });
 
 describe("roles and tenancy", () => {
-  it("a viewer reads the engine but every write is 403 and writes nothing", async () => {
-    const id = (await demoEngineIds())[0]!;
+  it("a viewer reads an engine shared with them but every write is 403 and writes nothing", async () => {
+    // the demo viewer is shown the four-cylinder (migrations/seeds/04-demo-shares.ts); viewers.test.ts covers the rest
+    const viewerId = (await db()("users").where({ email: "viewer@example.com" }).first("id")).id;
+    const id = (await db()("engine_shares").where({ user_id: viewerId }).first("engine_id")).engine_id as number;
     const page = await call(h(layout.loader), get(`/engines/${id}`, viewer), { engineId: String(id) });
     expect(page.status).toBe(200);
     expect((page.body as { canEdit: boolean }).canEdit).toBe(false);

@@ -294,10 +294,12 @@ describe("duplicating an engine", () => {
     expect(await count()).toBe(before);
   });
 
-  it("a GET of the address lands on the engine page", async () => {
-    const out = await call(duplicate.loader as Handler, get(`/engines/${six}/duplicate`, viewer), { engineId: String(six) });
+  it("a GET of the address lands on the engine page (for a viewer, only an engine shared with them)", async () => {
+    const out = await call(duplicate.loader as Handler, get(`/engines/${four}/duplicate`, viewer), { engineId: String(four) });
     expect(out.status).toBe(302);
-    expect(out.location).toBe(`/engines/${six}`);
+    expect(out.location).toBe(`/engines/${four}`);
+    const unshared = await call(duplicate.loader as Handler, get(`/engines/${six}/duplicate`, viewer), { engineId: String(six) });
+    expect(unshared.status).toBe(404);
   });
 });
 
