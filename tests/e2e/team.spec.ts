@@ -23,7 +23,7 @@ test("the owner invites a customer, a builder shares one engine, the customer re
   await page.goto("/team");
   const since = new Date().toISOString();
   await page.getByLabel("E-mail").fill(CUSTOMER);
-  await page.getByLabel("Role").selectOption("viewer");
+  await page.getByLabel("Role", { exact: true }).selectOption("viewer");
   await page.getByRole("button", { name: "Send the invite" }).click();
   await expect(page.getByRole("status")).toContainText(`Invite sent to ${CUSTOMER}`);
   await expect(page.getByRole("list", { name: "Invites not yet accepted" })).toContainText(CUSTOMER);
@@ -116,6 +116,7 @@ test("a forgotten password is reset through the mail, and the old one stops work
   await signOut(page);
 
   await page.getByRole("link", { name: "Forgot your password?" }).click();
+  await expect(page.getByRole("heading", { name: "Reset your password" })).toBeVisible();
   const since = new Date().toISOString();
   await page.getByLabel("E-mail").fill(email);
   await page.getByRole("button", { name: "Send the link" }).click();
@@ -128,6 +129,7 @@ test("a forgotten password is reset through the mail, and the old one stops work
   await page.getByRole("button", { name: "Set the password" }).click();
   await page.waitForURL(/\/login$/);
   await expect(page.getByRole("status")).toContainText("Password changed");
+  await expect(page.getByRole("heading", { name: "Sign in" })).toBeVisible();
 
   await page.getByLabel("E-mail").fill(email);
   await page.getByLabel("Password").fill("the first long sentence");

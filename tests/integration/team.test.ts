@@ -147,7 +147,7 @@ describe("roles and removal", () => {
     await call(teamAction, post("/team", { intent: "role", userId: String(builder.id), role: "builder" }, owner));
 
     const me = await db()("users").where({ email: "owner@example.com" }).first("id");
-    for (const fields of [{ intent: "role", userId: String(me.id), role: "builder" }, { intent: "remove", userId: String(me.id) }]) {
+    for (const fields of [{ intent: "role", userId: String(me.id), role: "builder" }, { intent: "remove", userId: String(me.id) }] as Record<string, string>[]) {
       const out = await call(teamAction, post("/team", fields, owner));
       expect(out.status).toBe(400);
       expect((out.body as { error: string }).error).toMatch(/at least one owner/);
@@ -166,7 +166,7 @@ describe("roles and removal", () => {
       { intent: "role", userId: String(viewer.id), role: "owner" },
       { intent: "remove", userId: String(viewer.id) },
       { intent: "revoke", inviteId: String(inviteRow.id) },
-    ]) {
+    ] as Record<string, string>[]) {
       expect((await call(teamAction, post("/team", fields, saltmarsh))).status).toBe(404);
     }
     expect(JSON.stringify(await db()("memberships").orderBy(["user_id", "team_id"]))).toBe(before);
