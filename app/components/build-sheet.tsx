@@ -160,7 +160,7 @@ export function BuildSheetView({ engine, sheet, units, teamName }: { engine: She
       <Section title="Torque procedure">
         <ol className="list-decimal space-y-1 pl-5 text-sm">
           <li>Clean and chase the threads; fit the studs to the depth the fastener maker gives.</li>
-          <li>Lubricate threads and washer faces with {fastener.makerLubricant || plan.lubricant || "the lubricant the fastener maker names"}.</li>
+          <li>Lubricate threads and washer faces — {fastener.makerLubricant || plan.lubricant || "the lubricant the fastener maker names"}.</li>
           <li>
             Tighten in the engine maker's sequence, in stages: {stagesText(plan.stagesNm, plan.torqueNm, units)}
             {fastener.makerTorqueNm !== null && Math.abs(fastener.makerTorqueNm - plan.torqueNm) / fastener.makerTorqueNm >= 0.005 ? ` (the maker's figure is ${torque(fastener.makerTorqueNm)}: theirs governs)` : ""}.

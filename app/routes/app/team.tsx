@@ -139,7 +139,8 @@ export default function TeamPage({ loaderData, actionData }: Route.ComponentProp
       <section aria-labelledby="invite-title" className="mt-8 max-w-xl rounded border border-forge-100 bg-white p-4">
         <h2 id="invite-title" className="text-xl font-bold">Invite someone</h2>
         <p className="mt-1 text-sm text-forge-700">They get an e-mail with a link that works once, for {INVITE_DAYS} days. A customer is a viewer: they see only the engines you share with them.</p>
-        <Form method="post" className="mt-3 space-y-3">
+        {/* a new key after each invite empties the form for the next one */}
+        <Form method="post" className="mt-3 space-y-3" key={invites[0]?.id ?? 0}>
           <input type="hidden" name="intent" value="invite" />
           <Field label="E-mail" name="email" type="email" required defaultValue={actionData?.intent === "invite" ? String(actionData.values.email ?? "") : undefined} error={errorsFor("invite").email} />
           <SelectField label="Role" name="role" options={ROLE_OPTIONS} defaultValue="viewer" error={errorsFor("invite").role} />
