@@ -4,6 +4,7 @@ import * as reset from "~/routes/auth/reset-password";
 import * as settings from "~/routes/app/settings";
 import * as dashboard from "~/routes/app/dashboard";
 import { db } from "~/utils/db.server";
+import { resetThrottles } from "~/utils/rate-limit.server";
 import { hashLinkToken } from "~/utils/tokens.server";
 import { call, cookiePair, get, post, signIn, type Handler } from "./helpers";
 import { linkPath, startTestSink } from "./mail";
@@ -37,6 +38,19 @@ describe("asking for a reset", () => {
     // a moment for any stray mail, then none to the unknown address
     await new Promise((r) => setTimeout(r, 200));
     expect(sink.messagesTo("nobody-here@example.com")).toEqual([]);
+  });
+
+  it("sends at most three mails an hour to one address, answering the fourth request the same", async () => {
+    const known = "viewer@example.com";
+    const answers = [];
+    // the address in other letter cases is the same address
+    for (const email of [known, "Viewer@example.com", known, "VIEWER@EXAMPLE.COM"]) answers.push(await ask(email));
+    expect(new Set(answers.map((a) => `${a.status} ${JSON.stringify(a.body)}`)).size).toBe(1);
+    const mails = await sink.waitFor(known, 3);
+    await new Promise((r) => setTimeout(r, 300));
+    expect(sink.messagesTo(known)).toHaveLength(3);
+    expect(mails).toHaveLength(3);
+    resetThrottles();
   });
 
   it("refuses a malformed address with a 400 and writes nothing", async () => {

@@ -5,6 +5,8 @@ import { AuthFrame } from "~/components/auth-frame";
 import { Button, Field, fieldErrors } from "~/components/form";
 import { RESET_MINUTES, resetMail } from "~/lib/mail/messages";
 import { startPasswordReset } from "~/models/password-reset.server";
+import { normalizeEmail } from "~/models/user.server";
+import { throttle } from "~/utils/rate-limit.server";
 import { getUser } from "~/utils/auth.server";
 import { appUrl } from "~/utils/env.server";
 import { sendMailLater } from "~/utils/mail.server";
@@ -23,7 +25,9 @@ export async function loader({ request }: Route.LoaderArgs) {
 export async function action({ request }: Route.ActionArgs) {
   const parsed = ForgotSchema.safeParse(Object.fromEntries(await request.formData()));
   if (!parsed.success) return data({ errors: fieldErrors(parsed.error.issues), sent: null }, { status: 400 });
-  const reset = await startPasswordReset(parsed.data.email);
+  // past three an hour for this address nothing is sent, and the answer is the same
+  const throttled = (await throttle("resetEmail").take(normalizeEmail(parsed.data.email))) > 0;
+  const reset = throttled ? null : await startPasswordReset(parsed.data.email);
   // the mail goes out after the answer, so a known address does not answer later than an unknown one
   if (reset) void sendMailLater(reset.email, resetMail({ name: reset.name, link: `${appUrl()}/reset-password/${reset.token}` }));
   return data({ errors: {} as Record<string, string>, sent: RESET_SENT }, { status: 200 });
