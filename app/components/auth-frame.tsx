@@ -1,5 +1,6 @@
 import type { ReactNode } from "react";
 import { CAUTION_SHORT } from "./caution";
+import { ToastLine } from "./toast-line";
 
 // The plain frame around sign-in and sign-up: product name, one card, the caution line.
 export function AuthFrame({ title, children }: { title: string; children: ReactNode }) {
@@ -12,7 +13,11 @@ export function AuthFrame({ title, children }: { title: string; children: ReactN
           </p>
           <p className="mt-1 text-sm text-forge-700">Head-seal planning and build records for engine shops</p>
           <h1 className="mt-6 text-xl font-bold">{title}</h1>
-          <div className="mt-4">{children}</div>
+          <div className="mt-4">
+            {/* e.g. "Password changed" after a reset lands here */}
+            <ToastLine />
+            {children}
+          </div>
         </div>
       </main>
       <footer className="px-4 pb-4 text-center text-xs text-forge-100">{CAUTION_SHORT}</footer>

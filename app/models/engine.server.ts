@@ -4,6 +4,7 @@ import type { Stud } from "~/lib/clamp/schema";
 import type { EngineInput } from "~/lib/engine/schema";
 import { db, now } from "~/utils/db.server";
 import { parseId } from "~/utils/ids";
+import { viewerScope, type Asker } from "./viewer-scope.server";
 
 export type EngineStatus = "quoted" | "in-build" | "running" | "retired";
 export type SleeveKind = "none" | "dry" | "wet-flange" | "wet-mid";
@@ -85,17 +86,17 @@ export function toEngine(r: Record<string, any>): EngineRow {
   };
 }
 
-/** The team's engine, or null (another team's engine is simply not found). */
-export async function getEngine(teamId: number, engineId: number): Promise<EngineRow | null> {
+/** The engine, if the asker may see it; else null (another team's, or a viewer's unshared engine). */
+export async function getEngine(who: Asker, engineId: number): Promise<EngineRow | null> {
   if (!Number.isInteger(engineId)) return null;
-  const row = await db()("engines").where({ team_id: teamId, id: engineId }).whereNull("archived_at").first();
+  const row = await viewerScope(db()("engines"), who).where({ id: engineId }).whereNull("archived_at").first();
   return row ? toEngine(row) : null;
 }
 
 /** As getEngine, but throws a 404 the ErrorBoundary shows kindly. */
-export async function requireEngine(teamId: number, engineIdParam: string | undefined): Promise<EngineRow> {
+export async function requireEngine(who: Asker, engineIdParam: string | undefined): Promise<EngineRow> {
   const id = parseId(engineIdParam);
-  const engine = id === null ? null : await getEngine(teamId, id);
+  const engine = id === null ? null : await getEngine(who, id);
   if (!engine) throw data("No such engine in this shop.", { status: 404 });
   return engine;
 }
@@ -146,18 +147,17 @@ export interface EngineListQuery {
 
 const likeEscape = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
-/** One page of the team's engines (archived ones hidden), searched over name, customer and fuel. */
-export async function listEngines(teamId: number, query: EngineListQuery = {}): Promise<{ rows: EngineListRow[]; total: number }> {
+/** One page of the engines the asker sees (archived ones hidden), searched over name, customer and fuel. */
+export async function listEngines(who: Asker, query: EngineListQuery = {}): Promise<{ rows: EngineListRow[]; total: number }> {
   const pageSize = query.pageSize ?? 25;
   const page = Math.max(1, Math.floor(query.page ?? 1));
   const sort: EngineSort = isEngineSort(query.sort) ? query.sort : "updated";
   const dir = query.dir === "asc" ? "asc" : query.dir === "desc" ? "desc" : sort === "updated" ? "desc" : "asc";
-  const base = db()("engines as e")
+  const base = viewerScope(db()("engines as e"), who, "e")
     // the chosen plan must be this team's and this engine's, or it shows as none
     .leftJoin("seal_plans as p", function () {
       this.on("p.id", "=", "e.chosen_plan_id").andOn("p.engine_id", "=", "e.id").andOn("p.team_id", "=", "e.team_id");
     })
-    .where("e.team_id", teamId)
     .whereNull("e.archived_at");
   const q = query.q?.trim();
   if (q) {
@@ -330,9 +330,9 @@ export async function chosenPlanName(teamId: number, engine: EngineRow): Promise
   return row?.name ?? null;
 }
 
-/** How many of the team's engines are in each status. */
-export async function engineStatusCounts(teamId: number): Promise<Record<EngineStatus, number>> {
-  const rows = await db()("engines").where({ team_id: teamId }).whereNull("archived_at").groupBy("status").select("status").count({ n: "*" });
+/** How many of the engines the asker sees are in each status. */
+export async function engineStatusCounts(who: Asker): Promise<Record<EngineStatus, number>> {
+  const rows = await viewerScope(db()("engines"), who).whereNull("archived_at").groupBy("status").select("status").count({ n: "*" });
   const out: Record<EngineStatus, number> = { quoted: 0, "in-build": 0, running: 0, retired: 0 };
   for (const r of rows as { status: EngineStatus; n: number }[]) out[r.status] = Number(r.n);
   return out;
@@ -368,7 +368,7 @@ export async function duplicateEngine(teamId: number, userId: number, engineId: 
   });
 }
 
-/** The team's active engines for a picker: id, name and bore. */
-export async function engineChoices(teamId: number): Promise<{ id: number; name: string; boreMm: number }[]> {
-  return db()("engines").where({ team_id: teamId }).whereNull("archived_at").orderBy("name").select("id", "name", { boreMm: "bore_mm" });
+/** The active engines the asker sees, for a picker: id, name and bore. */
+export async function engineChoices(who: Asker): Promise<{ id: number; name: string; boreMm: number }[]> {
+  return viewerScope(db()("engines"), who).whereNull("archived_at").orderBy("name").select("id", "name", { boreMm: "bore_mm" });
 }

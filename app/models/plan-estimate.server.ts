@@ -5,6 +5,7 @@ import { displayWording } from "~/lib/plan/wording";
 import type { UnitSystem } from "~/lib/units";
 import { toEngine, type EngineRow } from "./engine.server";
 import { db } from "~/utils/db.server";
+import { viewerScope, type Asker } from "./viewer-scope.server";
 import { planParts, requirePlan, type FastenerInfo, type GasketInfo } from "./plan.server";
 
 export type PlanEstimateResult =
@@ -58,9 +59,9 @@ export interface ChosenPlanVerdict {
  * The verdict of each working engine's chosen plan (not retired, most recently touched first, at most
  * `limit`): the evaluation only, no sweep or scatter run. Plans that cannot be estimated are left out.
  */
-export async function chosenPlanVerdicts(teamId: number, limit = 50): Promise<ChosenPlanVerdict[]> {
-  const rows = await db()("engines")
-    .where({ team_id: teamId })
+export async function chosenPlanVerdicts(who: Asker, limit = 50): Promise<ChosenPlanVerdict[]> {
+  const teamId = who.teamId;
+  const rows = await viewerScope(db()("engines"), who)
     .whereNull("archived_at")
     .whereNot("status", "retired")
     .whereNotNull("chosen_plan_id")

@@ -1,5 +1,6 @@
 import { db, now } from "~/utils/db.server";
 import type { Role } from "./user.server";
+import type { Asker } from "./viewer-scope.server";
 
 export interface MemberRow {
   userId: number;
@@ -31,6 +32,14 @@ export async function renameTeam(teamId: number, name: string, byUserId: number)
       created_at: now(),
     });
   });
+}
+
+/**
+ * The shop's recent activity as the asker may see it: a viewer sees none, because the log names the
+ * shop's other engines and customers.
+ */
+export async function recentActivity(who: Asker, limit = 20) {
+  return who.role === "viewer" ? [] : listAuditEvents(who.teamId, limit);
 }
 
 export async function listAuditEvents(teamId: number, limit = 20) {

@@ -109,3 +109,21 @@ export async function listMemberships(userId: number): Promise<MembershipRow[]> 
 export async function setUnits(userId: number, units: Units): Promise<void> {
   await db()("users").where({ id: userId }).update({ units });
 }
+
+export async function updateProfile(userId: number, input: { name: string; units: Units }): Promise<void> {
+  await db()("users").where({ id: userId }).update({ name: input.name.trim(), units: input.units });
+}
+
+export async function getPasswordHash(userId: number): Promise<string | null> {
+  return (await db()("users").where({ id: userId }).first("password_hash"))?.password_hash ?? null;
+}
+
+/** A new password: the hash is replaced and every session of the person ends (the caller starts a fresh one). */
+export async function setPassword(userId: number, password: string): Promise<void> {
+  const passwordHash = await hashPassword(password);
+  await db().transaction(async (trx) => {
+    await trx("users").where({ id: userId }).update({ password_hash: passwordHash });
+    await trx("sessions").where({ user_id: userId }).delete();
+    await trx("password_resets").where({ user_id: userId }).whereNull("used_at").update({ used_at: now() });
+  });
+}

@@ -2,6 +2,7 @@ import { data, redirect } from "react-router";
 import { Authenticator } from "remix-auth";
 import { FormStrategy } from "remix-auth-form";
 import { getUserById, getUserWithHashByEmail, listMemberships, type MembershipRow, type Role, type UserRow } from "~/models/user.server";
+import type { Asker } from "~/models/viewer-scope.server";
 import { dummyPasswordHash, verifyPassword } from "./password.server";
 import { getSession, sessionStorage } from "./session.server";
 
@@ -30,6 +31,8 @@ export interface Member {
   team: { id: number; name: string };
   role: Role;
   memberships: MembershipRow[];
+  /** Who is asking, for the engine queries (a viewer sees only the engines shared with them). */
+  who: Asker;
 }
 
 const ROLE_RANK: Record<Role, number> = { viewer: 0, builder: 1, owner: 2 };
@@ -60,7 +63,13 @@ export async function requireUser(request: Request): Promise<Member> {
   const memberships = await listMemberships(user.id);
   const current = memberships.find((m) => m.teamId === session.get("teamId")) ?? memberships[0];
   if (!current) throw data("You are not a member of any shop.", { status: 403 });
-  return { user, team: { id: current.teamId, name: current.teamName }, role: current.role, memberships };
+  return {
+    user,
+    team: { id: current.teamId, name: current.teamName },
+    role: current.role,
+    memberships,
+    who: { teamId: current.teamId, userId: user.id, role: current.role },
+  };
 }
 
 /** As requireUser, and throws 403 when the person's role in the current team is below `needed`. */

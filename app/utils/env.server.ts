@@ -18,6 +18,21 @@ const EnvSchema = z.object({
   RATE_LIMIT_SQLITE_PATH: z.string().min(1).optional(),
   // Behind a reverse proxy, the client's address is the proxy's X-Forwarded-For entry.
   TRUST_PROXY: z.enum(["true", "false"], "TRUST_PROXY must be true or false").default("false"),
+  // Where people reach the app: links in e-mails (invites, password resets, build sheets) start with it.
+  // Never taken from the request's Host header, which a sender could forge into a reset link.
+  APP_URL: z.url("APP_URL must be a full URL like https://sealwright.example.com").optional(),
+  // Outgoing mail over SMTP, any provider. The defaults reach the development sink (scripts/mail-sink.ts).
+  SMTP_HOST: z.string().min(1).default("127.0.0.1"),
+  SMTP_PORT: z.coerce.number().int("SMTP_PORT must be a port number").min(1).max(65535).default(1025),
+  SMTP_USER: z.string().min(1).optional(),
+  SMTP_PASSWORD: z.string().min(1).optional(),
+  // "true": TLS from the first byte (usually port 465); "false": plain, upgraded by STARTTLS when offered.
+  SMTP_SECURE: z.enum(["true", "false"], "SMTP_SECURE must be true or false").default("false"),
+  MAIL_FROM: z.string().min(3).default("Sealwright <sealwright@localhost>"),
+  // The development sink's folder, which the dev-only mailbox page reads.
+  MAIL_SINK_DIR: z.string().min(1).default("data/mailbox"),
+  // The mailbox page is absent when NODE_ENV=production unless this is "true" (for a test build only).
+  DEV_MAILBOX: z.enum(["true", "false"], "DEV_MAILBOX must be true or false").default("false"),
 });
 
 export type Env = z.infer<typeof EnvSchema>;
@@ -38,4 +53,14 @@ export function getEnv(): Env {
 export function cookieIsSecure(env: Env = getEnv()): boolean {
   if (env.COOKIE_SECURE) return env.COOKIE_SECURE === "true";
   return env.NODE_ENV === "production";
+}
+
+/** The address links in e-mails start with, without a trailing slash. */
+export function appUrl(env: Env = getEnv()): string {
+  return (env.APP_URL ?? `http://localhost:${process.env.PORT ?? 3000}`).replace(/\/+$/, "");
+}
+
+/** The development mailbox page exists outside production builds (or when a test build asks for it). */
+export function mailboxOpen(env: Env = getEnv()): boolean {
+  return env.NODE_ENV !== "production" || env.DEV_MAILBOX === "true";
 }

@@ -29,6 +29,9 @@ export const RULES = {
   signInAddress: { points: 30, windowSec: 15 * 60, firstLockSec: 60, maxLockSec: 15 * 60 },
   // New shops from one address: ten an hour (each is a hash and a library of rows).
   signUpAddress: { points: 10, windowSec: 60 * 60, firstLockSec: 5 * 60, maxLockSec: 60 * 60 },
+  // Password-reset mails to one address: three an hour, so nobody can flood someone's inbox. Counted
+  // alike for addresses with and without an account; a refused request gets the same answer.
+  resetEmail: { points: 3, windowSec: 60 * 60, firstLockSec: 60 * 60, maxLockSec: 60 * 60 },
   // The estimate API runs the model (sweep and uncertainty): generous for live editing, bounded for scripts.
   apiUser: { points: 240, windowSec: 60, firstLockSec: 10, maxLockSec: 5 * 60 },
   apiAddress: { points: 600, windowSec: 60, firstLockSec: 10, maxLockSec: 5 * 60 },

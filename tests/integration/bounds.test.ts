@@ -9,7 +9,7 @@ import * as estimateApi from "~/routes/api/estimate";
 import * as engineEdit from "~/routes/engines/edit";
 import * as engineNew from "~/routes/engines/new";
 import { db } from "~/utils/db.server";
-import { call, ORIGIN, post, signIn, type Handler } from "./helpers";
+import { call, ORIGIN, post, signIn, type Handler, teamWide } from "./helpers";
 
 // Defect 1 of issue 9 through the routes: huge counts posted to the engine form and the estimate API
 // are refused with 400 in bounded time, and nothing is written.
@@ -74,7 +74,7 @@ describe("huge counts through the routes", () => {
   });
 
   it("the estimate API answers 400 with the count's own message", async () => {
-    const engine = (await getEngine(teamId, engineId))!;
+    const engine = (await getEngine(teamWide(teamId), engineId))!;
     const plan = (await listPlans(teamId, engineId))[0]!;
     const input = assemblePlanInput((await planParts(teamId, engine, plan))!);
     await fc.assert(

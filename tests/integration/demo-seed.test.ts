@@ -138,3 +138,16 @@ describe("the demo seed", () => {
     expect((await db()("engines").where({ team_id: other.id })).length).toBe(0);
   });
 });
+
+describe("the demo viewer", () => {
+  it("is shown exactly one demo engine, the four-cylinder, and sees only it", async () => {
+    const { listEngines } = await import("~/models/engine.server");
+    const team = await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id");
+    const viewer = await db()("users").where({ email: "viewer@example.com" }).first("id");
+    const shares = await db()("engine_shares as s").join("engines as e", "e.id", "s.engine_id").where("s.team_id", team.id).select("e.name", "s.user_id");
+    expect(shares).toEqual([{ name: "Fenwick-Oddy 2.0 four", user_id: viewer.id }]);
+    const seen = await listEngines({ teamId: team.id, userId: viewer.id, role: "viewer" });
+    expect(seen.rows.map((r) => r.name)).toEqual(["Fenwick-Oddy 2.0 four"]);
+    expect(seen.total).toBe(1);
+  });
+});

@@ -8,7 +8,7 @@ import * as list from "~/routes/engines/list";
 import * as create from "~/routes/engines/new";
 import * as overview from "~/routes/engines/overview";
 import { db } from "~/utils/db.server";
-import { call, get, post, signIn, type Handler } from "./helpers";
+import { call, get, post, signIn, type Handler, teamWide } from "./helpers";
 
 const h = (fn: unknown) => fn as Handler;
 let builder = "";
@@ -307,8 +307,10 @@ describe("editing and archiving", () => {
 });
 
 describe("roles and tenancy", () => {
-  it("a viewer reads the engine but every write is 403 and writes nothing", async () => {
-    const id = (await demoEngineIds())[0]!;
+  it("a viewer reads an engine shared with them but every write is 403 and writes nothing", async () => {
+    // the demo viewer is shown the four-cylinder (migrations/seeds/04-demo-shares.ts); viewers.test.ts covers the rest
+    const viewerId = (await db()("users").where({ email: "viewer@example.com" }).first("id")).id;
+    const id = (await db()("engine_shares").where({ user_id: viewerId }).first("engine_id")).engine_id as number;
     const page = await call(h(layout.loader), get(`/engines/${id}`, viewer), { engineId: String(id) });
     expect(page.status).toBe(200);
     expect((page.body as { canEdit: boolean }).canEdit).toBe(false);
@@ -434,7 +436,7 @@ describe("the engine table: search, sort, filter, paging", () => {
   });
 
   it("listEngines never returns another team's rows", async () => {
-    const demo = await listEngines(demoTeamId, { q: "Bench engine", pageSize: 100 });
+    const demo = await listEngines(teamWide(demoTeamId), { q: "Bench engine", pageSize: 100 });
     expect(demo.total).toBe(0);
   });
 });

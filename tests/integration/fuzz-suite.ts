@@ -8,7 +8,8 @@ import { clientAddressContext } from "~/utils/client-address.server";
 import { db } from "~/utils/db.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
 import { sessionStorage } from "~/utils/session.server";
-import { call, get, ORIGIN, signIn, type Handler } from "./helpers";
+import { call, get, ORIGIN, signIn, teamWide, type Handler } from "./helpers";
+import { startTestSink } from "./mail";
 import { through } from "./pipeline";
 import { appRoutes, fill, type RouteInfo } from "./routes-list";
 
@@ -148,6 +149,8 @@ async function counts(): Promise<string> {
 }
 
 beforeAll(async () => {
+  // the build sheet and invites are mailed: to a sink of this file's own
+  await startTestSink();
   routes = await appRoutes();
   builder = await signIn("builder@example.com");
   owner = await signIn("owner@example.com");
@@ -155,18 +158,20 @@ beforeAll(async () => {
     await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")
   ).id;
   const engine = (await getEngine(
-    teamId,
+    teamWide(teamId),
     (await db()("engines").where({ team_id: teamId, cylinders: 4 }).first("id"))
       .id,
   ))!;
   const plan = (await listPlans(teamId, engine.id))[0]!;
   const gasket = await db()("gaskets").where({ team_id: teamId }).first("id");
   const otherEngine = await db()("engines").where({ team_id: teamId }).whereNot({ id: engine.id }).first("id");
+  const viewerId = (await db()("users").where({ email: "viewer@example.com" }).first("id")).id;
   values = {
     engineId: String(engine.id),
     planId: String(plan.id),
     kind: "gaskets",
     itemId: String(gasket.id),
+    token: "not-a-token",
   };
   planInput = assemblePlanInput((await planParts(teamId, engine, plan))!);
 
@@ -227,6 +232,11 @@ beforeAll(async () => {
     "library-edit": gasketForm,
     "routes/app/team": { name: "Harrow Lane Boost Works" },
     "routes/app/settings": { units: "metric" },
+    "routes/auth/forgot-password": { email: "owner@example.com" },
+    "routes/auth/reset-password": { password: "a new sentence for the bench", confirm: "a new sentence for the bench" },
+    "routes/auth/invite": { intent: "create", name: "Fuzz Person", password: "a sentence for the bench" },
+    "routes/engines/build-sheet": { viewerId: String(viewerId), note: "" },
+    "routes/engines/sharing": { viewerId: String(viewerId), shared: "true" },
   });
 });
 
@@ -290,6 +300,11 @@ export const FUZZ_GROUPS = {
     "routes/engines/new",
     "routes/engines/edit",
     "routes/engines/duplicate",
+    "routes/auth/forgot-password",
+    "routes/auth/reset-password",
+    "routes/auth/invite",
+    "routes/engines/build-sheet",
+    "routes/engines/sharing",
   ],
   plans: [
     "routes/plans/new",

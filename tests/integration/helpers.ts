@@ -78,3 +78,8 @@ export async function signIn(email: string, password = DEMO_PASSWORD): Promise<s
 }
 
 export type { Handler };
+
+/** Who is asking, for calling the engine queries directly: the whole team, as a builder or owner sees it. */
+export function teamWide(teamId: number): { teamId: number; userId: number; role: "owner" } {
+  return { teamId, userId: 0, role: "owner" };
+}

@@ -11,7 +11,7 @@ import * as copy from "~/routes/plans/copy";
 import * as editor from "~/routes/plans/editor";
 import * as newPlan from "~/routes/plans/new";
 import { db } from "~/utils/db.server";
-import { call, get, post, signIn, type Handler } from "./helpers";
+import { call, get, post, signIn, type Handler, teamWide } from "./helpers";
 
 const LBF_FT = 1.3558179; // N·m per lbf·ft, NIST SP 811
 
@@ -114,7 +114,7 @@ describe("choosing another fastener", () => {
 
 describe("planning by stretch", () => {
   async function studStiffness(id: number) {
-    const engine = (await getEngine(teamId, four))!;
+    const engine = (await getEngine(teamWide(teamId), four))!;
     const plan = (await listPlans(teamId, four)).find((p) => p.id === id)!;
     const parts = (await planParts(teamId, engine, { ...plan, method: "torque-estimated-friction" }))!;
     const parsed = parsePlan(assemblePlanInput(parts));
@@ -294,10 +294,12 @@ describe("duplicating an engine", () => {
     expect(await count()).toBe(before);
   });
 
-  it("a GET of the address lands on the engine page", async () => {
-    const out = await call(duplicate.loader as Handler, get(`/engines/${six}/duplicate`, viewer), { engineId: String(six) });
+  it("a GET of the address lands on the engine page (for a viewer, only an engine shared with them)", async () => {
+    const out = await call(duplicate.loader as Handler, get(`/engines/${four}/duplicate`, viewer), { engineId: String(four) });
     expect(out.status).toBe(302);
-    expect(out.location).toBe(`/engines/${six}`);
+    expect(out.location).toBe(`/engines/${four}`);
+    const unshared = await call(duplicate.loader as Handler, get(`/engines/${six}/duplicate`, viewer), { engineId: String(six) });
+    expect(unshared.status).toBe(404);
   });
 });
 

@@ -10,7 +10,7 @@ import * as editor from "~/routes/plans/editor";
 import * as planList from "~/routes/plans/list";
 import * as newPlan from "~/routes/plans/new";
 import { db } from "~/utils/db.server";
-import { call, get, ORIGIN, post, signIn, type Handler } from "./helpers";
+import { call, get, ORIGIN, post, signIn, type Handler, teamWide } from "./helpers";
 
 const LBF_FT = 1.3558179; // N·m per lbf·ft, NIST SP 811
 
@@ -67,7 +67,7 @@ describe("seeded demo plans", () => {
     const engines = await db()("engines").where({ team_id: teamId });
     expect(engines).toHaveLength(3);
     for (const e of engines) {
-      const engine = (await getEngine(teamId, e.id))!;
+      const engine = (await getEngine(teamWide(teamId), e.id))!;
       const plans = await listPlans(teamId, engine.id);
       expect(plans.length).toBeGreaterThanOrEqual(2);
       for (const plan of plans) {
@@ -90,7 +90,7 @@ describe("estimate API", () => {
     new Request(`${ORIGIN}/api/v1/estimate`, { method: "POST", headers: { "Content-Type": type, Origin: ORIGIN, ...(cookie ? { Cookie: cookie } : {}) }, body });
 
   async function seededInput() {
-    const engine = (await getEngine(teamId, engineId))!;
+    const engine = (await getEngine(teamWide(teamId), engineId))!;
     const plan = (await listPlans(teamId, engineId))[0]!;
     return assemblePlanInput((await planParts(teamId, engine, plan))!);
   }

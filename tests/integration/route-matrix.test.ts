@@ -27,6 +27,14 @@ const MATRIX: Record<string, Row> = {
   "routes/auth/signup POST": all("400"),
   "routes/auth/logout GET": all("→/dashboard"),
   "routes/auth/logout POST": all("→/login"),
+  "routes/auth/forgot-password GET": all("200"),
+  "routes/auth/forgot-password POST": all("400"),
+  "routes/auth/reset-password GET": all("200"),
+  "routes/auth/reset-password POST": all("400"),
+  "routes/auth/invite GET": all("200"),
+  "routes/auth/invite POST": all("410"),
+  // the development mailbox (NODE_ENV=test here); a production build answers 404 (team.test.ts)
+  "routes/dev/mailbox GET": all("200"),
   "routes/app/team-switch GET": all("→/dashboard"),
   "routes/app/team-export GET": ["signin", "403", "403", "200", "200"],
   "routes/app/team-switch POST": ["signin", "→/dashboard", "→/dashboard", "→/dashboard", "403"],
@@ -51,6 +59,10 @@ const MATRIX: Record<string, Row> = {
   "routes/plans/compare GET": demoOnly("200"),
   "routes/plans/compare POST": builderDemo("404"),
   "routes/engines/chamber GET": demoOnly("200"),
+  "routes/engines/build-sheet GET": demoOnly("200"),
+  "routes/engines/build-sheet POST": builderDemo("400"),
+  "routes/engines/sharing GET": builderDemo("200"),
+  "routes/engines/sharing POST": builderDemo("400"),
   "routes/libraries/layout GET": member("200"),
   "routes/libraries/index GET": member("→/libraries/fasteners"),
   "routes/libraries/list GET": member("200"),
@@ -82,7 +94,7 @@ beforeAll(async () => {
   const engine = await db()("engines").where({ team_id: demoTeamId, cylinders: 4 }).first("id");
   const plan = await db()("seal_plans").where({ team_id: demoTeamId, engine_id: engine.id }).first("id");
   const gasket = await db()("gaskets").where({ team_id: demoTeamId }).first("id");
-  values = { engineId: String(engine.id), planId: String(plan.id), kind: "gaskets", itemId: String(gasket.id) };
+  values = { engineId: String(engine.id), planId: String(plan.id), kind: "gaskets", itemId: String(gasket.id), token: "not-a-token" };
 });
 
 const HARMLESS: Record<string, Record<string, string>> = {
@@ -96,6 +108,10 @@ const HARMLESS: Record<string, Record<string, string>> = {
   "library-edit": { intent: "no-such-intent" },
   "routes/app/team": { name: "" },
   "routes/app/settings": { units: "" },
+  "routes/auth/forgot-password": { email: "" },
+  "routes/auth/reset-password": { password: "" },
+  "routes/engines/build-sheet": { viewerId: "" },
+  "routes/engines/sharing": { viewerId: "" },
 };
 
 function request(route: RouteInfo, method: "GET" | "POST", cookie: string | undefined, body: Record<string, string> | string, origin = ORIGIN) {
@@ -168,6 +184,11 @@ const WRITING: Record<string, Record<string, string>> = {
   "library-edit": { intent: "archive" },
   "routes/app/team": { name: "Forged" },
   "routes/app/settings": { units: "imperial" },
+  "routes/auth/forgot-password": { email: "owner@example.com" },
+  "routes/auth/reset-password": { password: "a new sentence for the bench", confirm: "a new sentence for the bench" },
+  "routes/auth/invite": { intent: "create", name: "Forged", password: "a sentence for the bench" },
+  "routes/engines/build-sheet": { viewerId: "1" },
+  "routes/engines/sharing": { viewerId: "1", shared: "true" },
   "routes/api/estimate": {},
 };
 

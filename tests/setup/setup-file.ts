@@ -9,6 +9,11 @@ const file = path.join(tmp, `db-${process.pid}-${crypto.randomBytes(4).toString(
 fs.copyFileSync(path.join(tmp, "template.sqlite"), file);
 process.env.DATABASE_PATH = file;
 process.env.NODE_ENV = "test";
+// No mail leaves a test: port 9 (discard) on the loopback refuses, unless the file starts its own sink
+// (tests/integration/mail.ts), which points SMTP_PORT at itself.
+process.env.SMTP_HOST = "127.0.0.1";
+process.env.SMTP_PORT = "9";
+process.env.MAIL_SINK_DIR = path.join(tmp, "mail-none");
 process.env.SESSION_SECRET ??= "test-secret-test-secret-test-secret-0123";
 
 // An unexpected console.error fails the test that caused it.

@@ -6,7 +6,7 @@ import { StatusBadge } from "~/components/engine-status";
 import { layoutName, STATUS_LABEL } from "~/lib/engine";
 import { engineStatusCounts, listEngines, type EngineStatus } from "~/models/engine.server";
 import { atRisk, chosenPlanVerdicts } from "~/models/plan-estimate.server";
-import { auditSubject, listAuditEvents, livePlans } from "~/models/team.server";
+import { auditSubject, livePlans, recentActivity } from "~/models/team.server";
 import { STATUS_LOOK } from "~/components/estimate-panel";
 import { requireUser } from "~/utils/auth.server";
 
@@ -16,12 +16,12 @@ export const meta: Route.MetaFunction = () => [{ title: "Dashboard · Sealwright
 export const handle = CAUTION_HANDLE;
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const { user, team, role } = await requireUser(request);
+  const { user, team, role, who } = await requireUser(request);
   const [counts, recent, rawEvents, verdicts] = await Promise.all([
-    engineStatusCounts(team.id),
-    listEngines(team.id, { sort: "updated", dir: "desc", pageSize: 5 }),
-    listAuditEvents(team.id, 10),
-    chosenPlanVerdicts(team.id),
+    engineStatusCounts(who),
+    listEngines(who, { sort: "updated", dir: "desc", pageSize: 5 }),
+    recentActivity(who, 10),
+    chosenPlanVerdicts(who),
   ]);
   // Activity names the plan it touched and links to it while the plan is still there.
   const subjects = rawEvents.map((e) => auditSubject(e.detail));

@@ -2,47 +2,80 @@ import { data, Form, redirect } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/settings";
 import { PageTitle } from "~/components/app-shell";
-import { Button } from "~/components/form";
-import { setUnits } from "~/models/user.server";
-import { requireUser } from "~/utils/auth.server";
+import { Button, Field, fieldErrors } from "~/components/form";
+import { getPasswordHash, setPassword, updateProfile } from "~/models/user.server";
+import { requireUser, startSession } from "~/utils/auth.server";
+import { NewPassword, PersonName } from "~/utils/password-field.server";
+import { verifyPassword } from "~/utils/password.server";
+import { PASSWORD_MAX, PASSWORD_MIN } from "~/utils/password-rules";
 import { flashToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Settings · Sealwright" }];
 
-const UnitsSchema = z.object({ units: z.enum(["metric", "imperial"], "Pick metric or imperial") });
+const ProfileSchema = z.object({ name: PersonName, units: z.enum(["metric", "imperial"], "Pick metric or imperial") });
+const PasswordSchema = z
+  .object({ current: z.string({ error: "Enter your current password" }).min(1, "Enter your current password"), password: NewPassword, confirm: z.string({ error: "Type the new password again" }) })
+  .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords differ" });
 
 export async function loader({ request }: Route.LoaderArgs) {
   const { user } = await requireUser(request);
-  return { units: user.units };
+  return { name: user.name, email: user.email, units: user.units };
 }
 
 export async function action({ request }: Route.ActionArgs) {
-  const { user } = await requireUser(request);
-  const parsed = UnitsSchema.safeParse(Object.fromEntries(await request.formData()));
-  if (!parsed.success) return data({ error: parsed.error.issues[0]?.message ?? "Pick metric or imperial" }, { status: 400 });
-  await setUnits(user.id, parsed.data.units);
-  return redirect("/settings", { headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: "Units saved." }) } });
+  const { user, team } = await requireUser(request);
+  const form = Object.fromEntries(await request.formData());
+  if (form.intent === "password") {
+    const parsed = PasswordSchema.safeParse(form);
+    if (!parsed.success) return data({ intent: "password", errors: fieldErrors(parsed.error.issues) }, { status: 400 });
+    const ok = await verifyPassword((await getPasswordHash(user.id)) ?? "", parsed.data.current);
+    if (!ok) return data({ intent: "password", errors: { current: "That is not your current password" } as Record<string, string> }, { status: 400 });
+    // every session ends (other devices too); this browser gets a fresh one
+    await setPassword(user.id, parsed.data.password);
+    const response = await startSession(request, user.id, team.id, "/settings");
+    response.headers.append("Set-Cookie", await flashToast(request, { kind: "done", message: "Password changed; other devices were signed out." }));
+    return response;
+  }
+  // a post with units alone keeps the name
+  const parsed = ProfileSchema.safeParse({ name: user.name, ...form });
+  if (!parsed.success) return data({ intent: "profile", errors: fieldErrors(parsed.error.issues) }, { status: 400 });
+  await updateProfile(user.id, parsed.data);
+  return redirect("/settings", { headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: "Settings saved." }) } });
 }
 
 export default function Settings({ loaderData, actionData }: Route.ComponentProps) {
+  const errors = (intent: string) => (actionData?.intent === intent ? actionData.errors : {}) as Record<string, string | undefined>;
   return (
     <>
       <PageTitle sub="Your own preferences; the shop's data is always stored in SI units.">Settings</PageTitle>
-      <Form method="post" className="max-w-xl rounded border border-forge-100 bg-white p-4">
-        <fieldset>
-          <legend className="font-bold">Display units</legend>
-          {actionData?.error ? <p className="text-failed">✖ {actionData.error}</p> : null}
-          <label className="mt-2 flex items-center gap-2">
-            <input type="radio" name="units" value="metric" defaultChecked={loaderData.units === "metric"} /> Metric (mm, kN, N·m, bar, MPa)
-          </label>
-          <label className="mt-1 flex items-center gap-2">
-            <input type="radio" name="units" value="imperial" defaultChecked={loaderData.units === "imperial"} /> Imperial (in, thou, lbf, lbf·ft, psi)
-          </label>
-        </fieldset>
-        <div className="mt-4">
+      <div className="max-w-xl space-y-6">
+        <Form method="post" className="space-y-4 rounded border border-forge-100 bg-white p-4">
+          <input type="hidden" name="intent" value="profile" />
+          <Field label="Name" name="name" autoComplete="name" required defaultValue={loaderData.name} error={errors("profile").name} />
+          <p className="text-sm text-forge-700">You sign in as {loaderData.email}.</p>
+          <fieldset>
+            <legend className="font-bold">Display units</legend>
+            {errors("profile").units ? <p className="text-failed">✖ {errors("profile").units}</p> : null}
+            <label className="mt-2 flex items-center gap-2">
+              <input type="radio" name="units" value="metric" defaultChecked={loaderData.units === "metric"} /> Metric (mm, kN, N·m, bar, MPa)
+            </label>
+            <label className="mt-1 flex items-center gap-2">
+              <input type="radio" name="units" value="imperial" defaultChecked={loaderData.units === "imperial"} /> Imperial (in, thou, lbf, lbf·ft, psi)
+            </label>
+          </fieldset>
           <Button type="submit">Save</Button>
-        </div>
-      </Form>
+        </Form>
+
+        <Form method="post" className="space-y-4 rounded border border-forge-100 bg-white p-4">
+          <h2 className="font-bold">Change your password</h2>
+          <input type="hidden" name="intent" value="password" />
+          <Field label="Current password" name="current" type="password" autoComplete="current-password" required error={errors("password").current} />
+          <Field label="New password" name="password" type="password" autoComplete="new-password" required error={errors("password").password} hint={`${PASSWORD_MIN} to ${PASSWORD_MAX} characters. Every other device signed in as you is signed out.`} />
+          <Field label="New password again" name="confirm" type="password" autoComplete="new-password" required error={errors("password").confirm} />
+          <Button type="submit">Change the password</Button>
+        </Form>
+        {/* helper "api" adds the API tokens page at /settings/tokens and its link here */}
+      </div>
     </>
   );
 }

@@ -50,6 +50,11 @@ export default function Login({ actionData }: Route.ComponentProps) {
           {busy ? "Signing in…" : "Sign in"}
         </Button>
       </Form>
+      <p className="mt-4 text-sm">
+        <Link className="text-copper-700 underline" to="/forgot-password">
+          Forgot your password?
+        </Link>
+      </p>
       <p className="mt-6 text-sm">
         New shop?{" "}
         <Link className="text-copper-700 underline" to="/signup">

@@ -10,8 +10,8 @@ import { requireUser, roleAtLeast } from "~/utils/auth.server";
 export const meta: Route.MetaFunction = () => [{ title: "Chamber · Sealwright" }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { user, team, role } = await requireUser(request);
-  const engine = await requireEngine(team.id, params.engineId);
+  const { user, team, role, who } = await requireUser(request);
+  const engine = await requireEngine(who, params.engineId);
   const [{ gaskets }, plans] = await Promise.all([planChoices(team.id), listPlans(team.id, engine.id)]);
   const url = new URL(request.url);
   const chosen = plans.find((p) => p.id === engine.chosenPlanId) ?? plans[0];

@@ -6,14 +6,14 @@ import { flashToast } from "~/utils/toast.server";
 
 // POST only: a copy of the engine record and its stud pattern (not its plans). A GET lands on the engine.
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { team } = await requireUser(request);
-  const engine = await requireEngine(team.id, params.engineId);
+  const { team, who } = await requireUser(request);
+  const engine = await requireEngine(who, params.engineId);
   return redirect(`/engines/${engine.id}`);
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
-  const { user, team } = await requireRole(request, "builder");
-  const engine = await requireEngine(team.id, params.engineId);
+  const { user, team, who } = await requireRole(request, "builder");
+  const engine = await requireEngine(who, params.engineId);
   const copy = await duplicateEngine(team.id, user.id, engine.id);
   return redirect(`/engines/${copy.id}`, {
     headers: {

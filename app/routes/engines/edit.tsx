@@ -10,16 +10,16 @@ import { flashToast } from "~/utils/toast.server";
 export const meta: Route.MetaFunction = () => [{ title: "Edit engine · Sealwright" }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { user, team } = await requireRole(request, "builder");
-  const engine = await requireEngine(team.id, params.engineId);
+  const { user, team, who } = await requireRole(request, "builder");
+  const engine = await requireEngine(who, params.engineId);
   const units = user.units as Units;
   const values = engineToForm(engine, units);
   return { units, materials: await listMaterialOptions(team.id), values, engineId: engine.id };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
-  const { user, team } = await requireRole(request, "builder");
-  const engine = await requireEngine(team.id, params.engineId);
+  const { user, team, who } = await requireRole(request, "builder");
+  const engine = await requireEngine(who, params.engineId);
   const form = Object.fromEntries([...(await request.formData())].map(([k, v]) => [k, String(v)]));
   if (form.intent === "archive") {
     await archiveEngine(team.id, user.id, engine.id);

@@ -8,15 +8,17 @@ import { roleAtLeast, requireUser } from "~/utils/auth.server";
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.engine.name ?? "Engine"} · Sealwright` }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { team, role } = await requireUser(request);
-  const engine = await requireEngine(team.id, params.engineId);
+  const { team, role, who } = await requireUser(request);
+  const engine = await requireEngine(who, params.engineId);
   return { engine, role, canEdit: roleAtLeast(role, "builder") };
 }
 
-const TABS = [
+const TABS: { to: string; label: string; end?: boolean; builder?: boolean }[] = [
   { to: ".", label: "Overview", end: true },
   { to: "plans", label: "Seal plans" },
   { to: "chamber", label: "Chamber" },
+  { to: "build-sheet", label: "Build sheet" },
+  { to: "sharing", label: "Sharing", builder: true },
   { to: "assembly", label: "Assembly" },
   { to: "runs", label: "Runs" },
   { to: "files", label: "Files" },
@@ -41,7 +43,7 @@ export default function EngineLayout({ loaderData }: Route.ComponentProps) {
       </header>
       <nav aria-label="Engine" className="no-print mb-6 border-b border-forge-300">
         <ul className="-mb-px flex flex-wrap gap-1">
-          {TABS.map((tab) => (
+          {TABS.filter((tab) => !tab.builder || loaderData.canEdit).map((tab) => (
             <li key={tab.label}>
               <NavLink
                 to={tab.to}

@@ -13,7 +13,7 @@ const PAGE_SIZE = 25;
 const MAX_PAGE = 1_000_000;
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const { user, team, role } = await requireUser(request);
+  const { user, team, role, who } = await requireUser(request);
   const sp = new URL(request.url).searchParams;
   const q = (sp.get("q") ?? "").slice(0, 120);
   const statusParam = sp.get("status") ?? "";
@@ -22,7 +22,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   const sort: EngineSort = isEngineSort(sortParam) ? sortParam : "updated";
   const dir = sp.get("dir") === "asc" ? "asc" : sp.get("dir") === "desc" ? "desc" : sort === "updated" ? "desc" : "asc";
   const page = Math.min(MAX_PAGE, Math.max(1, Math.floor(Number(sp.get("page")) || 1)));
-  const { rows, total } = await listEngines(team.id, { q, status, sort, dir, page, pageSize: PAGE_SIZE });
+  const { rows, total } = await listEngines(who, { q, status, sort, dir, page, pageSize: PAGE_SIZE });
   return { rows, total, page, pageSize: PAGE_SIZE, q, status, sort, dir, units: user.units as Units, canEdit: roleAtLeast(role, "builder") };
 }
 

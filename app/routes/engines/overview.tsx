@@ -7,8 +7,8 @@ import { chosenPlanName, materialNames, requireEngine } from "~/models/engine.se
 import { requireUser, roleAtLeast } from "~/utils/auth.server";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { user, team, role } = await requireUser(request);
-  const engine = await requireEngine(team.id, params.engineId);
+  const { user, team, role, who } = await requireUser(request);
+  const engine = await requireEngine(who, params.engineId);
   const names = await materialNames(team.id, [engine.blockMaterialId, engine.headMaterialId, engine.sleeveMaterialId]);
   return {
     engine,

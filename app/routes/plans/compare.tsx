@@ -16,8 +16,8 @@ export const meta: Route.MetaFunction = () => [{ title: "Compare plans · Sealwr
 export const handle = CAUTION_HANDLE;
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { user, team, role } = await requireUser(request);
-  const engine = await requireEngine(team.id, params.engineId);
+  const { user, team, role, who } = await requireUser(request);
+  const engine = await requireEngine(who, params.engineId);
   const plans = await listPlans(team.id, engine.id);
   const wanted = new URL(request.url).searchParams.getAll("ids").map(Number);
   const chosen = plans.filter((p) => wanted.includes(p.id));
@@ -29,8 +29,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
-  const { user, team } = await requireRole(request, "builder");
-  const engine = await requireEngine(team.id, params.engineId);
+  const { user, team, who } = await requireRole(request, "builder");
+  const engine = await requireEngine(who, params.engineId);
   const form = await request.formData();
   const planId = Number(form.get("planId"));
   const plans = await listPlans(team.id, engine.id);

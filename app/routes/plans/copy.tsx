@@ -8,15 +8,16 @@ import { formatQuantity, type UnitSystem } from "~/lib/units";
 import { engineChoices, requireEngine } from "~/models/engine.server";
 import { getGasket } from "~/models/library.server";
 import { copyPlanToEngine, requirePlan } from "~/models/plan.server";
+import type { Asker } from "~/models/viewer-scope.server";
 import { requireRole } from "~/utils/auth.server";
 import { flashToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Copy ${data?.plan.name ?? "seal plan"} · Sealwright` }];
 
 /** The other engines of the team, each with whether the plan's gasket fits its bore (and why not). */
-async function targets(teamId: number, engineId: number, gasketBoreMm: number | null, units: UnitSystem) {
+async function targets(who: Asker, engineId: number, gasketBoreMm: number | null, units: UnitSystem) {
   const length = (mm: number) => formatQuantity(mm, "length", units);
-  return (await engineChoices(teamId))
+  return (await engineChoices(who))
     .filter((e) => e.id !== engineId)
     .map((e) => ({
       ...e,
@@ -25,26 +26,26 @@ async function targets(teamId: number, engineId: number, gasketBoreMm: number | 
 }
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { user, team } = await requireRole(request, "builder");
-  const engine = await requireEngine(team.id, params.engineId);
+  const { user, team, who } = await requireRole(request, "builder");
+  const engine = await requireEngine(who, params.engineId);
   const plan = await requirePlan(team.id, engine.id, params.planId);
   const gasket = await getGasket(team.id, plan.gasketId);
   return {
     units: user.units,
     engine: { id: engine.id, name: engine.name },
     plan: { id: plan.id, name: plan.name, gasketName: gasket?.name ?? "—" },
-    targets: await targets(team.id, engine.id, gasket?.boreMm ?? null, user.units),
+    targets: await targets(who, engine.id, gasket?.boreMm ?? null, user.units),
   };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
-  const { user, team } = await requireRole(request, "builder");
-  const engine = await requireEngine(team.id, params.engineId);
+  const { user, team, who } = await requireRole(request, "builder");
+  const engine = await requireEngine(who, params.engineId);
   const plan = await requirePlan(team.id, engine.id, params.planId);
   const parsed = CopyPlanSchema.safeParse(Object.fromEntries(await request.formData()));
   if (!parsed.success) return data({ error: parsed.error.issues[0]!.message }, { status: 400 });
   // another shop's engine is not found, as everywhere
-  const target = await requireEngine(team.id, String(parsed.data.targetEngineId));
+  const target = await requireEngine(who, String(parsed.data.targetEngineId));
   if (target.id === engine.id) return data({ error: "That is this plan's own engine; pick another." }, { status: 400 });
   const gasket = await getGasket(team.id, plan.gasketId);
   const misfit = gasket

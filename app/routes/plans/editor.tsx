@@ -27,8 +27,8 @@ export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.plan.na
 export const handle = CAUTION_HANDLE;
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { user, team, role } = await requireUser(request);
-  const engine = await requireEngine(team.id, params.engineId);
+  const { user, team, role, who } = await requireUser(request);
+  const engine = await requireEngine(who, params.engineId);
   const plan = await requirePlan(team.id, engine.id, params.planId);
   const [choices, materials, result, stretch] = await Promise.all([
     planChoices(team.id),
@@ -57,8 +57,8 @@ async function stretchFor(teamId: number, engine: Awaited<ReturnType<typeof requ
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
-  const { user, team } = await requireRole(request, "builder");
-  const engine = await requireEngine(team.id, params.engineId);
+  const { user, team, who } = await requireRole(request, "builder");
+  const engine = await requireEngine(who, params.engineId);
   const plan = await requirePlan(team.id, engine.id, params.planId);
   const form = Object.fromEntries(await request.formData());
   const intent = String(form.intent ?? "save");

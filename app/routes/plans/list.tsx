@@ -15,8 +15,8 @@ export const meta: Route.MetaFunction = () => [{ title: "Seal plans · Sealwrigh
 export const handle = CAUTION_HANDLE;
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { user, team, role } = await requireUser(request);
-  const engine = await requireEngine(team.id, params.engineId);
+  const { user, team, role, who } = await requireUser(request);
+  const engine = await requireEngine(who, params.engineId);
   const plans = await listPlans(team.id, engine.id);
   const rows = await Promise.all(
     plans.map(async (plan) => {

@@ -24,8 +24,8 @@ export const meta: Route.MetaFunction = () => [{ title: "New seal plan · Sealwr
 export const handle = CAUTION_HANDLE;
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { user, team } = await requireRole(request, "builder");
-  const engine = await requireEngine(team.id, params.engineId);
+  const { user, team, who } = await requireRole(request, "builder");
+  const engine = await requireEngine(who, params.engineId);
   const [choices, plans] = await Promise.all([planChoices(team.id), listPlans(team.id, engine.id)]);
   // Start from the chosen plan (or the latest), so a new plan differs only where the builder changes it.
   const template = plans.find((p) => p.id === engine.chosenPlanId) ?? plans[plans.length - 1];
@@ -66,8 +66,8 @@ async function stretchFor(teamId: number, engine: Awaited<ReturnType<typeof requ
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
-  const { user, team } = await requireRole(request, "builder");
-  const engine = await requireEngine(team.id, params.engineId);
+  const { user, team, who } = await requireRole(request, "builder");
+  const engine = await requireEngine(who, params.engineId);
   const form = Object.fromEntries(await request.formData());
   const values = Object.fromEntries(Object.entries(form).map(([k, v]) => [k, String(v)]));
   const answer = async (status: number, extra: { errors?: Record<string, string>; problems?: string[]; note?: string | null; values?: Record<string, string> } = {}) => {

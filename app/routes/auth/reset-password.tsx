@@ -1,0 +1,57 @@
+import { data, Form, Link, redirect } from "react-router";
+import { z } from "zod";
+import type { Route } from "./+types/reset-password";
+import { AuthFrame } from "~/components/auth-frame";
+import { Button, Field, fieldErrors, FormError } from "~/components/form";
+import { completePasswordReset, resetTokenUsable } from "~/models/password-reset.server";
+import { NewPassword } from "~/utils/password-field.server";
+import { PASSWORD_MAX, PASSWORD_MIN } from "~/utils/password-rules";
+import { sessionStorage, getSession } from "~/utils/session.server";
+import { flashToast } from "~/utils/toast.server";
+
+export const meta: Route.MetaFunction = () => [{ title: "Choose a new password · Sealwright" }];
+
+const ResetSchema = z
+  .object({ password: NewPassword, confirm: z.string({ error: "Type the new password again" }) })
+  .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords differ" });
+
+const LINK_GONE = "This link has been used or has expired. Ask for a new one.";
+
+export async function loader({ params }: Route.LoaderArgs) {
+  return { usable: await resetTokenUsable(params.token) };
+}
+
+export async function action({ request, params }: Route.ActionArgs) {
+  const parsed = ResetSchema.safeParse(Object.fromEntries(await request.formData()));
+  if (!parsed.success) return data({ errors: fieldErrors(parsed.error.issues), gone: false }, { status: 400 });
+  if (!(await completePasswordReset(params.token, parsed.data.password))) return data({ errors: {} as Record<string, string>, gone: true }, { status: 410 });
+  // every session of the account ended with the reset, this browser's too: its cookie goes as well
+  const headers = new Headers();
+  headers.append("Set-Cookie", await sessionStorage().destroySession(await getSession(request)));
+  headers.append("Set-Cookie", await flashToast(request, { kind: "done", message: "Password changed. Sign in with the new one; every other device was signed out." }));
+  return redirect("/login", { headers });
+}
+
+export default function ResetPassword({ loaderData, actionData }: Route.ComponentProps) {
+  const gone = !loaderData.usable || actionData?.gone;
+  return (
+    <AuthFrame title="Choose a new password">
+      {gone ? (
+        <>
+          <FormError message={LINK_GONE} />
+          <p className="mt-4 text-sm">
+            <Link className="text-copper-700 underline" to="/forgot-password">
+              Ask for a new link
+            </Link>
+          </p>
+        </>
+      ) : (
+        <Form method="post" className="space-y-4">
+          <Field label="New password" name="password" type="password" autoComplete="new-password" required error={actionData?.errors?.password} hint={`${PASSWORD_MIN} to ${PASSWORD_MAX} characters; a short sentence is easy to remember.`} />
+          <Field label="New password again" name="confirm" type="password" autoComplete="new-password" required error={actionData?.errors?.confirm} />
+          <Button type="submit">Set the password</Button>
+        </Form>
+      )}
+    </AuthFrame>
+  );
+}
