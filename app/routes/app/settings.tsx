@@ -43,6 +43,7 @@ export default function Settings({ loaderData, actionData }: Route.ComponentProp
           <Button type="submit">Save</Button>
         </div>
       </Form>
+      <p className="mt-6"><a className="text-copper-700 underline" href="/settings/tokens">API tokens</a> for scripts and dyno laptops</p>
     </>
   );
 }
