@@ -103,3 +103,29 @@ export async function rowCounts(): Promise<Record<string, number>> {
   }
   return out;
 }
+
+/** An engine of the other shop (the demo seed gives it none): a copy of one demo engine, on its own materials. */
+export async function otherTeamEngine(): Promise<number> {
+  const other = await teamId(OTHER_TEAM);
+  const existing = await db()("engines").where({ team_id: other }).first("id");
+  if (existing) return existing.id;
+  const demo = await db()("engines").where({ team_id: await teamId(DEMO_TEAM), cylinders: 4 }).first();
+  const own = async (materialId: number | null) => {
+    if (materialId === null) return null;
+    const name = (await db()("materials").where({ id: materialId }).first("name")).name;
+    return (await db()("materials").where({ team_id: other, name }).first("id")).id;
+  };
+  const { id: _id, ...row } = demo;
+  const [made] = await db()("engines")
+    .insert({
+      ...row,
+      team_id: other,
+      name: "Other shop's test engine",
+      chosen_plan_id: null,
+      block_material_id: await own(demo.block_material_id),
+      head_material_id: await own(demo.head_material_id),
+      sleeve_material_id: await own(demo.sleeve_material_id),
+    })
+    .returning("id");
+  return typeof made === "object" ? made.id : made;
+}

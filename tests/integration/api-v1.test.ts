@@ -4,7 +4,7 @@ import { getEngine } from "~/models/engine.server";
 import { listPlans, planParts } from "~/models/plan.server";
 import { db } from "~/utils/db.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
-import { api, DEMO_TEAM, ensureTestRunsTable, OTHER_TEAM, rowCounts, teamId, tokenFor } from "./api-helpers";
+import { api, DEMO_TEAM, ensureTestRunsTable, OTHER_TEAM, otherTeamEngine, rowCounts, teamId, tokenFor } from "./api-helpers";
 import { EMAIL, signIn } from "./helpers";
 
 // Every /api/v1 endpoint as each role of the demo shop and as another shop's owner, once with a
@@ -22,6 +22,7 @@ let planInput: unknown;
 
 beforeAll(async () => {
   await ensureTestRunsTable();
+  await otherTeamEngine();
   for (const p of PEOPLE) {
     token[p] = await tokenFor(EMAIL[p]);
     cookie[p] = await signIn(EMAIL[p]);
@@ -86,6 +87,7 @@ describe("every endpoint × role × credential", () => {
     const otherIds = (other.body as { items: { id: number }[] }).items.map((e) => e.id);
     const otherInDb = (await db()("engines").where({ team_id: otherTeam }).whereNull("archived_at").pluck("id")) as number[];
     expect(demoIds).toContain(engineId);
+    expect(otherInDb).toHaveLength(1);
     expect(otherIds.sort()).toEqual(otherInDb.sort());
     expect(otherIds.filter((id) => demoIds.includes(id))).toEqual([]);
     await api("POST", "/api/v1/runs", { token: token.builder, body: run() });
