@@ -141,6 +141,7 @@ const TABLES = [
   "materials",
   "fasteners",
   "gaskets",
+  "api_tokens",
 ];
 async function counts(): Promise<string> {
   const sql = `select ${TABLES.map((t) => `(select count(*) from ${t})`).join(", ")} as c`;
@@ -227,6 +228,7 @@ beforeAll(async () => {
     "library-edit": gasketForm,
     "routes/app/team": { name: "Harrow Lane Boost Works" },
     "routes/app/settings": { units: "metric" },
+    "routes/app/tokens": { intent: "create", name: "fuzz token", role: "viewer" },
   });
 });
 
@@ -287,6 +289,7 @@ export const FUZZ_GROUPS = {
     "routes/app/team-switch",
     "routes/app/team",
     "routes/app/settings",
+    "routes/app/tokens",
     "routes/engines/new",
     "routes/engines/edit",
     "routes/engines/duplicate",
@@ -298,6 +301,8 @@ export const FUZZ_GROUPS = {
     "library-new",
     "library-edit",
     "routes/api/estimate",
+    "routes/api/v1/sweep",
+    "routes/api/v1/runs",
     "routes/plans/copy",
   ],
 };
@@ -319,7 +324,7 @@ export function fuzzRoutes(ids: string[]) {
         const route = routes.find((r) => r.id === id)!;
         const statuses = new Map<number, number>();
         const arb =
-          id === "routes/api/estimate"
+          id === "routes/api/estimate" || id === "routes/api/v1/sweep" || id === "routes/api/v1/runs"
             ? apiArb(planInput)
             : formArb(bases[id]!);
         await fc.assert(

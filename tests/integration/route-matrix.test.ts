@@ -63,8 +63,21 @@ const MATRIX: Record<string, Row> = {
   "routes/app/team POST": ["signin", "403", "403", "400", "400"],
   "routes/app/settings GET": member("200"),
   "routes/app/settings POST": member("400"),
+  "routes/app/tokens GET": member("200"),
+  "routes/app/tokens POST": member("400"),
+  "routes/docs/api GET": all("200"),
   "routes/api/estimate GET": all("405"),
   "routes/api/estimate POST": ["401", "400", "400", "400", "400"],
+  "routes/api/v1/sweep GET": all("405"),
+  "routes/api/v1/sweep POST": ["401", "400", "400", "400", "400"],
+  "routes/api/v1/engines GET": ["401", "200", "200", "200", "200"],
+  "routes/api/v1/engine GET": ["401", "200", "200", "200", "404"],
+  "routes/api/v1/plans GET": ["401", "200", "200", "200", "404"],
+  "routes/api/v1/plan GET": ["401", "200", "200", "200", "404"],
+  // the run log's table comes with its own branch: until then the runs endpoints say so (404)
+  "routes/api/v1/runs GET": ["401", "404", "404", "404", "404"],
+  "routes/api/v1/runs POST": ["401", "403", "400", "400", "400"],
+  "routes/api/v1/openapi GET": all("200"),
   "routes/api/healthz GET": all("200"),
 };
 
@@ -96,6 +109,7 @@ const HARMLESS: Record<string, Record<string, string>> = {
   "library-edit": { intent: "no-such-intent" },
   "routes/app/team": { name: "" },
   "routes/app/settings": { units: "" },
+  "routes/app/tokens": { intent: "create", name: "" },
 };
 
 function request(route: RouteInfo, method: "GET" | "POST", cookie: string | undefined, body: Record<string, string> | string, origin = ORIGIN) {
@@ -169,6 +183,9 @@ const WRITING: Record<string, Record<string, string>> = {
   "routes/app/team": { name: "Forged" },
   "routes/app/settings": { units: "imperial" },
   "routes/api/estimate": {},
+  "routes/api/v1/sweep": {},
+  "routes/api/v1/runs": {},
+  "routes/app/tokens": { intent: "create", name: "Forged", role: "viewer" },
 };
 
 async function digest(): Promise<string> {
