@@ -19,8 +19,13 @@ export function loader({ request }: Route.LoaderArgs) {
   };
 }
 
+// tabIndex: a wide example scrolls sideways, and a keyboard must be able to scroll it too
 function Code({ children }: { children: string }) {
-  return <pre className="mt-2 overflow-x-auto rounded bg-forge-900 p-3 text-xs text-white"><code>{children}</code></pre>;
+  return (
+    <pre tabIndex={0} aria-label="example" className="mt-2 overflow-x-auto rounded bg-forge-900 p-3 text-xs text-white">
+      <code>{children}</code>
+    </pre>
+  );
 }
 
 function Section({ title, children }: { title: string; children: ReactNode }) {
