@@ -7,7 +7,9 @@ import { getEngine } from "./engine.server";
 // creates no such table). The columns it expects:
 //   id (increments), team_id, engine_id, ran_on (ISO date text), kind, manifold_pressure_kpa (nullable),
 //   fuel, peak_cylinder_pressure_mpa (nullable), peak_pressure_source ('measured' | 'estimated'),
-//   outcome, cylinders_affected (JSON text: an array of cylinder numbers), notes, created_by, created_at.
+//   outcome, cylinders_affected (JSON text: an array of cylinder numbers), notes, created_by, created_at;
+//   and, as the run-log branch's migration (20261217000000_records.ts) has them, plan_id (nullable),
+//   teardown_findings and updated_at.
 // Until that table exists, `runsApiEnabled()` is false and the runs endpoints answer 404 in words.
 
 export const RUNS_TABLE = "runs";
@@ -25,6 +27,8 @@ export interface RunApiRow {
   outcome: RunCreate["outcome"];
   cylindersAffected: number[];
   notes: string;
+  teardownFindings: string;
+  planId: number | null;
   createdBy: number | null;
   createdAt: string;
 }
@@ -65,6 +69,8 @@ function toRun(r: Record<string, any>): RunApiRow {
     outcome: r.outcome,
     cylindersAffected: cylinders,
     notes: r.notes ?? "",
+    teardownFindings: r.teardown_findings ?? "",
+    planId: r.plan_id ?? null,
     createdBy: r.created_by ?? null,
     createdAt: r.created_at,
   };
@@ -85,11 +91,18 @@ export async function listRunsForApi(teamId: number, f: RunFilter): Promise<{ ro
   return { rows: page, nextCursor: rows.length > f.limit ? String(page.at(-1)!.id) : null };
 }
 
-/** Logs a run on one of the team's engines (null when the engine is not the team's), with its audit row. */
-export async function createRunForApi(teamId: number, userId: number, run: RunCreate): Promise<RunApiRow | null> {
+export type RunCreateResult = { ok: true; run: RunApiRow } | { ok: false; status: 400 | 404; path: string; message: string };
+
+/**
+ * Logs a run on one of the team's engines, with its audit row. The plan is the engine's chosen plan at
+ * the time (the run log's own form may know better: its latest assembly on or before the day).
+ */
+export async function createRunForApi(teamId: number, userId: number, run: RunCreate): Promise<RunCreateResult> {
   const engine = await getEngine(teamId, run.engineId);
-  if (!engine) return null;
-  return writeTransaction(async (trx) => {
+  if (!engine) return { ok: false, status: 404, path: "engineId", message: "not an engine of this shop" };
+  const beyond = run.cylindersAffected.find((c) => c > engine.cylinders);
+  if (beyond !== undefined) return { ok: false, status: 400, path: "cylindersAffected", message: `the engine has ${engine.cylinders} cylinders; there is no cylinder ${beyond}` };
+  const stored = await writeTransaction(async (trx) => {
     const createdAt = now();
     const [row] = await trx(RUNS_TABLE)
       .insert({
@@ -104,12 +117,16 @@ export async function createRunForApi(teamId: number, userId: number, run: RunCr
         outcome: run.outcome,
         cylinders_affected: JSON.stringify(run.cylindersAffected),
         notes: run.notes,
+        teardown_findings: run.teardownFindings,
+        plan_id: engine.chosenPlanId,
         created_by: userId,
         created_at: createdAt,
+        updated_at: createdAt,
       })
       .returning("id");
     const id = typeof row === "object" ? row.id : row;
     await trx("audit_events").insert({ team_id: teamId, user_id: userId, action: "run.logged", detail: JSON.stringify({ engineId: engine.id, runId: id }), created_at: createdAt });
     return toRun(await trx(RUNS_TABLE).where({ id }).first());
   });
+  return { ok: true, run: stored };
 }

@@ -13,7 +13,7 @@ import type { z } from "zod";
 // Property: for 1,000 generated bodies per write endpoint of /api/v1 (API_FUZZ_RUNS to change it), sent
 // with a builder's token behind the root middleware — no answer is a 5xx; a body the endpoint's own zod
 // schema refuses gets 400 and leaves every table as it was; one it accepts is answered 200/201 (or 404,
-// writing nothing, for a run on an engine that is not the team's).
+// writing nothing, for a run on an engine that is not the team's; 400 for a cylinder it lacks).
 
 const RUNS = Number(process.env.API_FUZZ_RUNS ?? 1000);
 let token = "";
@@ -97,10 +97,14 @@ describe(`property: ${RUNS} generated bodies per write endpoint`, () => {
             expect(out.status).toBe(400);
             expect(await rowCounts()).toEqual(before);
           } else {
-            // a well-formed run on an engine that is not this team's (or none) is a 404 and writes nothing
-            const foreign = path === "/api/v1/runs" && (parsed as { engineId: number }).engineId !== engineId;
-            expect(out.status, JSON.stringify(out.body)).toBe(foreign ? 404 : path === "/api/v1/runs" ? 201 : 200);
-            if (foreign) expect(await rowCounts()).toEqual(before);
+            // a well-formed run on an engine that is not this team's (or none) is a 404, and one naming a
+            // cylinder the (four-cylinder) engine lacks a 400: both write nothing
+            const r = parsed as { engineId: number; cylindersAffected?: number[] };
+            const isRun = path === "/api/v1/runs";
+            const foreign = isRun && r.engineId !== engineId;
+            const beyond = isRun && (r.cylindersAffected ?? []).some((c) => c > 4);
+            expect(out.status, JSON.stringify(out.body)).toBe(foreign ? 404 : beyond ? 400 : isRun ? 201 : 200);
+            if (foreign || beyond) expect(await rowCounts()).toEqual(before);
           }
         }),
         { numRuns: RUNS },

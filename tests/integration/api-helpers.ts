@@ -82,6 +82,7 @@ export async function ensureTestRunsTable(): Promise<void> {
     t.increments("id").primary();
     t.integer("team_id").notNullable().references("teams.id");
     t.integer("engine_id").notNullable().references("engines.id");
+    t.integer("plan_id").nullable().references("seal_plans.id");
     t.string("ran_on", 10).notNullable();
     t.string("kind", 20).notNullable();
     t.float("manifold_pressure_kpa").nullable();
@@ -91,8 +92,11 @@ export async function ensureTestRunsTable(): Promise<void> {
     t.string("outcome", 20).notNullable();
     t.text("cylinders_affected").notNullable().defaultTo("[]");
     t.text("notes").notNullable().defaultTo("");
+    t.text("teardown_findings").notNullable().defaultTo("");
     t.integer("created_by").nullable().references("users.id");
     t.string("created_at").notNullable();
+    t.string("updated_at").notNullable();
+    t.check("kind in ('dyno','pass','street')", [], "runs_kind_check");
   });
 }
 

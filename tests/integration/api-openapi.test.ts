@@ -80,7 +80,7 @@ describe("real answers fit their documented schemas", () => {
   }
 
   it("every endpoint's success answer", async () => {
-    await api("POST", "/api/v1/runs", { token: builder, body: { engineId, ranOn: "2026-11-29", kind: "track", outcome: "seeping", cylindersAffected: [2] } });
+    await api("POST", "/api/v1/runs", { token: builder, body: { engineId, ranOn: "2026-11-29", kind: "pass", outcome: "seeping", cylindersAffected: [2] } });
     const samples: [string, "get" | "post", () => Promise<{ status: number; body: unknown }>][] = [
       ["/api/v1/engines", "get", () => api("GET", "/api/v1/engines", { token })],
       ["/api/v1/engines/{engineId}", "get", () => api("GET", `/api/v1/engines/${engineId}`, { token })],

@@ -183,11 +183,21 @@ describe("what the reads say", () => {
 
   it("a logged run is stored as sent, with its audit row", async () => {
     const before = await rowCounts();
-    const out = await api("POST", "/api/v1/runs", { token: token.builder, body: { ...run(), outcome: "lifted", cylindersAffected: [3, 4], peakCylinderPressureMpa: 14.5, peakPressureSource: "measured" } });
+    const out = await api("POST", "/api/v1/runs", { token: token.builder, body: { ...run(), outcome: "lifted-head", cylindersAffected: [3, 4], peakCylinderPressureMpa: 14.5, peakPressureSource: "measured" } });
     expect(out.status).toBe(201);
-    expect(out.body).toMatchObject({ engineId, outcome: "lifted", cylindersAffected: [3, 4], peakCylinderPressureMpa: 14.5, peakPressureSource: "measured", manifoldPressureKpa: 260 });
+    expect(out.body).toMatchObject({ engineId, outcome: "lifted-head", cylindersAffected: [3, 4], peakCylinderPressureMpa: 14.5, peakPressureSource: "measured", manifoldPressureKpa: 260 });
     const after = await rowCounts();
     expect(after.runs).toBe(before.runs! + 1);
     expect(after.audit_events).toBe(before.audit_events! + 1);
+  });
+});
+
+describe("the run's cylinders belong to its engine", () => {
+  it("a cylinder above the engine's count is a 400 that writes nothing", async () => {
+    const before = await rowCounts();
+    const out = await api("POST", "/api/v1/runs", { token: token.builder, body: { ...run(), cylindersAffected: [5] } });
+    expect(out.status).toBe(400);
+    expect((out.body as { errors: unknown[] }).errors).toEqual([{ path: "cylindersAffected", message: "the engine has 4 cylinders; there is no cylinder 5" }]);
+    expect(await rowCounts()).toEqual(before);
   });
 });

@@ -2,8 +2,9 @@
 import { z } from "zod";
 import { PAGE_LIMIT_DEFAULT, PAGE_LIMIT_MAX } from "./paging";
 
-export const RUN_KINDS = ["dyno", "track", "street"] as const;
-export const RUN_OUTCOMES = ["held", "seeping", "lifted", "blown"] as const;
+// The same values as the run log's own schema and table checks (the run-log branch's app/lib/records/run.ts).
+export const RUN_KINDS = ["dyno", "pass", "street"] as const;
+export const RUN_OUTCOMES = ["held", "seeping", "coolant-leak", "combustion-leak", "lifted-head", "blown-gasket", "stud-failure", "other"] as const;
 
 const isoDate = z.iso.date("ranOn is a date like 2026-12-01");
 
@@ -23,6 +24,7 @@ export const RunCreateSchema = z
       .refine((c) => new Set(c).size === c.length, "each cylinder once")
       .default([]),
     notes: z.string().max(4000, "notes are at most 4000 characters").default(""),
+    teardownFindings: z.string().max(4000, "teardownFindings are at most 4000 characters").default(""),
   })
   .meta({ id: "RunCreate", description: "manifoldPressureKpa is absolute (kPa); peak pressure in MPa." });
 
@@ -39,6 +41,8 @@ export const RunSchema = z
     outcome: z.enum(RUN_OUTCOMES),
     cylindersAffected: z.array(z.number().int()),
     notes: z.string(),
+    teardownFindings: z.string(),
+    planId: z.number().int().positive().nullable().meta({ description: "The plan on the engine when it ran, when known" }),
     createdBy: z.number().int().nullable(),
     createdAt: z.string(),
   })

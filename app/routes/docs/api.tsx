@@ -87,7 +87,7 @@ curl -H "Authorization: Bearer $SW_TOKEN" ${o}/api/v1/engines`}</Code>
               </tbody>
             </table>
           </div>
-          <p>A run: <code>engineId</code>, <code>ranOn</code> (2026-12-01), <code>kind</code> ({RUN_KINDS.join(", ")}), <code>outcome</code> ({RUN_OUTCOMES.join(", ")}), and optionally <code>manifoldPressureKpa</code>, <code>fuel</code>, <code>peakCylinderPressureMpa</code> with <code>peakPressureSource</code> (measured or estimated), <code>cylindersAffected</code> ([1, 4]) and <code>notes</code>.</p>
+          <p>A run: <code>engineId</code>, <code>ranOn</code> (2026-12-01), <code>kind</code> ({RUN_KINDS.join(", ")}), <code>outcome</code> ({RUN_OUTCOMES.join(", ")}), and optionally <code>manifoldPressureKpa</code>, <code>fuel</code>, <code>peakCylinderPressureMpa</code> with <code>peakPressureSource</code> (measured or estimated), <code>cylindersAffected</code> ([1, 4], none above the engine's count), <code>notes</code> and <code>teardownFindings</code>.</p>
         </Section>
 
         <Section title="Examples">

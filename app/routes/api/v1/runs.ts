@@ -22,6 +22,9 @@ export async function action({ request, context }: { request: Request; context?:
   const run = await apiBody(request, RunCreateSchema);
   if (!(await runsApiEnabled())) throw apiError(404, NOT_YET);
   const created = await createRunForApi(caller.teamId, caller.userId, run);
-  if (!created) throw apiError(404, "No such engine in this shop.", { errors: [{ path: "engineId", message: "not an engine of this shop" }] });
-  return Response.json(created, { status: 201, headers: { Location: `/api/v1/runs?engineId=${created.engineId}` } });
+  if (!created.ok) {
+    const error = created.status === 404 ? "No such engine in this shop." : "The request has problems; nothing was done.";
+    throw apiError(created.status, error, { errors: [{ path: created.path, message: created.message }] });
+  }
+  return Response.json(created.run, { status: 201, headers: { Location: `/api/v1/runs?engineId=${created.run.engineId}` } });
 }
