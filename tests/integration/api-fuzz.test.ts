@@ -27,7 +27,7 @@ beforeAll(async () => {
   engineId = (await db()("engines").where({ team_id: demo, cylinders: 4 }).first("id")).id;
   const engine = (await getEngine(demo, engineId))!;
   planInput = assemblePlanInput((await planParts(demo, engine, (await listPlans(demo, engineId))[0]!))!) as unknown as Record<string, unknown>;
-});
+}, 60_000);
 beforeEach(() => resetThrottles());
 
 const junk = fc.oneof(

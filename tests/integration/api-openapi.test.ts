@@ -1,6 +1,6 @@
 import { dereference, validate } from "@readme/openapi-parser";
 import { Ajv2020 } from "ajv/dist/2020.js";
-import { beforeAll, beforeEach, describe, expect, it } from "vitest";
+import { beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { API_V1_PATHS, apiDocument } from "~/lib/api/openapi";
 import { assemblePlanInput } from "~/lib/plan/assemble";
 import { getEngine } from "~/models/engine.server";
@@ -14,13 +14,15 @@ import { appRoutes } from "./routes-list";
 // The OpenAPI document: valid OpenAPI 3.1 by a parser from the registry, naming exactly the /api/v1
 // routes of app/routes.ts, and a real answer of every endpoint (and its refusals) fits the schema the
 // document gives for it, checked by a JSON Schema 2020-12 validator.
+// Loops of hundreds of requests on a shared two-core machine: generous limits (speed lives in npm run bench).
+vi.setConfig({ testTimeout: 60_000 });
 
 type Doc = { openapi: string; paths: Record<string, Record<string, { responses: Record<string, { content?: Record<string, { schema: object }> }> }>> };
 let doc: Doc;
 
 beforeAll(async () => {
   await ensureTestRunsTable();
-});
+}, 60_000);
 beforeEach(() => resetThrottles());
 
 describe("the document", () => {
@@ -70,7 +72,7 @@ describe("real answers fit their documented schemas", () => {
     const plan = (await listPlans(demo, engineId))[0]!;
     planId = plan.id;
     input = assemblePlanInput((await planParts(demo, (await getEngine(demo, engineId))!, plan))!);
-  });
+  }, 60_000);
 
   function check(docPath: string, method: string, status: number, body: unknown) {
     const schema = doc.paths[docPath]![method]!.responses[String(status)]?.content?.["application/json"]?.schema;

@@ -10,6 +10,8 @@ import { call, EMAIL, get, post, signIn, type Handler } from "./helpers";
 
 // Refusals of the API: each bad request gets its documented status and error body and writes nothing;
 // a revoked token is refused from the next request; cookie writes need our Origin; throttles answer 429.
+// Loops of hundreds of requests on a shared two-core machine: generous limits (speed lives in npm run bench).
+vi.setConfig({ testTimeout: 60_000 });
 
 let builderToken = "";
 let builderCookie = "";
@@ -24,7 +26,7 @@ beforeAll(async () => {
   engineId = (await db()("engines").where({ team_id: demo, cylinders: 4 }).first("id")).id;
   const engine = (await getEngine(demo, engineId))!;
   planInput = assemblePlanInput((await planParts(demo, engine, (await listPlans(demo, engineId))[0]!))!) as unknown as Record<string, unknown>;
-});
+}, 60_000);
 beforeEach(() => resetThrottles());
 
 const validRun = () => ({ engineId, ranOn: "2026-11-30", kind: "dyno", outcome: "held" });

@@ -1,4 +1,4 @@
-import { beforeAll, beforeEach, describe, expect, it } from "vitest";
+import { beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { assemblePlanInput } from "~/lib/plan/assemble";
 import { getEngine } from "~/models/engine.server";
 import { listPlans, planParts } from "~/models/plan.server";
@@ -9,6 +9,8 @@ import { EMAIL, signIn } from "./helpers";
 
 // Every /api/v1 endpoint as each role of the demo shop and as another shop's owner, once with a
 // personal token and once with the session cookie: the status each gets, and what a foreign team sees.
+// Loops of hundreds of requests on a shared two-core machine: generous limits (speed lives in npm run bench).
+vi.setConfig({ testTimeout: 60_000 });
 
 type Person = "viewer" | "builder" | "owner" | "otherTeam";
 const PEOPLE: Person[] = ["viewer", "builder", "owner", "otherTeam"];
@@ -34,7 +36,7 @@ beforeAll(async () => {
   const plan = (await listPlans(demoTeam, engineId))[0]!;
   planId = plan.id;
   planInput = assemblePlanInput((await planParts(demoTeam, engine, plan))!);
-});
+}, 60_000);
 beforeEach(() => resetThrottles());
 
 const run = () => ({ engineId, ranOn: "2026-11-30", kind: "dyno", manifoldPressureKpa: 260, fuel: "E85", outcome: "held", cylindersAffected: [], notes: "test pull" });

@@ -98,7 +98,8 @@ beforeAll(async () => {
   const plan = await db()("seal_plans").where({ team_id: demoTeamId, engine_id: engine.id }).first("id");
   const gasket = await db()("gaskets").where({ team_id: demoTeamId }).first("id");
   values = { engineId: String(engine.id), planId: String(plan.id), kind: "gaskets", itemId: String(gasket.id) };
-});
+  // importing every route module and four sign-ins: slow on a loaded machine, not a speed check
+}, 60_000);
 
 const HARMLESS: Record<string, Record<string, string>> = {
   "routes/auth/login": { email: "", password: "" },
