@@ -7,8 +7,9 @@ import { getEnv } from "./env.server";
 // Throttles for the doors anyone can knock on: sign-in (per account and per address), sign-up and the
 // API (per address, then per person or per token). Every attempt takes a point *before* the work it
 // guards (an argon2 hash, a model run), so a thousand guesses sent at once still pay for at most
-// `points` hashes. Past the points the key is locked for a short time that doubles with each lock in a day (30 s, 1 min, 2 min … at most `maxLockSec`): an
-// attacker waits longer and longer, a person who mistyped waits half a minute.
+// `points` hashes. Past the points the key is locked for a short time that doubles with each lock in a
+// day (30 s, 1 min, 2 min … at most `maxLockSec`): an attacker waits longer and longer, a person who
+// mistyped waits half a minute.
 //
 // The counts live in a store chosen by RATE_LIMIT_STORE: "memory" (this process; the default) or
 // "sqlite" (a file beside the database, shared by every process on the machine). A network store
