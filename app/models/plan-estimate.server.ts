@@ -17,8 +17,8 @@ type Parsed =
   | { ok: true; plan: PlanInput; fastener: FastenerInfo; gasket: GasketInfo }
   | { ok: false; problems: string[]; fastener: FastenerInfo | null; gasket: GasketInfo | null };
 
-/** The plan's parts from this team's rows, as the clamp model's validated input. */
-async function storedPlanInput(teamId: number, engine: EngineRow, plan: StoredPlan): Promise<Parsed> {
+/** The plan's parts from this team's rows, as the clamp model's validated input (the API hands it out as the plan's `input`). */
+export async function storedPlanInput(teamId: number, engine: EngineRow, plan: StoredPlan): Promise<Parsed> {
   const parts = await planParts(teamId, engine, plan);
   if (!parts) return { ok: false, problems: ["The plan's gasket, fastener or the engine's materials are missing from the library."], fastener: null, gasket: null };
   const parsed = parsePlan(assemblePlanInput(parts));

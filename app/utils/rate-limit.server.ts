@@ -5,10 +5,11 @@ import { RateLimiterMemory, RateLimiterRes, RateLimiterSQLite, type RateLimiterA
 import { getEnv } from "./env.server";
 
 // Throttles for the doors anyone can knock on: sign-in (per account and per address), sign-up and the
-// API. Every attempt takes a point *before* the work it guards (an argon2 hash, a model run), so a
-// thousand guesses sent at once still pay for at most `points` hashes. Past the points the key is locked
-// for a short time that doubles with each lock in a day (30 s, 1 min, 2 min … at most `maxLockSec`): an
-// attacker waits longer and longer, a person who mistyped waits half a minute.
+// API (per address, then per person or per token). Every attempt takes a point *before* the work it
+// guards (an argon2 hash, a model run), so a thousand guesses sent at once still pay for at most
+// `points` hashes. Past the points the key is locked for a short time that doubles with each lock in a
+// day (30 s, 1 min, 2 min … at most `maxLockSec`): an attacker waits longer and longer, a person who
+// mistyped waits half a minute.
 //
 // The counts live in a store chosen by RATE_LIMIT_STORE: "memory" (this process; the default) or
 // "sqlite" (a file beside the database, shared by every process on the machine). A network store
@@ -35,6 +36,8 @@ export const RULES = {
   // The estimate API runs the model (sweep and uncertainty): generous for live editing, bounded for scripts.
   apiUser: { points: 240, windowSec: 60, firstLockSec: 10, maxLockSec: 5 * 60 },
   apiAddress: { points: 600, windowSec: 60, firstLockSec: 10, maxLockSec: 5 * 60 },
+  // One personal API token (a script or a dyno laptop): the same budget as a person in the browser.
+  apiToken: { points: 240, windowSec: 60, firstLockSec: 10, maxLockSec: 5 * 60 },
 } as const satisfies Record<string, ThrottleRule>;
 
 export type ThrottleName = keyof typeof RULES;

@@ -36,7 +36,8 @@ export function headersFor(kind: ResponseKind, options: { nonce?: string; produc
     // A window another site opens cannot reach back into ours, nor embed our files.
     "Cross-Origin-Opener-Policy": "same-origin",
     "Cross-Origin-Resource-Policy": "same-origin",
-    // Pages with shop data are not kept by shared caches; API answers by no cache at all.
+    // Pages with shop data are not kept by shared caches; API answers by no cache at all unless the
+    // route chose a policy (its reads revalidate by ETag).
     "Cache-Control": kind === "api" ? "no-store" : "private, no-store",
   };
   // The dev server's HMR injects inline scripts without a nonce; the page policy is for the built app.
@@ -58,7 +59,8 @@ export function kindOf(pathname: string, contentType: string | null): ResponseKi
 
 /**
  * Sets every header of the table the response does not already carry (a page's nonce policy, a static
- * file's long cache). The API's Cache-Control is always no-store. A page's policy is never guessed here:
+ * file's long cache). The API's Cache-Control is no-store unless the route chose one (the v1 reads answer
+ * "private, no-cache" with an ETag, app/utils/api.server.ts). A page's policy is never guessed here:
  * entry.server sets it with the nonce, so an HTML response without one is left without.
  */
 export function fillSecurityHeaders(headers: Headers, kind: ResponseKind, production: boolean): void {
@@ -69,8 +71,7 @@ export function fillSecurityHeaders(headers: Headers, kind: ResponseKind, produc
 export function fillHeaderValues(has: (name: string) => boolean, set: (name: string, value: string) => void, kind: ResponseKind, production: boolean): void {
   for (const [name, value] of Object.entries(headersFor(kind, { production }))) {
     if (kind === "document" && name === "Content-Security-Policy") continue;
-    if (kind === "api" && name === "Cache-Control") set(name, value);
-    else if (!has(name)) set(name, value);
+    if (!has(name)) set(name, value);
   }
 }
 

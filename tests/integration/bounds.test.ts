@@ -85,7 +85,7 @@ describe("huge counts through the routes", () => {
         const out = await call(estimateApi.action as Handler, request);
         expect(performance.now() - t0).toBeLessThan(1000);
         expect(out.status).toBe(400);
-        expect((out.body as { errors: { path: string; message: string }[] }).errors).toEqual([{ path: "engine.cylinders", message: "At most 16 cylinders" }]);
+        expect((out.body as { errors: { path: string; message: string }[] }).errors).toEqual([{ path: "input.engine.cylinders", message: "At most 16 cylinders" }]);
       }),
       { numRuns: 60 },
     );

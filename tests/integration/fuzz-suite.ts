@@ -142,6 +142,7 @@ const TABLES = [
   "materials",
   "fasteners",
   "gaskets",
+  "api_tokens",
 ];
 async function counts(): Promise<string> {
   const sql = `select ${TABLES.map((t) => `(select count(*) from ${t})`).join(", ")} as c`;
@@ -237,6 +238,7 @@ beforeAll(async () => {
     "routes/auth/invite": { intent: "create", name: "Fuzz Person", password: "a sentence for the bench" },
     "routes/engines/build-sheet": { viewerId: String(viewerId), note: "" },
     "routes/engines/sharing": { viewerId: String(viewerId), shared: "true" },
+    "routes/app/tokens": { intent: "create", name: "fuzz token", role: "viewer" },
   });
 });
 
@@ -297,6 +299,7 @@ export const FUZZ_GROUPS = {
     "routes/app/team-switch",
     "routes/app/team",
     "routes/app/settings",
+    "routes/app/tokens",
     "routes/engines/new",
     "routes/engines/edit",
     "routes/engines/duplicate",
@@ -313,6 +316,8 @@ export const FUZZ_GROUPS = {
     "library-new",
     "library-edit",
     "routes/api/estimate",
+    "routes/api/v1/sweep",
+    "routes/api/v1/runs",
     "routes/plans/copy",
   ],
 };
@@ -334,7 +339,7 @@ export function fuzzRoutes(ids: string[]) {
         const route = routes.find((r) => r.id === id)!;
         const statuses = new Map<number, number>();
         const arb =
-          id === "routes/api/estimate"
+          id === "routes/api/estimate" || id === "routes/api/v1/sweep" || id === "routes/api/v1/runs"
             ? apiArb(planInput)
             : formArb(bases[id]!);
         await fc.assert(

@@ -1,5 +1,6 @@
 import crypto from "node:crypto";
 import { beforeAll, describe, expect, it, vi } from "vitest";
+import { runsApiEnabled } from "~/models/run-api.server";
 import { db } from "~/utils/db.server";
 import { DEMO_PASSWORD, EMAIL, ORIGIN, signIn, WHO, type Who } from "./helpers";
 import { through, type Answer } from "./pipeline";
@@ -75,8 +76,21 @@ const MATRIX: Record<string, Row> = {
   "routes/app/team POST": ["signin", "403", "403", "400", "400"],
   "routes/app/settings GET": member("200"),
   "routes/app/settings POST": member("400"),
+  "routes/app/tokens GET": member("200"),
+  "routes/app/tokens POST": member("400"),
+  "routes/docs/api GET": all("200"),
   "routes/api/estimate GET": all("405"),
   "routes/api/estimate POST": ["401", "400", "400", "400", "400"],
+  "routes/api/v1/sweep GET": all("405"),
+  "routes/api/v1/sweep POST": ["401", "400", "400", "400", "400"],
+  "routes/api/v1/engines GET": ["401", "200", "200", "200", "200"],
+  "routes/api/v1/engine GET": ["401", "200", "200", "200", "404"],
+  "routes/api/v1/plans GET": ["401", "200", "200", "200", "404"],
+  "routes/api/v1/plan GET": ["401", "200", "200", "200", "404"],
+  // the run log's table comes with its own branch: until then the runs list says so (404; see beforeAll)
+  "routes/api/v1/runs GET": ["401", "404", "404", "404", "404"],
+  "routes/api/v1/runs POST": ["401", "403", "400", "400", "400"],
+  "routes/api/v1/openapi GET": all("200"),
   "routes/api/healthz GET": all("200"),
 };
 
@@ -88,6 +102,7 @@ let otherTeamId = 0;
 
 beforeAll(async () => {
   routes = await appRoutes();
+  if (await runsApiEnabled()) MATRIX["routes/api/v1/runs GET"] = ["401", "200", "200", "200", "200"];
   for (const who of WHO) if (who !== "anonymous") cookies[who] = await signIn(EMAIL[who]);
   demoTeamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
   otherTeamId = (await db()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id")).id;
@@ -95,7 +110,8 @@ beforeAll(async () => {
   const plan = await db()("seal_plans").where({ team_id: demoTeamId, engine_id: engine.id }).first("id");
   const gasket = await db()("gaskets").where({ team_id: demoTeamId }).first("id");
   values = { engineId: String(engine.id), planId: String(plan.id), kind: "gaskets", itemId: String(gasket.id), token: "not-a-token" };
-});
+  // importing every route module and four sign-ins: slow on a loaded machine, not a speed check
+}, 60_000);
 
 const HARMLESS: Record<string, Record<string, string>> = {
   "routes/auth/login": { email: "", password: "" },
@@ -112,6 +128,7 @@ const HARMLESS: Record<string, Record<string, string>> = {
   "routes/auth/reset-password": { password: "" },
   "routes/engines/build-sheet": { viewerId: "" },
   "routes/engines/sharing": { viewerId: "" },
+  "routes/app/tokens": { intent: "create", name: "" },
 };
 
 function request(route: RouteInfo, method: "GET" | "POST", cookie: string | undefined, body: Record<string, string> | string, origin = ORIGIN) {
@@ -190,6 +207,9 @@ const WRITING: Record<string, Record<string, string>> = {
   "routes/engines/build-sheet": { viewerId: "1" },
   "routes/engines/sharing": { viewerId: "1", shared: "true" },
   "routes/api/estimate": {},
+  "routes/api/v1/sweep": {},
+  "routes/api/v1/runs": {},
+  "routes/app/tokens": { intent: "create", name: "Forged", role: "viewer" },
 };
 
 async function digest(): Promise<string> {

@@ -1,46 +1,19 @@
-import { PlanInputSchema } from "~/lib/clamp";
+import { EstimateRequestSchema } from "~/lib/api/schemas";
 import { estimateView } from "~/lib/plan/estimate-view";
 import { displayWording } from "~/lib/plan/wording";
-import { requireApiMember } from "~/utils/auth.server";
-import { clientAddress } from "~/utils/client-address.server";
-import { readJsonBody } from "~/utils/json-body.server";
-import { takeAll, tooManyHeaders, waitWords } from "~/utils/rate-limit.server";
+import { apiBody, apiCaller, wrongMethod } from "~/utils/api.server";
+import { planEnginePrecheck } from "~/utils/api-plan.server";
 
 // POST /api/v1/estimate  { input: PlanInput (SI), units?: "metric" | "imperial" } → the estimate, sweep and
 // uncertainty. Figures are SI; `units` only sets how the sentences (warnings, squeeze point) read.
-// Session-authorized; validated with the clamp model's own schema; computes only, stores nothing.
+// The plan editor posts here as the builder types (cookie); scripts post with a token. Computes only.
 export async function action({ request, context }: { request: Request; context?: unknown }) {
-  if (request.method !== "POST") return Response.json({ error: "Use POST." }, { status: 405 });
-  const address = clientAddress(context);
-  const beforeSignIn = await takeAll([["apiAddress", address]]);
-  if (beforeSignIn > 0) return tooMany(beforeSignIn);
-  const { user } = await requireApiMember(request);
-  const wait = await takeAll([["apiUser", String(user.id)]]);
-  if (wait > 0) return tooMany(wait);
-  const body = (await readJsonBody(request)) as { input?: unknown; units?: unknown } | null;
-  if (!body || typeof body !== "object" || Array.isArray(body) || !body.input || typeof body.input !== "object") {
-    return Response.json({ error: 'Send a JSON object { "input": { …the plan in SI… } }; see docs/clamp-model.md for its fields.' }, { status: 400 });
-  }
-  // The engine part first: the plan's cross-field checks loop over its cylinder count, so they only
-  // ever see a count that passed its own check (a count of 10⁹ once exhausted the heap).
-  const engine = PlanInputSchema.shape.engine.safeParse((body.input as { engine?: unknown }).engine);
-  if (!engine.success) {
-    const errors = engine.error.issues.map((i) => ({ path: ["engine", ...i.path].join("."), message: i.message }));
-    return Response.json({ error: "The plan has problems; nothing was estimated.", errors }, { status: 400 });
-  }
-  const parsed = PlanInputSchema.safeParse(body.input);
-  if (!parsed.success) {
-    const errors = parsed.error.issues.map((i) => ({ path: i.path.join("."), message: i.message }));
-    return Response.json({ error: "The plan has problems; nothing was estimated.", errors }, { status: 400 });
-  }
-  const units = body && body.units === "imperial" ? "imperial" : "metric";
-  return Response.json(estimateView(parsed.data, displayWording(units)));
-}
-
-function tooMany(waitMs: number) {
-  return Response.json({ error: `Too many estimates at once; try again in ${waitWords(waitMs)}.` }, { status: 429, headers: tooManyHeaders(waitMs) });
+  if (request.method !== "POST") return wrongMethod("POST");
+  await apiCaller(request, context);
+  const body = await apiBody(request, EstimateRequestSchema, planEnginePrecheck);
+  return Response.json(estimateView(body.input, displayWording(body.units ?? "metric")));
 }
 
 export function loader() {
-  return Response.json({ error: "Use POST with a JSON body { input: … }." }, { status: 405 });
+  return wrongMethod("POST");
 }

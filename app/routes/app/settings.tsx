@@ -74,7 +74,7 @@ export default function Settings({ loaderData, actionData }: Route.ComponentProp
           <Field label="New password again" name="confirm" type="password" autoComplete="new-password" required error={errors("password").confirm} />
           <Button type="submit">Change the password</Button>
         </Form>
-        {/* helper "api" adds the API tokens page at /settings/tokens and its link here */}
+        <p><a className="text-copper-700 underline" href="/settings/tokens">API tokens</a> for scripts and dyno laptops</p>
       </div>
     </>
   );

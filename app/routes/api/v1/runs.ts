@@ -1,0 +1,30 @@
+import { RunCreateSchema, RunListQuerySchema } from "~/lib/api/schemas";
+import { createRunForApi, listRunsForApi, runsApiEnabled } from "~/models/run-api.server";
+import { apiBody, apiCaller, apiError, apiQuery, apiRead, requireApiRole, wrongMethod } from "~/utils/api.server";
+
+// GET /api/v1/runs?engineId&kind&outcome&from&to&cursor&limit → the team's run log, newest first.
+// POST /api/v1/runs (builder or owner) logs one run. Both wait for the run log's table (feature check).
+const NOT_YET = "The run log is not in this installation yet.";
+
+export async function loader({ request, context }: { request: Request; context?: unknown }) {
+  const caller = await apiCaller(request, context);
+  const query = apiQuery(request, RunListQuerySchema);
+  if (!(await runsApiEnabled())) throw apiError(404, NOT_YET);
+  const { cursor, ...rest } = query;
+  const page = await listRunsForApi(caller.teamId, { ...rest, cursor: cursor === undefined ? undefined : Number(cursor) });
+  return apiRead(request, { items: page.rows, limit: query.limit, nextCursor: page.nextCursor });
+}
+
+export async function action({ request, context }: { request: Request; context?: unknown }) {
+  if (request.method !== "POST") return wrongMethod("GET, POST");
+  const caller = await apiCaller(request, context);
+  requireApiRole(caller, "builder");
+  const run = await apiBody(request, RunCreateSchema);
+  if (!(await runsApiEnabled())) throw apiError(404, NOT_YET);
+  const created = await createRunForApi(caller.teamId, caller.userId, run);
+  if (!created.ok) {
+    const error = created.status === 404 ? "No such engine in this shop." : "The request has problems; nothing was done.";
+    throw apiError(created.status, error, { errors: [{ path: created.path, message: created.message }] });
+  }
+  return Response.json(created.run, { status: 201, headers: { Location: `/api/v1/runs?engineId=${created.run.engineId}` } });
+}

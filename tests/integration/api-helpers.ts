@@ -1,0 +1,135 @@
+import { RouterContextProvider } from "react-router";
+import { createToken } from "~/models/api-token.server";
+import type { Role } from "~/models/user.server";
+import { clientAddressContext } from "~/utils/client-address.server";
+import { db } from "~/utils/db.server";
+import { ORIGIN } from "./helpers";
+import { through, type Answer } from "./pipeline";
+import { appRoutes, type RouteInfo } from "./routes-list";
+
+// Calls the JSON API the way a script or the browser would: the path is matched against app/routes.ts,
+// the request runs behind the root middleware, with a bearer token or a cookie, from an address.
+
+let routes: RouteInfo[] | undefined;
+
+async function match(pathname: string): Promise<{ route: RouteInfo; params: Record<string, string> }> {
+  routes ??= await appRoutes();
+  for (const route of routes) {
+    const names: string[] = [];
+    const re = new RegExp(`^${route.path.replace(/\./g, "\\.").replace(/:(\w+)/g, (_, n: string) => (names.push(n), "([^/]+)"))}$`);
+    const m = re.exec(pathname);
+    if (m) return { route, params: Object.fromEntries(names.map((n, i) => [n, decodeURIComponent(m[i + 1]!)])) };
+  }
+  throw new Error(`no route for ${pathname}`);
+}
+
+export interface ApiCall {
+  token?: string;
+  cookie?: string;
+  /** A value to send as JSON, or the raw body text. */
+  body?: unknown;
+  raw?: string;
+  type?: string;
+  origin?: string | null;
+  address?: string;
+  headers?: Record<string, string>;
+}
+
+export async function api(method: "GET" | "POST" | "PUT" | "DELETE", path: string, o: ApiCall = {}): Promise<Answer> {
+  const url = new URL(ORIGIN + path);
+  const { route, params } = await match(url.pathname);
+  const headers = new Headers(o.headers);
+  if (o.token) headers.set("Authorization", `Bearer ${o.token}`);
+  if (o.cookie) headers.set("Cookie", o.cookie);
+  if (o.origin !== null && (o.cookie || o.origin)) headers.set("Origin", o.origin ?? ORIGIN);
+  let body: string | undefined;
+  if (method !== "GET") {
+    body = o.raw ?? JSON.stringify(o.body ?? {});
+    headers.set("Content-Type", o.type ?? "application/json");
+  }
+  const context = new RouterContextProvider();
+  context.set(clientAddressContext, o.address ?? "198.51.100.7");
+  const handler = method === "GET" ? route.loader : route.action;
+  const call = handler ? (args: Record<string, unknown>) => handler({ ...args, context }) : undefined;
+  return through(call, new Request(url, { method, headers, body }), params);
+}
+
+export async function userId(email: string): Promise<number> {
+  return (await db()("users").where({ email }).first("id")).id;
+}
+
+export async function teamId(name: string): Promise<number> {
+  return (await db()("teams").where({ name }).first("id")).id;
+}
+
+export const DEMO_TEAM = "Harrow Lane Boost Works";
+export const OTHER_TEAM = "Saltmarsh Dyno Cell";
+
+/** A live token for the person in their (first) team at `role` (their own role when not given). */
+export async function tokenFor(email: string, role?: Role): Promise<string> {
+  const uid = await userId(email);
+  const m = await db()("memberships").where({ user_id: uid }).orderBy("team_id").first();
+  return (await createToken(m.team_id, uid, `test ${email}`, role ?? m.role)).token;
+}
+
+/**
+ * The run log's table as this branch's contract names it (app/models/run-api.server.ts). Test-only:
+ * the run-log branch owns the real migration. Created only when the database has no `runs` table.
+ */
+export async function ensureTestRunsTable(): Promise<void> {
+  if (await db().schema.hasTable("runs")) return;
+  await db().schema.createTable("runs", (t) => {
+    t.increments("id").primary();
+    t.integer("team_id").notNullable().references("teams.id");
+    t.integer("engine_id").notNullable().references("engines.id");
+    t.integer("plan_id").nullable().references("seal_plans.id");
+    t.string("ran_on", 10).notNullable();
+    t.string("kind", 20).notNullable();
+    t.float("manifold_pressure_kpa").nullable();
+    t.string("fuel", 60).notNullable().defaultTo("");
+    t.float("peak_cylinder_pressure_mpa").nullable();
+    t.string("peak_pressure_source", 10).notNullable();
+    t.string("outcome", 20).notNullable();
+    t.text("cylinders_affected").notNullable().defaultTo("[]");
+    t.text("notes").notNullable().defaultTo("");
+    t.text("teardown_findings").notNullable().defaultTo("");
+    t.integer("created_by").nullable().references("users.id");
+    t.string("created_at").notNullable();
+    t.string("updated_at").notNullable();
+    t.check("kind in ('dyno','pass','street')", [], "runs_kind_check");
+  });
+}
+
+export async function rowCounts(): Promise<Record<string, number>> {
+  const out: Record<string, number> = {};
+  for (const t of ["runs", "api_tokens", "audit_events", "engines", "seal_plans"]) {
+    if (await db().schema.hasTable(t)) out[t] = Number((await db()(t).count({ n: "*" }).first())!.n);
+  }
+  return out;
+}
+
+/** An engine of the other shop (the demo seed gives it none): a copy of one demo engine, on its own materials. */
+export async function otherTeamEngine(): Promise<number> {
+  const other = await teamId(OTHER_TEAM);
+  const existing = await db()("engines").where({ team_id: other }).first("id");
+  if (existing) return existing.id;
+  const demo = await db()("engines").where({ team_id: await teamId(DEMO_TEAM), cylinders: 4 }).first();
+  const own = async (materialId: number | null) => {
+    if (materialId === null) return null;
+    const name = (await db()("materials").where({ id: materialId }).first("name")).name;
+    return (await db()("materials").where({ team_id: other, name }).first("id")).id;
+  };
+  const { id: _id, ...row } = demo;
+  const [made] = await db()("engines")
+    .insert({
+      ...row,
+      team_id: other,
+      name: "Other shop's test engine",
+      chosen_plan_id: null,
+      block_material_id: await own(demo.block_material_id),
+      head_material_id: await own(demo.head_material_id),
+      sleeve_material_id: await own(demo.sleeve_material_id),
+    })
+    .returning("id");
+  return typeof made === "object" ? made.id : made;
+}
