@@ -1,6 +1,7 @@
 import type { z } from "zod";
 import type { EngineListSchema, EngineSchema, PlanSchema, PlanWithEstimateSchema } from "~/lib/api/schemas";
 import type { UnitSystem } from "~/lib/units";
+import type { Asker } from "./viewer-scope.server";
 import { getEngine, listEngines, type EngineRow, type EngineStatus } from "./engine.server";
 import { estimatePlan, storedPlanInput } from "./plan-estimate.server";
 import { listPlans, type PlanRow } from "./plan.server";
@@ -11,8 +12,8 @@ import { listPlans, type PlanRow } from "./plan.server";
 type Engine = z.output<typeof EngineSchema>;
 type Plan = z.output<typeof PlanSchema>;
 
-export async function engineListForApi(teamId: number, query: { page: number; limit: number; q?: string; status?: EngineStatus }): Promise<z.output<typeof EngineListSchema>> {
-  const { rows, total } = await listEngines(teamId, { page: query.page, pageSize: query.limit, q: query.q, status: query.status, sort: "updated", dir: "desc" });
+export async function engineListForApi(who: Asker, query: { page: number; limit: number; q?: string; status?: EngineStatus }): Promise<z.output<typeof EngineListSchema>> {
+  const { rows, total } = await listEngines(who, { page: query.page, pageSize: query.limit, q: query.q, status: query.status, sort: "updated", dir: "desc" });
   return { items: rows, page: query.page, limit: query.limit, total, nextPage: query.page * query.limit < total ? query.page + 1 : null };
 }
 
@@ -21,8 +22,8 @@ export function engineForApi(e: EngineRow): Engine {
   return rest;
 }
 
-export async function engineById(teamId: number, engineId: number): Promise<EngineRow | null> {
-  return getEngine(teamId, engineId);
+export async function engineById(who: Asker, engineId: number): Promise<EngineRow | null> {
+  return getEngine(who, engineId);
 }
 
 function planForApi(p: PlanRow, engine: EngineRow): Plan {

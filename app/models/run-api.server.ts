@@ -2,6 +2,7 @@ import type { z } from "zod";
 import type { RunCreateSchema } from "~/lib/api/schemas";
 import { db, now, writeTransaction } from "~/utils/db.server";
 import { getEngine } from "./engine.server";
+import { viewerScope, type Asker } from "./viewer-scope.server";
 
 // What the API needs of the run log, over the `runs` table the run-log branch creates (this branch
 // creates no such table). The columns it expects:
@@ -77,8 +78,11 @@ function toRun(r: Record<string, any>): RunApiRow {
 }
 
 /** One page of the team's runs, newest first; the next cursor is null on the last page. */
-export async function listRunsForApi(teamId: number, f: RunFilter): Promise<{ rows: RunApiRow[]; nextCursor: string | null }> {
-  const q = db()(RUNS_TABLE).where({ team_id: teamId });
+export async function listRunsForApi(who: Asker, f: RunFilter): Promise<{ rows: RunApiRow[]; nextCursor: string | null }> {
+  const q = db()(RUNS_TABLE)
+    .where({ team_id: who.teamId })
+    // a viewer sees the runs of the engines shared with them only
+    .whereIn("engine_id", viewerScope(db()("engines").select("engines.id"), who));
   if (f.engineId !== undefined) q.andWhere({ engine_id: f.engineId });
   if (f.kind) q.andWhere({ kind: f.kind });
   if (f.outcome) q.andWhere({ outcome: f.outcome });
@@ -97,8 +101,9 @@ export type RunCreateResult = { ok: true; run: RunApiRow } | { ok: false; status
  * Logs a run on one of the team's engines, with its audit row. The plan is the engine's chosen plan at
  * the time (the run log's own form may know better: its latest assembly on or before the day).
  */
-export async function createRunForApi(teamId: number, userId: number, run: RunCreate): Promise<RunCreateResult> {
-  const engine = await getEngine(teamId, run.engineId);
+export async function createRunForApi(who: Asker, run: RunCreate): Promise<RunCreateResult> {
+  const { teamId, userId } = who;
+  const engine = await getEngine(who, run.engineId);
   if (!engine) return { ok: false, status: 404, path: "engineId", message: "not an engine of this shop" };
   const beyond = run.cylindersAffected.find((c) => c > engine.cylinders);
   if (beyond !== undefined) return { ok: false, status: 400, path: "cylindersAffected", message: `the engine has ${engine.cylinders} cylinders; there is no cylinder ${beyond}` };

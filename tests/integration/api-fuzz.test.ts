@@ -7,7 +7,7 @@ import { listPlans, planParts } from "~/models/plan.server";
 import { db } from "~/utils/db.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
 import { api, DEMO_TEAM, ensureTestRunsTable, rowCounts, teamId, tokenFor } from "./api-helpers";
-import { EMAIL } from "./helpers";
+import { EMAIL, teamWide } from "./helpers";
 import type { z } from "zod";
 
 // Property: for 1,000 generated bodies per write endpoint of /api/v1 (API_FUZZ_RUNS to change it), sent
@@ -25,7 +25,7 @@ beforeAll(async () => {
   token = await tokenFor(EMAIL.builder);
   const demo = await teamId(DEMO_TEAM);
   engineId = (await db()("engines").where({ team_id: demo, cylinders: 4 }).first("id")).id;
-  const engine = (await getEngine(demo, engineId))!;
+  const engine = (await getEngine(teamWide(demo), engineId))!;
   planInput = assemblePlanInput((await planParts(demo, engine, (await listPlans(demo, engineId))[0]!))!) as unknown as Record<string, unknown>;
 }, 60_000);
 beforeEach(() => resetThrottles());

@@ -8,7 +8,7 @@ import { listPlans, planParts } from "~/models/plan.server";
 import { db } from "~/utils/db.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
 import { api, DEMO_TEAM, ensureTestRunsTable, teamId, tokenFor } from "./api-helpers";
-import { EMAIL } from "./helpers";
+import { EMAIL, teamWide } from "./helpers";
 import { appRoutes } from "./routes-list";
 
 // The OpenAPI document: valid OpenAPI 3.1 by a parser from the registry, naming exactly the /api/v1
@@ -71,7 +71,7 @@ describe("real answers fit their documented schemas", () => {
     engineId = (await db()("engines").where({ team_id: demo, cylinders: 4 }).first("id")).id;
     const plan = (await listPlans(demo, engineId))[0]!;
     planId = plan.id;
-    input = assemblePlanInput((await planParts(demo, (await getEngine(demo, engineId))!, plan))!);
+    input = assemblePlanInput((await planParts(demo, (await getEngine(teamWide(demo), engineId))!, plan))!);
   }, 60_000);
 
   function check(docPath: string, method: string, status: number, body: unknown) {

@@ -6,7 +6,7 @@ import * as tokens from "~/routes/app/tokens";
 import { db } from "~/utils/db.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
 import { api, DEMO_TEAM, ensureTestRunsTable, otherTeamEngine, rowCounts, teamId, tokenFor } from "./api-helpers";
-import { call, EMAIL, get, post, signIn, type Handler } from "./helpers";
+import { call, EMAIL, get, post, signIn, type Handler, teamWide } from "./helpers";
 
 // Refusals of the API: each bad request gets its documented status and error body and writes nothing;
 // a revoked token is refused from the next request; cookie writes need our Origin; throttles answer 429.
@@ -24,7 +24,7 @@ beforeAll(async () => {
   builderCookie = await signIn(EMAIL.builder);
   const demo = await teamId(DEMO_TEAM);
   engineId = (await db()("engines").where({ team_id: demo, cylinders: 4 }).first("id")).id;
-  const engine = (await getEngine(demo, engineId))!;
+  const engine = (await getEngine(teamWide(demo), engineId))!;
   planInput = assemblePlanInput((await planParts(demo, engine, (await listPlans(demo, engineId))[0]!))!) as unknown as Record<string, unknown>;
 }, 60_000);
 beforeEach(() => resetThrottles());

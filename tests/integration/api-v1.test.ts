@@ -5,7 +5,7 @@ import { listPlans, planParts } from "~/models/plan.server";
 import { db } from "~/utils/db.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
 import { api, DEMO_TEAM, ensureTestRunsTable, OTHER_TEAM, otherTeamEngine, rowCounts, teamId, tokenFor } from "./api-helpers";
-import { EMAIL, signIn } from "./helpers";
+import { EMAIL, signIn, teamWide } from "./helpers";
 
 // Every /api/v1 endpoint as each role of the demo shop and as another shop's owner, once with a
 // personal token and once with the session cookie: the status each gets, and what a foreign team sees.
@@ -32,7 +32,7 @@ beforeAll(async () => {
   demoTeam = await teamId(DEMO_TEAM);
   otherTeam = await teamId(OTHER_TEAM);
   engineId = (await db()("engines").where({ team_id: demoTeam, cylinders: 4 }).first("id")).id;
-  const engine = (await getEngine(demoTeam, engineId))!;
+  const engine = (await getEngine(teamWide(demoTeam), engineId))!;
   const plan = (await listPlans(demoTeam, engineId))[0]!;
   planId = plan.id;
   planInput = assemblePlanInput((await planParts(demoTeam, engine, plan))!);

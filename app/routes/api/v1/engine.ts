@@ -6,7 +6,7 @@ import { parseId } from "~/utils/ids";
 export async function loader({ request, context, params }: { request: Request; context?: unknown; params: { engineId?: string } }) {
   const caller = await apiCaller(request, context);
   const id = parseId(params.engineId);
-  const engine = id === null ? null : await engineById(caller.teamId, id);
+  const engine = id === null ? null : await engineById(caller, id);
   if (!engine) throw notFound("No such engine in this shop.");
   return apiRead(request, engineForApi(engine));
 }

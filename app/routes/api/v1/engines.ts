@@ -6,5 +6,5 @@ import { apiCaller, apiQuery, apiRead } from "~/utils/api.server";
 export async function loader({ request, context }: { request: Request; context?: unknown }) {
   const caller = await apiCaller(request, context);
   const query = apiQuery(request, EngineListQuerySchema);
-  return apiRead(request, await engineListForApi(caller.teamId, query));
+  return apiRead(request, await engineListForApi(caller, query));
 }

@@ -9,7 +9,7 @@ export async function loader({ request, context, params }: { request: Request; c
   const query = apiQuery(request, PlanReadQuerySchema);
   const engineId = parseId(params.engineId);
   const planId = parseId(params.planId);
-  const engine = engineId === null ? null : await engineById(caller.teamId, engineId);
+  const engine = engineId === null ? null : await engineById(caller, engineId);
   const answer = engine && planId !== null ? await planWithEstimateForApi(caller.teamId, engine, planId, query.units ?? "metric") : null;
   if (!answer) throw notFound("No such seal plan on this engine.");
   return apiRead(request, answer);

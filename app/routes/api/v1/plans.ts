@@ -8,7 +8,7 @@ export async function loader({ request, context, params }: { request: Request; c
   const caller = await apiCaller(request, context);
   const query = apiQuery(request, PageQuerySchema);
   const id = parseId(params.engineId);
-  const engine = id === null ? null : await engineById(caller.teamId, id);
+  const engine = id === null ? null : await engineById(caller, id);
   if (!engine) throw notFound("No such engine in this shop.");
   return apiRead(request, await planListForApi(caller.teamId, engine, query.page, query.limit));
 }

@@ -11,7 +11,7 @@ export async function loader({ request, context }: { request: Request; context?:
   const query = apiQuery(request, RunListQuerySchema);
   if (!(await runsApiEnabled())) throw apiError(404, NOT_YET);
   const { cursor, ...rest } = query;
-  const page = await listRunsForApi(caller.teamId, { ...rest, cursor: cursor === undefined ? undefined : Number(cursor) });
+  const page = await listRunsForApi(caller, { ...rest, cursor: cursor === undefined ? undefined : Number(cursor) });
   return apiRead(request, { items: page.rows, limit: query.limit, nextCursor: page.nextCursor });
 }
 
@@ -21,7 +21,7 @@ export async function action({ request, context }: { request: Request; context?:
   requireApiRole(caller, "builder");
   const run = await apiBody(request, RunCreateSchema);
   if (!(await runsApiEnabled())) throw apiError(404, NOT_YET);
-  const created = await createRunForApi(caller.teamId, caller.userId, run);
+  const created = await createRunForApi(caller, run);
   if (!created.ok) {
     const error = created.status === 404 ? "No such engine in this shop." : "The request has problems; nothing was done.";
     throw apiError(created.status, error, { errors: [{ path: created.path, message: created.message }] });
