@@ -22,9 +22,12 @@ export default [
       route("plans/:planId/copy", "routes/plans/copy.tsx"),
       route("compare", "routes/plans/compare.tsx"),
       route("chamber", "routes/engines/chamber.tsx"),
-      route("assembly", "routes/engines/later.tsx", { id: "engine-assembly" }),
-      route("runs", "routes/engines/later.tsx", { id: "engine-runs" }),
-      route("files", "routes/engines/later.tsx", { id: "engine-files" }),
+      route("plans/:planId/checklist", "routes/plans/checklist.tsx"),
+      route("assembly", "routes/engines/assembly.tsx"),
+      route("runs", "routes/engines/runs.tsx"),
+      route("runs.csv", "routes/engines/runs-csv.ts"),
+      route("files", "routes/engines/files.tsx"),
+      route("files/upload", "routes/engines/files-upload.ts"),
     ]),
     route("libraries", "routes/libraries/layout.tsx", [
       index("routes/libraries/index.tsx"),
@@ -36,6 +39,7 @@ export default [
     route("team", "routes/app/team.tsx"),
     route("settings", "routes/app/settings.tsx"),
   ]),
+  route("files/:fileId", "routes/app/file.ts"),
   route("api/v1/estimate", "routes/api/estimate.ts"),
   route("healthz", "routes/api/healthz.ts"),
 ] satisfies RouteConfig;

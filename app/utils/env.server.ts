@@ -18,6 +18,10 @@ const EnvSchema = z.object({
   RATE_LIMIT_SQLITE_PATH: z.string().min(1).optional(),
   // Behind a reverse proxy, the client's address is the proxy's X-Forwarded-For entry.
   TRUST_PROXY: z.enum(["true", "false"], "TRUST_PROXY must be true or false").default("false"),
+  // Uploaded photos and PDFs: a directory outside the web root (default: "uploads" beside the database).
+  UPLOAD_DIR: z.string().min(1).optional(),
+  // Total upload storage per team, in MB.
+  UPLOAD_TEAM_QUOTA_MB: z.coerce.number().positive("UPLOAD_TEAM_QUOTA_MB must be a positive number").default(500),
 });
 
 export type Env = z.infer<typeof EnvSchema>;
