@@ -141,6 +141,9 @@ const TABLES = [
   "materials",
   "fasteners",
   "gaskets",
+  "assemblies",
+  "runs",
+  "files",
 ];
 async function counts(): Promise<string> {
   const sql = `select ${TABLES.map((t) => `(select count(*) from ${t})`).join(", ")} as c`;
@@ -227,8 +230,12 @@ beforeAll(async () => {
     "library-edit": gasketForm,
     "routes/app/team": { name: "Harrow Lane Boost Works" },
     "routes/app/settings": { units: "metric" },
+    "routes/engines/assembly": { planId: String(plan.id), assembledOn: "2026-11-30", assembledBy: "Fuzz Builder", lubricant: "moly", measuredProtrusionMm: "0.1", gasketCompressedMm: "1.1", notes: "", ...Object.fromEntries(plan.stagesNm.map((s, i) => [`stage-${i}-reached`, String(s)])), "stretch-0": "0.35" },
+    "routes/engines/runs": { ranOn: "2026-11-30", kind: "dyno", manifoldPressureKpa: "250", fuel: "E85", peakCylinderPressureMpa: "", outcome: "seeping", cylindersAffected: "2", notes: "", teardownFindings: "" },
+    "routes/engines/files-upload": { returnTo: `/engines/${engine.id}/files` },
   });
-});
+  // importing every route module and signing in takes a while on a loaded machine
+}, 60_000);
 
 /** A fresh session for a person, without a sign-in (sign-out ends the one it is sent with). */
 async function freshSession(email: string): Promise<string> {
@@ -290,6 +297,8 @@ export const FUZZ_GROUPS = {
     "routes/engines/new",
     "routes/engines/edit",
     "routes/engines/duplicate",
+    "routes/engines/runs",
+    "routes/engines/files-upload",
   ],
   plans: [
     "routes/plans/new",
@@ -299,6 +308,7 @@ export const FUZZ_GROUPS = {
     "library-edit",
     "routes/api/estimate",
     "routes/plans/copy",
+    "routes/engines/assembly",
   ],
 };
 
