@@ -67,9 +67,9 @@ export default function Runs({ loaderData: d, actionData }: Route.ComponentProps
       <h2 className="text-2xl font-bold">Runs</h2>
       <Caution />
       <Form method="get" className="no-print flex flex-wrap items-end gap-3 rounded border border-forge-100 bg-white p-3">
-        <SelectField label="Kind" name="kind" defaultValue={d.query.kind} options={[["", "Any"], ...RUN_KINDS.map((k) => [k, RUN_KIND_LABEL[k]] as [string, string])]} />
-        <SelectField label="Outcome" name="outcome" defaultValue={d.query.outcome} options={[["", "Any"], ["failed", "Anything but held"], ...OUTCOMES.map((o) => [o, OUTCOME_LABEL[o]] as [string, string])]} />
-        <SelectField label="Fuel" name="fuel" defaultValue={d.query.fuel} options={[["", "Any"], ...d.fuels.map((f) => [f, f] as [string, string])]} />
+        <FilterSelect label="Show kind" name="kind" value={d.query.kind} options={[["", "Any"], ...RUN_KINDS.map((k) => [k, RUN_KIND_LABEL[k]] as [string, string])]} />
+        <FilterSelect label="Show outcome" name="outcome" value={d.query.outcome} options={[["", "Any"], ["failed", "Anything but held"], ...OUTCOMES.map((o) => [o, OUTCOME_LABEL[o]] as [string, string])]} />
+        <FilterSelect label="Show fuel" name="fuel" value={d.query.fuel} options={[["", "Any"], ...d.fuels.map((f) => [f, f] as [string, string])]} />
         <input type="hidden" name="sort" value={d.query.sort} />
         <input type="hidden" name="dir" value={d.query.dir} />
         <Button type="submit" kind="plain">Filter</Button>
@@ -131,6 +131,18 @@ export default function Runs({ loaderData: d, actionData }: Route.ComponentProps
         </Form>
       ) : null}
     </section>
+  );
+}
+
+// The filter's selects share their names with the log form's fields: their own ids keep the labels apart.
+function FilterSelect({ label, name, value, options }: { label: string; name: string; value: string; options: [string, string][] }) {
+  return (
+    <div>
+      <label htmlFor={`filter-${name}`} className="block text-sm font-medium text-forge-800">{label}</label>
+      <select id={`filter-${name}`} name={name} defaultValue={value} className="mt-1 block w-full rounded border border-forge-300 bg-white px-3 py-2 text-base">
+        {options.map(([v, t]) => <option key={v} value={v}>{t}</option>)}
+      </select>
+    </div>
   );
 }
 
