@@ -42,6 +42,7 @@ test("a builder records an assembly with a photo, logs two runs and sees them in
   await signIn(page, "builder@example.com");
   await page.goto("/engines");
   await page.getByRole("link", { name: FOUR }).click();
+  await page.waitForURL(/\/engines\/\d+$/);
   const engineUrl = page.url().replace(/\/$/, "");
   await page.getByRole("navigation", { name: "Engine" }).getByRole("link", { name: "Assembly" }).click();
   await expect(page.getByRole("heading", { name: "Assembly", exact: true })).toBeVisible();

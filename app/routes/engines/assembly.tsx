@@ -94,7 +94,7 @@ export default function Assembly({ loaderData: d, actionData }: Route.ComponentP
       </div>
       <LearnedFriction learned={d.learned} units={u} />
       {d.canEdit && formPlan ? (
-        <Form method="post" className="no-print max-w-4xl space-y-3 rounded border border-forge-300 bg-white p-4" aria-label="Record an assembly">
+        <Form key={`${formPlan.id}-${d.assemblies.length}`} method="post" className="no-print max-w-4xl space-y-3 rounded border border-forge-300 bg-white p-4" aria-label="Record an assembly">
           <h3 className="text-lg font-bold">Record an assembly</h3>
           <FormError message={actionData?.message} />
           <div className="grid gap-3 sm:grid-cols-3">
@@ -105,7 +105,7 @@ export default function Assembly({ loaderData: d, actionData }: Route.ComponentP
             <Field label="Protrusion measured (mm)" name="measuredProtrusionMm" inputMode="decimal" defaultValue={values.measuredProtrusionMm} error={errors.measuredProtrusionMm} />
             <Field label="Gasket compressed thickness (mm)" name="gasketCompressedMm" inputMode="decimal" defaultValue={values.gasketCompressedMm} error={errors.gasketCompressedMm} />
           </div>
-          <p className="text-xs text-forge-700">The stages below are those of the plan picked; <Link to="?" className="underline">pick another plan</Link> by opening this page with it: {d.plans.map((p) => <Link key={p.id} to={`?planId=${p.id}`} className="mr-2 underline">{p.name}</Link>)}</p>
+          <p className="text-xs text-forge-700">The stages below are those of “{formPlan.name}”. For another plan's stages, open the form with it: {d.plans.filter((p) => p.id !== formPlan.id).map((p) => <Link key={p.id} to={`?planId=${p.id}`} className="mr-2 underline">{p.name}</Link>)}</p>
           <fieldset className="grid gap-3 sm:grid-cols-3">
             <legend className="text-sm font-bold">Tightening as done (N·m reached, or the angle turned)</legend>
             {formPlan.stagesNm.map((s, i) => (
