@@ -4,6 +4,7 @@ import { PageTitle } from "~/components/app-shell";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { EvidenceChart } from "~/components/evidence-chart";
 import { Button, SelectField } from "~/components/form";
+import { GASKET_TYPE_LABELS } from "~/lib/library/schemas";
 import { combinations, filterPoints, summarize } from "~/lib/records/evidence";
 import { OUTCOME_LABEL } from "~/lib/records/run";
 import { formatQuantity } from "~/lib/units";
@@ -32,7 +33,8 @@ export async function loader({ request }: Route.LoaderArgs) {
   };
 }
 
-const opts = (xs: string[]): [string, string][] => [["", "Any"], ...xs.map((x) => [x, x] as [string, string])];
+const opts = (xs: string[], label: (x: string) => string = (x) => x): [string, string][] => [["", "Any"], ...xs.map((x) => [x, label(x)] as [string, string])];
+const gasketLabel = (t: string) => GASKET_TYPE_LABELS[t as keyof typeof GASKET_TYPE_LABELS] ?? t;
 
 export default function EvidencePage({ loaderData: d }: Route.ComponentProps) {
   const s = d.summary;
@@ -41,7 +43,7 @@ export default function EvidencePage({ loaderData: d }: Route.ComponentProps) {
       <PageTitle sub="What the shop's runs say about the model's margins">Evidence</PageTitle>
       <Caution className="mb-4" />
       <Form method="get" className="no-print mb-4 flex flex-wrap items-end gap-3 rounded border border-forge-100 bg-white p-3">
-        <SelectField label="Gasket type" name="gasketType" defaultValue={d.filter.gasketType} options={opts(d.choices.gasketTypes)} />
+        <SelectField label="Gasket type" name="gasketType" defaultValue={d.filter.gasketType} options={opts(d.choices.gasketTypes, gasketLabel)} />
         <SelectField label="Fastener" name="fastener" defaultValue={d.filter.fastener} options={opts(d.choices.fasteners)} />
         <SelectField label="Fuel" name="fuel" defaultValue={d.filter.fuel} options={opts(d.choices.fuels)} />
         <Button type="submit" kind="plain">Filter</Button>
@@ -60,7 +62,7 @@ export default function EvidencePage({ loaderData: d }: Route.ComponentProps) {
           <tbody>
             {d.rows.map((r) => (
               <tr key={`${r.gasketType}-${r.fastenerName}`} className="border-t border-forge-100 align-top">
-                <td className="px-2 py-2">{r.gasketType}</td>
+                <td className="px-2 py-2">{gasketLabel(r.gasketType)}</td>
                 <td className="px-2 py-2">{r.fastenerName}</td>
                 <td className="px-2 py-2 text-right">{r.runs}</td>
                 <td className="px-2 py-2 text-right">{r.held}</td>
