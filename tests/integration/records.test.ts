@@ -5,6 +5,7 @@ import * as runsPage from "~/routes/engines/runs";
 import * as runsCsv from "~/routes/engines/runs-csv";
 import * as evidence from "~/routes/app/evidence";
 import * as checklist from "~/routes/plans/checklist";
+import * as newPlan from "~/routes/plans/new";
 import { assemblePlanInput } from "~/lib/plan/assemble";
 import { studStiffnessFor } from "~/lib/plan/stretch";
 import { RUN_CSV_COLUMNS, runCsvRows } from "~/lib/records/run";
@@ -67,6 +68,13 @@ describe("assembly record", () => {
     expect(half.shift!.change).toBeLessThan(0);
     const d4 = (await call(assembly.loader, get(`/engines/${four}/assembly`, builder), { engineId: String(four) })).body as Awaited<ReturnType<typeof assembly.loader>>;
     expect(d4.learned.every((l) => !l.learned.ok && l.learned.count < 3)).toBe(true);
+  });
+
+  it("offers the learned friction to a new plan, labelled with its count, without changing the plan's friction", async () => {
+    const d = (await call(newPlan.loader, get(`/engines/${six}/plans/new`, builder), { engineId: String(six) })).body as Awaited<ReturnType<typeof newPlan.loader>>;
+    expect(d.learned).toHaveLength(1);
+    expect(d.learned[0]!.count).toBe(3);
+    expect(d.values.threadFriction).toBe("0.12");
   });
 
   const plansOfFour = async () => (await listPlans(teamId, four))[0]!;
