@@ -33,6 +33,10 @@ const EnvSchema = z.object({
   MAIL_SINK_DIR: z.string().min(1).default("data/mailbox"),
   // The mailbox page is absent when NODE_ENV=production unless this is "true" (for a test build only).
   DEV_MAILBOX: z.enum(["true", "false"], "DEV_MAILBOX must be true or false").default("false"),
+  // Uploaded photos and PDFs: a directory outside the web root (default: "uploads" beside the database).
+  UPLOAD_DIR: z.string().min(1).optional(),
+  // Total upload storage per team, in MB.
+  UPLOAD_TEAM_QUOTA_MB: z.coerce.number().positive("UPLOAD_TEAM_QUOTA_MB must be a positive number").default(500),
 });
 
 export type Env = z.infer<typeof EnvSchema>;

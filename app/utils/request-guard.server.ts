@@ -1,6 +1,7 @@
 import { parseId, idParamNames } from "./ids";
 import { isSameOriginPost } from "./origin.server";
 import { MAX_JSON_BYTES, readUpTo } from "./json-body.server";
+import { MAX_UPLOAD_BYTES, UPLOAD_PATH } from "./upload-rules";
 
 // Checks every request passes before any loader or action sees it (root middleware, and the
 // production server before React Router): where a write may come from, what body it may carry and how
@@ -34,7 +35,11 @@ function mediaType(contentType: string | null): string {
   return (contentType ?? "").split(";")[0]!.trim().toLowerCase();
 }
 
+/** An upload may carry one file at the cap plus its form fields and multipart framing. */
+export const MAX_UPLOAD_BODY_BYTES = MAX_UPLOAD_BYTES + 64 * 1024;
+
 function bodyLimit(pathname: string): number {
+  if (UPLOAD_PATH.test(pathname)) return MAX_UPLOAD_BODY_BYTES;
   return isApiPath(pathname) ? MAX_JSON_BYTES : MAX_FORM_BYTES;
 }
 
@@ -64,6 +69,7 @@ export function headerRefusal(request: Request, params: Record<string, string | 
 }
 
 function tooLarge(pathname: string): Refusal {
+  if (UPLOAD_PATH.test(pathname)) return { status: 413, message: "Files may be at most 10 MB each; this upload is larger, so it was refused and nothing was kept." };
   return { status: 413, message: `The body is larger than ${Math.round(bodyLimit(pathname) / 1024)} KiB.` };
 }
 
@@ -75,6 +81,8 @@ function tooLarge(pathname: string): Refusal {
 export async function bodyRefusal(request: Request): Promise<Refusal | null> {
   if (!isMutation(request.method) || !request.body) return null;
   const pathname = new URL(request.url).pathname;
+  // An upload is streamed by its action, which stops at the file cap: reading a copy here would hold it whole.
+  if (UPLOAD_PATH.test(pathname)) return null;
   const limit = bodyLimit(pathname);
   // The original is left alone: destroying it would reset the connection before the 413 is sent; the
   // server discards the unread rest once the answer is out.

@@ -28,6 +28,8 @@ async function targets(page: Page): Promise<string[]> {
     const out: string[] = [];
     for (const a of Array.from(document.querySelectorAll<HTMLAnchorElement>("a[href]"))) {
       if (a.hasAttribute("download")) continue;
+      // kept files (photos, PDFs) are resources, not pages: tests/integration/uploads.test.ts covers them
+      if (new URL(a.href).pathname.startsWith("/files/")) continue;
       out.push(a.href);
     }
     for (const form of Array.from(document.querySelectorAll<HTMLFormElement>("form"))) {

@@ -3,6 +3,9 @@ import { toEngine } from "~/models/engine.server";
 import { estimatePlan, type PlanEstimateResult } from "~/models/plan-estimate.server";
 import { listPlans, type PlanRow } from "~/models/plan.server";
 import { db } from "~/utils/db.server";
+import { learnedFrictions } from "~/models/assembly-readings.server";
+import { evidencePoints } from "~/models/evidence.server";
+import { summarize } from "~/lib/records/evidence";
 
 // Every seeded demo plan, estimated the way the app does it (stored rows → planParts → the clamp
 // model), and the story the demo is there to tell (migrations/seeds/03-demo-engines.ts).
@@ -132,10 +135,45 @@ describe("the demo seed", () => {
     }
   });
 
+  it("the records: assemblies on the four and the six, the six's runs with one blown gasket below margin 1", async () => {
+    const team = await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id");
+    expect((await db()("assemblies").where({ team_id: team.id })).length).toBe(5);
+    const runs = await db()("runs").where({ team_id: team.id });
+    expect(runs.length).toBe(8);
+    expect(runs.filter((r) => r.outcome !== "held").map((r) => [r.outcome, r.cylinders_affected])).toEqual([["blown-gasket", "[5,6]"]]);
+    expect(runs.filter((r) => r.peak_pressure_source === "estimated")).toHaveLength(1);
+    const { points, unplotted } = await evidencePoints(team.id);
+    expect(unplotted).toBe(0);
+    expect(points).toHaveLength(8);
+    const s = summarize(points);
+    expect(s.sealFailures).toBe(1);
+    expect(s.failedAtOrBelowMargin!).toBeLessThan(1);
+    // every run that held sat above the one failure's margin, and above 1
+    for (const p of points.filter((p) => p.outcome === "held")) expect(p.margin, p.ranOn).toBeGreaterThan(1.2);
+    // the estimated street run's peak is the model's from its 180 kPa (seeded figure, kept in step here)
+    const street = points.find((p) => p.peakSource === "estimated")!;
+    const { evaluateAtFiring } = await import("~/models/plan-at-pressure.server");
+    const engine = toEngine(await db()("engines").where({ id: street.engineId }).first());
+    const plan = (await listPlans(team.id, engine.id)).find((p) => p.name === "MLS, ½ studs at the maker's 85 lbf·ft")!;
+    const at = await evaluateAtFiring(team.id, engine, plan, { manifoldKpa: 180 });
+    expect(at.ok && at.estimate.firing.peakPressureMpa).toBeCloseTo(street.peakMpa, 2);
+  });
+
+  it("three ½ stud assemblies teach a friction near 0.13; the four's single one teaches nothing", async () => {
+    const team = await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id");
+    const learned = await learnedFrictions(team.id);
+    const half = learned.find((l) => l.fastenerName.startsWith("½-20"))!;
+    expect(half.learned.ok && half.learned.count).toBe(3);
+    expect(half.learned.ok && half.learned.friction).toBeCloseTo(0.13, 2);
+    const big = learned.find((l) => l.fastenerName.startsWith("9/16"))!;
+    expect(big.learned.ok).toBe(false);
+  });
+
   it("the other team has the handbook library but no demo engines", async () => {
     const other = await db()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id");
     expect((await db()("materials").where({ team_id: other.id })).length).toBe(10);
     expect((await db()("engines").where({ team_id: other.id })).length).toBe(0);
+    expect((await db()("runs").where({ team_id: other.id })).length).toBe(0);
   });
 });
 

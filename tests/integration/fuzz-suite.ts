@@ -143,6 +143,9 @@ const TABLES = [
   "fasteners",
   "gaskets",
   "api_tokens",
+  "assemblies",
+  "runs",
+  "files",
 ];
 async function counts(): Promise<string> {
   const sql = `select ${TABLES.map((t) => `(select count(*) from ${t})`).join(", ")} as c`;
@@ -239,8 +242,12 @@ beforeAll(async () => {
     "routes/engines/build-sheet": { viewerId: String(viewerId), note: "" },
     "routes/engines/sharing": { viewerId: String(viewerId), shared: "true" },
     "routes/app/tokens": { intent: "create", name: "fuzz token", role: "viewer" },
+    "routes/engines/assembly": { planId: String(plan.id), assembledOn: "2026-11-30", assembledBy: "Fuzz Builder", lubricant: "moly", measuredProtrusionMm: "0.1", gasketCompressedMm: "1.1", notes: "", ...Object.fromEntries(plan.stagesNm.map((s, i) => [`stage-${i}-reached`, String(s)])), "stretch-0": "0.35" },
+    "routes/engines/runs": { ranOn: "2026-11-30", kind: "dyno", manifoldPressureKpa: "250", fuel: "E85", peakCylinderPressureMpa: "", outcome: "seeping", cylindersAffected: "2", notes: "", teardownFindings: "" },
+    "routes/engines/files-upload": { returnTo: `/engines/${engine.id}/files` },
   });
-});
+  // importing every route module and signing in takes a while on a loaded machine
+}, 60_000);
 
 /** A fresh session for a person, without a sign-in (sign-out ends the one it is sent with). */
 async function freshSession(email: string): Promise<string> {
@@ -308,6 +315,8 @@ export const FUZZ_GROUPS = {
     "routes/auth/invite",
     "routes/engines/build-sheet",
     "routes/engines/sharing",
+    "routes/engines/runs",
+    "routes/engines/files-upload",
   ],
   plans: [
     "routes/plans/new",
@@ -319,6 +328,7 @@ export const FUZZ_GROUPS = {
     "routes/api/v1/sweep",
     "routes/api/v1/runs",
     "routes/plans/copy",
+    "routes/engines/assembly",
   ],
 };
 

@@ -12,6 +12,8 @@ import { parsePlanForm, planFormValues, type PlanWrite } from "~/lib/plan/form";
 import { stretchLineFor } from "~/lib/plan/stretch";
 import { formatQuantity, parseQuantity, unitFor } from "~/lib/units";
 import { decimalPoint } from "~/lib/units/decimal-comma";
+import { LearnedFrictionOffer } from "~/components/learned-friction";
+import { learnedFrictions } from "~/models/assembly-readings.server";
 import { requireEngine } from "~/models/engine.server";
 import { createPlan, listPlans, planChoices, planParts } from "~/models/plan.server";
 import { requireRole } from "~/utils/auth.server";
@@ -57,6 +59,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     values: planFormValues(plan, user.units),
     stretch: await stretchFor(team.id, engine, plan),
     emptyLibrary: !fastener || !gasket,
+    // the shop's own friction, where three or more assemblies teach one: offered, never applied
+    learned: (await learnedFrictions(team.id)).flatMap((l) => (l.learned.ok ? [{ fastenerId: l.fastenerId, lubricant: l.lubricant, friction: l.learned.friction, spread: l.learned.frictionSpread, count: l.learned.count, shift: l.shift }] : [])),
   };
 }
 
@@ -108,6 +112,7 @@ function NewPlanForm({ values, loaderData, actionData }: { values: Record<string
       {fastener ? (
         <div className="mb-4">
           <MakerTorque ourTorqueNm={torque.ok ? torque.valueSi : 0} makerTorqueNm={fastener.makerTorqueNm} makerLubricant={fastener.makerLubricant} makerStages={fastener.makerStages} units={units} />
+          <LearnedFrictionOffer learned={loaderData.learned.filter((l) => l.fastenerId === fastener.id)} units={units} />
         </div>
       ) : null}
       <Form
