@@ -164,9 +164,10 @@ export async function listEngines(teamId: number, query: EngineListQuery = {}): 
     const like = `%${likeEscape(q)}%`;
     base.where((w) =>
       w
-        .whereRaw("e.name like ? escape '\\'", [like])
-        .orWhereRaw("e.customer like ? escape '\\'", [like])
-        .orWhereRaw("e.fuel like ? escape '\\'", [like]),
+        // lower() on both sides: SQLite's LIKE ignores ASCII case, PostgreSQL's does not; this matches alike on both
+        .whereRaw("lower(e.name) like lower(?) escape '\\'", [like])
+        .orWhereRaw("lower(e.customer) like lower(?) escape '\\'", [like])
+        .orWhereRaw("lower(e.fuel) like lower(?) escape '\\'", [like]),
     );
   }
   if (query.status) base.where("e.status", query.status);
@@ -310,7 +311,7 @@ export interface MaterialOption {
 
 /** The team's active materials for the engine form's selects. */
 export async function listMaterialOptions(teamId: number): Promise<MaterialOption[]> {
-  return db()("materials").where({ team_id: teamId }).whereNull("archived_at").orderBy(["kind", "name"]).select("id", "name", "kind");
+  return db()("materials").where({ team_id: teamId }).whereNull("archived_at").orderBy(["kind", "name", "id"]).select("id", "name", "kind");
 }
 
 /** Names of the materials an engine uses (archived ones included: the record still names them). */
@@ -370,5 +371,5 @@ export async function duplicateEngine(teamId: number, userId: number, engineId: 
 
 /** The team's active engines for a picker: id, name and bore. */
 export async function engineChoices(teamId: number): Promise<{ id: number; name: string; boreMm: number }[]> {
-  return db()("engines").where({ team_id: teamId }).whereNull("archived_at").orderBy("name").select("id", "name", { boreMm: "bore_mm" });
+  return db()("engines").where({ team_id: teamId }).whereNull("archived_at").orderBy(["name", "id"]).select("id", "name", { boreMm: "bore_mm" });
 }

@@ -102,7 +102,7 @@ export async function listMemberships(userId: number): Promise<MembershipRow[]> 
   return db()("memberships as m")
     .join("teams as t", "t.id", "m.team_id")
     .where("m.user_id", userId)
-    .orderBy("t.name")
+    .orderBy(["t.name", "t.id"])
     .select({ teamId: "t.id", teamName: "t.name", role: "m.role" });
 }
 
