@@ -2,7 +2,7 @@ import type { Knex } from "knex";
 import { data } from "react-router";
 import type { Stud } from "~/lib/clamp/schema";
 import type { EngineInput } from "~/lib/engine/schema";
-import { db, now } from "~/utils/db.server";
+import { db, now, withTeam } from "~/utils/db.server";
 import { parseId } from "~/utils/ids";
 
 export type EngineStatus = "quoted" | "in-build" | "running" | "retired";
@@ -88,7 +88,8 @@ export function toEngine(r: Record<string, any>): EngineRow {
 /** The team's engine, or null (another team's engine is simply not found). */
 export async function getEngine(teamId: number, engineId: number): Promise<EngineRow | null> {
   if (!Number.isInteger(engineId)) return null;
-  const row = await db()("engines").where({ team_id: teamId, id: engineId }).whereNull("archived_at").first();
+  // withTeam: on PostgreSQL the row-security policies check the team too (a second wall)
+  const row = await withTeam(teamId, (k) => k("engines").where({ team_id: teamId, id: engineId }).whereNull("archived_at").first());
   return row ? toEngine(row) : null;
 }
 
@@ -147,12 +148,16 @@ export interface EngineListQuery {
 const likeEscape = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 /** One page of the team's engines (archived ones hidden), searched over name, customer and fuel. */
-export async function listEngines(teamId: number, query: EngineListQuery = {}): Promise<{ rows: EngineListRow[]; total: number }> {
+export function listEngines(teamId: number, query: EngineListQuery = {}): Promise<{ rows: EngineListRow[]; total: number }> {
+  return withTeam(teamId, (k) => listEnginesOn(k, teamId, query));
+}
+
+async function listEnginesOn(k: Knex, teamId: number, query: EngineListQuery): Promise<{ rows: EngineListRow[]; total: number }> {
   const pageSize = query.pageSize ?? 25;
   const page = Math.max(1, Math.floor(query.page ?? 1));
   const sort: EngineSort = isEngineSort(query.sort) ? query.sort : "updated";
   const dir = query.dir === "asc" ? "asc" : query.dir === "desc" ? "desc" : sort === "updated" ? "desc" : "asc";
-  const base = db()("engines as e")
+  const base = k("engines as e")
     // the chosen plan must be this team's and this engine's, or it shows as none
     .leftJoin("seal_plans as p", function () {
       this.on("p.id", "=", "e.chosen_plan_id").andOn("p.engine_id", "=", "e.id").andOn("p.team_id", "=", "e.team_id");
@@ -187,9 +192,9 @@ export async function listEngines(teamId: number, query: EngineListQuery = {}): 
       updatedAt: "e.updated_at",
     })
     // layout sorts I before V, then by cylinder count; status in the order an engine lives it
-    .select(db().raw("(case e.layout when 'inline' then 0 else 1 end) * 100 + e.cylinders as layout_key"))
+    .select(k.raw("(case e.layout when 'inline' then 0 else 1 end) * 100 + e.cylinders as layout_key"))
     .select(
-      db().raw("case e.status when 'quoted' then 0 when 'in-build' then 1 when 'running' then 2 else 3 end as status_rank"),
+      k.raw("case e.status when 'quoted' then 0 when 'in-build' then 1 when 'running' then 2 else 3 end as status_rank"),
     )
     .orderByRaw(`${ENGINE_SORTS[sort]} ${sort === "plan" ? `${dir} nulls last` : dir}`)
     .orderBy("e.id", dir)

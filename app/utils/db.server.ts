@@ -51,6 +51,23 @@ export async function writeTransaction<T>(work: (trx: Knex.Transaction) => Promi
   }
 }
 
+/**
+ * Reads (or writes) for one team with PostgreSQL's row security told which team that is: one
+ * transaction that begins with SET LOCAL app.team_id (set_config(…, true)), so the setting ends with it
+ * and a pooled connection never carries it to the next request. The policies of migration
+ * 20261219000000_hosted then let through only that team's rows — a second wall behind the models'
+ * `where team_id`. On SQLite (one shop, no policies) `work` runs on the plain connection.
+ */
+export async function withTeam<T>(teamId: number, work: (q: Knex) => Promise<T>): Promise<T> {
+  if (!Number.isSafeInteger(teamId) || teamId <= 0) throw new Error(`withTeam: bad team id ${teamId}`);
+  const knex = db();
+  if (!isPostgres(knex)) return work(knex);
+  return knex.transaction(async (trx) => {
+    await trx.raw("select set_config('app.team_id', ?, true)", [String(teamId)]);
+    return work(trx);
+  });
+}
+
 export async function closeDb(): Promise<void> {
   const closing = instance;
   instance = undefined;

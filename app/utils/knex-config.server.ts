@@ -40,7 +40,7 @@ function postgresConfig(url: string): Knex.Config {
 
 // psql takes the login name when the URL names no user; pg reads only $USER/PGUSER, which a service
 // manager may leave unset. Same rule as psql, so postgres://127.0.0.1/test means the same to both.
-function withUser(url: string): string {
+export function withUser(url: string): string {
   const parsed = new URL(url);
   if (!parsed.username) parsed.username = process.env.PGUSER || process.env.USER || os.userInfo().username;
   return parsed.toString();
