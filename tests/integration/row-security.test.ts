@@ -82,7 +82,7 @@ describe.runIf(onPostgres)("row-level security on PostgreSQL", () => {
 
 describe.runIf(testPostgresUrl())("migrations on an empty PostgreSQL database", () => {
   const base = testPostgresUrl()!;
-  const name = uniqueName("sw_t_empty");
+  const name = uniqueName("_empty");
   let knex: Knex | undefined;
   afterAll(async () => {
     await knex?.destroy();

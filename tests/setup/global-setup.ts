@@ -24,7 +24,7 @@ export default async function setup(project: TestProject) {
   fs.rmSync(dir, { recursive: true, force: true });
   fs.mkdirSync(dir, { recursive: true });
   const pgBaseUrl = testPostgresUrl();
-  const pgTemplate = pgBaseUrl ? uniqueName("sw_tpl") : null;
+  const pgTemplate = pgBaseUrl ? uniqueName("_tpl") : null;
   if (pgBaseUrl && pgTemplate) await createDatabase(pgBaseUrl, pgTemplate);
   // Knex imports the TypeScript migrations itself; the main Vitest process needs tsx for that.
   const unregister = register();

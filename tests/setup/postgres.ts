@@ -4,7 +4,8 @@ import { withUser } from "../../app/utils/knex-config.server.ts";
 
 // The PostgreSQL side of the test setup: a template database built once per run, and a fresh copy of it
 // per test file (CREATE DATABASE … TEMPLATE is a file copy inside the server: far cheaper than migrating).
-// Every name starts with sw_t so a forgotten database is easy to find and drop.
+// Every name starts with TEST_DATABASE_PREFIX (default sw_t) so a forgotten database is easy to find and
+// drop, and two people sharing one server can keep theirs apart.
 
 /** The URL the PostgreSQL pass runs against (TEST_DATABASE_URL), or null for the SQLite pass. */
 export function testPostgresUrl(): string | null {
@@ -19,8 +20,9 @@ export function urlFor(baseUrl: string, database: string): string {
   return url.toString();
 }
 
-export function uniqueName(prefix: string): string {
-  return `${prefix}_${process.pid}_${crypto.randomBytes(4).toString("hex")}`;
+export function uniqueName(kind: string): string {
+  const prefix = (process.env.TEST_DATABASE_PREFIX ?? "sw_t").replace(/[^a-z0-9_]/gi, "");
+  return `${prefix}${kind}_${process.pid}_${crypto.randomBytes(4).toString("hex")}`;
 }
 
 async function admin<T>(baseUrl: string, work: (client: pg.Client) => Promise<T>): Promise<T> {

@@ -10,7 +10,7 @@ const tmp = inject("testDbDir");
 const pgBaseUrl = inject("pgBaseUrl");
 const pgTemplate = inject("pgTemplate");
 const file = path.join(tmp, `db-${process.pid}-${crypto.randomBytes(4).toString("hex")}.sqlite`);
-const pgDatabase = pgBaseUrl && pgTemplate ? uniqueName("sw_t") : null;
+const pgDatabase = pgBaseUrl && pgTemplate ? uniqueName("") : null;
 if (pgBaseUrl && pgTemplate && pgDatabase) {
   await createDatabase(pgBaseUrl, pgDatabase, pgTemplate);
   process.env.DATABASE_URL = urlFor(pgBaseUrl, pgDatabase);
