@@ -81,6 +81,12 @@ export async function bodyRefusal(request: Request): Promise<Refusal | null> {
   const chunks = await readUpTo(request.clone().body!, limit);
   if (chunks === null) return tooLarge(pathname);
   const contentType = request.headers.get("Content-Type") ?? "";
+  // PostgreSQL text cannot hold a NUL character (22021, a 500); no field of ours means one, so a form
+  // carrying one (%00, or a raw zero byte) is refused on both engines alike.
+  if (mediaType(contentType) === "application/x-www-form-urlencoded") {
+    const body = Buffer.concat(chunks);
+    if (body.includes(0) || /%00/i.test(body.toString("latin1"))) return { status: 400, message: "The form holds a NUL character, which no field accepts." };
+  }
   if (mediaType(contentType) === "multipart/form-data") {
     try {
       await new Response(Buffer.concat(chunks), { headers: { "Content-Type": contentType } }).formData();
