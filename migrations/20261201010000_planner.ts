@@ -1,7 +1,8 @@
 import type { Knex } from "knex";
 
 // The planner: the shop's libraries (materials, fasteners, gaskets), engines and seal plans.
-// Every row belongs to one team; SI units in column names (mm, mpa, nm, kpa, c).
+// Every row belongs to one team; SI units in column names (mm, mpa, nm, kpa, c). Numbers are double():
+// SQLite's REAL either way, and PostgreSQL's double precision (float() there is a 4-byte real).
 export async function up(knex: Knex): Promise<void> {
   const common = (t: Knex.CreateTableBuilder) => {
     t.increments("id").primary();
@@ -22,53 +23,53 @@ export async function up(knex: Knex): Promise<void> {
   await knex.schema.createTable("materials", (t) => {
     library(t);
     t.string("kind", 20).notNullable();
-    t.float("modulus_mpa").notNullable();
-    t.float("yield_mpa");
-    t.float("expansion_um_per_m_c").notNullable();
-    t.float("limiting_surface_pressure_mpa");
+    t.double("modulus_mpa").notNullable();
+    t.double("yield_mpa");
+    t.double("expansion_um_per_m_c").notNullable();
+    t.double("limiting_surface_pressure_mpa");
     t.check("kind in ('aluminium','iron','steel','stainless','copper','other')", [], "materials_kind_check");
   });
 
   await knex.schema.createTable("fasteners", (t) => {
     library(t);
     t.string("thread_system", 10).notNullable();
-    t.float("diameter_mm").notNullable();
-    t.float("pitch_mm").notNullable();
-    t.float("reduced_shank_diameter_mm");
-    t.float("reduced_shank_length_mm").notNullable().defaultTo(0);
-    t.float("free_thread_length_mm").notNullable();
-    t.float("engagement_mm").notNullable();
+    t.double("diameter_mm").notNullable();
+    t.double("pitch_mm").notNullable();
+    t.double("reduced_shank_diameter_mm");
+    t.double("reduced_shank_length_mm").notNullable().defaultTo(0);
+    t.double("free_thread_length_mm").notNullable();
+    t.double("engagement_mm").notNullable();
     t.integer("material_id").notNullable().references("materials.id");
-    t.float("washer_od_mm").notNullable();
-    t.float("washer_hole_mm").notNullable();
-    t.float("washer_thickness_mm").notNullable().defaultTo(0);
+    t.double("washer_od_mm").notNullable();
+    t.double("washer_hole_mm").notNullable();
+    t.double("washer_thickness_mm").notNullable().defaultTo(0);
     // The fastener maker's own figures, as the shop recorded them from the maker's sheet.
-    t.float("maker_torque_nm");
+    t.double("maker_torque_nm");
     t.string("maker_lubricant", 120);
     t.string("maker_stages", 200);
-    t.float("maker_stretch_mm");
-    t.float("thread_friction").notNullable();
-    t.float("bearing_friction").notNullable();
+    t.double("maker_stretch_mm");
+    t.double("thread_friction").notNullable();
+    t.double("bearing_friction").notNullable();
     t.check("thread_system in ('metric','unified')", [], "fasteners_thread_check");
   });
 
   await knex.schema.createTable("gaskets", (t) => {
     library(t);
     t.string("type", 20).notNullable();
-    t.float("compressed_thickness_mm").notNullable();
-    t.float("bore_mm").notNullable();
-    t.float("seal_diameter_mm").notNullable();
-    t.float("ring_width_mm").notNullable();
-    t.float("ring_modulus_mpa").notNullable();
-    t.float("seal_line_yield_mpa").notNullable();
-    t.float("body_modulus_mpa").notNullable();
-    t.float("body_area_per_bore_mm2").notNullable();
-    t.float("expansion_um_per_m_c").notNullable();
-    t.float("m").notNullable();
-    t.float("y_mpa").notNullable();
-    t.float("relaxation_percent").notNullable().defaultTo(0);
-    t.float("finish_min_ra_um");
-    t.float("finish_max_ra_um");
+    t.double("compressed_thickness_mm").notNullable();
+    t.double("bore_mm").notNullable();
+    t.double("seal_diameter_mm").notNullable();
+    t.double("ring_width_mm").notNullable();
+    t.double("ring_modulus_mpa").notNullable();
+    t.double("seal_line_yield_mpa").notNullable();
+    t.double("body_modulus_mpa").notNullable();
+    t.double("body_area_per_bore_mm2").notNullable();
+    t.double("expansion_um_per_m_c").notNullable();
+    t.double("m").notNullable();
+    t.double("y_mpa").notNullable();
+    t.double("relaxation_percent").notNullable().defaultTo(0);
+    t.double("finish_min_ra_um");
+    t.double("finish_max_ra_um");
     t.check("type in ('solid-copper','mls','mls-with-ring','fire-ring')", [], "gaskets_type_check");
   });
 
@@ -78,31 +79,31 @@ export async function up(knex: Knex): Promise<void> {
     t.string("customer", 120).notNullable().defaultTo("");
     t.integer("cylinders").notNullable();
     t.string("layout", 10).notNullable();
-    t.float("bore_mm").notNullable();
-    t.float("stroke_mm").notNullable();
-    t.float("rod_length_mm");
+    t.double("bore_mm").notNullable();
+    t.double("stroke_mm").notNullable();
+    t.double("rod_length_mm");
     t.integer("block_material_id").notNullable().references("materials.id");
     t.integer("head_material_id").notNullable().references("materials.id");
-    t.float("head_thickness_at_stud_mm").notNullable();
-    t.float("block_depth_to_thread_mm").notNullable().defaultTo(0);
+    t.double("head_thickness_at_stud_mm").notNullable();
+    t.double("block_depth_to_thread_mm").notNullable().defaultTo(0);
     t.string("sleeve_kind", 12).notNullable().defaultTo("none");
     t.integer("sleeve_material_id").references("materials.id");
-    t.float("sleeve_wall_mm");
-    t.float("sleeve_support_length_mm");
-    t.float("sleeve_protrusion_mm").notNullable().defaultTo(0);
+    t.double("sleeve_wall_mm");
+    t.double("sleeve_support_length_mm");
+    t.double("sleeve_protrusion_mm").notNullable().defaultTo(0);
     // Stud pattern: JSON list of studs, each with the cylinders it serves and its share of each.
     t.text("studs").notNullable();
     t.string("fuel", 60).notNullable().defaultTo("");
-    t.float("target_manifold_kpa");
-    t.float("peak_pressure_mpa");
+    t.double("target_manifold_kpa");
+    t.double("peak_pressure_mpa");
     t.string("peak_pressure_source", 10).notNullable().defaultTo("estimated");
     // Peak-pressure estimate from manifold pressure: compression exponent and a pressure-rise factor.
-    t.float("pressure_rise_factor").notNullable().defaultTo(3);
-    t.float("running_head_c").notNullable().defaultTo(110);
-    t.float("running_block_c").notNullable().defaultTo(95);
-    t.float("chamber_cc");
-    t.float("piston_volume_cc").notNullable().defaultTo(0);
-    t.float("deck_clearance_mm").notNullable().defaultTo(0);
+    t.double("pressure_rise_factor").notNullable().defaultTo(3);
+    t.double("running_head_c").notNullable().defaultTo(110);
+    t.double("running_block_c").notNullable().defaultTo(95);
+    t.double("chamber_cc");
+    t.double("piston_volume_cc").notNullable().defaultTo(0);
+    t.double("deck_clearance_mm").notNullable().defaultTo(0);
     t.string("status", 12).notNullable().defaultTo("quoted");
     t.text("notes").notNullable().defaultTo("");
     t.integer("chosen_plan_id");
@@ -121,18 +122,18 @@ export async function up(knex: Knex): Promise<void> {
     t.integer("gasket_id").notNullable().references("gaskets.id");
     t.integer("fastener_id").notNullable().references("fasteners.id");
     t.string("lubricant", 120).notNullable().defaultTo("");
-    t.float("thread_friction").notNullable();
-    t.float("bearing_friction").notNullable();
+    t.double("thread_friction").notNullable();
+    t.double("bearing_friction").notNullable();
     t.string("method", 40).notNullable();
-    t.float("torque_nm").notNullable();
+    t.double("torque_nm").notNullable();
     // Torque stages as a JSON list of N·m, last one equal to torque_nm.
     t.text("stages").notNullable().defaultTo("[]");
     t.string("wire_location", 10).notNullable().defaultTo("none");
-    t.float("wire_projection_mm").notNullable().defaultTo(0);
-    t.float("receiver_groove_depth_mm").notNullable().defaultTo(0);
+    t.double("wire_projection_mm").notNullable().defaultTo(0);
+    t.double("receiver_groove_depth_mm").notNullable().defaultTo(0);
     // Null: use the engine's machined protrusion.
-    t.float("sleeve_protrusion_mm");
-    t.float("target_margin").notNullable().defaultTo(1.5);
+    t.double("sleeve_protrusion_mm");
+    t.double("target_margin").notNullable().defaultTo(1.5);
     t.text("notes").notNullable().defaultTo("");
     t.string("archived_at");
     t.index(["team_id", "engine_id"]);

@@ -17,13 +17,13 @@ const GASKET_COLUMNS = [
 
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.alterTable("gaskets", (t) => {
-    for (const c of GASKET_COLUMNS) t.float(c);
+    for (const c of GASKET_COLUMNS) t.double(c);
   });
   await knex.schema.alterTable("fasteners", (t) => {
-    t.float("nut_face_od_mm");
+    t.double("nut_face_od_mm");
   });
   await knex.schema.alterTable("materials", (t) => {
-    t.float("shear_strength_mpa");
+    t.double("shear_strength_mpa");
   });
 }
 

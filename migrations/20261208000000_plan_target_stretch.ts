@@ -5,7 +5,7 @@ import type { Knex } from "knex";
 // which SQLite and PostgreSQL both run as is.
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.alterTable("seal_plans", (t) => {
-    t.float("target_stretch_mm").nullable();
+    t.double("target_stretch_mm").nullable();
   });
 }
 

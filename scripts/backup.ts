@@ -5,6 +5,10 @@ import { backupDatabase } from "../app/utils/backup.server.ts";
 import { getEnv } from "../app/utils/env.server.ts";
 
 const env = getEnv();
+if (env.DATABASE_URL) {
+  console.error("DATABASE_URL is set: PostgreSQL is backed up by the server's own tools (base backup + WAL, or pg_dump); see docs/hosting.md.");
+  process.exit(1);
+}
 const stamp = new Date().toISOString().replace(/[:.]/g, "-");
 const target = process.argv[2] ?? `backups/sealwright-${stamp}.sqlite`;
 const report = backupDatabase(env.DATABASE_PATH, target);

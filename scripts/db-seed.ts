@@ -2,11 +2,11 @@
 // shop — only the handbook library for teams that lack one. The demo accounts share a published
 // password, so a production database must never get them by accident.
 import knexFactory from "knex";
-import { getEnv } from "../app/utils/env.server.ts";
+import { databaseTarget, getEnv } from "../app/utils/env.server.ts";
 import { knexConfig } from "../app/utils/knex-config.server.ts";
 
 const env = getEnv();
-const knex = knexFactory(knexConfig(env.DATABASE_PATH));
+const knex = knexFactory(knexConfig(databaseTarget(env)));
 try {
   if (env.SEED_DEMO === "false") {
     const [files] = await knex.seed.run({ specific: "02-libraries.ts" });

@@ -2,7 +2,7 @@ import type { Knex } from "knex";
 import { data } from "react-router";
 import type { Stud } from "~/lib/clamp/schema";
 import type { EngineInput } from "~/lib/engine/schema";
-import { db, now } from "~/utils/db.server";
+import { db, now, withTeam } from "~/utils/db.server";
 import { parseId } from "~/utils/ids";
 import { viewerScope, type Asker } from "./viewer-scope.server";
 
@@ -89,7 +89,8 @@ export function toEngine(r: Record<string, any>): EngineRow {
 /** The engine, if the asker may see it; else null (another team's, or a viewer's unshared engine). */
 export async function getEngine(who: Asker, engineId: number): Promise<EngineRow | null> {
   if (!Number.isInteger(engineId)) return null;
-  const row = await viewerScope(db()("engines"), who).where({ id: engineId }).whereNull("archived_at").first();
+  // withTeam: on PostgreSQL the row-security policies check the team too (a second wall)
+  const row = await withTeam(who.teamId, (k) => viewerScope(k("engines"), who).where({ id: engineId }).whereNull("archived_at").first());
   return row ? toEngine(row) : null;
 }
 
@@ -148,12 +149,16 @@ export interface EngineListQuery {
 const likeEscape = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 /** One page of the engines the asker sees (archived ones hidden), searched over name, customer and fuel. */
-export async function listEngines(who: Asker, query: EngineListQuery = {}): Promise<{ rows: EngineListRow[]; total: number }> {
+export function listEngines(who: Asker, query: EngineListQuery = {}): Promise<{ rows: EngineListRow[]; total: number }> {
+  return withTeam(who.teamId, (k) => listEnginesOn(k, who, query));
+}
+
+async function listEnginesOn(k: Knex, who: Asker, query: EngineListQuery): Promise<{ rows: EngineListRow[]; total: number }> {
   const pageSize = query.pageSize ?? 25;
   const page = Math.max(1, Math.floor(query.page ?? 1));
   const sort: EngineSort = isEngineSort(query.sort) ? query.sort : "updated";
   const dir = query.dir === "asc" ? "asc" : query.dir === "desc" ? "desc" : sort === "updated" ? "desc" : "asc";
-  const base = viewerScope(db()("engines as e"), who, "e")
+  const base = viewerScope(k("engines as e"), who, "e")
     // the chosen plan must be this team's and this engine's, or it shows as none
     .leftJoin("seal_plans as p", function () {
       this.on("p.id", "=", "e.chosen_plan_id").andOn("p.engine_id", "=", "e.id").andOn("p.team_id", "=", "e.team_id");
@@ -164,9 +169,10 @@ export async function listEngines(who: Asker, query: EngineListQuery = {}): Prom
     const like = `%${likeEscape(q)}%`;
     base.where((w) =>
       w
-        .whereRaw("e.name like ? escape '\\'", [like])
-        .orWhereRaw("e.customer like ? escape '\\'", [like])
-        .orWhereRaw("e.fuel like ? escape '\\'", [like]),
+        // lower() on both sides: SQLite's LIKE ignores ASCII case, PostgreSQL's does not; this matches alike on both
+        .whereRaw("lower(e.name) like lower(?) escape '\\'", [like])
+        .orWhereRaw("lower(e.customer) like lower(?) escape '\\'", [like])
+        .orWhereRaw("lower(e.fuel) like lower(?) escape '\\'", [like]),
     );
   }
   if (query.status) base.where("e.status", query.status);
@@ -186,9 +192,9 @@ export async function listEngines(who: Asker, query: EngineListQuery = {}): Prom
       updatedAt: "e.updated_at",
     })
     // layout sorts I before V, then by cylinder count; status in the order an engine lives it
-    .select(db().raw("(case e.layout when 'inline' then 0 else 1 end) * 100 + e.cylinders as layout_key"))
+    .select(k.raw("(case e.layout when 'inline' then 0 else 1 end) * 100 + e.cylinders as layout_key"))
     .select(
-      db().raw("case e.status when 'quoted' then 0 when 'in-build' then 1 when 'running' then 2 else 3 end as status_rank"),
+      k.raw("case e.status when 'quoted' then 0 when 'in-build' then 1 when 'running' then 2 else 3 end as status_rank"),
     )
     .orderByRaw(`${ENGINE_SORTS[sort]} ${sort === "plan" ? `${dir} nulls last` : dir}`)
     .orderBy("e.id", dir)
@@ -310,7 +316,7 @@ export interface MaterialOption {
 
 /** The team's active materials for the engine form's selects. */
 export async function listMaterialOptions(teamId: number): Promise<MaterialOption[]> {
-  return db()("materials").where({ team_id: teamId }).whereNull("archived_at").orderBy(["kind", "name"]).select("id", "name", "kind");
+  return db()("materials").where({ team_id: teamId }).whereNull("archived_at").orderBy(["kind", "name", "id"]).select("id", "name", "kind");
 }
 
 /** Names of the materials an engine uses (archived ones included: the record still names them). */
@@ -370,5 +376,5 @@ export async function duplicateEngine(teamId: number, userId: number, engineId: 
 
 /** The active engines the asker sees, for a picker: id, name and bore. */
 export async function engineChoices(who: Asker): Promise<{ id: number; name: string; boreMm: number }[]> {
-  return viewerScope(db()("engines"), who).whereNull("archived_at").orderBy("name").select("id", "name", { boreMm: "bore_mm" });
+  return viewerScope(db()("engines"), who).whereNull("archived_at").orderBy(["name", "id"]).select("id", "name", { boreMm: "bore_mm" });
 }

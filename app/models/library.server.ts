@@ -124,7 +124,7 @@ function baseQuery(kind: LibraryKind, teamId: number) {
 
 /** The team's rows of one kind, active ones only unless includeArchived. Sorted by name. */
 export async function listLibrary(kind: LibraryKind, teamId: number, opts: { includeArchived?: boolean } = {}): Promise<LibraryRow[]> {
-  const q = baseQuery(kind, teamId).orderBy("r.name");
+  const q = baseQuery(kind, teamId).orderBy(["r.name", "r.id"]);
   if (!opts.includeArchived) q.whereNull("r.archived_at");
   return (await q).map((r: Raw) => toRow(kind, r));
 }

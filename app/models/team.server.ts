@@ -17,7 +17,7 @@ export async function listMembers(teamId: number): Promise<MemberRow[]> {
   return db()("memberships as m")
     .join("users as u", "u.id", "m.user_id")
     .where("m.team_id", teamId)
-    .orderBy([{ column: "m.role", order: "asc" }, { column: "u.name" }])
+    .orderBy([{ column: "m.role", order: "asc" }, { column: "u.name" }, { column: "u.id" }])
     .select({ userId: "u.id", name: "u.name", email: "u.email", role: "m.role" });
 }
 

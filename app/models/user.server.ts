@@ -48,9 +48,12 @@ export class EmailTakenError extends Error {
   }
 }
 
+// SQLite names the column (users.email), PostgreSQL the constraint (23505 on users_email_unique).
 function isEmailUniqueViolation(error: unknown): boolean {
-  const e = error as { code?: string; message?: string } | null;
-  return Boolean(e && e.code === "SQLITE_CONSTRAINT_UNIQUE" && /users\.email/.test(e.message ?? ""));
+  const e = error as { code?: string; message?: string; constraint?: string } | null;
+  if (!e) return false;
+  if (e.code === "23505") return e.constraint === "users_email_unique";
+  return e.code === "SQLITE_CONSTRAINT_UNIQUE" && /users\.email/.test(e.message ?? "");
 }
 
 // A new person and their own shop, of which they are the owner; one transaction. The password is hashed
@@ -102,7 +105,7 @@ export async function listMemberships(userId: number): Promise<MembershipRow[]> 
   return db()("memberships as m")
     .join("teams as t", "t.id", "m.team_id")
     .where("m.user_id", userId)
-    .orderBy("t.name")
+    .orderBy(["t.name", "t.id"])
     .select({ teamId: "t.id", teamName: "t.name", role: "m.role" });
 }
 

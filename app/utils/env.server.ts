@@ -4,6 +4,11 @@ import { z } from "zod";
 const EnvSchema = z.object({
   NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
   DATABASE_PATH: z.string().min(1).default("data/sealwright.sqlite"),
+  // Hosted: a postgres:// URL puts every process on one PostgreSQL (docs/hosting.md); unset, SQLite at DATABASE_PATH.
+  DATABASE_URL: z
+    .string()
+    .regex(/^postgres(ql)?:\/\//i, "DATABASE_URL must be a postgres:// URL (leave it unset for SQLite)")
+    .optional(),
   // Signs the session cookie. When unset, a random secret is made and kept beside the database.
   SESSION_SECRET: z.string().min(32, "SESSION_SECRET must be at least 32 characters").optional(),
   // Idle and absolute session lifetimes (see docs/decisions/0002-sessions.md).
@@ -14,8 +19,13 @@ const EnvSchema = z.object({
   // The demo shop (published password) is seeded into an empty database unless this is "false".
   SEED_DEMO: z.enum(["true", "false"], "SEED_DEMO must be true or false").default("true"),
   // Where the sign-in, sign-up and API throttles keep their counts (app/utils/rate-limit.server.ts).
-  RATE_LIMIT_STORE: z.enum(["memory", "sqlite"], "RATE_LIMIT_STORE must be memory or sqlite").default("memory"),
+  RATE_LIMIT_STORE: z
+    .enum(["memory", "sqlite", "redis", "postgres"], "RATE_LIMIT_STORE must be memory, sqlite, redis or postgres")
+    .default("memory"),
   RATE_LIMIT_SQLITE_PATH: z.string().min(1).optional(),
+  // The Redis the "redis" store talks to; the "postgres" store uses DATABASE_URL.
+  REDIS_URL: z.string().regex(/^rediss?:\/\//i, "REDIS_URL must be a redis:// URL").default("redis://127.0.0.1:6379"),
+  RATE_LIMIT_KEY_PREFIX: z.string().default("sw-rl:"),
   // Behind a reverse proxy, the client's address is the proxy's X-Forwarded-For entry.
   TRUST_PROXY: z.enum(["true", "false"], "TRUST_PROXY must be true or false").default("false"),
   // Where people reach the app: links in e-mails (invites, password resets, build sheets) start with it.
@@ -52,6 +62,11 @@ export function getEnv(): Env {
   }
   cached = parsed.data;
   return cached;
+}
+
+/** What Knex opens: the PostgreSQL URL when one is set, else the SQLite file. */
+export function databaseTarget(env: Env = getEnv()): string {
+  return env.DATABASE_URL ?? env.DATABASE_PATH;
 }
 
 export function cookieIsSecure(env: Env = getEnv()): boolean {

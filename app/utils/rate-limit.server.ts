@@ -1,8 +1,18 @@
 import fs from "node:fs";
 import path from "node:path";
 import Database from "better-sqlite3";
-import { RateLimiterMemory, RateLimiterRes, RateLimiterSQLite, type RateLimiterAbstract } from "rate-limiter-flexible";
+import { Redis } from "ioredis";
+import pg from "pg";
+import {
+  RateLimiterMemory,
+  RateLimiterPostgres,
+  RateLimiterRedis,
+  RateLimiterRes,
+  RateLimiterSQLite,
+  type RateLimiterAbstract,
+} from "rate-limiter-flexible";
 import { getEnv } from "./env.server";
+import { withUser } from "./knex-config.server";
 
 // Throttles for the doors anyone can knock on: sign-in (per account and per address), sign-up and the
 // API (per address, then per person or per token). Every attempt takes a point *before* the work it
@@ -11,9 +21,10 @@ import { getEnv } from "./env.server";
 // day (30 s, 1 min, 2 min … at most `maxLockSec`): an attacker waits longer and longer, a person who
 // mistyped waits half a minute.
 //
-// The counts live in a store chosen by RATE_LIMIT_STORE: "memory" (this process; the default) or
-// "sqlite" (a file beside the database, shared by every process on the machine). A network store
-// (Redis, PostgreSQL) is another branch of `limiter()` below: rate-limiter-flexible has them all.
+// The counts live in a store chosen by RATE_LIMIT_STORE: "memory" (this process; the default),
+// "sqlite" (a file beside the database, shared by every process on the machine), or for the hosted path
+// (docs/hosting.md) "redis" (REDIS_URL) or "postgres" (the rate_limits table in DATABASE_URL's database),
+// shared by every process on every machine.
 
 export interface ThrottleRule {
   /** Attempts allowed in the window before a lock. */
@@ -57,8 +68,32 @@ function sqliteStore(): Database.Database {
   return sqliteClient;
 }
 
-function limiter(keyPrefix: string, points: number, duration: number): RateLimiterAbstract {
-  if (getEnv().RATE_LIMIT_STORE === "sqlite") {
+let redisClient: Redis | undefined;
+let pgPool: pg.Pool | undefined;
+
+function redisStore(): Redis {
+  // A refused command fails fast (the throttle then answers 500) rather than queueing for ever.
+  redisClient ??= new Redis(getEnv().REDIS_URL, { maxRetriesPerRequest: 2, lazyConnect: false });
+  return redisClient;
+}
+
+function postgresStore(): pg.Pool {
+  const url = getEnv().DATABASE_URL;
+  if (!url) throw new Error("RATE_LIMIT_STORE=postgres needs DATABASE_URL (postgres://…)");
+  // Its own small pool: a burst of sign-ins never waits behind the app's queries for a connection.
+  pgPool ??= new pg.Pool({ connectionString: withUser(url), max: 3 });
+  return pgPool;
+}
+
+/** One counter in the configured store. `store` and `prefix` are for tests that stand in for two processes. */
+export function limiter(keyPrefix: string, points: number, duration: number, store = getEnv().RATE_LIMIT_STORE): RateLimiterAbstract {
+  const prefixed = `${getEnv().RATE_LIMIT_KEY_PREFIX}${keyPrefix}`;
+  if (store === "redis") return new RateLimiterRedis({ storeClient: redisStore(), keyPrefix: prefixed, points, duration });
+  if (store === "postgres") {
+    // The table is made by migration 20261219000000_hosted (tableCreated: no CREATE at start-up).
+    return new RateLimiterPostgres({ storeClient: postgresStore(), storeType: "pool", tableName: "rate_limits", tableCreated: true, keyPrefix: prefixed, points, duration, clearExpiredByTimeout: true });
+  }
+  if (store === "sqlite") {
     return new RateLimiterSQLite({
       storeClient: sqliteStore(),
       storeType: "better-sqlite3",
@@ -70,6 +105,14 @@ function limiter(keyPrefix: string, points: number, duration: number): RateLimit
     });
   }
   return new RateLimiterMemory({ keyPrefix, points, duration });
+}
+
+/** Closes the network stores' connections (tests, shutdown). */
+export async function closeRateLimitStores(): Promise<void> {
+  const [redis, pool] = [redisClient, pgPool];
+  redisClient = undefined;
+  pgPool = undefined;
+  await Promise.all([redis?.quit(), pool?.end()]);
 }
 
 export class Throttle {

@@ -78,6 +78,8 @@ function tooLarge(pathname: string): Refusal {
  * body that does not parse is a 400 here rather than a 500 in the action. The action still reads the
  * original, which holds at most the limit.
  */
+const NUL_REFUSAL: Refusal = { status: 400, message: "The form holds a NUL character, which no field accepts." };
+
 export async function bodyRefusal(request: Request): Promise<Refusal | null> {
   if (!isMutation(request.method) || !request.body) return null;
   const pathname = new URL(request.url).pathname;
@@ -89,12 +91,21 @@ export async function bodyRefusal(request: Request): Promise<Refusal | null> {
   const chunks = await readUpTo(request.clone().body!, limit);
   if (chunks === null) return tooLarge(pathname);
   const contentType = request.headers.get("Content-Type") ?? "";
+  // PostgreSQL text cannot hold a NUL character (22021, a 500); no field of ours means one, so a form
+  // carrying one (%00, or a raw zero byte) is refused on both engines alike.
+  if (mediaType(contentType) === "application/x-www-form-urlencoded") {
+    const body = Buffer.concat(chunks);
+    if (body.includes(0) || /%00/i.test(body.toString("latin1"))) return NUL_REFUSAL;
+  }
   if (mediaType(contentType) === "multipart/form-data") {
+    let form: FormData;
     try {
-      await new Response(Buffer.concat(chunks), { headers: { "Content-Type": contentType } }).formData();
+      form = await new Response(Buffer.concat(chunks), { headers: { "Content-Type": contentType } }).formData();
     } catch {
       return { status: 400, message: "The form's multipart body could not be read." };
     }
+    // text fields only: an uploaded file may hold zero bytes
+    for (const value of form.values()) if (typeof value === "string" && value.includes("\0")) return NUL_REFUSAL;
   }
   return null;
 }

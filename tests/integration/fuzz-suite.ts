@@ -6,6 +6,7 @@ import { getEngine } from "~/models/engine.server";
 import { listPlans, planParts } from "~/models/plan.server";
 import { clientAddressContext } from "~/utils/client-address.server";
 import { db } from "~/utils/db.server";
+import { onPostgres, rowsOf } from "../setup/engine";
 import { resetThrottles } from "~/utils/rate-limit.server";
 import { sessionStorage } from "~/utils/session.server";
 import { call, get, ORIGIN, signIn, teamWide, type Handler } from "./helpers";
@@ -149,7 +150,7 @@ const TABLES = [
 ];
 async function counts(): Promise<string> {
   const sql = `select ${TABLES.map((t) => `(select count(*) from ${t})`).join(", ")} as c`;
-  return JSON.stringify(await db().raw(sql));
+  return JSON.stringify(rowsOf(await db().raw(sql)));
 }
 
 beforeAll(async () => {
@@ -381,6 +382,11 @@ export function fuzzRoutes(ids: string[]) {
     }
 
     it("afterwards the database is whole", async () => {
+      if (onPostgres) {
+        // PostgreSQL checks foreign keys on every write; what could be left is a constraint not validated
+        expect(rowsOf(await db().raw("select conname from pg_constraint where not convalidated"))).toEqual([]);
+        return;
+      }
       expect(await db().raw("pragma integrity_check")).toEqual([
         { integrity_check: "ok" },
       ]);

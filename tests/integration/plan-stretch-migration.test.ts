@@ -24,8 +24,8 @@ async function sqlFor(client: "pg" | "better-sqlite3", step: (k: Knex) => Promis
 }
 
 describe("seal_plans.target_stretch_mm", () => {
-  it("adds and drops a nullable float column in plain SQL on PostgreSQL and SQLite", async () => {
-    expect(await sqlFor("pg", migration.up)).toEqual(['alter table "seal_plans" add column "target_stretch_mm" real null']);
+  it("adds and drops a nullable double column in plain SQL on PostgreSQL and SQLite", async () => {
+    expect(await sqlFor("pg", migration.up)).toEqual(['alter table "seal_plans" add column "target_stretch_mm" double precision null']);
     expect(await sqlFor("pg", migration.down)).toEqual(['alter table "seal_plans" drop column "target_stretch_mm"']);
     expect(await sqlFor("better-sqlite3", migration.up)).toEqual(["alter table `seal_plans` add column `target_stretch_mm` float null"]);
   });

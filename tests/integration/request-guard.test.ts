@@ -90,6 +90,20 @@ describe("defect 6: a wrong or missing Content-Type is answered 415/400, never 5
   });
 });
 
+describe("a NUL character in a form (PostgreSQL text cannot hold one)", () => {
+  it("is refused 400 by the guard on both engines, before the action or the database sees it", async () => {
+    for (const body of ["email=owner%40example.com&password=a%00b", "email=owner%40example.com%00&password=x"]) {
+      const out = await through(h(login.action), raw("/login", { type: "application/x-www-form-urlencoded", body }));
+      expect(out.status).toBe(400);
+      expect(out.body).toBe("The form holds a NUL character, which no field accepts.");
+    }
+    // the text "%00" typed into a field arrives encoded as %2500: it reaches the action (a wrong password)
+    const typed = await through(h(login.action), raw("/login", { type: "application/x-www-form-urlencoded", body: "email=owner%40example.com&password=%2500" }));
+    expect(JSON.stringify(typed.body)).not.toContain("NUL character");
+    expect(JSON.stringify(typed.body)).toContain("password");
+  });
+});
+
 describe("defect 12: form bodies are capped (413) before they are parsed", () => {
   it("a 50 MB sign-in body is refused by the guard, not parsed by the action", async () => {
     const body = "email=owner%40example.com&password=" + "x".repeat(50 * 1024 * 1024);

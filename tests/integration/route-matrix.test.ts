@@ -2,6 +2,7 @@ import crypto from "node:crypto";
 import { beforeAll, describe, expect, it, vi } from "vitest";
 import { runsApiEnabled } from "~/models/run-api.server";
 import { db } from "~/utils/db.server";
+import { tableNames } from "../setup/engine";
 import { DEMO_PASSWORD, EMAIL, ORIGIN, signIn, WHO, type Who } from "./helpers";
 import { through, type Answer } from "./pipeline";
 import { appRoutes, fill, type RouteInfo } from "./routes-list";
@@ -229,9 +230,9 @@ const WRITING: Record<string, Record<string, string>> = {
 };
 
 async function digest(): Promise<string> {
-  const tables = (await db().raw("select name from sqlite_master where type = 'table' and name not like 'knex_%' order by name")) as { name: string }[];
   const hash = crypto.createHash("sha256");
-  for (const { name } of tables) hash.update(name + JSON.stringify(await db()(name).select("*").orderByRaw("rowid")));
+  // rows sorted as text: neither engine promises an order without one, and some tables have no id
+  for (const name of await tableNames(db())) hash.update(name + JSON.stringify((await db()(name).select("*")).map((r) => JSON.stringify(r)).sort()));
   return hash.digest("hex");
 }
 

@@ -4,32 +4,45 @@ import knexFactory from "knex";
 import { register } from "tsx/esm/api";
 import type { TestProject } from "vitest/node";
 import { knexConfig } from "../../app/utils/knex-config.server.ts";
+import { createDatabase, dropDatabase, testPostgresUrl, uniqueName, urlFor } from "./postgres.ts";
 
 declare module "vitest" {
   export interface ProvidedContext {
     testDbDir: string;
+    /** Set on the PostgreSQL pass: the server's URL and the template database each test file copies. */
+    pgBaseUrl: string | null;
+    pgTemplate: string | null;
   }
 }
 
 // Build the test database once per run from the migrations and the demo seed, so it can never go stale.
-// Each test file copies it (tests/setup/setup-file.ts). Each run has its own folder, so two runs at
-// once (a developer and an editor plugin, say) never share files.
+// Each test file copies it (tests/setup/setup-file.ts). Each run has its own folder (and, on PostgreSQL,
+// its own template database), so two runs at once never share anything.
+// TEST_DATABASE_URL=postgres://… makes the run a PostgreSQL pass: the template is a database there.
 export default async function setup(project: TestProject) {
   const dir = path.resolve("tests/.tmp", `run-${process.pid}`);
   fs.rmSync(dir, { recursive: true, force: true });
   fs.mkdirSync(dir, { recursive: true });
+  const pgBaseUrl = testPostgresUrl();
+  const pgTemplate = pgBaseUrl ? uniqueName("_tpl") : null;
+  if (pgBaseUrl && pgTemplate) await createDatabase(pgBaseUrl, pgTemplate);
   // Knex imports the TypeScript migrations itself; the main Vitest process needs tsx for that.
   const unregister = register();
-  const knex = knexFactory(knexConfig(path.join(dir, "template.sqlite")));
+  const knex = knexFactory(knexConfig(pgBaseUrl && pgTemplate ? urlFor(pgBaseUrl, pgTemplate) : path.join(dir, "template.sqlite")));
   try {
     await knex.migrate.latest();
     await knex.seed.run();
     // Fold the WAL into the main file so a plain copy holds everything.
-    await knex.raw("PRAGMA wal_checkpoint(TRUNCATE)");
+    if (!pgBaseUrl) await knex.raw("PRAGMA wal_checkpoint(TRUNCATE)");
   } finally {
     await knex.destroy();
     await unregister();
   }
   project.provide("testDbDir", dir);
-  return () => fs.rmSync(dir, { recursive: true, force: true });
+  project.provide("pgBaseUrl", pgBaseUrl);
+  project.provide("pgTemplate", pgTemplate);
+  return async () => {
+    fs.rmSync(dir, { recursive: true, force: true });
+    if (pgBaseUrl && pgTemplate) await dropDatabase(pgBaseUrl, pgTemplate);
+  };
 }

@@ -2,11 +2,23 @@ import crypto from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import { afterAll, afterEach, beforeEach, inject, vi } from "vitest";
+import { createDatabase, dropDatabase, uniqueName, urlFor } from "./postgres.ts";
 
-// Each test file gets its own copy of the migrated, seeded template database.
+// Each test file gets its own copy of the migrated, seeded template database: a SQLite file, or on the
+// PostgreSQL pass a database made from the template database.
 const tmp = inject("testDbDir");
+const pgBaseUrl = inject("pgBaseUrl");
+const pgTemplate = inject("pgTemplate");
 const file = path.join(tmp, `db-${process.pid}-${crypto.randomBytes(4).toString("hex")}.sqlite`);
-fs.copyFileSync(path.join(tmp, "template.sqlite"), file);
+const pgDatabase = pgBaseUrl && pgTemplate ? uniqueName("") : null;
+if (pgBaseUrl && pgTemplate && pgDatabase) {
+  await createDatabase(pgBaseUrl, pgDatabase, pgTemplate);
+  process.env.DATABASE_URL = urlFor(pgBaseUrl, pgDatabase);
+} else {
+  fs.copyFileSync(path.join(tmp, "template.sqlite"), file);
+  delete process.env.DATABASE_URL;
+}
+// Still set on the PostgreSQL pass: the session secret and the SQLite rate-limit store live beside it.
 process.env.DATABASE_PATH = file;
 process.env.NODE_ENV = "test";
 // No mail leaves a test: port 9 (discard) on the loopback refuses, unless the file starts its own sink
@@ -31,4 +43,5 @@ afterAll(async () => {
   const { closeDb } = await import("../../app/utils/db.server.ts");
   await closeDb();
   for (const suffix of ["", "-wal", "-shm"]) fs.rmSync(file + suffix, { force: true });
+  if (pgBaseUrl && pgDatabase) await dropDatabase(pgBaseUrl, pgDatabase);
 });
