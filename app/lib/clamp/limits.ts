@@ -1,7 +1,7 @@
 // Every limit the model checks, at the preload that is worst for it, and the one verdict that carries
 // the worst of them. Seal checks use the bottom of the scatter band; stud, washer, thread and crush
 // checks the top of it, hot and under firing.
-import { boreMargins, boreSeal, type BoreSeal } from "./cylinders";
+import { boreSeal, boreSealMargin, type BoreSeal } from "./cylinders";
 import { hotSettledPreload, type Prepared } from "./model";
 import { preloadBand, type PreloadBand } from "./torque";
 import { SI_WORDING, type Wording } from "./wording";
@@ -80,8 +80,10 @@ export function bandSeal(p: Prepared, nominalN: number): BandSeal {
   let worstBodyAtMin = 0;
   for (let b = 0; b < p.cylinders; b++) {
     const w = p.boreStudWeight[b];
-    atMin.push(boreSeal(p, w * band.minN, w * hotMin));
-    if (withMax) atMax.push(boreSeal(p, w * band.maxN, w * hotMax));
+    // a bore with the same Σ of shares as an earlier one has the same figures (equal preload on every stud)
+    const same = p.sameWeightAs[b];
+    atMin.push(same < b ? atMin[same] : boreSeal(p, w * band.minN, w * hotMin));
+    if (withMax) atMax.push(same < b ? atMax[same] : boreSeal(p, w * band.maxN, w * hotMax));
     if (atMin[b].sealMargin < atMin[weakestAtMin].sealMargin) weakestAtMin = b;
     if (atMin[b].bodyMargin < atMin[worstBodyAtMin].bodyMargin) worstBodyAtMin = b;
   }
@@ -95,8 +97,10 @@ export function weakestAtMin(p: Prepared, nominalN: number): { bore: number; mar
   let bore = 0;
   let margin = Infinity;
   for (let b = 0; b < p.cylinders; b++) {
+    // a bore with the same Σ of shares as an earlier one has the same margin: it cannot be weaker
+    if (p.sameWeightAs[b] < b) continue;
     const w = p.boreStudWeight[b];
-    const m = boreMargins(p, w * minN, w * hot).seal;
+    const m = boreSealMargin(p, w * minN, w * hot);
     if (m < margin) {
       margin = m;
       bore = b;

@@ -59,6 +59,10 @@ export interface Prepared {
   shareOf: Float64Array;
   /** Σ of shares per bore: the effective number of studs clamping it. */
   boreStudWeight: Float64Array;
+  /** The first bore with the same Σ of shares: equal preload on every stud gives it the same figures. */
+  sameWeightAs: Int32Array;
+  /** Index of the MLS stopper among the paths, −1 without one. */
+  stopperIndex: number;
   /** Firing load each stud carries, summed over the bores it serves (Σ = cylinders × H). */
   studExternalN: Float64Array;
   /** The largest firing load a stud sees at once: one bore fires at a time, so the biggest of its bores' shares. */
@@ -215,6 +219,16 @@ export function prepare(plan: PlanInput): Prepared {
     }
   }
   start[studCount] = k;
+  const sameWeightAs = new Int32Array(cylinders);
+  for (let b = 0; b < cylinders; b++) {
+    let first = b;
+    for (let a = 0; a < b; a++)
+      if (boreStudWeight[a] === boreStudWeight[b]) {
+        first = a;
+        break;
+      }
+    sameWeightAs[b] = first;
+  }
   const H = requirement.pressureForceN;
   const studExternalN = new Float64Array(studCount);
   const studPeakFiringN = new Float64Array(studCount);
@@ -295,6 +309,8 @@ export function prepare(plan: PlanInput): Prepared {
     boreOf,
     shareOf,
     boreStudWeight,
+    sameWeightAs,
+    stopperIndex: elements.findIndex((e) => e.kind === "stopper"),
     studExternalN,
     studPeakFiringN,
     peakFiringN,
