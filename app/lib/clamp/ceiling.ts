@@ -76,15 +76,9 @@ function crushedAtMax(p: Prepared, nominalN: number): boolean {
   return false;
 }
 
-// The ceiling's torques do not depend on the torque: once per prepared plan (the sentence per wording).
-const ceilingTorques = new WeakMap<Prepared, { torques: Record<CeilingCause, number>; cause: CeilingCause }>();
-
 export function torqueCeiling(p: Prepared, w: Wording = SI_WORDING): Ceiling {
-  let found = ceilingTorques.get(p);
-  if (!found) {
-    found = ceilingFor(p);
-    ceilingTorques.set(p, found);
-  }
+  // the ceiling's torques do not depend on the torque: once per prepared plan (the sentence per wording)
+  const found = (p.memo.ceiling ??= ceilingFor(p));
   const torqueNm = found.torques[found.cause];
   return { torqueNm, cause: found.cause, torques: { ...found.torques }, explanation: ceilingSentence(p, found.cause, torqueNm, w) };
 }
@@ -158,9 +152,10 @@ export function sealGainPer10(p: Prepared, torqueNm: number): SealGain {
  * on the seal line because the line is at its indentation or stopper limit, or when the head's own
  * compression at the boss passes the stated strain limit (an assumption: see the model options).
  */
-export function headSqueeze(p: Prepared, torqueNm: number): HeadSqueeze {
+export function headSqueeze(p: Prepared, torqueNm: number, gainAtTorque?: SealGain): HeadSqueeze {
   const F = preloadForTorque(p, torqueNm);
-  const gain = sealGainPer10(p, torqueNm);
+  // the caller may have it already (the evaluation reports both)
+  const gain = gainAtTorque ?? sealGainPer10(p, torqueNm);
   const min = preloadBand(F, p.tighteningFactor).minN;
   const w = p.boreStudWeight[gain.bore];
   const lineAtLimit = boreFiredLine(p, w * min, w * hotSettledPreload(p, min)).lineAtLimit;

@@ -1,6 +1,7 @@
 // Everything about a plan that does not depend on the torque, computed once and reused by the
 // evaluation, the sweep, the uncertainty run, the ceiling and the suggestion.
 import { estimatePeakPressure } from "../chamber/peak-pressure";
+import type { CeilingCause } from "./ceiling";
 import { TYPICAL_GASKETS } from "./gasket-families";
 import type { PlanInput } from "./schema";
 import { gripLengthMm } from "./schema";
@@ -63,6 +64,8 @@ export interface Prepared {
   sameWeightAs: Int32Array;
   /** Index of the MLS stopper among the paths, −1 without one. */
   stopperIndex: number;
+  /** What is found once per prepared plan and kept (the ceiling's torques); filled on first use. */
+  memo: { ceiling?: { torques: Record<CeilingCause, number>; cause: CeilingCause } };
   /** Firing load each stud carries, summed over the bores it serves (Σ = cylinders × H). */
   studExternalN: Float64Array;
   /** The largest firing load a stud sees at once: one bore fires at a time, so the biggest of its bores' shares. */
@@ -311,6 +314,7 @@ export function prepare(plan: PlanInput): Prepared {
     boreStudWeight,
     sameWeightAs,
     stopperIndex: elements.findIndex((e) => e.kind === "stopper"),
+    memo: {},
     studExternalN,
     studPeakFiringN,
     peakFiringN,
