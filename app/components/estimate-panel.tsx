@@ -1,5 +1,8 @@
 import { lazy, Suspense, useEffect, useState } from "react";
-import { CEILING_WORDS, rankChecks, type Status } from "~/lib/clamp";
+import type { Status } from "~/lib/clamp";
+// the words and the order from their own modules: this panel needs no model code in the browser
+import { CEILING_WORDS } from "~/lib/clamp/ceiling-words";
+import { rankChecks } from "~/lib/clamp/check-order";
 import type { EstimateView } from "~/lib/plan/estimate-view";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
 

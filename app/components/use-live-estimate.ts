@@ -3,13 +3,10 @@
 // the torque sweep and the scatter run, come from POST /api/v1/estimate, a short pause after the last
 // keystroke, and a newer keystroke cancels the request in flight. Without JavaScript the form posts.
 import { useEffect, useMemo, useRef, useState } from "react";
-import { PlanInputSchema, type PlanInput } from "~/lib/clamp";
-import { evaluatePlan } from "~/lib/clamp/evaluate";
+import type { PlanInput } from "~/lib/clamp";
 import { assemblePlanInput, gasketFitProblem, plannedByStretch, type EngineRecord, type FastenerRecord, type GasketRecord, type MaterialRecord } from "~/lib/plan/assemble";
 import type { EstimateView } from "~/lib/plan/estimate-view";
 import { parsePlanForm } from "~/lib/plan/form";
-import { stretchLine, studStiffnessFor } from "~/lib/plan/stretch";
-import { displayWording } from "~/lib/plan/wording";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
 
 /** Pause after the last keystroke before the sweep and scatter run are fetched. */
@@ -25,11 +22,7 @@ export interface LiveEstimateData {
   choices: { fasteners: (FastenerRecord & { id: number })[]; gaskets: (GasketRecord & { id: number })[] };
 }
 
-/** The view with the immediate figures of a new evaluation and the slow parts of the last full answer. */
-function withEvaluation(slow: EstimateView, input: PlanInput, units: UnitSystem): EstimateView {
-  const estimate = evaluatePlan(input, displayWording(units));
-  return { ...slow, torqueNm: estimate.tightening.torqueNm, estimate, ceiling: estimate.ceiling, targetMargin: input.targetMargin };
-}
+type LiveEvaluation = typeof import("~/lib/plan/live-evaluation");
 
 export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null) {
   const formRef = useRef<HTMLFormElement>(null);
@@ -44,6 +37,11 @@ export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null)
   // the stud stiffness and the target of the inputs last evaluated, to word the stretch beside the torque
   const [stud, setStud] = useState<{ stiffnessNPerMm: number | null; byStretch: boolean } | null>(null);
   const lastFull = useRef<EstimateView | null>(saved);
+  // the model for the immediate figures, fetched once the page is up (not with its first JavaScript)
+  const model = useRef<LiveEvaluation | null>(null);
+  useEffect(() => {
+    void import("~/lib/plan/live-evaluation").then((m) => (model.current = m));
+  }, []);
   useEffect(
     () => () => {
       clearTimeout(timer.current);
@@ -103,23 +101,24 @@ export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null)
       return setStale(true);
     }
     const raw = assemblePlanInput({ engine: d.engine, plan: parsed.plan, fastener, gasket, head: d.materials.head, block: d.materials.block, sleeve: d.materials.sleeve });
-    setStud({ stiffnessNPerMm: studStiffnessFor(raw), byStretch: plannedByStretch(parsed.plan) });
-    const input = PlanInputSchema.safeParse(raw);
-    if (!input.success) {
-      // the server words the model's own refusals; ask it at once
-      setSlowPending(true);
-      return fetchSlowParts(raw as PlanInput);
-    }
+    setSlowPending(true);
+    // before the model has loaded (the first instant of the page), the server answers everything
+    const m = model.current;
+    setStud({ stiffnessNPerMm: m ? m.studStiffnessFor(raw) : (stud?.stiffnessNPerMm ?? null), byStretch: plannedByStretch(parsed.plan) });
+    if (!m) return fetchSlowParts(raw as PlanInput);
+    const input = m.validPlanInput(raw);
+    // the server words the model's own refusals
+    if (!input) return fetchSlowParts(raw as PlanInput);
     if (lastFull.current) {
-      setView(withEvaluation(lastFull.current, input.data, d.units));
+      setView(m.withEvaluation(lastFull.current, input, d.units));
       setProblems(null);
     }
-    setSlowPending(true);
-    fetchSlowParts(input.data);
+    fetchSlowParts(input);
   };
 
   return useMemo(() => {
-    const stretch = view && stud ? stretchLine(stud.byStretch ? "stretch" : "torque", view.estimate.tightening.preload.nominalN, view.torqueNm, stud.stiffnessNPerMm) : null;
+    const stretchLine = model.current?.stretchLine;
+    const stretch = view && stud && stretchLine ? stretchLine(stud.byStretch ? "stretch" : "torque", view.estimate.tightening.preload.nominalN, view.torqueNm, stud.stiffnessNPerMm) : null;
     // busy: the sweep and the scatter run shown are not yet these inputs' (the figures above them are)
     return { onChange, formRef, errors, fastenerId, stale, busy: slowPending, view, problems, stretch };
     // eslint-disable-next-line react-hooks/exhaustive-deps

@@ -1,5 +1,5 @@
 // npm run bench — the project's benchmark (issue 14). Prints every figure with its target and whether it
-// is met. Parts: core, server, bundle, dataset (browser figures: see docs/performance.md).
+// is met. Parts: core, bundle, server, browser, dataset (all but core need npm run build first).
 //   npm run bench                      every part (the server parts need npm run build first)
 //   npm run bench -- --only core       one part, or a comma list: --only core,bundle
 //   npm run bench -- --rounds 3        server rounds (medians), default 1; --seconds 5 per route
@@ -14,7 +14,7 @@ const opt = (name: string, fallback: string) => {
   const i = args.indexOf(`--${name}`);
   return i >= 0 && args[i + 1] ? args[i + 1]! : fallback;
 };
-const PARTS = ["core", "bundle", "server", "dataset"] as const;
+const PARTS = ["core", "bundle", "server", "browser", "dataset"] as const;
 const only = opt("only", PARTS.join(",")).split(",");
 const rounds = Number(opt("rounds", "1"));
 const seconds = Number(opt("seconds", "5"));
@@ -27,6 +27,7 @@ for (const part of only) {
   if (part === "core") rows.push(...coreRows());
   else if (part === "bundle") rows.push(...(await import("./parts/bundle")).bundleRows());
   else if (part === "server") rows.push(...(await (await import("./parts/server")).serverRows(rounds, seconds)));
+  else if (part === "browser") rows.push(...(await (await import("./parts/browser")).browserRows()));
   else if (part === "dataset") rows.push(...(await (await import("./parts/dataset")).datasetRows()));
   else throw new Error(`unknown part ${part}: ${PARTS.join(", ")}`);
   console.error(`(${part}: ${((Date.now() - t0) / 1000).toFixed(0)} s)`);

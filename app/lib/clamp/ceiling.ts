@@ -7,16 +7,10 @@ import { preloadBand } from "./torque";
 import { SI_WORDING, type Wording } from "./wording";
 import { boreCrush, boreFiredLine } from "./cylinders";
 
-export type CeilingCause = "stud-assembly" | "stud-working" | "bearing" | "thread-strip" | "crush";
+import { CEILING_WORDS, type CeilingCause } from "./ceiling-words";
 
-/** The causes in words, for sentences and tables. */
-export const CEILING_WORDS: Record<CeilingCause, string> = {
-  "stud-assembly": "stud while tightened",
-  "stud-working": "stud hot and fired",
-  bearing: "washer bearing on the head",
-  "thread-strip": "thread in the block",
-  crush: "seal-line crush",
-};
+export { CEILING_WORDS, type CeilingCause };
+
 
 export interface Ceiling {
   torqueNm: number;

@@ -5,6 +5,9 @@ import { boreSeal, boreSealMargin, type BoreSeal } from "./cylinders";
 import { hotSettledPreload, type Prepared } from "./model";
 import { preloadBand, type PreloadBand } from "./torque";
 import { SI_WORDING, type Wording } from "./wording";
+import { rankChecks } from "./check-order";
+
+export { rankChecks };
 
 export type CheckId = "seal" | "body-seal" | "stud-assembly" | "stud-working" | "fatigue" | "bearing" | "thread-strip" | "crush";
 export type Status = "holds" | "thin" | "short";
@@ -149,7 +152,6 @@ export function workingState(p: Prepared, maxPreloadN: number): WorkingState {
   };
 }
 
-const SEVERITY: Record<Status, number> = { holds: 0, thin: 1, short: 2 };
 const pct = (x: number) => `${Math.round(x * 100)} %`;
 
 function status(ratio: number, thinBelow: number): Status {
@@ -266,22 +268,6 @@ export function verdictFor(p: Prepared, nominalN: number, targetMargin: number, 
   // every check passing: the headline speaks of the seal
   const worst = ranked[0].checked && ranked[0].status !== "holds" ? ranked[0] : checks[0];
   return { verdict: { status: worst.status, headline: headline(worst, targetMargin, seatingShort), limiting: worst.id, checks }, bands, working: work };
-}
-
-/**
- * Checks worst first: failing before thin before passing; among failing ones the furthest under its
- * limit, among thin ones the furthest into its comfort band; unchecked ones last.
- */
-export function rankChecks(checks: readonly LimitCheck[]): LimitCheck[] {
-  const depth = (x: LimitCheck) => (x.status === "short" ? x.ratio : x.ratio / x.thinBelow);
-  const key = (x: LimitCheck): [number, number] => [x.checked ? SEVERITY[x.status] : -1, depth(x)];
-  return [...checks].sort((a, b) => {
-    const [sa, da] = key(a);
-    const [sb, db] = key(b);
-    if (sa !== sb) return sb - sa;
-    if (da === db) return 0;
-    return da < db ? -1 : 1;
-  });
 }
 
 function headline(c: LimitCheck, target: number, seatingShort: boolean): string {
