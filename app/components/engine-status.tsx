@@ -1,4 +1,5 @@
-import { STATUS_LABEL, type EngineStatus } from "~/lib/engine";
+import { STATUS_LABEL } from "~/lib/engine/labels";
+import type { EngineStatus } from "~/lib/engine/status";
 
 // An engine's status as word + icon; the colour only repeats what the word says.
 export function StatusBadge({ status }: { status: EngineStatus }) {

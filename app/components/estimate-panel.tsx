@@ -1,5 +1,8 @@
 import { lazy, Suspense, useEffect, useState } from "react";
-import { CEILING_WORDS, rankChecks, type Status } from "~/lib/clamp";
+import type { Status } from "~/lib/clamp";
+// the words and the order from their own modules: this panel needs no model code in the browser
+import { CEILING_WORDS } from "~/lib/clamp/ceiling-words";
+import { rankChecks } from "~/lib/clamp/check-order";
 import type { EstimateView } from "~/lib/plan/estimate-view";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
 
@@ -7,14 +10,9 @@ import { formatQuantity, type UnitSystem } from "~/lib/units";
 const CylinderChart = lazy(() => import("./plan-charts").then((m) => ({ default: m.CylinderChart })));
 const SweepChart = lazy(() => import("./plan-charts").then((m) => ({ default: m.SweepChart })));
 
-export type StatusLook = { word: string; icon: string; tone: string };
+import { STATUS_LOOK, type StatusLook } from "./status-look";
 
-/** How a verdict status reads: a word and an icon as well as a colour. */
-export const STATUS_LOOK: Record<Status, StatusLook> = {
-  holds: { word: "Holds", icon: "✔", tone: "text-held bg-held-50 border-held" },
-  thin: { word: "Thin", icon: "⚠", tone: "text-caution bg-caution-50 border-caution" },
-  short: { word: "Short", icon: "✖", tone: "text-failed bg-failed-50 border-failed" },
-};
+export { STATUS_LOOK, type StatusLook };
 
 /** A seal margin against the target, in the verdict's words. */
 export function marginStatus(margin: number, target: number): StatusLook {

@@ -41,7 +41,7 @@ export type PlanEvaluationResult =
 export async function evaluateStoredPlan(teamId: number, engine: EngineRow, plan: StoredPlan, units: UnitSystem = "metric"): Promise<PlanEvaluationResult> {
   const r = await storedPlanInput(teamId, engine, plan);
   if (!r.ok) return r;
-  return { ok: true, estimate: evaluatePlan(r.plan, displayWording(units)), fastener: r.fastener, gasket: r.gasket };
+  return { ok: true, estimate: evaluatePlan(r.plan, displayWording(units), { sentences: false }), fastener: r.fastener, gasket: r.gasket };
 }
 
 export interface ChosenPlanVerdict {

@@ -1,38 +1,38 @@
-// npm run bench — timings of the clamp model on this machine (not a test).
-// Warm-up, then many timed iterations; prints median and mean.
-import { performance } from "node:perf_hooks";
-import { evaluatePlan, PlanInputSchema, torqueSweep, uncertainty } from "../../app/lib/clamp";
-import { v8Raw } from "../unit/lib/clamp/fixtures";
+// npm run bench — the project's benchmark (issue 14). Prints every figure with its target and whether it
+// is met. Parts: core, bundle, server, browser, dataset (all but core need npm run build first).
+//   npm run bench                      every part (the server parts need npm run build first)
+//   npm run bench -- --only core       one part, or a comma list: --only core,bundle
+//   npm run bench -- --rounds 3        server rounds (medians), default 1; --seconds 5 per route
+// Times are CPU time for the core (the machine is shared) and wall time for the server; read ratios
+// measured in the same run rather than absolute figures.
+import os from "node:os";
+import { coreRows } from "./parts/core";
+import type { Row } from "./parts/measure";
 
-const plan = PlanInputSchema.parse(v8Raw());
-let peakRss = process.memoryUsage().rss;
-let sink = 0;
+const args = process.argv.slice(2);
+const opt = (name: string, fallback: string) => {
+  const i = args.indexOf(`--${name}`);
+  return i >= 0 && args[i + 1] ? args[i + 1]! : fallback;
+};
+const PARTS = ["core", "bundle", "server", "browser", "dataset"] as const;
+const only = opt("only", PARTS.join(",")).split(",");
+const rounds = Number(opt("rounds", "1"));
+const seconds = Number(opt("seconds", "5"));
 
-function bench(name: string, target: string, fn: () => number, warmup: number, iterations: number, unit: "µs" | "ms") {
-  for (let i = 0; i < warmup; i++) sink += fn();
-  const times = new Float64Array(iterations);
-  for (let i = 0; i < iterations; i++) {
-    const t0 = performance.now();
-    sink += fn();
-    times[i] = performance.now() - t0;
-    if ((i & 63) === 0) peakRss = Math.max(peakRss, process.memoryUsage().rss);
-  }
-  times.sort();
-  const scale = unit === "µs" ? 1000 : 1;
-  const median = times[Math.floor(iterations / 2)] * scale;
-  const mean = (times.reduce((a, b) => a + b, 0) / iterations) * scale;
-  const p95 = times[Math.floor(iterations * 0.95)] * scale;
-  console.log(
-    `${name.padEnd(44)} median ${median.toFixed(2).padStart(8)} ${unit}  mean ${mean.toFixed(2).padStart(8)} ${unit}  p95 ${p95.toFixed(2).padStart(8)} ${unit}  (target ${target}, n=${iterations})`,
-  );
+const rows: Row[] = [];
+const load = os.loadavg()[0]!;
+console.log(`Sealwright bench — node ${process.version}, ${os.cpus().length} × ${os.cpus()[0]?.model ?? "cpu"}, load average ${load.toFixed(1)} at start`);
+for (const part of only) {
+  const t0 = Date.now();
+  if (part === "core") rows.push(...coreRows());
+  else if (part === "bundle") rows.push(...(await import("./parts/bundle")).bundleRows());
+  else if (part === "server") rows.push(...(await (await import("./parts/server")).serverRows(rounds, seconds)));
+  else if (part === "browser") rows.push(...(await (await import("./parts/browser")).browserRows()));
+  else if (part === "dataset") rows.push(...(await (await import("./parts/dataset")).datasetRows()));
+  else throw new Error(`unknown part ${part}: ${PARTS.join(", ")}`);
+  console.error(`(${part}: ${((Date.now() - t0) / 1000).toFixed(0)} s)`);
 }
-
-console.log(`Sealwright clamp model bench — node ${process.version}, ${plan.engine.cylinders} cylinders, ${plan.studs.length} studs`);
-bench("evaluatePlan (one full plan estimate)", "< 50 µs", () => evaluatePlan(plan).weakestMargin, 2000, 20000, "µs");
-bench("torqueSweep (100 points)", "< 5 ms", () => torqueSweep(plan, { fromNm: 40, toNm: 300, points: 100 }).points.length, 200, 2000, "ms");
-bench("uncertainty (10,000 samples)", "< 100 ms", () => uncertainty(plan, { samples: 10_000, seed: 42 }).probabilityMarginBelowOne, 5, 50, "ms");
-const mem = process.memoryUsage();
-peakRss = Math.max(peakRss, mem.rss);
-const mb = (x: number) => `${(x / 1024 / 1024).toFixed(1)} MB`;
-console.log(`memory: peak rss ${mb(peakRss)} (sampled), heap used ${mb(mem.heapUsed)}, resourceUsage maxRSS ${mb(process.resourceUsage().maxRSS * 1024)}`);
-if (!Number.isFinite(sink)) console.log("(sink)", sink);
+const mark = (m: boolean | null) => (m === null ? "—" : m ? "met" : "NOT MET");
+console.log("\n| figure | value | target | |\n| --- | --- | --- | --- |");
+for (const r of rows) console.log(`| ${r.figure} | ${r.value}${r.note ? ` (${r.note})` : ""} | ${r.target} | ${mark(r.met)} |`);
+console.log(`\nload average at the end ${os.loadavg()[0]!.toFixed(1)} (2 cores shared: figures are noisy, ratios in one run are what count)`);

@@ -1,22 +1,16 @@
 // The torque ceiling (the first limit torque reaches), what +10 % torque buys at the seal line, and
 // whether more torque now mostly squeezes the head. Kept apart on purpose: a ceiling set by the stud
 // says nothing about whether torque still helps the seal.
-import { bandSeal, crushApplies, TORSION_RELIEF, weakestAtMin, workingState } from "./limits";
+import { crushApplies, TORSION_RELIEF, weakestAtMin, workingState } from "./limits";
 import { hotSettledPreload, preloadForTorque, torqueForPreloadNm, type Prepared } from "./model";
 import { preloadBand } from "./torque";
 import { SI_WORDING, type Wording } from "./wording";
-import { boreSeal } from "./cylinders";
+import { boreCrush, boreFiredLine } from "./cylinders";
 
-export type CeilingCause = "stud-assembly" | "stud-working" | "bearing" | "thread-strip" | "crush";
+import { CEILING_WORDS, type CeilingCause } from "./ceiling-words";
 
-/** The causes in words, for sentences and tables. */
-export const CEILING_WORDS: Record<CeilingCause, string> = {
-  "stud-assembly": "stud while tightened",
-  "stud-working": "stud hot and fired",
-  bearing: "washer bearing on the head",
-  "thread-strip": "thread in the block",
-  crush: "seal-line crush",
-};
+export { CEILING_WORDS, type CeilingCause };
+
 
 export interface Ceiling {
   torqueNm: number;
@@ -64,7 +58,26 @@ function firstFailing(fails: (T: number) => boolean, hi: number): number {
   return hi;
 }
 
+/** Any bore crushed at the top of the band for this nominal preload (bandSeal's atMax, on scalars). */
+function crushedAtMax(p: Prepared, nominalN: number): boolean {
+  const band = preloadBand(nominalN, p.tighteningFactor);
+  const hotMax = hotSettledPreload(p, band.maxN);
+  for (let b = 0; b < p.cylinders; b++) {
+    if (p.sameWeightAs[b] < b) continue;
+    const w = p.boreStudWeight[b];
+    if (boreCrush(p, w * band.maxN, w * hotMax) >= 1) return true;
+  }
+  return false;
+}
+
 export function torqueCeiling(p: Prepared, w: Wording = SI_WORDING): Ceiling {
+  // the ceiling's torques do not depend on the torque: once per prepared plan (the sentence per wording)
+  const found = (p.memo.ceiling ??= ceilingFor(p));
+  const torqueNm = found.torques[found.cause];
+  return { torqueNm, cause: found.cause, torques: { ...found.torques }, explanation: ceilingSentence(p, found.cause, torqueNm, w) };
+}
+
+function ceilingFor(p: Prepared): { torques: Record<CeilingCause, number>; cause: CeilingCause } {
   const f = p.plan.fastener;
   const fa = p.peakFiringN;
   const extra = Math.max(0, p.thermalChangeN) + p.phi * fa;
@@ -84,13 +97,12 @@ export function torqueCeiling(p: Prepared, w: Wording = SI_WORDING): Ceiling {
   const qc = (extra * extra) / (a0 * a0) - f.yieldMpa * f.yieldMpa;
   const studWorking = qc >= 0 ? 0 : toT((-qb + Math.sqrt(qb * qb - 4 * qa * qc)) / (2 * qa));
   const crush = crushApplies(p)
-    ? firstFailing((T) => bandSeal(p, preloadForTorque(p, T)).atMax.some((s) => s.crushUtilization >= 1), hi)
+    ? firstFailing((T) => crushedAtMax(p, preloadForTorque(p, T)), hi)
     : Infinity;
   const torques: Record<CeilingCause, number> = { "stud-assembly": studAssembly, "stud-working": studWorking, bearing, "thread-strip": strip, crush };
   let cause: CeilingCause = "stud-assembly";
   for (const c of Object.keys(torques) as CeilingCause[]) if (torques[c] < torques[cause]) cause = c;
-  const torqueNm = torques[cause];
-  return { torqueNm, cause, torques, explanation: ceilingSentence(p, cause, torqueNm, w) };
+  return { torques, cause };
 }
 
 function ceilingSentence(p: Prepared, cause: CeilingCause, T: number, w: Wording): string {
@@ -120,7 +132,7 @@ export function sealGainPer10(p: Prepared, torqueNm: number): SealGain {
     // ours: where firing lifts the gasket off, count how far it is from closing (negative), so torque that
     // shrinks the gap counts as gain and "squeezes the head" is never said of a joint that opens
     const left = hot - p.reliefPerBoreN;
-    return { clamp: w * min, line: left < 0 ? left : boreSeal(p, w * min, hot).fired.lineN };
+    return { clamp: w * min, line: left < 0 ? left : boreFiredLine(p, w * min, hot).firedLineN };
   };
   const a = at(F);
   const b = at(F * 1.1);
@@ -134,13 +146,13 @@ export function sealGainPer10(p: Prepared, torqueNm: number): SealGain {
  * on the seal line because the line is at its indentation or stopper limit, or when the head's own
  * compression at the boss passes the stated strain limit (an assumption: see the model options).
  */
-export function headSqueeze(p: Prepared, torqueNm: number): HeadSqueeze {
+export function headSqueeze(p: Prepared, torqueNm: number, gainAtTorque?: SealGain): HeadSqueeze {
   const F = preloadForTorque(p, torqueNm);
-  const gain = sealGainPer10(p, torqueNm);
+  // the caller may have it already (the evaluation reports both)
+  const gain = gainAtTorque ?? sealGainPer10(p, torqueNm);
   const min = preloadBand(F, p.tighteningFactor).minN;
   const w = p.boreStudWeight[gain.bore];
-  const state = boreSeal(p, w * min, w * hotSettledPreload(p, min));
-  const lineAtLimit = state.cold.lineAtLimit || state.hot.lineAtLimit;
+  const lineAtLimit = boreFiredLine(p, w * min, w * hotSettledPreload(p, min)).lineAtLimit;
   // Shigley §8-5: the head layer's share of the member compression, δ = F·c_head
   const headCompressionMm = F * p.headComplianceMmPerN;
   const headStrain = headCompressionMm / p.plan.head.thicknessAtStudMm;

@@ -1,6 +1,6 @@
 // Per-bore clamp and seal: studs to bores, then the bore's paths through assembly, heat and firing.
 import type { Prepared } from "./model";
-import { elementForce, loadBore, moveBore, type BoreState } from "./seal";
+import { elementForce, leanBore, leanBoreRecord, loadBore, moveBore, type BoreState } from "./seal";
 
 export interface BoreSeal {
   cold: BoreState;
@@ -73,15 +73,41 @@ export function boreSeal(p: Prepared, clampColdN: number, clampHotN: number): Bo
   };
 }
 
+// One record reused by the lean loops below (the core is synchronous).
+const lean = leanBoreRecord();
+
 /** Seal and body margins of one bore without the extra figures (for the scatter run's inner loop). */
 export function boreMargins(p: Prepared, clampColdN: number, clampHotN: number): { seal: number; body: number } {
-  const cold = loadBore(p.paths, clampColdN);
-  const hot = moveBore(p.paths, cold, clampHotN);
-  const fired = moveBore(p.paths, hot, clampHotN - p.reliefPerBoreN);
+  const seal = boreSealMargin(p, clampColdN, clampHotN);
+  return { seal, body: p.bodyRequirementN > 0 ? lean.firedBodyN / p.bodyRequirementN : Infinity };
+}
+
+/** The seal margin of one bore on scalars; leaves the bore's loads in the shared lean record. */
+export function boreSealMargin(p: Prepared, clampColdN: number, clampHotN: number): number {
+  leanBore(p.paths, clampColdN, clampHotN, p.reliefPerBoreN, lean);
   const r = p.requirement;
   // as boreSeal: seating ≥ Wm2 at assembly, contact under firing ≥ Hp
-  const seal = Math.min(cold.lineN / r.seatingLoadN, fired.lineN / r.operatingContactN);
-  return { seal, body: p.bodyRequirementN > 0 ? fired.bodyN / p.bodyRequirementN : Infinity };
+  return Math.min(lean.coldLineN / r.seatingLoadN, lean.firedLineN / r.operatingContactN);
+}
+
+/** The seal line's load left hot and fired, and whether a seal path is at its limit cold or hot (lean). */
+export function boreFiredLine(p: Prepared, clampColdN: number, clampHotN: number): { firedLineN: number; lineAtLimit: boolean } {
+  leanBore(p.paths, clampColdN, clampHotN, p.reliefPerBoreN, lean);
+  return { firedLineN: lean.firedLineN, lineAtLimit: lean.lineAtLimit };
+}
+
+/** boreSeal's crushUtilization on scalars (same figures). */
+export function boreCrush(p: Prepared, clampColdN: number, clampHotN: number): number {
+  leanBore(p.paths, clampColdN, clampHotN, p.reliefPerBoreN, lean);
+  const r = p.requirement;
+  let crush = 0;
+  if (r.maxLoadN !== null) crush = Math.max(lean.coldLineN, lean.hotLineN) / r.maxLoadN;
+  if (p.stopperIndex >= 0) {
+    const limit = p.paths.elements[p.stopperIndex].limitN;
+    const at = (f: number) => (f / limit > 1 - 1e-9 ? 1 : f / limit);
+    crush = Math.max(crush, at(lean.coldStopperN), at(lean.hotStopperN));
+  }
+  return crush;
 }
 
 /** Weakest seal margin over the bores for given per-bore cold and hot clamps. */
@@ -90,12 +116,13 @@ export function weakestMargin(p: Prepared, coldClamps: Float64Array, hotClamps: 
   let bodyMargin = Infinity;
   let bore = 0;
   for (let b = 0; b < p.cylinders; b++) {
-    const s = boreMargins(p, coldClamps[b], hotClamps[b]);
-    if (s.seal < margin) {
-      margin = s.seal;
+    const seal = boreSealMargin(p, coldClamps[b], hotClamps[b]);
+    const body = p.bodyRequirementN > 0 ? lean.firedBodyN / p.bodyRequirementN : Infinity;
+    if (seal < margin) {
+      margin = seal;
       bore = b;
     }
-    if (s.body < bodyMargin) bodyMargin = s.body;
+    if (body < bodyMargin) bodyMargin = body;
   }
   return { margin, bore, bodyMargin };
 }

@@ -126,12 +126,17 @@ export function targetTorqueAndPreload(p: Prepared): { torqueNm: number; preload
   return { torqueNm: (t.preloadN * p.torquePerPreloadMm) / 1000, preloadN: t.preloadN };
 }
 
-/** Full estimate for a validated plan (parse with PlanInputSchema first). */
-export function evaluatePlan(input: PlanInput, wording: Wording = SI_WORDING): PlanEstimate {
-  return evaluatePrepared(prepare(input), undefined, wording);
+export interface EvaluateOptions {
+  /** False leaves `warnings` and `assumptions` empty: for lists that show only the verdict. */
+  sentences?: boolean;
 }
 
-export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefined, wording: Wording = SI_WORDING): PlanEstimate {
+/** Full estimate for a validated plan (parse with PlanInputSchema first). */
+export function evaluatePlan(input: PlanInput, wording: Wording = SI_WORDING, options: EvaluateOptions = {}): PlanEstimate {
+  return evaluatePrepared(prepare(input), undefined, wording, options);
+}
+
+export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefined, wording: Wording = SI_WORDING, options: EvaluateOptions = {}): PlanEstimate {
   const base = targetTorqueAndPreload(p);
   const torqueNm = torqueOverrideNm ?? base.torqueNm;
   const F = torqueOverrideNm === undefined ? base.preloadN : (torqueOverrideNm * 1000) / p.torquePerPreloadMm;
@@ -143,8 +148,12 @@ export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefin
   const cold = boreClamps(p, new Float64Array(p.studCount).fill(F), new Float64Array(p.cylinders));
   const hot = boreClamps(p, new Float64Array(p.studCount).fill(Fhs), new Float64Array(p.cylinders));
   const cylinders: CylinderEstimate[] = [];
+  const seals: ReturnType<typeof boreSeal>[] = [];
   for (let b = 0; b < p.cylinders; b++) {
-    const s = boreSeal(p, cold[b], hot[b]);
+    // a bore with the same clamps as an earlier one (same Σ of shares, same sum) has the same seal
+    const a = p.sameWeightAs[b];
+    const s = a < b && cold[a] === cold[b] && hot[a] === hot[b] ? seals[a] : boreSeal(p, cold[b], hot[b]);
+    seals.push(s);
     const min = bands.atMin[b];
     cylinders.push({
       cylinder: b + 1,
@@ -188,6 +197,7 @@ export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefin
   });
 
   const w = cylinders[bands.weakestAtMin];
+  const gain = sealGainPer10(p, torqueNm);
   const estimate: PlanEstimate = {
     threadForm: p.threadForm,
     thread: p.thread,
@@ -234,8 +244,8 @@ export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefin
     weakestMarginNominal: w.sealMarginNominal,
     verdict,
     ceiling: torqueCeiling(p, wording),
-    gain: sealGainPer10(p, torqueNm),
-    squeeze: headSqueeze(p, torqueNm),
+    gain,
+    squeeze: headSqueeze(p, torqueNm, gain),
     head: {
       bearingAreaMm2: p.bearingAreaMm2,
       // VDI 2230: surface pressure p = F/Ap
@@ -254,8 +264,10 @@ export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefin
       preloadN: Fhs,
     },
     warnings: [],
-    assumptions: planAssumptions(p, wording),
+    assumptions: [],
   };
+  if (options.sentences === false) return estimate;
+  estimate.assumptions = planAssumptions(p, wording);
   estimate.warnings = planWarnings(p, estimate, wording);
   return estimate;
 }

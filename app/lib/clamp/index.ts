@@ -2,7 +2,7 @@
 export { PlanInputSchema, StudSchema, parsePlan, gripLengthMm, GASKET_TYPES, TIGHTENING_METHODS, ROUGHNESS } from "./schema";
 export type { PlanInput, PlanInputRaw, Stud } from "./schema";
 export { defaultStudPattern } from "./pattern";
-export { evaluatePlan, type PlanEstimate, type CylinderEstimate, type StudEstimate } from "./evaluate";
+export { evaluatePlan, type EvaluateOptions, type PlanEstimate, type CylinderEstimate, type StudEstimate } from "./evaluate";
 export { torqueSweep, type SweepOptions, type SweepPoint, type SweepResult } from "./sweep";
 export { torqueCeiling, sealGainPer10, headSqueeze, headSqueezeOnset, CEILING_WORDS, type Ceiling, type CeilingCause, type SealGain, type HeadSqueeze } from "./ceiling";
 export { verdictFor, bandSeal, workingState, rankChecks, TORSION_RELIEF, type Verdict, type LimitCheck, type CheckId, type Status, type WorkingState } from "./limits";

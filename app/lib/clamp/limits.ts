@@ -1,10 +1,13 @@
 // Every limit the model checks, at the preload that is worst for it, and the one verdict that carries
 // the worst of them. Seal checks use the bottom of the scatter band; stud, washer, thread and crush
 // checks the top of it, hot and under firing.
-import { boreMargins, boreSeal, type BoreSeal } from "./cylinders";
+import { boreSeal, boreSealMargin, type BoreSeal } from "./cylinders";
 import { hotSettledPreload, type Prepared } from "./model";
 import { preloadBand, type PreloadBand } from "./torque";
 import { SI_WORDING, type Wording } from "./wording";
+import { rankChecks } from "./check-order";
+
+export { rankChecks };
 
 export type CheckId = "seal" | "body-seal" | "stud-assembly" | "stud-working" | "fatigue" | "bearing" | "thread-strip" | "crush";
 export type Status = "holds" | "thin" | "short";
@@ -80,8 +83,10 @@ export function bandSeal(p: Prepared, nominalN: number): BandSeal {
   let worstBodyAtMin = 0;
   for (let b = 0; b < p.cylinders; b++) {
     const w = p.boreStudWeight[b];
-    atMin.push(boreSeal(p, w * band.minN, w * hotMin));
-    if (withMax) atMax.push(boreSeal(p, w * band.maxN, w * hotMax));
+    // a bore with the same Σ of shares as an earlier one has the same figures (equal preload on every stud)
+    const same = p.sameWeightAs[b];
+    atMin.push(same < b ? atMin[same] : boreSeal(p, w * band.minN, w * hotMin));
+    if (withMax) atMax.push(same < b ? atMax[same] : boreSeal(p, w * band.maxN, w * hotMax));
     if (atMin[b].sealMargin < atMin[weakestAtMin].sealMargin) weakestAtMin = b;
     if (atMin[b].bodyMargin < atMin[worstBodyAtMin].bodyMargin) worstBodyAtMin = b;
   }
@@ -95,8 +100,10 @@ export function weakestAtMin(p: Prepared, nominalN: number): { bore: number; mar
   let bore = 0;
   let margin = Infinity;
   for (let b = 0; b < p.cylinders; b++) {
+    // a bore with the same Σ of shares as an earlier one has the same margin: it cannot be weaker
+    if (p.sameWeightAs[b] < b) continue;
     const w = p.boreStudWeight[b];
-    const m = boreMargins(p, w * minN, w * hot).seal;
+    const m = boreSealMargin(p, w * minN, w * hot);
     if (m < margin) {
       margin = m;
       bore = b;
@@ -145,7 +152,6 @@ export function workingState(p: Prepared, maxPreloadN: number): WorkingState {
   };
 }
 
-const SEVERITY: Record<Status, number> = { holds: 0, thin: 1, short: 2 };
 const pct = (x: number) => `${Math.round(x * 100)} %`;
 
 function status(ratio: number, thinBelow: number): Status {
@@ -262,22 +268,6 @@ export function verdictFor(p: Prepared, nominalN: number, targetMargin: number, 
   // every check passing: the headline speaks of the seal
   const worst = ranked[0].checked && ranked[0].status !== "holds" ? ranked[0] : checks[0];
   return { verdict: { status: worst.status, headline: headline(worst, targetMargin, seatingShort), limiting: worst.id, checks }, bands, working: work };
-}
-
-/**
- * Checks worst first: failing before thin before passing; among failing ones the furthest under its
- * limit, among thin ones the furthest into its comfort band; unchecked ones last.
- */
-export function rankChecks(checks: readonly LimitCheck[]): LimitCheck[] {
-  const depth = (x: LimitCheck) => (x.status === "short" ? x.ratio : x.ratio / x.thinBelow);
-  const key = (x: LimitCheck): [number, number] => [x.checked ? SEVERITY[x.status] : -1, depth(x)];
-  return [...checks].sort((a, b) => {
-    const [sa, da] = key(a);
-    const [sb, db] = key(b);
-    if (sa !== sb) return sb - sa;
-    if (da === db) return 0;
-    return da < db ? -1 : 1;
-  });
 }
 
 function headline(c: LimitCheck, target: number, seatingShort: boolean): string {

@@ -1,6 +1,7 @@
 // Everything about a plan that does not depend on the torque, computed once and reused by the
 // evaluation, the sweep, the uncertainty run, the ceiling and the suggestion.
 import { estimatePeakPressure } from "../chamber/peak-pressure";
+import type { CeilingCause } from "./ceiling";
 import { TYPICAL_GASKETS } from "./gasket-families";
 import type { PlanInput } from "./schema";
 import { gripLengthMm } from "./schema";
@@ -59,6 +60,12 @@ export interface Prepared {
   shareOf: Float64Array;
   /** Σ of shares per bore: the effective number of studs clamping it. */
   boreStudWeight: Float64Array;
+  /** The first bore with the same Σ of shares: equal preload on every stud gives it the same figures. */
+  sameWeightAs: Int32Array;
+  /** Index of the MLS stopper among the paths, −1 without one. */
+  stopperIndex: number;
+  /** What is found once per prepared plan and kept (the ceiling's torques); filled on first use. */
+  memo: { ceiling?: { torques: Record<CeilingCause, number>; cause: CeilingCause } };
   /** Firing load each stud carries, summed over the bores it serves (Σ = cylinders × H). */
   studExternalN: Float64Array;
   /** The largest firing load a stud sees at once: one bore fires at a time, so the biggest of its bores' shares. */
@@ -215,6 +222,16 @@ export function prepare(plan: PlanInput): Prepared {
     }
   }
   start[studCount] = k;
+  const sameWeightAs = new Int32Array(cylinders);
+  for (let b = 0; b < cylinders; b++) {
+    let first = b;
+    for (let a = 0; a < b; a++)
+      if (boreStudWeight[a] === boreStudWeight[b]) {
+        first = a;
+        break;
+      }
+    sameWeightAs[b] = first;
+  }
   const H = requirement.pressureForceN;
   const studExternalN = new Float64Array(studCount);
   const studPeakFiringN = new Float64Array(studCount);
@@ -295,6 +312,9 @@ export function prepare(plan: PlanInput): Prepared {
     boreOf,
     shareOf,
     boreStudWeight,
+    sameWeightAs,
+    stopperIndex: elements.findIndex((e) => e.kind === "stopper"),
+    memo: {},
     studExternalN,
     studPeakFiringN,
     peakFiringN,

@@ -115,7 +115,7 @@ export function elementForce(e: PathElement, closureMm: number, setMm: number): 
 }
 
 /** Total bore load at a closure, with the paths' sets fixed. */
-function totalForce(paths: BorePaths, closureMm: number, set: readonly number[]): number {
+function totalForce(paths: BorePaths, closureMm: number, set: ArrayLike<number>): number {
   let F = 0;
   for (let i = 0; i < paths.elements.length; i++) F += elementForce(paths.elements[i], closureMm, set[i]);
   return F;
@@ -125,7 +125,7 @@ function totalForce(paths: BorePaths, closureMm: number, set: readonly number[])
 const scratch = new Float64Array(16);
 
 /** The closure at which the paths carry F (piecewise linear and rising: found between breakpoints). */
-function closureFor(paths: BorePaths, F: number, set: readonly number[]): number {
+function closureFor(paths: BorePaths, F: number, set: ArrayLike<number>): number {
   const els = paths.elements;
   let n = 0;
   let kFree = 0;
@@ -204,6 +204,85 @@ export function moveBore(paths: BorePaths, from: BoreState | null, clampN: numbe
     }
   }
   return stateAt(paths, F, closure, set);
+}
+
+/** The figures of one bore's three states that the hot loops need, filled in place (see leanBore). */
+export interface LeanBore {
+  coldLineN: number;
+  hotLineN: number;
+  firedLineN: number;
+  firedBodyN: number;
+  /** The MLS stopper's own load cold and hot (0 without a stopper). */
+  coldStopperN: number;
+  hotStopperN: number;
+  /** A seal path at its limit, cold or hot. */
+  lineAtLimit: boolean;
+}
+
+export function leanBoreRecord(): LeanBore {
+  return { coldLineN: 0, hotLineN: 0, firedLineN: 0, firedBodyN: 0, coldStopperN: 0, hotStopperN: 0, lineAtLimit: false };
+}
+
+// The sets of one lean solve (a handful of paths; the core is synchronous).
+const leanSet = new Float64Array(8);
+
+/** Grow the sets where a path flows at this closure (as moveBore does on a rise). */
+function growSets(els: readonly PathElement[], closure: number): void {
+  for (let i = 0; i < els.length; i++) {
+    const e = els[i];
+    if (Number.isFinite(e.limitN)) leanSet[i] = Math.max(leanSet[i], closure - e.engageMm - e.limitN / e.kNPerMm);
+  }
+}
+
+/** Seal-line load, stopper load and limit flag at a closure with the current sets (as stateAt). */
+function leanState(els: readonly PathElement[], closure: number, out: LeanBore, which: "cold" | "hot" | "fired"): void {
+  let lineN = 0;
+  let bodyN = 0;
+  let stopperN = 0;
+  let atLimit = false;
+  for (let i = 0; i < els.length; i++) {
+    const e = els[i];
+    const f = elementForce(e, closure, leanSet[i]);
+    if (e.seal) {
+      lineN += f;
+      if (f >= e.limitN * (1 - 1e-12) && Number.isFinite(e.limitN)) atLimit = true;
+      if (e.kind === "stopper") stopperN = f;
+    } else bodyN += f;
+  }
+  if (which === "cold") {
+    out.coldLineN = lineN;
+    out.coldStopperN = stopperN;
+    out.lineAtLimit = atLimit;
+  } else if (which === "hot") {
+    out.hotLineN = lineN;
+    out.hotStopperN = stopperN;
+    out.lineAtLimit = out.lineAtLimit || atLimit;
+  } else {
+    out.firedLineN = lineN;
+    out.firedBodyN = bodyN;
+  }
+}
+
+/**
+ * loadBore → moveBore (hot) → moveBore (fired) without building states: the same steps and the same
+ * arithmetic in the same order (identical numbers), on scalars, for the sweep, the ceiling and the scatter run.
+ */
+export function leanBore(paths: BorePaths, clampColdN: number, clampHotN: number, reliefN: number, out: LeanBore): LeanBore {
+  const els = paths.elements;
+  leanSet.fill(0, 0, els.length);
+  const F0 = Math.max(0, clampColdN);
+  const c0 = closureFor(paths, F0, leanSet);
+  growSets(els, c0);
+  leanState(els, c0, out, "cold");
+  const F1 = Math.max(0, clampHotN);
+  const c1 = closureFor(paths, F1, leanSet);
+  if (F1 > F0) growSets(els, c1);
+  leanState(els, c1, out, "hot");
+  const F2 = Math.max(0, clampHotN - reliefN);
+  const c2 = closureFor(paths, F2, leanSet);
+  if (F2 > F1) growSets(els, c2);
+  leanState(els, c2, out, "fired");
+  return out;
 }
 
 /** What the seal needs: a seating load at assembly and a contact load left under firing. */

@@ -5,7 +5,7 @@ import { weakestAtMin, workingState } from "./limits";
 import { preloadBand } from "./torque";
 import { hotSettledPreload, prepare, type Prepared } from "./model";
 import type { PlanInput } from "./schema";
-import { boreMargins } from "./cylinders";
+import { boreSealMargin } from "./cylinders";
 import { SI_WORDING, type Wording } from "./wording";
 
 export interface SweepPoint {
@@ -61,8 +61,9 @@ export function sweepPrepared(p: Prepared, o: SweepOptions, wording: Wording = S
     let nominal = Infinity;
     const Fhs = hotSettledPreload(p, F);
     for (let b = 0; b < p.cylinders; b++) {
+      if (p.sameWeightAs[b] < b) continue;
       const w = p.boreStudWeight[b];
-      nominal = Math.min(nominal, boreMargins(p, w * F, w * Fhs).seal);
+      nominal = Math.min(nominal, boreSealMargin(p, w * F, w * Fhs));
     }
     const sq = headSqueeze(p, T);
     points.push({

@@ -3,7 +3,7 @@
 // stud passes its limit.
 import { boreClamps, weakestMargin } from "./cylinders";
 import { workingState } from "./limits";
-import { hotSettledPreload, prepare, type Prepared } from "./model";
+import { prepare, type Prepared } from "./model";
 import type { PlanInput } from "./schema";
 import { PLASTIC_TORSION_FACTOR } from "./torque";
 
@@ -24,6 +24,21 @@ export function normal(rand: () => number): number {
   const u = 1 - rand(); // (0, 1]
   const v = rand();
   return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * v);
+}
+
+/**
+ * Fills `out` with standard normal deviates, both values of each Box–Muller pair (Box & Muller 1958:
+ * r·cos θ and r·sin θ are independent standard normals), half the logarithms and draws of `normal`.
+ */
+export function fillNormals(rand: () => number, out: Float64Array): Float64Array {
+  for (let i = 0; i < out.length; i += 2) {
+    const u = 1 - rand(); // (0, 1]
+    const theta = 2 * Math.PI * rand();
+    const r = Math.sqrt(-2 * Math.log(u));
+    out[i] = r * Math.cos(theta);
+    if (i + 1 < out.length) out[i + 1] = r * Math.sin(theta);
+  }
+  return out;
 }
 
 export interface UncertaintyOptions {
@@ -92,28 +107,33 @@ export function uncertaintyPrepared(p: Prepared, o: UncertaintyOptions): Uncerta
   const workingLimitN = lo === hi ? Infinity : hi;
   let below = 0;
   let over = 0;
-  let k = 0;
+  // the deviates of one sample: one per stud, and one more per stud where friction varies on its own
+  const z = new Float64Array(torqueControlled ? p.studCount : 2 * p.studCount);
+  // constant factors of the stud check, hoisted: σred per newton = √(σ² + 3·(kp·τ(μG))²)
+  const tauPerScale = (torsion * 1.155 * p.friction.thread) / (base + 1.155 * p.friction.thread);
+  const tauBase = (torsion * base) / (base + 1.155 * p.friction.thread);
+  const axial2 = axial * axial;
+  const hotFactor = 1 - p.relaxationFraction;
   for (let i = 0; i < n; i++) {
     let studOver = false;
+    let maxF = 0;
+    fillNormals(rand, z);
     for (let s = 0; s < p.studCount; s++) {
-      const F = F0 * (1 + sigma * clamp3(normal(rand)));
+      const F = F0 * (1 + sigma * clamp3(z[s]));
       // the friction that gives this preload at this torque (torque-controlled), else friction on its own
-      const scale = torqueControlled ? Math.max(0.05, ((p.torquePerPreloadMm * F0) / F - pitchPart) / frictionPart) : 1 + cv * clamp3(normal(rand));
-      const muG = p.friction.thread * scale;
-      // VDI 2230: MG ∝ (P/(π·d2) + 1.155·μG); rescale the torsion from the entered μG
-      const tau = (torsion * (base + 1.155 * muG)) / (base + 1.155 * p.friction.thread);
+      const scale = torqueControlled ? Math.max(0.05, ((p.torquePerPreloadMm * F0) / F - pitchPart) / frictionPart) : 1 + cv * clamp3(z[p.studCount + s]);
+      // VDI 2230: MG ∝ (P/(π·d2) + 1.155·μG); the torsion rescaled from the entered μG (μG = μ·scale)
+      const tau = tauBase + tauPerScale * scale;
       // VDI 2230 FMzul (von Mises, torsion on π·d0³/12): σred = √(σ² + 3·(¾τ)²) per newton, times this preload
       const tp = PLASTIC_TORSION_FACTOR * tau;
-      if (Math.sqrt(axial * axial + 3 * tp * tp) * F > limitAssembly) studOver = true;
+      if (Math.sqrt(axial2 + 3 * tp * tp) * F > limitAssembly) studOver = true;
       studLoads[s] = F;
-      hotLoads[s] = hotSettledPreload(p, F);
-      if (s === 0) spread[k++] = F / F0;
+      // as hotSettledPreload: VDI 2230 F_running = F_M − F_Z − relaxation + ΔF_thermal
+      hotLoads[s] = Math.max(0, F * hotFactor - p.embeddingLossN + p.thermalChangeN);
+      if (F > maxF) maxF = F;
     }
-    if (!studOver) {
-      let maxF = 0;
-      for (let s = 0; s < p.studCount; s++) maxF = Math.max(maxF, studLoads[s]);
-      if (maxF > workingLimitN) studOver = true;
-    }
+    spread[i] = studLoads[0] / F0;
+    if (maxF > workingLimitN) studOver = true;
     boreClamps(p, studLoads, cold);
     boreClamps(p, hotLoads, hot);
     const m = weakestMargin(p, cold, hot).margin;

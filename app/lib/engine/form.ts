@@ -154,11 +154,6 @@ export function engineToForm(engine: object & { studs: Stud[] }, units: Units): 
   return { fields, studs: e.studs.map(studToRow), studsPerSide: "" };
 }
 
-/** Short layout name: "I4", "V8". */
-export function layoutName(layout: "inline" | "V", cylinders: number): string {
-  return `${layout === "V" ? "V" : "I"}${cylinders}`;
-}
-
 /** "10 studs: 6 shared by two bores, 4 serving one bore". */
 export function patternSummary(studs: Stud[]): string {
   const byCount = new Map<number, number>();

@@ -1,5 +1,6 @@
 // Words (and icons, so status never rests on colour alone) for the engine record's choices.
-import type { EngineStatus, SleeveKind } from "./schema";
+import type { SleeveKind } from "./schema";
+import type { EngineStatus } from "./status";
 
 export const STATUS_LABEL: Record<EngineStatus, { word: string; icon: string }> = {
   quoted: { word: "Quoted", icon: "◇" },
@@ -16,3 +17,8 @@ export const SLEEVE_LABEL: Record<SleeveKind, string> = {
 };
 
 export const PEAK_SOURCE_LABEL = { measured: "measured", estimated: "estimate" } as const;
+
+/** Short layout name: "I4", "V8". */
+export function layoutName(layout: "inline" | "V", cylinders: number): string {
+  return `${layout === "V" ? "V" : "I"}${cylinders}`;
+}

@@ -3,8 +3,8 @@
 import { z } from "zod";
 import { StudSchema, type Stud } from "../clamp/schema";
 
-export const ENGINE_STATUSES = ["quoted", "in-build", "running", "retired"] as const;
-export type EngineStatus = (typeof ENGINE_STATUSES)[number];
+import { ENGINE_STATUSES, type EngineStatus } from "./status";
+export { ENGINE_STATUSES, type EngineStatus };
 export const SLEEVE_KINDS = ["none", "dry", "wet-flange", "wet-mid"] as const;
 export type SleeveKind = (typeof SLEEVE_KINDS)[number];
 export const LAYOUTS = ["inline", "V"] as const;

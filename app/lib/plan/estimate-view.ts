@@ -1,6 +1,9 @@
 // What the plan editor and the API show for one plan: the estimate with its verdict, a torque sweep
 // around the plan's torque, and the scatter run. Pure; SI throughout (the page converts for display).
-import { evaluatePlan, SI_WORDING, torqueSweep, uncertainty, type Ceiling, type PlanEstimate, type PlanInput, type Wording } from "../clamp";
+import { prepare, SI_WORDING, type Ceiling, type PlanEstimate, type PlanInput, type Wording } from "../clamp";
+import { evaluatePrepared } from "../clamp/evaluate";
+import { sweepPrepared } from "../clamp/sweep";
+import { cachedUncertainty } from "../clamp/uncertainty-cache";
 
 export interface SweepRow {
   torqueNm: number;
@@ -42,10 +45,12 @@ export function sweepRange(torqueNm: number, ceilingNm = Infinity): { fromNm: nu
 }
 
 export function estimateView(input: PlanInput, wording: Wording = SI_WORDING): EstimateView {
-  const estimate = evaluatePlan(input, wording);
+  // one preparation for the evaluation, the sweep and the scatter run (the ceiling is kept on it)
+  const p = prepare(input);
+  const estimate = evaluatePrepared(p, undefined, wording);
   const torqueNm = estimate.tightening.torqueNm;
-  const sweep = torqueSweep(input, { ...sweepRange(torqueNm, estimate.ceiling.torqueNm), points: SWEEP_POINTS }, wording);
-  const run = uncertainty(input, { samples: UNCERTAINTY_SAMPLES, seed: SEED });
+  const sweep = sweepPrepared(p, { ...sweepRange(torqueNm, estimate.ceiling.torqueNm), points: SWEEP_POINTS }, wording);
+  const run = cachedUncertainty(input, () => p, { samples: UNCERTAINTY_SAMPLES, seed: SEED });
   return {
     torqueNm,
     estimate,

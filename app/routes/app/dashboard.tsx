@@ -3,11 +3,11 @@ import type { Route } from "./+types/dashboard";
 import { PageTitle } from "~/components/app-shell";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { StatusBadge } from "~/components/engine-status";
-import { layoutName, STATUS_LABEL } from "~/lib/engine";
+import { layoutName, STATUS_LABEL } from "~/lib/engine/labels";
 import { engineStatusCounts, listEngines, type EngineStatus } from "~/models/engine.server";
 import { atRisk, chosenPlanVerdicts } from "~/models/plan-estimate.server";
 import { auditSubject, livePlans, recentActivity } from "~/models/team.server";
-import { STATUS_LOOK } from "~/components/estimate-panel";
+import { STATUS_LOOK } from "~/components/status-look";
 import { requireUser } from "~/utils/auth.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Dashboard · Sealwright" }];

@@ -2,7 +2,10 @@ import { Form, Link } from "react-router";
 import type { Route } from "./+types/list";
 import { PageTitle } from "~/components/app-shell";
 import { StatusBadge } from "~/components/engine-status";
-import { ENGINE_STATUSES, formatQuantity, layoutName, STATUS_LABEL, type EngineStatus, type Units } from "~/lib/engine";
+// from the modules themselves, not the barrel: the barrel's schema would bring zod to this page
+import { layoutName, STATUS_LABEL } from "~/lib/engine/labels";
+import { ENGINE_STATUSES, type EngineStatus } from "~/lib/engine/status";
+import { formatQuantity, type Units } from "~/lib/engine/units";
 import { isEngineSort, listEngines, type EngineSort } from "~/models/engine.server";
 import { requireUser, roleAtLeast } from "~/utils/auth.server";
 

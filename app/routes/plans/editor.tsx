@@ -1,5 +1,4 @@
-import { useEffect, useMemo, useRef, useState } from "react";
-import { data, Form, Link, redirect, useFetcher, useNavigation } from "react-router";
+import { data, Form, Link, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/editor";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { EstimatePanel, STATUS_LOOK, VerdictLine } from "~/components/estimate-panel";
@@ -7,12 +6,13 @@ import { Button, FormError } from "~/components/form";
 import { MakerTorque } from "~/components/maker-torque";
 import { PlanFields } from "~/components/plan-form";
 import { SuggestionBox } from "~/components/suggestion-box";
+import { useLiveEstimate } from "~/components/use-live-estimate";
 import type { Suggestion } from "~/lib/clamp";
-import { assemblePlanInput, gasketFitProblem, plannedByStretch, type PlanRecord } from "~/lib/plan/assemble";
+import { assemblePlanInput, plannedByStretch, type PlanRecord } from "~/lib/plan/assemble";
 import type { EstimateView } from "~/lib/plan/estimate-view";
 import { figuresFollowStep, scaledWrenchStages } from "~/lib/plan/fastener-figures";
 import { parsePlanForm, planFormValues, type PlanWrite } from "~/lib/plan/form";
-import { stretchLine, stretchLineFor, studStiffnessFor, type StretchLine } from "~/lib/plan/stretch";
+import { stretchLineFor, type StretchLine } from "~/lib/plan/stretch";
 import { formatQuantity } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
 import { estimatePlan } from "~/models/plan-estimate.server";
@@ -128,13 +128,12 @@ async function stretchAtTorque(teamId: number, engine: Awaited<ReturnType<typeof
   return line ? Number(line.stretchMm.toFixed(4)) : null;
 }
 
-type ApiAnswer = EstimateView | { error: string; errors?: { path: string; message: string }[] };
 
 export default function PlanEditor({ loaderData, actionData }: Route.ComponentProps) {
   const { units, canEdit, engine, materials, plan, choices, result, chosen } = loaderData;
   const values = actionData?.values ?? loaderData.values;
   const busy = useNavigation().state !== "idle";
-  const live = useLiveEstimate(loaderData);
+  const live = useLiveEstimate(loaderData, result.ok ? result.view : null);
   const view: EstimateView | null = live.view ?? actionData?.preview ?? (result.ok ? result.view : null);
   const problems = live.problems ?? (actionData?.problems?.length ? actionData.problems : result.ok ? [] : result.problems);
   const suggestion = (actionData?.suggestion ?? null) as Suggestion | null;
@@ -230,52 +229,4 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
       </div>
     </div>
   );
-}
-
-/** Recomputes through POST /api/v1/estimate as the builder types (debounced); off without JavaScript. */
-function useLiveEstimate(d: Route.ComponentProps["loaderData"]) {
-  const fetcher = useFetcher<ApiAnswer>();
-  const formRef = useRef<HTMLFormElement>(null);
-  const timer = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
-  const [errors, setErrors] = useState<Record<string, string> | null>(null);
-  const [fastenerId, setFastenerId] = useState<string | null>(null);
-  const [stale, setStale] = useState(false);
-  // the stud stiffness and the target of the inputs last sent, to word the stretch beside the torque
-  const [stud, setStud] = useState<{ stiffnessNPerMm: number | null; byStretch: boolean } | null>(null);
-  useEffect(() => () => clearTimeout(timer.current), []);
-
-  const onChange = () => {
-    clearTimeout(timer.current);
-    timer.current = setTimeout(() => {
-      if (!formRef.current) return;
-      const form = Object.fromEntries(new FormData(formRef.current));
-      setFastenerId(String(form.fastenerId ?? ""));
-      const full = parsePlanForm(form, d.units);
-      setErrors(full.ok ? null : full.errors);
-      // Stages do not change the estimate, so a half-typed stage list does not hold it back.
-      const parsed = full.ok ? full : parsePlanForm({ ...form, stages: "" }, d.units);
-      setStale(!parsed.ok);
-      if (!parsed.ok) return;
-      const fastener = d.choices.fasteners.find((f) => f.id === parsed.plan.fastenerId);
-      const gasket = d.choices.gaskets.find((g) => g.id === parsed.plan.gasketId);
-      if (!fastener || !gasket || !d.materials.head || !d.materials.block) return;
-      const misfit = gasketFitProblem(d.engine.boreMm, gasket.boreMm, (mm) => formatQuantity(mm, "length", d.units));
-      if (misfit) {
-        setErrors({ ...(full.ok ? {} : full.errors), gasketId: misfit });
-        return setStale(true);
-      }
-      const input = assemblePlanInput({ engine: d.engine, plan: parsed.plan, fastener, gasket, head: d.materials.head, block: d.materials.block, sleeve: d.materials.sleeve });
-      setStud({ stiffnessNPerMm: studStiffnessFor(input), byStretch: plannedByStretch(parsed.plan) });
-      fetcher.submit({ input, units: d.units } as never, { method: "post", action: "/api/v1/estimate", encType: "application/json" });
-    }, 300);
-  };
-
-  return useMemo(() => {
-    const answer = fetcher.data;
-    const view = answer && "estimate" in answer ? answer : null;
-    const problems = answer && "error" in answer ? (answer.errors?.map((e) => e.message) ?? [answer.error]) : null;
-    const stretch = view && stud ? stretchLine(stud.byStretch ? "stretch" : "torque", view.estimate.tightening.preload.nominalN, view.torqueNm, stud.stiffnessNPerMm) : null;
-    return { onChange, formRef, errors, fastenerId, stale, busy: fetcher.state !== "idle", view, problems, stretch };
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [fetcher.data, fetcher.state, errors, fastenerId, stale, stud]);
 }

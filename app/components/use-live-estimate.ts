@@ -1,0 +1,126 @@
+// The plan editor's live estimate. As the builder types, the clamp model runs here in the browser (it is
+// pure and already loaded) for the immediate figures: verdict, margins, ceiling. Only the slow parts,
+// the torque sweep and the scatter run, come from POST /api/v1/estimate, a short pause after the last
+// keystroke, and a newer keystroke cancels the request in flight. Without JavaScript the form posts.
+import { useEffect, useMemo, useRef, useState } from "react";
+import type { PlanInput } from "~/lib/clamp";
+import { assemblePlanInput, gasketFitProblem, plannedByStretch, type EngineRecord, type FastenerRecord, type GasketRecord, type MaterialRecord } from "~/lib/plan/assemble";
+import type { EstimateView } from "~/lib/plan/estimate-view";
+import { parsePlanForm } from "~/lib/plan/form";
+import { formatQuantity, type UnitSystem } from "~/lib/units";
+
+/** Pause after the last keystroke before the sweep and scatter run are fetched. */
+export const SLOW_PART_DEBOUNCE_MS = 150;
+
+type ApiAnswer = EstimateView | { error: string; errors?: { path: string; message: string }[] };
+
+/** What the editor's loader gives the hook (plain data). */
+export interface LiveEstimateData {
+  units: UnitSystem;
+  engine: EngineRecord;
+  materials: { head: MaterialRecord | null; block: MaterialRecord | null; sleeve: MaterialRecord | null };
+  choices: { fasteners: (FastenerRecord & { id: number })[]; gaskets: (GasketRecord & { id: number })[] };
+}
+
+type LiveEvaluation = typeof import("~/lib/plan/live-evaluation");
+
+export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null) {
+  const formRef = useRef<HTMLFormElement>(null);
+  const timer = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
+  const inFlight = useRef<AbortController | null>(null);
+  const [errors, setErrors] = useState<Record<string, string> | null>(null);
+  const [fastenerId, setFastenerId] = useState<string | null>(null);
+  const [stale, setStale] = useState(false);
+  const [view, setView] = useState<EstimateView | null>(null);
+  const [problems, setProblems] = useState<string[] | null>(null);
+  const [slowPending, setSlowPending] = useState(false);
+  // the stud stiffness and the target of the inputs last evaluated, to word the stretch beside the torque
+  const [stud, setStud] = useState<{ stiffnessNPerMm: number | null; byStretch: boolean } | null>(null);
+  const lastFull = useRef<EstimateView | null>(saved);
+  // the model for the immediate figures, fetched once the page is up (not with its first JavaScript)
+  const model = useRef<LiveEvaluation | null>(null);
+  useEffect(() => {
+    void import("~/lib/plan/live-evaluation").then((m) => (model.current = m));
+  }, []);
+  useEffect(
+    () => () => {
+      clearTimeout(timer.current);
+      inFlight.current?.abort();
+    },
+    [],
+  );
+
+  const fetchSlowParts = (input: PlanInput) => {
+    clearTimeout(timer.current);
+    timer.current = setTimeout(async () => {
+      inFlight.current?.abort();
+      const controller = new AbortController();
+      inFlight.current = controller;
+      try {
+        const res = await fetch("/api/v1/estimate", {
+          method: "POST",
+          headers: { "Content-Type": "application/json", Accept: "application/json" },
+          body: JSON.stringify({ input, units: d.units }),
+          signal: controller.signal,
+        });
+        const answer = (await res.json()) as ApiAnswer;
+        if (controller.signal.aborted) return;
+        if ("estimate" in answer) {
+          lastFull.current = answer;
+          setView(answer);
+          setProblems(null);
+        } else setProblems(answer.errors?.map((e) => e.message) ?? [answer.error]);
+      } catch (e) {
+        // a newer keystroke cancelled this one; anything else leaves the immediate figures standing
+        if ((e as Error).name === "AbortError") return;
+      } finally {
+        if (inFlight.current === controller) {
+          inFlight.current = null;
+          setSlowPending(false);
+        }
+      }
+    }, SLOW_PART_DEBOUNCE_MS);
+  };
+
+  const onChange = () => {
+    if (!formRef.current) return;
+    const form = Object.fromEntries(new FormData(formRef.current));
+    setFastenerId(String(form.fastenerId ?? ""));
+    const full = parsePlanForm(form, d.units);
+    setErrors(full.ok ? null : full.errors);
+    // Stages do not change the estimate, so a half-typed stage list does not hold it back.
+    const parsed = full.ok ? full : parsePlanForm({ ...form, stages: "" }, d.units);
+    setStale(!parsed.ok);
+    if (!parsed.ok) return;
+    const fastener = d.choices.fasteners.find((f) => f.id === parsed.plan.fastenerId);
+    const gasket = d.choices.gaskets.find((g) => g.id === parsed.plan.gasketId);
+    if (!fastener || !gasket || !d.materials.head || !d.materials.block) return;
+    const misfit = gasketFitProblem(d.engine.boreMm, gasket.boreMm, (mm) => formatQuantity(mm, "length", d.units));
+    if (misfit) {
+      setErrors({ ...(full.ok ? {} : full.errors), gasketId: misfit });
+      return setStale(true);
+    }
+    const raw = assemblePlanInput({ engine: d.engine, plan: parsed.plan, fastener, gasket, head: d.materials.head, block: d.materials.block, sleeve: d.materials.sleeve });
+    setSlowPending(true);
+    // before the model has loaded (the first instant of the page), the server answers everything
+    const m = model.current;
+    setStud({ stiffnessNPerMm: m ? m.studStiffnessFor(raw) : (stud?.stiffnessNPerMm ?? null), byStretch: plannedByStretch(parsed.plan) });
+    if (!m) return fetchSlowParts(raw as PlanInput);
+    const input = m.validPlanInput(raw);
+    // the server words the model's own refusals
+    if (!input) return fetchSlowParts(raw as PlanInput);
+    if (lastFull.current) {
+      setView(m.withEvaluation(lastFull.current, input, d.units));
+      setProblems(null);
+    }
+    fetchSlowParts(input);
+  };
+
+  return useMemo(() => {
+    const stretchLine = model.current?.stretchLine;
+    const stretch = view && stud && stretchLine ? stretchLine(stud.byStretch ? "stretch" : "torque", view.estimate.tightening.preload.nominalN, view.torqueNm, stud.stiffnessNPerMm) : null;
+    // busy: the sweep and the scatter run shown are not yet these inputs' (the figures above them are)
+    return { onChange, formRef, errors, fastenerId, stale, busy: slowPending, view, problems, stretch };
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [view, problems, slowPending, errors, fastenerId, stale, stud]);
+}
