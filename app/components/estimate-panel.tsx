@@ -1,4 +1,4 @@
-import { lazy, Suspense, useEffect, useState } from "react";
+import { lazy, Suspense, useEffect, useRef, useState } from "react";
 import { CEILING_WORDS, rankChecks, type Status } from "~/lib/clamp";
 import type { EstimateView } from "~/lib/plan/estimate-view";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
@@ -44,6 +44,7 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
   const torque = (nm: number) => formatQuantity(nm, "torque", units);
   const [mounted, setMounted] = useState(false);
   useEffect(() => setMounted(true), []);
+  const announcement = useSettledAnnouncement(`${look.word}: ${v.headline}`, busy);
   const band = e.tightening.preload;
   const half = (band.maxN - band.minN) / 2 / band.nominalN;
   const totals = e.cylinders.reduce(
@@ -57,13 +58,24 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
     { clamp: 0, heat: 0, firing: 0, line: 0, body: 0 },
   );
   return (
-    <section aria-labelledby="estimate-title" aria-busy={busy} className={`space-y-4 ${busy ? "opacity-70" : ""}`}>
-      <h2 id="estimate-title" className="text-xl font-bold">
-        Estimate
-      </h2>
+    <section aria-labelledby="estimate-title" aria-busy={busy} className="space-y-4">
+      {/* progress without fading the figures: fading would drop the small text and the caution below contrast */}
+      <div className="flex flex-wrap items-baseline gap-3">
+        <h2 id="estimate-title" tabIndex={-1} className="text-xl font-bold">
+          Estimate
+        </h2>
+        {busy ? (
+          <span className="rounded border border-forge-500 bg-white px-2 py-0.5 text-sm font-medium text-forge-900" data-testid="recalculating">
+            ↻ Recalculating…
+          </span>
+        ) : null}
+      </div>
+      <p className="sr-only" aria-live="polite" aria-atomic="true" data-testid="verdict-announcement">
+        {announcement}
+      </p>
       <div className={`rounded border-2 px-4 py-3 ${look.tone}`} data-testid="weakest">
         <p className="text-sm font-medium">Verdict (the worst of every check below)</p>
-        <p className="text-2xl font-bold" aria-live="polite" data-testid="verdict">
+        <p className="text-2xl font-bold" data-testid="verdict">
           {look.icon} {look.word}: {v.headline}
         </p>
         <p className="text-sm tabular" data-testid="weakest-margin">
@@ -218,7 +230,7 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
 
       {mounted ? (
         <Suspense fallback={<p className="text-sm">Loading charts…</p>}>
-          <div className="grid gap-4 xl:grid-cols-2">
+          <div className="grid gap-4 xl:grid-cols-2 print:grid-cols-2">
             <figure className="h-72 rounded border border-forge-100 bg-white p-2">
               <CylinderChart view={view} units={units} />
             </figure>
@@ -284,6 +296,22 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
       ) : null}
     </section>
   );
+}
+
+/**
+ * The verdict to announce: said once the figures settle (not while an estimate is running) and only
+ * when it differs from what the page opened with or last said, so a screen reader hears the verdict,
+ * not every number.
+ */
+function useSettledAnnouncement(verdict: string, busy: boolean): string {
+  const last = useRef(verdict);
+  const [said, setSaid] = useState("");
+  useEffect(() => {
+    if (busy || verdict === last.current) return;
+    last.current = verdict;
+    setSaid(`Estimate updated. Verdict: ${verdict}`);
+  }, [busy, verdict]);
+  return said;
 }
 
 function Figure({ label, value, note, testId }: { label: string; value: string; note?: string; testId?: string }) {

@@ -201,7 +201,7 @@ export function PlanFields({ values, errors, choices, units, sleeved, engineProt
         <label htmlFor="f-notes" className="block text-sm font-medium text-forge-800">
           Notes
         </label>
-        <textarea id="f-notes" name="notes" defaultValue={values.notes} rows={3} className="mt-1 block w-full rounded border border-forge-300 bg-white px-3 py-2" />
+        <textarea id="f-notes" name="notes" defaultValue={values.notes} rows={3} className="mt-1 block w-full rounded border border-forge-500 bg-white px-3 py-2" />
       </div>
     </div>
   );

@@ -7,6 +7,7 @@ export function RoleRefusal({ error, who, backTo, backLabel }: { error: unknown;
   if (!forbidden) throw error;
   return (
     <div className="rounded border border-forge-300 bg-white p-6">
+      <title>Not open to your role · Sealwright</title>
       <h2 className="text-xl font-bold">Not open to your role</h2>
       <p className="mt-2 text-forge-700">
         {String(error.data)} {who}

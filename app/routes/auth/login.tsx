@@ -1,7 +1,7 @@
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/login";
 import { AuthFrame } from "~/components/auth-frame";
-import { Button, Field, FormError } from "~/components/form";
+import { Button, ErrorSummary, Field } from "~/components/form";
 import { listMemberships } from "~/models/user.server";
 import { authenticator, getUser, safeRedirect, SignInError, startSession } from "~/utils/auth.server";
 import { clientAddress } from "~/utils/client-address.server";
@@ -43,7 +43,7 @@ export default function Login({ actionData }: Route.ComponentProps) {
   return (
     <AuthFrame title="Sign in">
       <Form method="post" className="space-y-4">
-        <FormError message={actionData?.error} />
+        <ErrorSummary message={actionData?.error} answer={actionData} />
         <Field label="E-mail" name="email" type="email" autoComplete="email" required defaultValue={actionData?.email} />
         <Field label="Password" name="password" type="password" autoComplete="current-password" required />
         <Button type="submit" disabled={busy}>

@@ -2,7 +2,8 @@ import { data, Form, Link, redirect, useNavigation } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/signup";
 import { AuthFrame } from "~/components/auth-frame";
-import { Button, Field, fieldErrors, FormError } from "~/components/form";
+import { Button, ErrorSummary, Field } from "~/components/form";
+import { fieldErrors } from "~/utils/field-errors";
 import { createUserWithTeam, EmailTakenError } from "~/models/user.server";
 import { getUser, startSession } from "~/utils/auth.server";
 import { clientAddress } from "~/utils/client-address.server";
@@ -67,7 +68,7 @@ export default function SignUp({ actionData }: Route.ComponentProps) {
   return (
     <AuthFrame title="Create your shop">
       <Form method="post" className="space-y-4" noValidate>
-        <FormError message={actionData?.formError} />
+        <ErrorSummary errors={errors} message={actionData?.formError ?? (Object.keys(errors).length ? "The shop was not created: check the marked fields." : null)} answer={actionData} />
         <Field label="Your name" name="name" autoComplete="name" required defaultValue={values?.name} error={errors.name} />
         <Field label="E-mail" name="email" type="email" autoComplete="email" required defaultValue={values?.email} error={errors.email} />
         <Field label="Shop or team name" name="teamName" required defaultValue={values?.teamName} error={errors.teamName} hint="You become its owner and can invite builders and viewers." />

@@ -1,4 +1,4 @@
-import { data, Form, Link, redirect } from "react-router";
+import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/copy";
 import { Button, FormError } from "~/components/form";
 import { RoleRefusal } from "~/components/refusal";
@@ -9,7 +9,7 @@ import { engineChoices, requireEngine } from "~/models/engine.server";
 import { getGasket } from "~/models/library.server";
 import { copyPlanToEngine, requirePlan } from "~/models/plan.server";
 import { requireRole } from "~/utils/auth.server";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Copy ${data?.plan.name ?? "seal plan"} · Sealwright` }];
 
@@ -52,9 +52,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     : "The plan's gasket is no longer in the library.";
   if (misfit) return data({ error: `Not copied to “${target.name}”: ${misfit}` }, { status: 400 });
   const id = await copyPlanToEngine(team.id, user.id, plan, target.id);
-  return redirect(`/engines/${target.id}/plans/${id}`, {
-    headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: `“${plan.name}” copied from “${engine.name}”.` }) },
-  });
+  return redirectWithToast(request, `/engines/${target.id}/plans/${id}`, `“${plan.name}” copied from “${engine.name}”.`);
 }
 
 export default function CopyPlan({ loaderData, actionData }: Route.ComponentProps) {
