@@ -230,11 +230,11 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
 
       {mounted ? (
         <Suspense fallback={<p className="text-sm">Loading charts…</p>}>
-          <div className="grid gap-4 xl:grid-cols-2 print:grid-cols-2">
-            <figure className="h-72 rounded border border-forge-100 bg-white p-2">
+          <div className="grid grid-cols-1 gap-4 xl:grid-cols-2 print:grid-cols-2">
+            <figure className="h-72 min-w-0 rounded border border-forge-100 bg-white p-2">
               <CylinderChart view={view} units={units} />
             </figure>
-            <figure className="h-72 rounded border border-forge-100 bg-white p-2">
+            <figure className="h-72 min-w-0 rounded border border-forge-100 bg-white p-2">
               <SweepChart view={view} units={units} />
             </figure>
           </div>

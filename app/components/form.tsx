@@ -133,7 +133,17 @@ export function ErrorSummary({ errors = {}, message, answer, fieldId = (name) =>
         <ul className="mt-1 list-disc pl-5 text-sm">
           {entries.map(([name, text]) => (
             <li key={name}>
-              <a href={`#${fieldId(name)}`} className="underline">
+              <a
+                href={`#${fieldId(name)}`}
+                className="underline"
+                // with JavaScript, focus the field without a hash navigation (which would clear the answer)
+                onClick={(e) => {
+                  const field = document.getElementById(fieldId(name));
+                  if (!field) return;
+                  e.preventDefault();
+                  field.focus();
+                }}
+              >
                 {labels[name] ? `${labels[name]}: ` : ""}
                 {text}
               </a>
