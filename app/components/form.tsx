@@ -105,9 +105,22 @@ export function Button({ children, kind = "primary", ...rest }: React.ButtonHTML
  * whenever a new answer arrives (`answer` changes), so a keyboard or screen-reader user lands on it
  * instead of the top of the page; role="alert" announces it to those who stay where they were.
  */
-export function ErrorSummary({ errors = {}, message, answer, fieldId = (name) => `f-${name}` }: { errors?: Record<string, string>; message?: string | null; answer: unknown; fieldId?: (name: string) => string }) {
+export function ErrorSummary({
+  errors = {},
+  message,
+  answer,
+  fieldId = (name) => `f-${name}`,
+}: {
+  /** Field name → its message (or Conform's list of messages, of which the first is shown). */
+  errors?: Record<string, string | string[] | null | undefined>;
+  message?: string | null;
+  answer: unknown;
+  fieldId?: (name: string) => string;
+}) {
   const ref = useRef<HTMLDivElement>(null);
-  const entries = Object.entries(errors).filter(([name]) => name !== "form");
+  const entries = Object.entries(errors)
+    .map(([name, text]) => [name, Array.isArray(text) ? text[0] : text] as const)
+    .filter((e): e is readonly [string, string] => e[0] !== "form" && e[0] !== "" && Boolean(e[1]));
   const shown = Boolean(message) || entries.length > 0;
   // Field labels are read from the page once it runs, so each line names its field as the form does.
   const [labels, setLabels] = useState<Record<string, string>>({});

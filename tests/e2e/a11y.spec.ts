@@ -1,5 +1,5 @@
 import { expect, test, type Page } from "@playwright/test";
-import { screenshot, seriousViolations, signIn } from "./fixtures";
+import { seriousViolations, signIn, signOut } from "./fixtures";
 
 // Issue 16 kept fixed: what a keyboard, screen-reader, zoomed or printing builder meets. (Axe on every
 // page the crawl reaches, as each role, runs in crawl.spec.ts; the error states are scanned here.)
@@ -131,6 +131,7 @@ test("every form answers a refusal with a focused error summary, and the error p
     expect(await page.title()).toMatch(/ · Sealwright$/);
     expect(await seriousViolations(page)).toEqual([]);
   }
+  await signOut(page);
   await signIn(page, "viewer@example.com");
   const response = await page.goto(`${engineUrl}/edit`);
   expect(response?.status()).toBe(403);
@@ -169,7 +170,6 @@ test("at 320 px (400 % zoom) the plan editor, chamber and new-engine pages reflo
     }));
     expect(widths.scroll, `${url}: ${widths.wide.join(" | ")}`).toBeLessThanOrEqual(widths.viewport + 1);
   }
-  await screenshot(page, "reflow-320-new-engine");
 });
 
 test("without JavaScript, picking wet sleeves shows the sleeve fields at once", async ({ browser, baseURL }) => {
