@@ -131,6 +131,7 @@ test("every form answers a refusal with a focused error summary, and the error p
     expect(await page.title()).toMatch(/ · Sealwright$/);
     expect(await seriousViolations(page)).toEqual([]);
   }
+  await page.goto("/dashboard");
   await signOut(page);
   await signIn(page, "viewer@example.com");
   const response = await page.goto(`${engineUrl}/edit`);
