@@ -120,7 +120,8 @@ for (const [role, email] of [
   ["viewer", "viewer@example.com"],
 ] as const) {
   test(`as the ${role}, every page reachable from the dashboard answers, offers no refused link, fits a phone and passes axe`, async ({ page, baseURL }) => {
-    test.setTimeout(8 * 60_000);
+    // the crawl plus an axe scan of each kind of page: about two minutes a role on a quiet machine
+    test.setTimeout(15 * 60_000);
     await page.setViewportSize(PHONE);
     await signIn(page, email);
     const { findings, visited, scanned, impacts } = await crawl(page, new URL(baseURL!).origin);

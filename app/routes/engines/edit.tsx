@@ -2,13 +2,13 @@ import { data } from "react-router";
 import type { Route } from "./+types/edit";
 import { EngineForm } from "~/components/engine-form";
 import { useSeedKey } from "~/components/form";
-import { RoleRefusal } from "~/components/refusal";
+import { REFUSAL_TITLE, RoleRefusal } from "~/components/refusal";
 import { engineFormStep, engineToForm, type Units } from "~/lib/engine";
 import { archiveEngine, EngineInputError, listMaterialOptions, requireEngine, updateEngine } from "~/models/engine.server";
 import { requireRole } from "~/utils/auth.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
-export const meta: Route.MetaFunction = () => [{ title: "Edit engine · Sealwright" }];
+export const meta: Route.MetaFunction = ({ error }) => [{ title: error ? REFUSAL_TITLE : "Edit engine · Sealwright" }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team } = await requireRole(request, "builder");

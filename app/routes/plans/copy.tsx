@@ -1,7 +1,7 @@
 import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/copy";
 import { Button, FormError } from "~/components/form";
-import { RoleRefusal } from "~/components/refusal";
+import { REFUSAL_TITLE, RoleRefusal } from "~/components/refusal";
 import { gasketFitProblem } from "~/lib/plan/assemble";
 import { CopyPlanSchema } from "~/lib/plan/form";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
@@ -11,7 +11,7 @@ import { copyPlanToEngine, requirePlan } from "~/models/plan.server";
 import { requireRole } from "~/utils/auth.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
-export const meta: Route.MetaFunction = ({ data }) => [{ title: `Copy ${data?.plan.name ?? "seal plan"} · Sealwright` }];
+export const meta: Route.MetaFunction = ({ data, error }) => [{ title: error ? REFUSAL_TITLE : `Copy ${data?.plan.name ?? "seal plan"} · Sealwright` }];
 
 /** The other engines of the team, each with whether the plan's gasket fits its bore (and why not). */
 async function targets(teamId: number, engineId: number, gasketBoreMm: number | null, units: UnitSystem) {

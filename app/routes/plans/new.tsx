@@ -2,7 +2,7 @@ import { useState } from "react";
 import { data, Form } from "react-router";
 import type { Route } from "./+types/new";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
-import { RoleRefusal } from "~/components/refusal";
+import { REFUSAL_TITLE, RoleRefusal } from "~/components/refusal";
 import { Button, ErrorSummary, FormError } from "~/components/form";
 import { MakerTorque } from "~/components/maker-torque";
 import { PlanFields } from "~/components/plan-form";
@@ -18,7 +18,7 @@ import { requireRole } from "~/utils/auth.server";
 import { previewPlan } from "~/utils/plan-actions.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
-export const meta: Route.MetaFunction = () => [{ title: "New seal plan · Sealwright" }];
+export const meta: Route.MetaFunction = ({ error }) => [{ title: error ? REFUSAL_TITLE : "New seal plan · Sealwright" }];
 
 // this page shows the full caution beside its figures (the footer leaves it out)
 export const handle = CAUTION_HANDLE;
