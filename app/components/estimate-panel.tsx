@@ -89,7 +89,8 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
         </p>
       </div>
 
-      <div className="overflow-x-auto">
+      {/* a table wider than a phone scrolls in its own box, which the keyboard can reach to scroll */}
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Every check, worst first">
         <table className="w-full border-collapse bg-white text-left text-sm" data-testid="checks">
           <caption className="mb-1 text-left font-bold">Every check, worst first</caption>
           <thead className="bg-forge-100">
@@ -170,7 +171,7 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
         />
       </dl>
 
-      <div className="overflow-x-auto">
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Per cylinder">
         <table className="w-full border-collapse bg-white text-right text-sm tabular" data-testid="cylinders">
           <caption className="mb-1 text-left font-bold">Per cylinder, nominal preload: clamp + heat and settling − firing = left on the gasket (seal line + body)</caption>
           <thead className="bg-forge-100">
@@ -243,7 +244,7 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
 
       <details className="text-sm" data-testid="sweep-table">
         <summary className="cursor-pointer font-medium">The torque sweep as a table</summary>
-        <div className="mt-1 overflow-x-auto">
+        <div className="mt-1 overflow-x-auto" tabIndex={0} role="region" aria-label="The torque sweep">
           <table className="w-full border-collapse bg-white text-right tabular">
             <caption className="sr-only">Over torque: weakest seal margin, seal gained per +10 % torque, the stud's use of its yield and the washer on the head</caption>
             <thead className="bg-forge-100">

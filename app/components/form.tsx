@@ -138,7 +138,7 @@ export function ErrorSummary({
   if (!shown) return null;
   const count = entries.length;
   return (
-    <div ref={ref} tabIndex={-1} role="alert" aria-labelledby="error-summary-title" data-testid="error-summary" className="mb-4 rounded border-2 border-failed bg-failed-50 px-4 py-3 text-failed">
+    <div ref={ref} tabIndex={-1} role="alert" data-testid="error-summary" className="mb-4 rounded border-2 border-failed bg-failed-50 px-4 py-3 text-failed">
       <p id="error-summary-title" className="font-bold">
         ✖ {message ?? `Nothing was saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention.`}
       </p>
