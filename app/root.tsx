@@ -69,6 +69,7 @@ export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
   }
   return (
     <main className="mx-auto max-w-xl p-8">
+      <title>{`${title} · Sealwright`}</title>
       <h1 className="text-3xl font-bold">{title}</h1>
       <p className="mt-3 text-lg">{detail}</p>
       <p className="mt-6">

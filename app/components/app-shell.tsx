@@ -20,7 +20,19 @@ export function AppShell({ user, team, role, memberships, nav, children }: Shell
   const location = useLocation();
   return (
     <div className="flex min-h-screen flex-col">
-      <header className="no-print bg-forge-900 text-forge-50">
+      {/* the first Tab stop: past the header and its menu, straight to the page */}
+      <a href="#main" className="no-print sr-only z-50 rounded bg-white px-4 py-2 font-bold text-forge-950 focus:not-sr-only focus:absolute focus:left-2 focus:top-2">
+        Skip to the page
+      </a>
+      {/* Escape closes the phone menu and hands focus back to its button */}
+      <header
+        className="no-print bg-forge-900 text-forge-50 on-dark"
+        onKeyDown={(e) => {
+          if (e.key !== "Escape" || !open) return;
+          setOpen(false);
+          document.getElementById("menu-button")?.focus();
+        }}
+      >
         <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">
           <NavLink to="/dashboard" className="flex items-center gap-2 text-xl font-bold tracking-wide">
             <img src="/favicon.svg" alt="" className="h-7 w-7" />
@@ -80,7 +92,9 @@ export function AppShell({ user, team, role, memberships, nav, children }: Shell
           </ul>
         </nav>
       </header>
-      <main className="mx-auto w-full max-w-7xl flex-1 px-4 py-6">{children}</main>
+      <main id="main" tabIndex={-1} className="mx-auto w-full min-w-0 max-w-7xl flex-1 px-4 py-6 focus:outline-none">
+        {children}
+      </main>
       {/* the caution once per page: in full beside the figures where a page has them, else here */}
       {pageShowsCaution(useMatches()) ? null : (
         <footer className="border-t border-forge-100 bg-white px-4 py-3 text-center text-xs text-forge-700">

@@ -1,9 +1,9 @@
 import type { ReactNode } from "react";
 import { CAUTION_SHORT } from "./caution";
-import { ToastLine } from "./toast-line";
+import { ToastLine, type ToastMessage } from "./toast-line";
 
 // The plain frame around sign-in and sign-up: product name, one card, the caution line.
-export function AuthFrame({ title, children }: { title: string; children: ReactNode }) {
+export function AuthFrame({ title, toast, children }: { title: string; toast?: ToastMessage | null; children: ReactNode }) {
   return (
     <div className="flex min-h-screen flex-col bg-forge-900">
       <main className="flex flex-1 items-center justify-center p-4">
@@ -15,7 +15,7 @@ export function AuthFrame({ title, children }: { title: string; children: ReactN
           <h1 className="mt-6 text-xl font-bold">{title}</h1>
           <div className="mt-4">
             {/* e.g. "Password changed" after a reset lands here */}
-            <ToastLine />
+            <ToastLine toast={toast} />
             {children}
           </div>
         </div>

@@ -1,6 +1,6 @@
 import { useState, type ReactNode } from "react";
 import { Form, Link } from "react-router";
-import { Button, Field, FormError, SelectField } from "~/components/form";
+import { Button, ErrorSummary, Field, SelectField } from "~/components/form";
 import { StudTable } from "~/components/stud-table";
 import { MATERIAL_KIND_LABELS } from "~/lib/library/schemas";
 import {
@@ -24,6 +24,8 @@ export interface MaterialChoice {
 interface Props {
   values: EngineFormValues;
   errors: Record<string, string>;
+  /** The action's last answer: a new one moves focus to the error summary. */
+  answer?: unknown;
   materials: MaterialChoice[];
   units: Units;
   submitLabel: string;
@@ -34,7 +36,7 @@ interface Props {
 
 // The engine record form, in the person's units. Works as a plain post without JavaScript:
 // the stud editor's buttons post back and the server answers with the changed rows.
-export function EngineForm({ values, errors, materials, units, submitLabel, cancelTo, canArchive }: Props) {
+export function EngineForm({ values, errors, answer, materials, units, submitLabel, cancelTo, canArchive }: Props) {
   const f = values.fields;
   const [layout, setLayout] = useState(f.layout ?? "inline");
   const [cylinders, setCylinders] = useState(f.cylinders ?? "");
@@ -52,11 +54,7 @@ export function EngineForm({ values, errors, materials, units, submitLabel, canc
 
   return (
     <Form method="post" noValidate className="space-y-6">
-      {count > 0 ? (
-        <FormError
-          message={`The engine was not saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention. ${Object.values(errors)[0]}.`}
-        />
-      ) : null}
+      <ErrorSummary errors={errors} message={count > 0 ? `The engine was not saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention.` : null} answer={answer} />
       <SaveOrCancel submitLabel={submitLabel} cancelTo={cancelTo} />
       <p className="text-sm text-forge-700">
         Figures are in your units ({units === "imperial" ? "inches, thou, psi, °F" : "millimetres, kPa, bar, °C"}). A figure may carry its own unit — “3.386 in”,
@@ -96,7 +94,7 @@ export function EngineForm({ values, errors, materials, units, submitLabel, canc
         {n("blockDepthToThreadMm", `Block depth to the engaged thread (${len})`, { hint: "Deck to the first engaged thread; 0 if the thread starts at the deck." })}
       </Fieldset>
 
-      <Fieldset legend="Materials and sleeves">
+      <Fieldset legend="Materials and sleeves" className="group/sleeves">
         <MaterialSelect label="Block (deck) material" name="blockMaterialId" value={f.blockMaterialId} error={errors.blockMaterialId} materials={materials} kinds={CASTING_KINDS} />
         <MaterialSelect label="Head material" name="headMaterialId" value={f.headMaterialId} error={errors.headMaterialId} materials={materials} kinds={CASTING_KINDS} />
         <SelectField label="Sleeves" name="sleeveKind" value={sleeveKind} onChange={(e) => setSleeveKind(e.target.value)} error={errors.sleeveKind}>
@@ -106,13 +104,13 @@ export function EngineForm({ values, errors, materials, units, submitLabel, canc
             </option>
           ))}
         </SelectField>
-        {sleeveKind !== "none" ? (
-          <>
-            <MaterialSelect label="Sleeve material" name="sleeveMaterialId" value={f.sleeveMaterialId} error={errors.sleeveMaterialId} materials={materials} kinds={SLEEVE_KINDS_OF_MATERIAL} />
-            {n("sleeveWallMm", `Sleeve wall at the top (${len})`)}
-            {sleeveKind === "wet-mid" ? n("sleeveSupportLengthMm", `Support length, top to seat (${len})`) : null}
-          </>
-        ) : null}
+        {/* Shown by CSS from the picked sleeve kind, so they appear before and without JavaScript too;
+            the server ignores them for an engine without sleeves. */}
+        <div className="group-has-[#f-sleeveKind_option[value=none]:checked]/sleeves:hidden">
+          <MaterialSelect label="Sleeve material" name="sleeveMaterialId" value={f.sleeveMaterialId} error={errors.sleeveMaterialId} materials={materials} kinds={SLEEVE_KINDS_OF_MATERIAL} />
+        </div>
+        {n("sleeveWallMm", `Sleeve wall at the top (${len})`, { className: "group-has-[#f-sleeveKind_option[value=none]:checked]/sleeves:hidden" })}
+        {n("sleeveSupportLengthMm", `Support length, top to seat (${len})`, { className: "hidden group-has-[#f-sleeveKind_option[value=wet-mid]:checked]/sleeves:block" })}
         {n("sleeveProtrusionMm", `Sleeve protrusion as machined (${small})`, {
           hint: `Sleeve top above the deck; −0.5 to 1 mm${units === "imperial" ? " (−20 to 39 thou)" : ""}. 0 without sleeves.`,
         })}
@@ -274,9 +272,9 @@ function SaveOrCancel({ submitLabel, cancelTo }: { submitLabel: string; cancelTo
   );
 }
 
-function Fieldset({ legend, children }: { legend: string; children: ReactNode }) {
+function Fieldset({ legend, children, className = "" }: { legend: string; children: ReactNode; className?: string }) {
   return (
-    <fieldset className="rounded border border-forge-100 bg-white p-4">
+    <fieldset className={`min-w-0 rounded border border-forge-100 bg-white p-4 ${className}`}>
       <legend className="px-1 text-xl font-bold">{legend}</legend>
       <div className="grid gap-4 md:grid-cols-2 lg:grid-cols-3">{children}</div>
     </fieldset>

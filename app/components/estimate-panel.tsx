@@ -1,4 +1,4 @@
-import { lazy, Suspense, useEffect, useState } from "react";
+import { lazy, Suspense, useEffect, useRef, useState } from "react";
 import type { Status } from "~/lib/clamp";
 // the words and the order from their own modules: this panel needs no model code in the browser
 import { CEILING_WORDS } from "~/lib/clamp/ceiling-words";
@@ -42,6 +42,7 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
   const torque = (nm: number) => formatQuantity(nm, "torque", units);
   const [mounted, setMounted] = useState(false);
   useEffect(() => setMounted(true), []);
+  const announcement = useSettledAnnouncement(`${look.word}: ${v.headline}`, busy);
   const band = e.tightening.preload;
   const half = (band.maxN - band.minN) / 2 / band.nominalN;
   const totals = e.cylinders.reduce(
@@ -55,13 +56,24 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
     { clamp: 0, heat: 0, firing: 0, line: 0, body: 0 },
   );
   return (
-    <section aria-labelledby="estimate-title" aria-busy={busy} className={`space-y-4 ${busy ? "opacity-70" : ""}`}>
-      <h2 id="estimate-title" className="text-xl font-bold">
-        Estimate
-      </h2>
+    <section aria-labelledby="estimate-title" aria-busy={busy} className="space-y-4">
+      {/* progress without fading the figures: fading would drop the small text and the caution below contrast */}
+      <div className="flex flex-wrap items-baseline gap-3">
+        <h2 id="estimate-title" tabIndex={-1} className="text-xl font-bold">
+          Estimate
+        </h2>
+        {busy ? (
+          <span className="rounded border border-forge-500 bg-white px-2 py-0.5 text-sm font-medium text-forge-900" data-testid="recalculating">
+            ↻ Recalculating…
+          </span>
+        ) : null}
+      </div>
+      <p className="sr-only" aria-live="polite" aria-atomic="true" data-testid="verdict-announcement">
+        {announcement}
+      </p>
       <div className={`rounded border-2 px-4 py-3 ${look.tone}`} data-testid="weakest">
         <p className="text-sm font-medium">Verdict (the worst of every check below)</p>
-        <p className="text-2xl font-bold" aria-live="polite" data-testid="verdict">
+        <p className="text-2xl font-bold" data-testid="verdict">
           {look.icon} {look.word}: {v.headline}
         </p>
         <p className="text-sm tabular" data-testid="weakest-margin">
@@ -75,7 +87,8 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
         </p>
       </div>
 
-      <div className="overflow-x-auto">
+      {/* a table wider than a phone scrolls in its own box, which the keyboard can reach to scroll */}
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Every check, worst first">
         <table className="w-full border-collapse bg-white text-left text-sm" data-testid="checks">
           <caption className="mb-1 text-left font-bold">Every check, worst first</caption>
           <thead className="bg-forge-100">
@@ -156,7 +169,7 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
         />
       </dl>
 
-      <div className="overflow-x-auto">
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Per cylinder">
         <table className="w-full border-collapse bg-white text-right text-sm tabular" data-testid="cylinders">
           <caption className="mb-1 text-left font-bold">Per cylinder, nominal preload: clamp + heat and settling − firing = left on the gasket (seal line + body)</caption>
           <thead className="bg-forge-100">
@@ -216,11 +229,11 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
 
       {mounted ? (
         <Suspense fallback={<p className="text-sm">Loading charts…</p>}>
-          <div className="grid gap-4 xl:grid-cols-2">
-            <figure className="h-72 rounded border border-forge-100 bg-white p-2">
+          <div className="grid grid-cols-1 gap-4 xl:grid-cols-2 print:grid-cols-2">
+            <figure className="h-72 min-w-0 rounded border border-forge-100 bg-white p-2">
               <CylinderChart view={view} units={units} />
             </figure>
-            <figure className="h-72 rounded border border-forge-100 bg-white p-2">
+            <figure className="h-72 min-w-0 rounded border border-forge-100 bg-white p-2">
               <SweepChart view={view} units={units} />
             </figure>
           </div>
@@ -229,7 +242,7 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
 
       <details className="text-sm" data-testid="sweep-table">
         <summary className="cursor-pointer font-medium">The torque sweep as a table</summary>
-        <div className="mt-1 overflow-x-auto">
+        <div className="mt-1 overflow-x-auto" tabIndex={0} role="region" aria-label="The torque sweep">
           <table className="w-full border-collapse bg-white text-right tabular">
             <caption className="sr-only">Over torque: weakest seal margin, seal gained per +10 % torque, the stud's use of its yield and the washer on the head</caption>
             <thead className="bg-forge-100">
@@ -282,6 +295,22 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
       ) : null}
     </section>
   );
+}
+
+/**
+ * The verdict to announce: said once the figures settle (not while an estimate is running) and only
+ * when it differs from what the page opened with or last said, so a screen reader hears the verdict,
+ * not every number.
+ */
+function useSettledAnnouncement(verdict: string, busy: boolean): string {
+  const last = useRef(verdict);
+  const [said, setSaid] = useState("");
+  useEffect(() => {
+    if (busy || verdict === last.current) return;
+    last.current = verdict;
+    setSaid(`Estimate updated. Verdict: ${verdict}`);
+  }, [busy, verdict]);
+  return said;
 }
 
 function Figure({ label, value, note, testId }: { label: string; value: string; note?: string; testId?: string }) {

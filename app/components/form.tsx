@@ -1,4 +1,4 @@
-import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes } from "react";
+import { useEffect, useRef, useState, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes } from "react";
 
 interface FieldProps extends InputHTMLAttributes<HTMLInputElement> {
   label: string;
@@ -21,7 +21,7 @@ export function Field({ label, name, error, hint, id, className = "", ...input }
         name={name}
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy || undefined}
-        className="mt-1 block w-full rounded border border-forge-300 bg-white px-3 py-2 text-base tabular aria-[invalid]:border-failed"
+        className="mt-1 block w-full rounded border border-forge-500 bg-white px-3 py-2 text-base tabular aria-[invalid]:border-failed"
         {...input}
       />
       {hint ? (
@@ -64,7 +64,7 @@ export function SelectField({ label, name, error, options, children, ...rest }: 
         name={name}
         aria-invalid={error ? true : undefined}
         aria-describedby={error ? `${id}-error` : undefined}
-        className="mt-1 block w-full rounded border border-forge-300 bg-white px-3 py-2 text-base aria-[invalid]:border-failed"
+        className="mt-1 block w-full rounded border border-forge-500 bg-white px-3 py-2 text-base aria-[invalid]:border-failed"
         {...rest}
       >
         {options?.map(([v, text]) => (
@@ -92,7 +92,7 @@ export function Button({ children, kind = "primary", ...rest }: React.ButtonHTML
   const look =
     kind === "primary"
       ? "bg-copper-700 text-white hover:bg-copper-600"
-      : "border border-forge-300 bg-white text-forge-900 hover:bg-forge-100";
+      : "border border-forge-500 bg-white text-forge-900 hover:bg-forge-100";
   return (
     <button className={`rounded px-4 py-2 font-medium ${look} disabled:opacity-60`} {...rest}>
       {children}
@@ -100,12 +100,83 @@ export function Button({ children, kind = "primary", ...rest }: React.ButtonHTML
   );
 }
 
-/** zod issues → first message per field name. */
-export function fieldErrors(issues: { path: PropertyKey[]; message: string }[]): Record<string, string> {
-  const out: Record<string, string> = {};
-  for (const issue of issues) {
-    const key = issue.path.map(String).join(".");
-    out[key] ??= issue.message;
-  }
-  return out;
+/**
+ * The answer to a refused post: what went wrong and a link to each marked field. It takes focus
+ * whenever a new answer arrives (`answer` changes), so a keyboard or screen-reader user lands on it
+ * instead of the top of the page; role="alert" announces it to those who stay where they were.
+ */
+export function ErrorSummary({
+  errors = {},
+  message,
+  answer,
+  fieldId = (name) => `f-${name}`,
+}: {
+  /** Field name → its message (or Conform's list of messages, of which the first is shown). */
+  errors?: Record<string, string | string[] | null | undefined>;
+  message?: string | null;
+  answer: unknown;
+  fieldId?: (name: string) => string;
+}) {
+  const ref = useRef<HTMLDivElement>(null);
+  const entries = Object.entries(errors)
+    .map(([name, text]) => [name, Array.isArray(text) ? text[0] : text] as const)
+    .filter((e): e is readonly [string, string] => e[0] !== "form" && e[0] !== "" && Boolean(e[1]));
+  const shown = Boolean(message) || entries.length > 0;
+  // Field labels are read from the page once it runs, so each line names its field as the form does.
+  const [labels, setLabels] = useState<Record<string, string>>({});
+  useEffect(() => {
+    if (!shown) return;
+    ref.current?.focus();
+    const found: Record<string, string> = {};
+    for (const [name] of entries) {
+      const text = document.querySelector(`label[for="${fieldId(name)}"]`)?.textContent?.trim();
+      if (text) found[name] = text;
+    }
+    setLabels(found);
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [answer, shown]);
+  if (!shown) return null;
+  const count = entries.length;
+  return (
+    <div ref={ref} tabIndex={-1} role="alert" data-testid="error-summary" className="mb-4 rounded border-2 border-failed bg-failed-50 px-4 py-3 text-failed">
+      <p id="error-summary-title" className="font-bold">
+        ✖ {message ?? `Nothing was saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention.`}
+      </p>
+      {count > 0 ? (
+        <ul className="mt-1 list-disc pl-5 text-sm">
+          {entries.map(([name, text]) => (
+            <li key={name}>
+              <a
+                href={`#${fieldId(name)}`}
+                className="underline"
+                // with JavaScript, focus the field without a hash navigation (which would clear the answer)
+                onClick={(e) => {
+                  const field = document.getElementById(fieldId(name));
+                  if (!field) return;
+                  e.preventDefault();
+                  field.focus();
+                }}
+              >
+                {labels[name] ? `${labels[name]}: ` : ""}
+                {text}
+              </a>
+            </li>
+          ))}
+        </ul>
+      ) : null}
+    </div>
+  );
 }
+
+/**
+ * A key for a form that stays mounted across answers (so focus stays where it was) and is re-seeded
+ * only when the server sent back values it changed itself (a stud pattern, an added row): pass the
+ * values and whether this answer re-seeds.
+ */
+export function useSeedKey(values: unknown, reseed: boolean): string {
+  const key = useRef(JSON.stringify(values));
+  if (reseed) key.current = JSON.stringify(values);
+  return key.current;
+}
+
+export { fieldErrors } from "~/utils/field-errors";

@@ -22,6 +22,30 @@ const FORGE = "#2b4456";
 const FAILED = "#a32119";
 const HELD = "#1b6e48";
 
+const OUTLINE = "#0e1820";
+
+/** Diagonal white hatching over a colour: a "Short" bar differs from its neighbours by more than hue. */
+function hatched(color: string): CanvasPattern | string {
+  if (typeof document === "undefined") return color;
+  const tile = document.createElement("canvas");
+  tile.width = tile.height = 8;
+  const ctx = tile.getContext("2d");
+  if (!ctx) return color;
+  ctx.fillStyle = color;
+  ctx.fillRect(0, 0, 8, 8);
+  ctx.strokeStyle = "#ffffff";
+  ctx.lineWidth = 2;
+  ctx.beginPath();
+  ctx.moveTo(0, 8);
+  ctx.lineTo(8, 0);
+  ctx.moveTo(-2, 2);
+  ctx.lineTo(2, -2);
+  ctx.moveTo(6, 10);
+  ctx.lineTo(10, 6);
+  ctx.stroke();
+  return ctx.createPattern(tile, "repeat") ?? color;
+}
+
 /** Per-cylinder seal-line load left under firing (hot, settled) against what the seal needs. */
 export function CylinderChart({ view, units }: { view: EstimateView; units: UnitSystem }) {
   const unit = unitFor("force", units);
@@ -34,8 +58,15 @@ export function CylinderChart({ view, units }: { view: EstimateView; units: Unit
       data={{
         labels: cyl.map((c) => `Cyl ${c.cylinder}`),
         datasets: [
-          { label: `Seal line, hot and fired (${unit})`, data: cyl.map((c) => f(c.remainingSealLineHotSettledN)), backgroundColor: cyl.map((c) => (c.sealMarginNominal < 1 ? FAILED : COPPER)) },
-          { label: `Seal line needs (${unit})`, data: cyl.map((c) => f(Math.max(c.requiredOperatingN, c.requiredSeatingN))), backgroundColor: FORGE },
+          // every bar outlined in near-black (well over 3:1 on the white chart), a short one hatched too
+          {
+            label: `Seal line, hot and fired (${unit}; hatched: short)`,
+            data: cyl.map((c) => f(c.remainingSealLineHotSettledN)),
+            backgroundColor: cyl.map((c) => (c.sealMarginNominal < 1 ? hatched(FAILED) : COPPER)),
+            borderColor: OUTLINE,
+            borderWidth: 1.5,
+          },
+          { label: `Seal line needs (${unit})`, data: cyl.map((c) => f(Math.max(c.requiredOperatingN, c.requiredSeatingN))), backgroundColor: FORGE, borderColor: OUTLINE, borderWidth: 1.5 },
         ],
       }}
       options={{ responsive: true, maintainAspectRatio: false, animation: false, plugins: { legend: { position: "bottom", labels: { boxWidth: 12, font: { size: 10 } } } }, scales: { y: { beginAtZero: true, title: { display: true, text: unit } } } }}

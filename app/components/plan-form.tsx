@@ -120,7 +120,7 @@ export function PlanFields({ values, errors, choices, units, sleeved, engineProt
       <fieldset className="min-w-0 space-y-3 rounded border border-forge-100 p-3">
         <legend className="px-1 font-bold">Sealing details</legend>
         <SelectField label="Wire ring" name="wireLocation" defaultValue={values.wireLocation} error={errors.wireLocation} options={Object.entries(WIRE_LABEL)} />
-        <div className="grid grid-cols-2 gap-3">
+        <div className="grid gap-3 sm:grid-cols-2">
           <Field label={`Wire projection (${smallUnit})`} name="wireProjection" inputMode="decimal" defaultValue={values.wireProjection} error={errors.wireProjection} hint="How far the wire stands above its face." />
           <Field label={`Receiver groove depth (${smallUnit})`} name="receiverGrooveDepth" inputMode="decimal" defaultValue={values.receiverGrooveDepth} error={errors.receiverGrooveDepth} hint="The groove opposite the wire; 0 for none." />
         </div>
@@ -153,7 +153,7 @@ export function PlanFields({ values, errors, choices, units, sleeved, engineProt
             ⚠ {lubeWarning}
           </p>
         ) : null}
-        <div className="grid grid-cols-2 gap-3">
+        <div className="grid gap-3 sm:grid-cols-2">
           <Field
             label="Thread friction"
             name="threadFriction"
@@ -188,20 +188,20 @@ export function PlanFields({ values, errors, choices, units, sleeved, engineProt
             hint={`What the stretch gauge reads on the stud at the final pull. ${fastener?.makerStretchMm ? `The maker's figure for this stud: ${formatQuantity(fastener.makerStretchMm, "smallLength", units, { decimals: units === "metric" ? 3 : 1 })}.` : "No maker's stretch figure is recorded for this stud."} Blank: plan by torque and check the stretch.`}
           />
         </div>
-        <div className="grid grid-cols-2 gap-3">
+        <div className="grid gap-3 sm:grid-cols-2">
           <Field label={`Final torque (${torqueUnit})`} name="torque" inputMode="decimal" defaultValue={values.torque} error={errors.torque} required hint={method === "stretch-measured" ? "The torque you expect to reach the stretch." : undefined} />
           <Field label={`Stages (${torqueUnit})`} name="stages" defaultValue={values.stages} error={errors.stages} hint="Rising, ending at the final torque, commas between them. With decimal commas, separate the stages with semicolons: 54,5; 108; 156." />
         </div>
         {stretch ? <StretchSentence line={stretch} units={units} makerStretchMm={fastener?.makerStretchMm ?? null} /> : null}
       </fieldset>
-      <div className="grid grid-cols-2 gap-3">
+      <div className="grid gap-3 sm:grid-cols-2">
         <Field label="Target seal margin" name="targetMargin" inputMode="decimal" defaultValue={values.targetMargin} error={errors.targetMargin} hint="1 = just enough clamp on the seal, hot and under firing; 1.5 leaves half as much again in hand." />
       </div>
       <div>
         <label htmlFor="f-notes" className="block text-sm font-medium text-forge-800">
           Notes
         </label>
-        <textarea id="f-notes" name="notes" defaultValue={values.notes} rows={3} className="mt-1 block w-full rounded border border-forge-300 bg-white px-3 py-2" />
+        <textarea id="f-notes" name="notes" defaultValue={values.notes} rows={3} className="mt-1 block w-full rounded border border-forge-500 bg-white px-3 py-2" />
       </div>
     </div>
   );

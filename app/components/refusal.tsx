@@ -1,5 +1,8 @@
 import { isRouteErrorResponse, Link } from "react-router";
 
+/** The page title a refused page carries (its route's meta gives it when the page answers an error). */
+export const REFUSAL_TITLE = "Not open to your role · Sealwright";
+
 // The kind answer to a 403 inside the engine page (its header and tabs stay): what was refused,
 // who may do it, and the way back. Other errors go on to the engine page's own boundary.
 export function RoleRefusal({ error, who, backTo, backLabel }: { error: unknown; who: string; backTo: string; backLabel: string }) {

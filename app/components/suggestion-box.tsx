@@ -8,7 +8,7 @@ export function SuggestionBox({ suggestion, units, canEdit }: { suggestion: Sugg
   const s = suggestion;
   return (
     <section aria-labelledby="suggest-title" className={`rounded border-2 p-4 ${s.reachable ? "border-held bg-held-50" : "border-caution bg-caution-50"}`} data-testid="suggestion">
-      <h2 id="suggest-title" className="font-bold">
+      <h2 id="suggest-title" tabIndex={-1} className="font-bold">
         {s.reachable ? "✔ Suggested torque" : "⚠ No torque reaches the target"}
       </h2>
       <p className="mt-1">{s.summary}</p>

@@ -1,4 +1,4 @@
-import { createCookieSessionStorage } from "react-router";
+import { createCookieSessionStorage, redirect } from "react-router";
 import { cookieIsSecure } from "./env.server";
 import { sessionSecret } from "./session.server";
 
@@ -32,4 +32,11 @@ export async function readToast(request: Request): Promise<{ toast: Toast | null
   const session = await storage().getSession(request.headers.get("Cookie"));
   const toast = session.get("toast") ?? null;
   return { toast, setCookie: toast ? await storage().destroySession(session) : null };
+}
+
+/** A redirect that leaves a "done" (or "problem") line for the next page: the one way actions say so. */
+export async function redirectWithToast(request: Request, to: string, message: string, kind: Toast["kind"] = "done", init: ResponseInit = {}): Promise<Response> {
+  const headers = new Headers(init.headers);
+  headers.append("Set-Cookie", await flashToast(request, { kind, message }));
+  return redirect(to, { ...init, headers });
 }

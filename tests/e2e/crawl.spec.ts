@@ -1,10 +1,13 @@
 import { expect, test, type Page } from "@playwright/test";
+import AxeBuilder from "@axe-core/playwright";
 import { screenshot, signIn } from "./fixtures";
 
 // A link crawler over the demo shop: as each role, start at the dashboard and follow every link
 // (<a href>) and every GET form (submitted with the values it shows) within the app, breadth-first.
 // It fails on any page that answers 404 or 5xx, on any link that answers 403 (a role must not be
 // shown a link it may not follow), and, at a phone's 390 px, on any page wider than the screen.
+// Axe scans the first page of each kind (ids and queries folded: /engines/:id/plans/:id) as each role
+// and fails on serious or critical violations; every impact is counted for the audit figures.
 
 const PHONE = { width: 390, height: 844 };
 const MAX_PAGES = 300;
@@ -47,7 +50,16 @@ function key(url: URL): string {
   return url.pathname + url.search;
 }
 
+/** A page's kind: its path with the ids folded, so axe scans one engine, one plan, one list of each. */
+function pageKind(url: URL): string {
+  return url.pathname.replace(/\/\d+(?=\/|$)/g, "/:id");
+}
+
+const IMPACTS = ["critical", "serious", "moderate", "minor"] as const;
+
 async function crawl(page: Page, origin: string) {
+  const scanned = new Set<string>();
+  const impacts: Record<string, number> = { critical: 0, serious: 0, moderate: 0, minor: 0 };
   const seen = new Set<string>();
   const perPath = new Map<string, number>();
   const queue: Visit[] = [{ url: `${origin}/dashboard`, from: "(start)" }];
@@ -78,6 +90,15 @@ async function crawl(page: Page, origin: string) {
       findings.push({ url, from, problem: "sent the signed-in person back to sign-in" });
       continue;
     }
+    if (!scanned.has(pageKind(here))) {
+      scanned.add(pageKind(here));
+      const { violations } = await new AxeBuilder({ page }).analyze();
+      for (const v of violations) {
+        impacts[v.impact ?? "minor"] = (impacts[v.impact ?? "minor"] ?? 0) + v.nodes.length;
+        if (v.impact === "serious" || v.impact === "critical")
+          findings.push({ url, from, problem: `axe ${v.impact}: ${v.id} (${v.nodes.map((n) => n.target.join(" ")).join(", ")})` });
+      }
+    }
     for (const href of await targets(page)) {
       const next = new URL(href);
       if (next.origin !== origin) continue;
@@ -92,7 +113,7 @@ async function crawl(page: Page, origin: string) {
       queue.push({ url: next.href, from: url });
     }
   }
-  return { findings, visited };
+  return { findings, visited, scanned: scanned.size, impacts: IMPACTS.map((i) => `${i} ${impacts[i]}`).join(", ") };
 }
 
 for (const [role, email] of [
@@ -100,11 +121,13 @@ for (const [role, email] of [
   ["builder", "builder@example.com"],
   ["viewer", "viewer@example.com"],
 ] as const) {
-  test(`as the ${role}, every page reachable from the dashboard answers, offers no refused link and fits a phone`, async ({ page, baseURL }) => {
-    test.setTimeout(8 * 60_000);
+  test(`as the ${role}, every page reachable from the dashboard answers, offers no refused link, fits a phone and passes axe`, async ({ page, baseURL }) => {
+    // the crawl plus an axe scan of each kind of page: about two minutes a role on a quiet machine
+    test.setTimeout(15 * 60_000);
     await page.setViewportSize(PHONE);
     await signIn(page, email);
-    const { findings, visited } = await crawl(page, new URL(baseURL!).origin);
+    const { findings, visited, scanned, impacts } = await crawl(page, new URL(baseURL!).origin);
+    console.log(`${role}: ${visited.length} pages, ${scanned} kinds scanned by axe; violation nodes by impact: ${impacts}`);
     const report = findings.map((f) => `${f.url} ${f.problem} (linked from ${f.from})`);
     expect(report, `${visited.length} pages visited`).toEqual([]);
     // the crawl really went somewhere: the engines, their plans and the libraries

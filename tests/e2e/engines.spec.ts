@@ -31,7 +31,8 @@ test("a builder adds an engine through the form: a bad figure first, then a clea
   const bore = page.getByLabel("Bore (mm)", { exact: true });
   await expect(bore).toHaveAttribute("aria-invalid", "true");
   await expect(page.getByText("✖ Bore must be greater than zero")).toBeVisible();
-  await expect(page.getByText("Stud shares for stud LA2 add up to 0.8; they must add up to 1")).toBeVisible();
+  // beside the row (and again in the summary above the form)
+  await expect(page.getByRole("row", { name: /^LA2/ })).toContainText("Stud shares for stud LA2 add up to 0.8; they must add up to 1");
   await screenshot(page, "engine-form-errors");
 
   await bore.fill("101.6");

@@ -46,7 +46,10 @@ test("a new shop signs up, bad input first", async ({ page }) => {
   await page.getByLabel("Shop or team name").fill("Ashgrove Engine Room");
   await page.getByLabel("Password").fill("short");
   await page.getByRole("button", { name: "Create shop" }).click();
-  await expect(page.getByText("Use at least 8 characters")).toBeVisible();
+  // the message beside the field, and in the summary that takes focus
+  await expect(page.locator("#f-password-error")).toContainText("Use at least 8 characters");
+  await expect(page.getByTestId("error-summary")).toBeFocused();
+  await expect(page.getByTestId("error-summary")).toContainText("Password: Use at least 8 characters");
   await expect(page.getByLabel("Shop or team name")).toHaveValue("Ashgrove Engine Room");
   await page.getByLabel("Password").fill("a long shop password");
   await page.getByRole("button", { name: "Create shop" }).click();

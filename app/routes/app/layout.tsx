@@ -2,6 +2,7 @@ import { Outlet } from "react-router";
 import type { Route } from "./+types/layout";
 import { AppShell } from "~/components/app-shell";
 import { ToastLine } from "~/components/toast-line";
+import { useRootData } from "~/root";
 import { requireUser } from "~/utils/auth.server";
 import { navFor } from "~/utils/navigation";
 
@@ -13,7 +14,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 export default function AppLayout({ loaderData }: Route.ComponentProps) {
   return (
     <AppShell {...loaderData}>
-      <ToastLine />
+      <ToastLine toast={useRootData()?.toast} />
       <Outlet />
     </AppShell>
   );

@@ -10,6 +10,7 @@ import { throttle } from "~/utils/rate-limit.server";
 import { getUser } from "~/utils/auth.server";
 import { appUrl } from "~/utils/env.server";
 import { sendMailLater } from "~/utils/mail.server";
+import { useRootData } from "~/root";
 
 export const meta: Route.MetaFunction = () => [{ title: "Reset your password · Sealwright" }];
 
@@ -35,7 +36,7 @@ export async function action({ request }: Route.ActionArgs) {
 
 export default function ForgotPassword({ actionData }: Route.ComponentProps) {
   return (
-    <AuthFrame title="Reset your password">
+    <AuthFrame toast={useRootData()?.toast} title="Reset your password">
       {actionData?.sent ? (
         <p role="status" className="rounded border border-held bg-held-50 px-3 py-2 text-sm">
           {actionData.sent}

@@ -7,6 +7,7 @@ import { acceptInviteAsNewUser, acceptInviteAsUser, findInvite, INVITE_GONE } fr
 import { getUser, startSession } from "~/utils/auth.server";
 import { NewPassword, PersonName } from "~/utils/password-field.server";
 import { PASSWORD_MAX, PASSWORD_MIN } from "~/utils/password-rules";
+import { useRootData } from "~/root";
 
 export const meta: Route.MetaFunction = () => [{ title: "Join a shop · Sealwright" }];
 
@@ -51,7 +52,7 @@ export default function Invite({ loaderData, actionData, params }: Route.Compone
   const { invite, reason, signedInAs } = loaderData;
   if (!invite) {
     return (
-      <AuthFrame title="Invite">
+      <AuthFrame toast={useRootData()?.toast} title="Invite">
         <FormError message={REASON[reason ?? "unknown"]} />
         <p className="mt-4 text-sm">
           <Link className="text-copper-700 underline" to="/login">
@@ -63,7 +64,7 @@ export default function Invite({ loaderData, actionData, params }: Route.Compone
   }
   const here = `/invite/${params.token}`;
   return (
-    <AuthFrame title={`Join ${invite.teamName}`}>
+    <AuthFrame toast={useRootData()?.toast} title={`Join ${invite.teamName}`}>
       <p className="text-sm">
         You are invited as a <strong>{invite.role}</strong>, with the address <strong>{invite.email}</strong>.
       </p>

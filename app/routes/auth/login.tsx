@@ -1,11 +1,12 @@
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/login";
 import { AuthFrame } from "~/components/auth-frame";
-import { Button, Field, FormError } from "~/components/form";
+import { Button, ErrorSummary, Field } from "~/components/form";
 import { listMemberships } from "~/models/user.server";
 import { authenticator, getUser, safeRedirect, SignInError, startSession } from "~/utils/auth.server";
 import { clientAddress } from "~/utils/client-address.server";
 import { signInAttempt, signInSucceeded } from "~/utils/sign-in-throttle.server";
+import { useRootData } from "~/root";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Sealwright" }];
 
@@ -41,9 +42,9 @@ export async function action({ request, context }: Route.ActionArgs) {
 export default function Login({ actionData }: Route.ComponentProps) {
   const busy = useNavigation().state === "submitting";
   return (
-    <AuthFrame title="Sign in">
+    <AuthFrame toast={useRootData()?.toast} title="Sign in">
       <Form method="post" className="space-y-4">
-        <FormError message={actionData?.error} />
+        <ErrorSummary message={actionData?.error} answer={actionData} />
         <Field label="E-mail" name="email" type="email" autoComplete="email" required defaultValue={actionData?.email} />
         <Field label="Password" name="password" type="password" autoComplete="current-password" required />
         <Button type="submit" disabled={busy}>

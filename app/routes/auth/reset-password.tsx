@@ -8,6 +8,7 @@ import { NewPassword } from "~/utils/password-field.server";
 import { PASSWORD_MAX, PASSWORD_MIN } from "~/utils/password-rules";
 import { sessionStorage, getSession } from "~/utils/session.server";
 import { flashToast } from "~/utils/toast.server";
+import { useRootData } from "~/root";
 
 export const meta: Route.MetaFunction = () => [{ title: "Choose a new password · Sealwright" }];
 
@@ -35,7 +36,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 export default function ResetPassword({ loaderData, actionData }: Route.ComponentProps) {
   const gone = !loaderData.usable || actionData?.gone;
   return (
-    <AuthFrame title="Choose a new password">
+    <AuthFrame toast={useRootData()?.toast} title="Choose a new password">
       {gone ? (
         <>
           <FormError message={LINK_GONE} />

@@ -1,23 +1,27 @@
+import { getFormProps, useForm } from "@conform-to/react";
+import { parseWithZod } from "@conform-to/zod/v4";
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/signup";
 import { AuthFrame } from "~/components/auth-frame";
-import { Button, Field, fieldErrors, FormError } from "~/components/form";
+import { Button, ErrorSummary, Field } from "~/components/form";
 import { createUserWithTeam, EmailTakenError } from "~/models/user.server";
 import { getUser, startSession } from "~/utils/auth.server";
 import { clientAddress } from "~/utils/client-address.server";
 import { isCommonPassword } from "~/utils/password.server";
 import { isBlankPassword, PASSWORD_MAX, PASSWORD_MIN } from "~/utils/password-rules";
 import { takeAll, tooManyHeaders, waitWords } from "~/utils/rate-limit.server";
+import { useRootData } from "~/root";
 
 export const meta: Route.MetaFunction = () => [{ title: "Create your shop · Sealwright" }];
 
 const SignUpSchema = z.object({
-  name: z.string().trim().min(1, "Enter your name").max(120, "Keep your name under 120 characters"),
+  // Conform reads a blank field as missing: each field's own message covers that too
+  name: z.string({ error: "Enter your name" }).trim().min(1, "Enter your name").max(120, "Keep your name under 120 characters"),
   email: z.email("Enter an e-mail address like name@shop.example").max(254),
-  teamName: z.string().trim().min(1, "Name your shop or team").max(120, "Keep the shop name under 120 characters"),
+  teamName: z.string({ error: "Name your shop or team" }).trim().min(1, "Name your shop or team").max(120, "Keep the shop name under 120 characters"),
   password: z
-    .string()
+    .string({ error: `Use at least ${PASSWORD_MIN} characters` })
     .min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters`)
     .max(PASSWORD_MAX, `Use at most ${PASSWORD_MAX} characters`)
     .refine((p) => !isBlankPassword(p), "Use letters, digits or symbols, not only spaces")
@@ -39,39 +43,38 @@ export async function loader({ request }: Route.LoaderArgs) {
 }
 
 export async function action({ request, context }: Route.ActionArgs) {
-  const form = Object.fromEntries(await request.formData());
-  const values = { name: String(form.name ?? ""), email: String(form.email ?? ""), teamName: String(form.teamName ?? "") };
-  const parsed = SignUpSchema.safeParse(form);
-  if (!parsed.success) return data({ errors: fieldErrors(parsed.error.issues), values, formError: null }, { status: 400 });
+  const submission = parseWithZod(await request.formData(), { schema: SignUpSchema });
+  // the password is never sent back to the page
+  const refuse = (status: number, options: Parameters<typeof submission.reply>[0] = {}, init: ResponseInit = {}) =>
+    data({ result: submission.reply({ ...options, hideFields: ["password"] }) }, { ...init, status });
+  if (submission.status !== "success") return refuse(400);
   // Each attempt that would hash and write counts against the address, taken or not.
   const wait = await takeAll([["signUpAddress", clientAddress(context)]]);
-  if (wait > 0) {
-    const formError = `Too many new shops from this network; try again in ${waitWords(wait)}.`;
-    return data({ errors: {} as Record<string, string>, values, formError }, { status: 429, headers: tooManyHeaders(wait) });
-  }
+  if (wait > 0) return refuse(429, { formErrors: [`Too many new shops from this network; try again in ${waitWords(wait)}.`] }, { headers: tooManyHeaders(wait) });
   try {
     // Hashes first, then lets the UNIQUE constraint say whether the e-mail is free: no separate look-up
     // that answers faster for a taken e-mail, and no race between two sign-ups of the same e-mail.
-    const { user, teamId } = await createUserWithTeam(parsed.data);
+    const { user, teamId } = await createUserWithTeam(submission.value);
     return startSession(request, user.id, teamId, "/dashboard");
   } catch (error) {
-    if (error instanceof EmailTakenError) return data({ errors: { email: EMAIL_NOT_AVAILABLE }, values, formError: null }, { status: 400 });
+    if (error instanceof EmailTakenError) return refuse(400, { fieldErrors: { email: [EMAIL_NOT_AVAILABLE] } });
     throw error;
   }
 }
 
 export default function SignUp({ actionData }: Route.ComponentProps) {
   const busy = useNavigation().state === "submitting";
-  const errors: Record<string, string> = actionData?.errors ?? {};
-  const values = actionData?.values;
+  // the one form path (DEVELOPERS.md): the server parses with the schema, Conform carries its answer
+  const [form, fields] = useForm<z.input<typeof SignUpSchema>>({ id: "signup", lastResult: actionData?.result, shouldValidate: "onSubmit" });
+  const formError = form.errors?.[0] ?? null;
   return (
-    <AuthFrame title="Create your shop">
-      <Form method="post" className="space-y-4" noValidate>
-        <FormError message={actionData?.formError} />
-        <Field label="Your name" name="name" autoComplete="name" required defaultValue={values?.name} error={errors.name} />
-        <Field label="E-mail" name="email" type="email" autoComplete="email" required defaultValue={values?.email} error={errors.email} />
-        <Field label="Shop or team name" name="teamName" required defaultValue={values?.teamName} error={errors.teamName} hint="You become its owner and can invite builders and viewers." />
-        <Field label="Password" name="password" type="password" autoComplete="new-password" required error={errors.password} hint={`${PASSWORD_MIN} to ${PASSWORD_MAX} characters; a short sentence is easy to remember.`} />
+    <AuthFrame toast={useRootData()?.toast} title="Create your shop">
+      <Form method="post" className="space-y-4" {...getFormProps(form)}>
+        <ErrorSummary errors={form.allErrors} message={formError ?? (Object.keys(form.allErrors).length ? "The shop was not created: check the marked fields." : null)} answer={actionData} />
+        <Field label="Your name" name={fields.name.name} autoComplete="name" required defaultValue={fields.name.initialValue} error={fields.name.errors?.[0]} />
+        <Field label="E-mail" name={fields.email.name} type="email" autoComplete="email" required defaultValue={fields.email.initialValue} error={fields.email.errors?.[0]} />
+        <Field label="Shop or team name" name={fields.teamName.name} required defaultValue={fields.teamName.initialValue} error={fields.teamName.errors?.[0]} hint="You become its owner and can invite builders and viewers." />
+        <Field label="Password" name={fields.password.name} type="password" autoComplete="new-password" required error={fields.password.errors?.[0]} hint={`${PASSWORD_MIN} to ${PASSWORD_MAX} characters; a short sentence is easy to remember.`} />
         <Button type="submit" disabled={busy}>
           {busy ? "Creating…" : "Create shop"}
         </Button>

@@ -1,4 +1,5 @@
 import { Form, Link } from "react-router";
+import { ErrorSummary } from "~/components/form";
 import type { Route } from "./+types/chamber";
 import { chamberProblems, gasketThicknessWhatIf } from "~/lib/chamber";
 import { chamberInput } from "~/lib/plan/assemble";
@@ -37,16 +38,17 @@ export default function Chamber({ loaderData }: Route.ComponentProps) {
   return (
     <div className="max-w-3xl space-y-4">
       <h2 className="text-2xl font-bold">Chamber</h2>
+      <ErrorSummary errors={d.whatIfError ? { thickness: d.whatIfError } : {}} message={d.whatIfError ? "The what-if thickness could not be read." : null} answer={d.whatIfText} fieldId={(name) => name} />
       <Form method="get" className="flex flex-wrap items-end gap-3 rounded border border-forge-100 bg-white p-3">
         <div className="min-w-0 max-w-full">
           <label htmlFor="gasketId" className="block text-sm font-medium">Gasket</label>
-          <select id="gasketId" name="gasketId" defaultValue={d.gasketId ?? undefined} className="mt-1 block w-full max-w-full rounded border border-forge-300 px-2 py-2">
+          <select id="gasketId" name="gasketId" defaultValue={d.gasketId ?? undefined} className="mt-1 block w-full max-w-full rounded border border-forge-500 px-2 py-2">
             {d.gaskets.map((g) => <option key={g.id} value={g.id}>{g.name}</option>)}
           </select>
         </div>
         <div>
           <label htmlFor="thickness" className="block text-sm font-medium">What if compressed thickness were ({small})</label>
-          <input id="thickness" name="thickness" defaultValue={d.whatIfText} inputMode="decimal" aria-invalid={d.whatIfError ? true : undefined} aria-describedby={d.whatIfError ? "thickness-error" : undefined} className="mt-1 w-40 rounded border border-forge-300 px-2 py-2 tabular" />
+          <input id="thickness" name="thickness" defaultValue={d.whatIfText} inputMode="decimal" aria-invalid={d.whatIfError ? true : undefined} aria-describedby={d.whatIfError ? "thickness-error" : undefined} className="mt-1 w-40 max-w-full rounded border border-forge-500 px-2 py-2 tabular" />
         </div>
         <button type="submit" className="rounded bg-copper-700 px-4 py-2 font-medium text-white">Work it out</button>
         {d.whatIfError ? <p id="thickness-error" className="w-full text-sm font-medium text-failed">✖ {d.whatIfError}</p> : null}
@@ -54,7 +56,7 @@ export default function Chamber({ loaderData }: Route.ComponentProps) {
       <p className="text-sm text-forge-700">{d.fromChosen ? "Gasket of the chosen plan." : "Gasket picked above."}</p>
       {d.problems.length ? <p role="alert" className="rounded border border-caution bg-caution-50 p-3">⚠ {d.problems.join(" ")} {d.canEdit ? <Link to={`/engines/${d.engine.id}/edit`} className="underline">Edit the engine</Link> : "A builder in this shop can add it."}</p> : null}
       {r ? (
-        <table className="w-full border-collapse bg-white text-sm tabular">
+        <table className="w-full border-collapse bg-white text-sm tabular [overflow-wrap:anywhere]">
           <caption className="sr-only">Compression ratio and quench, now and with the what-if thickness</caption>
           <thead className="bg-forge-100">
             <tr><th scope="col" className="px-2 py-2 text-left">Figure</th><th scope="col" className="px-2 py-2 text-right">With this gasket</th><th scope="col" className="px-2 py-2 text-right">What if</th></tr>

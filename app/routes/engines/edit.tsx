@@ -1,13 +1,14 @@
-import { data, redirect } from "react-router";
+import { data } from "react-router";
 import type { Route } from "./+types/edit";
 import { EngineForm } from "~/components/engine-form";
-import { RoleRefusal } from "~/components/refusal";
+import { useSeedKey } from "~/components/form";
+import { REFUSAL_TITLE, RoleRefusal } from "~/components/refusal";
 import { engineFormStep, engineToForm, type Units } from "~/lib/engine";
 import { archiveEngine, EngineInputError, listMaterialOptions, requireEngine, updateEngine } from "~/models/engine.server";
 import { requireRole } from "~/utils/auth.server";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
 
-export const meta: Route.MetaFunction = () => [{ title: "Edit engine · Sealwright" }];
+export const meta: Route.MetaFunction = ({ error }) => [{ title: error ? REFUSAL_TITLE : "Edit engine · Sealwright" }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team, who } = await requireRole(request, "builder");
@@ -23,12 +24,10 @@ export async function action({ request, params }: Route.ActionArgs) {
   const form = Object.fromEntries([...(await request.formData())].map(([k, v]) => [k, String(v)]));
   if (form.intent === "archive") {
     await archiveEngine(team.id, user.id, engine.id);
-    return redirect("/engines", {
-      headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: `Engine “${engine.name}” archived.` }) },
-    });
+    return redirectWithToast(request, "/engines", `Engine “${engine.name}” archived.`);
   }
   const step = engineFormStep(form, user.units as Units);
-  if (step.step === "render") return { values: step.values, errors: step.errors };
+  if (step.step === "render") return { values: step.values, errors: step.errors, reseed: true };
   if (step.step === "invalid") return data({ values: step.values, errors: step.errors }, { status: 400 });
   try {
     await updateEngine(team.id, user.id, engine.id, step.engine);
@@ -36,20 +35,20 @@ export async function action({ request, params }: Route.ActionArgs) {
     if (e instanceof EngineInputError) return data({ values: step.values, errors: e.errors }, { status: 400 });
     throw e;
   }
-  return redirect(`/engines/${engine.id}`, {
-    headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: "Engine saved." }) },
-  });
+  return redirectWithToast(request, `/engines/${engine.id}`, "Engine saved.");
 }
 
 export default function EditEngine({ loaderData, actionData }: Route.ComponentProps) {
   const values = actionData?.values ?? loaderData.values;
+  const seedKey = useSeedKey(values, Boolean(actionData && "reseed" in actionData));
   return (
     <section>
       <h2 className="mb-4 text-2xl font-bold">Edit the engine record</h2>
       <EngineForm
-        key={JSON.stringify(values)}
+        key={seedKey}
         values={values}
         errors={actionData?.errors ?? {}}
+        answer={actionData}
         materials={loaderData.materials}
         units={loaderData.units}
         submitLabel="Save changes"

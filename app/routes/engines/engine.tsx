@@ -74,6 +74,7 @@ export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
         : "The engine page could not be shown.";
   return (
     <div className="rounded border border-forge-300 bg-white p-6">
+      <title>{`${title} · Sealwright`}</title>
       <h1 className="text-2xl font-bold">{title}</h1>
       <p className="mt-2 text-forge-700">{text}</p>
       <p className="mt-4">

@@ -1,8 +1,8 @@
-import { data, Form, Link, redirect, useNavigation } from "react-router";
+import { data, Form, Link, useNavigation } from "react-router";
 import type { ReactNode } from "react";
 import type { Route } from "./+types/edit";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
-import { Button, Field, FormError, SelectField } from "~/components/form";
+import { Button, ErrorSummary, Field, SelectField } from "~/components/form";
 import { TYPICAL_GASKETS } from "~/lib/clamp";
 import { sourceLine } from "~/lib/library/display";
 import {
@@ -19,7 +19,7 @@ import { unitLabel, type UnitSystem } from "~/lib/library/quantities";
 import { GASKET_TYPE_LABELS, isLibraryKind, LIBRARY_GASKET_TYPES, MATERIAL_KIND_LABELS, MATERIAL_KINDS, type LibraryKind } from "~/lib/library/schemas";
 import { createLibraryItem, getMaterial, listMaterials, requireLibraryItem, setLibraryArchived, updateLibraryItem } from "~/models/library.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
 
 // One module for two routes: "library-new" (:kind/new) and "library-edit" (:kind/:itemId).
 
@@ -89,7 +89,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const form = Object.fromEntries([...(await request.formData())].map(([k, v]) => [k, typeof v === "string" ? v : ""]));
   const intent = form.intent ?? "save";
   const back = `/libraries/${kind}`;
-  const done = async (message: string, to = back) => redirect(to, { headers: { "Set-Cookie": await flashToast(request, { kind: "done", message }) } });
+  const done = (message: string, to = back) => redirectWithToast(request, to, message);
 
   if (intent === "archive" || intent === "unarchive") {
     if (!item) throw data("Save it first; only a saved row can be archived.", { status: 400 });
@@ -134,7 +134,7 @@ export default function LibraryEdit({ loaderData, actionData }: Route.ComponentP
         Figures in your units ({units}); the shop's data is stored in SI.
       </p>
       <Caution className="mb-4" />
-      {count > 0 ? <FormError message={errors.form ?? `Nothing was saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention.`} /> : null}
+      <ErrorSummary errors={errors} message={count > 0 ? (errors.form ?? `Nothing was saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention.`) : null} answer={actionData} />
 
       <Form method="post" noValidate className="mt-4">
         <fieldset disabled={!canEdit} className="space-y-6">

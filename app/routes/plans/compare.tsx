@@ -1,4 +1,4 @@
-import { data, Form, Link, redirect } from "react-router";
+import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/compare";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { chance, marginStatus, STATUS_LOOK } from "~/components/estimate-panel";
@@ -8,7 +8,7 @@ import { requireEngine } from "~/models/engine.server";
 import { estimatePlan, type PlanEstimateResult } from "~/models/plan-estimate.server";
 import { choosePlan, listPlans, type PlanRow } from "~/models/plan.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Compare plans · Sealwright" }];
 
@@ -38,7 +38,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   if (!plan) throw data("No such seal plan on this engine.", { status: 404 });
   await choosePlan(team.id, user.id, engine.id, plan.id);
   const back = new URL(request.url);
-  return redirect(back.pathname + back.search, { headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: `“${plan.name}” is now the chosen plan.` }) } });
+  return redirectWithToast(request, back.pathname + back.search, `“${plan.name}” is now the chosen plan.`);
 }
 
 type Column = { plan: PlanRow; result: PlanEstimateResult };

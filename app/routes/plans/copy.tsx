@@ -1,7 +1,7 @@
-import { data, Form, Link, redirect } from "react-router";
+import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/copy";
 import { Button, FormError } from "~/components/form";
-import { RoleRefusal } from "~/components/refusal";
+import { REFUSAL_TITLE, RoleRefusal } from "~/components/refusal";
 import { gasketFitProblem } from "~/lib/plan/assemble";
 import { CopyPlanSchema } from "~/lib/plan/form";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
@@ -10,9 +10,9 @@ import { getGasket } from "~/models/library.server";
 import { copyPlanToEngine, requirePlan } from "~/models/plan.server";
 import type { Asker } from "~/models/viewer-scope.server";
 import { requireRole } from "~/utils/auth.server";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
 
-export const meta: Route.MetaFunction = ({ data }) => [{ title: `Copy ${data?.plan.name ?? "seal plan"} · Sealwright` }];
+export const meta: Route.MetaFunction = ({ data, error }) => [{ title: error ? REFUSAL_TITLE : `Copy ${data?.plan.name ?? "seal plan"} · Sealwright` }];
 
 /** The other engines of the team, each with whether the plan's gasket fits its bore (and why not). */
 async function targets(who: Asker, engineId: number, gasketBoreMm: number | null, units: UnitSystem) {
@@ -53,9 +53,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     : "The plan's gasket is no longer in the library.";
   if (misfit) return data({ error: `Not copied to “${target.name}”: ${misfit}` }, { status: 400 });
   const id = await copyPlanToEngine(team.id, user.id, plan, target.id);
-  return redirect(`/engines/${target.id}/plans/${id}`, {
-    headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: `“${plan.name}” copied from “${engine.name}”.` }) },
-  });
+  return redirectWithToast(request, `/engines/${target.id}/plans/${id}`, `“${plan.name}” copied from “${engine.name}”.`);
 }
 
 export default function CopyPlan({ loaderData, actionData }: Route.ComponentProps) {

@@ -1,10 +1,12 @@
+import { useEffect, useMemo, useRef, useState, type KeyboardEvent } from "react";
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/editor";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { EstimatePanel, STATUS_LOOK, VerdictLine } from "~/components/estimate-panel";
-import { Button, FormError } from "~/components/form";
+import { Button, ErrorSummary, FormError } from "~/components/form";
 import { MakerTorque } from "~/components/maker-torque";
 import { PlanFields } from "~/components/plan-form";
+import { PlanPrintSheet } from "~/components/plan-print";
 import { SuggestionBox } from "~/components/suggestion-box";
 import { useLiveEstimate } from "~/components/use-live-estimate";
 import type { Suggestion } from "~/lib/clamp";
@@ -19,7 +21,7 @@ import { estimatePlan } from "~/models/plan-estimate.server";
 import { archivePlan, choosePlan, createPlan, engineMaterials, planChoices, planParts, requirePlan, updatePlan } from "~/models/plan.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
 import { previewPlan } from "~/utils/plan-actions.server";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.plan.name ?? "Seal plan"} · Sealwright` }];
 
@@ -63,15 +65,14 @@ export async function action({ request, params }: Route.ActionArgs) {
   const form = Object.fromEntries(await request.formData());
   const intent = String(form.intent ?? "save");
   const base = `/engines/${engine.id}/plans`;
-  const toast = async (message: string) => ({ "Set-Cookie": await flashToast(request, { kind: "done", message }) });
 
   if (intent === "choose") {
     await choosePlan(team.id, user.id, engine.id, plan.id);
-    return redirect(`${base}/${plan.id}`, { headers: await toast(`“${plan.name}” is now the chosen plan.`) });
+    return redirectWithToast(request, `${base}/${plan.id}`, `“${plan.name}” is now the chosen plan.`);
   }
   if (intent === "archive") {
     await archivePlan(team.id, user.id, engine.id, plan.id);
-    return redirect(base, { headers: await toast(`“${plan.name}” archived.`) });
+    return redirectWithToast(request, base, `“${plan.name}” archived.`);
   }
   if (intent === "apply-torque" || intent === "new-with-torque") {
     const torqueNm = Number(form.torqueNm);
@@ -87,10 +88,10 @@ export async function action({ request, params }: Route.ActionArgs) {
     if (plannedByStretch(plan)) next.targetStretchMm = await stretchAtTorque(team.id, engine, { ...next, method: "torque-estimated-friction" });
     if (intent === "apply-torque") {
       await updatePlan(team.id, user.id, engine.id, plan.id, next);
-      return redirect(`${base}/${plan.id}`, { headers: await toast("Suggested figures applied to this plan.") });
+      return redirectWithToast(request, `${base}/${plan.id}`, "Suggested figures applied to this plan.");
     }
     const id = await createPlan(team.id, user.id, engine.id, { ...next, name: `${plan.name} (suggested)`.slice(0, 120) });
-    return redirect(`${base}/${id}`, { headers: await toast("New plan made from the suggestion.") });
+    return redirectWithToast(request, `${base}/${id}`, "New plan made from the suggestion.");
   }
 
   let values = Object.fromEntries(Object.entries(form).map(([k, v]) => [k, String(v)]));
@@ -114,7 +115,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     const { problems } = await previewPlan(team.id, engine, parsed.plan, false, user.units);
     if (problems.length > 0) return answer(400, { problems });
     await updatePlan(team.id, user.id, engine.id, plan.id, parsed.plan);
-    return redirect(`${base}/${plan.id}`, { headers: await toast("Plan saved.") });
+    return redirectWithToast(request, `${base}/${plan.id}`, "Plan saved.");
   }
   // "estimate" and "suggest" (and a save held back above): compute for the values shown; nothing is written.
   const out = await previewPlan(team.id, engine, parsed.plan, intent === "suggest", user.units);
@@ -142,6 +143,12 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
   const torqueNm = view?.torqueNm ?? plan.torqueNm;
   // a refused save or recalculation that brought no estimate back: what shows is the stored plan's
   const refusedWithoutPreview = Boolean(actionData && Object.keys(actionData.errors ?? {}).length > 0 && !actionData.preview);
+  const refusedProblems = actionData?.problems?.length ? `Nothing was saved: the estimate cannot run. ${actionData.problems.join(" ")}` : null;
+  // After a successful Recalculate or Suggest, focus goes to what it answered (a refusal focuses its summary).
+  useEffect(() => {
+    if (!actionData || Object.keys(actionData.errors ?? {}).length > 0 || actionData.problems?.length || !actionData.preview) return;
+    document.getElementById(actionData.suggestion ? "suggest-title" : "estimate-title")?.focus();
+  }, [actionData]);
 
   return (
     <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,26rem)_minmax(0,1fr)]">
@@ -149,7 +156,7 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
         {view ? (
           // On a phone the estimate is far below the form: keep the verdict in sight while typing.
           <p
-            className={`sticky top-0 z-10 mb-3 rounded border-2 px-3 py-2 text-sm shadow lg:hidden ${STATUS_LOOK[view.estimate.verdict.status].tone}`}
+            className={`print-hide sticky top-0 z-10 mb-3 rounded border-2 px-3 py-2 text-sm shadow lg:hidden ${STATUS_LOOK[view.estimate.verdict.status].tone}`}
             data-testid="verdict-bar"
           >
             <VerdictLine view={view} /> <a href="#estimate-title" className="underline">Estimate ↓</a>
@@ -159,7 +166,16 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
           <h2 className="text-2xl font-bold">{plan.name}</h2>
           {chosen ? <span className="rounded border border-held bg-held-50 px-2 py-0.5 text-sm font-bold text-held">✔ Chosen plan</span> : null}
         </div>
-        <Form method="post" key={JSON.stringify(values)} onChange={live.onChange} ref={live.formRef} className="space-y-4" noValidate>
+        <PlanPrintSheet
+          values={values}
+          gasketName={choices.gaskets.find((g) => String(g.id) === values.gasketId)?.name ?? ""}
+          fastenerName={fastener?.name ?? ""}
+          sleeved={sleeved}
+          units={units}
+        />
+        <ErrorSummary errors={actionData?.errors} message={refusedProblems} answer={actionData} />
+        {/* Stays mounted across answers (focus stays put); re-seeded only when the stored plan changed. */}
+        <Form method="post" key={JSON.stringify(loaderData.values)} onChange={live.onChange} onKeyDown={enterRecalculates} ref={live.formRef} className="print-hide space-y-4" noValidate>
           <fieldset disabled={!canEdit} className="space-y-4">
             <legend className="sr-only">Plan inputs</legend>
             <PlanFields
@@ -176,11 +192,12 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
           </fieldset>
           {canEdit ? (
             <div className="flex flex-wrap gap-2">
-              <Button type="submit" name="intent" value="save" disabled={busy}>
-                Save plan
-              </Button>
+              {/* Recalculate first: the button Enter presses is the harmless one, not Save */}
               <Button type="submit" name="intent" value="estimate" kind="plain" disabled={busy}>
                 Recalculate
+              </Button>
+              <Button type="submit" name="intent" value="save" disabled={busy}>
+                Save plan
               </Button>
               <Button type="submit" name="intent" value="suggest" kind="plain" disabled={busy}>
                 Suggest torque for the target
@@ -191,7 +208,7 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
           )}
         </Form>
         {canEdit ? (
-          <div className="mt-4 flex flex-wrap gap-2 border-t border-forge-100 pt-4">
+          <div className="print-hide mt-4 flex flex-wrap gap-2 border-t border-forge-100 pt-4">
             {!chosen ? (
               <Form method="post">
                 <Button type="submit" name="intent" value="choose" kind="plain">
@@ -229,4 +246,12 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
       </div>
     </div>
   );
+}
+
+/** Enter in a plan field recalculates (the browser's default would press the first submit button in the form). */
+function enterRecalculates(e: KeyboardEvent<HTMLFormElement>) {
+  const field = e.target as HTMLElement;
+  if (e.key !== "Enter" || !(field instanceof HTMLInputElement) || field.type === "submit") return;
+  e.preventDefault();
+  e.currentTarget.querySelector<HTMLButtonElement>('button[value="estimate"]')?.click();
 }

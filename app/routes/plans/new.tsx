@@ -1,9 +1,9 @@
 import { useState } from "react";
-import { data, Form, redirect } from "react-router";
+import { data, Form } from "react-router";
 import type { Route } from "./+types/new";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
-import { RoleRefusal } from "~/components/refusal";
-import { Button, FormError } from "~/components/form";
+import { REFUSAL_TITLE, RoleRefusal } from "~/components/refusal";
+import { Button, ErrorSummary, FormError } from "~/components/form";
 import { MakerTorque } from "~/components/maker-torque";
 import { PlanFields } from "~/components/plan-form";
 import { assemblePlanInput, gasketsByFit } from "~/lib/plan/assemble";
@@ -18,9 +18,9 @@ import { requireEngine } from "~/models/engine.server";
 import { createPlan, listPlans, planChoices, planParts } from "~/models/plan.server";
 import { requireRole } from "~/utils/auth.server";
 import { previewPlan } from "~/utils/plan-actions.server";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
 
-export const meta: Route.MetaFunction = () => [{ title: "New seal plan · Sealwright" }];
+export const meta: Route.MetaFunction = ({ error }) => [{ title: error ? REFUSAL_TITLE : "New seal plan · Sealwright" }];
 
 // this page shows the full caution beside its figures (the footer leaves it out)
 export const handle = CAUTION_HANDLE;
@@ -89,13 +89,14 @@ export async function action({ request, params }: Route.ActionArgs) {
   const { problems } = await previewPlan(team.id, engine, parsed.plan, false, user.units);
   if (problems.length > 0) return answer(400, { problems });
   const id = await createPlan(team.id, user.id, engine.id, parsed.plan);
-  return redirect(`/engines/${engine.id}/plans/${id}`, { headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: "Plan created." }) } });
+  return redirectWithToast(request, `/engines/${engine.id}/plans/${id}`, "Plan created.");
 }
 
 export default function NewPlan({ loaderData, actionData }: Route.ComponentProps) {
   const values = actionData?.values ?? loaderData.values;
-  // a post-back (a changed fastener, "Show all gaskets", errors) re-seeds the form with what the server answered
-  return <NewPlanForm key={JSON.stringify(values)} values={values} loaderData={loaderData} actionData={actionData} />;
+  // Stays mounted across answers (focus stays put). With JavaScript a changed fastener and "Show all
+  // gaskets" happen in the page; without it every answer is a fresh page with the server's values.
+  return <NewPlanForm values={values} loaderData={loaderData} actionData={actionData} />;
 }
 
 function NewPlanForm({ values, loaderData, actionData }: { values: Record<string, string> } & Pick<Route.ComponentProps, "loaderData" | "actionData">) {
@@ -108,7 +109,11 @@ function NewPlanForm({ values, loaderData, actionData }: { values: Record<string
     <div className="max-w-xl">
       <h2 className="mb-4 text-2xl font-bold">New seal plan</h2>
       {emptyLibrary ? <FormError message="Add at least one fastener and one gasket in Libraries first." /> : null}
-      {actionData?.problems?.length ? <FormError message={`The estimate cannot run: ${actionData.problems.join(" ")}`} /> : null}
+      <ErrorSummary
+        errors={actionData?.errors}
+        message={actionData?.problems?.length ? `Nothing was saved: the estimate cannot run. ${actionData.problems.join(" ")}` : null}
+        answer={actionData}
+      />
       {fastener ? (
         <div className="mb-4">
           <MakerTorque ourTorqueNm={torque.ok ? torque.valueSi : 0} makerTorqueNm={fastener.makerTorqueNm} makerLubricant={fastener.makerLubricant} makerStages={fastener.makerStages} units={units} />
