@@ -4,6 +4,7 @@ import { FormStrategy } from "remix-auth-form";
 import { getUserById, getUserWithHashByEmail, listMemberships, type MembershipRow, type Role, type UserRow } from "~/models/user.server";
 import { dummyPasswordHash, verifyPassword } from "./password.server";
 import { getSession, sessionStorage } from "./session.server";
+import { roleAtLeast } from "~/lib/team/roles";
 
 export const SIGN_IN_FAILED = "Wrong e-mail or password.";
 
@@ -32,11 +33,8 @@ export interface Member {
   memberships: MembershipRow[];
 }
 
-const ROLE_RANK: Record<Role, number> = { viewer: 0, builder: 1, owner: 2 };
-
-export function roleAtLeast(role: Role, needed: Role): boolean {
-  return ROLE_RANK[role] >= ROLE_RANK[needed];
-}
+// the one role rank lives in app/lib/team/roles.ts; routes import it from here with the guards
+export { roleAtLeast };
 
 function signInRedirect(request: Request): never {
   const url = new URL(request.url);

@@ -2,7 +2,7 @@ import { data, redirect } from "react-router";
 import type { Route } from "./+types/edit";
 import { EngineForm } from "~/components/engine-form";
 import { RoleRefusal } from "~/components/refusal";
-import { engineFormStep, engineToForm, type Units } from "~/lib/engine";
+import { engineFormStep, engineToForm } from "~/lib/engine";
 import { archiveEngine, EngineInputError, listMaterialOptions, requireEngine, updateEngine } from "~/models/engine.server";
 import { requireRole } from "~/utils/auth.server";
 import { flashToast } from "~/utils/toast.server";
@@ -12,7 +12,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Edit engine · Sealwrig
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team } = await requireRole(request, "builder");
   const engine = await requireEngine(team.id, params.engineId);
-  const units = user.units as Units;
+  const units = user.units;
   const values = engineToForm(engine, units);
   return { units, materials: await listMaterialOptions(team.id), values, engineId: engine.id };
 }
@@ -27,7 +27,7 @@ export async function action({ request, params }: Route.ActionArgs) {
       headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: `Engine “${engine.name}” archived.` }) },
     });
   }
-  const step = engineFormStep(form, user.units as Units);
+  const step = engineFormStep(form, user.units);
   if (step.step === "render") return { values: step.values, errors: step.errors };
   if (step.step === "invalid") return data({ values: step.values, errors: step.errors }, { status: 400 });
   try {
