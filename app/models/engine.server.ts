@@ -2,7 +2,7 @@ import type { Knex } from "knex";
 import { data } from "react-router";
 import type { Stud } from "~/lib/clamp/schema";
 import type { EngineInput } from "~/lib/engine/schema";
-import { db, now } from "~/utils/db.server";
+import { db, now, type DbRow } from "~/utils/db.server";
 import { parseId } from "~/utils/ids";
 
 export type EngineStatus = "quoted" | "in-build" | "running" | "retired";
@@ -46,7 +46,7 @@ export interface EngineRow {
 }
 
 // snake_case row → EngineRow
-export function toEngine(r: Record<string, any>): EngineRow {
+export function toEngine(r: DbRow): EngineRow {
   return {
     id: r.id,
     teamId: r.team_id,
@@ -195,7 +195,7 @@ export async function listEngines(teamId: number, query: EngineListQuery = {}): 
     .limit(pageSize)
     .offset((page - 1) * pageSize);
   return {
-    rows: rows.map(({ layout_key: _l, status_rank: _s, ...r }: Record<string, any>) => r as EngineListRow),
+    rows: rows.map(({ layout_key: _l, status_rank: _s, ...r }: DbRow) => r as EngineListRow),
     total: Number(n),
   };
 }

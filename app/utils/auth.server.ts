@@ -97,6 +97,7 @@ const REDIRECT_BASE = "http://sealwright.invalid";
  */
 export function safeRedirect(to: string | null | undefined, fallback = "/dashboard"): string {
   if (typeof to !== "string" || !to.startsWith("/") || to.startsWith("//")) return fallback;
+  // eslint-disable-next-line no-control-regex -- control characters are exactly what this refuses
   if (/[\u0000-\u001f\u007f-\u009f\\]/.test(to)) return fallback;
   let url: URL;
   try {

@@ -2,12 +2,12 @@ import { describe, expect, it } from "vitest";
 import { toEngine } from "~/models/engine.server";
 import { estimatePlan, type PlanEstimateResult } from "~/models/plan-estimate.server";
 import { listPlans, type PlanRow } from "~/models/plan.server";
-import { db } from "~/utils/db.server";
+import { db, type DbRow } from "~/utils/db.server";
 
 // Every seeded demo plan, estimated the way the app does it (stored rows → planParts → the clamp
 // model), and the story the demo is there to tell (migrations/seeds/03-demo-engines.ts).
 
-type Row = Record<string, any>;
+type Row = DbRow;
 type Estimated = { engine: string; plan: PlanRow; result: Extract<PlanEstimateResult, { ok: true }>; chosen: boolean };
 
 async function demo(): Promise<{ engines: Row[]; estimated: Estimated[] }> {

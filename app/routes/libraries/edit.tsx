@@ -1,5 +1,4 @@
 import { data, Form, Link, redirect, useNavigation } from "react-router";
-import type { ReactNode } from "react";
 import type { Route } from "./+types/edit";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { Button, Field, FormError, SelectField } from "~/components/form";
