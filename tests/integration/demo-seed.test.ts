@@ -17,7 +17,7 @@ async function demo(): Promise<{ engines: Row[]; estimated: Estimated[] }> {
   for (const row of engines) {
     const engine = toEngine(row);
     for (const plan of await listPlans(team.id, engine.id)) {
-      const result = await estimatePlan(team.id, engine, plan);
+      const result = await estimatePlan(team.id, engine, plan, { units: "metric" });
       if (!result.ok) throw new Error(`${plan.name}: ${result.problems.join("; ")}`);
       estimated.push({ engine: engine.name, plan, result, chosen: engine.chosenPlanId === plan.id });
     }

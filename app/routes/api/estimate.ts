@@ -1,15 +1,16 @@
 import { PlanInputSchema } from "~/lib/clamp";
-import { estimateView } from "~/lib/plan/estimate-view";
-import { displayWording } from "~/lib/plan/wording";
+import { UNIT_SYSTEMS, type UnitSystem } from "~/lib/units";
+import { estimateInput } from "~/models/plan-estimate.server";
 import { requireApiMember } from "~/utils/auth.server";
 import { clientAddress } from "~/utils/client-address.server";
 import { readJsonBody } from "~/utils/json-body.server";
 import { takeAll, tooManyHeaders, waitWords } from "~/utils/rate-limit.server";
+import type { Route } from "./+types/estimate";
 
 // POST /api/v1/estimate  { input: PlanInput (SI), units?: "metric" | "imperial" } → the estimate, sweep and
 // uncertainty. Figures are SI; `units` only sets how the sentences (warnings, squeeze point) read.
 // Session-authorized; validated with the clamp model's own schema; computes only, stores nothing.
-export async function action({ request, context }: { request: Request; context?: unknown }) {
+export async function action({ request, context }: Route.ActionArgs) {
   if (request.method !== "POST") return Response.json({ error: "Use POST." }, { status: 405 });
   const address = clientAddress(context);
   const beforeSignIn = await takeAll([["apiAddress", address]]);
@@ -33,8 +34,9 @@ export async function action({ request, context }: { request: Request; context?:
     const errors = parsed.error.issues.map((i) => ({ path: i.path.join("."), message: i.message }));
     return Response.json({ error: "The plan has problems; nothing was estimated.", errors }, { status: 400 });
   }
-  const units = body && body.units === "imperial" ? "imperial" : "metric";
-  return Response.json(estimateView(parsed.data, displayWording(units)));
+  // the sentences read in the units asked for, else in the signed-in person's own
+  const units: UnitSystem = UNIT_SYSTEMS.find((u) => u === body.units) ?? user.units;
+  return Response.json(estimateInput(parsed.data, units));
 }
 
 function tooMany(waitMs: number) {

@@ -21,7 +21,7 @@ export async function loader({ request }: Route.LoaderArgs) {
     engineStatusCounts(team.id),
     listEngines(team.id, { sort: "updated", dir: "desc", pageSize: 5 }),
     listAuditEvents(team.id, 10),
-    chosenPlanVerdicts(team.id),
+    chosenPlanVerdicts(team.id, user.units),
   ]);
   // Activity names the plan it touched and links to it while the plan is still there.
   const subjects = rawEvents.map((e) => auditSubject(e.detail));

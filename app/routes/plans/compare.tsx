@@ -24,7 +24,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   // Fewer than two ticked: show the first four and say so.
   const tooFew = wanted.length > 0 && chosen.length < 2;
   const picked = (chosen.length >= 2 ? chosen : plans).slice(0, 4);
-  const columns = await Promise.all(picked.map(async (plan) => ({ plan, result: await estimatePlan(team.id, engine, plan, user.units) })));
+  const columns = await Promise.all(picked.map(async (plan) => ({ plan, result: await estimatePlan(team.id, engine, plan, { units: user.units }) })));
   return { units: user.units, canEdit: roleAtLeast(role, "builder"), engineId: engine.id, chosenPlanId: engine.chosenPlanId, plans: plans.map((p) => ({ id: p.id, name: p.name })), columns, tooMany: wanted.length > 4, tooFew };
 }
 
