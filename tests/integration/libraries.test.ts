@@ -239,7 +239,8 @@ describe("imperial input is stored as SI", () => {
       expect(Math.abs(row.diameter_mm - 12.7)).toBeLessThan(1e-9);
       expect(Math.abs(row.pitch_mm - 1.27)).toBeLessThan(1e-9);
       expect(Math.abs(row.free_thread_length_mm - 19.05)).toBeLessThan(1e-9);
-      expect(Math.abs(row.maker_torque_nm - 110 * 1.3558179)).toBeLessThan(1e-9);
+      // 1 lbf·ft = 0.3048 m × 4.4482216152605 N exactly (NIST SP 811)
+      expect(Math.abs(row.maker_torque_nm - 110 * 0.3048 * 4.4482216152605)).toBeLessThan(1e-9);
       expect(Math.abs(row.maker_stretch_mm - 0.1778)).toBeLessThan(1e-9);
 
       // a unit typed after the number wins over the field's unit (display units via convert-units)

@@ -11,8 +11,35 @@ import temperature from "convert-units/definitions/temperature";
 import torque from "convert-units/definitions/torque";
 import volume from "convert-units/definitions/volume";
 
+type AnyMeasure = Measure<string, string>;
+
+// convert-units ships rounded metric↔imperial anchors (3.28084 ft/m, 4.44822 N/lbf, 1.355818 N·m per
+// lbf·ft); NIST SP 811 defines them exactly, so the anchors are set here from the definitions:
+// 1 ft = 0.3048 m, 1 lbf = 4.4482216152605 N (0.45359237 kg × 9.80665 m/s²).
+const M_PER_FT = 0.3048;
+const N_PER_LBF = 4.4482216152605;
+const KPA_PER_KSI = (N_PER_LBF * 1000) / (0.0254 * 0.0254) / 1000;
+
+function exactAnchors(m: unknown, metricToImperial: number): AnyMeasure {
+  const d = m as AnyMeasure;
+  return { ...d, anchors: { metric: { imperial: { ratio: metricToImperial } }, imperial: { metric: { ratio: 1 / metricToImperial } } } } as AnyMeasure;
+}
+function exactLbf(m: unknown): AnyMeasure {
+  const d = m as AnyMeasure & { systems: Record<string, Record<string, { to_anchor: number }>> };
+  const si = d.systems.SI!;
+  return { ...d, systems: { ...d.systems, SI: { ...si, lbf: { ...si.lbf!, to_anchor: N_PER_LBF } } } } as unknown as AnyMeasure;
+}
+
 // The measures have different unit unions; widen them so one converter serves them all.
-const measures = { area, force, length, pressure, temperature, torque, volume } as unknown as Record<string, Measure<string, string>>;
+const measures: Record<string, AnyMeasure> = {
+  area: exactAnchors(area, 1 / (M_PER_FT * M_PER_FT)),
+  force: exactLbf(force),
+  length: exactAnchors(length, 1 / M_PER_FT),
+  pressure: exactAnchors(pressure, 1 / KPA_PER_KSI),
+  temperature: temperature as unknown as AnyMeasure,
+  torque: exactAnchors(torque, 1 / (N_PER_LBF * M_PER_FT)),
+  volume: volume as unknown as AnyMeasure,
+};
 const convert = configureMeasurements(measures);
 
 /** display = SI × factor + offset, from convert-units' definitions. */
