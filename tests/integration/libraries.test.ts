@@ -259,8 +259,9 @@ describe("imperial input is stored as SI", () => {
 
       expect((await create("materials", material({ name: "Shop test: imperial steel", kind: "steel", modulusMpa: "29.7", yieldMpa: "130", expansionUmPerMC: "6.7" }), cookies.builder)).status).toBe(302);
       const steel = await db()("materials").where({ team_id: teamId, name: "Shop test: imperial steel" }).first();
-      expect(steel.modulus_mpa).toBeCloseTo(29.7 * 6894.757, 6); // Mpsi → MPa
-      expect(steel.yield_mpa).toBeCloseTo(130 * 6.894757, 9); // ksi → MPa
+      // 1 ksi = 1000 lbf/in² = 6.894757293168 MPa (NIST SP 811 definitions)
+      expect(steel.modulus_mpa).toBeCloseTo(29.7 * 6894.757293168, 6); // Mpsi → MPa
+      expect(steel.yield_mpa).toBeCloseTo(130 * 6.894757293168, 9); // ksi → MPa
       expect(steel.expansion_um_per_m_c).toBeCloseTo(6.7 * 1.8, 9); // µin/in·°F → µm/m·°C
     } finally {
       await db()("users").where({ id: builderId }).update({ units: "metric" });
