@@ -1,9 +1,11 @@
 // The shop's library records, SI as stored, with messages written for the builder beside the field.
 import { z } from "zod";
+import { GASKET_TYPES } from "../clamp/schema";
 
 export const MATERIAL_KINDS = ["aluminium", "iron", "steel", "stainless", "copper", "other"] as const;
 export const THREAD_SYSTEMS = ["metric", "unified"] as const;
-export const LIBRARY_GASKET_TYPES = ["solid-copper", "mls", "mls-with-ring", "fire-ring"] as const;
+// the clamp model's list is the one source; the library offers every type the model reads
+export const LIBRARY_GASKET_TYPES = GASKET_TYPES;
 export const LIBRARY_KINDS = ["fasteners", "gaskets", "materials"] as const;
 export type LibraryKind = (typeof LIBRARY_KINDS)[number];
 

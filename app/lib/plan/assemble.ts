@@ -3,6 +3,8 @@
 import { compressionRatio, type CompressionInput } from "../chamber";
 import type { PlanInputRaw, Stud } from "../clamp";
 import { withStretchTarget } from "./stretch";
+import type { GasketFamily } from "../clamp/gasket-families";
+import { ATMOSPHERE_KPA } from "../units";
 
 export interface MaterialRecord {
   name: string;
@@ -28,7 +30,7 @@ export interface FastenerRecord {
 }
 
 export interface GasketRecord {
-  type: "solid-copper" | "mls" | "mls-with-ring" | "fire-ring";
+  type: GasketFamily;
   compressedThicknessMm: number;
   boreMm: number;
   sealDiameterMm: number;
@@ -112,7 +114,6 @@ export interface PlanParts {
 const ASSEMBLY_C = 20;
 // Used only when the engine record has no chamber volume yet; the estimate says so.
 export const ASSUMED_COMPRESSION_RATIO = 9.5;
-const ATMOSPHERE_KPA = 101.325;
 
 /** The chamber figures of this engine with this gasket, or null while the chamber volume is unknown. */
 export function chamberInput(
