@@ -54,6 +54,7 @@ const COLUMNS: Record<LibraryKind, Record<string, string>> = {
     washerHoleMm: "washer_hole_mm",
     washerThicknessMm: "washer_thickness_mm",
     nutFaceOdMm: "nut_face_od_mm",
+    washerHardnessHv: "washer_hardness_hv",
     makerTorqueNm: "maker_torque_nm",
     makerLubricant: "maker_lubricant",
     makerStages: "maker_stages",

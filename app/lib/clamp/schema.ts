@@ -82,6 +82,8 @@ export const PlanInputSchema = z
       washerOdMm: positive("Washer outer diameter", 100),
       washerHoleMm: positive("Washer hole", 60),
       washerThicknessMm: nonNegative("Washer thickness", 20).default(0),
+      /** Vickers hardness of the washer; absent: taken as hardened (see washer.ts). */
+      washerHardnessHv: positive("Washer hardness", 1000).optional(),
       /** "iso" (ISO 68-1 / 898-1) or "unified" (ASME B1.1); detected from the size when not given. */
       threadForm: z.enum(["iso", "unified"]).optional(),
       /** Outer diameter of the nut's (or stud head's) bearing face, where the bearing friction acts. */

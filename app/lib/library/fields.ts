@@ -46,6 +46,13 @@ export const FASTENER_GEOMETRY_FIELDS: NumberField[] = [
   { name: "washerHoleMm", label: "Washer hole", quantity: "length" },
   { name: "washerThicknessMm", label: "Washer thickness", quantity: "length" },
   {
+    name: "washerHardnessHv",
+    label: "Washer hardness (HV)",
+    quantity: "plain",
+    optional: true,
+    hint: "Vickers. Hardened head-stud washers are about 370–450 HV and spread the load over their whole face; a softer one (under 300 HV) carries it nearer the nut. Empty: taken as hardened.",
+  },
+  {
     name: "nutFaceOdMm",
     label: "Nut face diameter",
     quantity: "length",

@@ -70,6 +70,7 @@ export const FastenerSchema = z
     washerHoleMm: positive("Washer hole", 60, "mm"),
     washerThicknessMm: nonNegative("Washer thickness", 20, "mm"),
     nutFaceOdMm: positive("Nut face diameter", 100, "mm").nullable().default(null),
+    washerHardnessHv: positive("Washer hardness", 1000, "HV").nullable().default(null),
     makerTorqueNm: positive("Maker's torque", 5000, "N·m").nullable(),
     makerLubricant: text("the lubricant", 120),
     makerStages: text("the stages", 200),

@@ -26,6 +26,7 @@ export interface FastenerRecord {
   washerHoleMm: number;
   washerThicknessMm: number;
   nutFaceOdMm?: number | null;
+  washerHardnessHv?: number | null;
   material: MaterialRecord;
 }
 
@@ -165,7 +166,7 @@ function assembleTorqueInput(parts: PlanParts): PlanInputRaw {
       washerOdMm: f.washerOdMm,
       washerHoleMm: f.washerHoleMm,
       washerThicknessMm: f.washerThicknessMm,
-      ...present({ nutFaceOdMm: f.nutFaceOdMm }),
+      ...present({ nutFaceOdMm: f.nutFaceOdMm, washerHardnessHv: f.washerHardnessHv }),
     },
     tightening: {
       target: { mode: "torque", torqueNm: plan.torqueNm },
