@@ -60,7 +60,7 @@ function splitList(raw: string): string[] {
 }
 
 /** A share as typed: "0.5", "½" or "1/3". */
-export function readShare(raw: string): number {
+function readShare(raw: string): number {
   const vulgar: Record<string, number> = { "½": 1 / 2, "⅓": 1 / 3, "⅔": 2 / 3, "¼": 1 / 4, "¾": 3 / 4 };
   if (raw in vulgar) return vulgar[raw]!;
   const m = /^(\d+(?:\.\d+)?)\/(\d+(?:\.\d+)?)$/.exec(raw);
@@ -117,7 +117,7 @@ export type ParsedEngine =
   | { ok: false; errors: Record<string, string> };
 
 /** Parse the posted engine form; on failure, the first message per field path ("studs.3.serves"). */
-export function parseEngineForm(form: Record<string, string>, studs: StudRow[], units: UnitSystem): ParsedEngine {
+function parseEngineForm(form: Record<string, string>, studs: StudRow[], units: UnitSystem): ParsedEngine {
   const r = EngineSchema.safeParse(formToRaw(form, studs, units));
   if (r.success) return { ok: true, engine: r.data };
   const errors: Record<string, string> = {};
@@ -126,7 +126,7 @@ export function parseEngineForm(form: Record<string, string>, studs: StudRow[], 
 }
 
 /** Stud rows out of posted fields named stud-<i>-label / -cylinders / -shares. */
-export function studRowsFromForm(form: Record<string, string>): StudRow[] {
+function studRowsFromForm(form: Record<string, string>): StudRow[] {
   const rows: StudRow[] = [];
   for (let i = 0; i < 200; i++) {
     const label = form[`stud-${i}-label`];

@@ -130,10 +130,10 @@ const SCHEMAS = { materials: MaterialSchema, fasteners: FastenerSchema, gaskets:
 const MM_PER_IN = 25.4;
 
 /** Pitch as typed: mm for metric threads, threads per inch for unified. */
-export function pitchToMm(typed: number, threadSystem: string): number {
+function pitchToMm(typed: number, threadSystem: string): number {
   return threadSystem === "unified" ? MM_PER_IN / typed : typed;
 }
-export function pitchFromMm(pitchMm: number, threadSystem: string): number {
+function pitchFromMm(pitchMm: number, threadSystem: string): number {
   return threadSystem === "unified" ? MM_PER_IN / pitchMm : pitchMm;
 }
 

@@ -128,7 +128,7 @@ export interface ConsistencyIssue {
 }
 
 /** Checks across fastener fields: a thread, shank and washer that can exist. */
-export function fastenerConsistency(f: {
+function fastenerConsistency(f: {
   diameterMm: number;
   pitchMm: number;
   reducedShankDiameterMm: number | null;
@@ -151,7 +151,7 @@ export function fastenerConsistency(f: {
 }
 
 /** Checks across gasket fields: the seal band outside the gasket bore, a finish window that is a window. */
-export function gasketConsistency(g: {
+function gasketConsistency(g: {
   boreMm: number;
   sealDiameterMm: number;
   ringWidthMm: number;

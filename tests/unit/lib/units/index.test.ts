@@ -1,4 +1,4 @@
-// The display units against the NIST SP 811 factors (REFERENCES.md header).
+// The display units against the NIST SP 811 factors (docs/references.md header).
 import { describe, expect, it } from "vitest";
 import { formatQuantity, fromDisplay, inputValue, parseQuantity, readQuantity, toDisplay, unitFor } from "../../../../app/lib/units";
 import { IN_TO_MM, LBF_FT_TO_NM, LBF_TO_N, PSI_TO_PA, relErr } from "../nist";
