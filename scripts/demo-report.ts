@@ -12,7 +12,7 @@ for (const row of await db()("engines").where({ team_id: team.id }).orderBy("id"
   const engine = toEngine(row);
   console.log(`\n${engine.name}`);
   for (const plan of await listPlans(team.id, engine.id)) {
-    const r = await estimatePlan(team.id, engine, plan);
+    const r = await estimatePlan(team.id, engine, plan, { units: "metric" });
     if (!r.ok) {
       console.log(`  ${plan.name}: cannot estimate — ${r.problems.join("; ")}`);
       continue;

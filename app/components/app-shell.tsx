@@ -1,6 +1,6 @@
 import { useState, type ReactNode } from "react";
 import { Form, NavLink, useLocation, useMatches } from "react-router";
-import type { Role } from "~/models/user.server";
+import type { Role } from "~/lib/team/roles";
 import { CAUTION_SHORT, pageShowsCaution } from "./caution";
 
 export interface ShellProps {

@@ -1,13 +1,15 @@
 import type { ReactNode } from "react";
 import { CEILING_WORDS } from "~/lib/clamp";
-import { formatQuantity as engineQuantity, layoutName, SLEEVE_LABEL } from "~/lib/engine";
+import { layoutName, SLEEVE_LABEL } from "~/lib/engine";
 import { GASKET_TYPE_LABELS } from "~/lib/library/schemas";
 import { stagesText } from "~/lib/plan/build-sheet";
 import type { EstimateView } from "~/lib/plan/estimate-view";
 import { METHOD_LABEL, WIRE_LABEL } from "~/lib/plan/form";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
 import { Caution } from "./caution";
-import { marginStatus, VerdictLine } from "./estimate-panel";
+import { marginStatus } from "~/lib/plan/margin";
+import { VerdictLine } from "./estimate-panel";
+import { STATUS_LOOK } from "./status-look";
 import { MakerTorque } from "./maker-torque";
 
 // The build sheet a customer reads: plain data in, one page out (on screen and on paper).
@@ -78,7 +80,7 @@ export function BuildSheetView({ engine, sheet, units, teamName }: { engine: She
             ["Block / head", `${materials.block} / ${materials.head}`],
             ["Sleeves", SLEEVE_LABEL[engine.sleeveKind]],
             ["Fuel", engine.fuel || "—"],
-            ["Target manifold pressure", engineQuantity("manifold", engine.targetManifoldKpa, units)],
+            ["Target manifold pressure", formatQuantity(engine.targetManifoldKpa, "manifold", units)],
           ]}
         />
       </Section>
@@ -121,7 +123,7 @@ export function BuildSheetView({ engine, sheet, units, teamName }: { engine: She
           </thead>
           <tbody>
             {e.cylinders.map((c) => {
-              const look = marginStatus(c.sealMargin, view.targetMargin);
+              const look = STATUS_LOOK[marginStatus(c.sealMargin, view.targetMargin)];
               return (
                 <tr key={c.cylinder} className="border-t border-forge-100">
                   <th scope="row" className="px-2 py-1 text-left font-medium">{c.cylinder}</th>

@@ -9,11 +9,10 @@ import {
   SLEEVE_KINDS,
   SLEEVE_LABEL,
   STATUS_LABEL,
-  unitLabel,
   type EngineFormValues,
   type StudRow,
-  type Units,
 } from "~/lib/engine";
+import { unitFor, type UnitSystem } from "~/lib/units";
 
 export interface MaterialChoice {
   id: number;
@@ -27,7 +26,7 @@ interface Props {
   /** The action's last answer: a new one moves focus to the error summary. */
   answer?: unknown;
   materials: MaterialChoice[];
-  units: Units;
+  units: UnitSystem;
   submitLabel: string;
   cancelTo: string;
   /** Shown on edit: archive this engine. */
@@ -44,8 +43,8 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
   const [studs, setStuds] = useState<StudRow[]>(values.studs);
   const [studsPerSide, setStudsPerSide] = useState(values.studsPerSide);
   const [patternError, setPatternError] = useState<string | undefined>(errors.studsPerSide);
-  const len = unitLabel("length", units);
-  const small = unitLabel("smallLength", units);
+  const len = unitFor("length", units);
+  const small = unitFor("smallLength", units);
   const count = Object.keys(errors).length;
   const n = (name: string, label: string, extra: Partial<Parameters<typeof Field>[0]> = {}) => (
     <Field label={label} name={name} defaultValue={f[name] ?? ""} error={errors[name]} inputMode="decimal" {...extra} />
@@ -118,13 +117,13 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
 
       <Fieldset legend="Boost and firing">
         <Field label="Fuel" name="fuel" defaultValue={f.fuel} error={errors.fuel} maxLength={60} hint="As the shop names it, e.g. E85, methanol, race gasoline." />
-        {n("targetManifoldKpa", `Target manifold pressure, absolute (${unitLabel("manifold", units).replace(" abs", "")})`, {
+        {n("targetManifoldKpa", `Target manifold pressure, absolute (${unitFor("manifold", units).replace(" abs", "")})`, {
           hint:
             units === "imperial"
               ? "Absolute = what the boost gauge reads plus the atmosphere (about 14.7 psi): 20 psi of boost is about 34.7 psi absolute. You may type the boost itself, as “20 psi boost”."
               : "Absolute = what the boost gauge reads plus the atmosphere (about 101 kPa): 200 kPa (2 bar) of boost is about 301 kPa absolute. You may type the boost itself, as “2 bar boost”.",
         })}
-        {n("peakPressureMpa", `Peak cylinder pressure (${unitLabel("peak", units)}), optional`, {
+        {n("peakPressureMpa", `Peak cylinder pressure (${unitFor("pressure", units)}), optional`, {
           hint: "Leave blank to let each plan estimate it from boost.",
         })}
         <fieldset aria-describedby={errors.peakPressureSource ? "f-peakPressureSource-error" : undefined}>
@@ -142,8 +141,8 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
           ) : null}
         </fieldset>
         {n("pressureRiseFactor", "Pressure-rise factor", { hint: "How many times the compression pressure the firing peak reaches, 1 to 10 (3 unless you know better). Used only while the peak pressure is estimated." })}
-        {n("runningHeadC", `Running head temperature (${unitLabel("temperature", units)})`)}
-        {n("runningBlockC", `Running block temperature (${unitLabel("temperature", units)})`)}
+        {n("runningHeadC", `Running head temperature (${unitFor("temperature", units)})`)}
+        {n("runningBlockC", `Running block temperature (${unitFor("temperature", units)})`)}
       </Fieldset>
 
       <Fieldset legend="Chamber (for compression and quench)">

@@ -4,6 +4,7 @@ import type { Status } from "~/lib/clamp";
 import { CEILING_WORDS } from "~/lib/clamp/ceiling-words";
 import { rankChecks } from "~/lib/clamp/check-order";
 import type { EstimateView } from "~/lib/plan/estimate-view";
+import { chance, marginStatus } from "~/lib/plan/margin";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
 
 // Chart.js loads only in the browser and only on pages that chart.
@@ -14,14 +15,7 @@ import { STATUS_LOOK, type StatusLook } from "./status-look";
 
 export { STATUS_LOOK, type StatusLook };
 
-/** A seal margin against the target, in the verdict's words. */
-export function marginStatus(margin: number, target: number): StatusLook {
-  return STATUS_LOOK[margin < 1 ? "short" : margin < target ? "thin" : "holds"];
-}
-
 const pct = (x: number) => `${(x * 100).toFixed(0)} %`;
-/** A probability as the compare page shows it too. */
-export const chance = (x: number) => `${(x * 100).toFixed(1)} %`;
 
 /** The verdict in one line, for the phone's sticky bar and the plan list. */
 export function VerdictLine({ view }: { view: EstimateView }) {
@@ -187,7 +181,7 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
           </thead>
           <tbody>
             {e.cylinders.map((c) => {
-              const s = marginStatus(c.sealMargin, view.targetMargin);
+              const s = STATUS_LOOK[marginStatus(c.sealMargin, view.targetMargin)];
               return (
                 <tr key={c.cylinder} className={`border-t border-forge-100 ${c.cylinder === e.weakestCylinder ? "font-bold" : ""}`}>
                   <th scope="row" className="px-2 py-1 text-left">

@@ -3,7 +3,7 @@ import type { EngineListSchema, EngineSchema, PlanSchema, PlanWithEstimateSchema
 import type { UnitSystem } from "~/lib/units";
 import type { Asker } from "./viewer-scope.server";
 import { getEngine, listEngines, type EngineRow, type EngineStatus } from "./engine.server";
-import { estimatePlan, storedPlanInput } from "./plan-estimate.server";
+import { checkedPlanInput, estimatePlan } from "./plan-estimate.server";
 import { listPlans, type PlanRow } from "./plan.server";
 
 // The API's reads, through the same team-scoped model functions the pages use (so any scoping they
@@ -40,7 +40,7 @@ export async function planListForApi(teamId: number, engine: EngineRow, page: nu
 export async function planWithEstimateForApi(teamId: number, engine: EngineRow, planId: number, units: UnitSystem): Promise<z.output<typeof PlanWithEstimateSchema> | null> {
   const plan = (await listPlans(teamId, engine.id)).find((p) => p.id === planId);
   if (!plan) return null;
-  const [result, input] = await Promise.all([estimatePlan(teamId, engine, plan, units), storedPlanInput(teamId, engine, plan)]);
+  const [result, input] = await Promise.all([estimatePlan(teamId, engine, plan, { units }), checkedPlanInput(teamId, engine, plan, units)]);
   return {
     plan: planForApi(plan, engine),
     input: input.ok ? (input.plan as unknown as Record<string, unknown>) : null,

@@ -27,7 +27,7 @@ export async function buildSheet(teamId: number, engine: EngineRow, units: UnitS
   if (engine.chosenPlanId === null) return { ok: false, reason: "No seal plan is chosen for this engine yet." };
   const plan = await requirePlan(teamId, engine.id, String(engine.chosenPlanId)).catch(() => null);
   if (!plan) return { ok: false, reason: "The chosen seal plan is no longer there; choose another." };
-  const estimate = await estimatePlan(teamId, engine, plan, units);
+  const estimate = await estimatePlan(teamId, engine, plan, { units });
   if (!estimate.ok) return { ok: false, reason: `The chosen plan cannot be estimated: ${estimate.problems.join(" ")}` };
   const input = chamberInput(engine, estimate.gasket);
   const chamber = input && chamberProblems(input).length === 0 ? compressionRatio(input) : null;

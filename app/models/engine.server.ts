@@ -2,7 +2,7 @@ import type { Knex } from "knex";
 import { data } from "react-router";
 import type { Stud } from "~/lib/clamp/schema";
 import type { EngineInput } from "~/lib/engine/schema";
-import { db, now, withTeam } from "~/utils/db.server";
+import { db, now, withTeam, type DbRow } from "~/utils/db.server";
 import { parseId } from "~/utils/ids";
 import { viewerScope, type Asker } from "./viewer-scope.server";
 
@@ -47,7 +47,7 @@ export interface EngineRow {
 }
 
 // snake_case row → EngineRow
-export function toEngine(r: Record<string, any>): EngineRow {
+export function toEngine(r: DbRow): EngineRow {
   return {
     id: r.id,
     teamId: r.team_id,
@@ -201,7 +201,7 @@ async function listEnginesOn(k: Knex, who: Asker, query: EngineListQuery): Promi
     .limit(pageSize)
     .offset((page - 1) * pageSize);
   return {
-    rows: rows.map(({ layout_key: _l, status_rank: _s, ...r }: Record<string, any>) => r as EngineListRow),
+    rows: rows.map(({ layout_key: _l, status_rank: _s, ...r }: DbRow) => r as EngineListRow),
     total: Number(n),
   };
 }

@@ -1,7 +1,7 @@
 import type { Knex } from "knex";
 import { data } from "react-router";
 import type { FastenerInput, GasketInput, LibraryKind, MaterialInput } from "~/lib/library/schemas";
-import { db, now } from "~/utils/db.server";
+import { db, now, type DbRow } from "~/utils/db.server";
 
 export { seedTeamLibrary } from "./library-seed.server";
 
@@ -26,7 +26,7 @@ export type FastenerRow = LibraryMeta & Omit<FastenerInput, "name"> & { material
 export type GasketRow = LibraryMeta & Omit<GasketInput, "name">;
 export type LibraryRow = MaterialRow | FastenerRow | GasketRow;
 
-type Raw = Record<string, any>;
+type Raw = DbRow;
 
 const TABLE: Record<LibraryKind, string> = { materials: "materials", fasteners: "fasteners", gaskets: "gaskets" };
 const SINGULAR: Record<LibraryKind, string> = { materials: "material", fasteners: "fastener", gaskets: "gasket" };
@@ -54,6 +54,7 @@ const COLUMNS: Record<LibraryKind, Record<string, string>> = {
     washerHoleMm: "washer_hole_mm",
     washerThicknessMm: "washer_thickness_mm",
     nutFaceOdMm: "nut_face_od_mm",
+    washerHardnessHv: "washer_hardness_hv",
     makerTorqueNm: "maker_torque_nm",
     makerLubricant: "maker_lubricant",
     makerStages: "maker_stages",

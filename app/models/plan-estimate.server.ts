@@ -1,36 +1,62 @@
-import { evaluatePlan, parsePlan, type PlanEstimate, type PlanInput, type Status } from "~/lib/clamp";
-import { assemblePlanInput, type PlanRecord } from "~/lib/plan/assemble";
+import { evaluatePlan, parsePlan, suggest, type PlanEstimate, type PlanInput, type Status, type Suggestion } from "~/lib/clamp";
+import { assemblePlanInput, gasketFitProblem, type PlanRecord } from "~/lib/plan/assemble";
 import { estimateView, type EstimateView } from "~/lib/plan/estimate-view";
+import { stretchLineFor, type StretchLine } from "~/lib/plan/stretch";
 import { displayWording } from "~/lib/plan/wording";
-import type { UnitSystem } from "~/lib/units";
+import { formatQuantity, type UnitSystem } from "~/lib/units";
 import { toEngine, type EngineRow } from "./engine.server";
 import { db } from "~/utils/db.server";
 import { viewerScope, type Asker } from "./viewer-scope.server";
 import { planParts, requirePlan, type FastenerInfo, type GasketInfo } from "./plan.server";
 
+// The plan estimate, the one domain service every page and the API call: the plan's parts from this
+// team's rows (or, for the API, a plan in SI), the gasket-fit check, the clamp model's validation,
+// then the estimate worded in the person's units. Nothing here writes.
+
 export type PlanEstimateResult =
-  | { ok: true; view: EstimateView; fastener: FastenerInfo; gasket: GasketInfo }
+  | { ok: true; view: EstimateView; suggestion: Suggestion | null; fastener: FastenerInfo; gasket: GasketInfo }
   | { ok: false; problems: string[]; fastener: FastenerInfo | null; gasket: GasketInfo | null };
 
-type StoredPlan = PlanRecord & { gasketId: number; fastenerId: number };
+/** A plan as stored or as typed (not yet saved): its record and the library rows it names. */
+type PlanFigures = PlanRecord & { gasketId: number; fastenerId: number };
 type Parsed =
   | { ok: true; plan: PlanInput; fastener: FastenerInfo; gasket: GasketInfo }
   | { ok: false; problems: string[]; fastener: FastenerInfo | null; gasket: GasketInfo | null };
 
-/** The plan's parts from this team's rows, as the clamp model's validated input (the API hands it out as the plan's `input`). */
-export async function storedPlanInput(teamId: number, engine: EngineRow, plan: StoredPlan): Promise<Parsed> {
+/**
+ * The plan's parts from this team's rows, checked for gasket fit, as the clamp model's validated input
+ * (the API hands it out as the plan's `input`).
+ */
+export async function checkedPlanInput(teamId: number, engine: EngineRow, plan: PlanFigures, units: UnitSystem): Promise<Parsed> {
   const parts = await planParts(teamId, engine, plan);
-  if (!parts) return { ok: false, problems: ["The plan's gasket, fastener or the engine's materials are missing from the library."], fastener: null, gasket: null };
+  if (!parts) return { ok: false, problems: ["Pick a gasket and fastener from this shop's library (and the engine's materials)."], fastener: null, gasket: null };
+  const found = { fastener: parts.fastenerInfo, gasket: parts.gasketInfo };
+  const misfit = gasketFitProblem(engine.boreMm, parts.gasket.boreMm, (mm) => formatQuantity(mm, "length", units));
+  if (misfit) return { ok: false, problems: [misfit], ...found };
   const parsed = parsePlan(assemblePlanInput(parts));
-  if (!parsed.ok) return { ok: false, problems: parsed.errors.map((e) => e.message), fastener: parts.fastenerInfo, gasket: parts.gasketInfo };
-  return { ok: true, plan: parsed.plan, fastener: parts.fastenerInfo, gasket: parts.gasketInfo };
+  if (!parsed.ok) return { ok: false, problems: parsed.errors.map((e) => e.message), ...found };
+  return { ok: true, plan: parsed.plan, ...found };
 }
 
-/** Loads the plan's parts from this team's rows, builds the model input and runs the estimate. */
-export async function estimatePlan(teamId: number, engine: EngineRow, plan: StoredPlan, units: UnitSystem = "metric"): Promise<PlanEstimateResult> {
-  const r = await storedPlanInput(teamId, engine, plan);
+export interface EstimateOptions {
+  /** The person's units: every sentence and figure in the answer reads in them. */
+  units: UnitSystem;
+  /** Also work out a suggestion toward the plan's target margin. */
+  withSuggestion?: boolean;
+}
+
+/** The estimate (sweep and scatter included) for a stored plan or for plan figures not yet saved. */
+export async function estimatePlan(teamId: number, engine: EngineRow, plan: PlanFigures, options: EstimateOptions): Promise<PlanEstimateResult> {
+  const r = await checkedPlanInput(teamId, engine, plan, options.units);
   if (!r.ok) return r;
-  return { ok: true, view: estimateView(r.plan, displayWording(units)), fastener: r.fastener, gasket: r.gasket };
+  const wording = displayWording(options.units);
+  const suggestion = options.withSuggestion ? suggest(r.plan, { targetMargin: r.plan.targetMargin, wording }) : null;
+  return { ok: true, view: estimateView(r.plan, wording), suggestion, fastener: r.fastener, gasket: r.gasket };
+}
+
+/** The estimate for a plan sent in SI (the API): validated by the clamp model's own schema by the caller. */
+export function estimateInput(plan: PlanInput, units: UnitSystem): EstimateView {
+  return estimateView(plan, displayWording(units));
 }
 
 export type PlanEvaluationResult =
@@ -38,10 +64,16 @@ export type PlanEvaluationResult =
   | { ok: false; problems: string[]; fastener: FastenerInfo | null; gasket: GasketInfo | null };
 
 /** The evaluation alone (verdict, margins, ceiling): no sweep and no scatter run, for lists. */
-export async function evaluateStoredPlan(teamId: number, engine: EngineRow, plan: StoredPlan, units: UnitSystem = "metric"): Promise<PlanEvaluationResult> {
-  const r = await storedPlanInput(teamId, engine, plan);
+export async function evaluateStoredPlan(teamId: number, engine: EngineRow, plan: PlanFigures, units: UnitSystem): Promise<PlanEvaluationResult> {
+  const r = await checkedPlanInput(teamId, engine, plan, units);
   if (!r.ok) return r;
   return { ok: true, estimate: evaluatePlan(r.plan, displayWording(units), { sentences: false }), fastener: r.fastener, gasket: r.gasket };
+}
+
+/** The stud stretch line for plan figures (saved or as typed), or null when the parts are missing. */
+export async function planStretch(teamId: number, engine: EngineRow, plan: PlanFigures): Promise<StretchLine | null> {
+  const parts = await planParts(teamId, engine, plan);
+  return parts ? stretchLineFor(assemblePlanInput(parts)) : null;
 }
 
 export interface ChosenPlanVerdict {
@@ -59,7 +91,7 @@ export interface ChosenPlanVerdict {
  * The verdict of each working engine's chosen plan (not retired, most recently touched first, at most
  * `limit`): the evaluation only, no sweep or scatter run. Plans that cannot be estimated are left out.
  */
-export async function chosenPlanVerdicts(who: Asker, limit = 50): Promise<ChosenPlanVerdict[]> {
+export async function chosenPlanVerdicts(who: Asker, units: UnitSystem, limit = 50): Promise<ChosenPlanVerdict[]> {
   const teamId = who.teamId;
   const rows = await viewerScope(db()("engines"), who)
     .whereNull("archived_at")
@@ -73,7 +105,7 @@ export async function chosenPlanVerdicts(who: Asker, limit = 50): Promise<Chosen
     const engine = toEngine(row);
     const plan = await requirePlan(teamId, engine.id, String(engine.chosenPlanId)).catch(() => null);
     if (!plan) continue;
-    const r = await evaluateStoredPlan(teamId, engine, plan);
+    const r = await evaluateStoredPlan(teamId, engine, plan, units);
     if (!r.ok) continue;
     const v = r.estimate.verdict;
     out.push({ engineId: engine.id, engineName: engine.name, planId: plan.id, planName: plan.name, status: v.status, headline: v.headline, limiting: v.limiting });

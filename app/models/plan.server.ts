@@ -2,7 +2,7 @@ import { data } from "react-router";
 import type { PlanParts, PlanRecord } from "~/lib/plan/assemble";
 import type { PlanWrite } from "~/lib/plan/form";
 import type { Knex } from "knex";
-import { db, now, writeTransaction } from "~/utils/db.server";
+import { db, now, writeTransaction, type DbRow } from "~/utils/db.server";
 import type { EngineRow } from "./engine.server";
 import {
   getFastener as getLibraryFastener,
@@ -34,7 +34,7 @@ export interface PlanRow extends PlanRecord {
 export type FastenerInfo = FastenerRow & { material: MaterialRow };
 export type GasketInfo = GasketRow;
 
-type Row = Record<string, any>;
+type Row = DbRow;
 
 function toPlan(r: Row): PlanRow {
   return {

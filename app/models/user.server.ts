@@ -3,14 +3,16 @@ import { db, now } from "~/utils/db.server";
 import { hashPassword } from "~/utils/password.server";
 import { seedTeamLibrary } from "./library-seed.server";
 
-export type Role = "owner" | "builder" | "viewer";
-export type Units = "metric" | "imperial";
+import type { Role } from "~/lib/team/roles";
+import type { UnitSystem } from "~/lib/units";
+
+export type { Role };
 
 export interface UserRow {
   id: number;
   email: string;
   name: string;
-  units: Units;
+  units: UnitSystem;
 }
 
 export interface MembershipRow {
@@ -82,7 +84,7 @@ export async function createUserWithTeam(input: {
 
 export async function insertUser(
   trx: Knex,
-  input: { email: string; name: string; passwordHash: string; units?: Units },
+  input: { email: string; name: string; passwordHash: string; units?: UnitSystem },
 ): Promise<UserRow> {
   const [row] = await trx("users")
     .insert({
@@ -109,11 +111,11 @@ export async function listMemberships(userId: number): Promise<MembershipRow[]> 
     .select({ teamId: "t.id", teamName: "t.name", role: "m.role" });
 }
 
-export async function setUnits(userId: number, units: Units): Promise<void> {
+export async function setUnits(userId: number, units: UnitSystem): Promise<void> {
   await db()("users").where({ id: userId }).update({ units });
 }
 
-export async function updateProfile(userId: number, input: { name: string; units: Units }): Promise<void> {
+export async function updateProfile(userId: number, input: { name: string; units: UnitSystem }): Promise<void> {
   await db()("users").where({ id: userId }).update({ name: input.name.trim(), units: input.units });
 }
 

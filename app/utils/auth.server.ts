@@ -5,6 +5,7 @@ import { getUserById, getUserWithHashByEmail, listMemberships, type MembershipRo
 import type { Asker } from "~/models/viewer-scope.server";
 import { dummyPasswordHash, verifyPassword } from "./password.server";
 import { getSession, sessionStorage } from "./session.server";
+import { roleAtLeast } from "~/lib/team/roles";
 
 export const SIGN_IN_FAILED = "Wrong e-mail or password.";
 
@@ -35,11 +36,8 @@ export interface Member {
   who: Asker;
 }
 
-const ROLE_RANK: Record<Role, number> = { viewer: 0, builder: 1, owner: 2 };
-
-export function roleAtLeast(role: Role, needed: Role): boolean {
-  return ROLE_RANK[role] >= ROLE_RANK[needed];
-}
+// the one role rank lives in app/lib/team/roles.ts; routes import it from here with the guards
+export { roleAtLeast };
 
 function signInRedirect(request: Request): never {
   const url = new URL(request.url);
@@ -108,6 +106,7 @@ const REDIRECT_BASE = "http://sealwright.invalid";
  */
 export function safeRedirect(to: string | null | undefined, fallback = "/dashboard"): string {
   if (typeof to !== "string" || !to.startsWith("/") || to.startsWith("//")) return fallback;
+  // eslint-disable-next-line no-control-regex -- control characters are exactly what this refuses
   if (/[\u0000-\u001f\u007f-\u009f\\]/.test(to)) return fallback;
   let url: URL;
   try {

@@ -6,6 +6,13 @@ let instance: Knex | undefined;
 let signalsHooked = false;
 
 // The app's single Knex instance. The pool is closed on SIGTERM/SIGINT so the server can exit.
+/**
+ * A database row as Knex returns it (snake_case columns). Each model maps it to its own camelCase
+ * type in one `to…` function next to its queries; nothing else reads raw rows.
+ */
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- column types vary by driver (SQLite, PostgreSQL)
+export type DbRow = Record<string, any>;
+
 export function db(): Knex {
   if (instance) return instance;
   instance = knexFactory(knexConfig(databaseTarget()));

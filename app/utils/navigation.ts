@@ -1,4 +1,4 @@
-import type { Role } from "~/models/user.server";
+import { roleAtLeast, type Role } from "~/lib/team/roles";
 
 // Which pages each role sees in the main navigation (the route guards enforce the same).
 export const PAGE_ROLE: Record<string, Role> = {
@@ -19,10 +19,8 @@ const LABELS: Record<string, string> = {
   "/settings": "Settings",
 };
 
-const RANK: Record<Role, number> = { viewer: 0, builder: 1, owner: 2 };
-
 export function navFor(role: Role): { to: string; label: string }[] {
   return Object.entries(PAGE_ROLE)
-    .filter(([, needed]) => RANK[role] >= RANK[needed])
+    .filter(([, needed]) => roleAtLeast(role, needed))
     .map(([to]) => ({ to, label: LABELS[to] ?? to }));
 }

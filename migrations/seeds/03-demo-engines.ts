@@ -3,7 +3,7 @@ import { defaultStudPattern } from "../../app/lib/clamp/pattern.ts";
 
 // Three invented customer engines for the demo shop, each with two or three seal plans, so a newcomer
 // sees a real comparison at once. Customers and crews are invented. Runs only while the shop has no engines.
-// Friction: REFERENCES §2 gives K ≈ 0.12 with anti-seize/moly-type compound and 0.18 "lubricated"
+// Friction: docs/references.md §2 gives K ≈ 0.12 with anti-seize/moly-type compound and 0.18 "lubricated"
 // (Shigley & Mischke, after a fastener handbook); μ ≈ 0.10–0.14 with moly paste and 0.14–0.18 with
 // engine oil is the usual reading of those K values (from memory).
 const DEMO_TEAM = "Harrow Lane Boost Works";

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { toEngine } from "~/models/engine.server";
 import { estimatePlan, type PlanEstimateResult } from "~/models/plan-estimate.server";
 import { listPlans, type PlanRow } from "~/models/plan.server";
-import { db } from "~/utils/db.server";
+import { db, type DbRow } from "~/utils/db.server";
 import { learnedFrictions } from "~/models/assembly-readings.server";
 import { evidencePoints } from "~/models/evidence.server";
 import { summarize } from "~/lib/records/evidence";
@@ -10,7 +10,7 @@ import { summarize } from "~/lib/records/evidence";
 // Every seeded demo plan, estimated the way the app does it (stored rows → planParts → the clamp
 // model), and the story the demo is there to tell (migrations/seeds/03-demo-engines.ts).
 
-type Row = Record<string, any>;
+type Row = DbRow;
 type Estimated = { engine: string; plan: PlanRow; result: Extract<PlanEstimateResult, { ok: true }>; chosen: boolean };
 
 async function demo(): Promise<{ engines: Row[]; estimated: Estimated[] }> {
@@ -20,7 +20,7 @@ async function demo(): Promise<{ engines: Row[]; estimated: Estimated[] }> {
   for (const row of engines) {
     const engine = toEngine(row);
     for (const plan of await listPlans(team.id, engine.id)) {
-      const result = await estimatePlan(team.id, engine, plan);
+      const result = await estimatePlan(team.id, engine, plan, { units: "metric" });
       if (!result.ok) throw new Error(`${plan.name}: ${result.problems.join("; ")}`);
       estimated.push({ engine: engine.name, plan, result, chosen: engine.chosenPlanId === plan.id });
     }

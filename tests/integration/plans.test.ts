@@ -294,7 +294,7 @@ describe("new plan", () => {
 });
 
 describe("chamber", () => {
-  it("works out the compression ratio from the engine and the chosen gasket (REFERENCES §8 formula, computed here)", async () => {
+  it("works out the compression ratio from the engine and the chosen gasket (docs/references.md §8 formula, computed here)", async () => {
     const out = await call(chamber.loader as Handler, get(`/engines/${engineId}/chamber`, builder), { engineId: String(engineId) });
     const body = out.body as { result: { before: { compressionRatio: number } }; gasketId: number };
     const e = await db()("engines").where({ id: engineId }).first();

@@ -60,7 +60,7 @@ const owner = (teamId: number) => ({ teamId, userId: 0, role: "owner" as const }
 const HOT: [string, (t: { teamId: number; engineId: number }) => Promise<unknown>][] = [
   ["dashboard activity", ({ teamId }) => listAuditEvents(teamId, 10)],
   ["dashboard engine counts", ({ teamId }) => engineStatusCounts(owner(teamId))],
-  ["dashboard chosen-plan verdicts", ({ teamId }) => chosenPlanVerdicts(owner(teamId))],
+  ["dashboard chosen-plan verdicts", ({ teamId }) => chosenPlanVerdicts(owner(teamId), "metric")],
   ["engine list, default sort", ({ teamId }) => listEngines(owner(teamId), {})],
   ["engine list by name", ({ teamId }) => listEngines(owner(teamId), { sort: "name", dir: "asc" })],
   ["engine list by status filter", ({ teamId }) => listEngines(owner(teamId), { status: "running" })],

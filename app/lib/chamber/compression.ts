@@ -37,9 +37,9 @@ function cylinderCc(diameterMm: number, heightMm: number): number {
 }
 
 export function compressionRatioFromVolumes(v: ChamberVolumes): number {
-  // REFERENCES §8: Vc = chamber + gasket + deck clearance ± piston dish/dome
+  // docs/references.md §8: Vc = chamber + gasket + deck clearance ± piston dish/dome
   const clearance = v.chamberCc + v.gasketCc + v.deckCc + v.pistonCc;
-  // REFERENCES §8: CR = (Vs + Vc)/Vc
+  // docs/references.md §8: CR = (Vs + Vc)/Vc
   return (v.sweptCc + clearance) / clearance;
 }
 
@@ -51,7 +51,7 @@ export function quenchMm(deckClearanceMm: number, gasketThicknessMm: number): nu
 
 export function compressionRatio(a: CompressionInput): CompressionResult {
   const sweptCc = cylinderCc(a.boreMm, a.strokeMm);
-  // REFERENCES §8: gasket volume = (π/4)·gasket bore²·compressed thickness
+  // docs/references.md §8: gasket volume = (π/4)·gasket bore²·compressed thickness
   const gasketCc = cylinderCc(a.gasketBoreMm, a.gasketThicknessMm);
   const deckCc = cylinderCc(a.boreMm, a.deckClearanceMm);
   const volumes = { sweptCc, chamberCc: a.chamberCc, gasketCc, deckCc, pistonCc: a.pistonVolumeCc };
@@ -62,7 +62,7 @@ export function compressionRatio(a: CompressionInput): CompressionResult {
     clearanceCc,
     compressionRatio: compressionRatioFromVolumes(volumes),
     quenchMm: q,
-    // REFERENCES §8, common practice: 0.035–0.045 in (0.9–1.15 mm) with steel rods
+    // docs/references.md §8, common practice: 0.035–0.045 in (0.9–1.15 mm) with steel rods
     quenchInUsualRange: q >= 0.889 && q <= 1.143,
   };
 }

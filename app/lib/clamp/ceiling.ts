@@ -85,7 +85,7 @@ function ceilingFor(p: Prepared): { torques: Record<CeilingCause, number>; cause
   // VDI 2230: σred(FMmax) = ν·Rp0.2
   const studAssembly = toT((p.plan.model.studLimitFraction * f.yieldMpa) / p.stressPerN.equivalent);
   // VDI 2230: (FMmax + heat + Φn·FA)/Ap = pG
-  const bearing = toT(p.plan.head.limitingSurfacePressureMpa * p.bearingAreaMm2 - extra);
+  const bearing = toT(p.bearingCapacityN - extra);
   const work0 = workingState(p, 1);
   const strip = work0.stripCapacityN === null ? Infinity : toT(work0.stripCapacityN - extra);
   const hi = Math.max(studAssembly, 1) * 4;

@@ -252,7 +252,7 @@ export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefin
       bearingPressureMpa: F / p.bearingAreaMm2,
       bearingPressureMaxMpa: working.studLoadN / p.bearingAreaMm2,
       limitMpa: p.plan.head.limitingSurfacePressureMpa,
-      bearingUtilizationMax: working.studLoadN / p.bearingAreaMm2 / p.plan.head.limitingSurfacePressureMpa,
+      bearingUtilizationMax: working.studLoadN / p.bearingCapacityN,
       // Shigley §8-5: the head layer's share of the member compression, δ = F·c_head
       compressionPerStudMm: F * p.headComplianceMmPerN,
     },

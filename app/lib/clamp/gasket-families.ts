@@ -39,7 +39,7 @@ export const TYPICAL_GASKETS: Record<GasketFamily, TypicalGasket> = {
     relaxationPercent: 3,
     // with sealant or o-rings at the coolant holes, as is usual under solid copper (common practice)
     bodySealPressureMpa: 5,
-    notes: "Ring: 300-series wire (REFERENCES §7); the wire bites into annealed copper (40 HV, published). Body pressure to seal coolant (with sealant or o-rings at the coolant holes, common practice) and relaxation are our assumptions.",
+    notes: "Ring: 300-series wire; the wire bites into annealed copper (40 HV, published). Body pressure to seal coolant (with sealant or o-rings at the coolant holes, common practice) and relaxation are our assumptions.",
   },
   mls: {
     label: "Multilayer steel with a stopper",

@@ -1,4 +1,4 @@
-// Handbook values (REFERENCES.md §6–§7), each with its source, for seeding libraries and for tests.
+// Handbook values (docs/references.md §6–§7), each with its source, for seeding libraries and for tests.
 // Typical or minimum as noted; a shop's own data beats these.
 
 export interface HandbookMaterial {

@@ -220,14 +220,17 @@ export function verdictFor(p: Prepared, nominalN: number, targetMargin: number, 
     checked: true,
   });
   const bearingMpa = work.studLoadN / p.bearingAreaMm2;
-  const bearingRatio = p.plan.head.limitingSurfacePressureMpa / bearingMpa;
+  const bearingRatio = p.bearingCapacityN / work.studLoadN;
   checks.push({
     id: "bearing",
     label: "Washer bearing on the head, top of the band, hot and fired",
     ratio: bearingRatio,
     thinBelow: 1,
     status: status(bearingRatio, 1),
-    detail: `${w.stress(bearingMpa)} under the washer against the head's ${w.stress(p.plan.head.limitingSurfacePressureMpa)}`,
+    detail:
+      p.washer.limitedBy === "washer"
+        ? `the nut face dents the washer before the head gives: a harder washer raises this limit (${w.stress(bearingMpa)} under the washer on the head)`
+        : `${w.stress(bearingMpa)} under the washer against the head's ${w.stress(p.plan.head.limitingSurfacePressureMpa)}`,
     checked: true,
   });
   if (work.stripCapacityN !== null && work.minEngagementMm !== null) {

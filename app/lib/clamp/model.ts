@@ -9,6 +9,7 @@ import { effectiveGapMm, gasketBodyStiffness, sealBandAreaMm2, sealLineStiffness
 import { jointConstant, loadFactorAtInnerPlane, memberStiffness, studStiffness, wilemanMemberStiffness, type Layer, type MemberStiffness, type StudStiffness } from "./stiffness";
 import { embeddingLossN, embeddingMm, thermalPreloadChangeN } from "./thermal";
 import { circleAreaMm2, looksUnified, threadGeometry, type ThreadForm, type ThreadGeometry } from "./thread";
+import { washerBearing, type WasherBearing } from "./washer";
 import { bearingDiameterMm, frictionFaceOdMm, TIGHTENING_FACTOR, tighteningStressPerN, torquePerPreloadMm, type Friction, type TorqueGeometry } from "./torque";
 
 export interface Prepared {
@@ -36,7 +37,11 @@ export interface Prepared {
   section: { areaMm2: number; diameterMm: number };
   stressPerN: { axial: number; torsion: number; equivalent: number };
   studLimitMpa: number;
+  /** Annulus of the head under the washer that carries the stud load (washer.ts). */
   bearingAreaMm2: number;
+  /** Stud load at the washer-bearing limit: the head's limiting pressure, or the washer dented by the nut. */
+  bearingCapacityN: number;
+  washer: WasherBearing;
   headComplianceMmPerN: number;
   deck: { thicknessMm: number; outerRadiusMm: number; assumed: boolean };
   paths: BorePaths;
@@ -271,6 +276,16 @@ export function prepare(plan: PlanInput): Prepared {
   // head/gasket, gasket/deck, and washer/head when there is a washer
   const embedMm = embeddingMm(plan.surfaceRoughness, { threads: 2, bearings: 1, innerInterfaces: 2 + (f.washerThicknessMm > 0 ? 1 : 0) });
 
+  const washer = washerBearing(
+    {
+      washerOdMm: f.washerOdMm,
+      washerHoleMm: f.washerHoleMm,
+      washerThicknessMm: f.washerThicknessMm,
+      nutFaceOdMm: Math.min(f.washerOdMm, f.nutFaceOdMm ?? 1.45 * f.diameterMm),
+      ...(f.washerHardnessHv !== undefined ? { washerHardnessHv: f.washerHardnessHv } : {}),
+    },
+    plan.head.limitingSurfacePressureMpa,
+  );
   return {
     plan,
     threadForm,
@@ -291,8 +306,10 @@ export function prepare(plan: PlanInput): Prepared {
     section,
     stressPerN,
     studLimitMpa: plan.model.studLimitFraction * f.yieldMpa,
-    // geometry: annulus under the washer π/4·(dw² − dh²)
-    bearingAreaMm2: circleAreaMm2(f.washerOdMm) - circleAreaMm2(f.washerHoleMm),
+    // geometry: annulus under the washer π/4·(dw² − dh²), narrowed for a soft washer (washer.ts)
+    bearingAreaMm2: washer.headAreaMm2,
+    bearingCapacityN: washer.capacityN,
+    washer,
     headComplianceMmPerN: headLayer,
     deck,
     paths: { elements },

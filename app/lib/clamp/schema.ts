@@ -1,6 +1,7 @@
 // The plan input: what a builder enters for one seal plan on one engine, SI with units in names.
 // Messages are written for the builder reading them beside the field.
 import { z } from "zod";
+import { shareProblem } from "./stud-shares";
 
 // z.number() in zod 4 already refuses NaN and ±Infinity; the message covers both.
 const num = (label: string) => z.number({ error: `${label} must be a finite number` });
@@ -82,6 +83,8 @@ export const PlanInputSchema = z
       washerOdMm: positive("Washer outer diameter", 100),
       washerHoleMm: positive("Washer hole", 60),
       washerThicknessMm: nonNegative("Washer thickness", 20).default(0),
+      /** Vickers hardness of the washer; absent: taken as hardened (see washer.ts). */
+      washerHardnessHv: positive("Washer hardness", 1000).optional(),
       /** "iso" (ISO 68-1 / 898-1) or "unified" (ASME B1.1); detected from the size when not given. */
       threadForm: z.enum(["iso", "unified"]).optional(),
       /** Outer diameter of the nut's (or stud head's) bearing face, where the bearing friction acts. */
@@ -252,10 +255,8 @@ function checkPlan(p: PlanInput, ctx: z.RefinementCtx): void {
   p.studs.forEach((stud, i) => {
     if (!Array.isArray(stud?.serves) || stud.serves.length > 16) return;
     const name = stud.label ? `stud ${stud.label}` : `stud ${i + 1}`;
-    let sum = 0;
     const seen = new Set<number>();
     stud.serves.forEach((s, j) => {
-      sum += s.share;
       if (s.cylinder > p.engine.cylinders)
         issue(
           ["studs", i, "serves", j, "cylinder"],
@@ -265,8 +266,8 @@ function checkPlan(p: PlanInput, ctx: z.RefinementCtx): void {
       seen.add(s.cylinder);
       served.add(s.cylinder);
     });
-    if (Math.abs(sum - 1) > 0.005)
-      issue(["studs", i, "serves"], `Stud shares for ${name} add up to ${fmt(sum)}; they must add up to 1`);
+    const shares = shareProblem(stud, name);
+    if (shares) issue(["studs", i, "serves"], shares);
   });
   for (let c = 1; c <= p.engine.cylinders; c++) {
     if (!served.has(c)) issue(["studs"], `No stud serves cylinder ${c}`);

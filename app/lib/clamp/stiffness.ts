@@ -212,7 +212,7 @@ export function jointUnderLoad(preloadN: number, externalN: number, phi: number)
 
 /**
  * Load factor Φn for a load that enters at an inner plane of the joint (VDI 2230 Part 1, load
- * introduction factor n; REFERENCES §4). The gas load acts on the fire deck at the gasket plane: the
+ * introduction factor n; docs/references.md §4). The gas load acts on the fire deck at the gasket plane: the
  * head sits on the stud's side, and only the parts below the plane (gasket, block, sleeve) are relieved.
  * From the two compatibility conditions: Φn = δ_below/(δS + δP), so those parts lose (1 − Φn)·FA.
  */

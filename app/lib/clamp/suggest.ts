@@ -32,7 +32,7 @@ function marginsAtTorque(p: Prepared, torqueNm: number): { seal: number; body: n
   return { seal: b.atMin[b.weakestAtMin].sealMargin, body: b.atMin[b.worstBodyAtMin].bodyMargin };
 }
 
-export function weakestMarginAtTorque(p: Prepared, torqueNm: number): number {
+function weakestMarginAtTorque(p: Prepared, torqueNm: number): number {
   return marginsAtTorque(p, torqueNm).seal;
 }
 

@@ -76,7 +76,7 @@ export function sweepPrepared(p: Prepared, o: SweepOptions, wording: Wording = S
       weakestMarginNominal: nominal,
       studUtilizationMax: (p.stressPerN.equivalent * band.maxN) / p.plan.fastener.yieldMpa,
       studWorkingUtilization: work.utilization,
-      bearingUtilizationMax: work.studLoadN / p.bearingAreaMm2 / p.plan.head.limitingSurfacePressureMpa,
+      bearingUtilizationMax: work.studLoadN / p.bearingCapacityN,
       gainShare: sq.gain.share,
       headStrain: sq.headStrain,
       mostlySqueezing: sq.mostlySqueezing,

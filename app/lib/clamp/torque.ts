@@ -67,7 +67,7 @@ export type TighteningMethod =
 
 /**
  * Tightening factor αA = FMmax/FMmin by method. VDI 2230 via a fastener supplier's table
- * (REFERENCES §2): the value is a point we chose inside each published range.
+ * (docs/references.md §2): the value is a point we chose inside each published range.
  */
 export const TIGHTENING_FACTOR: Record<TighteningMethod, number> = {
   // torque wrench, friction estimated: ±23–28 % → αA 1.6–1.8; we take 1.7 (±25.9 %)
@@ -110,7 +110,7 @@ export interface TighteningStress {
 
 /**
  * VDI 2230 Part 1's FMzul takes the tightening torsion on the plastic section modulus π·d0³/12 (the
- * factor 3/2 in its formula); REFERENCES §2 writes the elastic π·d0³/16. The VDI tables of assembly
+ * factor 3/2 in its formula); docs/references.md §2 writes the elastic π·d0³/16. The VDI tables of assembly
  * preload (fine threads, 2001/2003 edition, tests/unit/lib/clamp/references.test.ts) follow the former
  * to 0.2 %, so the tightening check uses it; the working state keeps the elastic τ (with kτ).
  */

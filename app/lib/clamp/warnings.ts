@@ -98,7 +98,7 @@ export function planWarnings(p: Prepared, e: PlanEstimate, w: Wording = SI_WORDI
   if (e.hotSettled.preloadN < 0.5 * e.tightening.preload.nominalN) {
     out.push(`Hot and settled, the preload falls to ${kN(e.hotSettled.preloadN)}, under half of the ${kN(e.tightening.preload.nominalN)} set at assembly.`);
   }
-  // common practice (REFERENCES §9): engagement ≥ 2·d in aluminium, ≈ 1.25·d in iron or steel
+  // common practice (docs/references.md §9): engagement ≥ 2·d in aluminium, ≈ 1.25·d in iron or steel
   const d = plan.fastener.diameterMm;
   const needed = plan.block.modulusMpa < 90_000 ? 2 * d : 1.25 * d;
   if (plan.fastener.engagementMm < needed) {

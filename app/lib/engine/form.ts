@@ -2,8 +2,8 @@
 import { defaultStudPattern } from "../clamp/pattern";
 import type { Stud } from "../clamp/schema";
 import { EngineSchema, type EngineInput } from "./schema";
+import { inputValue, readQuantity, type Quantity, type UnitSystem } from "../units";
 import { decimalPoint } from "../units/decimal-comma";
-import { inputValue, readEngineQuantity, type Quantity, type Units } from "./units";
 
 /** Numeric fields of the form and the quantity each is typed in (null: a plain number). */
 export const NUMBER_FIELDS = {
@@ -17,7 +17,7 @@ export const NUMBER_FIELDS = {
   sleeveSupportLengthMm: "length",
   sleeveProtrusionMm: "smallLength",
   targetManifoldKpa: "manifold",
-  peakPressureMpa: "peak",
+  peakPressureMpa: "pressure",
   pressureRiseFactor: null,
   runningHeadC: "temperature",
   runningBlockC: "temperature",
@@ -60,7 +60,7 @@ function splitList(raw: string): string[] {
 }
 
 /** A share as typed: "0.5", "½" or "1/3". */
-export function readShare(raw: string): number {
+function readShare(raw: string): number {
   const vulgar: Record<string, number> = { "½": 1 / 2, "⅓": 1 / 3, "⅔": 2 / 3, "¼": 1 / 4, "¾": 3 / 4 };
   if (raw in vulgar) return vulgar[raw]!;
   const m = /^(\d+(?:\.\d+)?)\/(\d+(?:\.\d+)?)$/.exec(raw);
@@ -95,14 +95,14 @@ export function formatShare(share: number): string {
 }
 
 /** The posted form (name → value) → the raw engine input in SI, ready for EngineSchema. */
-export function formToRaw(form: Record<string, string>, studs: StudRow[], units: Units): Record<string, unknown> {
+export function formToRaw(form: Record<string, string>, studs: StudRow[], units: UnitSystem): Record<string, unknown> {
   const raw: Record<string, unknown> = {};
   for (const f of TEXT_FIELDS) raw[f] = form[f] ?? "";
   for (const f of ID_FIELDS) raw[f] = readNumber(form[f]);
   for (const [f, q] of Object.entries(NUMBER_FIELDS)) {
     const text = (form[f] ?? "").trim();
     // a unit typed after the number wins over the field's ("3.386 in", "20 psi boost")
-    raw[f] = text === "" ? undefined : q === null ? readNumber(text) : readEngineQuantity(text, q, units);
+    raw[f] = text === "" ? undefined : q === null ? readNumber(text) : readQuantity(text, q, units);
   }
   // A sleeve's fields mean nothing without a sleeve.
   if (raw.sleeveKind === "none") {
@@ -117,7 +117,7 @@ export type ParsedEngine =
   | { ok: false; errors: Record<string, string> };
 
 /** Parse the posted engine form; on failure, the first message per field path ("studs.3.serves"). */
-export function parseEngineForm(form: Record<string, string>, studs: StudRow[], units: Units): ParsedEngine {
+function parseEngineForm(form: Record<string, string>, studs: StudRow[], units: UnitSystem): ParsedEngine {
   const r = EngineSchema.safeParse(formToRaw(form, studs, units));
   if (r.success) return { ok: true, engine: r.data };
   const errors: Record<string, string> = {};
@@ -126,7 +126,7 @@ export function parseEngineForm(form: Record<string, string>, studs: StudRow[], 
 }
 
 /** Stud rows out of posted fields named stud-<i>-label / -cylinders / -shares. */
-export function studRowsFromForm(form: Record<string, string>): StudRow[] {
+function studRowsFromForm(form: Record<string, string>): StudRow[] {
   const rows: StudRow[] = [];
   for (let i = 0; i < 200; i++) {
     const label = form[`stud-${i}-label`];
@@ -142,14 +142,14 @@ export function studRowsFromForm(form: Record<string, string>): StudRow[] {
 }
 
 /** An engine as stored (SI) → what the form shows in the person's units. */
-export function engineToForm(engine: object & { studs: Stud[] }, units: Units): EngineFormValues {
+export function engineToForm(engine: object & { studs: Stud[] }, units: UnitSystem): EngineFormValues {
   const e = engine as Record<string, unknown> & { studs: Stud[] };
   const fields: Record<string, string> = {};
   for (const f of TEXT_FIELDS) fields[f] = String(e[f] ?? "");
   for (const f of ID_FIELDS) fields[f] = e[f] === undefined || e[f] === null ? "" : String(e[f]);
   for (const [f, q] of Object.entries(NUMBER_FIELDS) as [NumberField, Quantity | null][]) {
     const v = e[f];
-    fields[f] = typeof v !== "number" ? "" : q === null ? String(v) : inputValue(q, v, units);
+    fields[f] = typeof v !== "number" ? "" : q === null ? String(v) : inputValue(v, q, units);
   }
   return { fields, studs: e.studs.map(studToRow), studsPerSide: "" };
 }
@@ -177,7 +177,7 @@ export type EngineFormStep =
   | { step: "save"; engine: EngineInput; values: EngineFormValues }
   | { step: "invalid"; values: EngineFormValues; errors: Record<string, string> };
 
-export function engineFormStep(form: Record<string, string>, units: Units): EngineFormStep {
+export function engineFormStep(form: Record<string, string>, units: UnitSystem): EngineFormStep {
   const intent = form.intent ?? "save";
   const values: EngineFormValues = { fields: {}, studs: studRowsFromForm(form), studsPerSide: form.studsPerSide ?? "" };
   for (const [k, v] of Object.entries(form)) if (!k.startsWith("stud-") && k !== "intent") values.fields[k] = v;
@@ -217,7 +217,7 @@ export function generateStudRows(
 }
 
 /** Blank form for a new engine: an inline four with its default studs. */
-export function blankEngineForm(units: Units): EngineFormValues {
+export function blankEngineForm(units: UnitSystem): EngineFormValues {
   return {
     fields: {
       name: "",
@@ -232,8 +232,8 @@ export function blankEngineForm(units: Units): EngineFormValues {
       deckClearanceMm: "0",
       pistonVolumeCc: "0",
       pressureRiseFactor: "3",
-      runningHeadC: inputValue("temperature", 110, units),
-      runningBlockC: inputValue("temperature", 95, units),
+      runningHeadC: inputValue(110, "temperature", units),
+      runningBlockC: inputValue(95, "temperature", units),
     },
     studs: defaultStudPattern("inline", 4).map(studToRow),
     studsPerSide: "",

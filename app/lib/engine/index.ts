@@ -2,4 +2,3 @@
 export * from "./schema";
 export * from "./form";
 export * from "./labels";
-export * from "./units";

@@ -2,6 +2,9 @@
 // Messages are written for the builder reading them beside the field.
 import { z } from "zod";
 import { StudSchema, type Stud } from "../clamp/schema";
+import { shareProblem } from "../clamp/stud-shares";
+
+export { SHARE_TOLERANCE, shareSum } from "../clamp/stud-shares";
 
 import { ENGINE_STATUSES, type EngineStatus } from "./status";
 export { ENGINE_STATUSES, type EngineStatus };
@@ -10,8 +13,6 @@ export type SleeveKind = (typeof SLEEVE_KINDS)[number];
 export const LAYOUTS = ["inline", "V"] as const;
 export const PEAK_SOURCES = ["measured", "estimated"] as const;
 
-/** Tolerance on a stud's shares adding up to 1 (the same rule the clamp model's plan input uses). */
-export const SHARE_TOLERANCE = 0.005;
 /** Largest cylinder count and stud count a record may have. */
 export const CYLINDERS_MAX = 16;
 export const STUDS_MAX = 80;
@@ -137,9 +138,8 @@ export function studShareIssues(studs: Stud[], cylinders: number): { path: (stri
       seen.add(s.cylinder);
       served.add(s.cylinder);
     });
-    const sum = shareSum(stud);
-    if (Math.abs(sum - 1) > SHARE_TOLERANCE)
-      out.push({ path: ["studs", i, "serves"], message: `Stud shares for ${name} add up to ${fmt(sum)}; they must add up to 1` });
+    const shares = shareProblem(stud, name);
+    if (shares) out.push({ path: ["studs", i, "serves"], message: shares });
   });
   const missing: number[] = [];
   for (let c = 1; c <= cylinders; c++) if (!served.has(c)) missing.push(c);
@@ -148,14 +148,8 @@ export function studShareIssues(studs: Stud[], cylinders: number): { path: (stri
   return out.slice(0, CROSS_FIELD_ISSUES_MAX);
 }
 
-export function studName(stud: Stud, index: number): string {
+function studName(stud: Stud, index: number): string {
   return stud.label ? `stud ${stud.label}` : `stud ${index + 1}`;
 }
 
-export function shareSum(stud: Stud): number {
-  return stud.serves.reduce((sum, s) => sum + s.share, 0);
-}
 
-export function sharesAddUp(stud: Stud): boolean {
-  return Math.abs(shareSum(stud) - 1) <= SHARE_TOLERANCE;
-}

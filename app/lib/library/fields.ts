@@ -1,8 +1,8 @@
 // The library forms: which fields each kind has, in what units they are typed, and how a posted
 // form turns into an SI record (or field errors). Pure: used by the route action and the form.
 import type { z } from "zod";
-import { parseQuantity, unitFor, type Quantity as DisplayQuantity } from "../units";
-import { fromSi, toSi, type Quantity, type UnitSystem } from "./quantities";
+import { parseQuantity, toDisplay, unitFor, type Quantity, type UnitSystem } from "../units";
+import { decimalPoint } from "../units/decimal-comma";
 import { FastenerSchema, GasketSchema, MaterialSchema, type LibraryKind } from "./schemas";
 
 export interface NumberField {
@@ -46,6 +46,13 @@ export const FASTENER_GEOMETRY_FIELDS: NumberField[] = [
   { name: "washerHoleMm", label: "Washer hole", quantity: "length" },
   { name: "washerThicknessMm", label: "Washer thickness", quantity: "length" },
   {
+    name: "washerHardnessHv",
+    label: "Washer hardness (HV)",
+    quantity: "plain",
+    optional: true,
+    hint: "Vickers. Hardened head-stud washers are about 370–450 HV and spread the load over their whole face; a softer one (under 300 HV) carries it nearer the nut. Empty: taken as hardened.",
+  },
+  {
     name: "nutFaceOdMm",
     label: "Nut face diameter",
     quantity: "length",
@@ -56,7 +63,7 @@ export const FASTENER_GEOMETRY_FIELDS: NumberField[] = [
 
 export const FASTENER_MAKER_FIELDS: NumberField[] = [
   { name: "makerTorqueNm", label: "Maker's recommended torque", quantity: "torque", optional: true },
-  { name: "makerStretchMm", label: "Maker's stretch figure", quantity: "small-length", optional: true, hint: "Elongation at full torque, if the sheet gives one." },
+  { name: "makerStretchMm", label: "Maker's stretch figure", quantity: "smallLength", optional: true, hint: "Elongation at full torque, if the sheet gives one." },
 ];
 
 export const FASTENER_FRICTION_FIELDS: NumberField[] = [
@@ -65,7 +72,7 @@ export const FASTENER_FRICTION_FIELDS: NumberField[] = [
 ];
 
 export const GASKET_NUMBER_FIELDS: NumberField[] = [
-  { name: "compressedThicknessMm", label: "Compressed thickness", quantity: "small-length" },
+  { name: "compressedThicknessMm", label: "Compressed thickness", quantity: "smallLength" },
   { name: "boreMm", label: "Gasket bore", quantity: "length" },
   { name: "sealDiameterMm", label: "Seal diameter (mean of the band)", quantity: "length" },
   { name: "ringWidthMm", label: "Ring width", quantity: "length" },
@@ -88,7 +95,7 @@ export const GASKET_NUMBER_FIELDS: NumberField[] = [
     hint: "Least pressure on the body that still seals coolant and oil. Empty: the typical figure of the family.",
   },
   { name: "beadLoadNPerMm", label: "Bead load (N per mm of circumference)", quantity: "plain", optional: true, hint: "Multilayer steel: line load of the bead pressed down to the stopper." },
-  { name: "beadTravelMm", label: "Bead travel to the stopper", quantity: "small-length", optional: true, hint: "Multilayer steel: how far the bead gives before the stopper carries." },
+  { name: "beadTravelMm", label: "Bead travel to the stopper", quantity: "smallLength", optional: true, hint: "Multilayer steel: how far the bead gives before the stopper carries." },
   { name: "expansionUmPerMC", label: "Expansion coefficient", quantity: "expansion" },
   {
     name: "seatingPressureMpa",
@@ -122,21 +129,19 @@ const SCHEMAS = { materials: MaterialSchema, fasteners: FastenerSchema, gaskets:
 
 const MM_PER_IN = 25.4;
 
-// Library quantities that the display-units module also knows, so a typed unit can be read.
-const UNIT_QUANTITY: Partial<Record<Quantity, DisplayQuantity>> = { length: "length", "small-length": "smallLength", torque: "torque" };
-
 /** Pitch as typed: mm for metric threads, threads per inch for unified. */
-export function pitchToMm(typed: number, threadSystem: string): number {
+function pitchToMm(typed: number, threadSystem: string): number {
   return threadSystem === "unified" ? MM_PER_IN / typed : typed;
 }
-export function pitchFromMm(pitchMm: number, threadSystem: string): number {
+function pitchFromMm(pitchMm: number, threadSystem: string): number {
   return threadSystem === "unified" ? MM_PER_IN / pitchMm : pitchMm;
 }
 
+/** A plain typed number (the pitch), decimal commas read as in the units module. */
 function parseNumber(raw: string): number | null | typeof NaN {
-  const t = raw.trim().replace(/,/g, "");
+  const t = decimalPoint(raw.trim());
   if (t === "") return null;
-  return Number(t);
+  return Number(/^\d{1,3}(,\d{3})+(\.\d+)?$/.test(t) ? t.replace(/,/g, "") : t);
 }
 
 export type ParsedLibrary<K extends LibraryKind> =
@@ -157,31 +162,23 @@ export function parseLibraryForm<K extends LibraryKind>(kind: K, form: Record<st
   }
   for (const field of NUMBER_FIELDS[kind]) {
     const typed = (form[field.name] ?? "").trim();
-    const withUnit = UNIT_QUANTITY[field.quantity];
-    // A unit typed after the number ("0.4375 in", "4 thou") wins over the field's unit.
-    if (withUnit && /\d\s*[a-zA-Zµ"·]/.test(typed)) {
-      const r = parseQuantity(typed, withUnit, unitFor(withUnit, units));
-      if (r.ok) out[field.name] = r.valueSi;
-      else errors[field.name] = `${field.label}: ${r.message}`;
-      continue;
-    }
-    const n = parseNumber(typed);
-    if (n === null) {
+    if (typed === "") {
       if (field.optional) out[field.name] = null;
       else if (field.name === "reducedShankLengthMm" || field.name === "washerThicknessMm" || field.name === "relaxationPercent") out[field.name] = 0;
       else errors[field.name] = `Enter the ${field.label.charAt(0).toLowerCase()}${field.label.slice(1)}`;
       continue;
     }
-    if (!Number.isFinite(n)) {
-      errors[field.name] = `${field.label} must be a number`;
-      continue;
-    }
     if (field.special === "pitch") {
-      if (n <= 0) errors[field.name] = "Thread pitch must be greater than zero";
+      const n = parseNumber(typed);
+      if (n === null || !Number.isFinite(n)) errors[field.name] = `${field.label} must be a number`;
+      else if (n <= 0) errors[field.name] = "Thread pitch must be greater than zero";
       else out[field.name] = pitchToMm(n, String(out.threadSystem));
       continue;
     }
-    out[field.name] = toSi(field.quantity, n, units);
+    // the one reader of typed figures: decimal commas, and a unit typed after the number wins
+    const r = parseQuantity(typed, field.quantity, unitFor(field.quantity, units));
+    if (r.ok) out[field.name] = r.valueSi;
+    else errors[field.name] = r.message.startsWith("“") ? `${field.label} must be a number` : `${field.label}: ${r.message}`;
   }
   const parsed = SCHEMAS[kind].safeParse(out);
   if (!parsed.success) {
@@ -205,7 +202,7 @@ export function formValues(kind: LibraryKind, record: Record<string, unknown>, u
       out[field.name] = "";
       continue;
     }
-    const shown = field.special === "pitch" ? pitchFromMm(v, String(record.threadSystem)) : fromSi(field.quantity, v, units);
+    const shown = field.special === "pitch" ? pitchFromMm(v, String(record.threadSystem)) : toDisplay(field.quantity, v, unitFor(field.quantity, units));
     out[field.name] = String(Number(shown.toPrecision(6)));
   }
   return out;

@@ -1,9 +1,11 @@
 // The shop's library records, SI as stored, with messages written for the builder beside the field.
 import { z } from "zod";
+import { GASKET_TYPES } from "../clamp/schema";
 
 export const MATERIAL_KINDS = ["aluminium", "iron", "steel", "stainless", "copper", "other"] as const;
 export const THREAD_SYSTEMS = ["metric", "unified"] as const;
-export const LIBRARY_GASKET_TYPES = ["solid-copper", "mls", "mls-with-ring", "fire-ring"] as const;
+// the clamp model's list is the one source; the library offers every type the model reads
+export const LIBRARY_GASKET_TYPES = GASKET_TYPES;
 export const LIBRARY_KINDS = ["fasteners", "gaskets", "materials"] as const;
 export type LibraryKind = (typeof LIBRARY_KINDS)[number];
 
@@ -68,6 +70,7 @@ export const FastenerSchema = z
     washerHoleMm: positive("Washer hole", 60, "mm"),
     washerThicknessMm: nonNegative("Washer thickness", 20, "mm"),
     nutFaceOdMm: positive("Nut face diameter", 100, "mm").nullable().default(null),
+    washerHardnessHv: positive("Washer hardness", 1000, "HV").nullable().default(null),
     makerTorqueNm: positive("Maker's torque", 5000, "N·m").nullable(),
     makerLubricant: text("the lubricant", 120),
     makerStages: text("the stages", 200),
@@ -125,7 +128,7 @@ export interface ConsistencyIssue {
 }
 
 /** Checks across fastener fields: a thread, shank and washer that can exist. */
-export function fastenerConsistency(f: {
+function fastenerConsistency(f: {
   diameterMm: number;
   pitchMm: number;
   reducedShankDiameterMm: number | null;
@@ -148,7 +151,7 @@ export function fastenerConsistency(f: {
 }
 
 /** Checks across gasket fields: the seal band outside the gasket bore, a finish window that is a window. */
-export function gasketConsistency(g: {
+function gasketConsistency(g: {
   boreMm: number;
   sealDiameterMm: number;
   ringWidthMm: number;

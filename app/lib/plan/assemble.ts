@@ -3,6 +3,8 @@
 import { compressionRatio, type CompressionInput } from "../chamber";
 import type { PlanInputRaw, Stud } from "../clamp";
 import { withStretchTarget } from "./stretch";
+import type { GasketFamily } from "../clamp/gasket-families";
+import { ATMOSPHERE_KPA } from "../units";
 
 export interface MaterialRecord {
   name: string;
@@ -24,11 +26,12 @@ export interface FastenerRecord {
   washerHoleMm: number;
   washerThicknessMm: number;
   nutFaceOdMm?: number | null;
+  washerHardnessHv?: number | null;
   material: MaterialRecord;
 }
 
 export interface GasketRecord {
-  type: "solid-copper" | "mls" | "mls-with-ring" | "fire-ring";
+  type: GasketFamily;
   compressedThicknessMm: number;
   boreMm: number;
   sealDiameterMm: number;
@@ -112,7 +115,6 @@ export interface PlanParts {
 const ASSEMBLY_C = 20;
 // Used only when the engine record has no chamber volume yet; the estimate says so.
 export const ASSUMED_COMPRESSION_RATIO = 9.5;
-const ATMOSPHERE_KPA = 101.325;
 
 /** The chamber figures of this engine with this gasket, or null while the chamber volume is unknown. */
 export function chamberInput(
@@ -164,7 +166,7 @@ function assembleTorqueInput(parts: PlanParts): PlanInputRaw {
       washerOdMm: f.washerOdMm,
       washerHoleMm: f.washerHoleMm,
       washerThicknessMm: f.washerThicknessMm,
-      ...present({ nutFaceOdMm: f.nutFaceOdMm }),
+      ...present({ nutFaceOdMm: f.nutFaceOdMm, washerHardnessHv: f.washerHardnessHv }),
     },
     tightening: {
       target: { mode: "torque", torqueNm: plan.torqueNm },

@@ -2,7 +2,7 @@
 // implies (the library row's friction, recorded for the maker's lubricant) and the stretch figure.
 // When the builder picks another fastener, the plan takes the new maker's figures and says so;
 // the builder may then change them. Pure: display strings in, display strings out.
-import { fromDisplay, parseQuantity, toDisplay, unitFor, UNITS_OF, type DisplayUnit, type UnitSystem } from "../units";
+import { fromDisplay, parseQuantity, toDisplay, unitFor, unitsOf, type DisplayUnit, type UnitSystem } from "../units";
 
 export interface MakerFigures {
   id: number;
@@ -68,7 +68,7 @@ export function makerStagesNm(text: string | null, makerTorqueNm: number): numbe
 }
 
 function writtenTorqueUnit(text: string): DisplayUnit | null {
-  for (const m of text.matchAll(/\d\s*([a-zA-Z·.\-]+(?:[·.\-][a-zA-Z]+)?)/g)) {
+  for (const m of text.matchAll(/\d\s*([a-zA-Z·.-]+(?:[·.-][a-zA-Z]+)?)/g)) {
     const r = parseQuantity(`1 ${m[1]}`, "torque", "N·m");
     if (r.ok) return r.unit;
   }
@@ -79,7 +79,7 @@ function unitMatching(text: string, makerTorqueNm: number): DisplayUnit | null {
   const numbers = [...text.matchAll(/\d+(?:\.\d+)?/g)].map((m) => Number(m[0]));
   const last = numbers[numbers.length - 1];
   if (last === undefined) return null;
-  return UNITS_OF.torque.find((u) => Math.abs(fromDisplay("torque", last, u) - makerTorqueNm) <= makerTorqueNm * 0.02) ?? null;
+  return unitsOf("torque").find((u) => Math.abs(fromDisplay("torque", last, u) - makerTorqueNm) <= makerTorqueNm * 0.02) ?? null;
 }
 
 /** Two lubricant names that say the same thing (case, spacing and punctuation aside). */

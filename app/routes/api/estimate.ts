@@ -1,6 +1,5 @@
 import { EstimateRequestSchema } from "~/lib/api/schemas";
-import { estimateView } from "~/lib/plan/estimate-view";
-import { displayWording } from "~/lib/plan/wording";
+import { estimateInput } from "~/models/plan-estimate.server";
 import { apiBody, apiCaller, wrongMethod } from "~/utils/api.server";
 import { planEnginePrecheck } from "~/utils/api-plan.server";
 
@@ -11,7 +10,7 @@ export async function action({ request, context }: { request: Request; context?:
   if (request.method !== "POST") return wrongMethod("POST");
   await apiCaller(request, context);
   const body = await apiBody(request, EstimateRequestSchema, planEnginePrecheck);
-  return Response.json(estimateView(body.input, displayWording(body.units ?? "metric")));
+  return Response.json(estimateInput(body.input, body.units ?? "metric"));
 }
 
 export function loader() {

@@ -21,7 +21,7 @@ export async function loader({ request }: Route.LoaderArgs) {
     engineStatusCounts(who),
     listEngines(who, { sort: "updated", dir: "desc", pageSize: 5 }),
     recentActivity(who, 10),
-    chosenPlanVerdicts(who),
+    chosenPlanVerdicts(who, user.units),
   ]);
   // Activity names the plan it touched and links to it while the plan is still there.
   const subjects = rawEvents.map((e) => auditSubject(e.detail));

@@ -3,7 +3,7 @@ import type { Route } from "./+types/edit";
 import { EngineForm } from "~/components/engine-form";
 import { useSeedKey } from "~/components/form";
 import { REFUSAL_TITLE, RoleRefusal } from "~/components/refusal";
-import { engineFormStep, engineToForm, type Units } from "~/lib/engine";
+import { engineFormStep, engineToForm } from "~/lib/engine";
 import { archiveEngine, EngineInputError, listMaterialOptions, requireEngine, updateEngine } from "~/models/engine.server";
 import { requireRole } from "~/utils/auth.server";
 import { redirectWithToast } from "~/utils/toast.server";
@@ -13,7 +13,7 @@ export const meta: Route.MetaFunction = ({ error }) => [{ title: error ? REFUSAL
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team, who } = await requireRole(request, "builder");
   const engine = await requireEngine(who, params.engineId);
-  const units = user.units as Units;
+  const units = user.units;
   const values = engineToForm(engine, units);
   return { units, materials: await listMaterialOptions(team.id), values, engineId: engine.id };
 }
@@ -26,7 +26,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     await archiveEngine(team.id, user.id, engine.id);
     return redirectWithToast(request, "/engines", `Engine “${engine.name}” archived.`);
   }
-  const step = engineFormStep(form, user.units as Units);
+  const step = engineFormStep(form, user.units);
   if (step.step === "render") return { values: step.values, errors: step.errors, reseed: true };
   if (step.step === "invalid") return data({ values: step.values, errors: step.errors }, { status: 400 });
   try {

@@ -5,7 +5,7 @@ import { StatusBadge } from "~/components/engine-status";
 // from the modules themselves, not the barrel: the barrel's schema would bring zod to this page
 import { layoutName, STATUS_LABEL } from "~/lib/engine/labels";
 import { ENGINE_STATUSES, type EngineStatus } from "~/lib/engine/status";
-import { formatQuantity, type Units } from "~/lib/engine/units";
+import { formatQuantity } from "~/lib/units";
 import { isEngineSort, listEngines, type EngineSort } from "~/models/engine.server";
 import { requireUser, roleAtLeast } from "~/utils/auth.server";
 
@@ -26,7 +26,7 @@ export async function loader({ request }: Route.LoaderArgs) {
   const dir = sp.get("dir") === "asc" ? "asc" : sp.get("dir") === "desc" ? "desc" : sort === "updated" ? "desc" : "asc";
   const page = Math.min(MAX_PAGE, Math.max(1, Math.floor(Number(sp.get("page")) || 1)));
   const { rows, total } = await listEngines(who, { q, status, sort, dir, page, pageSize: PAGE_SIZE });
-  return { rows, total, page, pageSize: PAGE_SIZE, q, status, sort, dir, units: user.units as Units, canEdit: roleAtLeast(role, "builder") };
+  return { rows, total, page, pageSize: PAGE_SIZE, q, status, sort, dir, units: user.units, canEdit: roleAtLeast(role, "builder") };
 }
 
 const COLUMNS: { key: EngineSort; label: string; numeric?: boolean }[] = [
@@ -154,9 +154,9 @@ export default function EngineList({ loaderData }: Route.ComponentProps) {
                   </td>
                   <td className="px-3 py-2">{e.customer || "—"}</td>
                   <td className="px-3 py-2">{layoutName(e.layout, e.cylinders)}</td>
-                  <td className="whitespace-nowrap px-3 py-2 text-right">{formatQuantity("length", e.boreMm, units)}</td>
+                  <td className="whitespace-nowrap px-3 py-2 text-right">{formatQuantity(e.boreMm, "length", units)}</td>
                   <td className="px-3 py-2">{e.fuel || "—"}</td>
-                  <td className="whitespace-nowrap px-3 py-2 text-right">{formatQuantity("manifold", e.targetManifoldKpa, units)}</td>
+                  <td className="whitespace-nowrap px-3 py-2 text-right">{formatQuantity(e.targetManifoldKpa, "manifold", units)}</td>
                   <td className="px-3 py-2">
                     <StatusBadge status={e.status} />
                   </td>

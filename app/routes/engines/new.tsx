@@ -3,7 +3,7 @@ import type { Route } from "./+types/new";
 import { PageTitle } from "~/components/app-shell";
 import { EngineForm } from "~/components/engine-form";
 import { useSeedKey } from "~/components/form";
-import { blankEngineForm, engineFormStep, type Units } from "~/lib/engine";
+import { blankEngineForm, engineFormStep } from "~/lib/engine";
 import { createEngine, EngineInputError, listMaterialOptions } from "~/models/engine.server";
 import { requireRole } from "~/utils/auth.server";
 import { redirectWithToast } from "~/utils/toast.server";
@@ -12,14 +12,14 @@ export const meta: Route.MetaFunction = () => [{ title: "New engine · Sealwrigh
 
 export async function loader({ request }: Route.LoaderArgs) {
   const { user, team } = await requireRole(request, "builder");
-  const units = user.units as Units;
+  const units = user.units;
   return { units, materials: await listMaterialOptions(team.id), blank: blankEngineForm(units) };
 }
 
 export async function action({ request }: Route.ActionArgs) {
   const { user, team } = await requireRole(request, "builder");
   const form = Object.fromEntries([...(await request.formData())].map(([k, v]) => [k, String(v)]));
-  const step = engineFormStep(form, user.units as Units);
+  const step = engineFormStep(form, user.units);
   if (step.step === "render") return { values: step.values, errors: step.errors, reseed: true };
   if (step.step === "invalid") return data({ values: step.values, errors: step.errors }, { status: 400 });
   try {

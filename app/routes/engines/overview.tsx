@@ -2,9 +2,10 @@ import type { ReactNode } from "react";
 import { Form, Link } from "react-router";
 import type { Route } from "./+types/overview";
 import { StatusBadge } from "~/components/engine-status";
-import { formatQuantity, formatShare, layoutName, patternSummary, PEAK_SOURCE_LABEL, SLEEVE_LABEL, type Units } from "~/lib/engine";
+import { formatShare, layoutName, patternSummary, PEAK_SOURCE_LABEL, SLEEVE_LABEL } from "~/lib/engine";
 import { chosenPlanName, materialNames, requireEngine } from "~/models/engine.server";
 import { requireUser, roleAtLeast } from "~/utils/auth.server";
+import { formatQuantity } from "~/lib/units";
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team, role, who } = await requireUser(request);
@@ -12,7 +13,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const names = await materialNames(team.id, [engine.blockMaterialId, engine.headMaterialId, engine.sleeveMaterialId]);
   return {
     engine,
-    units: user.units as Units,
+    units: user.units,
     materials: names,
     chosenPlan: await chosenPlanName(team.id, engine),
     canEdit: roleAtLeast(role, "builder"),
@@ -22,7 +23,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 export default function EngineOverview({ loaderData }: Route.ComponentProps) {
   const { engine: e, units, materials, chosenPlan, canEdit } = loaderData;
   const mat = (id: number | null) => (id === null ? "—" : (materials[id] ?? "(material no longer listed)"));
-  const len = (v: number | null) => formatQuantity("length", v, units);
+  const len = (v: number | null) => formatQuantity(v, "length", units);
   return (
     <div className="grid gap-6 lg:grid-cols-2">
       <div className="flex flex-wrap items-center justify-between gap-3 lg:col-span-2">
@@ -52,9 +53,9 @@ export default function EngineOverview({ loaderData }: Route.ComponentProps) {
         <Row k="Rod length">{len(e.rodLengthMm)}</Row>
         <Row k="Head thickness at the stud">{len(e.headThicknessAtStudMm)}</Row>
         <Row k="Block depth to the engaged thread">{len(e.blockDepthToThreadMm)}</Row>
-        <Row k="Deck clearance">{formatQuantity("smallLength", e.deckClearanceMm, units)}</Row>
-        <Row k="Chamber volume">{formatQuantity("volume", e.chamberCc, units)}</Row>
-        <Row k="Piston volume (dish +, dome −)">{formatQuantity("volume", e.pistonVolumeCc, units)}</Row>
+        <Row k="Deck clearance">{formatQuantity(e.deckClearanceMm, "smallLength", units)}</Row>
+        <Row k="Chamber volume">{formatQuantity(e.chamberCc, "volume", units)}</Row>
+        <Row k="Piston volume (dish +, dome −)">{formatQuantity(e.pistonVolumeCc, "volume", units)}</Row>
         </dl>
       </Section>
       <Section title="Materials and sleeves">
@@ -69,26 +70,26 @@ export default function EngineOverview({ loaderData }: Route.ComponentProps) {
             {e.sleeveKind === "wet-mid" ? <Row k="Support length (top to seat)">{len(e.sleeveSupportLengthMm)}</Row> : null}
           </>
         ) : null}
-        <Row k="Protrusion as machined">{formatQuantity("smallLength", e.sleeveProtrusionMm, units)}</Row>
+        <Row k="Protrusion as machined">{formatQuantity(e.sleeveProtrusionMm, "smallLength", units)}</Row>
         </dl>
       </Section>
       <Section title="Boost and firing">
         <dl>
         <Row k="Fuel">{e.fuel || "—"}</Row>
-        <Row k="Target manifold pressure">{formatQuantity("manifold", e.targetManifoldKpa, units)}</Row>
+        <Row k="Target manifold pressure">{formatQuantity(e.targetManifoldKpa, "manifold", units)}</Row>
         <Row k="Peak cylinder pressure">
           {e.peakPressureMpa === null ? (
             "not given — estimated from boost in each plan"
           ) : (
             <>
-              {formatQuantity("peak", e.peakPressureMpa, units)}{" "}
+              {formatQuantity(e.peakPressureMpa, "pressure", units)}{" "}
               <span className="rounded bg-forge-100 px-1.5 text-sm">{PEAK_SOURCE_LABEL[e.peakPressureSource]}</span>
             </>
           )}
         </Row>
         <Row k="Pressure-rise factor">{e.pressureRiseFactor}</Row>
         <Row k="Running head / block temperature">
-          {formatQuantity("temperature", e.runningHeadC, units)} / {formatQuantity("temperature", e.runningBlockC, units)}
+          {formatQuantity(e.runningHeadC, "temperature", units)} / {formatQuantity(e.runningBlockC, "temperature", units)}
         </Row>
         <Row k="Status">
           <StatusBadge status={e.status} />

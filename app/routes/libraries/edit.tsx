@@ -1,4 +1,4 @@
-import { data, Form, Link, useNavigation } from "react-router";
+import { data, Form, Link, redirect, useNavigation } from "react-router";
 import type { ReactNode } from "react";
 import type { Route } from "./+types/edit";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
@@ -15,7 +15,7 @@ import {
   parseLibraryForm,
   type NumberField,
 } from "~/lib/library/fields";
-import { unitLabel, type UnitSystem } from "~/lib/library/quantities";
+import { unitFor, type UnitSystem } from "~/lib/units";
 import { GASKET_TYPE_LABELS, isLibraryKind, LIBRARY_GASKET_TYPES, MATERIAL_KIND_LABELS, MATERIAL_KINDS, type LibraryKind } from "~/lib/library/schemas";
 import { createLibraryItem, getMaterial, listMaterials, requireLibraryItem, setLibraryArchived, updateLibraryItem } from "~/models/library.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
@@ -46,7 +46,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   // Everyone in the shop may read a library row; adding one needs a builder.
   const { user, team, role } = itemId ? await requireUser(request) : await requireRole(request, "builder");
   const kind = kindOf(params.kind);
-  const units = user.units as UnitSystem;
+  const units = user.units;
   const item = itemId ? await requireLibraryItem(kind, team.id, itemId) : null;
   const materials =
     kind === "fasteners"
@@ -98,7 +98,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   }
   if (intent !== "save") return data({ errors: { form: "Unknown action." } as Record<string, string>, values: form }, { status: 400 });
 
-  const parsed = parseLibraryForm(kind, form, user.units as UnitSystem);
+  const parsed = parseLibraryForm(kind, form, user.units);
   if (!parsed.ok) return data({ errors: parsed.errors, values: form }, { status: 400 });
   if ("materialId" in parsed.value && !(await getMaterial(team.id, parsed.value.materialId)))
     return data({ errors: { materialId: "Pick one of this shop's materials" } as Record<string, string>, values: form }, { status: 400 });
@@ -279,7 +279,7 @@ function Grid({ fields, ...props }: InputProps & { fields: NumberField[] }) {
 }
 
 function NumberInput({ field, values, errors, units }: InputProps & { field: NumberField }) {
-  const unit = field.special === "pitch" ? "" : unitLabel(field.quantity, units);
+  const unit = field.special === "pitch" ? "" : unitFor(field.quantity, units);
   const label = `${field.label}${unit ? ` (${unit})` : ""}${field.optional ? " — optional" : ""}`;
   return (
     <Field

@@ -3,7 +3,7 @@ import type { ReactNode } from "react";
 import type { Route } from "./+types/list";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { sourceLine, threadLabel } from "~/lib/library/display";
-import { formatQuantity, type UnitSystem } from "~/lib/library/quantities";
+import { formatQuantity, type UnitSystem } from "~/lib/units";
 import { GASKET_TYPE_LABELS, isLibraryKind, MATERIAL_KIND_LABELS, type LibraryKind } from "~/lib/library/schemas";
 import { listLibrary, type FastenerRow, type GasketRow, type LibraryRow, type MaterialRow } from "~/models/library.server";
 import { requireUser, roleAtLeast } from "~/utils/auth.server";
@@ -22,7 +22,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   if (!isLibraryKind(kind)) throw data("There is no such library.", { status: 404 });
   const showArchived = new URL(request.url).searchParams.get("archived") === "1";
   const rows = await listLibrary(kind, team.id, { includeArchived: showArchived });
-  return { kind, rows, showArchived, units: user.units as UnitSystem, canEdit: roleAtLeast(role, "builder") };
+  return { kind, rows, showArchived, units: user.units, canEdit: roleAtLeast(role, "builder") };
 }
 
 export default function LibraryList({ loaderData }: Route.ComponentProps) {
@@ -123,13 +123,13 @@ function FastenerTable({ rows, units }: { rows: FastenerRow[]; units: UnitSystem
           <NameCell row={f} kind="fasteners" />
           <td className={`${td} whitespace-nowrap`}>{threadLabel(f.threadSystem, f.diameterMm, f.pitchMm)}</td>
           <td className={`${td} whitespace-nowrap`}>
-            {f.reducedShankDiameterMm ? `reduced to ${formatQuantity("length", f.reducedShankDiameterMm, units)}` : "full"}
+            {f.reducedShankDiameterMm ? `reduced to ${formatQuantity(f.reducedShankDiameterMm, "length", units)}` : "full"}
           </td>
           <td className={td}>{f.materialName ?? "—"}</td>
-          <td className={`${num} font-bold`}>{f.makerTorqueNm ? formatQuantity("torque", f.makerTorqueNm, units) : "not recorded"}</td>
+          <td className={`${num} font-bold`}>{f.makerTorqueNm ? formatQuantity(f.makerTorqueNm, "torque", units) : "not recorded"}</td>
           <td className={td}>{f.makerLubricant || "not recorded"}</td>
           <td className={td}>{f.makerStages || "—"}</td>
-          <td className={num}>{formatQuantity("small-length", f.makerStretchMm, units)}</td>
+          <td className={num}>{formatQuantity(f.makerStretchMm, "smallLength", units)}</td>
           <td className={num}>
             {f.threadFriction} / {f.bearingFriction}
           </td>
@@ -150,16 +150,16 @@ function GasketTable({ rows, units }: { rows: GasketRow[]; units: UnitSystem }) 
         <tr key={g.id} className="border-t border-forge-100">
           <NameCell row={g} kind="gaskets" />
           <td className={td}>{GASKET_TYPE_LABELS[g.type]}</td>
-          <td className={num}>{formatQuantity("length", g.compressedThicknessMm, units)}</td>
-          <td className={num}>{formatQuantity("length", g.boreMm, units)}</td>
+          <td className={num}>{formatQuantity(g.compressedThicknessMm, "smallLength", units)}</td>
+          <td className={num}>{formatQuantity(g.boreMm, "length", units)}</td>
           <td className={num}>
-            {formatQuantity("length", g.sealDiameterMm, units)} / {formatQuantity("length", g.ringWidthMm, units)}
+            {formatQuantity(g.sealDiameterMm, "length", units)} / {formatQuantity(g.ringWidthMm, "length", units)}
           </td>
           <td className={num}>{g.m}</td>
-          <td className={num}>{formatQuantity("stress", g.yMpa, units)}</td>
+          <td className={num}>{formatQuantity(g.yMpa, "stress", units)}</td>
           <td className={num}>
             {g.finishMinRaUm != null || g.finishMaxRaUm != null
-              ? `${formatQuantity("roughness", g.finishMinRaUm, units, false)}–${formatQuantity("roughness", g.finishMaxRaUm, units)}`
+              ? `${formatQuantity(g.finishMinRaUm, "roughness", units, { withUnit: false })}–${formatQuantity(g.finishMaxRaUm, "roughness", units)}`
               : "—"}
           </td>
           <SourceCell row={g} />
@@ -179,10 +179,10 @@ function MaterialTable({ rows, units }: { rows: MaterialRow[]; units: UnitSystem
         <tr key={m.id} className="border-t border-forge-100">
           <NameCell row={m} kind="materials" />
           <td className={td}>{MATERIAL_KIND_LABELS[m.kind]}</td>
-          <td className={num}>{formatQuantity("modulus", m.modulusMpa, units)}</td>
-          <td className={num}>{formatQuantity("stress", m.yieldMpa, units)}</td>
-          <td className={num}>{formatQuantity("expansion", m.expansionUmPerMC, units)}</td>
-          <td className={num}>{formatQuantity("stress", m.limitingSurfacePressureMpa, units)}</td>
+          <td className={num}>{formatQuantity(m.modulusMpa, "modulus", units)}</td>
+          <td className={num}>{formatQuantity(m.yieldMpa, "stress", units)}</td>
+          <td className={num}>{formatQuantity(m.expansionUmPerMC, "expansion", units)}</td>
+          <td className={num}>{formatQuantity(m.limitingSurfacePressureMpa, "stress", units)}</td>
           <SourceCell row={m} />
         </tr>
       ))}

@@ -1,7 +1,8 @@
 import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/compare";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
-import { chance, marginStatus, STATUS_LOOK } from "~/components/estimate-panel";
+import { STATUS_LOOK } from "~/components/estimate-panel";
+import { chance, marginStatus } from "~/lib/plan/margin";
 import { CEILING_WORDS, type Status } from "~/lib/clamp";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
@@ -24,7 +25,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   // Fewer than two ticked: show the first four and say so.
   const tooFew = wanted.length > 0 && chosen.length < 2;
   const picked = (chosen.length >= 2 ? chosen : plans).slice(0, 4);
-  const columns = await Promise.all(picked.map(async (plan) => ({ plan, result: await estimatePlan(team.id, engine, plan, user.units) })));
+  const columns = await Promise.all(picked.map(async (plan) => ({ plan, result: await estimatePlan(team.id, engine, plan, { units: user.units }) })));
   return { units: user.units, canEdit: roleAtLeast(role, "builder"), engineId: engine.id, chosenPlanId: engine.chosenPlanId, plans: plans.map((p) => ({ id: p.id, name: p.name })), columns, tooMany: wanted.length > 4, tooFew };
 }
 
@@ -52,7 +53,7 @@ const ROWS: Row[] = [
   { label: "Verdict", better: "higher", value: (c) => { const v = ok(c); return v ? SEVERITY[v.estimate.verdict.status] : null; }, show: (_v, _u, c) => { const v = ok(c)!.estimate.verdict; const l = STATUS_LOOK[v.status]; return `${l.icon} ${l.word}: ${v.headline}`; } },
   { label: "Final torque (ours)", value: (c) => c.plan.torqueNm, show: (v, u) => formatQuantity(v, "torque", u) },
   { label: "Fastener maker's figure", value: (c) => c.result.fastener?.makerTorqueNm ?? null, show: (v, u, c) => `${formatQuantity(v, "torque", u)}${c.result.fastener?.makerLubricant ? ` · ${c.result.fastener.makerLubricant}` : ""}` },
-  { label: "Weakest seal margin, bottom of the scatter band", better: "higher", value: (c) => ok(c)?.estimate.weakestMargin ?? null, show: (v, _u, c) => `${marginStatus(v, c.plan.targetMargin).icon} ${v.toFixed(2)} (cyl ${ok(c)?.estimate.weakestCylinder})` },
+  { label: "Weakest seal margin, bottom of the scatter band", better: "higher", value: (c) => ok(c)?.estimate.weakestMargin ?? null, show: (v, _u, c) => `${STATUS_LOOK[marginStatus(v, c.plan.targetMargin)].icon} ${v.toFixed(2)} (cyl ${ok(c)?.estimate.weakestCylinder})` },
   { label: "…at the nominal preload", value: (c) => ok(c)?.estimate.weakestMarginNominal ?? null, show: (v) => v.toFixed(2) },
   { label: "Chance weakest margin < 1", better: "lower", value: (c) => ok(c)?.probabilityMarginBelowOne ?? null, show: (v) => chance(v) },
   { label: "Nominal preload per stud", value: (c) => ok(c)?.estimate.tightening.preload.nominalN ?? null, show: (v, u) => formatQuantity(v, "force", u) },

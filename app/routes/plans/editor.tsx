@@ -17,10 +17,9 @@ import { parsePlanForm, planFormValues, type PlanWrite } from "~/lib/plan/form";
 import { stretchLineFor, type StretchLine } from "~/lib/plan/stretch";
 import { formatQuantity } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
-import { estimatePlan } from "~/models/plan-estimate.server";
-import { archivePlan, choosePlan, createPlan, engineMaterials, planChoices, planParts, requirePlan, updatePlan } from "~/models/plan.server";
+import { estimatePlan, planStretch } from "~/models/plan-estimate.server";
+import { archivePlan, choosePlan, createPlan, engineMaterials, planChoices, requirePlan, updatePlan } from "~/models/plan.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
-import { previewPlan } from "~/utils/plan-actions.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.plan.name ?? "Seal plan"} · Sealwright` }];
@@ -35,8 +34,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const [choices, materials, result, stretch] = await Promise.all([
     planChoices(team.id),
     engineMaterials(team.id, engine),
-    estimatePlan(team.id, engine, plan, user.units),
-    stretchFor(team.id, engine, plan),
+    estimatePlan(team.id, engine, plan, { units: user.units }),
+    planStretch(team.id, engine, plan),
   ]);
   return {
     stretch,
@@ -50,12 +49,6 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     result,
     chosen: engine.chosenPlanId === plan.id,
   };
-}
-
-/** The stretch line for plan figures (saved or as typed), or null when they cannot be estimated. */
-async function stretchFor(teamId: number, engine: Awaited<ReturnType<typeof requireEngine>>, plan: PlanRecord & { gasketId: number; fastenerId: number }): Promise<StretchLine | null> {
-  const parts = await planParts(teamId, engine, plan);
-  return parts ? stretchLineFor(assemblePlanInput(parts)) : null;
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -112,20 +105,20 @@ export async function action({ request, params }: Route.ActionArgs) {
   const parsed = parsePlanForm(values, user.units);
   if (!parsed.ok) return answer(followed ? 200 : 400, { errors: followed ? {} : parsed.errors });
   if (intent === "save" && !followed) {
-    const { problems } = await previewPlan(team.id, engine, parsed.plan, false, user.units);
-    if (problems.length > 0) return answer(400, { problems });
+    const estimate = await estimatePlan(team.id, engine, parsed.plan, { units: user.units });
+    if (!estimate.ok) return answer(400, { problems: estimate.problems });
     await updatePlan(team.id, user.id, engine.id, plan.id, parsed.plan);
     return redirectWithToast(request, `${base}/${plan.id}`, "Plan saved.");
   }
   // "estimate" and "suggest" (and a save held back above): compute for the values shown; nothing is written.
-  const out = await previewPlan(team.id, engine, parsed.plan, intent === "suggest", user.units);
-  const stretch = out.view ? await stretchFor(team.id, engine, parsed.plan) : null;
-  return answer(out.problems.length ? 400 : 200, { preview: out.view, suggestion: out.suggestion, problems: out.problems, stretch });
+  const out = await estimatePlan(team.id, engine, parsed.plan, { units: user.units, withSuggestion: intent === "suggest" });
+  if (!out.ok) return answer(400, { problems: out.problems });
+  return answer(200, { preview: out.view, suggestion: out.suggestion, stretch: await planStretch(team.id, engine, parsed.plan) });
 }
 
 /** The stud stretch (mm) a torque-planned version of the plan gives, or null when it cannot be estimated. */
 async function stretchAtTorque(teamId: number, engine: Awaited<ReturnType<typeof requireEngine>>, plan: PlanWrite): Promise<number | null> {
-  const line = await stretchFor(teamId, engine, plan);
+  const line = await planStretch(teamId, engine, plan);
   return line ? Number(line.stretchMm.toFixed(4)) : null;
 }
 

@@ -6,18 +6,17 @@ import { REFUSAL_TITLE, RoleRefusal } from "~/components/refusal";
 import { Button, ErrorSummary, FormError } from "~/components/form";
 import { MakerTorque } from "~/components/maker-torque";
 import { PlanFields } from "~/components/plan-form";
-import { assemblePlanInput, gasketsByFit } from "~/lib/plan/assemble";
+import { gasketsByFit } from "~/lib/plan/assemble";
 import { figuresFollowStep, makerPlanFigures } from "~/lib/plan/fastener-figures";
 import { parsePlanForm, planFormValues, type PlanWrite } from "~/lib/plan/form";
-import { stretchLineFor } from "~/lib/plan/stretch";
 import { formatQuantity, parseQuantity, unitFor } from "~/lib/units";
 import { decimalPoint } from "~/lib/units/decimal-comma";
 import { LearnedFrictionOffer } from "~/components/learned-friction";
 import { learnedFrictions } from "~/models/assembly-readings.server";
 import { requireEngine } from "~/models/engine.server";
-import { createPlan, listPlans, planChoices, planParts } from "~/models/plan.server";
+import { estimatePlan, planStretch } from "~/models/plan-estimate.server";
+import { createPlan, listPlans, planChoices } from "~/models/plan.server";
 import { requireRole } from "~/utils/auth.server";
-import { previewPlan } from "~/utils/plan-actions.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = ({ error }) => [{ title: error ? REFUSAL_TITLE : "New seal plan · Sealwright" }];
@@ -57,16 +56,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     engine,
     choices,
     values: planFormValues(plan, user.units),
-    stretch: await stretchFor(team.id, engine, plan),
+    stretch: await planStretch(team.id, engine, plan),
     emptyLibrary: !fastener || !gasket,
     // the shop's own friction, where three or more assemblies teach one: offered, never applied
     learned: (await learnedFrictions(team.id)).flatMap((l) => (l.learned.ok ? [{ fastenerId: l.fastenerId, lubricant: l.lubricant, friction: l.learned.friction, spread: l.learned.frictionSpread, count: l.learned.count, shift: l.shift }] : [])),
   };
-}
-
-async function stretchFor(teamId: number, engine: Awaited<ReturnType<typeof requireEngine>>, plan: PlanWrite) {
-  const parts = await planParts(teamId, engine, plan);
-  return parts ? stretchLineFor(assemblePlanInput(parts)) : null;
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -76,7 +70,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const values = Object.fromEntries(Object.entries(form).map(([k, v]) => [k, String(v)]));
   const answer = async (status: number, extra: { errors?: Record<string, string>; problems?: string[]; note?: string | null; values?: Record<string, string> } = {}) => {
     const shown = parsePlanForm(extra.values ?? values, user.units);
-    const stretch = shown.ok ? await stretchFor(team.id, engine, shown.plan) : null;
+    const stretch = shown.ok ? await planStretch(team.id, engine, shown.plan) : null;
     return data({ errors: {}, problems: [] as string[], note: null as string | null, values, stretch, ...extra }, { status });
   };
   if (values.intent === "show-all-gaskets") return answer(200, { values: { ...values, showAllGaskets: "1" } });
@@ -86,8 +80,8 @@ export async function action({ request, params }: Route.ActionArgs) {
   if (followed) return answer(200, { values: followed.values, note: followed.note });
   const parsed = parsePlanForm(form, user.units);
   if (!parsed.ok) return answer(400, { errors: parsed.errors });
-  const { problems } = await previewPlan(team.id, engine, parsed.plan, false, user.units);
-  if (problems.length > 0) return answer(400, { problems });
+  const estimate = await estimatePlan(team.id, engine, parsed.plan, { units: user.units });
+  if (!estimate.ok) return answer(400, { problems: estimate.problems });
   const id = await createPlan(team.id, user.id, engine.id, parsed.plan);
   return redirectWithToast(request, `/engines/${engine.id}/plans/${id}`, "Plan created.");
 }

@@ -1,4 +1,4 @@
-// NIST SP 811 (2008), Appendix B conversion factors, as listed in REFERENCES.md.
+// NIST SP 811 (2008), Appendix B conversion factors, as listed in docs/references.md.
 export const IN_TO_MM = 25.4; // exact
 export const LBF_TO_N = 4.4482216;
 export const LBF_FT_TO_NM = 1.3558179;

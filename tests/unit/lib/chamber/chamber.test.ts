@@ -1,4 +1,4 @@
-// REFERENCES.md §8: compression ratio, polytropic compression, quench.
+// docs/references.md §8: compression ratio, polytropic compression, quench.
 import { describe, expect, it } from "vitest";
 import { chamberProblems, compressionRatio, compressionRatioFromVolumes, estimatePeakPressure, gasketThicknessWhatIf } from "../../../../app/lib/chamber";
 import { IN_TO_MM, relErr } from "../nist";
@@ -17,7 +17,7 @@ describe("§8 chamber", () => {
     });
     expect(Math.abs(cr - 9.97)).toBeLessThan(0.005);
   });
-  it("compressionRatio from geometry: gasket volume = π/4·bore²·thickness (REFERENCES §8), hand arithmetic ±0.01 %", () => {
+  it("compressionRatio from geometry: gasket volume = π/4·bore²·thickness (docs/references.md §8), hand arithmetic ±0.01 %", () => {
     // bore 100, stroke 90: Vs = π/4·100²·90/1000 = 706.858 cc; gasket π/4·102²·1.0/1000 = 8.1713 cc
     // deck 0.2 mm: π/4·100²·0.2/1000 = 1.5708 cc; chamber 60, dish +5 → Vc = 74.7421; CR = 781.600/74.7421 = 10.4573
     const r = compressionRatio({ boreMm: 100, strokeMm: 90, chamberCc: 60, gasketBoreMm: 102, gasketThicknessMm: 1.0, deckClearanceMm: 0.2, pistonVolumeCc: 5 });

@@ -44,7 +44,7 @@ function integratedRingDeflection(E: number, t: number, a: number, b: number, P:
 const plateD = (E: number, t: number, nu = 0.3) => (E * t ** 3) / (12 * (1 - nu * nu));
 
 describe("ringLoadPlateCompliance (Timoshenko & Woinowsky-Krieger, clamped plate, ring load)", () => {
-  // Cases: a fire deck of cast aluminium (E 72.4 GPa, REFERENCES §7) or cast iron (100 GPa), clamped at
+  // Cases: a fire deck of cast aluminium (E 72.4 GPa, docs/references.md §7) or cast iron (100 GPa), clamped at
   // the stud circle a, loaded at the seal band's radius b. Tolerance 1e-6: the integrands are smooth on
   // each side of the load circle and RK4 with 2000 steps is exact to ~1e-12 here; the formula must match it.
   it.each([

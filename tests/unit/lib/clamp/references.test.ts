@@ -1,4 +1,4 @@
-// Every check in REFERENCES.md §1–§7, each with its source and a stated tolerance, and the
+// Every check in docs/references.md §1–§7, each with its source and a stated tolerance, and the
 // published checks of the model's load-introduction factor, unified threads and copper hardness.
 // §8 (chamber) lives in tests/unit/lib/chamber/chamber.test.ts; the plate formula in plate.test.ts.
 import { describe, expect, it } from "vitest";
@@ -60,7 +60,7 @@ describe("§1 thread geometry", () => {
 });
 describe("§1 unified threads through the model (ASME B1.1)", () => {
   // ASME B1.1 tensile stress areas, in² (from memory of the B1.1 table); ±0.0002 in² covers the table's
-  // rounding to four places and the formula-vs-table difference REFERENCES notes for 1/2-20 (0.1600 vs 0.1599).
+  // rounding to four places and the formula-vs-table difference docs/references.md notes for 1/2-20 (0.1600 vs 0.1599).
   const IN2 = IN_TO_MM * IN_TO_MM;
   it.each([
     { size: "1/2-13 UNC", dIn: 0.5, tpi: 13, tableIn2: 0.1419 },
@@ -141,7 +141,7 @@ describe("§2 torque to preload", () => {
       expect(h, m).toBeGreaterThanOrEqual(lo);
       expect(h, m).toBeLessThanOrEqual(hi);
     }
-    // REFERENCES: torque wrench with estimated friction αA ≈ 1.6–1.8
+    // docs/references.md §2: torque wrench with estimated friction αA ≈ 1.6–1.8
     expect(TIGHTENING_FACTOR["torque-estimated-friction"]).toBeGreaterThanOrEqual(1.6);
     expect(TIGHTENING_FACTOR["torque-estimated-friction"]).toBeLessThanOrEqual(1.8);
   });
@@ -242,7 +242,7 @@ describe("§4 member stiffness and the joint", () => {
 });
 describe("§4 load introduced inside the joint (VDI 2230 Φn; Shigley's joint diagram with the load plane moved)", () => {
   it("n = 1 (all of the members below the load plane): Φn = C and the joint gives Shigley §8-7's numbers", () => {
-    // Shigley 8th ed. problem values (REFERENCES §3–§4): kb 466.8, km 3503 MN/m, Fi 40 kN, P 10 kN
+    // Shigley 8th ed. problem values (docs/references.md §3–§4): kb 466.8, km 3503 MN/m, Fi 40 kN, P 10 kN
     const dS = 1 / 466_800;
     const dP = 1 / 3_503_000;
     const phi = loadFactorAtInnerPlane(dS, dP, dP);
@@ -332,9 +332,9 @@ describe("§6 gasket seal (ASME BPVC VIII-1 App. 2)", () => {
     expect(r.effectiveWidthMm / IN_TO_MM).toBeCloseTo(0.0625, 9);
     expect(r.reactionDiameterMm / IN_TO_MM).toBeCloseTo(4.155, 9);
   });
-  it("Wm1 = 42,597 lbf and Wm2 = 10,600 lbf (computed in REFERENCES with π ≈ 3.14), ±0.1 %", () => {
+  it("Wm1 = 42,597 lbf and Wm2 = 10,600 lbf (computed in docs/references.md with π ≈ 3.14), ±0.1 %", () => {
     // With π exact: H = π/4·4.155²·2000 = 27 118.4; Hp = 2·0.0625·π·4.155·4.75·2000 = 15 500.8 → Wm1 = 42 619.1;
-    // Wm2 = π·0.0625·4.155·13000 = 10 605.8. REFERENCES' figures match π = 3.14 (42 597.4 / 10 600.4); both within 0.1 %.
+    // Wm2 = π·0.0625·4.155·13000 = 10 605.8. docs/references.md's figures match π = 3.14 (42 597.4 / 10 600.4); both within 0.1 %.
     expect(relErr(toLbf(r.operatingBoltLoadN), 42_597)).toBeLessThan(1e-3);
     expect(relErr(toLbf(r.seatingLoadN), 10_600)).toBeLessThan(1e-3);
     expect(relErr(toLbf(r.operatingBoltLoadN), 42_619.1)).toBeLessThan(2e-5);

@@ -123,3 +123,20 @@ describe("a new plan's figures with no plan to start from", () => {
     expect(makerPlanFigures(NO_MAKER_TORQUE, "metric")).toMatchObject({ torqueNm: 100, stagesNm: [40, 70, 100] });
   });
 });
+
+describe("stage scaling and the stage-tolerance check (oneway)", () => {
+  it("scaled stages keep their proportions and land on wrench settings in the person's units", () => {
+    // 1/3 and 2/3 of 200 N·m
+    expect(scaledWrenchStages([50, 100, 150], 150, 200, "metric")).toEqual([wrenchSetting(200 / 3, "metric"), wrenchSetting(400 / 3, "metric"), 200]);
+    const imperial = scaledWrenchStages([60, 120, 180], 180, 240, "imperial");
+    expect(imperial[imperial.length - 1]).toBe(240);
+    expect(imperial).toHaveLength(3);
+    expect(imperial[0]! / 240).toBeCloseTo(1 / 3, 1);
+  });
+  it("the maker's last stage must be within 2 % of the maker's torque", () => {
+    expect(makerStagesNm("50, 100, 152 N·m", 150)).toEqual([50, 100, 150]);
+    expect(makerStagesNm("50, 100, 154 N·m", 150)).toBeNull();
+    expect(makerStagesNm("50, 100, 147 N·m", 150)).toEqual([50, 100, 150]);
+    expect(makerStagesNm("50, 100, 146 N·m", 150)).toBeNull();
+  });
+});

@@ -1,6 +1,6 @@
-// The display units against the NIST SP 811 factors (REFERENCES.md header).
+// The display units against the NIST SP 811 factors (docs/references.md header).
 import { describe, expect, it } from "vitest";
-import { formatQuantity, fromDisplay, parseQuantity, toDisplay, unitFor } from "../../../../app/lib/units";
+import { formatQuantity, fromDisplay, inputValue, parseQuantity, readQuantity, toDisplay, unitFor } from "../../../../app/lib/units";
 import { IN_TO_MM, LBF_FT_TO_NM, LBF_TO_N, PSI_TO_PA, relErr } from "../nist";
 
 // convert-units carries 4.44822 N/lbf, 1.355818 N·m/lbf·ft and 3.28084 ft/m: all within 1e-6 of NIST SP 811.
@@ -56,10 +56,50 @@ describe("units: display", () => {
     expect(b.ok && relErr(b.valueSi, 0.1016)).toBeLessThan(TOL);
     const c = parseQuantity("1,250", "force", "lbf");
     expect(c.ok && relErr(c.valueSi, 1250 * LBF_TO_N)).toBeLessThan(TOL);
-    expect(parseQuantity("1,5", "length", "mm")).toEqual({ ok: false, message: "Use a point for decimals (1.5, not 1,5)" });
+    expect(parseQuantity("1,5", "length", "mm")).toEqual({ ok: true, valueSi: 1.5, unit: "mm" });
+    expect(parseQuantity("0,45 in", "length", "mm")).toEqual({ ok: true, valueSi: expect.closeTo(0.45 * IN_TO_MM, 5), unit: "in" });
+    expect(parseQuantity("1,2,3", "length", "mm").ok).toBe(false);
     expect(parseQuantity("", "length", "mm").ok).toBe(false);
     expect(parseQuantity("abc", "length", "mm").ok).toBe(false);
     const d = parseQuantity("12 psi", "torque", "N·m");
     expect(d.ok).toBe(false);
+  });
+});
+
+describe("units: one choice per unit system", () => {
+  it("165 MPa reads 23.9 ksi wherever it is a stress", () => {
+    expect(formatQuantity(165, "stress", "imperial")).toBe("23.9 ksi");
+    expect(formatQuantity(165, "stress", "metric")).toBe("165 MPa");
+    expect(unitFor("stress", "imperial")).toBe("ksi");
+  });
+  it("small lengths in thou, lengths in inches", () => {
+    expect(unitFor("smallLength", "imperial")).toBe("thou");
+    expect(unitFor("length", "imperial")).toBe("in");
+    expect(formatQuantity(86, "length", "imperial")).toBe("3.386 in");
+  });
+  it("a plain figure carries no unit; withUnit: false drops it", () => {
+    expect(formatQuantity(0.125, "plain", "imperial")).toBe("0.125");
+    expect(formatQuantity(108.5, "torque", "metric", { withUnit: false })).toBe("109");
+  });
+  it("no figure reads with runaway digits: 1,241 MPa yield is 180.0 ksi, not 180,006 psi", () => {
+    expect(formatQuantity(1241, "stress", "imperial")).toBe("180.0 ksi");
+    expect(formatQuantity(89.6318, "torque", "metric")).toBe("90 N·m");
+  });
+});
+
+describe("units: input values and typed figures", () => {
+  it("inputValue is two decimals finer than the display, no grouping", () => {
+    expect(inputValue(86, "length", "imperial")).toBe("3.38583");
+    expect(inputValue(4448.2216 * 3, "force", "imperial")).toBe("3000");
+    expect(inputValue(1234567, "force", "metric")).toBe("1234.567");
+    expect(inputValue(null, "length", "metric")).toBe("");
+  });
+  it("manifold: gauge adds the standard atmosphere", () => {
+    expect(readQuantity("1 bar boost", "manifold", "metric")).toBeCloseTo(201.325, 9);
+    expect(readQuantity("200", "manifold", "metric")).toBe(200);
+    expect(readQuantity("29.0 psi abs", "manifold", "metric")).toBeCloseTo((29 * PSI_TO_PA) / 1000, 3);
+  });
+  it("an unknown unit is NaN for readQuantity", () => {
+    expect(readQuantity("5 parsecs", "length", "metric")).toBeNaN();
   });
 });

@@ -1,0 +1,12 @@
+// The three roles in a shop and their order: the one rank that the route guards, the navigation
+// and the pages' buttons all read.
+
+export const ROLES = ["viewer", "builder", "owner"] as const;
+export type Role = (typeof ROLES)[number];
+
+const RANK: Record<Role, number> = { viewer: 0, builder: 1, owner: 2 };
+
+/** True when `role` may do what `needed` may. */
+export function roleAtLeast(role: Role, needed: Role): boolean {
+  return RANK[role] >= RANK[needed];
+}
