@@ -1,5 +1,4 @@
 import { lazy, Suspense, useEffect, useRef, useState } from "react";
-import type { Status } from "~/lib/clamp";
 // the words and the order from their own modules: this panel needs no model code in the browser
 import { CEILING_WORDS } from "~/lib/clamp/ceiling-words";
 import { rankChecks } from "~/lib/clamp/check-order";

@@ -22,6 +22,8 @@ export interface LiveEstimateData {
   choices: { fasteners: (FastenerRecord & { id: number })[]; gaskets: (GasketRecord & { id: number })[] };
 }
 
+// the module is loaded after first paint (dynamic import below); only its type is needed here
+// eslint-disable-next-line @typescript-eslint/consistent-type-imports
 type LiveEvaluation = typeof import("~/lib/plan/live-evaluation");
 
 export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null) {
@@ -121,6 +123,5 @@ export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null)
     const stretch = view && stud && stretchLine ? stretchLine(stud.byStretch ? "stretch" : "torque", view.estimate.tightening.preload.nominalN, view.torqueNm, stud.stiffnessNPerMm) : null;
     // busy: the sweep and the scatter run shown are not yet these inputs' (the figures above them are)
     return { onChange, formRef, errors, fastenerId, stale, busy: slowPending, view, problems, stretch };
-    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [view, problems, slowPending, errors, fastenerId, stale, stud]);
 }

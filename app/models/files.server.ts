@@ -1,5 +1,5 @@
 import { FormDataParseError, MaxFileSizeExceededError, MaxFilesExceededError, parseFormData } from "@remix-run/form-data-parser";
-import { db, now, writeTransaction } from "~/utils/db.server";
+import { db, now, writeTransaction, type DbRow } from "~/utils/db.server";
 import { fileStorage, MAX_UPLOAD_BYTES, newStorageKey, sniffType, teamQuotaBytes, thumbnail } from "~/utils/files.server";
 import { parseId } from "~/utils/ids";
 
@@ -20,7 +20,7 @@ export interface FileRow {
   createdAt: string;
 }
 
-type Row = Record<string, any>;
+type Row = DbRow;
 const toFile = (r: Row): FileRow => ({
   id: r.id,
   engineId: r.engine_id,
@@ -53,6 +53,7 @@ export type UploadResult = { ok: true; file: FileRow; returnTo: string | null } 
 
 const MB = (n: number) => `${(n / 1024 / 1024).toFixed(1)} MB`;
 // A shown file name: no path, no control characters, at most 200 characters.
+// eslint-disable-next-line no-control-regex -- control characters are exactly what is removed
 const cleanName = (s: string) => (s.split(/[\\/]/).pop() ?? "").replace(/[\u0000-\u001f\u007f"]/g, "").trim().slice(0, 200) || "file";
 
 export async function receiveUpload(request: Request, teamId: number, userId: number, engineId: number): Promise<UploadResult> {

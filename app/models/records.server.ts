@@ -1,7 +1,7 @@
 import type { Knex } from "knex";
 import type { AssemblyRecord, StageDone, StudStretch } from "~/lib/records/assembly";
 import type { RunInput, RunRecord } from "~/lib/records/run";
-import { db, now, writeTransaction } from "~/utils/db.server";
+import { db, now, writeTransaction, type DbRow } from "~/utils/db.server";
 import type { EngineRow } from "./engine.server";
 import { evaluateAtFiring } from "./plan-at-pressure.server";
 import { listPlans, type PlanRow } from "./plan.server";
@@ -9,7 +9,7 @@ import { listPlans, type PlanRow } from "./plan.server";
 // Assemblies and runs of an engine: Knex queries, each scoped to the team given. Another team's
 // engine, assembly or run is simply not found.
 
-type Row = Record<string, any>;
+type Row = DbRow;
 
 export function toAssembly(r: Row): AssemblyRecord {
   return {

@@ -1,6 +1,6 @@
 import type { z } from "zod";
 import type { RunCreateSchema } from "~/lib/api/schemas";
-import { db, now, writeTransaction } from "~/utils/db.server";
+import { db, now, writeTransaction, type DbRow } from "~/utils/db.server";
 import { getEngine } from "./engine.server";
 import { viewerScope, type Asker } from "./viewer-scope.server";
 
@@ -50,7 +50,7 @@ export async function runsApiEnabled(): Promise<boolean> {
   return db().schema.hasTable(RUNS_TABLE);
 }
 
-function toRun(r: Record<string, any>): RunApiRow {
+function toRun(r: DbRow): RunApiRow {
   let cylinders: number[] = [];
   try {
     const parsed = JSON.parse(r.cylinders_affected ?? "[]");

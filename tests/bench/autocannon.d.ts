@@ -17,6 +17,7 @@ declare module "autocannon" {
       errors: number;
     }
   }
+  // eslint-disable-next-line @typescript-eslint/no-unused-vars -- merged into the declared module
   interface Instance extends Promise<autocannon.Result> {
     on(event: "response", listener: (client: unknown, statusCode: number, resBytes: number, responseTime: number) => void): this;
   }

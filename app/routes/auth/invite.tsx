@@ -50,9 +50,10 @@ const REASON = {
 
 export default function Invite({ loaderData, actionData, params }: Route.ComponentProps) {
   const { invite, reason, signedInAs } = loaderData;
+  const toast = useRootData()?.toast;
   if (!invite) {
     return (
-      <AuthFrame toast={useRootData()?.toast} title="Invite">
+      <AuthFrame toast={toast} title="Invite">
         <FormError message={REASON[reason ?? "unknown"]} />
         <p className="mt-4 text-sm">
           <Link className="text-copper-700 underline" to="/login">
@@ -64,7 +65,7 @@ export default function Invite({ loaderData, actionData, params }: Route.Compone
   }
   const here = `/invite/${params.token}`;
   return (
-    <AuthFrame toast={useRootData()?.toast} title={`Join ${invite.teamName}`}>
+    <AuthFrame toast={toast} title={`Join ${invite.teamName}`}>
       <p className="text-sm">
         You are invited as a <strong>{invite.role}</strong>, with the address <strong>{invite.email}</strong>.
       </p>

@@ -6,7 +6,7 @@ import { redirectWithToast } from "~/utils/toast.server";
 
 // POST only: a copy of the engine record and its stud pattern (not its plans). A GET lands on the engine.
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { team, who } = await requireUser(request);
+  const { who } = await requireUser(request);
   const engine = await requireEngine(who, params.engineId);
   return redirect(`/engines/${engine.id}`);
 }

@@ -8,7 +8,7 @@ import { roleAtLeast, requireUser } from "~/utils/auth.server";
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.engine.name ?? "Engine"} · Sealwright` }];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
-  const { team, role, who } = await requireUser(request);
+  const { role, who } = await requireUser(request);
   const engine = await requireEngine(who, params.engineId);
   return { engine, role, canEdit: roleAtLeast(role, "builder") };
 }

@@ -16,7 +16,7 @@ const PAGE_SIZE = 25;
 const MAX_PAGE = 1_000_000;
 
 export async function loader({ request }: Route.LoaderArgs) {
-  const { user, team, role, who } = await requireUser(request);
+  const { user, role, who } = await requireUser(request);
   const sp = new URL(request.url).searchParams;
   const q = (sp.get("q") ?? "").slice(0, 120);
   const statusParam = sp.get("status") ?? "";

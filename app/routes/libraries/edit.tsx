@@ -1,5 +1,4 @@
-import { data, Form, Link, redirect, useNavigation } from "react-router";
-import type { ReactNode } from "react";
+import { data, Form, Link, useNavigation } from "react-router";
 import type { Route } from "./+types/edit";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { Button, ErrorSummary, Field, SelectField } from "~/components/form";
