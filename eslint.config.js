@@ -6,7 +6,24 @@ import reactHooks from "eslint-plugin-react-hooks";
 import globals from "globals";
 import tseslint from "typescript-eslint";
 
-const NODE_BUILTINS = ["assert", "buffer", "child_process", "crypto", "fs", "http", "https", "net", "os", "path", "process", "stream", "url", "util", "worker_threads", "zlib"];
+const NODE_BUILTINS = [
+  "assert",
+  "buffer",
+  "child_process",
+  "crypto",
+  "fs",
+  "http",
+  "https",
+  "net",
+  "os",
+  "path",
+  "process",
+  "stream",
+  "url",
+  "util",
+  "worker_threads",
+  "zlib",
+];
 
 export default tseslint.config(
   { ignores: ["build/", "node_modules/", ".react-router/", "data/", "test-results/", "playwright-report/", "coverage/"] },
@@ -34,8 +51,23 @@ export default tseslint.config(
         "error",
         {
           patterns: [
-            { group: ["~/routes/*", "~/models/*", "~/utils/*", "~/components/*", "**/routes/**", "**/models/**", "**/utils/**", "**/components/**"], message: "app/lib is the pure core: it imports nothing from routes, models, utils or components." },
-            { group: ["react", "react/*", "react-dom", "react-dom/*", "react-router", "react-router/*", "@react-router/*"], message: "app/lib stays free of React and the router." },
+            {
+              group: [
+                "~/routes/*",
+                "~/models/*",
+                "~/utils/*",
+                "~/components/*",
+                "**/routes/**",
+                "**/models/**",
+                "**/utils/**",
+                "**/components/**",
+              ],
+              message: "app/lib is the pure core: it imports nothing from routes, models, utils or components.",
+            },
+            {
+              group: ["react", "react/*", "react-dom", "react-dom/*", "react-router", "react-router/*", "@react-router/*"],
+              message: "app/lib stays free of React and the router.",
+            },
             { group: ["knex", "knex/*", "better-sqlite3"], message: "app/lib never touches the database." },
             { group: ["node:*", ...NODE_BUILTINS], message: "app/lib uses no Node API." },
           ],
@@ -50,7 +82,10 @@ export default tseslint.config(
         "error",
         {
           patterns: [
-            { group: ["**/*.server", "**/*.server.ts", "~/models/*", "~/routes/*"], message: "Components take plain data: no server-only modules, models or routes (types live in app/lib)." },
+            {
+              group: ["**/*.server", "**/*.server.ts", "~/models/*", "~/routes/*"],
+              message: "Components take plain data: no server-only modules, models or routes (types live in app/lib).",
+            },
           ],
         },
       ],

@@ -4,7 +4,13 @@ import { createReadableStreamFromReadable } from "@react-router/node";
 import { isbot } from "isbot";
 import type { RenderToPipeableStreamOptions } from "react-dom/server";
 import { renderToPipeableStream } from "react-dom/server";
-import { isRouteErrorResponse, ServerRouter, type EntryContext, type HandleDataRequestFunction, type HandleErrorFunction } from "react-router";
+import {
+  isRouteErrorResponse,
+  ServerRouter,
+  type EntryContext,
+  type HandleDataRequestFunction,
+  type HandleErrorFunction,
+} from "react-router";
 import { NonceProvider } from "./components/nonce";
 import { logCrossSiteRefusal } from "./utils/request-guard.server";
 import { fillSecurityHeaders, securityHeaders } from "./utils/security-headers.server";
@@ -42,12 +48,7 @@ export const handleError: HandleErrorFunction = (error, { request }) => {
   console.error(error);
 };
 
-export default function handleRequest(
-  request: Request,
-  responseStatusCode: number,
-  responseHeaders: Headers,
-  routerContext: EntryContext,
-) {
+export default function handleRequest(request: Request, responseStatusCode: number, responseHeaders: Headers, routerContext: EntryContext) {
   const nonce = crypto.randomBytes(16).toString("base64");
   applyHeaders(responseHeaders, nonce);
 

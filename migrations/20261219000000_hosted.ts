@@ -25,7 +25,10 @@ export async function up(knex: Knex): Promise<void> {
   });
   for (const table of TEAM_TABLES) {
     await knex.raw("alter table ?? enable row level security", [table]);
-    await knex.raw(`create policy ?? on ?? using (team_id = ${TEAM_OF_REQUEST}) with check (team_id = ${TEAM_OF_REQUEST})`, [`${table}_team`, table]);
+    await knex.raw(`create policy ?? on ?? using (team_id = ${TEAM_OF_REQUEST}) with check (team_id = ${TEAM_OF_REQUEST})`, [
+      `${table}_team`,
+      table,
+    ]);
   }
 }
 

@@ -6,7 +6,9 @@ import { getEnv } from "../app/utils/env.server.ts";
 
 const env = getEnv();
 if (env.DATABASE_URL) {
-  console.error("DATABASE_URL is set: PostgreSQL is backed up by the server's own tools (base backup + WAL, or pg_dump); see docs/hosting.md.");
+  console.error(
+    "DATABASE_URL is set: PostgreSQL is backed up by the server's own tools (base backup + WAL, or pg_dump); see docs/hosting.md.",
+  );
   process.exit(1);
 }
 const stamp = new Date().toISOString().replace(/[:.]/g, "-");

@@ -13,7 +13,9 @@ try {
     console.log(`SEED_DEMO=false: ran ${files.length} seed file (library only, no demo accounts)`);
   } else {
     if (env.NODE_ENV === "production") {
-      console.warn("SEED_DEMO is not false: an empty database gets the demo accounts (published password). Set SEED_DEMO=false for a real shop.");
+      console.warn(
+        "SEED_DEMO is not false: an empty database gets the demo accounts (published password). Set SEED_DEMO=false for a real shop.",
+      );
     }
     const [files] = await knex.seed.run();
     console.log(`Ran ${files.length} seed files`);

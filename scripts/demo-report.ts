@@ -24,7 +24,10 @@ for (const row of await db()("engines").where({ team_id: team.id }).orderBy("id"
         `    weakest margin ${e.weakestMargin.toFixed(2)} (bottom of band; nominal ${e.weakestMarginNominal.toFixed(2)}), P(<1) ${(v.probabilityMarginBelowOne * 100).toFixed(1)} %, ` +
         `ceiling ${v.ceiling.torqueNm.toFixed(0)} N·m (${CEILING_WORDS[v.ceiling.cause]}), gain/+10 % ${(e.gain.share * 100).toFixed(0)} %, squeezes head: ${e.squeeze.mostlySqueezing ? e.squeeze.reason : "no"}` +
         `${v.headSqueezeOnsetNm !== null ? ` (from ${v.headSqueezeOnsetNm.toFixed(0)} N·m)` : ""}\n` +
-        `    checks: ${e.verdict.checks.filter((c) => c.checked).map((c) => `${c.id} ${c.status} ${c.ratio.toFixed(2)}`).join(", ")}`,
+        `    checks: ${e.verdict.checks
+          .filter((c) => c.checked)
+          .map((c) => `${c.id} ${c.status} ${c.ratio.toFixed(2)}`)
+          .join(", ")}`,
     );
   }
 }

@@ -30,7 +30,12 @@ app.use((req, res, next) => {
   res.writeHead = function (...args) {
     if (!res.headersSent) {
       const type = res.getHeader("Content-Type");
-      fillHeaderValues((name) => res.hasHeader(name), (name, value) => res.setHeader(name, value), kindOf(req.path, type ? String(type) : null), production);
+      fillHeaderValues(
+        (name) => res.hasHeader(name),
+        (name, value) => res.setHeader(name, value),
+        kindOf(req.path, type ? String(type) : null),
+        production,
+      );
     }
     return writeHead.apply(this, args);
   };
@@ -56,7 +61,9 @@ app.all(
 const port = Number(process.env.PORT ?? 3000);
 const host = process.env.HOST;
 const onListen = () => {
-  const lan = Object.values(os.networkInterfaces()).flat().find((ip) => String(ip?.family).includes("4") && !ip?.internal)?.address;
+  const lan = Object.values(os.networkInterfaces())
+    .flat()
+    .find((ip) => String(ip?.family).includes("4") && !ip?.internal)?.address;
   console.log(`[sealwright] http://${host ?? "localhost"}:${port}${!host && lan ? ` (http://${lan}:${port})` : ""}`);
 };
 const server = host ? app.listen(port, host, onListen) : app.listen(port, onListen);

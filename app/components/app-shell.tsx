@@ -21,7 +21,10 @@ export function AppShell({ user, team, role, memberships, nav, children }: Shell
   return (
     <div className="flex min-h-screen flex-col">
       {/* the first Tab stop: past the header and its menu, straight to the page */}
-      <a href="#main" className="no-print sr-only z-50 rounded bg-white px-4 py-2 font-bold text-forge-950 focus:not-sr-only focus:absolute focus:left-2 focus:top-2">
+      <a
+        href="#main"
+        className="no-print sr-only z-50 rounded bg-white px-4 py-2 font-bold text-forge-950 focus:not-sr-only focus:absolute focus:left-2 focus:top-2"
+      >
         Skip to the page
       </a>
       {/* Escape closes the phone menu and hands focus back to its button */}
@@ -105,7 +108,15 @@ export function AppShell({ user, team, role, memberships, nav, children }: Shell
   );
 }
 
-function TeamSwitcher({ team, memberships, returnTo }: { team: ShellProps["team"]; memberships: ShellProps["memberships"]; returnTo: string }) {
+function TeamSwitcher({
+  team,
+  memberships,
+  returnTo,
+}: {
+  team: ShellProps["team"];
+  memberships: ShellProps["memberships"];
+  returnTo: string;
+}) {
   if (memberships.length < 2) {
     return <span className="rounded bg-forge-800 px-2 py-1 text-sm">{team.name}</span>;
   }

@@ -28,7 +28,15 @@ interface SheetEngine {
 }
 
 interface Sheet {
-  plan: { name: string; method: keyof typeof METHOD_LABEL; torqueNm: number; stagesNm: number[]; lubricant: string; wireLocation: keyof typeof WIRE_LABEL; updatedAt: string };
+  plan: {
+    name: string;
+    method: keyof typeof METHOD_LABEL;
+    torqueNm: number;
+    stagesNm: number[];
+    lubricant: string;
+    wireLocation: keyof typeof WIRE_LABEL;
+    updatedAt: string;
+  };
   fastener: { name: string; diameterMm: number; makerTorqueNm: number | null; makerLubricant: string | null; makerStages: string | null };
   gasket: { name: string; type: keyof typeof GASKET_TYPE_LABELS; compressedThicknessMm: number; boreMm: number };
   view: EstimateView;
@@ -58,7 +66,17 @@ function Facts({ rows }: { rows: [string, ReactNode][] }) {
   );
 }
 
-export function BuildSheetView({ engine, sheet, units, teamName }: { engine: SheetEngine; sheet: Sheet; units: UnitSystem; teamName: string }) {
+export function BuildSheetView({
+  engine,
+  sheet,
+  units,
+  teamName,
+}: {
+  engine: SheetEngine;
+  sheet: Sheet;
+  units: UnitSystem;
+  teamName: string;
+}) {
   const { plan, fastener, gasket, view, chamber, materials } = sheet;
   const e = view.estimate;
   const len = (mm: number) => formatQuantity(mm, "length", units);
@@ -69,7 +87,8 @@ export function BuildSheetView({ engine, sheet, units, teamName }: { engine: She
     <article aria-label={`Build sheet of ${engine.name}`} className="space-y-4" data-testid="build-sheet">
       <p className="text-sm text-forge-700">
         From {teamName}
-        {engine.customer ? ` for ${engine.customer}` : ""} · seal plan <strong className="text-forge-950">{plan.name}</strong> · last changed {plan.updatedAt.slice(0, 10)}
+        {engine.customer ? ` for ${engine.customer}` : ""} · seal plan <strong className="text-forge-950">{plan.name}</strong> · last
+        changed {plan.updatedAt.slice(0, 10)}
       </p>
 
       <Section title="Engine">
@@ -98,9 +117,23 @@ export function BuildSheetView({ engine, sheet, units, teamName }: { engine: She
       </Section>
 
       <Section title="Fastener and torque">
-        <Facts rows={[["Fastener", fastener.name], ["Thread diameter", len(fastener.diameterMm)], ["How it is tightened", METHOD_LABEL[plan.method]], ["This plan's stages", stagesText(plan.stagesNm, plan.torqueNm, units)], ["This plan's lubricant", plan.lubricant || "as the maker says"]]} />
+        <Facts
+          rows={[
+            ["Fastener", fastener.name],
+            ["Thread diameter", len(fastener.diameterMm)],
+            ["How it is tightened", METHOD_LABEL[plan.method]],
+            ["This plan's stages", stagesText(plan.stagesNm, plan.torqueNm, units)],
+            ["This plan's lubricant", plan.lubricant || "as the maker says"],
+          ]}
+        />
         <div className="mt-3">
-          <MakerTorque ourTorqueNm={plan.torqueNm} makerTorqueNm={fastener.makerTorqueNm} makerLubricant={fastener.makerLubricant} makerStages={fastener.makerStages} units={units} />
+          <MakerTorque
+            ourTorqueNm={plan.torqueNm}
+            makerTorqueNm={fastener.makerTorqueNm}
+            makerLubricant={fastener.makerLubricant}
+            makerStages={fastener.makerStages}
+            units={units}
+          />
         </div>
       </Section>
 
@@ -109,16 +142,25 @@ export function BuildSheetView({ engine, sheet, units, teamName }: { engine: She
           <VerdictLine view={view} />
         </p>
         <p className="mt-1 text-sm tabular">
-          Weakest seal margin {e.weakestMargin.toFixed(2)} on cylinder {e.weakestCylinder} (target {view.targetMargin.toFixed(2)}), at the bottom of the tightening scatter, hot and fired.
+          Weakest seal margin {e.weakestMargin.toFixed(2)} on cylinder {e.weakestCylinder} (target {view.targetMargin.toFixed(2)}), at the
+          bottom of the tightening scatter, hot and fired.
         </p>
         <table className="mt-3 w-full border-collapse text-sm tabular" data-testid="sheet-cylinders">
           <caption className="sr-only">Clamp and seal margin per cylinder</caption>
           <thead className="bg-forge-100">
             <tr>
-              <th scope="col" className="px-2 py-1 text-left">Cylinder</th>
-              <th scope="col" className="px-2 py-1 text-right">Clamp (cold)</th>
-              <th scope="col" className="px-2 py-1 text-right">Seal margin</th>
-              <th scope="col" className="px-2 py-1 text-right">Body margin</th>
+              <th scope="col" className="px-2 py-1 text-left">
+                Cylinder
+              </th>
+              <th scope="col" className="px-2 py-1 text-right">
+                Clamp (cold)
+              </th>
+              <th scope="col" className="px-2 py-1 text-right">
+                Seal margin
+              </th>
+              <th scope="col" className="px-2 py-1 text-right">
+                Body margin
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -126,9 +168,13 @@ export function BuildSheetView({ engine, sheet, units, teamName }: { engine: She
               const look = STATUS_LOOK[marginStatus(c.sealMargin, view.targetMargin)];
               return (
                 <tr key={c.cylinder} className="border-t border-forge-100">
-                  <th scope="row" className="px-2 py-1 text-left font-medium">{c.cylinder}</th>
+                  <th scope="row" className="px-2 py-1 text-left font-medium">
+                    {c.cylinder}
+                  </th>
                   <td className="px-2 py-1 text-right">{force(c.clampN)}</td>
-                  <td className="px-2 py-1 text-right">{look.icon} {c.sealMargin.toFixed(2)}</td>
+                  <td className="px-2 py-1 text-right">
+                    {look.icon} {c.sealMargin.toFixed(2)}
+                  </td>
                   <td className="px-2 py-1 text-right">{c.bodyMargin.toFixed(2)}</td>
                 </tr>
               );
@@ -151,7 +197,10 @@ export function BuildSheetView({ engine, sheet, units, teamName }: { engine: She
           <Facts
             rows={[
               ["Compression ratio", `${chamber.compressionRatio.toFixed(2)} : 1`],
-              ["Quench (squish) clearance", `${small(chamber.quenchMm)} ${chamber.quenchInUsualRange ? "(usual)" : "(outside the usual 0.9–1.15 mm)"}`],
+              [
+                "Quench (squish) clearance",
+                `${small(chamber.quenchMm)} ${chamber.quenchInUsualRange ? "(usual)" : "(outside the usual 0.9–1.15 mm)"}`,
+              ],
               ["Swept volume per cylinder", `${chamber.sweptCc.toFixed(1)} cc`],
               ["Clearance volume", `${chamber.clearanceCc.toFixed(1)} cc`],
             ]}
@@ -162,14 +211,22 @@ export function BuildSheetView({ engine, sheet, units, teamName }: { engine: She
       <Section title="Torque procedure">
         <ol className="list-decimal space-y-1 pl-5 text-sm">
           <li>Clean and chase the threads; fit the studs to the depth the fastener maker gives.</li>
-          <li>Lubricate threads and washer faces — {fastener.makerLubricant || plan.lubricant || "the lubricant the fastener maker names"}.</li>
+          <li>
+            Lubricate threads and washer faces — {fastener.makerLubricant || plan.lubricant || "the lubricant the fastener maker names"}.
+          </li>
           <li>
             Tighten in the engine maker's sequence, in stages: {stagesText(plan.stagesNm, plan.torqueNm, units)}
-            {fastener.makerTorqueNm !== null && Math.abs(fastener.makerTorqueNm - plan.torqueNm) / fastener.makerTorqueNm >= 0.005 ? ` (the maker's figure is ${torque(fastener.makerTorqueNm)}: theirs governs)` : ""}.
+            {fastener.makerTorqueNm !== null && Math.abs(fastener.makerTorqueNm - plan.torqueNm) / fastener.makerTorqueNm >= 0.005
+              ? ` (the maker's figure is ${torque(fastener.makerTorqueNm)}: theirs governs)`
+              : ""}
+            .
           </li>
           <li>Re-check at the final figure in the same sequence, and after the first heat cycle if the gasket maker asks for it.</li>
         </ol>
-        <p className="mt-2 text-xs text-forge-700">Preload per stud we expect: {force(e.tightening.preload.minN)} to {force(e.tightening.preload.maxN)} across the tightening scatter.</p>
+        <p className="mt-2 text-xs text-forge-700">
+          Preload per stud we expect: {force(e.tightening.preload.minN)} to {force(e.tightening.preload.maxN)} across the tightening
+          scatter.
+        </p>
       </Section>
 
       <Caution />

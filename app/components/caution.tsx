@@ -7,8 +7,7 @@ export const CAUTION_HANDLE = { caution: true } as const;
 export function pageShowsCaution(matches: readonly { handle?: unknown }[]): boolean {
   return matches.some((m) => typeof m.handle === "object" && m.handle !== null && (m.handle as { caution?: unknown }).caution === true);
 }
-export const CAUTION_SHORT =
-  "Estimates, not instructions. The fastener and engine makers' torque, lubricant and procedure govern.";
+export const CAUTION_SHORT = "Estimates, not instructions. The fastener and engine makers' torque, lubricant and procedure govern.";
 
 export function Caution({ className = "" }: { className?: string }) {
   return (
@@ -18,10 +17,10 @@ export function Caution({ className = "" }: { className?: string }) {
       className={`rounded border-l-4 border-caution bg-caution-50 px-4 py-3 text-sm text-forge-950 ${className}`}
     >
       <p>
-        <strong>⚠ Estimates, not instructions.</strong> Our figures come from a simplified spring model of the joint.
-        The fastener maker's torque, lubricant and procedure govern; never use our figure in place of theirs. A failed
-        head seal or a broken stud under boost can injure people: follow the engine and fastener makers' procedures,
-        use calibrated tools, and defer to local rules and licensed practice.
+        <strong>⚠ Estimates, not instructions.</strong> Our figures come from a simplified spring model of the joint. The fastener maker's
+        torque, lubricant and procedure govern; never use our figure in place of theirs. A failed head seal or a broken stud under boost can
+        injure people: follow the engine and fastener makers' procedures, use calibrated tools, and defer to local rules and licensed
+        practice.
       </p>
     </aside>
   );

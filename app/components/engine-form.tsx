@@ -53,11 +53,15 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
 
   return (
     <Form method="post" noValidate className="space-y-6">
-      <ErrorSummary errors={errors} message={count > 0 ? `The engine was not saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention.` : null} answer={answer} />
+      <ErrorSummary
+        errors={errors}
+        message={count > 0 ? `The engine was not saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention.` : null}
+        answer={answer}
+      />
       <SaveOrCancel submitLabel={submitLabel} cancelTo={cancelTo} />
       <p className="text-sm text-forge-700">
-        Figures are in your units ({units === "imperial" ? "inches, thou, psi, °F" : "millimetres, kPa, bar, °C"}). A figure may carry its own unit — “3.386 in”,
-        “4 thou”, “230 °F”, “2 bar boost” — and that unit wins; a decimal comma (“86,5”) reads as a point.
+        Figures are in your units ({units === "imperial" ? "inches, thou, psi, °F" : "millimetres, kPa, bar, °C"}). A figure may carry its
+        own unit — “3.386 in”, “4 thou”, “230 °F”, “2 bar boost” — and that unit wins; a decimal comma (“86,5”) reads as a point.
       </p>
 
       <Fieldset legend="The engine">
@@ -90,13 +94,35 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
         {n("strokeMm", `Stroke (${len})`)}
         {n("rodLengthMm", `Rod length (${len}), optional`, { hint: "Centre to centre; longer than half the stroke." })}
         {n("headThicknessAtStudMm", `Head thickness at the stud (${len})`, { hint: "Deck face to the washer seat." })}
-        {n("blockDepthToThreadMm", `Block depth to the engaged thread (${len})`, { hint: "Deck to the first engaged thread; 0 if the thread starts at the deck." })}
+        {n("blockDepthToThreadMm", `Block depth to the engaged thread (${len})`, {
+          hint: "Deck to the first engaged thread; 0 if the thread starts at the deck.",
+        })}
       </Fieldset>
 
       <Fieldset legend="Materials and sleeves" className="group/sleeves">
-        <MaterialSelect label="Block (deck) material" name="blockMaterialId" value={f.blockMaterialId} error={errors.blockMaterialId} materials={materials} kinds={CASTING_KINDS} />
-        <MaterialSelect label="Head material" name="headMaterialId" value={f.headMaterialId} error={errors.headMaterialId} materials={materials} kinds={CASTING_KINDS} />
-        <SelectField label="Sleeves" name="sleeveKind" value={sleeveKind} onChange={(e) => setSleeveKind(e.target.value)} error={errors.sleeveKind}>
+        <MaterialSelect
+          label="Block (deck) material"
+          name="blockMaterialId"
+          value={f.blockMaterialId}
+          error={errors.blockMaterialId}
+          materials={materials}
+          kinds={CASTING_KINDS}
+        />
+        <MaterialSelect
+          label="Head material"
+          name="headMaterialId"
+          value={f.headMaterialId}
+          error={errors.headMaterialId}
+          materials={materials}
+          kinds={CASTING_KINDS}
+        />
+        <SelectField
+          label="Sleeves"
+          name="sleeveKind"
+          value={sleeveKind}
+          onChange={(e) => setSleeveKind(e.target.value)}
+          error={errors.sleeveKind}
+        >
           {SLEEVE_KINDS.map((k) => (
             <option key={k} value={k}>
               {SLEEVE_LABEL[k]}
@@ -106,17 +132,35 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
         {/* Shown by CSS from the picked sleeve kind, so they appear before and without JavaScript too;
             the server ignores them for an engine without sleeves. */}
         <div className="group-has-[#f-sleeveKind_option[value=none]:checked]/sleeves:hidden">
-          <MaterialSelect label="Sleeve material" name="sleeveMaterialId" value={f.sleeveMaterialId} error={errors.sleeveMaterialId} materials={materials} kinds={SLEEVE_KINDS_OF_MATERIAL} />
+          <MaterialSelect
+            label="Sleeve material"
+            name="sleeveMaterialId"
+            value={f.sleeveMaterialId}
+            error={errors.sleeveMaterialId}
+            materials={materials}
+            kinds={SLEEVE_KINDS_OF_MATERIAL}
+          />
         </div>
-        {n("sleeveWallMm", `Sleeve wall at the top (${len})`, { className: "group-has-[#f-sleeveKind_option[value=none]:checked]/sleeves:hidden" })}
-        {n("sleeveSupportLengthMm", `Support length, top to seat (${len})`, { className: "hidden group-has-[#f-sleeveKind_option[value=wet-mid]:checked]/sleeves:block" })}
+        {n("sleeveWallMm", `Sleeve wall at the top (${len})`, {
+          className: "group-has-[#f-sleeveKind_option[value=none]:checked]/sleeves:hidden",
+        })}
+        {n("sleeveSupportLengthMm", `Support length, top to seat (${len})`, {
+          className: "hidden group-has-[#f-sleeveKind_option[value=wet-mid]:checked]/sleeves:block",
+        })}
         {n("sleeveProtrusionMm", `Sleeve protrusion as machined (${small})`, {
           hint: `Sleeve top above the deck; −0.5 to 1 mm${units === "imperial" ? " (−20 to 39 thou)" : ""}. 0 without sleeves.`,
         })}
       </Fieldset>
 
       <Fieldset legend="Boost and firing">
-        <Field label="Fuel" name="fuel" defaultValue={f.fuel} error={errors.fuel} maxLength={60} hint="As the shop names it, e.g. E85, methanol, race gasoline." />
+        <Field
+          label="Fuel"
+          name="fuel"
+          defaultValue={f.fuel}
+          error={errors.fuel}
+          maxLength={60}
+          hint="As the shop names it, e.g. E85, methanol, race gasoline."
+        />
         {n("targetManifoldKpa", `Target manifold pressure, absolute (${unitFor("manifold", units).replace(" abs", "")})`, {
           hint:
             units === "imperial"
@@ -129,10 +173,12 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
         <fieldset aria-describedby={errors.peakPressureSource ? "f-peakPressureSource-error" : undefined}>
           <legend className="block text-sm font-medium text-forge-800">That peak pressure is</legend>
           <label className="mt-2 flex items-center gap-2">
-            <input type="radio" name="peakPressureSource" value="measured" defaultChecked={f.peakPressureSource === "measured"} /> measured (pressure trace)
+            <input type="radio" name="peakPressureSource" value="measured" defaultChecked={f.peakPressureSource === "measured"} /> measured
+            (pressure trace)
           </label>
           <label className="mt-1 flex items-center gap-2">
-            <input type="radio" name="peakPressureSource" value="estimated" defaultChecked={f.peakPressureSource !== "measured"} /> an estimate
+            <input type="radio" name="peakPressureSource" value="estimated" defaultChecked={f.peakPressureSource !== "measured"} /> an
+            estimate
           </label>
           {errors.peakPressureSource ? (
             <p id="f-peakPressureSource-error" className="mt-1 text-sm font-medium text-failed">
@@ -140,7 +186,9 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
             </p>
           ) : null}
         </fieldset>
-        {n("pressureRiseFactor", "Pressure-rise factor", { hint: "How many times the compression pressure the firing peak reaches, 1 to 10 (3 unless you know better). Used only while the peak pressure is estimated." })}
+        {n("pressureRiseFactor", "Pressure-rise factor", {
+          hint: "How many times the compression pressure the firing peak reaches, 1 to 10 (3 unless you know better). Used only while the peak pressure is estimated.",
+        })}
         {n("runningHeadC", `Running head temperature (${unitFor("temperature", units)})`)}
         {n("runningBlockC", `Running block temperature (${unitFor("temperature", units)})`)}
       </Fieldset>
@@ -156,9 +204,9 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
           Stud pattern
         </h2>
         <p className="mt-1 text-sm text-forge-700">
-          Each stud's preload is split among the bores it borders; its shares must add up to 1. Generate the usual
-          pattern from the layout, then edit shares or add studs (e.g. extra studs in the valley). Shares may be typed as
-          0.5 or 1/2. Clear a row's cylinders and label to drop it.
+          Each stud's preload is split among the bores it borders; its shares must add up to 1. Generate the usual pattern from the layout,
+          then edit shares or add studs (e.g. extra studs in the valley). Shares may be typed as 0.5 or 1/2. Clear a row's cylinders and
+          label to drop it.
         </p>
         <div className="mt-3 flex flex-wrap items-end gap-3">
           <Field
@@ -279,9 +327,6 @@ function Fieldset({ legend, children, className = "" }: { legend: string; childr
     </fieldset>
   );
 }
-
-
-
 
 // Blocks and heads are castings; sleeves are iron or steel. Stud steels, wire and copper stay out of those lists.
 const CASTING_KINDS = ["aluminium", "iron", "other"];

@@ -27,7 +27,16 @@ export function VerdictLine({ view }: { view: EstimateView }) {
   );
 }
 
-export function EstimatePanel({ view, units, busy = false }: { view: EstimateView; units: UnitSystem; targetMargin?: number; busy?: boolean }) {
+export function EstimatePanel({
+  view,
+  units,
+  busy = false,
+}: {
+  view: EstimateView;
+  units: UnitSystem;
+  targetMargin?: number;
+  busy?: boolean;
+}) {
   const e = view.estimate;
   const v = e.verdict;
   const look = STATUS_LOOK[v.status];
@@ -56,7 +65,10 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
           Estimate
         </h2>
         {busy ? (
-          <span className="rounded border border-forge-500 bg-white px-2 py-0.5 text-sm font-medium text-forge-900" data-testid="recalculating">
+          <span
+            className="rounded border border-forge-500 bg-white px-2 py-0.5 text-sm font-medium text-forge-900"
+            data-testid="recalculating"
+          >
             ↻ Recalculating…
           </span>
         ) : null}
@@ -70,13 +82,13 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
           {look.icon} {look.word}: {v.headline}
         </p>
         <p className="text-sm tabular" data-testid="weakest-margin">
-          Weakest seal margin {e.weakestMargin.toFixed(2)} on cylinder {e.weakestCylinder} at the bottom of the scatter band, hot and fired (at the nominal preload:{" "}
-          {e.weakestMarginNominal.toFixed(2)}). Target {view.targetMargin.toFixed(2)}.
+          Weakest seal margin {e.weakestMargin.toFixed(2)} on cylinder {e.weakestCylinder} at the bottom of the scatter band, hot and fired
+          (at the nominal preload: {e.weakestMarginNominal.toFixed(2)}). Target {view.targetMargin.toFixed(2)}.
         </p>
         <p className="text-sm">
-          With each stud's preload sampled across the tightening band (±{pct(half)}; the samples span {pct(view.preloadSpread.p2_5 - 1)} to +
-          {pct(view.preloadSpread.p97_5 - 1)}), the chance the weakest margin falls below 1 is {chance(view.probabilityMarginBelowOne)} and the chance a
-          stud passes its limit is {chance(view.probabilityStudOverLimit)}.
+          With each stud's preload sampled across the tightening band (±{pct(half)}; the samples span {pct(view.preloadSpread.p2_5 - 1)} to
+          +{pct(view.preloadSpread.p97_5 - 1)}), the chance the weakest margin falls below 1 is {chance(view.probabilityMarginBelowOne)} and
+          the chance a stud passes its limit is {chance(view.probabilityStudOverLimit)}.
         </p>
       </div>
 
@@ -86,22 +98,28 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
           <caption className="mb-1 text-left font-bold">Every check, worst first</caption>
           <thead className="bg-forge-100">
             <tr>
-              <th scope="col" className="px-2 py-1">Result</th>
-              <th scope="col" className="px-2 py-1">Check</th>
-              <th scope="col" className="px-2 py-1">Figure</th>
+              <th scope="col" className="px-2 py-1">
+                Result
+              </th>
+              <th scope="col" className="px-2 py-1">
+                Check
+              </th>
+              <th scope="col" className="px-2 py-1">
+                Figure
+              </th>
             </tr>
           </thead>
           <tbody>
             {rankChecks(v.checks).map((c) => {
-                const l = STATUS_LOOK[c.status];
-                return (
-                  <tr key={c.id} className="border-t border-forge-100">
-                    <td className="px-2 py-1 whitespace-nowrap">{c.checked ? `${l.icon} ${l.word}` : "— not checked"}</td>
-                    <td className="px-2 py-1">{c.label}</td>
-                    <td className="px-2 py-1 tabular">{c.detail}</td>
-                  </tr>
-                );
-              })}
+              const l = STATUS_LOOK[c.status];
+              return (
+                <tr key={c.id} className="border-t border-forge-100">
+                  <td className="px-2 py-1 whitespace-nowrap">{c.checked ? `${l.icon} ${l.word}` : "— not checked"}</td>
+                  <td className="px-2 py-1">{c.label}</td>
+                  <td className="px-2 py-1 tabular">{c.detail}</td>
+                </tr>
+              );
+            })}
           </tbody>
         </table>
       </div>
@@ -112,15 +130,16 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
         </p>
         <p>{e.ceiling.explanation}</p>
         <p className="mt-2" data-testid="gain">
-          <span className="font-bold">Seal gained per +10 % torque:</span> {pct(e.gain.share)} of the clamp it adds stays on cylinder {e.gain.bore + 1}'s seal line under
-          firing (+{force(e.gain.lineGainN)} of +{force(e.gain.clampGainN)}).
+          <span className="font-bold">Seal gained per +10 % torque:</span> {pct(e.gain.share)} of the clamp it adds stays on cylinder{" "}
+          {e.gain.bore + 1}'s seal line under firing (+{force(e.gain.lineGainN)} of +{force(e.gain.clampGainN)}).
         </p>
         <p className={`mt-2 ${e.squeeze.mostlySqueezing ? "font-bold text-failed" : ""}`} data-testid="squeeze">
           {e.squeeze.mostlySqueezing
             ? `✖ More torque now mostly squeezes the head${e.squeeze.reason === "line-at-limit" ? ": the seal line is at its limit and takes almost none of the added clamp" : ": the head's own compression at the boss is past its limit"}.`
             : `More torque still reaches the seal${view.headSqueezeOnsetNm !== null ? `; past ${torque(view.headSqueezeOnsetNm)} it would mostly squeeze the head` : ""}.`}{" "}
-          Head compression at the stud boss {formatQuantity(e.squeeze.headCompressionMm, "smallLength", units)} ({(e.squeeze.headStrain * 100).toFixed(2)} % strain;
-          we take {(e.squeeze.strainLimit * 100).toFixed(1)} % as the limit, an assumption near the cast alloy's yield strain).
+          Head compression at the stud boss {formatQuantity(e.squeeze.headCompressionMm, "smallLength", units)} (
+          {(e.squeeze.headStrain * 100).toFixed(2)} % strain; we take {(e.squeeze.strainLimit * 100).toFixed(1)} % as the limit, an
+          assumption near the cast alloy's yield strain).
         </p>
       </div>
 
@@ -164,18 +183,38 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
 
       <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Per cylinder">
         <table className="w-full border-collapse bg-white text-right text-sm tabular" data-testid="cylinders">
-          <caption className="mb-1 text-left font-bold">Per cylinder, nominal preload: clamp + heat and settling − firing = left on the gasket (seal line + body)</caption>
+          <caption className="mb-1 text-left font-bold">
+            Per cylinder, nominal preload: clamp + heat and settling − firing = left on the gasket (seal line + body)
+          </caption>
           <thead className="bg-forge-100">
             <tr>
-              <th scope="col" className="px-2 py-1 text-left">Cyl</th>
-              <th scope="col" className="px-2 py-1">Clamp</th>
-              <th scope="col" className="px-2 py-1">Heat and settling</th>
-              <th scope="col" className="px-2 py-1">Firing takes</th>
-              <th scope="col" className="px-2 py-1">Left on the seal line</th>
-              <th scope="col" className="px-2 py-1">Left on the body</th>
-              <th scope="col" className="px-2 py-1">Seal line needs</th>
-              <th scope="col" className="px-2 py-1">Margin, bottom of band</th>
-              <th scope="col" className="px-2 py-1">Margin, nominal</th>
+              <th scope="col" className="px-2 py-1 text-left">
+                Cyl
+              </th>
+              <th scope="col" className="px-2 py-1">
+                Clamp
+              </th>
+              <th scope="col" className="px-2 py-1">
+                Heat and settling
+              </th>
+              <th scope="col" className="px-2 py-1">
+                Firing takes
+              </th>
+              <th scope="col" className="px-2 py-1">
+                Left on the seal line
+              </th>
+              <th scope="col" className="px-2 py-1">
+                Left on the body
+              </th>
+              <th scope="col" className="px-2 py-1">
+                Seal line needs
+              </th>
+              <th scope="col" className="px-2 py-1">
+                Margin, bottom of band
+              </th>
+              <th scope="col" className="px-2 py-1">
+                Margin, nominal
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -188,7 +227,10 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
                     {c.cylinder === e.weakestCylinder ? " (weakest)" : ""}
                   </th>
                   <td className="px-2 py-1">{force(c.clampN)}</td>
-                  <td className="px-2 py-1">{c.heatAndSettlingN >= 0 ? "+" : "−"}{force(Math.abs(c.heatAndSettlingN))}</td>
+                  <td className="px-2 py-1">
+                    {c.heatAndSettlingN >= 0 ? "+" : "−"}
+                    {force(Math.abs(c.heatAndSettlingN))}
+                  </td>
                   <td className="px-2 py-1">−{force(c.clampReliefN)}</td>
                   <td className="px-2 py-1">{force(c.remainingSealLineHotSettledN)}</td>
                   <td className="px-2 py-1">{force(c.bodyFiredN)}</td>
@@ -201,9 +243,14 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
               );
             })}
             <tr className="border-t-2 border-forge-300 font-bold">
-              <th scope="row" className="px-2 py-1 text-left">All</th>
+              <th scope="row" className="px-2 py-1 text-left">
+                All
+              </th>
               <td className="px-2 py-1">{force(totals.clamp)}</td>
-              <td className="px-2 py-1">{totals.heat >= 0 ? "+" : "−"}{force(Math.abs(totals.heat))}</td>
+              <td className="px-2 py-1">
+                {totals.heat >= 0 ? "+" : "−"}
+                {force(Math.abs(totals.heat))}
+              </td>
               <td className="px-2 py-1">−{force(totals.firing)}</td>
               <td className="px-2 py-1">{force(totals.line)}</td>
               <td className="px-2 py-1">{force(totals.body)}</td>
@@ -213,8 +260,8 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
         </table>
       </div>
       <p className="text-xs text-forge-700">
-        Where firing would lift the gasket off, the columns after it do not add up: nothing is left to take. "Seal line needs" is the larger of the seating and the
-        in-service load for the seal band
+        Where firing would lift the gasket off, the columns after it do not add up: nothing is left to take. "Seal line needs" is the larger
+        of the seating and the in-service load for the seal band
         {e.seal.requirement.basis === "asme-stand-in"
           ? " — from flange-code figures used as a conservative stand-in, not head-gasket data; the gasket maker's seating and service pressures replace them."
           : ", from the gasket maker's seating and service pressures."}
@@ -237,31 +284,50 @@ export function EstimatePanel({ view, units, busy = false }: { view: EstimateVie
         <summary className="cursor-pointer font-medium">The torque sweep as a table</summary>
         <div className="mt-1 overflow-x-auto" tabIndex={0} role="region" aria-label="The torque sweep">
           <table className="w-full border-collapse bg-white text-right tabular">
-            <caption className="sr-only">Over torque: weakest seal margin, seal gained per +10 % torque, the stud's use of its yield and the washer on the head</caption>
+            <caption className="sr-only">
+              Over torque: weakest seal margin, seal gained per +10 % torque, the stud's use of its yield and the washer on the head
+            </caption>
             <thead className="bg-forge-100">
               <tr>
-                <th scope="col" className="px-2 py-1">Torque</th>
-                <th scope="col" className="px-2 py-1">Weakest margin, bottom of band</th>
-                <th scope="col" className="px-2 py-1">At nominal</th>
-                <th scope="col" className="px-2 py-1">Seal gained per +10 %</th>
-                <th scope="col" className="px-2 py-1">Stud hot and fired (of yield)</th>
-                <th scope="col" className="px-2 py-1">Washer (of limit)</th>
+                <th scope="col" className="px-2 py-1">
+                  Torque
+                </th>
+                <th scope="col" className="px-2 py-1">
+                  Weakest margin, bottom of band
+                </th>
+                <th scope="col" className="px-2 py-1">
+                  At nominal
+                </th>
+                <th scope="col" className="px-2 py-1">
+                  Seal gained per +10 %
+                </th>
+                <th scope="col" className="px-2 py-1">
+                  Stud hot and fired (of yield)
+                </th>
+                <th scope="col" className="px-2 py-1">
+                  Washer (of limit)
+                </th>
               </tr>
             </thead>
             <tbody>
-              {view.sweep.filter((_, i) => i % 4 === 0 || i === view.sweep.length - 1).map((pt) => (
-                <tr key={pt.torqueNm} className="border-t border-forge-100">
-                  <th scope="row" className="px-2 py-1">
-                    {torque(pt.torqueNm)}
-                    {pt.torqueNm > view.ceiling.torqueNm ? " ⚠ past the ceiling" : ""}
-                  </th>
-                  <td className="px-2 py-1">{pt.weakestMargin.toFixed(2)}</td>
-                  <td className="px-2 py-1">{pt.weakestMarginNominal.toFixed(2)}</td>
-                  <td className="px-2 py-1">{pct(pt.gainShare)}{pt.mostlySqueezing ? " (squeezes the head)" : ""}</td>
-                  <td className="px-2 py-1">{pct(pt.studWorkingUtilization)}</td>
-                  <td className="px-2 py-1">{pct(pt.bearingUtilizationMax)}</td>
-                </tr>
-              ))}
+              {view.sweep
+                .filter((_, i) => i % 4 === 0 || i === view.sweep.length - 1)
+                .map((pt) => (
+                  <tr key={pt.torqueNm} className="border-t border-forge-100">
+                    <th scope="row" className="px-2 py-1">
+                      {torque(pt.torqueNm)}
+                      {pt.torqueNm > view.ceiling.torqueNm ? " ⚠ past the ceiling" : ""}
+                    </th>
+                    <td className="px-2 py-1">{pt.weakestMargin.toFixed(2)}</td>
+                    <td className="px-2 py-1">{pt.weakestMarginNominal.toFixed(2)}</td>
+                    <td className="px-2 py-1">
+                      {pct(pt.gainShare)}
+                      {pt.mostlySqueezing ? " (squeezes the head)" : ""}
+                    </td>
+                    <td className="px-2 py-1">{pct(pt.studWorkingUtilization)}</td>
+                    <td className="px-2 py-1">{pct(pt.bearingUtilizationMax)}</td>
+                  </tr>
+                ))}
             </tbody>
           </table>
         </div>

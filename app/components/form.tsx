@@ -88,7 +88,11 @@ export function FormError({ message }: { message?: string | null }) {
   );
 }
 
-export function Button({ children, kind = "primary", ...rest }: React.ButtonHTMLAttributes<HTMLButtonElement> & { kind?: "primary" | "plain" }) {
+export function Button({
+  children,
+  kind = "primary",
+  ...rest
+}: React.ButtonHTMLAttributes<HTMLButtonElement> & { kind?: "primary" | "plain" }) {
   const look =
     kind === "primary"
       ? "bg-copper-700 text-white hover:bg-copper-600"
@@ -138,7 +142,13 @@ export function ErrorSummary({
   if (!shown) return null;
   const count = entries.length;
   return (
-    <div ref={ref} tabIndex={-1} role="alert" data-testid="error-summary" className="mb-4 rounded border-2 border-failed bg-failed-50 px-4 py-3 text-failed">
+    <div
+      ref={ref}
+      tabIndex={-1}
+      role="alert"
+      data-testid="error-summary"
+      className="mb-4 rounded border-2 border-failed bg-failed-50 px-4 py-3 text-failed"
+    >
       <p id="error-summary-title" className="font-bold">
         ✖ {message ?? `Nothing was saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention.`}
       </p>

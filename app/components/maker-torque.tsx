@@ -13,8 +13,8 @@ export function MakerTorque({ ourTorqueNm, makerTorqueNm, makerLubricant, makerS
   if (makerTorqueNm === null) {
     return (
       <p className="rounded border border-caution bg-caution-50 px-3 py-2 text-sm" data-testid="maker-figure">
-        ⚠ No maker's torque is recorded for this fastener. Add it from the maker's sheet in Libraries → Fasteners; the
-        maker's figure, lubricant and procedure govern.
+        ⚠ No maker's torque is recorded for this fastener. Add it from the maker's sheet in Libraries → Fasteners; the maker's figure,
+        lubricant and procedure govern.
       </p>
     );
   }

@@ -66,17 +66,41 @@ export function CylinderChart({ view, units }: { view: EstimateView; units: Unit
             borderColor: OUTLINE,
             borderWidth: 1.5,
           },
-          { label: `Seal line needs (${unit})`, data: cyl.map((c) => f(Math.max(c.requiredOperatingN, c.requiredSeatingN))), backgroundColor: FORGE, borderColor: OUTLINE, borderWidth: 1.5 },
+          {
+            label: `Seal line needs (${unit})`,
+            data: cyl.map((c) => f(Math.max(c.requiredOperatingN, c.requiredSeatingN))),
+            backgroundColor: FORGE,
+            borderColor: OUTLINE,
+            borderWidth: 1.5,
+          },
         ],
       }}
-      options={{ responsive: true, maintainAspectRatio: false, animation: false, plugins: { legend: { position: "bottom", labels: { boxWidth: 12, font: { size: 10 } } } }, scales: { y: { beginAtZero: true, title: { display: true, text: unit } } } }}
+      options={{
+        responsive: true,
+        maintainAspectRatio: false,
+        animation: false,
+        plugins: { legend: { position: "bottom", labels: { boxWidth: 12, font: { size: 10 } } } },
+        scales: { y: { beginAtZero: true, title: { display: true, text: unit } } },
+      }}
     />
   );
 }
 
 /** A vertical marker at torque x on the margin axis. */
 function marker(label: string, x: number, top: number, color: string, dash: number[] = []) {
-  return { label, data: [{ x, y: 0 }, { x, y: top }], borderColor: color, backgroundColor: color, pointRadius: 0, borderWidth: 2, borderDash: dash, yAxisID: "margin" };
+  return {
+    label,
+    data: [
+      { x, y: 0 },
+      { x, y: top },
+    ],
+    borderColor: color,
+    backgroundColor: color,
+    pointRadius: 0,
+    borderWidth: 2,
+    borderDash: dash,
+    yAxisID: "margin",
+  };
 }
 
 /**
@@ -99,15 +123,74 @@ export function SweepChart({ view, units }: { view: EstimateView; units: UnitSys
       role="img"
       data={{
         datasets: [
-          { label: "Weakest margin, bottom of band", data: pts.map((p) => ({ x: t(p.torqueNm), y: p.weakestMargin })), borderColor: COPPER, backgroundColor: COPPER, pointRadius: 0, borderWidth: 3, yAxisID: "margin" },
-          { label: "…at nominal preload", data: pts.map((p) => ({ x: t(p.torqueNm), y: p.weakestMarginNominal })), borderColor: COPPER, backgroundColor: COPPER, pointRadius: 0, borderWidth: 1, borderDash: [6, 4], yAxisID: "margin" },
-          { label: "Target margin", data: [{ x: t(first), y: view.targetMargin }, { x: t(last), y: view.targetMargin }], borderColor: HELD, backgroundColor: HELD, pointRadius: 0, borderWidth: 1, borderDash: [2, 2], yAxisID: "margin" },
-          { label: "Seal gained per +10 % torque (%)", data: pts.map((p) => ({ x: t(p.torqueNm), y: p.gainShare * 100 })), borderColor: FORGE, backgroundColor: FORGE, pointRadius: 0, borderWidth: 2, yAxisID: "percent" },
-          { label: "Stud, hot and fired (% of yield)", data: pts.map((p) => ({ x: t(p.torqueNm), y: p.studWorkingUtilization * 100 })), borderColor: "#5b7386", backgroundColor: "#5b7386", pointRadius: 0, borderWidth: 1, yAxisID: "percent" },
-          { label: "Stud yield (100 %)", data: [{ x: t(first), y: 100 }, { x: t(last), y: 100 }], borderColor: FAILED, backgroundColor: FAILED, pointRadius: 0, borderWidth: 1, borderDash: [4, 4], yAxisID: "percent" },
+          {
+            label: "Weakest margin, bottom of band",
+            data: pts.map((p) => ({ x: t(p.torqueNm), y: p.weakestMargin })),
+            borderColor: COPPER,
+            backgroundColor: COPPER,
+            pointRadius: 0,
+            borderWidth: 3,
+            yAxisID: "margin",
+          },
+          {
+            label: "…at nominal preload",
+            data: pts.map((p) => ({ x: t(p.torqueNm), y: p.weakestMarginNominal })),
+            borderColor: COPPER,
+            backgroundColor: COPPER,
+            pointRadius: 0,
+            borderWidth: 1,
+            borderDash: [6, 4],
+            yAxisID: "margin",
+          },
+          {
+            label: "Target margin",
+            data: [
+              { x: t(first), y: view.targetMargin },
+              { x: t(last), y: view.targetMargin },
+            ],
+            borderColor: HELD,
+            backgroundColor: HELD,
+            pointRadius: 0,
+            borderWidth: 1,
+            borderDash: [2, 2],
+            yAxisID: "margin",
+          },
+          {
+            label: "Seal gained per +10 % torque (%)",
+            data: pts.map((p) => ({ x: t(p.torqueNm), y: p.gainShare * 100 })),
+            borderColor: FORGE,
+            backgroundColor: FORGE,
+            pointRadius: 0,
+            borderWidth: 2,
+            yAxisID: "percent",
+          },
+          {
+            label: "Stud, hot and fired (% of yield)",
+            data: pts.map((p) => ({ x: t(p.torqueNm), y: p.studWorkingUtilization * 100 })),
+            borderColor: "#5b7386",
+            backgroundColor: "#5b7386",
+            pointRadius: 0,
+            borderWidth: 1,
+            yAxisID: "percent",
+          },
+          {
+            label: "Stud yield (100 %)",
+            data: [
+              { x: t(first), y: 100 },
+              { x: t(last), y: 100 },
+            ],
+            borderColor: FAILED,
+            backgroundColor: FAILED,
+            pointRadius: 0,
+            borderWidth: 1,
+            borderDash: [4, 4],
+            yAxisID: "percent",
+          },
           marker("This plan's torque", t(view.torqueNm), top, HELD),
           ...(inRange(view.ceiling.torqueNm) ? [marker("Torque ceiling", t(view.ceiling.torqueNm), top, FAILED, [2, 3])] : []),
-          ...(inRange(view.headSqueezeOnsetNm) ? [marker("Mostly squeezes the head from here", t(view.headSqueezeOnsetNm!), top, "#7a4a94", [8, 3])] : []),
+          ...(inRange(view.headSqueezeOnsetNm)
+            ? [marker("Mostly squeezes the head from here", t(view.headSqueezeOnsetNm!), top, "#7a4a94", [8, 3])]
+            : []),
         ],
       }}
       options={{
@@ -120,7 +203,14 @@ export function SweepChart({ view, units }: { view: EstimateView; units: UnitSys
         scales: {
           x: { type: "linear", title: { display: true, text: `Torque (${unit})` } },
           margin: { type: "linear", position: "left", min: 0, max: top, title: { display: true, text: "Seal margin" } },
-          percent: { type: "linear", position: "right", min: 0, max: pctTop, grid: { drawOnChartArea: false }, title: { display: true, text: "Percent" } },
+          percent: {
+            type: "linear",
+            position: "right",
+            min: 0,
+            max: pctTop,
+            grid: { drawOnChartArea: false },
+            title: { display: true, text: "Percent" },
+          },
         },
       }}
     />

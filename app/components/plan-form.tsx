@@ -32,7 +32,18 @@ type Method = PlanWrite["method"];
 
 // The seal plan's inputs. Names match parsePlanForm in app/lib/plan/form.ts. Works without
 // JavaScript (the server answers a changed fastener and "Show all gaskets"); with it, both happen here.
-export function PlanFields({ values, errors, choices, units, sleeved, engineProtrusion, engineBoreMm, note: serverNote, stretch, onFiguresFollowed }: Props) {
+export function PlanFields({
+  values,
+  errors,
+  choices,
+  units,
+  sleeved,
+  engineProtrusion,
+  engineBoreMm,
+  note: serverNote,
+  stretch,
+  onFiguresFollowed,
+}: Props) {
   const torqueUnit = unitFor("torque", units);
   const smallUnit = unitFor("smallLength", units);
   const [note, setNote] = useState<string | null>(serverNote ?? null);
@@ -78,7 +89,13 @@ export function PlanFields({ values, errors, choices, units, sleeved, engineProt
     <div className="space-y-4">
       <Field label="Plan name" name="name" defaultValue={values.name} error={errors.name} required />
       <div>
-        <SelectField label="Gasket" name="gasketId" defaultValue={values.gasketId} error={errors.gasketId} aria-describedby={errors.gasketId ? "f-gasketId-error f-gasketId-hint" : "f-gasketId-hint"}>
+        <SelectField
+          label="Gasket"
+          name="gasketId"
+          defaultValue={values.gasketId}
+          error={errors.gasketId}
+          aria-describedby={errors.gasketId ? "f-gasketId-error f-gasketId-hint" : "f-gasketId-hint"}
+        >
           {fitting.map((g) => (
             <option key={g.id} value={g.id}>
               {g.name}
@@ -119,13 +136,40 @@ export function PlanFields({ values, errors, choices, units, sleeved, engineProt
       </div>
       <fieldset className="min-w-0 space-y-3 rounded border border-forge-100 p-3">
         <legend className="px-1 font-bold">Sealing details</legend>
-        <SelectField label="Wire ring" name="wireLocation" defaultValue={values.wireLocation} error={errors.wireLocation} options={Object.entries(WIRE_LABEL)} />
+        <SelectField
+          label="Wire ring"
+          name="wireLocation"
+          defaultValue={values.wireLocation}
+          error={errors.wireLocation}
+          options={Object.entries(WIRE_LABEL)}
+        />
         <div className="grid gap-3 sm:grid-cols-2">
-          <Field label={`Wire projection (${smallUnit})`} name="wireProjection" inputMode="decimal" defaultValue={values.wireProjection} error={errors.wireProjection} hint="How far the wire stands above its face." />
-          <Field label={`Receiver groove depth (${smallUnit})`} name="receiverGrooveDepth" inputMode="decimal" defaultValue={values.receiverGrooveDepth} error={errors.receiverGrooveDepth} hint="The groove opposite the wire; 0 for none." />
+          <Field
+            label={`Wire projection (${smallUnit})`}
+            name="wireProjection"
+            inputMode="decimal"
+            defaultValue={values.wireProjection}
+            error={errors.wireProjection}
+            hint="How far the wire stands above its face."
+          />
+          <Field
+            label={`Receiver groove depth (${smallUnit})`}
+            name="receiverGrooveDepth"
+            inputMode="decimal"
+            defaultValue={values.receiverGrooveDepth}
+            error={errors.receiverGrooveDepth}
+            hint="The groove opposite the wire; 0 for none."
+          />
         </div>
         {sleeved ? (
-          <Field label={`Sleeve protrusion (${smallUnit})`} name="sleeveProtrusion" inputMode="decimal" defaultValue={values.sleeveProtrusion} error={errors.sleeveProtrusion} hint={`Sleeve top above the deck. Blank: the engine's machined ${engineProtrusion}.`} />
+          <Field
+            label={`Sleeve protrusion (${smallUnit})`}
+            name="sleeveProtrusion"
+            inputMode="decimal"
+            defaultValue={values.sleeveProtrusion}
+            error={errors.sleeveProtrusion}
+            hint={`Sleeve top above the deck. Blank: the engine's machined ${engineProtrusion}.`}
+          />
         ) : (
           <input type="hidden" name="sleeveProtrusion" value="" />
         )}
@@ -134,7 +178,14 @@ export function PlanFields({ values, errors, choices, units, sleeved, engineProt
         <legend className="px-1 font-bold">Fastener and tightening</legend>
         <input type="hidden" name="figuresFastenerId" defaultValue={values.figuresFastenerId ?? values.fastenerId} />
         <input type="hidden" name="figuresSeen" defaultValue={values.figuresSeen ?? ""} />
-        <SelectField label="Fastener" name="fastenerId" defaultValue={values.fastenerId} error={errors.fastenerId} onChange={fastenerChanged} options={choices.fasteners.map((f) => [String(f.id), f.name])} />
+        <SelectField
+          label="Fastener"
+          name="fastenerId"
+          defaultValue={values.fastenerId}
+          error={errors.fastenerId}
+          onChange={fastenerChanged}
+          options={choices.fasteners.map((f) => [String(f.id), f.name])}
+        />
         {note ? (
           <p role="status" data-testid="figures-followed" className="rounded border border-copper-600 bg-white px-3 py-2 text-sm">
             ↻ {note}
@@ -172,7 +223,15 @@ export function PlanFields({ values, errors, choices, units, sleeved, engineProt
           />
         </div>
         <div>
-          <SelectField label="How the studs are tightened" name="method" value={method} onChange={methodChanged} error={errors.method} options={Object.entries(METHOD_LABEL)} aria-describedby={errors.method ? "f-method-error f-method-hint" : "f-method-hint"} />
+          <SelectField
+            label="How the studs are tightened"
+            name="method"
+            value={method}
+            onChange={methodChanged}
+            error={errors.method}
+            options={Object.entries(METHOD_LABEL)}
+            aria-describedby={errors.method ? "f-method-error f-method-hint" : "f-method-hint"}
+          />
           <p id="f-method-hint" className="mt-1 text-xs text-forge-700">
             {METHOD_HELP[method]}
           </p>
@@ -189,19 +248,46 @@ export function PlanFields({ values, errors, choices, units, sleeved, engineProt
           />
         </div>
         <div className="grid gap-3 sm:grid-cols-2">
-          <Field label={`Final torque (${torqueUnit})`} name="torque" inputMode="decimal" defaultValue={values.torque} error={errors.torque} required hint={method === "stretch-measured" ? "The torque you expect to reach the stretch." : undefined} />
-          <Field label={`Stages (${torqueUnit})`} name="stages" defaultValue={values.stages} error={errors.stages} hint="Rising, ending at the final torque, commas between them. With decimal commas, separate the stages with semicolons: 54,5; 108; 156." />
+          <Field
+            label={`Final torque (${torqueUnit})`}
+            name="torque"
+            inputMode="decimal"
+            defaultValue={values.torque}
+            error={errors.torque}
+            required
+            hint={method === "stretch-measured" ? "The torque you expect to reach the stretch." : undefined}
+          />
+          <Field
+            label={`Stages (${torqueUnit})`}
+            name="stages"
+            defaultValue={values.stages}
+            error={errors.stages}
+            hint="Rising, ending at the final torque, commas between them. With decimal commas, separate the stages with semicolons: 54,5; 108; 156."
+          />
         </div>
         {stretch ? <StretchSentence line={stretch} units={units} makerStretchMm={fastener?.makerStretchMm ?? null} /> : null}
       </fieldset>
       <div className="grid gap-3 sm:grid-cols-2">
-        <Field label="Target seal margin" name="targetMargin" inputMode="decimal" defaultValue={values.targetMargin} error={errors.targetMargin} hint="1 = just enough clamp on the seal, hot and under firing; 1.5 leaves half as much again in hand." />
+        <Field
+          label="Target seal margin"
+          name="targetMargin"
+          inputMode="decimal"
+          defaultValue={values.targetMargin}
+          error={errors.targetMargin}
+          hint="1 = just enough clamp on the seal, hot and under firing; 1.5 leaves half as much again in hand."
+        />
       </div>
       <div>
         <label htmlFor="f-notes" className="block text-sm font-medium text-forge-800">
           Notes
         </label>
-        <textarea id="f-notes" name="notes" defaultValue={values.notes} rows={3} className="mt-1 block w-full rounded border border-forge-500 bg-white px-3 py-2" />
+        <textarea
+          id="f-notes"
+          name="notes"
+          defaultValue={values.notes}
+          rows={3}
+          className="mt-1 block w-full rounded border border-forge-500 bg-white px-3 py-2"
+        />
       </div>
     </div>
   );

@@ -20,10 +20,18 @@ export function StudTable({
         <caption className="sr-only">Studs, the cylinders each serves and its share of each</caption>
         <thead className="bg-forge-100">
           <tr>
-            <th scope="col" className="px-2 py-1">Stud label</th>
-            <th scope="col" className="px-2 py-1">Cylinders served</th>
-            <th scope="col" className="px-2 py-1">Share of each</th>
-            <th scope="col" className="px-2 py-1">Sum</th>
+            <th scope="col" className="px-2 py-1">
+              Stud label
+            </th>
+            <th scope="col" className="px-2 py-1">
+              Cylinders served
+            </th>
+            <th scope="col" className="px-2 py-1">
+              Share of each
+            </th>
+            <th scope="col" className="px-2 py-1">
+              Sum
+            </th>
             <th scope="col" className="px-2 py-1">
               <span className="sr-only">Remove</span>
             </th>

@@ -7,7 +7,11 @@ import { Button } from "./form";
 export function SuggestionBox({ suggestion, units, canEdit }: { suggestion: Suggestion; units: UnitSystem; canEdit: boolean }) {
   const s = suggestion;
   return (
-    <section aria-labelledby="suggest-title" className={`rounded border-2 p-4 ${s.reachable ? "border-held bg-held-50" : "border-caution bg-caution-50"}`} data-testid="suggestion">
+    <section
+      aria-labelledby="suggest-title"
+      className={`rounded border-2 p-4 ${s.reachable ? "border-held bg-held-50" : "border-caution bg-caution-50"}`}
+      data-testid="suggestion"
+    >
       <h2 id="suggest-title" tabIndex={-1} className="font-bold">
         {s.reachable ? "✔ Suggested torque" : "⚠ No torque reaches the target"}
       </h2>
@@ -40,7 +44,8 @@ export function SuggestionBox({ suggestion, units, canEdit }: { suggestion: Sugg
           <input type="hidden" name="torqueNm" value={s.protrusion.torqueNm} />
           <input type="hidden" name="protrusionMm" value={s.protrusion.protrusionMm} />
           <Button type="submit" name="intent" value="new-with-torque" kind="plain">
-            New plan: {formatQuantity(s.protrusion.protrusionMm, "smallLength", units)} protrusion at {formatQuantity(s.protrusion.torqueNm, "torque", units)}
+            New plan: {formatQuantity(s.protrusion.protrusionMm, "smallLength", units)} protrusion at{" "}
+            {formatQuantity(s.protrusion.torqueNm, "torque", units)}
           </Button>
         </Form>
       ) : null}

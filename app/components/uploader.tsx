@@ -4,7 +4,19 @@ import { UPLOAD_RULE_TEXT } from "~/utils/upload-rules";
 
 // One file to the engine's upload endpoint. With JavaScript it goes by XMLHttpRequest, whose upload
 // events drive a progress bar, and the page reloads its data when the file is kept; without, the form posts.
-export function Uploader({ engineId, assemblyId, runId, returnTo, label = "Add a photo or PDF" }: { engineId: number; assemblyId?: number; runId?: number; returnTo: string; label?: string }) {
+export function Uploader({
+  engineId,
+  assemblyId,
+  runId,
+  returnTo,
+  label = "Add a photo or PDF",
+}: {
+  engineId: number;
+  assemblyId?: number;
+  runId?: number;
+  returnTo: string;
+  label?: string;
+}) {
   const [progress, setProgress] = useState<number | null>(null);
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const revalidator = useRevalidator();
@@ -33,7 +45,13 @@ export function Uploader({ engineId, assemblyId, runId, returnTo, label = "Add a
         setMessage({ ok: true, text: `Kept ${file.name}.` });
         form.reset();
         revalidator.revalidate();
-      } else setMessage({ ok: false, text: answer.message ?? (xhr.status === 413 ? "Files may be at most 10 MB each; this one was refused." : `The upload was refused (${xhr.status}).`) });
+      } else
+        setMessage({
+          ok: false,
+          text:
+            answer.message ??
+            (xhr.status === 413 ? "Files may be at most 10 MB each; this one was refused." : `The upload was refused (${xhr.status}).`),
+        });
       setProgress(null);
     };
     xhr.onerror = () => {
@@ -46,23 +64,47 @@ export function Uploader({ engineId, assemblyId, runId, returnTo, label = "Add a
   }
 
   return (
-    <form ref={formRef} method="post" action={action} encType="multipart/form-data" onSubmit={send} className="no-print mt-2 rounded border border-dashed border-forge-300 p-3">
+    <form
+      ref={formRef}
+      method="post"
+      action={action}
+      encType="multipart/form-data"
+      onSubmit={send}
+      className="no-print mt-2 rounded border border-dashed border-forge-300 p-3"
+    >
       <input type="hidden" name="returnTo" value={returnTo} />
       {assemblyId ? <input type="hidden" name="assemblyId" value={assemblyId} /> : null}
       {runId ? <input type="hidden" name="runId" value={runId} /> : null}
-      <label htmlFor={id} className="block text-sm font-medium">{label}</label>
+      <label htmlFor={id} className="block text-sm font-medium">
+        {label}
+      </label>
       <div className="mt-1 flex flex-wrap items-center gap-2">
-        <input id={id} name="file" type="file" accept="image/jpeg,image/png,image/webp,application/pdf" aria-describedby={`${id}-rule`} className="max-w-full text-sm" />
-        <button type="submit" className="rounded bg-copper-700 px-3 py-1 text-sm font-medium text-white" disabled={progress !== null}>Upload</button>
+        <input
+          id={id}
+          name="file"
+          type="file"
+          accept="image/jpeg,image/png,image/webp,application/pdf"
+          aria-describedby={`${id}-rule`}
+          className="max-w-full text-sm"
+        />
+        <button type="submit" className="rounded bg-copper-700 px-3 py-1 text-sm font-medium text-white" disabled={progress !== null}>
+          Upload
+        </button>
       </div>
-      <p id={`${id}-rule`} className="mt-1 text-xs text-forge-700">{UPLOAD_RULE_TEXT}</p>
+      <p id={`${id}-rule`} className="mt-1 text-xs text-forge-700">
+        {UPLOAD_RULE_TEXT}
+      </p>
       {progress !== null ? (
         <div className="mt-2">
           <progress max={1} value={progress} aria-label="Upload progress" className="w-full" />
           <span className="text-xs tabular">{Math.round(progress * 100)} %</span>
         </div>
       ) : null}
-      {message ? <p role={message.ok ? "status" : "alert"} className={`mt-1 text-sm font-medium ${message.ok ? "text-held" : "text-failed"}`}>{message.ok ? "✔" : "✖"} {message.text}</p> : null}
+      {message ? (
+        <p role={message.ok ? "status" : "alert"} className={`mt-1 text-sm font-medium ${message.ok ? "text-held" : "text-failed"}`}>
+          {message.ok ? "✔" : "✖"} {message.text}
+        </p>
+      ) : null}
     </form>
   );
 }
@@ -75,12 +117,20 @@ export function FileList({ files }: { files: { id: number; name: string; content
         <li key={f.id} className="w-40 text-xs">
           {f.hasThumb ? (
             <a href={`/files/${f.id}`} target="_blank" rel="noreferrer">
-              <img src={`/files/${f.id}?thumb=1`} alt={`Photo: ${f.name}`} className="h-28 w-40 rounded border border-forge-300 object-cover" />
+              <img
+                src={`/files/${f.id}?thumb=1`}
+                alt={`Photo: ${f.name}`}
+                className="h-28 w-40 rounded border border-forge-300 object-cover"
+              />
             </a>
           ) : (
-            <a href={`/files/${f.id}`} download className="block rounded border border-forge-300 p-3 text-copper-700 underline">📄 {f.name}</a>
+            <a href={`/files/${f.id}`} download className="block rounded border border-forge-300 p-3 text-copper-700 underline">
+              📄 {f.name}
+            </a>
           )}
-          <span className="block truncate" title={f.name}>{f.name} · {(f.sizeBytes / 1024).toFixed(0)} KB</span>
+          <span className="block truncate" title={f.name}>
+            {f.name} · {(f.sizeBytes / 1024).toFixed(0)} KB
+          </span>
         </li>
       ))}
     </ul>

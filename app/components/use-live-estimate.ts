@@ -4,7 +4,15 @@
 // keystroke, and a newer keystroke cancels the request in flight. Without JavaScript the form posts.
 import { useEffect, useMemo, useRef, useState } from "react";
 import type { PlanInput } from "~/lib/clamp";
-import { assemblePlanInput, gasketFitProblem, plannedByStretch, type EngineRecord, type FastenerRecord, type GasketRecord, type MaterialRecord } from "~/lib/plan/assemble";
+import {
+  assemblePlanInput,
+  gasketFitProblem,
+  plannedByStretch,
+  type EngineRecord,
+  type FastenerRecord,
+  type GasketRecord,
+  type MaterialRecord,
+} from "~/lib/plan/assemble";
 import type { EstimateView } from "~/lib/plan/estimate-view";
 import { parsePlanForm } from "~/lib/plan/form";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
@@ -102,7 +110,15 @@ export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null)
       setErrors({ ...(full.ok ? {} : full.errors), gasketId: misfit });
       return setStale(true);
     }
-    const raw = assemblePlanInput({ engine: d.engine, plan: parsed.plan, fastener, gasket, head: d.materials.head, block: d.materials.block, sleeve: d.materials.sleeve });
+    const raw = assemblePlanInput({
+      engine: d.engine,
+      plan: parsed.plan,
+      fastener,
+      gasket,
+      head: d.materials.head,
+      block: d.materials.block,
+      sleeve: d.materials.sleeve,
+    });
     setSlowPending(true);
     // before the model has loaded (the first instant of the page), the server answers everything
     const m = model.current;
@@ -120,7 +136,10 @@ export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null)
 
   return useMemo(() => {
     const stretchLine = model.current?.stretchLine;
-    const stretch = view && stud && stretchLine ? stretchLine(stud.byStretch ? "stretch" : "torque", view.estimate.tightening.preload.nominalN, view.torqueNm, stud.stiffnessNPerMm) : null;
+    const stretch =
+      view && stud && stretchLine
+        ? stretchLine(stud.byStretch ? "stretch" : "torque", view.estimate.tightening.preload.nominalN, view.torqueNm, stud.stiffnessNPerMm)
+        : null;
     // busy: the sweep and the scatter run shown are not yet these inputs' (the figures above them are)
     return { onChange, formRef, errors, fastenerId, stale, busy: slowPending, view, problems, stretch };
   }, [view, problems, slowPending, errors, fastenerId, stale, stud]);

@@ -43,12 +43,19 @@ export async function createToken(teamId: number, userId: number, name: string, 
   const token = TOKEN_PREFIX + crypto.randomBytes(32).toString("base64url");
   return writeTransaction(async (trx) => {
     const live = await trx("api_tokens").where({ team_id: teamId, user_id: userId }).whereNull("revoked_at").count({ n: "*" }).first();
-    if (Number(live?.n ?? 0) >= MAX_TOKENS_PER_TEAM) throw new TokenLimitError(`You have ${MAX_TOKENS_PER_TEAM} live tokens in this shop; revoke one first.`);
+    if (Number(live?.n ?? 0) >= MAX_TOKENS_PER_TEAM)
+      throw new TokenLimitError(`You have ${MAX_TOKENS_PER_TEAM} live tokens in this shop; revoke one first.`);
     const [row] = await trx("api_tokens")
       .insert({ team_id: teamId, user_id: userId, name, token_hash: hashToken(token), prefix: token.slice(0, 10), role, created_at: now() })
       .returning("id");
     const id = typeof row === "object" ? row.id : row;
-    await trx("audit_events").insert({ team_id: teamId, user_id: userId, action: "api-token.created", detail: JSON.stringify({ tokenId: id, name, role }), created_at: now() });
+    await trx("audit_events").insert({
+      team_id: teamId,
+      user_id: userId,
+      action: "api-token.created",
+      detail: JSON.stringify({ tokenId: id, name, role }),
+      created_at: now(),
+    });
     return { id, token };
   });
 }
@@ -62,9 +69,18 @@ export async function listTokens(teamId: number, userId: number): Promise<ApiTok
 /** Revokes one of the person's own tokens in the team; false when there is no such live token. */
 export async function revokeToken(teamId: number, userId: number, tokenId: number): Promise<boolean> {
   return writeTransaction(async (trx) => {
-    const n = await trx("api_tokens").where({ id: tokenId, team_id: teamId, user_id: userId }).whereNull("revoked_at").update({ revoked_at: now() });
+    const n = await trx("api_tokens")
+      .where({ id: tokenId, team_id: teamId, user_id: userId })
+      .whereNull("revoked_at")
+      .update({ revoked_at: now() });
     if (n === 0) return false;
-    await trx("audit_events").insert({ team_id: teamId, user_id: userId, action: "api-token.revoked", detail: JSON.stringify({ tokenId }), created_at: now() });
+    await trx("audit_events").insert({
+      team_id: teamId,
+      user_id: userId,
+      action: "api-token.revoked",
+      detail: JSON.stringify({ tokenId }),
+      created_at: now(),
+    });
     return true;
   });
 }

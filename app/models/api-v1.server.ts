@@ -12,8 +12,18 @@ import { listPlans, type PlanRow } from "./plan.server";
 type Engine = z.output<typeof EngineSchema>;
 type Plan = z.output<typeof PlanSchema>;
 
-export async function engineListForApi(who: Asker, query: { page: number; limit: number; q?: string; status?: EngineStatus }): Promise<z.output<typeof EngineListSchema>> {
-  const { rows, total } = await listEngines(who, { page: query.page, pageSize: query.limit, q: query.q, status: query.status, sort: "updated", dir: "desc" });
+export async function engineListForApi(
+  who: Asker,
+  query: { page: number; limit: number; q?: string; status?: EngineStatus },
+): Promise<z.output<typeof EngineListSchema>> {
+  const { rows, total } = await listEngines(who, {
+    page: query.page,
+    pageSize: query.limit,
+    q: query.q,
+    status: query.status,
+    sort: "updated",
+    dir: "desc",
+  });
   return { items: rows, page: query.page, limit: query.limit, total, nextPage: query.page * query.limit < total ? query.page + 1 : null };
 }
 
@@ -37,7 +47,12 @@ export async function planListForApi(teamId: number, engine: EngineRow, page: nu
   return { items, page, limit, total: all.length, nextPage: page * limit < all.length ? page + 1 : null };
 }
 
-export async function planWithEstimateForApi(teamId: number, engine: EngineRow, planId: number, units: UnitSystem): Promise<z.output<typeof PlanWithEstimateSchema> | null> {
+export async function planWithEstimateForApi(
+  teamId: number,
+  engine: EngineRow,
+  planId: number,
+  units: UnitSystem,
+): Promise<z.output<typeof PlanWithEstimateSchema> | null> {
   const plan = (await listPlans(teamId, engine.id)).find((p) => p.id === planId);
   if (!plan) return null;
   const [result, input] = await Promise.all([estimatePlan(teamId, engine, plan, { units }), checkedPlanInput(teamId, engine, plan, units)]);

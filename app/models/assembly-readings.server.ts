@@ -21,19 +21,38 @@ export interface AssemblyReading {
   problem: string | null;
 }
 
-export async function assemblyReadings(teamId: number, engine: EngineRow, assemblies: AssemblyRecord[], plans: PlanRow[]): Promise<AssemblyReading[]> {
+export async function assemblyReadings(
+  teamId: number,
+  engine: EngineRow,
+  assemblies: AssemblyRecord[],
+  plans: PlanRow[],
+): Promise<AssemblyReading[]> {
   const out: AssemblyReading[] = [];
   for (const a of assemblies) {
     const plan = plans.find((p) => p.id === a.planId);
     const at = plan ? await evaluateAtFiring(teamId, engine, plan) : null;
     if (!at || !at.ok) {
-      out.push({ assemblyId: a.id, studStiffnessNPerMm: null, predictedPreloadN: null, studs: [], meanImpliedN: null, problem: at && !at.ok ? at.problems.join(" ") : "Its plan has been archived." });
+      out.push({
+        assemblyId: a.id,
+        studStiffnessNPerMm: null,
+        predictedPreloadN: null,
+        studs: [],
+        meanImpliedN: null,
+        problem: at && !at.ok ? at.problems.join(" ") : "Its plan has been archived.",
+      });
       continue;
     }
     const k = at.prepared.stud.stiffnessNPerMm;
     const predicted = a.finalTorqueNm ? preloadFromTorque(a.finalTorqueNm, at.prepared.torqueGeometry, at.prepared.friction) : null;
     const studs = impliedPreloads(a.studStretch, k, predicted);
-    out.push({ assemblyId: a.id, studStiffnessNPerMm: k, predictedPreloadN: predicted, studs, meanImpliedN: studs.length ? studs.reduce((s, x) => s + x.impliedPreloadN, 0) / studs.length : null, problem: null });
+    out.push({
+      assemblyId: a.id,
+      studStiffnessNPerMm: k,
+      predictedPreloadN: predicted,
+      studs,
+      meanImpliedN: studs.length ? studs.reduce((s, x) => s + x.impliedPreloadN, 0) / studs.length : null,
+      problem: null,
+    });
   }
   return out;
 }
@@ -58,8 +77,18 @@ export async function learnedFrictions(teamId: number): Promise<LearnedFor[]> {
     .where("p.team_id", teamId)
     .whereNotNull("a.final_torque_nm")
     .whereNot("a.stud_stretch", "[]")
-    .select("a.*", "p.fastener_id", "f.name as fastener_name", "f.maker_torque_nm", "f.thread_friction as hb_thread", "f.bearing_friction as hb_bearing");
-  const groups = new Map<string, { rows: typeof rows; obs: FrictionObservation[]; geometry: FrictionObservation["geometry"] | null; d: number }>();
+    .select(
+      "a.*",
+      "p.fastener_id",
+      "f.name as fastener_name",
+      "f.maker_torque_nm",
+      "f.thread_friction as hb_thread",
+      "f.bearing_friction as hb_bearing",
+    );
+  const groups = new Map<
+    string,
+    { rows: typeof rows; obs: FrictionObservation[]; geometry: FrictionObservation["geometry"] | null; d: number }
+  >();
   // learning reads every assembly of the shop (an aggregate the builder sees), not one person's view
   const wholeShop = { teamId, userId: 0, role: "owner" } as const;
   const engines = new Map<number, EngineRow | null>();
@@ -79,14 +108,26 @@ export async function learnedFrictions(teamId: number): Promise<LearnedFor[]> {
     const key = `${r.fastener_id}\u0000${lubeKey(a.lubricant)}`;
     const g = groups.get(key) ?? { rows: [], obs: [], geometry: at.prepared.torqueGeometry, d: at.prepared.plan.fastener.diameterMm };
     g.rows.push(r);
-    g.obs.push({ torqueNm: a.finalTorqueNm, observedPreloadN: meanN, geometry: at.prepared.torqueGeometry, diameterMm: at.prepared.plan.fastener.diameterMm });
+    g.obs.push({
+      torqueNm: a.finalTorqueNm,
+      observedPreloadN: meanN,
+      geometry: at.prepared.torqueGeometry,
+      diameterMm: at.prepared.plan.fastener.diameterMm,
+    });
     groups.set(key, g);
   }
   return [...groups.values()].map((g) => {
     const first = g.rows[0]!;
     const learned = learnFriction(g.obs);
     const torqueNm = first.maker_torque_nm ?? g.obs[0]!.torqueNm;
-    const shift = learned.ok && g.geometry ? { ...preloadShift(torqueNm, g.geometry, { thread: first.hb_thread, bearing: first.hb_bearing }, learned.friction, g.d), torqueNm, fromMaker: first.maker_torque_nm !== null } : null;
+    const shift =
+      learned.ok && g.geometry
+        ? {
+            ...preloadShift(torqueNm, g.geometry, { thread: first.hb_thread, bearing: first.hb_bearing }, learned.friction, g.d),
+            torqueNm,
+            fromMaker: first.maker_torque_nm !== null,
+          }
+        : null;
     return { fastenerId: first.fastener_id, fastenerName: first.fastener_name, lubricant: first.lubricant, learned, shift };
   });
 }

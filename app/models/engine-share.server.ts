@@ -21,7 +21,12 @@ export async function engineViewers(teamId: number, engineId: number): Promise<V
     .where({ "m.team_id": teamId, "m.role": "viewer" })
     .orderBy("u.name")
     .select({ userId: "u.id", name: "u.name", email: "u.email", sharedAt: "s.created_at" });
-  return rows.map((r: { userId: number; name: string; email: string; sharedAt: string | null }) => ({ userId: r.userId, name: r.name, email: r.email, shared: r.sharedAt !== null }));
+  return rows.map((r: { userId: number; name: string; email: string; sharedAt: string | null }) => ({
+    userId: r.userId,
+    name: r.name,
+    email: r.email,
+    shared: r.sharedAt !== null,
+  }));
 }
 
 /** Shares the engine (this team's, not archived) with one of the team's viewers; anything else is 404. */
@@ -33,7 +38,8 @@ export async function setEngineShare(teamId: number, byUserId: number, engineId:
     if (!viewer) throw data("No such viewer in this shop.", { status: 404 });
     const key = { engine_id: engineId, user_id: viewerId, team_id: teamId };
     if (shared) {
-      if (!(await trx("engine_shares").where(key).first("engine_id"))) await trx("engine_shares").insert({ ...key, shared_by: byUserId, created_at: now() });
+      if (!(await trx("engine_shares").where(key).first("engine_id")))
+        await trx("engine_shares").insert({ ...key, shared_by: byUserId, created_at: now() });
     } else {
       await trx("engine_shares").where(key).delete();
     }

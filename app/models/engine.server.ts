@@ -193,9 +193,7 @@ async function listEnginesOn(k: Knex, who: Asker, query: EngineListQuery): Promi
     })
     // layout sorts I before V, then by cylinder count; status in the order an engine lives it
     .select(k.raw("(case e.layout when 'inline' then 0 else 1 end) * 100 + e.cylinders as layout_key"))
-    .select(
-      k.raw("case e.status when 'quoted' then 0 when 'in-build' then 1 when 'running' then 2 else 3 end as status_rank"),
-    )
+    .select(k.raw("case e.status when 'quoted' then 0 when 'in-build' then 1 when 'running' then 2 else 3 end as status_rank"))
     .orderByRaw(`${ENGINE_SORTS[sort]} ${sort === "plan" ? `${dir} nulls last` : dir}`)
     .orderBy("e.id", dir)
     .limit(pageSize)
@@ -363,7 +361,14 @@ export async function duplicateEngine(teamId: number, userId: number, engineId: 
   return db().transaction(async (trx) => {
     const row = await trx("engines").where({ team_id: teamId, id: engineId }).whereNull("archived_at").first();
     if (!row) throw data("No such engine in this shop.", { status: 404 });
-    const { id: _id, chosen_plan_id: _chosen, archived_at: _archived, created_at: _c, updated_at: _u, ...record } = row as Record<string, unknown>;
+    const {
+      id: _id,
+      chosen_plan_id: _chosen,
+      archived_at: _archived,
+      created_at: _c,
+      updated_at: _u,
+      ...record
+    } = row as Record<string, unknown>;
     const name = copyName(String(record.name));
     const at = now();
     const [{ id }] = await trx("engines")

@@ -49,12 +49,17 @@ export async function teamUsedBytes(teamId: number): Promise<number> {
   return Number(r?.total ?? 0);
 }
 
-export type UploadResult = { ok: true; file: FileRow; returnTo: string | null } | { ok: false; status: 400 | 404 | 413 | 415; message: string };
+export type UploadResult =
+  { ok: true; file: FileRow; returnTo: string | null } | { ok: false; status: 400 | 404 | 413 | 415; message: string };
 
 const MB = (n: number) => `${(n / 1024 / 1024).toFixed(1)} MB`;
 // A shown file name: no path, no control characters, at most 200 characters.
-// eslint-disable-next-line no-control-regex -- control characters are exactly what is removed
-const cleanName = (s: string) => (s.split(/[\\/]/).pop() ?? "").replace(/[\u0000-\u001f\u007f"]/g, "").trim().slice(0, 200) || "file";
+const cleanName = (s: string) =>
+  (s.split(/[\\/]/).pop() ?? "")
+    // eslint-disable-next-line no-control-regex -- control characters are exactly what is removed
+    .replace(/[\u0000-\u001f\u007f"]/g, "")
+    .trim()
+    .slice(0, 200) || "file";
 
 export async function receiveUpload(request: Request, teamId: number, userId: number, engineId: number): Promise<UploadResult> {
   let picked: { bytes: Uint8Array; name: string } | null = null;
@@ -66,7 +71,12 @@ export async function receiveUpload(request: Request, teamId: number, userId: nu
       return null;
     });
   } catch (e) {
-    if (e instanceof MaxFileSizeExceededError) return { ok: false, status: 413, message: `Files may be at most ${MB(MAX_UPLOAD_BYTES)} each; this one is larger, so it was refused and nothing was kept.` };
+    if (e instanceof MaxFileSizeExceededError)
+      return {
+        ok: false,
+        status: 413,
+        message: `Files may be at most ${MB(MAX_UPLOAD_BYTES)} each; this one is larger, so it was refused and nothing was kept.`,
+      };
     if (e instanceof MaxFilesExceededError) return { ok: false, status: 400, message: "Send one file at a time." };
     if (e instanceof FormDataParseError) return { ok: false, status: 400, message: "The upload could not be read; nothing was kept." };
     return { ok: false, status: 400, message: "The upload was cut off before it finished; nothing was kept. Try again." };
@@ -74,10 +84,20 @@ export async function receiveUpload(request: Request, teamId: number, userId: nu
   const chosen = picked as { bytes: Uint8Array; name: string } | null;
   if (!chosen || chosen.bytes.length === 0) return { ok: false, status: 400, message: "Choose a file to upload." };
   const type = await sniffType(chosen.bytes);
-  if (!type) return { ok: false, status: 415, message: "Only photos (JPEG, PNG, WebP) and PDFs are kept, and this file's content is none of them (its name does not count)." };
+  if (!type)
+    return {
+      ok: false,
+      status: 415,
+      message: "Only photos (JPEG, PNG, WebP) and PDFs are kept, and this file's content is none of them (its name does not count).",
+    };
   const used = await teamUsedBytes(teamId);
   const quota = teamQuotaBytes();
-  if (used + chosen.bytes.length > quota) return { ok: false, status: 413, message: `The shop's file space is full: ${MB(used)} of ${MB(quota)} used, and this file needs ${MB(chosen.bytes.length)}.` };
+  if (used + chosen.bytes.length > quota)
+    return {
+      ok: false,
+      status: 413,
+      message: `The shop's file space is full: ${MB(used)} of ${MB(quota)} used, and this file needs ${MB(chosen.bytes.length)}.`,
+    };
 
   const text = (k: string) => (typeof form.get(k) === "string" ? (form.get(k) as string) : "");
   const owner = await attachTo(teamId, engineId, text("assemblyId"), text("runId"));
@@ -101,9 +121,27 @@ export async function receiveUpload(request: Request, teamId: number, userId: nu
     const id = await writeTransaction(async (trx) => {
       const at = now();
       const [row] = await trx("files")
-        .insert({ team_id: teamId, engine_id: engineId, assembly_id: owner.assemblyId, run_id: owner.runId, storage_key: key, thumb_key: thumbKey, name, content_type: type, size_bytes: chosen.bytes.length, created_by: userId, created_at: at })
+        .insert({
+          team_id: teamId,
+          engine_id: engineId,
+          assembly_id: owner.assemblyId,
+          run_id: owner.runId,
+          storage_key: key,
+          thumb_key: thumbKey,
+          name,
+          content_type: type,
+          size_bytes: chosen.bytes.length,
+          created_by: userId,
+          created_at: at,
+        })
         .returning("id");
-      await trx("audit_events").insert({ team_id: teamId, user_id: userId, action: "file.uploaded", detail: JSON.stringify({ engineId, fileId: row.id }), created_at: at });
+      await trx("audit_events").insert({
+        team_id: teamId,
+        user_id: userId,
+        action: "file.uploaded",
+        detail: JSON.stringify({ engineId, fileId: row.id }),
+        created_at: at,
+      });
       return row.id as number;
     });
     const row = await db()("files").where({ id }).first();

@@ -31,14 +31,25 @@ export class InviteError extends Error {
  * A new invite for this address to this team, replacing any pending one for the same address. Returns
  * the token for the e-mail link (only its hash is kept). An address already in the team is refused.
  */
-export async function createInvite(teamId: number, byUserId: number, input: { email: string; role: Role }): Promise<{ token: string; id: number }> {
+export async function createInvite(
+  teamId: number,
+  byUserId: number,
+  input: { email: string; role: Role },
+): Promise<{ token: string; id: number }> {
   const email = normalizeEmail(input.email);
   const { token, hash } = newLinkToken();
   return writeTransaction(async (trx) => {
-    const member = await trx("memberships as m").join("users as u", "u.id", "m.user_id").where({ "m.team_id": teamId, "u.email": email }).first("u.id");
+    const member = await trx("memberships as m")
+      .join("users as u", "u.id", "m.user_id")
+      .where({ "m.team_id": teamId, "u.email": email })
+      .first("u.id");
     if (member) throw new InviteError({ email: "This address is already a member of the shop" });
     const at = new Date();
-    await trx("team_invites").where({ team_id: teamId, email }).whereNull("accepted_at").whereNull("revoked_at").update({ revoked_at: at.toISOString() });
+    await trx("team_invites")
+      .where({ team_id: teamId, email })
+      .whereNull("accepted_at")
+      .whereNull("revoked_at")
+      .update({ revoked_at: at.toISOString() });
     const [{ id }] = await trx("team_invites")
       .insert({
         team_id: teamId,
@@ -50,7 +61,13 @@ export async function createInvite(teamId: number, byUserId: number, input: { em
         expires_at: new Date(at.getTime() + INVITE_DAYS * DAY_MS).toISOString(),
       })
       .returning("id");
-    await trx("audit_events").insert({ team_id: teamId, user_id: byUserId, action: "member.invited", detail: JSON.stringify({ email, role: input.role }), created_at: now() });
+    await trx("audit_events").insert({
+      team_id: teamId,
+      user_id: byUserId,
+      action: "member.invited",
+      detail: JSON.stringify({ email, role: input.role }),
+      created_at: now(),
+    });
     return { token, id: id as number };
   });
 }
@@ -70,39 +87,72 @@ export async function listPendingInvites(teamId: number): Promise<PendingInvite[
 /** Withdraws a pending invite of this team; another team's (or a used one) is not found. */
 export async function revokeInvite(teamId: number, byUserId: number, inviteId: number): Promise<void> {
   await writeTransaction(async (trx) => {
-    const n = await trx("team_invites").where({ team_id: teamId, id: inviteId }).whereNull("accepted_at").whereNull("revoked_at").update({ revoked_at: now() });
+    const n = await trx("team_invites")
+      .where({ team_id: teamId, id: inviteId })
+      .whereNull("accepted_at")
+      .whereNull("revoked_at")
+      .update({ revoked_at: now() });
     if (n === 0) throw data("No such invite in this shop.", { status: 404 });
-    await trx("audit_events").insert({ team_id: teamId, user_id: byUserId, action: "member.invite-withdrawn", detail: JSON.stringify({ inviteId }), created_at: now() });
+    await trx("audit_events").insert({
+      team_id: teamId,
+      user_id: byUserId,
+      action: "member.invite-withdrawn",
+      detail: JSON.stringify({ inviteId }),
+      created_at: now(),
+    });
   });
 }
 
 export async function findInvite(token: string | undefined): Promise<InviteLookup> {
   if (!isLinkToken(token)) return { ok: false, reason: "unknown" };
-  const row = await db()("team_invites as i").join("teams as t", "t.id", "i.team_id").where("i.token_hash", hashLinkToken(token)).first("i.*", { team_name: "t.name" });
+  const row = await db()("team_invites as i")
+    .join("teams as t", "t.id", "i.team_id")
+    .where("i.token_hash", hashLinkToken(token))
+    .first("i.*", { team_name: "t.name" });
   if (!row || row.revoked_at) return { ok: false, reason: "unknown" };
   if (row.accepted_at) return { ok: false, reason: "used" };
   if (Date.parse(row.expires_at) <= Date.now()) return { ok: false, reason: "expired" };
   const account = await db()("users").where({ email: row.email }).first("id");
-  return { ok: true, id: row.id, teamId: row.team_id, teamName: row.team_name, email: row.email, role: row.role, accountExists: Boolean(account) };
+  return {
+    ok: true,
+    id: row.id,
+    teamId: row.team_id,
+    teamName: row.team_name,
+    email: row.email,
+    role: row.role,
+    accountExists: Boolean(account),
+  };
 }
 
 /** Marks the invite used, inside the caller's transaction; false when it was used, withdrawn or expired meanwhile. */
 async function claim(trx: Knex.Transaction, inviteId: number): Promise<boolean> {
-  const n = await trx("team_invites").where({ id: inviteId }).whereNull("accepted_at").whereNull("revoked_at").where("expires_at", ">", now()).update({ accepted_at: now() });
+  const n = await trx("team_invites")
+    .where({ id: inviteId })
+    .whereNull("accepted_at")
+    .whereNull("revoked_at")
+    .where("expires_at", ">", now())
+    .update({ accepted_at: now() });
   return n === 1;
 }
 
 async function join(trx: Knex.Transaction, invite: Extract<InviteLookup, { ok: true }>, userId: number) {
   const already = await trx("memberships").where({ user_id: userId, team_id: invite.teamId }).first("role");
   if (!already) await trx("memberships").insert({ user_id: userId, team_id: invite.teamId, role: invite.role, created_at: now() });
-  await trx("audit_events").insert({ team_id: invite.teamId, user_id: userId, action: "member.joined", detail: JSON.stringify({ role: invite.role }), created_at: now() });
+  await trx("audit_events").insert({
+    team_id: invite.teamId,
+    user_id: userId,
+    action: "member.joined",
+    detail: JSON.stringify({ role: invite.role }),
+    created_at: now(),
+  });
 }
 
 export const INVITE_GONE = "This invite link has been used, withdrawn or has expired. Ask the shop for a new one.";
 
 /** Accepts for a person who has an account with the invited address: the shop is added to it. */
 export async function acceptInviteAsUser(invite: Extract<InviteLookup, { ok: true }>, user: UserRow): Promise<void> {
-  if (normalizeEmail(user.email) !== invite.email) throw data(`This invite is for ${invite.email}; you are signed in as ${user.email}.`, { status: 403 });
+  if (normalizeEmail(user.email) !== invite.email)
+    throw data(`This invite is for ${invite.email}; you are signed in as ${user.email}.`, { status: 403 });
   await writeTransaction(async (trx) => {
     if (!(await claim(trx, invite.id))) throw data(INVITE_GONE, { status: 410 });
     await join(trx, invite, user.id);
@@ -110,11 +160,15 @@ export async function acceptInviteAsUser(invite: Extract<InviteLookup, { ok: tru
 }
 
 /** Accepts by making the account: the invited address, the name and password given. */
-export async function acceptInviteAsNewUser(invite: Extract<InviteLookup, { ok: true }>, input: { name: string; password: string }): Promise<UserRow> {
+export async function acceptInviteAsNewUser(
+  invite: Extract<InviteLookup, { ok: true }>,
+  input: { name: string; password: string },
+): Promise<UserRow> {
   const passwordHash = await hashPassword(input.password);
   return writeTransaction(async (trx) => {
     if (!(await claim(trx, invite.id))) throw data(INVITE_GONE, { status: 410 });
-    if (await trx("users").where({ email: invite.email }).first("id")) throw data("This address has an account now: sign in to accept.", { status: 409 });
+    if (await trx("users").where({ email: invite.email }).first("id"))
+      throw data("This address has an account now: sign in to accept.", { status: 409 });
     const user = await insertUser(trx, { email: invite.email, name: input.name, passwordHash });
     await join(trx, invite, user.id);
     return user;

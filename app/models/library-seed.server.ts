@@ -10,7 +10,9 @@ export async function seedTeamLibrary(trx: Knex | Knex.Transaction, teamId: numb
   const stamp = { team_id: teamId, created_at: at, updated_at: at, entered_by: null, archived_at: null };
   const materialIds = new Map<string, number>();
   for (const m of HANDBOOK_MATERIALS) {
-    const [row] = await trx("materials").insert({ ...stamp, ...m }).returning("id");
+    const [row] = await trx("materials")
+      .insert({ ...stamp, ...m })
+      .returning("id");
     materialIds.set(m.name, (row as { id: number }).id);
   }
   for (const { material, ...f } of DEMO_FASTENERS) {

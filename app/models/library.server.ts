@@ -164,17 +164,31 @@ async function audit(trx: Knex, teamId: number, userId: number, action: string, 
 /** A fastener's material must be one of the team's own (not another shop's). */
 async function assertOwnMaterial(trx: Knex, teamId: number, input: Record<string, unknown>) {
   if (!("materialId" in input)) return;
-  const own = await trx("materials").where({ team_id: teamId, id: input.materialId as number }).first("id");
+  const own = await trx("materials")
+    .where({ team_id: teamId, id: input.materialId as number })
+    .first("id");
   if (!own) throw data({ errors: { materialId: "Pick one of this shop's materials" }, values: null }, { status: 400 });
 }
 
 /** A row the shop entered: no handbook source, entered_by names the person. */
-export async function createLibraryItem<K extends LibraryKind>(kind: K, teamId: number, userId: number, input: InputFor<K>): Promise<number> {
+export async function createLibraryItem<K extends LibraryKind>(
+  kind: K,
+  teamId: number,
+  userId: number,
+  input: InputFor<K>,
+): Promise<number> {
   return db().transaction(async (trx) => {
     await assertOwnMaterial(trx, teamId, input as Record<string, unknown>);
     const at = now();
     const [row] = await trx(TABLE[kind])
-      .insert({ ...toColumns(kind, input as Record<string, unknown>), team_id: teamId, source: null, entered_by: userId, created_at: at, updated_at: at })
+      .insert({
+        ...toColumns(kind, input as Record<string, unknown>),
+        team_id: teamId,
+        source: null,
+        entered_by: userId,
+        created_at: at,
+        updated_at: at,
+      })
       .returning("id");
     const id = (row as { id: number }).id;
     await audit(trx, teamId, userId, `${SINGULAR[kind]}.created`, { id, name: input.name });
@@ -186,7 +200,13 @@ export async function createLibraryItem<K extends LibraryKind>(kind: K, teamId: 
  * Updates one of the team's rows; false when it is not the team's. A handbook row keeps its source and
  * records who edited it in entered_by (the list then says "edited by").
  */
-export async function updateLibraryItem<K extends LibraryKind>(kind: K, teamId: number, id: number, userId: number, input: InputFor<K>): Promise<boolean> {
+export async function updateLibraryItem<K extends LibraryKind>(
+  kind: K,
+  teamId: number,
+  id: number,
+  userId: number,
+  input: InputFor<K>,
+): Promise<boolean> {
   return db().transaction(async (trx) => {
     await assertOwnMaterial(trx, teamId, input as Record<string, unknown>);
     const n = await trx(TABLE[kind])
@@ -199,7 +219,13 @@ export async function updateLibraryItem<K extends LibraryKind>(kind: K, teamId: 
 }
 
 /** Archives (hides from pickers) or brings back one of the team's rows; false when it is not the team's. */
-export async function setLibraryArchived(kind: LibraryKind, teamId: number, id: number, userId: number, archived: boolean): Promise<boolean> {
+export async function setLibraryArchived(
+  kind: LibraryKind,
+  teamId: number,
+  id: number,
+  userId: number,
+  archived: boolean,
+): Promise<boolean> {
   return db().transaction(async (trx) => {
     const at = now();
     const n = await trx(TABLE[kind])

@@ -18,7 +18,10 @@ async function membershipOf(trx: Knex.Transaction, teamId: number, userId: numbe
 }
 
 async function otherOwners(trx: Knex.Transaction, teamId: number, userId: number): Promise<number> {
-  const [{ n }] = await trx("memberships").where({ team_id: teamId, role: "owner" }).whereNot({ user_id: userId }).count<{ n: number }[]>({ n: "*" });
+  const [{ n }] = await trx("memberships")
+    .where({ team_id: teamId, role: "owner" })
+    .whereNot({ user_id: userId })
+    .count<{ n: number }[]>({ n: "*" });
   return Number(n);
 }
 
@@ -28,7 +31,13 @@ export async function changeRole(teamId: number, byUserId: number, userId: numbe
     if (current === role) return;
     if (current === "owner" && (await otherOwners(trx, teamId, userId)) === 0) throw new LastOwnerError();
     await trx("memberships").where({ team_id: teamId, user_id: userId }).update({ role });
-    await trx("audit_events").insert({ team_id: teamId, user_id: byUserId, action: "member.role-changed", detail: JSON.stringify({ userId, role }), created_at: now() });
+    await trx("audit_events").insert({
+      team_id: teamId,
+      user_id: byUserId,
+      action: "member.role-changed",
+      detail: JSON.stringify({ userId, role }),
+      created_at: now(),
+    });
   });
 }
 
@@ -40,6 +49,12 @@ export async function removeMember(teamId: number, byUserId: number, userId: num
     await trx("memberships").where({ team_id: teamId, user_id: userId }).delete();
     await trx("engine_shares").where({ team_id: teamId, user_id: userId }).delete();
     await trx("sessions").where({ team_id: teamId, user_id: userId }).delete();
-    await trx("audit_events").insert({ team_id: teamId, user_id: byUserId, action: "member.removed", detail: JSON.stringify({ userId }), created_at: now() });
+    await trx("audit_events").insert({
+      team_id: teamId,
+      user_id: byUserId,
+      action: "member.removed",
+      detail: JSON.stringify({ userId }),
+      created_at: now(),
+    });
   });
 }

@@ -13,7 +13,9 @@ const MINUTE_MS = 60_000;
  */
 export async function startPasswordReset(email: string): Promise<{ token: string; name: string; email: string } | null> {
   const { token, hash } = newLinkToken();
-  const user = await db()("users").where({ email: normalizeEmail(email) }).first("id", "name", "email");
+  const user = await db()("users")
+    .where({ email: normalizeEmail(email) })
+    .first("id", "name", "email");
   if (!user) return null;
   const at = new Date();
   await db()("password_resets").insert({
@@ -26,7 +28,11 @@ export async function startPasswordReset(email: string): Promise<{ token: string
 }
 
 async function usableReset(q: Knex, token: string) {
-  return q("password_resets").where({ token_hash: hashLinkToken(token) }).whereNull("used_at").where("expires_at", ">", now()).first("id", "user_id");
+  return q("password_resets")
+    .where({ token_hash: hashLinkToken(token) })
+    .whereNull("used_at")
+    .where("expires_at", ">", now())
+    .first("id", "user_id");
 }
 
 /** True when the link's token can still reset a password. */

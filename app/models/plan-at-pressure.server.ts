@@ -13,8 +13,7 @@ export interface Firing {
 }
 
 export type PlanAtPressure =
-  | { ok: true; estimate: PlanEstimate; prepared: Prepared; fastener: FastenerInfo; gasket: GasketInfo }
-  | { ok: false; problems: string[] };
+  { ok: true; estimate: PlanEstimate; prepared: Prepared; fastener: FastenerInfo; gasket: GasketInfo } | { ok: false; problems: string[] };
 
 export async function evaluateAtFiring(teamId: number, engine: EngineRow, plan: PlanRow, firing: Firing = {}): Promise<PlanAtPressure> {
   // A measured peak goes in as entered; without one, the manifold pressure is the model's estimate input.
@@ -28,5 +27,11 @@ export async function evaluateAtFiring(teamId: number, engine: EngineRow, plan: 
   if (!parts) return { ok: false, problems: ["The plan's gasket, fastener or the engine's materials are missing from the library."] };
   const parsed = parsePlan(assemblePlanInput(parts));
   if (!parsed.ok) return { ok: false, problems: parsed.errors.map((e) => e.message) };
-  return { ok: true, estimate: evaluatePlan(parsed.plan), prepared: prepare(parsed.plan), fastener: parts.fastenerInfo, gasket: parts.gasketInfo };
+  return {
+    ok: true,
+    estimate: evaluatePlan(parsed.plan),
+    prepared: prepare(parsed.plan),
+    fastener: parts.fastenerInfo,
+    gasket: parts.gasketInfo,
+  };
 }

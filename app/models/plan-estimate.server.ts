@@ -29,7 +29,13 @@ type Parsed =
  */
 export async function checkedPlanInput(teamId: number, engine: EngineRow, plan: PlanFigures, units: UnitSystem): Promise<Parsed> {
   const parts = await planParts(teamId, engine, plan);
-  if (!parts) return { ok: false, problems: ["Pick a gasket and fastener from this shop's library (and the engine's materials)."], fastener: null, gasket: null };
+  if (!parts)
+    return {
+      ok: false,
+      problems: ["Pick a gasket and fastener from this shop's library (and the engine's materials)."],
+      fastener: null,
+      gasket: null,
+    };
   const found = { fastener: parts.fastenerInfo, gasket: parts.gasketInfo };
   const misfit = gasketFitProblem(engine.boreMm, parts.gasket.boreMm, (mm) => formatQuantity(mm, "length", units));
   if (misfit) return { ok: false, problems: [misfit], ...found };
@@ -46,7 +52,12 @@ export interface EstimateOptions {
 }
 
 /** The estimate (sweep and scatter included) for a stored plan or for plan figures not yet saved. */
-export async function estimatePlan(teamId: number, engine: EngineRow, plan: PlanFigures, options: EstimateOptions): Promise<PlanEstimateResult> {
+export async function estimatePlan(
+  teamId: number,
+  engine: EngineRow,
+  plan: PlanFigures,
+  options: EstimateOptions,
+): Promise<PlanEstimateResult> {
   const r = await checkedPlanInput(teamId, engine, plan, options.units);
   if (!r.ok) return r;
   const wording = displayWording(options.units);
@@ -64,7 +75,12 @@ export type PlanEvaluationResult =
   | { ok: false; problems: string[]; fastener: FastenerInfo | null; gasket: GasketInfo | null };
 
 /** The evaluation alone (verdict, margins, ceiling): no sweep and no scatter run, for lists. */
-export async function evaluateStoredPlan(teamId: number, engine: EngineRow, plan: PlanFigures, units: UnitSystem): Promise<PlanEvaluationResult> {
+export async function evaluateStoredPlan(
+  teamId: number,
+  engine: EngineRow,
+  plan: PlanFigures,
+  units: UnitSystem,
+): Promise<PlanEvaluationResult> {
   const r = await checkedPlanInput(teamId, engine, plan, units);
   if (!r.ok) return r;
   return { ok: true, estimate: evaluatePlan(r.plan, displayWording(units), { sentences: false }), fastener: r.fastener, gasket: r.gasket };
@@ -108,7 +124,15 @@ export async function chosenPlanVerdicts(who: Asker, units: UnitSystem, limit = 
     const r = await evaluateStoredPlan(teamId, engine, plan, units);
     if (!r.ok) continue;
     const v = r.estimate.verdict;
-    out.push({ engineId: engine.id, engineName: engine.name, planId: plan.id, planName: plan.name, status: v.status, headline: v.headline, limiting: v.limiting });
+    out.push({
+      engineId: engine.id,
+      engineName: engine.name,
+      planId: plan.id,
+      planName: plan.name,
+      status: v.status,
+      headline: v.headline,
+      limiting: v.limiting,
+    });
   }
   return out;
 }

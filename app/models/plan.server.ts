@@ -125,7 +125,6 @@ export async function planParts(
   return { engine, plan, fastener, gasket, head, block, sleeve, fastenerInfo: fastener, gasketInfo: gasket };
 }
 
-
 function planColumns(w: PlanWrite) {
   return {
     name: w.name,
@@ -166,7 +165,9 @@ export async function createPlan(teamId: number, userId: number, engineId: numbe
 
 export async function updatePlan(teamId: number, userId: number, engineId: number, planId: number, w: PlanWrite): Promise<void> {
   await writeTransaction(async (trx) => {
-    await trx("seal_plans").where({ team_id: teamId, engine_id: engineId, id: planId }).update({ ...planColumns(w), updated_at: now() });
+    await trx("seal_plans")
+      .where({ team_id: teamId, engine_id: engineId, id: planId })
+      .update({ ...planColumns(w), updated_at: now() });
     await audit(trx, teamId, userId, "plan.updated", { engineId, planId, name: w.name });
   });
 }
@@ -194,7 +195,13 @@ export async function copyPlanToEngine(teamId: number, userId: number, plan: Pla
       .insert({ team_id: teamId, engine_id: targetEngineId, created_at: at, updated_at: at, ...planColumns(plan) })
       .returning("id");
     const id = (row as { id: number }).id;
-    await audit(trx, teamId, userId, "plan.copied", { engineId: targetEngineId, planId: id, fromEngineId: plan.engineId, fromPlanId: plan.id, name: plan.name });
+    await audit(trx, teamId, userId, "plan.copied", {
+      engineId: targetEngineId,
+      planId: id,
+      fromEngineId: plan.engineId,
+      fromPlanId: plan.id,
+      name: plan.name,
+    });
     return id;
   });
 }

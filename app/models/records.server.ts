@@ -53,7 +53,10 @@ async function audit(trx: Knex, teamId: number, userId: number, action: string, 
 }
 
 export async function listAssemblies(teamId: number, engineId: number): Promise<AssemblyRecord[]> {
-  const rows = await db()("assemblies").where({ team_id: teamId, engine_id: engineId }).orderBy("assembled_on", "desc").orderBy("id", "desc");
+  const rows = await db()("assemblies")
+    .where({ team_id: teamId, engine_id: engineId })
+    .orderBy("assembled_on", "desc")
+    .orderBy("id", "desc");
   return rows.map(toAssembly);
 }
 
@@ -105,7 +108,12 @@ export async function listRuns(teamId: number, engineId: number): Promise<RunRec
 /** The plan on the engine on that day: its latest assembly on or before it, else the chosen plan. */
 export async function planOnDay(teamId: number, engine: EngineRow, day: string): Promise<PlanRow | null> {
   const plans = await listPlans(teamId, engine.id);
-  const fitted = await db()("assemblies").where({ team_id: teamId, engine_id: engine.id }).where("assembled_on", "<=", day).orderBy("assembled_on", "desc").orderBy("id", "desc").first("plan_id");
+  const fitted = await db()("assemblies")
+    .where({ team_id: teamId, engine_id: engine.id })
+    .where("assembled_on", "<=", day)
+    .orderBy("assembled_on", "desc")
+    .orderBy("id", "desc")
+    .first("plan_id");
   return plans.find((p) => p.id === fitted?.plan_id) ?? plans.find((p) => p.id === engine.chosenPlanId) ?? null;
 }
 

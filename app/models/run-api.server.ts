@@ -106,7 +106,13 @@ export async function createRunForApi(who: Asker, run: RunCreate): Promise<RunCr
   const engine = await getEngine(who, run.engineId);
   if (!engine) return { ok: false, status: 404, path: "engineId", message: "not an engine of this shop" };
   const beyond = run.cylindersAffected.find((c) => c > engine.cylinders);
-  if (beyond !== undefined) return { ok: false, status: 400, path: "cylindersAffected", message: `the engine has ${engine.cylinders} cylinders; there is no cylinder ${beyond}` };
+  if (beyond !== undefined)
+    return {
+      ok: false,
+      status: 400,
+      path: "cylindersAffected",
+      message: `the engine has ${engine.cylinders} cylinders; there is no cylinder ${beyond}`,
+    };
   const stored = await writeTransaction(async (trx) => {
     const createdAt = now();
     const [row] = await trx(RUNS_TABLE)
@@ -130,7 +136,13 @@ export async function createRunForApi(who: Asker, run: RunCreate): Promise<RunCr
       })
       .returning("id");
     const id = typeof row === "object" ? row.id : row;
-    await trx("audit_events").insert({ team_id: teamId, user_id: userId, action: "run.logged", detail: JSON.stringify({ engineId: engine.id, runId: id }), created_at: createdAt });
+    await trx("audit_events").insert({
+      team_id: teamId,
+      user_id: userId,
+      action: "run.logged",
+      detail: JSON.stringify({ engineId: engine.id, runId: id }),
+      created_at: createdAt,
+    });
     return toRun(await trx(RUNS_TABLE).where({ id }).first());
   });
   return { ok: true, run: stored };

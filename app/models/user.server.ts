@@ -40,7 +40,11 @@ export async function getUserWithHashByEmail(email: string): Promise<(UserRow & 
 }
 
 export async function emailTaken(email: string): Promise<boolean> {
-  return Boolean(await db()("users").where({ email: normalizeEmail(email) }).first("id"));
+  return Boolean(
+    await db()("users")
+      .where({ email: normalizeEmail(email) })
+      .first("id"),
+  );
 }
 
 /** The e-mail already has an account (found by the UNIQUE constraint, so two sign-ups at once agree). */

@@ -24,7 +24,8 @@ function sharedEngineIds(who: Asker): Knex.QueryBuilder {
  */
 export function viewerScope<Q extends Knex.QueryBuilder>(query: Q, who: Asker, alias = "engines"): Q {
   // a bare team id from an untyped caller would scope nothing: refuse it loudly
-  if (typeof who !== "object" || !Number.isInteger(who.teamId)) throw new TypeError("viewerScope needs who is asking (an Asker), not a team id");
+  if (typeof who !== "object" || !Number.isInteger(who.teamId))
+    throw new TypeError("viewerScope needs who is asking (an Asker), not a team id");
   query.where(`${alias}.team_id`, who.teamId);
   if (who.role === "viewer") query.whereIn(`${alias}.id`, sharedEngineIds(who));
   return query;

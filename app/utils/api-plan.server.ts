@@ -8,7 +8,9 @@ import { apiError, apiFieldErrors } from "./api.server";
 export function planEnginePrecheck(body: unknown): Response | null {
   const input = (body as { input?: unknown }).input;
   if (!input || typeof input !== "object" || Array.isArray(input)) {
-    return apiError(400, "The request has problems; nothing was done.", { errors: [{ path: "input", message: "Send the plan as an object (docs/clamp-model.md#inputs)" }] });
+    return apiError(400, "The request has problems; nothing was done.", {
+      errors: [{ path: "input", message: "Send the plan as an object (docs/clamp-model.md#inputs)" }],
+    });
   }
   const engine = PlanInputSchema.shape.engine.safeParse((input as { engine?: unknown }).engine);
   if (engine.success) return null;

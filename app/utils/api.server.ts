@@ -21,7 +21,11 @@ export interface ApiCaller {
   via: "token" | "cookie";
 }
 
-export function apiError(status: number, error: string, extra: { errors?: { path: string; message: string }[]; headers?: HeadersInit } = {}): Response {
+export function apiError(
+  status: number,
+  error: string,
+  extra: { errors?: { path: string; message: string }[]; headers?: HeadersInit } = {},
+): Response {
   const body = extra.errors ? { error, errors: extra.errors } : { error };
   return Response.json(body, { status, headers: extra.headers });
 }
@@ -51,7 +55,8 @@ export async function apiCaller(request: Request, context: unknown): Promise<Api
   try {
     member = await requireApiMember(request);
   } catch (thrown) {
-    if (thrown instanceof Response && thrown.status === 401) throw apiError(401, "Sign in, or send a personal API token as Authorization: Bearer <token>.", { headers: UNAUTHORIZED });
+    if (thrown instanceof Response && thrown.status === 401)
+      throw apiError(401, "Sign in, or send a personal API token as Authorization: Bearer <token>.", { headers: UNAUTHORIZED });
     throw thrown;
   }
   // React Router's own cross-site check does not cover resource routes, and a cookie is sent by the
@@ -78,7 +83,11 @@ function fieldErrors(error: z.ZodError, prefix: string[] = []) {
 }
 
 /** The JSON body parsed with the schema; 400 with field errors (or 413/415 from the reader) otherwise. */
-export async function apiBody<S extends z.ZodType>(request: Request, schema: S, precheck?: (body: unknown) => Response | null): Promise<z.output<S>> {
+export async function apiBody<S extends z.ZodType>(
+  request: Request,
+  schema: S,
+  precheck?: (body: unknown) => Response | null,
+): Promise<z.output<S>> {
   const body = await readJsonBody(request);
   if (body === null || typeof body !== "object" || Array.isArray(body)) throw apiError(400, "Send a JSON object.");
   const early = precheck?.(body);

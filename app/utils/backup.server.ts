@@ -32,8 +32,12 @@ export function checkDatabase(file: string): BackupReport {
   try {
     const integrity = (copy.pragma("integrity_check") as { integrity_check: string }[]).map((r) => r.integrity_check).join("; ");
     const foreignKeyProblems = (copy.pragma("foreign_key_check") as unknown[]).length;
-    const tables = copy.prepare("select name from sqlite_master where type = 'table' and name not like 'sqlite_%' order by name").all() as { name: string }[];
-    const rows = Object.fromEntries(tables.map(({ name }) => [name, (copy.prepare(`select count(*) as n from "${name}"`).get() as { n: number }).n]));
+    const tables = copy.prepare("select name from sqlite_master where type = 'table' and name not like 'sqlite_%' order by name").all() as {
+      name: string;
+    }[];
+    const rows = Object.fromEntries(
+      tables.map(({ name }) => [name, (copy.prepare(`select count(*) as n from "${name}"`).get() as { n: number }).n]),
+    );
     return { file, bytes: fs.statSync(file).size, integrity, foreignKeyProblems, rows };
   } finally {
     copy.close();

@@ -24,7 +24,10 @@ const EnvSchema = z.object({
     .default("memory"),
   RATE_LIMIT_SQLITE_PATH: z.string().min(1).optional(),
   // The Redis the "redis" store talks to; the "postgres" store uses DATABASE_URL.
-  REDIS_URL: z.string().regex(/^rediss?:\/\//i, "REDIS_URL must be a redis:// URL").default("redis://127.0.0.1:6379"),
+  REDIS_URL: z
+    .string()
+    .regex(/^rediss?:\/\//i, "REDIS_URL must be a redis:// URL")
+    .default("redis://127.0.0.1:6379"),
   RATE_LIMIT_KEY_PREFIX: z.string().default("sw-rl:"),
   // Behind a reverse proxy, the client's address is the proxy's X-Forwarded-For entry.
   TRUST_PROXY: z.enum(["true", "false"], "TRUST_PROXY must be true or false").default("false"),

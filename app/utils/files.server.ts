@@ -43,7 +43,13 @@ export async function sniffType(bytes: Uint8Array): Promise<UploadType | null> {
 
 /** A 320 px wide WebP of a photo; throws when the bytes are not a readable image. */
 export async function thumbnail(bytes: Uint8Array): Promise<Uint8Array> {
-  return new Uint8Array(await sharp(bytes, { limitInputPixels: 100_000_000 }).rotate().resize({ width: 320, withoutEnlargement: true }).webp({ quality: 70 }).toBuffer());
+  return new Uint8Array(
+    await sharp(bytes, { limitInputPixels: 100_000_000 })
+      .rotate()
+      .resize({ width: 320, withoutEnlargement: true })
+      .webp({ quality: 70 })
+      .toBuffer(),
+  );
 }
 
 export { MAX_UPLOAD_BYTES };

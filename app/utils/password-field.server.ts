@@ -10,4 +10,8 @@ export const NewPassword = z
   .refine((p) => !isBlankPassword(p), "Use letters, digits or symbols, not only spaces")
   .refine((p) => !isCommonPassword(p), "That password is on a public list of common passwords; pick another (a short sentence works well)");
 
-export const PersonName = z.string({ error: "Enter your name" }).trim().min(1, "Enter your name").max(120, "Keep your name under 120 characters");
+export const PersonName = z
+  .string({ error: "Enter your name" })
+  .trim()
+  .min(1, "Enter your name")
+  .max(120, "Keep your name under 120 characters");

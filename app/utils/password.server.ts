@@ -4,7 +4,6 @@ import argon2 from "argon2";
 // argon2id at the OWASP Password Storage Cheat Sheet minimum (m = 19 MiB, t = 2, p = 1).
 const HASH_OPTIONS = { type: argon2.argon2id, memoryCost: 19_456, timeCost: 2, parallelism: 1 } as const;
 
-
 export function hashPassword(password: string): Promise<string> {
   return argon2.hash(password, HASH_OPTIONS);
 }

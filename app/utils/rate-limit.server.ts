@@ -91,7 +91,16 @@ export function limiter(keyPrefix: string, points: number, duration: number, sto
   if (store === "redis") return new RateLimiterRedis({ storeClient: redisStore(), keyPrefix: prefixed, points, duration });
   if (store === "postgres") {
     // The table is made by migration 20261219000000_hosted (tableCreated: no CREATE at start-up).
-    return new RateLimiterPostgres({ storeClient: postgresStore(), storeType: "pool", tableName: "rate_limits", tableCreated: true, keyPrefix: prefixed, points, duration, clearExpiredByTimeout: true });
+    return new RateLimiterPostgres({
+      storeClient: postgresStore(),
+      storeType: "pool",
+      tableName: "rate_limits",
+      tableCreated: true,
+      keyPrefix: prefixed,
+      points,
+      duration,
+      clearExpiredByTimeout: true,
+    });
   }
   if (store === "sqlite") {
     return new RateLimiterSQLite({

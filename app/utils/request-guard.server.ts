@@ -69,7 +69,8 @@ export function headerRefusal(request: Request, params: Record<string, string | 
 }
 
 function tooLarge(pathname: string): Refusal {
-  if (UPLOAD_PATH.test(pathname)) return { status: 413, message: "Files may be at most 10 MB each; this upload is larger, so it was refused and nothing was kept." };
+  if (UPLOAD_PATH.test(pathname))
+    return { status: 413, message: "Files may be at most 10 MB each; this upload is larger, so it was refused and nothing was kept." };
   return { status: 413, message: `The body is larger than ${Math.round(bodyLimit(pathname) / 1024)} KiB.` };
 }
 

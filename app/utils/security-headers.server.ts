@@ -64,11 +64,21 @@ export function kindOf(pathname: string, contentType: string | null): ResponseKi
  * entry.server sets it with the nonce, so an HTML response without one is left without.
  */
 export function fillSecurityHeaders(headers: Headers, kind: ResponseKind, production: boolean): void {
-  fillHeaderValues((name) => headers.has(name), (name, value) => headers.set(name, value), kind, production);
+  fillHeaderValues(
+    (name) => headers.has(name),
+    (name, value) => headers.set(name, value),
+    kind,
+    production,
+  );
 }
 
 /** The same fill for any header store (the production server's Node responses, scripts/serve.mjs). */
-export function fillHeaderValues(has: (name: string) => boolean, set: (name: string, value: string) => void, kind: ResponseKind, production: boolean): void {
+export function fillHeaderValues(
+  has: (name: string) => boolean,
+  set: (name: string, value: string) => void,
+  kind: ResponseKind,
+  production: boolean,
+): void {
   for (const [name, value] of Object.entries(headersFor(kind, { production }))) {
     if (kind === "document" && name === "Content-Security-Policy") continue;
     if (!has(name)) set(name, value);

@@ -87,7 +87,9 @@ function build() {
         .update({ team_id: teamId ?? null, data: JSON.stringify(rest), ...(userId ? { user_id: userId } : {}) });
     },
     async deleteData(id) {
-      await db()("sessions").where({ id_hash: hashSessionId(id) }).delete();
+      await db()("sessions")
+        .where({ id_hash: hashSessionId(id) })
+        .delete();
     },
   });
 }

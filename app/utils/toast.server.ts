@@ -13,7 +13,15 @@ let toastStorage: ReturnType<typeof build> | undefined;
 
 function build() {
   return createCookieSessionStorage<{ toast: Toast }, { toast: Toast }>({
-    cookie: { name: "sw_toast", httpOnly: true, sameSite: "lax", path: "/", maxAge: 60, secure: cookieIsSecure(), secrets: [sessionSecret()] },
+    cookie: {
+      name: "sw_toast",
+      httpOnly: true,
+      sameSite: "lax",
+      path: "/",
+      maxAge: 60,
+      secure: cookieIsSecure(),
+      secrets: [sessionSecret()],
+    },
   });
 }
 
@@ -35,7 +43,13 @@ export async function readToast(request: Request): Promise<{ toast: Toast | null
 }
 
 /** A redirect that leaves a "done" (or "problem") line for the next page: the one way actions say so. */
-export async function redirectWithToast(request: Request, to: string, message: string, kind: Toast["kind"] = "done", init: ResponseInit = {}): Promise<Response> {
+export async function redirectWithToast(
+  request: Request,
+  to: string,
+  message: string,
+  kind: Toast["kind"] = "done",
+  init: ResponseInit = {},
+): Promise<Response> {
   const headers = new Headers(init.headers);
   headers.append("Set-Cookie", await flashToast(request, { kind, message }));
   return redirect(to, { ...init, headers });

@@ -91,7 +91,8 @@ export const DEMO_ENGINES: EngineSeed[] = [
       piston_volume_cc: 6,
       deck_clearance_mm: 0,
       status: "in-build",
-      notes: "Wet flanged ductile sleeves, 9/16 studs, seven a side. Peak pressure from the customer's last dyno day on the old short block.",
+      notes:
+        "Wet flanged ductile sleeves, 9/16 studs, seven a side. Peak pressure from the customer's last dyno day on the old short block.",
     },
     studsPerSide: 7,
     materials: { block: "Ductile iron 65-45-12", head: "A356.0-T6 cast aluminium", sleeve: "Ductile iron 65-45-12" },
@@ -178,7 +179,8 @@ export const DEMO_ENGINES: EngineSeed[] = [
         lubricant: "Low-friction assembly lube (not the maker's)",
         method: "torque-tested-friction",
         stages: [nm(30), nm(60), nm(85)],
-        notes: "The maker's torque on a slicker lubricant than the maker's: the stud takes much more preload for the same torque. The maker's torque goes with the maker's lubricant.",
+        notes:
+          "The maker's torque on a slicker lubricant than the maker's: the stud takes much more preload for the same torque. The maker's torque goes with the maker's lubricant.",
       }),
       plan({
         name: "MLS, the old 7/16 studs on engine oil",
@@ -219,7 +221,8 @@ export const DEMO_ENGINES: EngineSeed[] = [
       piston_volume_cc: 10,
       deck_clearance_mm: -0.3,
       status: "quoted",
-      notes: "Aluminium block with dry ductile-iron sleeves; aluminium heads. Race block with an extra stud between each pair of bores (nine per side per bank). Quote covers both sealing options and thread inserts.",
+      notes:
+        "Aluminium block with dry ductile-iron sleeves; aluminium heads. Race block with an extra stud between each pair of bores (nine per side per bank). Quote covers both sealing options and thread inserts.",
     },
     studsPerSide: 9,
     materials: { block: "A356.0-T6 cast aluminium", head: "A356.0-T6 cast aluminium", sleeve: "Ductile iron 65-45-12" },
@@ -256,11 +259,13 @@ export async function seed(knex: Knex): Promise<void> {
   if (await knex("engines").where({ team_id: team.id }).first("id")) return;
   const at = new Date().toISOString();
   // Look-ups go through the transaction: SQLite has one connection, so the outer knex would wait forever.
-  const lookup = (trx: Knex.Transaction) => async (table: string, name: string): Promise<number> => {
-    const row = await trx(table).where({ team_id: team.id, name }).first("id");
-    if (!row) throw new Error(`demo seed: ${table} "${name}" missing for ${DEMO_TEAM}; run 02-libraries first`);
-    return row.id;
-  };
+  const lookup =
+    (trx: Knex.Transaction) =>
+    async (table: string, name: string): Promise<number> => {
+      const row = await trx(table).where({ team_id: team.id, name }).first("id");
+      if (!row) throw new Error(`demo seed: ${table} "${name}" missing for ${DEMO_TEAM}; run 02-libraries first`);
+      return row.id;
+    };
   await knex.transaction(async (trx) => {
     const idOf = lookup(trx);
     for (const e of DEMO_ENGINES) {

@@ -12,5 +12,11 @@ export async function seed(knex: Knex): Promise<void> {
   const engine = await knex("engines").where({ team_id: team.id, name: DEMO_SHARED_ENGINE }).first("id");
   if (!engine) return;
   if (await knex("engine_shares").where({ team_id: team.id }).first("engine_id")) return;
-  await knex("engine_shares").insert({ engine_id: engine.id, user_id: viewer.id, team_id: team.id, shared_by: owner?.id ?? null, created_at: new Date().toISOString() });
+  await knex("engine_shares").insert({
+    engine_id: engine.id,
+    user_id: viewer.id,
+    team_id: team.id,
+    shared_by: owner?.id ?? null,
+    created_at: new Date().toISOString(),
+  });
 }

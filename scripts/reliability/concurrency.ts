@@ -48,6 +48,16 @@ server.kill("SIGTERM");
 latencies.sort((a, b) => a - b);
 const pct = (p: number) => Math.round(latencies[Math.min(latencies.length - 1, Math.floor(p * latencies.length))]!);
 const fiveHundreds = [...statuses].filter(([s]) => s >= 500 || s === 0).reduce((n, [, c]) => n + c, 0);
-const report = { seconds: SECONDS, writers: WRITERS, lockHolds: Number(holds.trim()), requests: latencies.length, statuses: Object.fromEntries(statuses), fiveHundreds, p50ms: pct(0.5), p99ms: pct(0.99), maxMs: Math.round(latencies.at(-1)!) };
+const report = {
+  seconds: SECONDS,
+  writers: WRITERS,
+  lockHolds: Number(holds.trim()),
+  requests: latencies.length,
+  statuses: Object.fromEntries(statuses),
+  fiveHundreds,
+  p50ms: pct(0.5),
+  p99ms: pct(0.99),
+  maxMs: Math.round(latencies.at(-1)!),
+};
 console.log(JSON.stringify(report));
 if (fiveHundreds > 0) process.exit(1);

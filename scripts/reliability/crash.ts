@@ -39,10 +39,20 @@ const db = new Database(file, { readonly: true });
 const integrity = (db.pragma("integrity_check") as { integrity_check: string }[]).map((r) => r.integrity_check).join("; ");
 const foreignKeyProblems = (db.pragma("foreign_key_check") as unknown[]).length;
 const recorded = new Set(
-  (db.prepare("select detail from audit_events where action = 'team.renamed'").all() as { detail: string }[]).map((r) => JSON.parse(r.detail).name as string),
+  (db.prepare("select detail from audit_events where action = 'team.renamed'").all() as { detail: string }[]).map(
+    (r) => JSON.parse(r.detail).name as string,
+  ),
 );
 const missing = acknowledged.filter((name) => !recorded.has(name));
 db.close();
-const report = { kills: ROUNDS, sent, acknowledged: acknowledged.length, missing: missing.length, integrity, foreignKeyProblems, seconds: Math.round((Date.now() - started) / 1000) };
+const report = {
+  kills: ROUNDS,
+  sent,
+  acknowledged: acknowledged.length,
+  missing: missing.length,
+  integrity,
+  foreignKeyProblems,
+  seconds: Math.round((Date.now() - started) / 1000),
+};
 console.log(JSON.stringify(report));
 if (missing.length > 0 || integrity !== "ok" || foreignKeyProblems > 0) process.exit(1);

@@ -50,7 +50,9 @@ async function startAll(n: number): Promise<number[]> {
 }
 async function stopAll(): Promise<void> {
   await Promise.all(
-    children.splice(0).map((c) => new Promise<void>((resolve) => (c.exitCode !== null ? resolve() : (c.once("exit", () => resolve()), c.kill("SIGTERM"))))),
+    children
+      .splice(0)
+      .map((c) => new Promise<void>((resolve) => (c.exitCode !== null ? resolve() : (c.once("exit", () => resolve()), c.kill("SIGTERM"))))),
   );
 }
 
@@ -60,7 +62,8 @@ function check(ok: boolean, what: string): void {
 }
 
 const origin = (port: number) => `http://127.0.0.1:${port}`;
-const page = (port: number, path: string, cookie: string) => fetch(origin(port) + path, { headers: { Cookie: cookie }, redirect: "manual" });
+const page = (port: number, path: string, cookie: string) =>
+  fetch(origin(port) + path, { headers: { Cookie: cookie }, redirect: "manual" });
 
 async function wrongPassword(port: number, email: string): Promise<number> {
   const res = await fetch(`${origin(port)}/login`, {
@@ -106,7 +109,10 @@ try {
   const cookie = await signInCookie(a!, "owner@example.com");
   const onB = await page(b!, "/engines", cookie);
   const listed = await onB.text();
-  check(onB.status === 200 && listed.includes("Fenwick-Oddy 2.0 four") && listed.includes("Mara Quillon"), `a session made on :${a} is valid on :${b} (GET /engines → ${onB.status})`);
+  check(
+    onB.status === 200 && listed.includes("Fenwick-Oddy 2.0 four") && listed.includes("Mara Quillon"),
+    `a session made on :${a} is valid on :${b} (GET /engines → ${onB.status})`,
+  );
 
   // 2. the sign-in throttle counts on both: 5 wrong passwords alternating, the sixth refused wherever it lands
   const statuses: number[] = [];
@@ -146,7 +152,9 @@ try {
         body: JSON.stringify({ input }),
       }),
     );
-    console.log(`  ${n} process${n > 1 ? "es" : ""}: plan page ${plan.rps.toFixed(1)} req/s (${plan.errors} not 200), estimate API ${api.rps.toFixed(1)} req/s (${api.errors} not 200)`);
+    console.log(
+      `  ${n} process${n > 1 ? "es" : ""}: plan page ${plan.rps.toFixed(1)} req/s (${plan.errors} not 200), estimate API ${api.rps.toFixed(1)} req/s (${api.errors} not 200)`,
+    );
     await stopAll();
   }
 } finally {
@@ -162,7 +170,9 @@ async function planInput(planPath: string): Promise<unknown> {
   const { planParts, listPlans } = await import("../../app/models/plan.server.ts");
   const { assemblePlanInput } = await import("../../app/lib/plan/assemble.ts");
   const [, engineId, planId] = /\/engines\/(\d+)\/plans\/(\d+)/.exec(planPath)!;
-  const row = await db()("engines").where({ id: Number(engineId) }).first("team_id");
+  const row = await db()("engines")
+    .where({ id: Number(engineId) })
+    .first("team_id");
   const engine = (await getEngine(row.team_id, Number(engineId)))!;
   const plan = (await listPlans(row.team_id, engine.id)).find((p) => p.id === Number(planId))!;
   const input = assemblePlanInput((await planParts(row.team_id, engine, plan))!);

@@ -12,7 +12,12 @@ export function freshDatabase(name: string): { dir: string; file: string; env: R
   fs.rmSync(dir, { recursive: true, force: true });
   fs.mkdirSync(dir, { recursive: true });
   const file = path.join(dir, "db.sqlite");
-  const env = { PATH: process.env.PATH ?? "", DATABASE_PATH: file, SESSION_SECRET: "reliability-secret-reliability-secret-01", NODE_ENV: "production" };
+  const env = {
+    PATH: process.env.PATH ?? "",
+    DATABASE_PATH: file,
+    SESSION_SECRET: "reliability-secret-reliability-secret-01",
+    NODE_ENV: "production",
+  };
   const run = (args: string[]) => execFileSync(process.execPath, ["--import", "tsx", ...args], { cwd: ROOT, env, stdio: "pipe" });
   run(["node_modules/knex/bin/cli.js", "--knexfile", "knexfile.ts", "migrate:latest"]);
   run(["scripts/db-seed.ts"]);
@@ -27,7 +32,9 @@ export async function startServer(env: Record<string, string>, port: number): Pr
   });
   const until = Date.now() + 30_000;
   for (;;) {
-    const ok = await fetch(`http://127.0.0.1:${port}/healthz`).then((r) => r.ok).catch(() => false);
+    const ok = await fetch(`http://127.0.0.1:${port}/healthz`)
+      .then((r) => r.ok)
+      .catch(() => false);
     if (ok) return child;
     if (Date.now() > until || child.exitCode !== null) throw new Error("the server did not start");
     await new Promise((r) => setTimeout(r, 100));

@@ -13,11 +13,18 @@ const { closeDb } = await import("../../app/utils/db.server.ts");
 async function once(email: string): Promise<{ ms: number; status: number }> {
   resetThrottles();
   const body = new URLSearchParams({ name: "Timing Person", email, teamName: "Timing Shop", password: "a sentence for the bench" });
-  const request = new Request("http://127.0.0.1/signup", { method: "POST", headers: { "Content-Type": "application/x-www-form-urlencoded" }, body });
+  const request = new Request("http://127.0.0.1/signup", {
+    method: "POST",
+    headers: { "Content-Type": "application/x-www-form-urlencoded" },
+    body,
+  });
   const t0 = performance.now();
   let status = 200;
   try {
-    const out = (await signup.action({ request, params: {}, context: undefined } as never)) as unknown as { init?: { status?: number }; status?: number };
+    const out = (await signup.action({ request, params: {}, context: undefined } as never)) as unknown as {
+      init?: { status?: number };
+      status?: number;
+    };
     status = out instanceof Response ? out.status : (out.init?.status ?? 200);
   } catch (thrown) {
     status = thrown instanceof Response ? thrown.status : 500;
@@ -37,5 +44,12 @@ for (let i = 0; i < SAMPLES; i++) {
   fresh.push(f.ms);
   statuses.add(`taken ${t.status}, free ${f.status}`);
 }
-console.log(JSON.stringify({ samples: SAMPLES, takenMedianMs: Math.round(median(taken)), freeMedianMs: Math.round(median(fresh)), answers: [...statuses] }));
+console.log(
+  JSON.stringify({
+    samples: SAMPLES,
+    takenMedianMs: Math.round(median(taken)),
+    freeMedianMs: Math.round(median(fresh)),
+    answers: [...statuses],
+  }),
+);
 await closeDb();

@@ -21,7 +21,9 @@ const seconds = Number(opt("seconds", "5"));
 
 const rows: Row[] = [];
 const load = os.loadavg()[0]!;
-console.log(`Sealwright bench — node ${process.version}, ${os.cpus().length} × ${os.cpus()[0]?.model ?? "cpu"}, load average ${load.toFixed(1)} at start`);
+console.log(
+  `Sealwright bench — node ${process.version}, ${os.cpus().length} × ${os.cpus()[0]?.model ?? "cpu"}, load average ${load.toFixed(1)} at start`,
+);
 for (const part of only) {
   const t0 = Date.now();
   if (part === "core") rows.push(...coreRows());
@@ -35,4 +37,6 @@ for (const part of only) {
 const mark = (m: boolean | null) => (m === null ? "—" : m ? "met" : "NOT MET");
 console.log("\n| figure | value | target | |\n| --- | --- | --- | --- |");
 for (const r of rows) console.log(`| ${r.figure} | ${r.value}${r.note ? ` (${r.note})` : ""} | ${r.target} | ${mark(r.met)} |`);
-console.log(`\nload average at the end ${os.loadavg()[0]!.toFixed(1)} (2 cores shared: figures are noisy, ratios in one run are what count)`);
+console.log(
+  `\nload average at the end ${os.loadavg()[0]!.toFixed(1)} (2 cores shared: figures are noisy, ratios in one run are what count)`,
+);

@@ -8,9 +8,17 @@ export const BIG = { engines: 5000, plans: 30_000, activity: 48_000 };
 export function growShop(dbPath: string, size = BIG): { teamId: number } {
   const d = new Database(dbPath);
   try {
-    const team = d.prepare("select m.team_id as id, u.id as userId from memberships m join users u on u.id = m.user_id where u.email = ?").get("builder@example.com") as { id: number; userId: number };
-    const engines = d.prepare("select * from engines where team_id = ? and archived_at is null order by id").all(team.id) as Record<string, unknown>[];
-    const plans = d.prepare("select * from seal_plans where team_id = ? and archived_at is null order by id").all(team.id) as Record<string, unknown>[];
+    const team = d
+      .prepare("select m.team_id as id, u.id as userId from memberships m join users u on u.id = m.user_id where u.email = ?")
+      .get("builder@example.com") as { id: number; userId: number };
+    const engines = d.prepare("select * from engines where team_id = ? and archived_at is null order by id").all(team.id) as Record<
+      string,
+      unknown
+    >[];
+    const plans = d.prepare("select * from seal_plans where team_id = ? and archived_at is null order by id").all(team.id) as Record<
+      string,
+      unknown
+    >[];
     const insert = (table: string, row: Record<string, unknown>) => {
       const cols = Object.keys(row).filter((c) => c !== "id");
       return d.prepare(`insert into ${table} (${cols.map((c) => `"${c}"`).join(",")}) values (${cols.map(() => "?").join(",")})`);
@@ -24,21 +32,46 @@ export function growShop(dbPath: string, size = BIG): { teamId: number } {
     d.transaction(() => {
       for (let i = 0; i < size.engines; i++) {
         const src = engines[i % engines.length]!;
-        const row = { ...src, name: `Bench engine ${String(i + 1).padStart(4, "0")} (invented)`, customer: `Bench customer ${i % 97}`, chosen_plan_id: null, updated_at: new Date(t0 + i * 60_000).toISOString(), created_at: new Date(t0 + i * 60_000).toISOString() };
-        const engineId = Number(engineIns.run(...Object.keys(src).filter((c) => c !== "id").map((c) => (row as Record<string, unknown>)[c])).lastInsertRowid);
+        const row = {
+          ...src,
+          name: `Bench engine ${String(i + 1).padStart(4, "0")} (invented)`,
+          customer: `Bench customer ${i % 97}`,
+          chosen_plan_id: null,
+          updated_at: new Date(t0 + i * 60_000).toISOString(),
+          created_at: new Date(t0 + i * 60_000).toISOString(),
+        };
+        const engineId = Number(
+          engineIns.run(
+            ...Object.keys(src)
+              .filter((c) => c !== "id")
+              .map((c) => (row as Record<string, unknown>)[c]),
+          ).lastInsertRowid,
+        );
         const srcPlans = plans.filter((p) => p.engine_id === src.id);
         const pool = srcPlans.length > 0 ? srcPlans : plans;
         let first = 0;
         for (let k = 0; k < plansPerEngine; k++) {
           const sp = pool[k % pool.length]!;
           const prow = { ...sp, engine_id: engineId, name: `Bench plan ${k + 1} (invented)` };
-          const id = Number(planIns.run(...Object.keys(sp).filter((c) => c !== "id").map((c) => (prow as Record<string, unknown>)[c])).lastInsertRowid);
+          const id = Number(
+            planIns.run(
+              ...Object.keys(sp)
+                .filter((c) => c !== "id")
+                .map((c) => (prow as Record<string, unknown>)[c]),
+            ).lastInsertRowid,
+          );
           if (k === 0) first = id;
         }
         chooseUpd.run(first, engineId);
       }
       for (let i = 0; i < size.activity; i++) {
-        auditIns.run(team.id, team.userId, "plan.updated", JSON.stringify({ name: `Bench plan ${i % 6} (invented)` }), new Date(t0 + i * 30_000).toISOString());
+        auditIns.run(
+          team.id,
+          team.userId,
+          "plan.updated",
+          JSON.stringify({ name: `Bench plan ${i % 6} (invented)` }),
+          new Date(t0 + i * 30_000).toISOString(),
+        );
       }
     })();
     d.pragma("optimize");

@@ -68,7 +68,8 @@ function closure(p: Prepared, F: number): number {
 
 function grow(p: Prepared, x: number): void {
   const els = p.paths.elements;
-  for (let i = 0; i < els.length; i++) if (Number.isFinite(els[i].limitN)) set[i] = Math.max(set[i], x - els[i].engageMm - els[i].limitN / els[i].kNPerMm);
+  for (let i = 0; i < els.length; i++)
+    if (Number.isFinite(els[i].limitN)) set[i] = Math.max(set[i], x - els[i].engageMm - els[i].limitN / els[i].kNPerMm);
 }
 
 // one bore: assembly, hot and settled, fired; leaves the figures in `out` at offset o

@@ -19,7 +19,9 @@ async function openFirstPlan(page: Page): Promise<string> {
 
 const announced = (page: Page) => page.getByTestId("verdict-announcement");
 
-test("from the top of the plan editor the keyboard reaches the torque in a bounded number of Tabs, and the new verdict is announced once", async ({ page }) => {
+test("from the top of the plan editor the keyboard reaches the torque in a bounded number of Tabs, and the new verdict is announced once", async ({
+  page,
+}) => {
   test.setTimeout(60_000);
   await signIn(page, "builder@example.com");
   const planUrl = await openFirstPlan(page);
@@ -47,7 +49,9 @@ test("from the top of the plan editor the keyboard reaches the torque in a bound
   await page.keyboard.press("ControlOrMeta+a");
   await page.keyboard.type("10, 20");
   await expect(announced(page)).toHaveText(/^Estimate updated\. Verdict: (Short|Thin)/, { timeout: 10_000 });
-  await expect(page.getByTestId("verdict")).toContainText((await announced(page).textContent())!.replace("Estimate updated. Verdict: ", ""));
+  await expect(page.getByTestId("verdict")).toContainText(
+    (await announced(page).textContent())!.replace("Estimate updated. Verdict: ", ""),
+  );
   // the panel keeps full contrast while it works: no fading
   expect(await page.locator('section[aria-labelledby="estimate-title"]').evaluate((s) => getComputedStyle(s).opacity)).toBe("1");
   // Enter in a plan field recalculates: the page stays, nothing is saved

@@ -84,7 +84,8 @@ async function crawl(page: Page, origin: string) {
     const cautions = await page.getByText("Estimates, not instructions.").count();
     if (cautions !== 1) findings.push({ url, from, problem: `shows the caution ${cautions} times` });
     const widths = await page.evaluate(() => ({ scroll: document.documentElement.scrollWidth, viewport: window.innerWidth }));
-    if (widths.scroll > widths.viewport + 1) findings.push({ url, from, problem: `is ${widths.scroll} px wide on a ${widths.viewport} px phone` });
+    if (widths.scroll > widths.viewport + 1)
+      findings.push({ url, from, problem: `is ${widths.scroll} px wide on a ${widths.viewport} px phone` });
     const here = new URL(page.url());
     if (here.pathname.startsWith("/login")) {
       findings.push({ url, from, problem: "sent the signed-in person back to sign-in" });
@@ -121,7 +122,10 @@ for (const [role, email] of [
   ["builder", "builder@example.com"],
   ["viewer", "viewer@example.com"],
 ] as const) {
-  test(`as the ${role}, every page reachable from the dashboard answers, offers no refused link, fits a phone and passes axe`, async ({ page, baseURL }) => {
+  test(`as the ${role}, every page reachable from the dashboard answers, offers no refused link, fits a phone and passes axe`, async ({
+    page,
+    baseURL,
+  }) => {
     // the crawl plus an axe scan of each kind of page: about two minutes a role on a quiet machine
     test.setTimeout(15 * 60_000);
     await page.setViewportSize(PHONE);
@@ -149,7 +153,13 @@ test("a viewer who types a builder's address reads a kind refusal inside the eng
   await page.waitForURL(/\/engines\/\d+$/);
   const engineUrl = page.url();
   await page.goto(`${engineUrl}/plans`);
-  const planPath = new URL(await page.getByRole("table").getByRole("link").first().evaluate((a) => (a as HTMLAnchorElement).href)).pathname;
+  const planPath = new URL(
+    await page
+      .getByRole("table")
+      .getByRole("link")
+      .first()
+      .evaluate((a) => (a as HTMLAnchorElement).href),
+  ).pathname;
   const planId = planPath.split("/").pop();
   for (const path of ["/edit", "/plans/new", `/plans/${planId}/copy`]) {
     const response = await page.goto(engineUrl + path);
@@ -182,7 +192,9 @@ test("a four-plan compare and the new-engine form fit a phone", async ({ page })
   const fits = () => page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth + 1);
   expect(await fits()).toBe(true);
   // whatever the table's width, it stays inside its own box (which scrolls sideways when it must)
-  const box = await page.getByRole("table").evaluate((t) => ({ right: t.parentElement!.getBoundingClientRect().right, overflow: getComputedStyle(t.parentElement!).overflowX }));
+  const box = await page
+    .getByRole("table")
+    .evaluate((t) => ({ right: t.parentElement!.getBoundingClientRect().right, overflow: getComputedStyle(t.parentElement!).overflowX }));
   expect(box.right).toBeLessThanOrEqual(PHONE.width);
   expect(box.overflow).toBe("auto");
   await screenshot(page, "phone-compare-four");

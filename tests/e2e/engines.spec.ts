@@ -37,9 +37,9 @@ test("a builder adds an engine through the form: a bad figure first, then a clea
 
   await bore.fill("101.6");
   await page.getByRole("textbox", { name: "Stud LA2: share of each cylinder" }).fill("1/2 1/2");
-  await expect(page.getByRole("row").filter({ has: page.getByRole("textbox", { name: "Stud LA2: share of each cylinder" }) })).toContainText(
-    "✔ 1 adds up",
-  );
+  await expect(
+    page.getByRole("row").filter({ has: page.getByRole("textbox", { name: "Stud LA2: share of each cylinder" }) }),
+  ).toContainText("✔ 1 adds up");
   expect(await seriousViolations(page)).toEqual([]);
   await page.getByRole("button", { name: "Save engine" }).first().click();
 

@@ -7,7 +7,14 @@ import { expect, test, type APIResponse } from "@playwright/test";
 // kind of response, refusals in words, throttles keyed by the socket's address. No browser needed.
 
 const ROOT = new URL("../..", import.meta.url).pathname;
-const TABLE = ["content-security-policy", "x-content-type-options", "x-frame-options", "referrer-policy", "permissions-policy", "cache-control"];
+const TABLE = [
+  "content-security-policy",
+  "x-content-type-options",
+  "x-frame-options",
+  "referrer-policy",
+  "permissions-policy",
+  "cache-control",
+];
 
 function expectTable(res: APIResponse, what: string) {
   const h = res.headers();
@@ -29,7 +36,10 @@ test("defect 11: the header table on pages, redirects, /healthz, API JSON, stati
     ["api json", await request.post("/api/v1/estimate", { data: { input: {} }, headers: { Origin: baseURL! } })],
     ["asset", await request.get(asset!)],
     ["public file", await request.get("/favicon.svg")],
-    ["cross-site refusal", await request.post("/login", { form: { email: "a@example.com", password: "x" }, headers: { Origin: "http://evil.example" } })],
+    [
+      "cross-site refusal",
+      await request.post("/login", { form: { email: "a@example.com", password: "x" }, headers: { Origin: "http://evil.example" } }),
+    ],
     ["404", await request.get("/engines/0x1", { maxRedirects: 0 })],
   ];
   for (const [what, res] of cases) expectTable(res, what);
@@ -45,7 +55,10 @@ test("defects 6 and 12: wrong Content-Type is 415, an oversized or chunked-overs
   const origin = { Origin: baseURL! };
   expect((await request.post("/login", { data: "email=a", headers: { ...origin, "Content-Type": "text/plain" } })).status()).toBe(415);
   expect((await request.post("/login", { data: { email: "a" }, headers: origin })).status()).toBe(415);
-  const big = await request.post("/login", { data: "password=" + "x".repeat(5 * 1024 * 1024), headers: { ...origin, "Content-Type": "application/x-www-form-urlencoded" } });
+  const big = await request.post("/login", {
+    data: "password=" + "x".repeat(5 * 1024 * 1024),
+    headers: { ...origin, "Content-Type": "application/x-www-form-urlencoded" },
+  });
   expect(big.status()).toBe(413);
   expectTable(big, "413");
   const res = await fetch(`${baseURL}/login`, {
@@ -63,7 +76,8 @@ test("defects 6 and 12: wrong Content-Type is 415, an oversized or chunked-overs
 });
 
 test("defect 2: the throttle keys on the socket's address and answers 429 with Retry-After", async ({ request, baseURL }) => {
-  const guess = () => request.post("/login", { form: { email: "nobody-e2e@example.com", password: "wrong-guess" }, headers: { Origin: baseURL! } });
+  const guess = () =>
+    request.post("/login", { form: { email: "nobody-e2e@example.com", password: "wrong-guess" }, headers: { Origin: baseURL! } });
   const statuses: number[] = [];
   for (let i = 0; i < 6; i++) statuses.push((await guess()).status());
   expect(statuses).toEqual([400, 400, 400, 400, 400, 429]);
@@ -79,12 +93,21 @@ test("the production server (scripts/serve.mjs) exits promptly on SIGTERM", asyn
   const port = Number(process.env.E2E_PORT ?? 3210) + 9;
   const child = spawn(process.execPath, [path.join(ROOT, "scripts/serve.mjs"), "build/server/index.js"], {
     cwd: ROOT,
-    env: { ...process.env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: "production", DATABASE_PATH: path.join(dir, "x.sqlite"), SESSION_SECRET: "shutdown-secret-shutdown-secret-0123456" },
+    env: {
+      ...process.env,
+      PORT: String(port),
+      HOST: "127.0.0.1",
+      NODE_ENV: "production",
+      DATABASE_PATH: path.join(dir, "x.sqlite"),
+      SESSION_SECRET: "shutdown-secret-shutdown-secret-0123456",
+    },
     stdio: "ignore",
   });
   const exited = new Promise<number | null>((resolve) => child.on("exit", (code) => resolve(code)));
   try {
-    await expect.poll(async () => (await fetch(`http://127.0.0.1:${port}/healthz`).catch(() => null))?.status ?? 0, { timeout: 15_000 }).toBe(200);
+    await expect
+      .poll(async () => (await fetch(`http://127.0.0.1:${port}/healthz`).catch(() => null))?.status ?? 0, { timeout: 15_000 })
+      .toBe(200);
     child.kill("SIGTERM");
     expect(await Promise.race([exited, new Promise<string>((r) => setTimeout(() => r("timeout"), 5_000))])).toBe(0);
   } finally {

@@ -16,7 +16,13 @@ interface Caught {
 export async function waitForMail(address: string, since: string, timeoutMs = 10_000): Promise<Caught> {
   const dir = path.join(ROOT, MAIL_DIR);
   for (let waited = 0; waited < timeoutMs; waited += 100) {
-    const files = fs.existsSync(dir) ? fs.readdirSync(dir).filter((f) => f.endsWith(".json")).sort().reverse() : [];
+    const files = fs.existsSync(dir)
+      ? fs
+          .readdirSync(dir)
+          .filter((f) => f.endsWith(".json"))
+          .sort()
+          .reverse()
+      : [];
     for (const f of files) {
       const m = JSON.parse(fs.readFileSync(path.join(dir, f), "utf8")) as Caught & { receivedAt: string };
       if (m.to.includes(address) && m.receivedAt >= since) return m;

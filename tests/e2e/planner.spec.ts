@@ -13,13 +13,17 @@ async function engineUrl(page: Page, name: string) {
   return page.url();
 }
 
-test("a new fastener brings its maker's torque, stages, lubricant and friction; the builder may override, and another lubricant is flagged", async ({ page }) => {
+test("a new fastener brings its maker's torque, stages, lubricant and friction; the builder may override, and another lubricant is flagged", async ({
+  page,
+}) => {
   await signIn(page, "builder@example.com");
   const four = await engineUrl(page, FOUR);
   await page.goto(`${four}/plans/new`);
   await page.getByLabel("Plan name").fill("M12 at the maker's figures");
   await page.getByLabel("Fastener", { exact: true }).selectOption({ label: M12 });
-  await expect(page.getByTestId("figures-followed")).toHaveText(`↻ Torque, stages and lubricant now follow the maker's figures for ${M12}; change them if you mean to.`);
+  await expect(page.getByTestId("figures-followed")).toHaveText(
+    `↻ Torque, stages and lubricant now follow the maker's figures for ${M12}; change them if you mean to.`,
+  );
   await expect(page.getByLabel("Final torque (N·m)")).toHaveValue("150");
   await expect(page.getByLabel("Stages (N·m)")).toHaveValue("40, 90, 150");
   await expect(page.getByLabel("Lubricant", { exact: true })).toHaveValue("Moly assembly paste");
@@ -30,7 +34,9 @@ test("a new fastener brings its maker's torque, stages, lubricant and friction; 
 
   // the builder's own figures stand; a lubricant other than the maker's is said out loud
   await page.getByLabel("Lubricant", { exact: true }).fill("Engine oil");
-  await expect(page.getByTestId("lubricant-warning")).toContainText("This plan's lubricant (“Engine oil”) is not the maker's (“Moly assembly paste”)");
+  await expect(page.getByTestId("lubricant-warning")).toContainText(
+    "This plan's lubricant (“Engine oil”) is not the maker's (“Moly assembly paste”)",
+  );
   await page.getByLabel("Thread friction").fill("0,15");
   await page.getByLabel("Final torque (N·m)").fill("140");
   await page.getByLabel("Stages (N·m)").fill("60, 100, 140");
@@ -104,7 +110,9 @@ test("a plan by stretch gauge: the target stretch sets the clamp, and the page s
   await page.getByRole("button", { name: "Create plan" }).click();
   await expect(page.getByRole("heading", { name: "By stretch" })).toBeVisible();
   await expect(stretch).toHaveValue("0.3");
-  await expect(page.getByTestId("stretch-line")).toContainText(/By the estimate, a stretch of 0\.300 mm is [\d.]+ kN of preload per stud, about \d+ N·m with this friction\./);
+  await expect(page.getByTestId("stretch-line")).toContainText(
+    /By the estimate, a stretch of 0\.300 mm is [\d.]+ kN of preload per stud, about \d+ N·m with this friction\./,
+  );
   // live: a larger stretch means more preload before anything is saved
   const preload = page.getByTestId("preload");
   const before = await preload.textContent();
@@ -133,7 +141,9 @@ test("duplicate an engine and copy a plan to another engine; a plan whose gasket
   await page.getByRole("link", { name: "Copy to another engine" }).click();
   await page.getByLabel(/Saltings 6\.5 V8/).check();
   await page.getByRole("button", { name: "Copy the plan" }).click();
-  await expect(page.getByRole("alert")).toContainText("Not copied to “Saltings 6.5 V8”: The gasket's 87.00 mm bore is smaller than the 106.00 mm cylinder bore");
+  await expect(page.getByRole("alert")).toContainText(
+    "Not copied to “Saltings 6.5 V8”: The gasket's 87.00 mm bore is smaller than the 106.00 mm cylinder bore",
+  );
   await page.getByLabel(/Number 47 crew straight six \(copy\)/).check();
   await screenshot(page, "plan-copy");
   await page.getByRole("button", { name: "Copy the plan" }).click();

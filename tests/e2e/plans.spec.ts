@@ -29,7 +29,10 @@ test("the builder creates an engine, adds two plans, watches the estimate follow
   await page.waitForURL(/\/engines\/\d+$/);
   const engineUrl = page.url();
 
-  for (const [name, torque] of [["Bench plan A", "110"], ["Bench plan B", "130"]] as const) {
+  for (const [name, torque] of [
+    ["Bench plan A", "110"],
+    ["Bench plan B", "130"],
+  ] as const) {
     await page.goto(`${engineUrl}/plans/new`);
     await page.getByLabel("Plan name").fill(name);
     await page.getByLabel(/Final torque/).fill(torque);

@@ -34,10 +34,18 @@ function noisyPng(width = 1000, height = 1000): Buffer {
   const raw = Buffer.alloc((width * 3 + 1) * height);
   let seed = 7;
   for (let i = 0; i < raw.length; i++) raw[i] = i % (width * 3 + 1) === 0 ? 0 : (seed = (seed * 1103515245 + 12345) >>> 0) >>> 24;
-  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk("IHDR", ihdr), chunk("IDAT", zlib.deflateSync(raw, { level: 0 })), chunk("IEND", Buffer.alloc(0))]);
+  return Buffer.concat([
+    Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+    chunk("IHDR", ihdr),
+    chunk("IDAT", zlib.deflateSync(raw, { level: 0 })),
+    chunk("IEND", Buffer.alloc(0)),
+  ]);
 }
 
-test("a builder records an assembly with a photo, logs two runs and sees them in the table and on the evidence chart", async ({ page, context }) => {
+test("a builder records an assembly with a photo, logs two runs and sees them in the table and on the evidence chart", async ({
+  page,
+  context,
+}) => {
   test.setTimeout(120_000);
   await signIn(page, "builder@example.com");
   await page.goto("/engines");
@@ -61,8 +69,15 @@ test("a builder records an assembly with a photo, logs two runs and sees them in
   // slow the upload so the progress bar can be seen
   const cdp = await context.newCDPSession(page);
   await cdp.send("Network.enable");
-  await cdp.send("Network.emulateNetworkConditions", { offline: false, latency: 20, downloadThroughput: -1, uploadThroughput: 1024 * 1024 });
-  await recorded.getByLabel("Add a photo of this assembly").setInputFiles({ name: "deck-after-torque.png", mimeType: "image/png", buffer: noisyPng() });
+  await cdp.send("Network.emulateNetworkConditions", {
+    offline: false,
+    latency: 20,
+    downloadThroughput: -1,
+    uploadThroughput: 1024 * 1024,
+  });
+  await recorded
+    .getByLabel("Add a photo of this assembly")
+    .setInputFiles({ name: "deck-after-torque.png", mimeType: "image/png", buffer: noisyPng() });
   await recorded.getByRole("button", { name: "Upload" }).click();
   const bar = recorded.getByRole("progressbar", { name: "Upload progress" });
   await expect(bar).toBeVisible();
@@ -71,7 +86,9 @@ test("a builder records an assembly with a photo, logs two runs and sees them in
   await cdp.send("Network.emulateNetworkConditions", { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
   await expect(recorded.getByRole("img", { name: "Photo: deck-after-torque.png" })).toBeVisible();
   // a renamed file is refused with a clear message
-  await recorded.getByLabel("Add a photo of this assembly").setInputFiles({ name: "photo.jpg", mimeType: "image/jpeg", buffer: Buffer.from("MZ this is not a photo at all, it is a program") });
+  await recorded
+    .getByLabel("Add a photo of this assembly")
+    .setInputFiles({ name: "photo.jpg", mimeType: "image/jpeg", buffer: Buffer.from("MZ this is not a photo at all, it is a program") });
   await recorded.getByRole("button", { name: "Upload" }).click();
   await expect(recorded.getByRole("alert")).toContainText("Only photos (JPEG, PNG, WebP) and PDFs");
   await screenshot(page, "records-assembly");

@@ -13,7 +13,14 @@ test("the server exits promptly on SIGTERM after serving a request", async () =>
   const port = Number(process.env.E2E_PORT ?? 3210) + 9;
   const child = spawn(process.execPath, [path.join(ROOT, "scripts/serve.mjs"), "build/server/index.js"], {
     cwd: ROOT,
-    env: { ...process.env, PORT: String(port), HOST: "127.0.0.1", NODE_ENV: "production", DATABASE_PATH: path.join(dir, "x.sqlite"), SESSION_SECRET: "shutdown-secret-shutdown-secret-0123456" },
+    env: {
+      ...process.env,
+      PORT: String(port),
+      HOST: "127.0.0.1",
+      NODE_ENV: "production",
+      DATABASE_PATH: path.join(dir, "x.sqlite"),
+      SESSION_SECRET: "shutdown-secret-shutdown-secret-0123456",
+    },
     stdio: "ignore",
   });
   const exited = new Promise<number | null>((resolve) => child.on("exit", (code) => resolve(code)));

@@ -17,7 +17,10 @@ async function asNewPerson<T>(browser: Browser, work: (page: Page) => Promise<T>
   }
 }
 
-test("the owner invites a customer, a builder shares one engine, the customer reads exactly that engine's build sheet", async ({ page, browser }) => {
+test("the owner invites a customer, a builder shares one engine, the customer reads exactly that engine's build sheet", async ({
+  page,
+  browser,
+}) => {
   test.setTimeout(120_000);
   await signIn(page, "owner@example.com");
   await page.goto("/team");

@@ -8,11 +8,17 @@ import { resetThrottles } from "~/utils/rate-limit.server";
 import { call, post, type Handler } from "./helpers";
 
 /** The first message Conform's answer (`result.error`) carries for a sign-up field. */
-const fieldError = (body: unknown, name: string) => (body as { result: { error?: Record<string, string[] | null> } }).result.error?.[name]?.[0];
-
+const fieldError = (body: unknown, name: string) =>
+  (body as { result: { error?: Record<string, string[] | null> } }).result.error?.[name]?.[0];
 
 const action = signup.action as Handler;
-const form = (over: Record<string, string> = {}) => ({ name: "Wren Ashdown", email: "wren@example.com", teamName: "Ashdown Heads", password: "a sentence for the bench", ...over });
+const form = (over: Record<string, string> = {}) => ({
+  name: "Wren Ashdown",
+  email: "wren@example.com",
+  teamName: "Ashdown Heads",
+  password: "a sentence for the bench",
+  ...over,
+});
 const count = async (table: string) => Number((await db()(table).count({ n: "*" }))[0]!.n);
 
 beforeEach(() => resetThrottles());
@@ -73,13 +79,17 @@ describe("defect 5: sign-up does not tell who has an account", () => {
 describe("defect 10: two sign-ups of one e-mail at once", () => {
   it("one shop is made; the others get the taken-e-mail answer, none a 500", async () => {
     const teams = await count("teams");
-    const outs = await Promise.all(Array.from({ length: 4 }, (_, i) => call(action, post("/signup", form({ email: "race@example.com", teamName: `Race ${i}` })))));
+    const outs = await Promise.all(
+      Array.from({ length: 4 }, (_, i) => call(action, post("/signup", form({ email: "race@example.com", teamName: `Race ${i}` })))),
+    );
     expect(outs.map((o) => o.status).sort()).toEqual([302, 400, 400, 400]);
     for (const o of outs.filter((o) => o.status === 400)) expect(fieldError(o.body, "email")).toBe(signup.EMAIL_NOT_AVAILABLE);
     expect(await count("teams")).toBe(teams + 1);
   });
 
   it("the model names the UNIQUE conflict instead of passing SQLite's error up", async () => {
-    await expect(createUserWithTeam({ email: "builder@example.com", name: "Twin", password: "a sentence for the bench", teamName: "Twin" })).rejects.toBeInstanceOf(EmailTakenError);
+    await expect(
+      createUserWithTeam({ email: "builder@example.com", name: "Twin", password: "a sentence for the bench", teamName: "Twin" }),
+    ).rejects.toBeInstanceOf(EmailTakenError);
   });
 });

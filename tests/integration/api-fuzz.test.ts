@@ -26,13 +26,35 @@ beforeAll(async () => {
   const demo = await teamId(DEMO_TEAM);
   engineId = (await db()("engines").where({ team_id: demo, cylinders: 4 }).first("id")).id;
   const engine = (await getEngine(teamWide(demo), engineId))!;
-  planInput = assemblePlanInput((await planParts(demo, engine, (await listPlans(demo, engineId))[0]!))!) as unknown as Record<string, unknown>;
+  planInput = assemblePlanInput((await planParts(demo, engine, (await listPlans(demo, engineId))[0]!))!) as unknown as Record<
+    string,
+    unknown
+  >;
 }, 60_000);
 beforeEach(() => resetThrottles());
 
 const junk = fc.oneof(
   fc.jsonValue({ maxDepth: 2 }),
-  fc.constantFrom(1e9, -1, 0, 1e308, -1e308, 2 ** 53, null, "", [], {}, "2026-02-30", "2026-12-01", "held", "dyno", "measured", [1, 1], [0], [17]),
+  fc.constantFrom(
+    1e9,
+    -1,
+    0,
+    1e308,
+    -1e308,
+    2 ** 53,
+    null,
+    "",
+    [],
+    {},
+    "2026-02-30",
+    "2026-12-01",
+    "held",
+    "dyno",
+    "measured",
+    [1, 1],
+    [0],
+    [17],
+  ),
   fc.double({ noNaN: true }),
   fc.integer(),
   fc.string({ maxLength: 80 }),
@@ -49,20 +71,26 @@ function bodies(valid: Record<string, unknown>) {
   const paths = leaves(valid).filter((p) => p.length > 0);
   const edit = fc.tuple(fc.constantFrom(...paths), fc.oneof(junk, fc.constant(undefined)));
   return fc.oneof(
-    { weight: 6, arbitrary: fc.array(edit, { minLength: 0, maxLength: 3 }).map((edits) => {
-      const copy = structuredClone(valid);
-      for (const [path, value] of edits) {
-        let at = copy as Record<string, unknown>;
-        for (const k of path.slice(0, -1)) {
-          if (!at[k] || typeof at[k] !== "object") break;
-          at = at[k] as Record<string, unknown>;
+    {
+      weight: 6,
+      arbitrary: fc.array(edit, { minLength: 0, maxLength: 3 }).map((edits) => {
+        const copy = structuredClone(valid);
+        for (const [path, value] of edits) {
+          let at = copy as Record<string, unknown>;
+          for (const k of path.slice(0, -1)) {
+            if (!at[k] || typeof at[k] !== "object") break;
+            at = at[k] as Record<string, unknown>;
+          }
+          if (value === undefined) delete at[path.at(-1)!];
+          else at[path.at(-1)!] = value;
         }
-        if (value === undefined) delete at[path.at(-1)!];
-        else at[path.at(-1)!] = value;
-      }
-      return JSON.stringify(copy);
-    }) },
-    { weight: 1, arbitrary: fc.tuple(fc.string({ minLength: 1, maxLength: 12 }), junk).map(([k, v]) => JSON.stringify({ ...valid, [k]: v })) },
+        return JSON.stringify(copy);
+      }),
+    },
+    {
+      weight: 1,
+      arbitrary: fc.tuple(fc.string({ minLength: 1, maxLength: 12 }), junk).map(([k, v]) => JSON.stringify({ ...valid, [k]: v })),
+    },
     { weight: 1, arbitrary: fc.jsonValue({ maxDepth: 4 }).map((v) => JSON.stringify(v)) },
     { weight: 1, arbitrary: fc.string({ maxLength: 60 }) },
   );
@@ -71,7 +99,22 @@ function bodies(valid: Record<string, unknown>) {
 const ENDPOINTS: [string, () => Record<string, unknown>, z.ZodType][] = [
   ["/api/v1/estimate", () => ({ input: planInput, units: "metric" }), EstimateRequestSchema],
   ["/api/v1/sweep", () => ({ input: planInput, fromNm: 40, toNm: 160, points: 5 }), SweepRequestSchema],
-  ["/api/v1/runs", () => ({ engineId, ranOn: "2026-11-30", kind: "dyno", manifoldPressureKpa: 250, fuel: "E85", peakCylinderPressureMpa: 13, peakPressureSource: "estimated", outcome: "held", cylindersAffected: [], notes: "" }), RunCreateSchema],
+  [
+    "/api/v1/runs",
+    () => ({
+      engineId,
+      ranOn: "2026-11-30",
+      kind: "dyno",
+      manifoldPressureKpa: 250,
+      fuel: "E85",
+      peakCylinderPressureMpa: 13,
+      peakPressureSource: "estimated",
+      outcome: "held",
+      cylindersAffected: [],
+      notes: "",
+    }),
+    RunCreateSchema,
+  ],
 ];
 
 describe(`property: ${RUNS} generated bodies per write endpoint`, () => {
@@ -92,7 +135,12 @@ describe(`property: ${RUNS} generated bodies per write endpoint`, () => {
           } catch {
             parsed = undefined;
           }
-          const accepted = parsed !== undefined && parsed !== null && typeof parsed === "object" && !Array.isArray(parsed) && schema.safeParse(parsed).success;
+          const accepted =
+            parsed !== undefined &&
+            parsed !== null &&
+            typeof parsed === "object" &&
+            !Array.isArray(parsed) &&
+            schema.safeParse(parsed).success;
           if (!accepted) {
             expect(out.status).toBe(400);
             expect(await rowCounts()).toEqual(before);

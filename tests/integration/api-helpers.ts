@@ -113,7 +113,9 @@ export async function otherTeamEngine(): Promise<number> {
   const other = await teamId(OTHER_TEAM);
   const existing = await db()("engines").where({ team_id: other }).first("id");
   if (existing) return existing.id;
-  const demo = await db()("engines").where({ team_id: await teamId(DEMO_TEAM), cylinders: 4 }).first();
+  const demo = await db()("engines")
+    .where({ team_id: await teamId(DEMO_TEAM), cylinders: 4 })
+    .first();
   const own = async (materialId: number | null) => {
     if (materialId === null) return null;
     const name = (await db()("materials").where({ id: materialId }).first("name")).name;

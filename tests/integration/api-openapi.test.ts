@@ -17,7 +17,10 @@ import { appRoutes } from "./routes-list";
 // Loops of hundreds of requests on a shared two-core machine: generous limits (speed lives in npm run bench).
 vi.setConfig({ testTimeout: 60_000 });
 
-type Doc = { openapi: string; paths: Record<string, Record<string, { responses: Record<string, { content?: Record<string, { schema: object }> }> }>> };
+type Doc = {
+  openapi: string;
+  paths: Record<string, Record<string, { responses: Record<string, { content?: Record<string, { schema: object }> }> }>>;
+};
 let doc: Doc;
 
 beforeAll(async () => {
@@ -82,7 +85,10 @@ describe("real answers fit their documented schemas", () => {
   }
 
   it("every endpoint's success answer", async () => {
-    await api("POST", "/api/v1/runs", { token: builder, body: { engineId, ranOn: "2026-11-29", kind: "pass", outcome: "seeping", cylindersAffected: [2] } });
+    await api("POST", "/api/v1/runs", {
+      token: builder,
+      body: { engineId, ranOn: "2026-11-29", kind: "pass", outcome: "seeping", cylindersAffected: [2] },
+    });
     const samples: [string, "get" | "post", () => Promise<{ status: number; body: unknown }>][] = [
       ["/api/v1/engines", "get", () => api("GET", "/api/v1/engines", { token })],
       ["/api/v1/engines/{engineId}", "get", () => api("GET", `/api/v1/engines/${engineId}`, { token })],
@@ -91,14 +97,23 @@ describe("real answers fit their documented schemas", () => {
       ["/api/v1/estimate", "post", () => api("POST", "/api/v1/estimate", { token, body: { input } })],
       ["/api/v1/sweep", "post", () => api("POST", "/api/v1/sweep", { token, body: { input, fromNm: 30, toNm: 200, points: 9 } })],
       ["/api/v1/runs", "get", () => api("GET", "/api/v1/runs", { token })],
-      ["/api/v1/runs", "post", () => api("POST", "/api/v1/runs", { token: builder, body: { engineId, ranOn: "2026-11-30", kind: "dyno", outcome: "held" } })],
+      [
+        "/api/v1/runs",
+        "post",
+        () => api("POST", "/api/v1/runs", { token: builder, body: { engineId, ranOn: "2026-11-30", kind: "dyno", outcome: "held" } }),
+      ],
     ];
     for (const [path, method, send] of samples) {
       const out = await send();
       expect(out.status, `${method} ${path}`).toBeLessThan(300);
       check(path, method, out.status, out.body);
     }
-    expect(samples.map(([p]) => p).sort()).toEqual(Object.values(API_V1_PATHS).filter((p) => p !== "/api/v1/openapi.json").flatMap((p) => (p === "/api/v1/runs" ? [p, p] : [p])).sort());
+    expect(samples.map(([p]) => p).sort()).toEqual(
+      Object.values(API_V1_PATHS)
+        .filter((p) => p !== "/api/v1/openapi.json")
+        .flatMap((p) => (p === "/api/v1/runs" ? [p, p] : [p]))
+        .sort(),
+    );
   });
 
   it("and a schema rejects what it should (the check can fail)", () => {
@@ -110,7 +125,12 @@ describe("real answers fit their documented schemas", () => {
     const cases: [string, "get" | "post", number, () => Promise<{ status: number; body: unknown }>][] = [
       ["/api/v1/sweep", "post", 400, () => api("POST", "/api/v1/sweep", { token, body: { input, fromNm: -1, toNm: 1 } })],
       ["/api/v1/engines", "get", 401, () => api("GET", "/api/v1/engines")],
-      ["/api/v1/runs", "post", 403, () => api("POST", "/api/v1/runs", { token, body: { engineId, ranOn: "2026-11-30", kind: "dyno", outcome: "held" } })],
+      [
+        "/api/v1/runs",
+        "post",
+        403,
+        () => api("POST", "/api/v1/runs", { token, body: { engineId, ranOn: "2026-11-30", kind: "dyno", outcome: "held" } }),
+      ],
       ["/api/v1/engines/{engineId}", "get", 404, () => api("GET", "/api/v1/engines/999999", { token })],
       ["/api/v1/estimate", "post", 413, () => api("POST", "/api/v1/estimate", { token, body: { input, pad: "x".repeat(70_000) } })],
     ];

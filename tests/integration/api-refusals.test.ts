@@ -25,7 +25,10 @@ beforeAll(async () => {
   const demo = await teamId(DEMO_TEAM);
   engineId = (await db()("engines").where({ team_id: demo, cylinders: 4 }).first("id")).id;
   const engine = (await getEngine(teamWide(demo), engineId))!;
-  planInput = assemblePlanInput((await planParts(demo, engine, (await listPlans(demo, engineId))[0]!))!) as unknown as Record<string, unknown>;
+  planInput = assemblePlanInput((await planParts(demo, engine, (await listPlans(demo, engineId))[0]!))!) as unknown as Record<
+    string,
+    unknown
+  >;
 }, 60_000);
 beforeEach(() => resetThrottles());
 
@@ -45,20 +48,43 @@ describe("bad bodies: the documented status, the one error body, nothing written
       const cases: [string, Parameters<typeof api>[2], number, (b: ErrorBody) => void][] = [
         ["bad JSON", { raw: '{"input": ' }, 400, (b) => expect(b.error).toBe("The body is not valid JSON.")],
         ["an array", { raw: "[1,2]" }, 400, (b) => expect(b.error).toBe("Send a JSON object.")],
-        ["wrong content type", { raw: JSON.stringify(valid()), type: "text/plain" }, 415, (b) => expect(b.error).toMatch(/application\/json/)],
-        ["oversized", { body: { ...valid(), notes: "x".repeat(70 * 1024) } }, 413, (b) => expect(b.error).toBe("The body is larger than 64 KiB.")],
-        ["an unknown field", { body: { ...valid(), colour: "red" } }, 400, (b) => expect(b.errors).toContainEqual({ path: "colour", message: 'Unrecognized key: "colour"' })],
+        [
+          "wrong content type",
+          { raw: JSON.stringify(valid()), type: "text/plain" },
+          415,
+          (b) => expect(b.error).toMatch(/application\/json/),
+        ],
+        [
+          "oversized",
+          { body: { ...valid(), notes: "x".repeat(70 * 1024) } },
+          413,
+          (b) => expect(b.error).toBe("The body is larger than 64 KiB."),
+        ],
+        [
+          "an unknown field",
+          { body: { ...valid(), colour: "red" } },
+          400,
+          (b) => expect(b.errors).toContainEqual({ path: "colour", message: 'Unrecognized key: "colour"' }),
+        ],
       ];
       for (const [field] of Object.entries(valid())) {
         const { [field]: _gone, ...rest } = valid();
         cases.push([`missing ${field}`, { body: rest }, 400, (b) => expect(b.errors?.map((e) => e.path)).toContain(field)]);
-        cases.push([`${field} of a wrong type`, { body: { ...valid(), [field]: [true] } }, 400, (b) => expect(b.errors?.some((e) => e.path === field || e.path.startsWith(`${field}.`))).toBe(true)]);
+        cases.push([
+          `${field} of a wrong type`,
+          { body: { ...valid(), [field]: [true] } },
+          400,
+          (b) => expect(b.errors?.some((e) => e.path === field || e.path.startsWith(`${field}.`))).toBe(true),
+        ]);
       }
       for (const [what, o, status, check] of cases) {
         const out = await api("POST", path, { token: builderToken, ...o });
         expect(out.status, what).toBe(status);
         const body = out.body as ErrorBody;
-        expect(Object.keys(body).every((k) => k === "error" || k === "errors"), what).toBe(true);
+        expect(
+          Object.keys(body).every((k) => k === "error" || k === "errors"),
+          what,
+        ).toBe(true);
         check(body);
       }
       expect(await rowCounts()).toEqual(before);
@@ -66,7 +92,10 @@ describe("bad bodies: the documented status, the one error body, nothing written
   }
 
   it("sweep ranges out of bounds are field errors", async () => {
-    const out = await api("POST", "/api/v1/sweep", { token: builderToken, body: { input: planInput, fromNm: 200, toNm: 100, points: 500 } });
+    const out = await api("POST", "/api/v1/sweep", {
+      token: builderToken,
+      body: { input: planInput, fromNm: 200, toNm: 100, points: 500 },
+    });
     expect(out.status).toBe(400);
     expect((out.body as ErrorBody).errors).toEqual([
       { path: "points", message: "points is at most 201" },
@@ -94,7 +123,10 @@ describe("bad bodies: the documented status, the one error body, nothing written
 describe("tokens", () => {
   it("a revoked token is refused on the very next request", async () => {
     const cookie = await signIn(EMAIL.owner);
-    const made = await call(tokens.action as Handler, post("/settings/tokens", { intent: "create", name: "dyno laptop", role: "builder" }, cookie));
+    const made = await call(
+      tokens.action as Handler,
+      post("/settings/tokens", { intent: "create", name: "dyno laptop", role: "builder" }, cookie),
+    );
     const text = (made.body as { token: { text: string } }).token.text;
     expect(text).toMatch(/^swt_[\w-]{43}$/);
     expect((await api("GET", "/api/v1/engines", { token: text })).status).toBe(200);
@@ -111,11 +143,16 @@ describe("tokens", () => {
 
   it("is shown once: the list afterwards names it by its first characters only", async () => {
     const cookie = await signIn(EMAIL.builder);
-    const made = await call(tokens.action as Handler, post("/settings/tokens", { intent: "create", name: "spreadsheet", role: "viewer" }, cookie));
+    const made = await call(
+      tokens.action as Handler,
+      post("/settings/tokens", { intent: "create", name: "spreadsheet", role: "viewer" }, cookie),
+    );
     const text = (made.body as { token: { text: string } }).token.text;
     const page = await call(tokens.loader as Handler, get("/settings/tokens", cookie));
     expect(JSON.stringify(page.body)).not.toContain(text);
-    expect((page.body as { tokens: { name: string; prefix: string }[] }).tokens).toContainEqual(expect.objectContaining({ name: "spreadsheet", prefix: text.slice(0, 10) }));
+    expect((page.body as { tokens: { name: string; prefix: string }[] }).tokens).toContainEqual(
+      expect.objectContaining({ name: "spreadsheet", prefix: text.slice(0, 10) }),
+    );
   });
 
   it("cannot be made above the creator's role, nor revoked by someone else", async () => {
@@ -143,7 +180,9 @@ describe("Origin: cookie writes must come from our pages, token writes need not"
     const warn = vi.spyOn(console, "warn").mockImplementation(() => {});
     const before = await rowCounts();
     expect((await api("POST", "/api/v1/runs", { cookie: builderCookie, origin: null, body: validRun() })).status).toBe(403);
-    expect((await api("POST", "/api/v1/runs", { cookie: builderCookie, origin: "http://evil.example", body: validRun() })).status).toBe(403);
+    expect((await api("POST", "/api/v1/runs", { cookie: builderCookie, origin: "http://evil.example", body: validRun() })).status).toBe(
+      403,
+    );
     expect(await rowCounts()).toEqual(before);
     warn.mockRestore();
     expect((await api("POST", "/api/v1/runs", { cookie: builderCookie, body: validRun() })).status).toBe(201);
@@ -158,11 +197,13 @@ describe("rate limits", () => {
   it("one token: 240 a minute, then 429 with Retry-After", async () => {
     const t = await tokenFor(EMAIL.viewer);
     const statuses: number[] = [];
-    for (let i = 0; i < 241; i++) statuses.push((await api("GET", "/api/v1/openapi.json", { token: t, address: `10.1.${i >> 8}.${i & 255}` })).status);
+    for (let i = 0; i < 241; i++)
+      statuses.push((await api("GET", "/api/v1/openapi.json", { token: t, address: `10.1.${i >> 8}.${i & 255}` })).status);
     // the document is public and never throttled: count with a read that authenticates
     resetThrottles();
     statuses.length = 0;
-    for (let i = 0; i < 241; i++) statuses.push((await api("GET", `/api/v1/engines/${engineId}`, { token: t, address: `10.2.${i >> 8}.${i & 255}` })).status);
+    for (let i = 0; i < 241; i++)
+      statuses.push((await api("GET", `/api/v1/engines/${engineId}`, { token: t, address: `10.2.${i >> 8}.${i & 255}` })).status);
     expect(statuses.slice(0, 240).every((s) => s === 200)).toBe(true);
     const last = await api("GET", `/api/v1/engines/${engineId}`, { token: t, address: "10.3.0.1" });
     expect(statuses[240]).toBe(429);
@@ -170,12 +211,15 @@ describe("rate limits", () => {
     expect(Number(last.headers.get("Retry-After"))).toBe(10);
     expect((last.body as ErrorBody).error).toBe("Too many requests; try again in 10 seconds.");
     // another token of the same person is its own budget
-    expect((await api("GET", `/api/v1/engines/${engineId}`, { token: await tokenFor(EMAIL.viewer), address: "10.3.0.2" })).status).toBe(200);
+    expect((await api("GET", `/api/v1/engines/${engineId}`, { token: await tokenFor(EMAIL.viewer), address: "10.3.0.2" })).status).toBe(
+      200,
+    );
   });
 
   it("one address: 600 a minute, counted before any token is looked up", async () => {
     const statuses: number[] = [];
-    for (let i = 0; i < 601; i++) statuses.push((await api("GET", "/api/v1/engines", { token: `swt_guess${i}`, address: "203.0.113.50" })).status);
+    for (let i = 0; i < 601; i++)
+      statuses.push((await api("GET", "/api/v1/engines", { token: `swt_guess${i}`, address: "203.0.113.50" })).status);
     expect(statuses.slice(0, 600).every((s) => s === 401)).toBe(true);
     expect(statuses[600]).toBe(429);
   });

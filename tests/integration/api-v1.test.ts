@@ -39,7 +39,16 @@ beforeAll(async () => {
 }, 60_000);
 beforeEach(() => resetThrottles());
 
-const run = () => ({ engineId, ranOn: "2026-11-30", kind: "dyno", manifoldPressureKpa: 260, fuel: "E85", outcome: "held", cylindersAffected: [], notes: "test pull" });
+const run = () => ({
+  engineId,
+  ranOn: "2026-11-30",
+  kind: "dyno",
+  manifoldPressureKpa: 260,
+  fuel: "E85",
+  outcome: "held",
+  cylindersAffected: [],
+  notes: "test pull",
+});
 
 // [method, path, body] → expected status for viewer, builder, owner, otherTeam
 const ENDPOINTS: [string, () => [method: "GET" | "POST", path: string, body?: unknown], [number, number, number, number]][] = [
@@ -62,7 +71,8 @@ describe("every endpoint × role × credential", () => {
         for (const [i, p] of PEOPLE.entries()) {
           const [method, path, body] = make();
           const out = await api(method, path, via === "token" ? { token: token[p], body } : { cookie: cookie[p], body });
-          if (out.status !== want[i]) wrong.push(`${name} as ${p}: ${out.status} ${JSON.stringify(out.body).slice(0, 120)}, expected ${want[i]}`);
+          if (out.status !== want[i])
+            wrong.push(`${name} as ${p}: ${out.status} ${JSON.stringify(out.body).slice(0, 120)}, expected ${want[i]}`);
         }
       }
       expect(wrong).toEqual([]);
@@ -125,12 +135,28 @@ describe("what the reads say", () => {
     expect(e).toMatchObject({ id: engineId, cylinders: 4, boreMm: row.bore_mm });
     expect(e.teamId).toBeUndefined();
     const plan = await api("GET", `/api/v1/engines/${engineId}/plans/${planId}`, { token: token.viewer });
-    const p = plan.body as { plan: { torqueNm: number }; input: unknown; estimate: { torqueNm: number; sweep: unknown[] }; problems: string[] };
+    const p = plan.body as {
+      plan: { torqueNm: number };
+      input: unknown;
+      estimate: { torqueNm: number; sweep: unknown[] };
+      problems: string[];
+    };
     expect(p.problems).toEqual([]);
-    expect(p.input).toEqual(JSON.parse(JSON.stringify((await import("~/lib/clamp")).parsePlan(planInput as never).ok ? ((await import("~/lib/clamp")).parsePlan(planInput as never) as { plan: unknown }).plan : null)));
+    expect(p.input).toEqual(
+      JSON.parse(
+        JSON.stringify(
+          (await import("~/lib/clamp")).parsePlan(planInput as never).ok
+            ? ((await import("~/lib/clamp")).parsePlan(planInput as never) as { plan: unknown }).plan
+            : null,
+        ),
+      ),
+    );
     expect(p.estimate.torqueNm).toBeCloseTo(p.plan.torqueNm, 9);
     const direct = await api("POST", "/api/v1/estimate", { token: token.viewer, body: { input: p.input } });
-    expect((direct.body as { estimate: { weakestMargin: number } }).estimate.weakestMargin).toBeCloseTo((p.estimate as unknown as { estimate: { weakestMargin: number } }).estimate.weakestMargin, 12);
+    expect((direct.body as { estimate: { weakestMargin: number } }).estimate.weakestMargin).toBeCloseTo(
+      (p.estimate as unknown as { estimate: { weakestMargin: number } }).estimate.weakestMargin,
+      12,
+    );
   });
 
   it("a sweep gives one point per step from fromNm to toNm", async () => {
@@ -170,7 +196,11 @@ describe("what the reads say", () => {
 
   it("runs page by cursor, newest first, and filter by outcome and date", async () => {
     await db()("runs").where({ team_id: demoTeam }).delete();
-    for (const [ranOn, outcome] of [["2026-10-01", "held"], ["2026-10-02", "seeping"], ["2026-10-03", "held"]]) {
+    for (const [ranOn, outcome] of [
+      ["2026-10-01", "held"],
+      ["2026-10-02", "seeping"],
+      ["2026-10-03", "held"],
+    ]) {
       expect((await api("POST", "/api/v1/runs", { token: token.builder, body: { ...run(), ranOn, outcome } })).status).toBe(201);
     }
     const first = await api("GET", "/api/v1/runs?limit=2", { token: token.viewer });
@@ -185,9 +215,19 @@ describe("what the reads say", () => {
 
   it("a logged run is stored as sent, with its audit row", async () => {
     const before = await rowCounts();
-    const out = await api("POST", "/api/v1/runs", { token: token.builder, body: { ...run(), outcome: "lifted-head", cylindersAffected: [3, 4], peakCylinderPressureMpa: 14.5, peakPressureSource: "measured" } });
+    const out = await api("POST", "/api/v1/runs", {
+      token: token.builder,
+      body: { ...run(), outcome: "lifted-head", cylindersAffected: [3, 4], peakCylinderPressureMpa: 14.5, peakPressureSource: "measured" },
+    });
     expect(out.status).toBe(201);
-    expect(out.body).toMatchObject({ engineId, outcome: "lifted-head", cylindersAffected: [3, 4], peakCylinderPressureMpa: 14.5, peakPressureSource: "measured", manifoldPressureKpa: 260 });
+    expect(out.body).toMatchObject({
+      engineId,
+      outcome: "lifted-head",
+      cylindersAffected: [3, 4],
+      peakCylinderPressureMpa: 14.5,
+      peakPressureSource: "measured",
+      manifoldPressureKpa: 260,
+    });
     const after = await rowCounts();
     expect(after.runs).toBe(before.runs! + 1);
     expect(after.audit_events).toBe(before.audit_events! + 1);
@@ -199,7 +239,9 @@ describe("the run's cylinders belong to its engine", () => {
     const before = await rowCounts();
     const out = await api("POST", "/api/v1/runs", { token: token.builder, body: { ...run(), cylindersAffected: [5] } });
     expect(out.status).toBe(400);
-    expect((out.body as { errors: unknown[] }).errors).toEqual([{ path: "cylindersAffected", message: "the engine has 4 cylinders; there is no cylinder 5" }]);
+    expect((out.body as { errors: unknown[] }).errors).toEqual([
+      { path: "cylindersAffected", message: "the engine has 4 cylinders; there is no cylinder 5" },
+    ]);
     expect(await rowCounts()).toEqual(before);
   });
 });

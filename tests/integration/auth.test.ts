@@ -8,8 +8,8 @@ import { hashSessionId } from "~/utils/session.server";
 import { call, cookiePair, get, post, signIn, type Handler } from "./helpers";
 
 /** The first message Conform's answer (`result.error`) carries for a sign-up field. */
-const fieldError = (body: unknown, name: string) => (body as { result: { error?: Record<string, string[] | null> } }).result.error?.[name]?.[0];
-
+const fieldError = (body: unknown, name: string) =>
+  (body as { result: { error?: Record<string, string[] | null> } }).result.error?.[name]?.[0];
 
 const loginAction = login.action as Handler;
 
@@ -26,7 +26,10 @@ function sessionIdFromCookie(pair: string): string {
 
 describe("sign-in", () => {
   it("signs the demo builder in and lands on the page asked for", async () => {
-    const out = await call(loginAction, post("/login?redirectTo=%2Fsettings", { email: "builder@example.com", password: "sealwright-demo" }));
+    const out = await call(
+      loginAction,
+      post("/login?redirectTo=%2Fsettings", { email: "builder@example.com", password: "sealwright-demo" }),
+    );
     expect(out.status).toBe(302);
     expect(out.location).toBe("/settings");
     expect(out.setCookie).toMatch(/HttpOnly/i);
@@ -44,7 +47,10 @@ describe("sign-in", () => {
   });
 
   it("never redirects off-site after sign-in", async () => {
-    const out = await call(loginAction, post("/login?redirectTo=%2F%2Fevil.example", { email: "owner@example.com", password: "sealwright-demo" }));
+    const out = await call(
+      loginAction,
+      post("/login?redirectTo=%2F%2Fevil.example", { email: "owner@example.com", password: "sealwright-demo" }),
+    );
     expect(out.location).toBe("/dashboard");
   });
 
@@ -57,8 +63,16 @@ describe("sign-in", () => {
     expect(secondId).not.toBe(firstId);
     // 32 random bytes, base64url: 43 characters, 256 bits.
     expect(secondId).toMatch(/^[A-Za-z0-9_-]{43}$/);
-    expect(await db()("sessions").where({ id_hash: hashSessionId(firstId) }).first()).toBeUndefined();
-    expect(await db()("sessions").where({ id_hash: hashSessionId(secondId) }).first()).toBeDefined();
+    expect(
+      await db()("sessions")
+        .where({ id_hash: hashSessionId(firstId) })
+        .first(),
+    ).toBeUndefined();
+    expect(
+      await db()("sessions")
+        .where({ id_hash: hashSessionId(secondId) })
+        .first(),
+    ).toBeDefined();
   });
 
   it("stores only the hash of the session id", async () => {
@@ -70,7 +84,9 @@ describe("sign-in", () => {
   it("expires a session idle longer than the idle timeout", async () => {
     const pair = await signIn("builder@example.com");
     const idHash = hashSessionId(sessionIdFromCookie(pair));
-    await db()("sessions").where({ id_hash: idHash }).update({ last_seen_at: new Date(Date.now() - 13 * 3_600_000).toISOString() });
+    await db()("sessions")
+      .where({ id_hash: idHash })
+      .update({ last_seen_at: new Date(Date.now() - 13 * 3_600_000).toISOString() });
     const out = await call(dashboard.loader as Handler, get("/dashboard", pair));
     expect(out.status).toBe(302);
     expect(out.location).toMatch(/^\/login/);
@@ -96,7 +112,10 @@ describe("sign-up", () => {
   const action = signup.action as Handler;
 
   it("creates a person and a team they own, hashed with argon2id", async () => {
-    const out = await call(action, post("/signup", { name: "Pell Dunmore", email: "Pell@Example.com", teamName: "Dunmore Race Heads", password: "long enough pass" }));
+    const out = await call(
+      action,
+      post("/signup", { name: "Pell Dunmore", email: "Pell@Example.com", teamName: "Dunmore Race Heads", password: "long enough pass" }),
+    );
     expect(out.status).toBe(302);
     const user = await db()("users").where({ email: "pell@example.com" }).first();
     expect(user.password_hash).toMatch(/^\$argon2id\$v=19\$m=19456,p=1,t=2\$/);
@@ -106,7 +125,10 @@ describe("sign-up", () => {
   });
 
   it("accepts a 64-character password", async () => {
-    const out = await call(action, post("/signup", { name: "Long Pass", email: "long@example.com", teamName: "Long Team", password: "x".repeat(64) }));
+    const out = await call(
+      action,
+      post("/signup", { name: "Long Pass", email: "long@example.com", teamName: "Long Team", password: "x".repeat(64) }),
+    );
     expect(out.status).toBe(302);
   });
 
@@ -125,7 +147,10 @@ describe("sign-up", () => {
   });
 
   it("refuses an e-mail that already has an account", async () => {
-    const out = await call(action, post("/signup", { name: "Again", email: "owner@example.com", teamName: "Again", password: "long enough pass" }));
+    const out = await call(
+      action,
+      post("/signup", { name: "Again", email: "owner@example.com", teamName: "Again", password: "long enough pass" }),
+    );
     expect(out.status).toBe(400);
     // the same words a second sign-up racing the first gets (tests/integration/accounts.test.ts)
     expect(fieldError(out.body, "email")).toBe(signup.EMAIL_NOT_AVAILABLE);

@@ -42,7 +42,10 @@ describe("team export (owners)", () => {
     for (const table of ["materials", "fasteners", "gaskets", "engines", "seal_plans", "audit_events"]) {
       const rows = await db()(table).where({ team_id: teamId }).count({ n: "*" });
       expect(body.tables[table], table).toHaveLength(Number(rows[0]!.n));
-      expect(body.tables[table]!.every((r) => r.team_id === teamId), table).toBe(true);
+      expect(
+        body.tables[table]!.every((r) => r.team_id === teamId),
+        table,
+      ).toBe(true);
     }
     expect(body.tables.engines).toHaveLength(3);
     const text = JSON.stringify(body);

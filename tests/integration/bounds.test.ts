@@ -35,10 +35,29 @@ const hugeText = fc.oneof(
 
 function engineForm(cylinders: string, serve: string): Record<string, string> {
   const fields: Record<string, string> = {
-    intent: "save", name: "Huge", customer: "", status: "quoted", cylinders, layout: "inline", boreMm: "86", strokeMm: "86",
-    headThicknessAtStudMm: "100", blockDepthToThreadMm: "15", blockMaterialId: String(iron), headMaterialId: String(alu),
-    sleeveKind: "none", sleeveProtrusionMm: "0", fuel: "", targetManifoldKpa: "350", peakPressureSource: "estimated",
-    pressureRiseFactor: "3", runningHeadC: "110", runningBlockC: "95", pistonVolumeCc: "0", deckClearanceMm: "0", notes: "",
+    intent: "save",
+    name: "Huge",
+    customer: "",
+    status: "quoted",
+    cylinders,
+    layout: "inline",
+    boreMm: "86",
+    strokeMm: "86",
+    headThicknessAtStudMm: "100",
+    blockDepthToThreadMm: "15",
+    blockMaterialId: String(iron),
+    headMaterialId: String(alu),
+    sleeveKind: "none",
+    sleeveProtrusionMm: "0",
+    fuel: "",
+    targetManifoldKpa: "350",
+    peakPressureSource: "estimated",
+    pressureRiseFactor: "3",
+    runningHeadC: "110",
+    runningBlockC: "95",
+    pistonVolumeCc: "0",
+    deckClearanceMm: "0",
+    notes: "",
   };
   defaultStudPattern("inline", 4).forEach((s, i) => {
     const row = studToRow(s);
@@ -61,12 +80,16 @@ describe("huge counts through the routes", () => {
       fc.asyncProperty(hugeText, hugeText, fc.boolean(), async (cylinders, serve, editing) => {
         const t0 = performance.now();
         const out = editing
-          ? await call(engineEdit.action as Handler, post(`/engines/${engineId}/edit`, engineForm(cylinders, serve), builder), { engineId: String(engineId) })
+          ? await call(engineEdit.action as Handler, post(`/engines/${engineId}/edit`, engineForm(cylinders, serve), builder), {
+              engineId: String(engineId),
+            })
           : await call(engineNew.action as Handler, post("/engines/new", engineForm(cylinders, serve), builder));
         expect(performance.now() - t0).toBeLessThan(1000);
         expect(out.status).toBe(400);
         // zod calls a number past 2⁵³ not whole; either way the count's own message, alone
-        expect((out.body as { errors: Record<string, string> }).errors.cylinders).toMatch(/^(At most 16 cylinders|Cylinder count is a whole number)$/);
+        expect((out.body as { errors: Record<string, string> }).errors.cylinders).toMatch(
+          /^(At most 16 cylinders|Cylinder count is a whole number)$/,
+        );
       }),
       { numRuns: 60 },
     );
@@ -78,15 +101,25 @@ describe("huge counts through the routes", () => {
     const plan = (await listPlans(teamId, engineId))[0]!;
     const input = assemblePlanInput((await planParts(teamId, engine, plan))!);
     await fc.assert(
-      fc.asyncProperty(fc.oneof(fc.constantFrom(1e9, 1e8, 2 ** 31, Number.MAX_SAFE_INTEGER), fc.integer({ min: 17, max: 2_000_000_000 })), fc.constantFrom("inline", "V"), async (cylinders, layout) => {
-        const body = JSON.stringify({ input: { ...input, engine: { ...input.engine, cylinders, layout } } });
-        const request = new Request(`${ORIGIN}/api/v1/estimate`, { method: "POST", headers: { "Content-Type": "application/json", Origin: ORIGIN, Cookie: builder }, body });
-        const t0 = performance.now();
-        const out = await call(estimateApi.action as Handler, request);
-        expect(performance.now() - t0).toBeLessThan(1000);
-        expect(out.status).toBe(400);
-        expect((out.body as { errors: { path: string; message: string }[] }).errors).toEqual([{ path: "input.engine.cylinders", message: "At most 16 cylinders" }]);
-      }),
+      fc.asyncProperty(
+        fc.oneof(fc.constantFrom(1e9, 1e8, 2 ** 31, Number.MAX_SAFE_INTEGER), fc.integer({ min: 17, max: 2_000_000_000 })),
+        fc.constantFrom("inline", "V"),
+        async (cylinders, layout) => {
+          const body = JSON.stringify({ input: { ...input, engine: { ...input.engine, cylinders, layout } } });
+          const request = new Request(`${ORIGIN}/api/v1/estimate`, {
+            method: "POST",
+            headers: { "Content-Type": "application/json", Origin: ORIGIN, Cookie: builder },
+            body,
+          });
+          const t0 = performance.now();
+          const out = await call(estimateApi.action as Handler, request);
+          expect(performance.now() - t0).toBeLessThan(1000);
+          expect(out.status).toBe(400);
+          expect((out.body as { errors: { path: string; message: string }[] }).errors).toEqual([
+            { path: "input.engine.cylinders", message: "At most 16 cylinders" },
+          ]);
+        },
+      ),
       { numRuns: 60 },
     );
   });

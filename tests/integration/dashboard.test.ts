@@ -33,7 +33,13 @@ describe("dashboard", () => {
     try {
       const d = await load(builder);
       expect(d.atRisk).toHaveLength(1);
-      expect(d.atRisk[0]).toMatchObject({ engineName: "Number 47 crew straight six", planName: slick.name, status: "short", planId: slick.id, engineId: six.id });
+      expect(d.atRisk[0]).toMatchObject({
+        engineName: "Number 47 crew straight six",
+        planName: slick.name,
+        status: "short",
+        planId: slick.id,
+        engineId: six.id,
+      });
       expect(d.atRisk[0]!.headline).toMatch(/^Stud past yield/);
       // another shop never sees it
       expect((await load(other)).atRisk).toEqual([]);
@@ -46,7 +52,12 @@ describe("dashboard", () => {
     const plan = await db()("seal_plans").orderBy("id").first();
     const team = plan.team_id;
     const [{ id }] = await db()("audit_events")
-      .insert({ team_id: team, action: "plan.updated", detail: JSON.stringify({ engineId: plan.engine_id, planId: plan.id, name: plan.name }), created_at: new Date().toISOString() })
+      .insert({
+        team_id: team,
+        action: "plan.updated",
+        detail: JSON.stringify({ engineId: plan.engine_id, planId: plan.id, name: plan.name }),
+        created_at: new Date().toISOString(),
+      })
       .returning("id");
     try {
       const row = (await load(builder)).events.find((e) => e.action === "plan.updated");

@@ -79,11 +79,17 @@ describe("the demo seed", () => {
   it("no chosen plan is short, and no plan at the stud maker's own torque and lubricant puts the stud past yield", async () => {
     const { estimated } = await demo();
     for (const x of estimated.filter((x) => x.chosen)) expect(x.result.view.estimate.verdict.status, x.plan.name).not.toBe("short");
-    const atMaker = estimated.filter((x) => x.result.fastener.makerTorqueNm !== null && Math.abs(x.plan.torqueNm - x.result.fastener.makerTorqueNm) < 1 && x.plan.threadFriction === x.result.fastener.threadFriction);
+    const atMaker = estimated.filter(
+      (x) =>
+        x.result.fastener.makerTorqueNm !== null &&
+        Math.abs(x.plan.torqueNm - x.result.fastener.makerTorqueNm) < 1 &&
+        x.plan.threadFriction === x.result.fastener.threadFriction,
+    );
     expect(atMaker.length).toBeGreaterThanOrEqual(5);
     for (const x of atMaker) {
       const checks = x.result.view.estimate.verdict.checks;
-      for (const id of ["stud-assembly", "stud-working"]) expect(checks.find((c) => c.id === id)!.status, `${x.plan.name}: ${id}`).not.toBe("short");
+      for (const id of ["stud-assembly", "stud-working"])
+        expect(checks.find((c) => c.id === id)!.status, `${x.plan.name}: ${id}`).not.toBe("short");
     }
   });
 
@@ -182,7 +188,10 @@ describe("the demo viewer", () => {
     const { listEngines } = await import("~/models/engine.server");
     const team = await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id");
     const viewer = await db()("users").where({ email: "viewer@example.com" }).first("id");
-    const shares = await db()("engine_shares as s").join("engines as e", "e.id", "s.engine_id").where("s.team_id", team.id).select("e.name", "s.user_id");
+    const shares = await db()("engine_shares as s")
+      .join("engines as e", "e.id", "s.engine_id")
+      .where("s.team_id", team.id)
+      .select("e.name", "s.user_id");
     expect(shares).toEqual([{ name: "Fenwick-Oddy 2.0 four", user_id: viewer.id }]);
     const seen = await listEngines({ teamId: team.id, userId: viewer.id, role: "viewer" });
     expect(seen.rows.map((r) => r.name)).toEqual(["Fenwick-Oddy 2.0 four"]);

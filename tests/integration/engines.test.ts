@@ -73,8 +73,7 @@ function fourForm(over: Record<string, string> = {}): Record<string, string> {
 }
 
 const engineCount = async () => Number((await db()("engines").count({ n: "*" }))[0]!.n);
-const demoEngineIds = async (): Promise<number[]> =>
-  db()("engines").where({ team_id: demoTeamId }).whereNull("archived_at").pluck("id");
+const demoEngineIds = async (): Promise<number[]> => db()("engines").where({ team_id: demoTeamId }).whereNull("archived_at").pluck("id");
 
 describe("creating an engine", () => {
   it("saves the record in SI, audits it and sends the builder to the engine page with a toast", async () => {
@@ -219,7 +218,13 @@ describe("creating an engine", () => {
       h(create.action),
       post(
         "/engines/new",
-        fourForm({ name: "Extra stud four", "stud-1-shares": "1/2 1/2", "stud-10-label": "X1", "stud-10-cylinders": "2 3", "stud-10-shares": "½ ½" }),
+        fourForm({
+          name: "Extra stud four",
+          "stud-1-shares": "1/2 1/2",
+          "stud-10-label": "X1",
+          "stud-10-cylinders": "2 3",
+          "stud-10-shares": "½ ½",
+        }),
         builder,
       ),
     );
@@ -227,7 +232,13 @@ describe("creating an engine", () => {
     const row = await db()("engines").where({ name: "Extra stud four" }).first("studs");
     const studs = JSON.parse(row.studs);
     expect(studs).toHaveLength(11);
-    expect(studs[10]).toEqual({ label: "X1", serves: [{ cylinder: 2, share: 0.5 }, { cylinder: 3, share: 0.5 }] });
+    expect(studs[10]).toEqual({
+      label: "X1",
+      serves: [
+        { cylinder: 2, share: 0.5 },
+        { cylinder: 3, share: 0.5 },
+      ],
+    });
   });
 
   it("refuses another shop's material", async () => {

@@ -80,16 +80,10 @@ const junkText = fc.oneof(
 /** A form: the route's own valid form with fields dropped, replaced and added at random. */
 function formArb(base: Record<string, string>) {
   const keys = Object.keys(base);
-  const key = fc.oneof(
-    fc.constantFrom(...(keys.length ? keys : ["x"]), "intent"),
-    fc.string({ maxLength: 12 }),
-  );
+  const key = fc.oneof(fc.constantFrom(...(keys.length ? keys : ["x"]), "intent"), fc.string({ maxLength: 12 }));
   return fc
     .tuple(
-      fc.oneof(
-        { weight: 3, arbitrary: fc.constant(keys) },
-        { weight: 1, arbitrary: fc.subarray(keys) },
-      ),
+      fc.oneof({ weight: 3, arbitrary: fc.constant(keys) }, { weight: 1, arbitrary: fc.subarray(keys) }),
       fc.array(fc.tuple(key, junkText), { maxLength: 8 }),
       fc.boolean(),
     )
@@ -108,16 +102,11 @@ function formArb(base: Record<string, string>) {
 function apiArb(input: unknown) {
   const leaves: string[][] = [];
   const walk = (v: unknown, path: string[]) => {
-    if (v && typeof v === "object")
-      for (const [k, c] of Object.entries(v)) walk(c, [...path, k]);
+    if (v && typeof v === "object") for (const [k, c] of Object.entries(v)) walk(c, [...path, k]);
     else leaves.push(path);
   };
   walk(input, []);
-  const junk = fc.oneof(
-    fc.jsonValue({ maxDepth: 2 }),
-    fc.constantFrom(1e9, -1, 0, 1e308, -1e308, 2 ** 53, null, "", [], {}),
-    fc.double(),
-  );
+  const junk = fc.oneof(fc.jsonValue({ maxDepth: 2 }), fc.constantFrom(1e9, -1, 0, 1e308, -1e308, 2 ** 53, null, "", [], {}), fc.double());
   return fc.oneof(
     fc.tuple(fc.constantFrom(...leaves), junk).map(([path, v]) => {
       const copy = structuredClone(input) as Record<string, unknown>;
@@ -159,14 +148,8 @@ beforeAll(async () => {
   routes = await appRoutes();
   builder = await signIn("builder@example.com");
   owner = await signIn("owner@example.com");
-  const teamId = (
-    await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")
-  ).id;
-  const engine = (await getEngine(
-    teamWide(teamId),
-    (await db()("engines").where({ team_id: teamId, cylinders: 4 }).first("id"))
-      .id,
-  ))!;
+  const teamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+  const engine = (await getEngine(teamWide(teamId), (await db()("engines").where({ team_id: teamId, cylinders: 4 }).first("id")).id))!;
   const plan = (await listPlans(teamId, engine.id))[0]!;
   const gasket = await db()("gaskets").where({ team_id: teamId }).first("id");
   const otherEngine = await db()("engines").where({ team_id: teamId }).whereNot({ id: engine.id }).first("id");
@@ -204,10 +187,7 @@ beforeAll(async () => {
   );
   const planForm = {
     intent: "estimate",
-    ...((await loaderValues("routes/plans/editor")).values as Record<
-      string,
-      string
-    >),
+    ...((await loaderValues("routes/plans/editor")).values as Record<string, string>),
   };
   const gasketForm = {
     intent: "save",
@@ -243,8 +223,28 @@ beforeAll(async () => {
     "routes/engines/build-sheet": { viewerId: String(viewerId), note: "" },
     "routes/engines/sharing": { viewerId: String(viewerId), shared: "true" },
     "routes/app/tokens": { intent: "create", name: "fuzz token", role: "viewer" },
-    "routes/engines/assembly": { planId: String(plan.id), assembledOn: "2026-11-30", assembledBy: "Fuzz Builder", lubricant: "moly", measuredProtrusionMm: "0.1", gasketCompressedMm: "1.1", notes: "", ...Object.fromEntries(plan.stagesNm.map((s, i) => [`stage-${i}-reached`, String(s)])), "stretch-0": "0.35" },
-    "routes/engines/runs": { ranOn: "2026-11-30", kind: "dyno", manifoldPressureKpa: "250", fuel: "E85", peakCylinderPressureMpa: "", outcome: "seeping", cylindersAffected: "2", notes: "", teardownFindings: "" },
+    "routes/engines/assembly": {
+      planId: String(plan.id),
+      assembledOn: "2026-11-30",
+      assembledBy: "Fuzz Builder",
+      lubricant: "moly",
+      measuredProtrusionMm: "0.1",
+      gasketCompressedMm: "1.1",
+      notes: "",
+      ...Object.fromEntries(plan.stagesNm.map((s, i) => [`stage-${i}-reached`, String(s)])),
+      "stretch-0": "0.35",
+    },
+    "routes/engines/runs": {
+      ranOn: "2026-11-30",
+      kind: "dyno",
+      manifoldPressureKpa: "250",
+      fuel: "E85",
+      peakCylinderPressureMpa: "",
+      outcome: "seeping",
+      cylindersAffected: "2",
+      notes: "",
+      teardownFindings: "",
+    },
     "routes/engines/files-upload": { returnTo: `/engines/${engine.id}/files` },
   });
   // importing every route module and signing in takes a while on a loaded machine
@@ -267,11 +267,7 @@ function context() {
   return c;
 }
 
-async function send(
-  route: RouteInfo,
-  body: string | { form: [string, string][]; multipart: boolean },
-  cookie: string,
-) {
+async function send(route: RouteInfo, body: string | { form: [string, string][]; multipart: boolean }, cookie: string) {
   const { url, params } = fill(route.path, values);
   const headers = new Headers({ Origin: ORIGIN });
   if (cookie) headers.set("Cookie", cookie);
@@ -293,8 +289,7 @@ async function send(
     body: payload,
   });
   const ctx = context();
-  const action = ((args: Record<string, unknown>) =>
-    route.action!({ ...args, context: ctx })) as Handler;
+  const action = ((args: Record<string, unknown>) => route.action!({ ...args, context: ctx })) as Handler;
   return through(action, request, params);
 }
 
@@ -340,9 +335,7 @@ export function fuzzRoutes(ids: string[]) {
         .filter((r) => r.action)
         .map((r) => r.id)
         .sort();
-      expect([...FUZZ_GROUPS.accounts, ...FUZZ_GROUPS.plans].sort()).toEqual(
-        actions,
-      );
+      expect([...FUZZ_GROUPS.accounts, ...FUZZ_GROUPS.plans].sort()).toEqual(actions);
     });
 
     for (const id of ids) {
@@ -387,9 +380,7 @@ export function fuzzRoutes(ids: string[]) {
         expect(rowsOf(await db().raw("select conname from pg_constraint where not convalidated"))).toEqual([]);
         return;
       }
-      expect(await db().raw("pragma integrity_check")).toEqual([
-        { integrity_check: "ok" },
-      ]);
+      expect(await db().raw("pragma integrity_check")).toEqual([{ integrity_check: "ok" }]);
       expect(await db().raw("pragma foreign_key_check")).toEqual([]);
     });
   });

@@ -5,7 +5,6 @@ import * as teamSwitch from "~/routes/app/team-switch";
 import { db } from "~/utils/db.server";
 import { call, EMAIL, get, post, signIn, WHO, type Handler, type Who } from "./helpers";
 
-
 let demoTeamId = 0;
 const cookies: Partial<Record<Who, string>> = {};
 
@@ -46,7 +45,10 @@ describe("team switching", () => {
     const other = await db()("teams").whereNot({ id: demoTeamId }).first("id");
     await db()("memberships").insert({ user_id: user.id, team_id: other.id, role: "viewer", created_at: new Date().toISOString() });
     const cookie = await signIn("builder@example.com");
-    const out = await call(teamSwitch.action as Handler, post("/team/switch", { teamId: String(other.id), returnTo: "/dashboard" }, cookie));
+    const out = await call(
+      teamSwitch.action as Handler,
+      post("/team/switch", { teamId: String(other.id), returnTo: "/dashboard" }, cookie),
+    );
     expect(out.status).toBe(302);
     const shell = await call(layout.loader as Handler, get("/dashboard", cookie));
     const body = shell.body as { team: { id: number }; role: string; nav: { to: string }[] };

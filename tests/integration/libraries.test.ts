@@ -27,7 +27,8 @@ beforeAll(async () => {
 const h = (fn: unknown) => fn as Handler;
 const listPage = (kind: string, cookie: string, query = "") => call(h(list.loader), get(`/libraries/${kind}${query}`, cookie), { kind });
 const newPage = (kind: string, cookie: string) => call(h(edit.loader), get(`/libraries/${kind}/new`, cookie), { kind });
-const editPage = (kind: string, id: number, cookie: string) => call(h(edit.loader), get(`/libraries/${kind}/${id}`, cookie), { kind, itemId: String(id) });
+const editPage = (kind: string, id: number, cookie: string) =>
+  call(h(edit.loader), get(`/libraries/${kind}/${id}`, cookie), { kind, itemId: String(id) });
 const create = (kind: string, fields: Record<string, string>, cookie: string) =>
   call(h(edit.action), post(`/libraries/${kind}/new`, { intent: "save", ...fields }, cookie), { kind });
 const update = (kind: string, id: number, fields: Record<string, string>, cookie: string) =>
@@ -172,7 +173,9 @@ describe("create, edit, archive", () => {
 
     expect((await update("materials", row.id, { intent: "unarchive" }, cookies.builder)).status).toBe(302);
     expect((await db()("materials").where({ id: row.id }).first()).archived_at).toBeNull();
-    const actions = (await db()("audit_events").where({ team_id: teamId }).whereLike("action", "material.%")).map((a: { action: string }) => a.action);
+    const actions = (await db()("audit_events").where({ team_id: teamId }).whereLike("action", "material.%")).map(
+      (a: { action: string }) => a.action,
+    );
     expect(actions).toEqual(expect.arrayContaining(["material.created", "material.updated", "material.archived", "material.unarchived"]));
   });
 
@@ -180,9 +183,17 @@ describe("create, edit, archive", () => {
     const out = await create("fasteners", fastener(), cookies.builder);
     expect(out.status).toBe(302);
     const row = await db()("fasteners").where({ team_id: teamId, name: "Shop test: M11×1.5 stud" }).first();
-    expect(row).toMatchObject({ diameter_mm: 11, pitch_mm: 1.5, maker_torque_nm: 120, maker_lubricant: "Moly assembly paste", material_id: studSteelId });
+    expect(row).toMatchObject({
+      diameter_mm: 11,
+      pitch_mm: 1.5,
+      maker_torque_nm: 120,
+      maker_lubricant: "Moly assembly paste",
+      material_id: studSteelId,
+    });
     expect(row.reduced_shank_diameter_mm).toBeNull();
-    expect((await update("fasteners", row.id, { intent: "save", ...fastener({ makerTorqueNm: "125" }) }, cookies.builder)).status).toBe(302);
+    expect((await update("fasteners", row.id, { intent: "save", ...fastener({ makerTorqueNm: "125" }) }, cookies.builder)).status).toBe(
+      302,
+    );
     expect((await db()("fasteners").where({ id: row.id }).first()).maker_torque_nm).toBe(125);
     expect((await update("fasteners", row.id, { intent: "archive" }, cookies.builder)).status).toBe(302);
     expect((await db()("fasteners").where({ id: row.id }).first()).archived_at).not.toBeNull();
@@ -195,7 +206,9 @@ describe("create, edit, archive", () => {
     expect(row.ring_modulus_mpa).toBeCloseTo(193_000, 9);
     expect(row.body_modulus_mpa).toBeCloseTo(5_000, 9);
     expect(row.finish_max_ra_um).toBe(1.3);
-    expect((await update("gaskets", row.id, { intent: "save", ...gasket({ compressedThicknessMm: "1.05" }) }, cookies.builder)).status).toBe(302);
+    expect(
+      (await update("gaskets", row.id, { intent: "save", ...gasket({ compressedThicknessMm: "1.05" }) }, cookies.builder)).status,
+    ).toBe(302);
     expect((await db()("gaskets").where({ id: row.id }).first()).compressed_thickness_mm).toBe(1.05);
     expect((await update("gaskets", row.id, { intent: "archive" }, cookies.builder)).status).toBe(302);
     expect((await db()("gaskets").where({ id: row.id }).first()).archived_at).not.toBeNull();
@@ -203,12 +216,17 @@ describe("create, edit, archive", () => {
 
   it("editing a handbook row keeps its source and says who edited it", async () => {
     const row = await db()("materials").where({ team_id: teamId, name: "6061-T6 wrought aluminium" }).first();
-    const page = (await editPage("materials", row.id, cookies.builder)).body as { values: Record<string, string>; item: { seeded: boolean } };
+    const page = (await editPage("materials", row.id, cookies.builder)).body as {
+      values: Record<string, string>;
+      item: { seeded: boolean };
+    };
     expect(page.item.seeded).toBe(true);
     expect((await update("materials", row.id, { intent: "save", ...page.values, yieldMpa: "275" }, cookies.builder)).status).toBe(302);
     const after = await db()("materials").where({ id: row.id }).first();
     expect(after.source).toBe(row.source);
-    const listed = ((await listPage("materials", cookies.builder)).body as { rows: { id: number; enteredByName: string }[] }).rows.find((r) => r.id === row.id)!;
+    const listed = ((await listPage("materials", cookies.builder)).body as { rows: { id: number; enteredByName: string }[] }).rows.find(
+      (r) => r.id === row.id,
+    )!;
     expect(listed.enteredByName).toBe("Teo Vastrick");
   });
 });
@@ -244,7 +262,24 @@ describe("imperial input is stored as SI", () => {
       expect(Math.abs(row.maker_stretch_mm - 0.1778)).toBeLessThan(1e-9);
 
       // a unit typed after the number wins over the field's unit (display units via convert-units)
-      const typed = await create("fasteners", fastener({ name: "Shop test: typed units", threadSystem: "unified", diameterMm: "11.1125 mm", pitchMm: "20", reducedShankDiameterMm: "", reducedShankLengthMm: "0 mm", freeThreadLengthMm: "15 mm", engagementMm: "22 mm", washerOdMm: "20 mm", washerHoleMm: "0.5 in", washerThicknessMm: "3 mm", makerTorqueNm: "150 N·m" }), cookies.builder);
+      const typed = await create(
+        "fasteners",
+        fastener({
+          name: "Shop test: typed units",
+          threadSystem: "unified",
+          diameterMm: "11.1125 mm",
+          pitchMm: "20",
+          reducedShankDiameterMm: "",
+          reducedShankLengthMm: "0 mm",
+          freeThreadLengthMm: "15 mm",
+          engagementMm: "22 mm",
+          washerOdMm: "20 mm",
+          washerHoleMm: "0.5 in",
+          washerThicknessMm: "3 mm",
+          makerTorqueNm: "150 N·m",
+        }),
+        cookies.builder,
+      );
       expect(typed.status).toBe(302);
       const t = await db()("fasteners").where({ team_id: teamId, name: "Shop test: typed units" }).first();
       expect(t.diameter_mm).toBeCloseTo(11.1125, 9);
@@ -257,7 +292,15 @@ describe("imperial input is stored as SI", () => {
       expect(page.values.pitchMm).toBe("20");
       expect(page.values.makerTorqueNm).toBe("110");
 
-      expect((await create("materials", material({ name: "Shop test: imperial steel", kind: "steel", modulusMpa: "29.7", yieldMpa: "130", expansionUmPerMC: "6.7" }), cookies.builder)).status).toBe(302);
+      expect(
+        (
+          await create(
+            "materials",
+            material({ name: "Shop test: imperial steel", kind: "steel", modulusMpa: "29.7", yieldMpa: "130", expansionUmPerMC: "6.7" }),
+            cookies.builder,
+          )
+        ).status,
+      ).toBe(302);
       const steel = await db()("materials").where({ team_id: teamId, name: "Shop test: imperial steel" }).first();
       // 1 ksi = 1000 lbf/in² = 6.894757293168 MPa (NIST SP 811 definitions)
       expect(steel.modulus_mpa).toBeCloseTo(29.7 * 6894.757293168, 6); // Mpsi → MPa
@@ -271,21 +314,69 @@ describe("imperial input is stored as SI", () => {
 
 describe("invalid input → 400 with messages, nothing written", () => {
   const cases: { kind: string; fields: Record<string, string>; field: string; message: RegExp; table: string }[] = [
-    { kind: "fasteners", fields: fastener({ diameterMm: "4", pitchMm: "4" }), field: "pitchMm", message: /smaller than the diameter/, table: "fasteners" },
-    { kind: "fasteners", fields: fastener({ pitchMm: "3.5" }), field: "pitchMm", message: /too coarse for a 11 mm thread/, table: "fasteners" },
-    { kind: "fasteners", fields: fastener({ reducedShankDiameterMm: "11.5", reducedShankLengthMm: "40" }), field: "reducedShankDiameterMm", message: /narrower than the thread/, table: "fasteners" },
-    { kind: "fasteners", fields: fastener({ reducedShankLengthMm: "40" }), field: "reducedShankDiameterMm", message: /Give the reduced shank diameter/, table: "fasteners" },
-    { kind: "fasteners", fields: fastener({ washerHoleMm: "10" }), field: "washerHoleMm", message: /at least the stud diameter/, table: "fasteners" },
+    {
+      kind: "fasteners",
+      fields: fastener({ diameterMm: "4", pitchMm: "4" }),
+      field: "pitchMm",
+      message: /smaller than the diameter/,
+      table: "fasteners",
+    },
+    {
+      kind: "fasteners",
+      fields: fastener({ pitchMm: "3.5" }),
+      field: "pitchMm",
+      message: /too coarse for a 11 mm thread/,
+      table: "fasteners",
+    },
+    {
+      kind: "fasteners",
+      fields: fastener({ reducedShankDiameterMm: "11.5", reducedShankLengthMm: "40" }),
+      field: "reducedShankDiameterMm",
+      message: /narrower than the thread/,
+      table: "fasteners",
+    },
+    {
+      kind: "fasteners",
+      fields: fastener({ reducedShankLengthMm: "40" }),
+      field: "reducedShankDiameterMm",
+      message: /Give the reduced shank diameter/,
+      table: "fasteners",
+    },
+    {
+      kind: "fasteners",
+      fields: fastener({ washerHoleMm: "10" }),
+      field: "washerHoleMm",
+      message: /at least the stud diameter/,
+      table: "fasteners",
+    },
     { kind: "fasteners", fields: fastener({ washerOdMm: "11" }), field: "washerOdMm", message: /larger than its hole/, table: "fasteners" },
     { kind: "fasteners", fields: fastener({ materialId: "" }), field: "materialId", message: /Pick the stud material/, table: "fasteners" },
     { kind: "fasteners", fields: fastener({ threadFriction: "0.9" }), field: "threadFriction", message: /at most 0.6/, table: "fasteners" },
     { kind: "fasteners", fields: fastener({ diameterMm: "twelve" }), field: "diameterMm", message: /must be a number/, table: "fasteners" },
-    { kind: "gaskets", fields: gasket({ sealDiameterMm: "85" }), field: "sealDiameterMm", message: /outside the gasket bore/, table: "gaskets" },
-    { kind: "gaskets", fields: gasket({ finishMinRaUm: "2", finishMaxRaUm: "1" }), field: "finishMaxRaUm", message: /at least the smoothest/, table: "gaskets" },
+    {
+      kind: "gaskets",
+      fields: gasket({ sealDiameterMm: "85" }),
+      field: "sealDiameterMm",
+      message: /outside the gasket bore/,
+      table: "gaskets",
+    },
+    {
+      kind: "gaskets",
+      fields: gasket({ finishMinRaUm: "2", finishMaxRaUm: "1" }),
+      field: "finishMaxRaUm",
+      message: /at least the smoothest/,
+      table: "gaskets",
+    },
     { kind: "gaskets", fields: gasket({ type: "cardboard" }), field: "type", message: /Pick the gasket type/, table: "gaskets" },
     { kind: "materials", fields: material({ modulusMpa: "" }), field: "modulusMpa", message: /Enter the modulus/, table: "materials" },
     { kind: "materials", fields: material({ name: "  " }), field: "name", message: /Give it a name/, table: "materials" },
-    { kind: "materials", fields: material({ expansionUmPerMC: "-3" }), field: "expansionUmPerMC", message: /greater than zero/, table: "materials" },
+    {
+      kind: "materials",
+      fields: material({ expansionUmPerMC: "-3" }),
+      field: "expansionUmPerMC",
+      message: /greater than zero/,
+      table: "materials",
+    },
   ];
   for (const c of cases) {
     it(`${c.kind}: ${c.field} → ${c.message}`, async () => {
@@ -375,7 +466,12 @@ describe("another shop's rows are not found", () => {
 describe("a new shop starts with the handbook library", () => {
   it("sign-up seeds materials, fasteners and gaskets for the new team only", async () => {
     const before = await count("materials");
-    const { teamId: fresh } = await createUserWithTeam({ email: "new-shop@example.com", name: "Dana Pellow", password: "a-long-enough-password", teamName: "Fresh Shop" });
+    const { teamId: fresh } = await createUserWithTeam({
+      email: "new-shop@example.com",
+      name: "Dana Pellow",
+      password: "a-long-enough-password",
+      teamName: "Fresh Shop",
+    });
     expect((await db()("materials").where({ team_id: fresh })).length).toBe(10);
     expect((await db()("fasteners").where({ team_id: fresh })).length).toBe(6);
     expect((await db()("gaskets").where({ team_id: fresh })).length).toBe(5);

@@ -7,7 +7,13 @@ import { startMailSink, type MailSink } from "../../scripts/mail-sink";
 // A real SMTP sink (the one `npm run dev` starts) for one test file, on a free port, storing in the
 // run's temporary folder. Start it before anything reads the environment (before signing in): the
 // app then sends over SMTP to it, as it would to a real server.
-export async function startTestSink(): Promise<MailSink & { dir: string; messagesTo(address: string): StoredMessage[]; waitFor(address: string, count?: number): Promise<StoredMessage[]> }> {
+export async function startTestSink(): Promise<
+  MailSink & {
+    dir: string;
+    messagesTo(address: string): StoredMessage[];
+    waitFor(address: string, count?: number): Promise<StoredMessage[]>;
+  }
+> {
   const dir = path.join(inject("testDbDir"), `mail-${process.pid}-${Math.random().toString(16).slice(2)}`);
   fs.mkdirSync(dir, { recursive: true });
   const sink = await startMailSink({ port: 0, dir });

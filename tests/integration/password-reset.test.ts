@@ -21,8 +21,10 @@ beforeAll(async () => {
 
 const ask = (email: string) => call(forgot.action as Handler, post("/forgot-password", { email }));
 const tokenOf = (path: string) => path.split("/").pop()!;
-const choose = (path: string, password: string, confirm = password) => call(reset.action as Handler, post(path, { password, confirm }), { token: tokenOf(path) });
-const usable = async (path: string) => ((await call(reset.loader as Handler, get(path), { token: tokenOf(path) })).body as { usable: boolean }).usable;
+const choose = (path: string, password: string, confirm = password) =>
+  call(reset.action as Handler, post(path, { password, confirm }), { token: tokenOf(path) });
+const usable = async (path: string) =>
+  ((await call(reset.loader as Handler, get(path), { token: tokenOf(path) })).body as { usable: boolean }).usable;
 
 describe("asking for a reset", () => {
   it("answers a known and an unknown address with the same status and body; only the known one gets mail", async () => {
@@ -97,7 +99,9 @@ describe("choosing the new password", () => {
     await ask("viewer@example.com");
     const [mail] = await sink.waitFor("viewer@example.com");
     const path = linkPath(mail!, "/reset-password/");
-    await db()("password_resets").where({ token_hash: hashLinkToken(tokenOf(path)) }).update({ expires_at: new Date(Date.now() - 1).toISOString() });
+    await db()("password_resets")
+      .where({ token_hash: hashLinkToken(tokenOf(path)) })
+      .update({ expires_at: new Date(Date.now() - 1).toISOString() });
     expect(await usable(path)).toBe(false);
     expect((await choose(path, NEW_PASSWORD)).status).toBe(410);
     expect((await choose("/reset-password/x".padEnd(59, "x"), NEW_PASSWORD)).status).toBe(410);
@@ -108,20 +112,34 @@ describe("choosing the new password", () => {
 describe("settings", () => {
   it("saves the name and units; a blank name is a 400 that writes nothing", async () => {
     const cookie = await signIn("builder@example.com");
-    expect((await call(settings.action as Handler, post("/settings", { intent: "profile", name: "Teo V.", units: "imperial" }, cookie))).status).toBe(302);
-    expect(await db()("users").where({ email: "builder@example.com" }).first("name", "units")).toEqual({ name: "Teo V.", units: "imperial" });
+    expect(
+      (await call(settings.action as Handler, post("/settings", { intent: "profile", name: "Teo V.", units: "imperial" }, cookie))).status,
+    ).toBe(302);
+    expect(await db()("users").where({ email: "builder@example.com" }).first("name", "units")).toEqual({
+      name: "Teo V.",
+      units: "imperial",
+    });
     const bad = await call(settings.action as Handler, post("/settings", { intent: "profile", name: "  ", units: "metric" }, cookie));
     expect(bad.status).toBe(400);
-    expect(await db()("users").where({ email: "builder@example.com" }).first("name", "units")).toEqual({ name: "Teo V.", units: "imperial" });
+    expect(await db()("users").where({ email: "builder@example.com" }).first("name", "units")).toEqual({
+      name: "Teo V.",
+      units: "imperial",
+    });
   });
 
   it("changes the password only with the current one, and signs out the other devices", async () => {
     const here = await signIn("builder@example.com");
     const elsewhere = await signIn("builder@example.com");
-    const wrong = await call(settings.action as Handler, post("/settings", { intent: "password", current: "not it", password: NEW_PASSWORD, confirm: NEW_PASSWORD }, here));
+    const wrong = await call(
+      settings.action as Handler,
+      post("/settings", { intent: "password", current: "not it", password: NEW_PASSWORD, confirm: NEW_PASSWORD }, here),
+    );
     expect(wrong.status).toBe(400);
     expect((wrong.body as { errors: Record<string, string> }).errors.current).toBeTruthy();
-    const out = await call(settings.action as Handler, post("/settings", { intent: "password", current: "sealwright-demo", password: NEW_PASSWORD, confirm: NEW_PASSWORD }, here));
+    const out = await call(
+      settings.action as Handler,
+      post("/settings", { intent: "password", current: "sealwright-demo", password: NEW_PASSWORD, confirm: NEW_PASSWORD }, here),
+    );
     expect(out.status).toBe(302);
     expect((await call(dashboard.loader as Handler, get("/dashboard", elsewhere))).status).toBe(302);
     expect((await call(dashboard.loader as Handler, get("/dashboard", here))).status).toBe(302);

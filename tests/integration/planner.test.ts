@@ -46,7 +46,10 @@ beforeAll(async () => {
 type Loaded = { values: Record<string, string>; stretch: { mode: string; stretchMm: number; preloadN: number; torqueNm: number } | null };
 
 async function editorValues(id = planId, engineId = four): Promise<Record<string, string>> {
-  const out = await call(editor.loader as Handler, get(`/engines/${engineId}/plans/${id}`, builder), { engineId: String(engineId), planId: String(id) });
+  const out = await call(editor.loader as Handler, get(`/engines/${engineId}/plans/${id}`, builder), {
+    engineId: String(engineId),
+    planId: String(id),
+  });
   return (out.body as Loaded).values;
 }
 
@@ -64,7 +67,14 @@ describe("choosing another fastener", () => {
     expect(out.status).toBe(200);
     const body = out.body as { values: Record<string, string>; note: string };
     // the M12 maker's sheet (demo): 40, 90, then 150 N·m with moly assembly paste; the library's friction 0.11 / 0.12
-    expect(body.values).toMatchObject({ torque: "150", stages: "40, 90, 150", lubricant: "Moly assembly paste", threadFriction: "0.11", bearingFriction: "0.12", targetStretch: "0.15" });
+    expect(body.values).toMatchObject({
+      torque: "150",
+      stages: "40, 90, 150",
+      lubricant: "Moly assembly paste",
+      threadFriction: "0.11",
+      bearingFriction: "0.12",
+      targetStretch: "0.15",
+    });
     expect(body.note).toBe(`Torque, stages and lubricant now follow the maker's figures for ${M12}; change them if you mean to.`);
     expect(await planRow(planId)).toEqual(before);
 
@@ -72,14 +82,26 @@ describe("choosing another fastener", () => {
     const saved = await editorPost({ ...body.values, intent: "save" });
     expect(saved.status).toBe(302);
     const row = await planRow(planId);
-    expect(row).toMatchObject({ fastener_id: fastener[M12], torque_nm: 150, lubricant: "Moly assembly paste", thread_friction: 0.11, bearing_friction: 0.12 });
+    expect(row).toMatchObject({
+      fastener_id: fastener[M12],
+      torque_nm: 150,
+      lubricant: "Moly assembly paste",
+      thread_friction: 0.11,
+      bearing_friction: 0.12,
+    });
     expect(JSON.parse(row.stages)).toEqual([40, 90, 150]);
   });
 
   it("figures the builder typed with the new fastener stand (an override), and a Recalculate shows the followed estimate", async () => {
     const shown = await editorValues();
     const half = "½-20 chromoly head stud, reduced shank";
-    const overridden = await editorPost({ ...shown, intent: "save", fastenerId: String(fastener[half]), torque: "140", stages: "60, 100, 140" });
+    const overridden = await editorPost({
+      ...shown,
+      intent: "save",
+      fastenerId: String(fastener[half]),
+      torque: "140",
+      stages: "60, 100, 140",
+    });
     expect(overridden.status).toBe(302);
     expect(await planRow(planId)).toMatchObject({ fastener_id: fastener[half], torque_nm: 140 });
 
@@ -99,13 +121,31 @@ describe("choosing another fastener", () => {
     const loaded = (await call(newPlan.loader as Handler, get(`/engines/${four}/plans/new`, builder), params)).body as Loaded;
     const count = await plansOn(four);
     const seven = "7/16-20 chromoly head stud, full shank";
-    const out = await call(newPlan.action as Handler, post(`/engines/${four}/plans/new`, { ...loaded.values, name: "Seven-sixteenths", intent: "create", fastenerId: String(fastener[seven]) }, builder), params);
+    const out = await call(
+      newPlan.action as Handler,
+      post(
+        `/engines/${four}/plans/new`,
+        { ...loaded.values, name: "Seven-sixteenths", intent: "create", fastenerId: String(fastener[seven]) },
+        builder,
+      ),
+      params,
+    );
     expect(out.status).toBe(200);
     const body = out.body as { values: Record<string, string>; note: string };
     // 35, 65, then 85 lbf·ft, shown to a metric builder at whole N·m
-    expect(body.values).toMatchObject({ torque: "115", stages: "47, 88, 115", lubricant: "Clean engine oil on threads and washer face", threadFriction: "0.15", bearingFriction: "0.16" });
+    expect(body.values).toMatchObject({
+      torque: "115",
+      stages: "47, 88, 115",
+      lubricant: "Clean engine oil on threads and washer face",
+      threadFriction: "0.15",
+      bearingFriction: "0.16",
+    });
     expect(await plansOn(four)).toBe(count);
-    const made = await call(newPlan.action as Handler, post(`/engines/${four}/plans/new`, { ...body.values, intent: "create" }, builder), params);
+    const made = await call(
+      newPlan.action as Handler,
+      post(`/engines/${four}/plans/new`, { ...body.values, intent: "create" }, builder),
+      params,
+    );
     expect(made.status).toBe(302);
     const row = await planRow(Number(made.location!.split("/").pop()));
     expect(row).toMatchObject({ name: "Seven-sixteenths", fastener_id: fastener[seven], torque_nm: 115, thread_friction: 0.15 });
@@ -128,8 +168,13 @@ describe("planning by stretch", () => {
     expect(saved.status).toBe(302);
     expect((await planRow(planId)).target_stretch_mm).toBeCloseTo(0.2, 12);
     const k = await studStiffness(planId);
-    const out = await call(editor.loader as Handler, get(`/engines/${four}/plans/${planId}`, builder), { engineId: String(four), planId: String(planId) });
-    const body = out.body as Loaded & { result: { ok: true; view: { torqueNm: number; estimate: { tightening: { preload: { nominalN: number } } } } } };
+    const out = await call(editor.loader as Handler, get(`/engines/${four}/plans/${planId}`, builder), {
+      engineId: String(four),
+      planId: String(planId),
+    });
+    const body = out.body as Loaded & {
+      result: { ok: true; view: { torqueNm: number; estimate: { tightening: { preload: { nominalN: number } } } } };
+    };
     expect(body.result.view.estimate.tightening.preload.nominalN).toBeCloseTo(0.2 * k, 6);
     expect(body.stretch).toMatchObject({ mode: "stretch" });
     expect(body.stretch!.stretchMm).toBeCloseTo(0.2, 9);
@@ -143,7 +188,10 @@ describe("planning by stretch", () => {
     expect(out.status).toBe(302);
     const row = await planRow(planId);
     expect(row.torque_nm).toBe(120);
-    const byTorque = await call(editor.loader as Handler, get(`/engines/${four}/plans/${planId}`, builder), { engineId: String(four), planId: String(planId) });
+    const byTorque = await call(editor.loader as Handler, get(`/engines/${four}/plans/${planId}`, builder), {
+      engineId: String(four),
+      planId: String(planId),
+    });
     const preloadN = (byTorque.body as { stretch: { preloadN: number } }).stretch.preloadN;
     expect(row.target_stretch_mm * k).toBeCloseTo(preloadN, 0);
     expect(JSON.parse(row.stages)[JSON.parse(row.stages).length - 1]).toBe(120);
@@ -154,7 +202,12 @@ describe("planning by stretch", () => {
     await editorPost({ ...shown, intent: "save", method: "torque-estimated-friction", targetStretch: "0.2" });
     expect((await planRow(planId)).target_stretch_mm).toBeNull();
     const k = await studStiffness(planId);
-    const loaded = (await call(editor.loader as Handler, get(`/engines/${four}/plans/${planId}`, builder), { engineId: String(four), planId: String(planId) })).body as Loaded;
+    const loaded = (
+      await call(editor.loader as Handler, get(`/engines/${four}/plans/${planId}`, builder), {
+        engineId: String(four),
+        planId: String(planId),
+      })
+    ).body as Loaded;
     expect(loaded.stretch!.mode).toBe("torque");
     expect(loaded.stretch!.stretchMm * k).toBeCloseTo(loaded.stretch!.preloadN, 6);
     expect(loaded.stretch!.torqueNm).toBe((await planRow(planId)).torque_nm);
@@ -164,7 +217,15 @@ describe("planning by stretch", () => {
 describe("numbers as typed", () => {
   it("decimal commas in friction, margin and stages (semicolons between them)", async () => {
     const shown = await editorValues();
-    const out = await editorPost({ ...shown, intent: "save", threadFriction: "0,13", bearingFriction: "0,14", targetMargin: "1,4", torque: "156", stages: "54,5; 108; 156" });
+    const out = await editorPost({
+      ...shown,
+      intent: "save",
+      threadFriction: "0,13",
+      bearingFriction: "0,14",
+      targetMargin: "1,4",
+      torque: "156",
+      stages: "54,5; 108; 156",
+    });
     expect(out.status).toBe(302);
     const row = await planRow(planId);
     expect(row).toMatchObject({ thread_friction: 0.13, bearing_friction: 0.14, target_margin: 1.4, torque_nm: 156 });
@@ -199,9 +260,25 @@ describe("numbers as typed", () => {
   });
 
   it("units typed into engine fields win over the field's, and boost gets the atmosphere added", async () => {
-    const out = await call(newEngine.action as Handler, post("/engines/new", { ...(await engineForm("Typed units four")), boreMm: "3.386 in", strokeMm: "86,0", sleeveProtrusionMm: "2 thou", targetManifoldKpa: "2 bar boost", runningHeadC: "230 °F" }, builder));
+    const out = await call(
+      newEngine.action as Handler,
+      post(
+        "/engines/new",
+        {
+          ...(await engineForm("Typed units four")),
+          boreMm: "3.386 in",
+          strokeMm: "86,0",
+          sleeveProtrusionMm: "2 thou",
+          targetManifoldKpa: "2 bar boost",
+          runningHeadC: "230 °F",
+        },
+        builder,
+      ),
+    );
     expect(out.status).toBe(302);
-    const row = await db()("engines").where({ id: Number(out.location!.split("/").pop()) }).first();
+    const row = await db()("engines")
+      .where({ id: Number(out.location!.split("/").pop()) })
+      .first();
     expect(row.bore_mm).toBeCloseTo(86.0044, 4);
     expect(row.stroke_mm).toBe(86);
     expect(row.sleeve_protrusion_mm).toBeCloseTo(0.0508, 6);
@@ -249,7 +326,13 @@ async function engineForm(name: string): Promise<Record<string, string>> {
     deckClearanceMm: "0",
     notes: "",
   };
-  const studs: [string, string][] = [["1", "1"], ["1 2", "0.5 0.5"], ["2 3", "0.5 0.5"], ["3 4", "0.5 0.5"], ["4", "1"]];
+  const studs: [string, string][] = [
+    ["1", "1"],
+    ["1 2", "0.5 0.5"],
+    ["2 3", "0.5 0.5"],
+    ["3 4", "0.5 0.5"],
+    ["4", "1"],
+  ];
   studs.forEach(([c, s], i) => {
     form[`stud-${i}-label`] = "";
     form[`stud-${i}-cylinders`] = c;
@@ -265,7 +348,8 @@ async function freshEngine(name: string): Promise<number> {
 }
 
 describe("duplicating an engine", () => {
-  const dup = (engineId: number, cookie: string) => call(duplicate.action as Handler, post(`/engines/${engineId}/duplicate`, {}, cookie), { engineId: String(engineId) });
+  const dup = (engineId: number, cookie: string) =>
+    call(duplicate.action as Handler, post(`/engines/${engineId}/duplicate`, {}, cookie), { engineId: String(engineId) });
 
   it("copies the record and the stud pattern, not the plans, as “… (copy)”", async () => {
     const original = await db()("engines").where({ id: six }).first();
@@ -306,7 +390,8 @@ describe("duplicating an engine", () => {
 describe("copying a plan to another engine", () => {
   const url = (id: number) => `/engines/${four}/plans/${id}/copy`;
   const params = (id: number) => ({ engineId: String(four), planId: String(id) });
-  const cp = (id: number, target: number, cookie = builder) => call(copy.action as Handler, post(url(id), { targetEngineId: String(target) }, cookie), params(id));
+  const cp = (id: number, target: number, cookie = builder) =>
+    call(copy.action as Handler, post(url(id), { targetEngineId: String(target) }, cookie), params(id));
 
   it("lists the shop's other engines with whether the gasket fits each", async () => {
     const out = await call(copy.loader as Handler, get(url(planId), builder), params(planId));
@@ -359,7 +444,10 @@ describe("copying a plan to another engine", () => {
 describe("copying a plan: the form", () => {
   it("asks for an engine when none is picked, and writes nothing", async () => {
     const count = Number((await db()("seal_plans").count({ n: "*" }))[0]!.n);
-    const out = await call(copy.action as Handler, post(`/engines/${four}/plans/${planId}/copy`, {}, builder), { engineId: String(four), planId: String(planId) });
+    const out = await call(copy.action as Handler, post(`/engines/${four}/plans/${planId}/copy`, {}, builder), {
+      engineId: String(four),
+      planId: String(planId),
+    });
     expect(out.status).toBe(400);
     expect((out.body as { error: string }).error).toBe("Pick the engine to copy the plan to.");
     expect(Number((await db()("seal_plans").count({ n: "*" }))[0]!.n)).toBe(count);

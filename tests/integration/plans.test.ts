@@ -87,7 +87,11 @@ describe("seeded demo plans", () => {
 describe("estimate API", () => {
   const api = estimateApi.action as Handler;
   const json = (body: string, cookie: string | null, type = "application/json") =>
-    new Request(`${ORIGIN}/api/v1/estimate`, { method: "POST", headers: { "Content-Type": type, Origin: ORIGIN, ...(cookie ? { Cookie: cookie } : {}) }, body });
+    new Request(`${ORIGIN}/api/v1/estimate`, {
+      method: "POST",
+      headers: { "Content-Type": type, Origin: ORIGIN, ...(cookie ? { Cookie: cookie } : {}) },
+      body,
+    });
 
   async function seededInput() {
     const engine = (await getEngine(teamWide(teamId), engineId))!;
@@ -124,7 +128,11 @@ describe("estimate API", () => {
     const input = await seededInput();
     const out = await call(api, json(JSON.stringify({ input }), viewer));
     expect(out.status).toBe(200);
-    const body = out.body as { estimate: { weakestMargin: number; cylinders: unknown[] }; sweep: unknown[]; probabilityMarginBelowOne: number };
+    const body = out.body as {
+      estimate: { weakestMargin: number; cylinders: unknown[] };
+      sweep: unknown[];
+      probabilityMarginBelowOne: number;
+    };
     const direct = evaluatePlan((parsePlan(input) as { ok: true; plan: never }).plan);
     expect(body.estimate.cylinders).toHaveLength(4);
     expect(body.estimate.weakestMargin).toBeCloseTo(direct.weakestMargin, 9);
@@ -149,7 +157,10 @@ describe("plan editor", () => {
 
   it("rejects bad input with messages and writes nothing", async () => {
     const before = await planRow(planId);
-    const out = await call(act, post(url(), await currentForm({ torque: "-5", stages: "10, 5", threadFriction: "abc" }), builder), { engineId: String(engineId), planId: String(planId) });
+    const out = await call(act, post(url(), await currentForm({ torque: "-5", stages: "10, 5", threadFriction: "abc" }), builder), {
+      engineId: String(engineId),
+      planId: String(planId),
+    });
     expect(out.status).toBe(400);
     const errors = (out.body as { errors: Record<string, string> }).errors;
     expect(errors.torque).toMatch(/Torque must be between/);
@@ -171,16 +182,24 @@ describe("plan editor", () => {
     expect((await call(act, post(url(), { intent: "choose" }, other), params)).status).toBe(404);
     expect((await call(planList.loader as Handler, get(`/engines/${engineId}/plans`, other), params)).status).toBe(404);
     expect((await call(compare.loader as Handler, get(`/engines/${engineId}/compare`, other), params)).status).toBe(404);
-    expect((await call(compare.action as Handler, post(`/engines/${engineId}/compare`, { planId: String(planId) }, other), params)).status).toBe(404);
+    expect(
+      (await call(compare.action as Handler, post(`/engines/${engineId}/compare`, { planId: String(planId) }, other), params)).status,
+    ).toBe(404);
     expect((await call(chamber.loader as Handler, get(`/engines/${engineId}/chamber`, other), params)).status).toBe(404);
-    expect((await call(newPlan.action as Handler, post(`/engines/${engineId}/plans/new`, await currentForm(), other), params)).status).toBe(404);
+    expect((await call(newPlan.action as Handler, post(`/engines/${engineId}/plans/new`, await currentForm(), other), params)).status).toBe(
+      404,
+    );
   });
 
   it("stores an imperial torque in N·m", async () => {
     const user = await db()("users").where({ email: "builder@example.com" }).first("id");
     await db()("users").where({ id: user.id }).update({ units: "imperial" });
     try {
-      const out = await call(act, post(url(), await currentForm({ torque: "120", stages: "50, 90, 120", wireProjection: "4", receiverGrooveDepth: "0" }), builder), { engineId: String(engineId), planId: String(planId) });
+      const out = await call(
+        act,
+        post(url(), await currentForm({ torque: "120", stages: "50, 90, 120", wireProjection: "4", receiverGrooveDepth: "0" }), builder),
+        { engineId: String(engineId), planId: String(planId) },
+      );
       expect(out.status).toBe(302);
       const row = await planRow(planId);
       // convert-units carries lbf·ft as 1.355818 N·m: within 1e-6 relative of NIST SP 811's 1.3558179
@@ -196,7 +215,9 @@ describe("plan editor", () => {
   it("words the torque ceiling, the checks and warnings in the person's units", async () => {
     const user = await db()("users").where({ email: "viewer@example.com" }).first("id");
     const params = { engineId: String(engineId), planId: String(planId) };
-    type Loaded = { result: { view: { ceiling: { explanation: string }; estimate: { warnings: string[]; verdict: { checks: { detail: string }[] } } } } };
+    type Loaded = {
+      result: { view: { ceiling: { explanation: string }; estimate: { warnings: string[]; verdict: { checks: { detail: string }[] } } } };
+    };
     const metric = (await call(editor.loader as Handler, get(url(), viewer), params)).body as Loaded;
     expect(metric.result.view.ceiling.explanation).toMatch(/N·m/);
     await db()("users").where({ id: user.id }).update({ units: "imperial" });
@@ -251,7 +272,11 @@ describe("gasket fit", () => {
     const big = await db()("gaskets").where({ team_id: teamId }).where("bore_mm", ">", 100).first();
     const count = async () => Number((await db()("seal_plans").where({ engine_id: engineId }).count({ n: "*" }))[0]!.n);
     const before = await count();
-    const out = await call(newPlan.action as Handler, post(`/engines/${engineId}/plans/new`, await currentForm({ name: "Wrong gasket", gasketId: String(big.id) }), builder), params);
+    const out = await call(
+      newPlan.action as Handler,
+      post(`/engines/${engineId}/plans/new`, await currentForm({ name: "Wrong gasket", gasketId: String(big.id) }), builder),
+      params,
+    );
     expect(out.status).toBe(400);
     expect((out.body as { problems: string[] }).problems[0]).toMatch(/far larger than the 86\.00 mm cylinder bore/);
     expect(await count()).toBe(before);
@@ -261,12 +286,18 @@ describe("gasket fit", () => {
 describe("archiving a plan", () => {
   it("hides it from the engine's plans and clears it as the chosen plan", async () => {
     const params = { engineId: String(engineId) };
-    const made = await call(newPlan.action as Handler, post(`/engines/${engineId}/plans/new`, await currentForm({ name: "To be archived" }), builder), params);
+    const made = await call(
+      newPlan.action as Handler,
+      post(`/engines/${engineId}/plans/new`, await currentForm({ name: "To be archived" }), builder),
+      params,
+    );
     const id = Number(made.location!.split("/").pop());
     const planParams = { engineId: String(engineId), planId: String(id) };
     await call(editor.action as Handler, post(`/engines/${engineId}/plans/${id}`, { intent: "choose" }, builder), planParams);
     expect((await db()("engines").where({ id: engineId }).first()).chosen_plan_id).toBe(id);
-    expect((await call(editor.action as Handler, post(`/engines/${engineId}/plans/${id}`, { intent: "archive" }, viewer), planParams)).status).toBe(403);
+    expect(
+      (await call(editor.action as Handler, post(`/engines/${engineId}/plans/${id}`, { intent: "archive" }, viewer), planParams)).status,
+    ).toBe(403);
     const out = await call(editor.action as Handler, post(`/engines/${engineId}/plans/${id}`, { intent: "archive" }, builder), planParams);
     expect(out.status).toBe(302);
     expect((await listPlans(teamId, engineId)).map((p) => p.id)).not.toContain(id);
@@ -280,14 +311,26 @@ describe("new plan", () => {
     const params = { engineId: String(engineId) };
     const count = async () => Number((await db()("seal_plans").where({ engine_id: engineId }).count({ n: "*" }))[0]!.n);
     const before = await count();
-    const bad = await call(newPlan.action as Handler, post(`/engines/${engineId}/plans/new`, await currentForm({ name: "" }), builder), params);
+    const bad = await call(
+      newPlan.action as Handler,
+      post(`/engines/${engineId}/plans/new`, await currentForm({ name: "" }), builder),
+      params,
+    );
     expect(bad.status).toBe(400);
     expect((bad.body as { errors: Record<string, string> }).errors.name).toBe("Name the plan");
     expect(await count()).toBe(before);
-    const good = await call(newPlan.action as Handler, post(`/engines/${engineId}/plans/new`, await currentForm({ name: "Fresh plan" }), builder), params);
+    const good = await call(
+      newPlan.action as Handler,
+      post(`/engines/${engineId}/plans/new`, await currentForm({ name: "Fresh plan" }), builder),
+      params,
+    );
     expect(good.status).toBe(302);
     expect(await count()).toBe(before + 1);
-    const viewerTry = await call(newPlan.action as Handler, post(`/engines/${engineId}/plans/new`, await currentForm({ name: "Viewer plan" }), viewer), params);
+    const viewerTry = await call(
+      newPlan.action as Handler,
+      post(`/engines/${engineId}/plans/new`, await currentForm({ name: "Viewer plan" }), viewer),
+      params,
+    );
     expect(viewerTry.status).toBe(403);
     expect(await count()).toBe(before + 1);
   });
@@ -299,7 +342,7 @@ describe("chamber", () => {
     const body = out.body as { result: { before: { compressionRatio: number } }; gasketId: number };
     const e = await db()("engines").where({ id: engineId }).first();
     const g = await db()("gaskets").where({ id: body.gasketId }).first();
-    const cc = (d: number, h: number) => (Math.PI / 4) * d * d * h / 1000;
+    const cc = (d: number, h: number) => ((Math.PI / 4) * d * d * h) / 1000;
     const vc = e.chamber_cc + cc(g.bore_mm, g.compressed_thickness_mm) + cc(e.bore_mm, e.deck_clearance_mm) + e.piston_volume_cc;
     const expected = (cc(e.bore_mm, e.stroke_mm) + vc) / vc;
     expect(body.result.before.compressionRatio).toBeCloseTo(expected, 9);

@@ -89,7 +89,11 @@ describe("hot query plans", () => {
   });
 
   it("every foreign key has an index that starts with its column (deletes and joins from the parent side)", async () => {
-    const tables = ((await db().raw("select name from sqlite_master where type = 'table' and name not like 'knex_%' and name not like 'sqlite_%'")) as { name: string }[]).map((r) => r.name);
+    const tables = (
+      (await db().raw("select name from sqlite_master where type = 'table' and name not like 'knex_%' and name not like 'sqlite_%'")) as {
+        name: string;
+      }[]
+    ).map((r) => r.name);
     const missing: string[] = [];
     for (const table of tables) {
       const fks = (await db().raw(`pragma foreign_key_list("${table}")`)) as { from: string }[];
@@ -108,6 +112,11 @@ describe("hot query plans", () => {
 
   it("the detector itself sees a full scan where there is one", async () => {
     const rows = (await db().raw("explain query plan select * from engines as e where e.fuel = ?", ["E85"])) as Step[];
-    expect(fullScans('select * from "engines" as "e"', rows.map((r) => r.detail))).toHaveLength(1);
+    expect(
+      fullScans(
+        'select * from "engines" as "e"',
+        rows.map((r) => r.detail),
+      ),
+    ).toHaveLength(1);
   });
 });

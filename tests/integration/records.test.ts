@@ -56,7 +56,9 @@ describe("assembly record", () => {
   });
 
   it("learns the six's friction from its three ½ stud assemblies, and refuses the four's one", async () => {
-    const d = (await call(assembly.loader, get(`/engines/${six}/assembly`, builder), { engineId: String(six) })).body as Awaited<ReturnType<typeof assembly.loader>>;
+    const d = (await call(assembly.loader, get(`/engines/${six}/assembly`, builder), { engineId: String(six) })).body as Awaited<
+      ReturnType<typeof assembly.loader>
+    >;
     const half = d.learned.find((l) => l.fastenerName.startsWith("½-20"))!;
     expect(half.learned.ok).toBe(true);
     if (half.learned.ok) {
@@ -66,19 +68,35 @@ describe("assembly record", () => {
     }
     expect(half.shift!.fromMaker).toBe(true);
     expect(half.shift!.change).toBeLessThan(0);
-    const d4 = (await call(assembly.loader, get(`/engines/${four}/assembly`, builder), { engineId: String(four) })).body as Awaited<ReturnType<typeof assembly.loader>>;
+    const d4 = (await call(assembly.loader, get(`/engines/${four}/assembly`, builder), { engineId: String(four) })).body as Awaited<
+      ReturnType<typeof assembly.loader>
+    >;
     expect(d4.learned.every((l) => !l.learned.ok && l.learned.count < 3)).toBe(true);
   });
 
   it("offers the learned friction to a new plan, labelled with its count, without changing the plan's friction", async () => {
-    const d = (await call(newPlan.loader, get(`/engines/${six}/plans/new`, builder), { engineId: String(six) })).body as Awaited<ReturnType<typeof newPlan.loader>>;
+    const d = (await call(newPlan.loader, get(`/engines/${six}/plans/new`, builder), { engineId: String(six) })).body as Awaited<
+      ReturnType<typeof newPlan.loader>
+    >;
     expect(d.learned).toHaveLength(1);
     expect(d.learned[0]!.count).toBe(3);
     expect(d.values.threadFriction).toBe("0.12");
   });
 
   const plansOfFour = async () => (await listPlans(teamId, four))[0]!;
-  const good = async () => ({ planId: String((await plansOfFour()).id), assembledOn: "2026-11-30", assembledBy: "Teo Vastrick", lubricant: "moly", measuredProtrusionMm: "0.09", gasketCompressedMm: "", notes: "", "stage-0-reached": "61", "stage-1-reached": "122", "stage-2-reached": "169.5", "stretch-0": "0.36" });
+  const good = async () => ({
+    planId: String((await plansOfFour()).id),
+    assembledOn: "2026-11-30",
+    assembledBy: "Teo Vastrick",
+    lubricant: "moly",
+    measuredProtrusionMm: "0.09",
+    gasketCompressedMm: "",
+    notes: "",
+    "stage-0-reached": "61",
+    "stage-1-reached": "122",
+    "stage-2-reached": "169.5",
+    "stretch-0": "0.36",
+  });
 
   it.each([
     [{ assembledBy: "" }, "assembledBy"],
@@ -89,7 +107,9 @@ describe("assembly record", () => {
     [{ "stage-0-reached": "", "stage-1-reached": "", "stage-2-reached": "" }, "stage-0-reached"],
   ])("refuses %j with 400 on the field, and writes nothing", async (change, field) => {
     const before = await tables();
-    const out = await call(assembly.action, post(`/engines/${four}/assembly`, { ...(await good()), ...change }, builder), { engineId: String(four) });
+    const out = await call(assembly.action, post(`/engines/${four}/assembly`, { ...(await good()), ...change }, builder), {
+      engineId: String(four),
+    });
     expect(out.status).toBe(400);
     expect(Object.keys((out.body as { errors: Record<string, string> }).errors)).toContain(field);
     expect(await tables()).toEqual(before);
@@ -97,7 +117,9 @@ describe("assembly record", () => {
 
   it("records a good assembly, with its audit row; a viewer may not", async () => {
     const before = await tables();
-    expect((await call(assembly.action, post(`/engines/${four}/assembly`, await good(), viewer), { engineId: String(four) })).status).toBe(403);
+    expect((await call(assembly.action, post(`/engines/${four}/assembly`, await good(), viewer), { engineId: String(four) })).status).toBe(
+      403,
+    );
     const out = await call(assembly.action, post(`/engines/${four}/assembly`, await good(), builder), { engineId: String(four) });
     expect(out.status).toBe(302);
     expect(await tables()).toEqual({ ...before, assemblies: before.assemblies + 1, audit: before.audit + 1 });
@@ -108,7 +130,10 @@ describe("assembly record", () => {
 
   it("the checklist numbers every stud once per bank and lists the plan's stages", async () => {
     const plan = await plansOfFour();
-    const out = await call(checklist.loader, get(`/engines/${four}/plans/${plan.id}/checklist`, viewer), { engineId: String(four), planId: String(plan.id) });
+    const out = await call(checklist.loader, get(`/engines/${four}/plans/${plan.id}/checklist`, viewer), {
+      engineId: String(four),
+      planId: String(plan.id),
+    });
     const d = out.body as Awaited<ReturnType<typeof checklist.loader>>;
     expect(d.layout.studs).toHaveLength(14);
     expect(d.layout.studs.map((s) => s.order).sort((a, b) => a - b)).toEqual(Array.from({ length: 14 }, (_, i) => i + 1));
@@ -118,13 +143,23 @@ describe("assembly record", () => {
 });
 
 describe("run log", () => {
-  const good = { ranOn: "2026-11-29", kind: "dyno", manifoldPressureKpa: "240", fuel: "Pump fuel + methanol injection", peakCylinderPressureMpa: "", outcome: "held", cylindersAffected: "", notes: 'Pull 3, "lean" on 4, then fine', teardownFindings: "" };
+  const good = {
+    ranOn: "2026-11-29",
+    kind: "dyno",
+    manifoldPressureKpa: "240",
+    fuel: "Pump fuel + methanol injection",
+    peakCylinderPressureMpa: "",
+    outcome: "held",
+    cylindersAffected: "",
+    notes: 'Pull 3, "lean" on 4, then fine',
+    teardownFindings: "",
+  };
 
   it.each([
     [{ ranOn: "yesterday" }, "ranOn"],
     [{ kind: "track" }, "kind"],
     [{ outcome: "lifted-head" }, "cylindersAffected"],
-    [{ cylindersAffected: "9" , outcome: "seeping"}, "cylindersAffected"],
+    [{ cylindersAffected: "9", outcome: "seeping" }, "cylindersAffected"],
     [{ manifoldPressureKpa: "" }, "manifoldPressureKpa"],
   ])("refuses %j with 400 on the field, and writes nothing", async (change, field) => {
     const before = await tables();
@@ -150,7 +185,22 @@ describe("run log", () => {
   });
 
   it("the CSV export parses back to the same rows, quotes, commas and line breaks intact", async () => {
-    await call(runsPage.action, post(`/engines/${six}/runs`, { ...good, ranOn: "2026-11-30", outcome: "seeping", cylindersAffected: "2 3", notes: "coolant, a little\nat the 2–3 bridge", teardownFindings: 'said "damp"' }, builder), { engineId: String(six) });
+    await call(
+      runsPage.action,
+      post(
+        `/engines/${six}/runs`,
+        {
+          ...good,
+          ranOn: "2026-11-30",
+          outcome: "seeping",
+          cylindersAffected: "2 3",
+          notes: "coolant, a little\nat the 2–3 bridge",
+          teardownFindings: 'said "damp"',
+        },
+        builder,
+      ),
+      { engineId: String(six) },
+    );
     const out = await call(runsCsv.loader, get(`/engines/${six}/runs.csv`, builder), { engineId: String(six) });
     expect(out.status).toBe(200);
     const rows = parse(out.body as string) as string[][];
@@ -160,8 +210,15 @@ describe("run log", () => {
     expect(rows.length - 1).toBe(runs.length);
     expect(rows.some((r) => r[8] === "coolant, a little\nat the 2–3 bridge")).toBe(true);
     // filters apply to the export as to the table
-    const failed = parse((await call(runsCsv.loader, get(`/engines/${six}/runs.csv?outcome=failed`, builder), { engineId: String(six) })).body as string) as string[][];
-    expect(failed.slice(1).map((r) => r[6]).sort()).toEqual(["blown-gasket", "seeping"]);
+    const failed = parse(
+      (await call(runsCsv.loader, get(`/engines/${six}/runs.csv?outcome=failed`, builder), { engineId: String(six) })).body as string,
+    ) as string[][];
+    expect(
+      failed
+        .slice(1)
+        .map((r) => r[6])
+        .sort(),
+    ).toEqual(["blown-gasket", "seeping"]);
   });
 
   it("another team's engine has no run log", async () => {

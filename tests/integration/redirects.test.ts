@@ -60,13 +60,19 @@ describe("the redirects that use it", () => {
   });
 
   it("sign-in with redirectTo=/%0A/x lands on the dashboard (was a 500)", async () => {
-    const out = await call(login.action as Handler, post("/login?redirectTo=%2F%0A%2Fx", { email: "owner@example.com", password: "sealwright-demo" }));
+    const out = await call(
+      login.action as Handler,
+      post("/login?redirectTo=%2F%0A%2Fx", { email: "owner@example.com", password: "sealwright-demo" }),
+    );
     expect(out.status).toBe(302);
     expect(out.location).toBe("/dashboard");
   });
 
   it("sign-in with redirectTo=/\\t/evil.example lands on the dashboard", async () => {
-    const out = await call(login.action as Handler, post("/login?redirectTo=%2F%09%2Fevil.example", { email: "owner@example.com", password: "sealwright-demo" }));
+    const out = await call(
+      login.action as Handler,
+      post("/login?redirectTo=%2F%09%2Fevil.example", { email: "owner@example.com", password: "sealwright-demo" }),
+    );
     expect(out.location).toBe("/dashboard");
   });
 
@@ -79,7 +85,10 @@ describe("the redirects that use it", () => {
   });
 
   it("the team switch reads the team id as a decimal integer only", async () => {
-    const out = await call(teamSwitch.action as Handler, post("/team/switch", { teamId: `0x${teamId.toString(16)}`, returnTo: "/engines" }, builder));
+    const out = await call(
+      teamSwitch.action as Handler,
+      post("/team/switch", { teamId: `0x${teamId.toString(16)}`, returnTo: "/engines" }, builder),
+    );
     expect(out.status).toBe(403);
   });
 });

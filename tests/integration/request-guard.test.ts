@@ -50,19 +50,31 @@ const ACTIONS = () =>
     { path: "/engines/new", action: engineNew.action, params: {} },
     { path: `/engines/${engineId}/edit`, action: engineEdit.action, params: { engineId: String(engineId) } },
     { path: `/engines/${engineId}/plans/new`, action: planNew.action, params: { engineId: String(engineId) } },
-    { path: `/engines/${engineId}/plans/${planId}`, action: planEditor.action, params: { engineId: String(engineId), planId: String(planId) } },
+    {
+      path: `/engines/${engineId}/plans/${planId}`,
+      action: planEditor.action,
+      params: { engineId: String(engineId), planId: String(planId) },
+    },
     { path: `/engines/${engineId}/compare`, action: compare.action, params: { engineId: String(engineId) } },
     { path: "/libraries/gaskets/new", action: libraryEdit.action, params: { kind: "gaskets" } },
     { path: `/libraries/gaskets/${gasketId}`, action: libraryEdit.action, params: { kind: "gaskets", itemId: String(gasketId) } },
   ] as const;
 
-function raw(path: string, init: { type?: string | null; body?: BodyInit | null; cookie?: string; origin?: string | null; length?: string }) {
+function raw(
+  path: string,
+  init: { type?: string | null; body?: BodyInit | null; cookie?: string; origin?: string | null; length?: string },
+) {
   const headers = new Headers();
   if (init.type) headers.set("Content-Type", init.type);
   if (init.cookie) headers.set("Cookie", init.cookie);
   if (init.origin !== null) headers.set("Origin", init.origin ?? ORIGIN);
   if (init.length) headers.set("Content-Length", init.length);
-  return new Request(ORIGIN + path, { method: "POST", headers, body: init.body ?? null, ...(init.body instanceof ReadableStream ? { duplex: "half" } : {}) } as RequestInit);
+  return new Request(ORIGIN + path, {
+    method: "POST",
+    headers,
+    body: init.body ?? null,
+    ...(init.body instanceof ReadableStream ? { duplex: "half" } : {}),
+  } as RequestInit);
 }
 
 describe("defect 6: a wrong or missing Content-Type is answered 415/400, never 500", () => {
@@ -84,7 +96,10 @@ describe("defect 6: a wrong or missing Content-Type is answered 415/400, never 5
   }
 
   it("the API answers a form post 415 in JSON", async () => {
-    const out = await through(h(estimateApi.action), raw("/api/v1/estimate", { type: "application/x-www-form-urlencoded", body: "input=1", cookie: builder }));
+    const out = await through(
+      h(estimateApi.action),
+      raw("/api/v1/estimate", { type: "application/x-www-form-urlencoded", body: "input=1", cookie: builder }),
+    );
     expect(out.status).toBe(415);
     expect(out.body).toEqual({ error: "Send the body as JSON (Content-Type: application/json)." });
   });
@@ -98,7 +113,10 @@ describe("a NUL character in a form (PostgreSQL text cannot hold one)", () => {
       expect(out.body).toBe("The form holds a NUL character, which no field accepts.");
     }
     // the text "%00" typed into a field arrives encoded as %2500: it reaches the action (a wrong password)
-    const typed = await through(h(login.action), raw("/login", { type: "application/x-www-form-urlencoded", body: "email=owner%40example.com&password=%2500" }));
+    const typed = await through(
+      h(login.action),
+      raw("/login", { type: "application/x-www-form-urlencoded", body: "email=owner%40example.com&password=%2500" }),
+    );
     expect(JSON.stringify(typed.body)).not.toContain("NUL character");
     expect(JSON.stringify(typed.body)).toContain("password");
   });
@@ -113,7 +131,10 @@ describe("defect 12: form bodies are capped (413) before they are parsed", () =>
   });
 
   it("a declared Content-Length over the cap is refused from the header alone", async () => {
-    const out = await through(h(login.action), raw("/login", { type: "application/x-www-form-urlencoded", body: "email=a", length: String(MAX_FORM_BYTES + 1) }));
+    const out = await through(
+      h(login.action),
+      raw("/login", { type: "application/x-www-form-urlencoded", body: "email=a", length: String(MAX_FORM_BYTES + 1) }),
+    );
     expect(out.status).toBe(413);
   });
 
@@ -141,7 +162,14 @@ describe("defect 12: form bodies are capped (413) before they are parsed", () =>
   });
 });
 
-const TABLE = ["Content-Security-Policy", "X-Content-Type-Options", "X-Frame-Options", "Referrer-Policy", "Permissions-Policy", "Cache-Control"];
+const TABLE = [
+  "Content-Security-Policy",
+  "X-Content-Type-Options",
+  "X-Frame-Options",
+  "Referrer-Policy",
+  "Permissions-Policy",
+  "Cache-Control",
+];
 
 describe("defect 11: the header table on every response that passes the root middleware", () => {
   it("API JSON: the table, and Cache-Control no-store", async () => {
@@ -149,13 +177,18 @@ describe("defect 11: the header table on every response that passes the root mid
     expect(out.status).toBe(400);
     for (const name of TABLE) expect(out.headers.get(name), name).toBeTruthy();
     expect(out.headers.get("Cache-Control")).toBe("no-store");
-    expect(out.headers.get("Content-Security-Policy")).toBe("default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'");
+    expect(out.headers.get("Content-Security-Policy")).toBe(
+      "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'",
+    );
   });
 
   it("/healthz, a redirect and the API's cross-site refusal", async () => {
     const health = await through(h(healthz.loader), get("/healthz"));
     const redirect = await through(h(engineList.loader), get("/engines"));
-    const refused = await through(h(estimateApi.action), raw("/api/v1/estimate", { type: "application/json", body: "{}", cookie: builder, origin: "http://evil.example" }));
+    const refused = await through(
+      h(estimateApi.action),
+      raw("/api/v1/estimate", { type: "application/json", body: "{}", cookie: builder, origin: "http://evil.example" }),
+    );
     expect([health.status, redirect.status, refused.status]).toEqual([200, 302, 403]);
     for (const out of [health, redirect, refused]) for (const name of TABLE) expect(out.headers.get(name), name).toBeTruthy();
   });
@@ -165,7 +198,10 @@ describe("defect 13: one log line for a cross-site refusal", () => {
   it("our own check: one console.warn line, no console.error, nothing written", async () => {
     const warn = vi.spyOn(console, "warn").mockImplementation(() => {});
     const before = await db()("teams").select("name");
-    const out = await through(h(team.action), raw("/team", { type: "application/x-www-form-urlencoded", body: "name=Forged", cookie: owner, origin: "http://evil.example" }));
+    const out = await through(
+      h(team.action),
+      raw("/team", { type: "application/x-www-form-urlencoded", body: "name=Forged", cookie: owner, origin: "http://evil.example" }),
+    );
     expect(out.status).toBe(403);
     expect(warn).toHaveBeenCalledTimes(1);
     expect(String(warn.mock.calls[0]![0])).toBe('refused cross-site POST /team from "http://evil.example"');
@@ -177,7 +213,10 @@ describe("defect 13: one log line for a cross-site refusal", () => {
     const warn = vi.spyOn(console, "warn").mockImplementation(() => {});
     const request = raw("/team", { type: "application/x-www-form-urlencoded", body: "name=x", origin: "http://evil.example" });
     const context = { request, params: {}, context: undefined } as unknown as Parameters<typeof handleError>[1];
-    handleError(new Error("The `request.url` origin does not match `origin` header from a forwarded action request. Aborting the action."), context);
+    handleError(
+      new Error("The `request.url` origin does not match `origin` header from a forwarded action request. Aborting the action."),
+      context,
+    );
     handleError(new Error("Bad Request"), context);
     expect(warn.mock.calls.map((c) => c.join(" "))).toEqual([
       'refused cross-site POST /team from "http://evil.example"',
@@ -194,13 +233,19 @@ describe("defect 13: ids are decimal integers only", () => {
       const text = bad.replace("1", String(real.id));
       const direct = await call(h(overview.loader), get(`/engines/${encodeURIComponent(text)}`, builder), { engineId: text });
       expect(direct.status).toBe(404);
-      const piped = await through(h(planEditor.loader), get(`/engines/${engineId}/plans/${encodeURIComponent(bad)}`, builder), { engineId: String(engineId), planId: bad });
+      const piped = await through(h(planEditor.loader), get(`/engines/${engineId}/plans/${encodeURIComponent(bad)}`, builder), {
+        engineId: String(engineId),
+        planId: bad,
+      });
       expect(piped.status).toBe(404);
     });
   }
 
   it("a library item id in hex is not found", async () => {
-    const out = await through(h(libraryEdit.loader), get(`/libraries/gaskets/0x${gasketId.toString(16)}`, builder), { kind: "gaskets", itemId: `0x${gasketId.toString(16)}` });
+    const out = await through(h(libraryEdit.loader), get(`/libraries/gaskets/0x${gasketId.toString(16)}`, builder), {
+      kind: "gaskets",
+      itemId: `0x${gasketId.toString(16)}`,
+    });
     expect(out.status).toBe(404);
   });
 });

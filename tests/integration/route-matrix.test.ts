@@ -13,7 +13,6 @@ import { seedFile } from "./seed-file";
 // run behind the root middleware. A route in routes.ts without a row here fails; so does a row for a
 // route that is gone. Expected answers: a status, "signin" (302 to /login?redirectTo=…) or "→/path".
 
-
 type Row = [anonymous: string, viewer: string, builder: string, owner: string, otherTeam: string];
 const all = (x: string): Row => [x, x, x, x, x];
 const member = (x: string): Row => ["signin", x, x, x, x];
@@ -121,7 +120,14 @@ beforeAll(async () => {
   const plan = await db()("seal_plans").where({ team_id: demoTeamId, engine_id: engine.id }).first("id");
   const gasket = await db()("gaskets").where({ team_id: demoTeamId }).first("id");
   const file = await seedFile(demoTeamId, engine.id);
-  values = { engineId: String(engine.id), planId: String(plan.id), kind: "gaskets", itemId: String(gasket.id), token: "not-a-token", fileId: String(file) };
+  values = {
+    engineId: String(engine.id),
+    planId: String(plan.id),
+    kind: "gaskets",
+    itemId: String(gasket.id),
+    token: "not-a-token",
+    fileId: String(file),
+  };
   // importing every route module and four sign-ins: slow on a loaded machine, not a speed check
 }, 60_000);
 
@@ -145,14 +151,24 @@ const HARMLESS: Record<string, Record<string, string>> = {
   "routes/engines/runs": { ranOn: "" },
 };
 
-function request(route: RouteInfo, method: "GET" | "POST", cookie: string | undefined, body: Record<string, string> | string, origin = ORIGIN) {
+function request(
+  route: RouteInfo,
+  method: "GET" | "POST",
+  cookie: string | undefined,
+  body: Record<string, string> | string,
+  origin = ORIGIN,
+) {
   const { url } = fill(route.path, values);
   const headers = new Headers({ Origin: origin });
   if (cookie) headers.set("Cookie", cookie);
   if (method === "GET") return new Request(ORIGIN + url, { headers });
   const json = route.path.startsWith("/api/");
   headers.set("Content-Type", json ? "application/json" : "application/x-www-form-urlencoded");
-  return new Request(ORIGIN + url, { method, headers, body: json ? (typeof body === "string" ? body : JSON.stringify(body)) : new URLSearchParams(body as Record<string, string>).toString() });
+  return new Request(ORIGIN + url, {
+    method,
+    headers,
+    body: json ? (typeof body === "string" ? body : JSON.stringify(body)) : new URLSearchParams(body as Record<string, string>).toString(),
+  });
 }
 
 function classify(a: Answer): string {
@@ -165,15 +181,27 @@ async function run(route: RouteInfo, method: "GET" | "POST", who: Who): Promise<
   // signing out ends the session: give that cell a session of its own
   if (route.id === "routes/auth/logout" && method === "POST" && who !== "anonymous") cookie = await signIn(EMAIL[who]);
   const body = route.id === "routes/app/team-switch" ? { ...HARMLESS[route.id], teamId: String(demoTeamId) } : (HARMLESS[route.id] ?? {});
-  return through(method === "GET" ? route.loader : route.action, request(route, method, cookie, route.path.startsWith("/api/") ? "{}" : body), fill(route.path, values).params);
+  return through(
+    method === "GET" ? route.loader : route.action,
+    request(route, method, cookie, route.path.startsWith("/api/") ? "{}" : body),
+    fill(route.path, values).params,
+  );
 }
 
 describe("the matrix covers app/routes.ts exactly", () => {
   it("every route × method has a row, and every row is a route", () => {
-    const cells = routes.flatMap((r) => [r.loader ? `${r.id} GET` : null, r.action ? `${r.id} POST` : null]).filter((c): c is string => c !== null);
+    const cells = routes
+      .flatMap((r) => [r.loader ? `${r.id} GET` : null, r.action ? `${r.id} POST` : null])
+      .filter((c): c is string => c !== null);
     const pageOnly = routes.filter((r) => !r.loader && !r.action).map((r) => r.id);
-    expect(cells.filter((c) => !(c in MATRIX)), "routes without a row").toEqual([]);
-    expect(Object.keys(MATRIX).filter((k) => !cells.includes(k)), "rows without a route").toEqual([]);
+    expect(
+      cells.filter((c) => !(c in MATRIX)),
+      "routes without a row",
+    ).toEqual([]);
+    expect(
+      Object.keys(MATRIX).filter((k) => !cells.includes(k)),
+      "rows without a route",
+    ).toEqual([]);
     // routes with neither loader nor action serve only the page of their parent's data
     expect(pageOnly.sort()).toEqual([]);
   });
@@ -232,7 +260,8 @@ const WRITING: Record<string, Record<string, string>> = {
 async function digest(): Promise<string> {
   const hash = crypto.createHash("sha256");
   // rows sorted as text: neither engine promises an order without one, and some tables have no id
-  for (const name of await tableNames(db())) hash.update(name + JSON.stringify((await db()(name).select("*")).map((r) => JSON.stringify(r)).sort()));
+  for (const name of await tableNames(db()))
+    hash.update(name + JSON.stringify((await db()(name).select("*")).map((r) => JSON.stringify(r)).sort()));
   return hash.digest("hex");
 }
 
@@ -240,15 +269,25 @@ describe("cross-site writes", () => {
   it("every action and API route refuses a post from another site (403) for everyone, and nothing changes", async () => {
     const warn = vi.spyOn(console, "warn").mockImplementation(() => {});
     const actions = routes.filter((r) => r.action);
-    expect(actions.map((r) => r.id).filter((id) => !(id in WRITING)), "actions without a forged body").toEqual([]);
+    expect(
+      actions.map((r) => r.id).filter((id) => !(id in WRITING)),
+      "actions without a forged body",
+    ).toEqual([]);
     const before = await digest();
     const answers: string[] = [];
     let sent = 0;
     for (const route of actions) {
       for (const who of WHO) {
-        const body = route.id === "routes/app/team-switch" ? { ...WRITING[route.id], teamId: String(who === "otherTeam" ? otherTeamId : demoTeamId) } : WRITING[route.id]!;
+        const body =
+          route.id === "routes/app/team-switch"
+            ? { ...WRITING[route.id], teamId: String(who === "otherTeam" ? otherTeamId : demoTeamId) }
+            : WRITING[route.id]!;
         for (const origin of ["http://evil.example", "null", "https://localhost.evil.example"]) {
-          const out = await through(route.action, request(route, "POST", cookies[who], route.path.startsWith("/api/") ? "{}" : body, origin), fill(route.path, values).params);
+          const out = await through(
+            route.action,
+            request(route, "POST", cookies[who], route.path.startsWith("/api/") ? "{}" : body, origin),
+            fill(route.path, values).params,
+          );
           sent++;
           if (out.status !== 403) answers.push(`${route.id} as ${who} from ${origin}: ${out.status}`);
         }

@@ -52,14 +52,22 @@ describe.runIf(onPostgres)("row-level security on PostgreSQL", () => {
     const otherIds = await db()("engines").where({ team_id: other }).pluck("id");
     const seen = await db().transaction((trx) => asProbe(trx, demo, () => trx("engines").pluck("id")));
     expect(seen.sort()).toEqual(expected);
-    const asked = await db().transaction((trx) => asProbe(trx, demo, () => trx("engines").whereIn("id", [...otherIds, -1]).pluck("id")));
+    const asked = await db().transaction((trx) =>
+      asProbe(trx, demo, () =>
+        trx("engines")
+          .whereIn("id", [...otherIds, -1])
+          .pluck("id"),
+      ),
+    );
     expect(asked).toEqual([]);
   });
 
   it("refuses a write into another team (WITH CHECK), and the setting ends with the transaction", async () => {
     const { demo, other } = await demoTeams();
     const write = db().transaction((trx) =>
-      asProbe(trx, demo, () => trx("audit_events").insert({ team_id: other, action: "probe.cross-team", created_at: new Date().toISOString() })),
+      asProbe(trx, demo, () =>
+        trx("audit_events").insert({ team_id: other, action: "probe.cross-team", created_at: new Date().toISOString() }),
+      ),
     );
     await expect(write).rejects.toMatchObject({ code: "42501" });
     expect(await db()("audit_events").where({ action: "probe.cross-team" }).count({ n: "*" })).toEqual([{ n: 0 }]);
@@ -95,9 +103,15 @@ describe.runIf(testPostgresUrl())("migrations on an empty PostgreSQL database", 
     await knex.migrate.latest();
     const tables = await tableNames(knex);
     expect(tables).toEqual(expect.arrayContaining(["users", "teams", "engines", "seal_plans", "rate_limits"]));
-    const policies = rowsOf<{ tablename: string }>(await knex.raw("select tablename from pg_policies order by tablename")).map((r) => r.tablename);
+    const policies = rowsOf<{ tablename: string }>(await knex.raw("select tablename from pg_policies order by tablename")).map(
+      (r) => r.tablename,
+    );
     expect(policies).toEqual(["audit_events", "engines", "fasteners", "gaskets", "materials", "seal_plans"]);
-    const types = rowsOf<{ data_type: string }>(await knex.raw("select distinct data_type from information_schema.columns where table_name = 'seal_plans' and column_name like '%_mm'"));
+    const types = rowsOf<{ data_type: string }>(
+      await knex.raw(
+        "select distinct data_type from information_schema.columns where table_name = 'seal_plans' and column_name like '%_mm'",
+      ),
+    );
     expect(types).toEqual([{ data_type: "double precision" }]);
     await knex.migrate.rollback(undefined, true);
     expect(await tableNames(knex)).toEqual([]);

@@ -7,7 +7,9 @@ import { knexConfig } from "~/utils/knex-config.server";
 const TABLES = ["users", "teams", "memberships", "sessions", "audit_events"];
 
 async function tableNames(knex: Knex): Promise<string[]> {
-  const rows = await knex.raw("select name from sqlite_master where type = 'table' and name not like 'knex_%' and name not like 'sqlite_%'");
+  const rows = await knex.raw(
+    "select name from sqlite_master where type = 'table' and name not like 'knex_%' and name not like 'sqlite_%'",
+  );
   return (rows as { name: string }[]).map((r) => r.name).sort();
 }
 

@@ -26,7 +26,8 @@ describe("security headers", () => {
 });
 
 describe("origin check on posts", () => {
-  const post = (headers: Record<string, string>) => new Request("http://localhost:3000/team", { method: "POST", headers: { Cookie: "sw_session=x", ...headers } });
+  const post = (headers: Record<string, string>) =>
+    new Request("http://localhost:3000/team", { method: "POST", headers: { Cookie: "sw_session=x", ...headers } });
 
   it("accepts a post from our own page", () => {
     expect(isSameOriginPost(post({ Host: "localhost:3000", Origin: "http://localhost:3000" }))).toBe(true);
@@ -40,10 +41,16 @@ describe("origin check on posts", () => {
     expect(isSameOriginPost(post({ Host: "localhost:3000", Referer: "http://localhost:3000/team" }))).toBe(true);
   });
   it("lets a post without a cookie through: there is no session to forge, the route's guard answers it", () => {
-    expect(isSameOriginPost(new Request("http://localhost:3000/api/v1/estimate", { method: "POST", headers: { Host: "localhost:3000" } }))).toBe(true);
+    expect(
+      isSameOriginPost(new Request("http://localhost:3000/api/v1/estimate", { method: "POST", headers: { Host: "localhost:3000" } })),
+    ).toBe(true);
   });
   it("refuses a cross-site post even without a cookie (no forged sign-in)", () => {
-    expect(isSameOriginPost(new Request("http://localhost:3000/login", { method: "POST", headers: { Host: "localhost:3000", Origin: "http://evil.example" } }))).toBe(false);
+    expect(
+      isSameOriginPost(
+        new Request("http://localhost:3000/login", { method: "POST", headers: { Host: "localhost:3000", Origin: "http://evil.example" } }),
+      ),
+    ).toBe(false);
   });
   it("lets reads through", () => {
     expect(isSameOriginPost(new Request("http://localhost:3000/team"))).toBe(true);

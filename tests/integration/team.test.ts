@@ -34,7 +34,8 @@ async function inviteByMail(email: string, role: string, cookie = owner): Promis
 }
 
 const tokenOf = (path: string) => path.split("/").pop()!;
-const acceptNew = (path: string, fields: Record<string, string>, cookie?: string) => call(invite.action as Handler, post(path, { intent: "create", ...fields }, cookie), { token: tokenOf(path) });
+const acceptNew = (path: string, fields: Record<string, string>, cookie?: string) =>
+  call(invite.action as Handler, post(path, { intent: "create", ...fields }, cookie), { token: tokenOf(path) });
 const page = (path: string, cookie?: string) => call(invite.loader as Handler, get(path, cookie), { token: tokenOf(path) });
 
 describe("inviting by e-mail", () => {
@@ -53,13 +54,17 @@ describe("inviting by e-mail", () => {
     expect(Date.parse(row.expires_at) - Date.parse(row.created_at)).toBe(7 * 86_400_000);
 
     const shown = await page(path);
-    expect(shown.body).toMatchObject({ invite: { teamName: "Harrow Lane Boost Works", email: "new-viewer@example.com", role: "viewer", accountExists: false } });
+    expect(shown.body).toMatchObject({
+      invite: { teamName: "Harrow Lane Boost Works", email: "new-viewer@example.com", role: "viewer", accountExists: false },
+    });
     const out = await acceptNew(path, { name: "Nia Pellworth", password: PASSWORD });
     expect(out.status).toBe(302);
     expect(out.location).toBe("/dashboard");
     const user = await db()("users").where({ email: "new-viewer@example.com" }).first("id", "name");
     expect(user.name).toBe("Nia Pellworth");
-    expect(await db()("memberships").where({ user_id: user.id }).select("team_id", "role")).toEqual([{ team_id: demoTeamId, role: "viewer" }]);
+    expect(await db()("memberships").where({ user_id: user.id }).select("team_id", "role")).toEqual([
+      { team_id: demoTeamId, role: "viewer" },
+    ]);
     // the new session is signed in, as a viewer of the shop
     const shell = await call(dashboard.loader as Handler, get("/dashboard", cookiePair(out.setCookie)));
     expect(shell.body).toMatchObject({ role: "viewer", team: { id: demoTeamId } });
@@ -77,7 +82,9 @@ describe("inviting by e-mail", () => {
 
   it("refuses an expired link (410) and writes nothing", async () => {
     const path = await inviteByMail("late@example.com", "viewer");
-    await db()("team_invites").where({ email: "late@example.com" }).update({ expires_at: new Date(Date.now() - 1000).toISOString() });
+    await db()("team_invites")
+      .where({ email: "late@example.com" })
+      .update({ expires_at: new Date(Date.now() - 1000).toISOString() });
     expect((await page(path)).body).toMatchObject({ invite: null, reason: "expired" });
     expect((await acceptNew(path, { name: "Late", password: PASSWORD })).status).toBe(410);
     expect(await db()("users").where({ email: "late@example.com" }).first()).toBeUndefined();
@@ -147,7 +154,10 @@ describe("roles and removal", () => {
     await call(teamAction, post("/team", { intent: "role", userId: String(builder.id), role: "builder" }, owner));
 
     const me = await db()("users").where({ email: "owner@example.com" }).first("id");
-    for (const fields of [{ intent: "role", userId: String(me.id), role: "builder" }, { intent: "remove", userId: String(me.id) }] as Record<string, string>[]) {
+    for (const fields of [
+      { intent: "role", userId: String(me.id), role: "builder" },
+      { intent: "remove", userId: String(me.id) },
+    ] as Record<string, string>[]) {
       const out = await call(teamAction, post("/team", fields, owner));
       expect(out.status).toBe(400);
       expect((out.body as { error: string }).error).toMatch(/at least one owner/);
@@ -157,10 +167,19 @@ describe("roles and removal", () => {
 
   it("another shop's members and invites are not found (404) and nothing changes", async () => {
     const saltmarsh = await signIn("other-owner@example.com");
-    await call((await import("~/routes/app/team-switch")).action as Handler, post("/team/switch", { teamId: String((await db()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id")).id), returnTo: "/team" }, saltmarsh));
+    await call(
+      (await import("~/routes/app/team-switch")).action as Handler,
+      post(
+        "/team/switch",
+        { teamId: String((await db()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id")).id), returnTo: "/team" },
+        saltmarsh,
+      ),
+    );
     const viewer = await db()("users").where({ email: "viewer@example.com" }).first("id");
     const pending = await inviteByMail("pending@example.com", "viewer");
-    const inviteRow = await db()("team_invites").where({ token_hash: hashLinkToken(tokenOf(pending)) }).first("id");
+    const inviteRow = await db()("team_invites")
+      .where({ token_hash: hashLinkToken(tokenOf(pending)) })
+      .first("id");
     const before = JSON.stringify(await db()("memberships").orderBy(["user_id", "team_id"]));
     for (const fields of [
       { intent: "role", userId: String(viewer.id), role: "owner" },

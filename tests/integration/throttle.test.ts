@@ -45,7 +45,11 @@ describe("sign-in throttle", () => {
   it("the 429 says how long to wait, in words and in Retry-After (30 s the first time)", async () => {
     for (let i = 0; i < 5; i++) await call(login.action as Handler, guess("builder@example.com"));
     const { action } = login;
-    const response = (await action({ request: guess("builder@example.com"), params: {}, context: from("unknown") } as never)) as unknown as { init: ResponseInit; data: { error: string } };
+    const response = (await action({
+      request: guess("builder@example.com"),
+      params: {},
+      context: from("unknown"),
+    } as never)) as unknown as { init: ResponseInit; data: { error: string } };
     expect(response.init.status).toBe(429);
     expect(new Headers(response.init.headers).get("Retry-After")).toBe("30");
     expect(response.data.error).toBe("Too many sign-in attempts. Wait 30 seconds, then try again.");
@@ -59,7 +63,8 @@ describe("sign-in throttle", () => {
 
   it("guesses spread over 1,000 addresses still lock the account after 5", async () => {
     let n = 0;
-    for (let i = 0; i < 1000; i++) if ((await act(login.action, guess("other-owner@example.com"), `10.0.${i >> 8}.${i & 255}`)).status === 429) n++;
+    for (let i = 0; i < 1000; i++)
+      if ((await act(login.action, guess("other-owner@example.com"), `10.0.${i >> 8}.${i & 255}`)).status === 429) n++;
     expect(verify).toHaveBeenCalledTimes(5);
     expect(n).toBe(995);
   });
@@ -116,7 +121,12 @@ describe("sign-up and API throttles", () => {
 
   it("the estimate API: 240 a minute per person, then 429 with Retry-After", async () => {
     const cookie = await signIn("builder@example.com");
-    const request = () => new Request(`${ORIGIN}/api/v1/estimate`, { method: "POST", headers: { "Content-Type": "application/json", Cookie: cookie, Origin: ORIGIN }, body: "{}" });
+    const request = () =>
+      new Request(`${ORIGIN}/api/v1/estimate`, {
+        method: "POST",
+        headers: { "Content-Type": "application/json", Cookie: cookie, Origin: ORIGIN },
+        body: "{}",
+      });
     const statuses: number[] = [];
     for (let i = 0; i < 241; i++) statuses.push((await act(estimateApi.action, request(), `10.9.${i >> 8}.${i & 255}`)).status);
     expect(statuses.slice(0, 240).every((s) => s === 400)).toBe(true);

@@ -39,7 +39,8 @@ afterAll(() => fs.rmSync(UPLOADS, { recursive: true, force: true }));
 const storedFiles = (): string[] => {
   if (!fs.existsSync(UPLOADS)) return [];
   const out: string[] = [];
-  const walk = (d: string) => fs.readdirSync(d, { withFileTypes: true }).forEach((e) => (e.isDirectory() ? walk(path.join(d, e.name)) : out.push(e.name)));
+  const walk = (d: string) =>
+    fs.readdirSync(d, { withFileTypes: true }).forEach((e) => (e.isDirectory() ? walk(path.join(d, e.name)) : out.push(e.name)));
   walk(UPLOADS);
   return out;
 };
@@ -51,7 +52,10 @@ function formRequest(fd: FormData, cookie = builder) {
 }
 
 const BOUNDARY = "----sealwright-test-boundary";
-const head = (name: string, type: string) => new TextEncoder().encode(`--${BOUNDARY}\r\nContent-Disposition: form-data; name="file"; filename="${name}"\r\nContent-Type: ${type}\r\n\r\n`);
+const head = (name: string, type: string) =>
+  new TextEncoder().encode(
+    `--${BOUNDARY}\r\nContent-Disposition: form-data; name="file"; filename="${name}"\r\nContent-Type: ${type}\r\n\r\n`,
+  );
 
 /** A multipart body made chunk by chunk as it is read; counts what the server pulled. */
 function streamed(chunks: () => Generator<Uint8Array>, opts: { failAfter?: number } = {}) {
@@ -80,7 +84,9 @@ const params = () => ({ engineId: String(engineId) });
 
 describe("uploads", () => {
   it("keeps a photo under a server-made name with a thumbnail, and serves it only to its team", async () => {
-    const png = await sharp({ create: { width: 640, height: 480, channels: 3, background: "#a4521f" } }).png().toBuffer();
+    const png = await sharp({ create: { width: 640, height: 480, channels: 3, background: "#a4521f" } })
+      .png()
+      .toBuffer();
     const fd = new FormData();
     fd.append("assemblyId", String(assemblyId));
     fd.append("file", new File([png], "../../head gasket.png", { type: "image/png" }));
@@ -94,19 +100,33 @@ describe("uploads", () => {
     expect(row.storage_key).toMatch(/^t\d+\/[0-9a-f-]{36}$/);
     expect(storedFiles().some((n) => n.includes("head"))).toBe(false);
 
-    const served = await through(fileRoute.loader, new Request(`${ORIGIN}/files/${file.id}`, { headers: { Cookie: viewer } }), { fileId: String(file.id) });
+    const served = await through(fileRoute.loader, new Request(`${ORIGIN}/files/${file.id}`, { headers: { Cookie: viewer } }), {
+      fileId: String(file.id),
+    });
     expect(served.status).toBe(200);
     expect(served.headers.get("Content-Type")).toBe("image/png");
     expect(served.headers.get("X-Content-Type-Options")).toBe("nosniff");
     expect(served.headers.get("Content-Disposition")).toMatch(/^inline; filename\*=UTF-8''head%20gasket\.png$/);
-    const thumb = await through(fileRoute.loader, new Request(`${ORIGIN}/files/${file.id}?thumb=1`, { headers: { Cookie: viewer } }), { fileId: String(file.id) });
+    const thumb = await through(fileRoute.loader, new Request(`${ORIGIN}/files/${file.id}?thumb=1`, { headers: { Cookie: viewer } }), {
+      fileId: String(file.id),
+    });
     expect(thumb.headers.get("Content-Type")).toBe("image/webp");
     expect(Number(thumb.headers.get("Content-Length"))).toBeLessThan(png.length);
 
     // another team's owner: not found, as if it did not exist
-    expect((await through(fileRoute.loader, new Request(`${ORIGIN}/files/${file.id}`, { headers: { Cookie: other } }), { fileId: String(file.id) })).status).toBe(404);
+    expect(
+      (
+        await through(fileRoute.loader, new Request(`${ORIGIN}/files/${file.id}`, { headers: { Cookie: other } }), {
+          fileId: String(file.id),
+        })
+      ).status,
+    ).toBe(404);
     expect((await through(fileRoute.loader, new Request(`${ORIGIN}/files/${file.id}`), { fileId: String(file.id) })).status).toBe(302);
-    const page = await through(filesPage.loader, new Request(`${ORIGIN}/engines/${engineId}/files`, { headers: { Cookie: viewer } }), params());
+    const page = await through(
+      filesPage.loader,
+      new Request(`${ORIGIN}/engines/${engineId}/files`, { headers: { Cookie: viewer } }),
+      params(),
+    );
     expect((page.body as { files: { id: number }[] }).files.map((f) => f.id)).toContain(file.id);
   });
 
@@ -142,7 +162,9 @@ describe("uploads", () => {
     const { request, pulled } = streamed(function* () {
       yield head("big.png", "image/png");
     });
-    const declared = new Request(request, { headers: { ...Object.fromEntries(request.headers), "Content-Length": String(MAX_UPLOAD_BYTES * 3) } });
+    const declared = new Request(request, {
+      headers: { ...Object.fromEntries(request.headers), "Content-Length": String(MAX_UPLOAD_BYTES * 3) },
+    });
     const out = await through(upload.action, declared, params());
     expect(out.status).toBe(413);
     // only the part header the stream queues by itself when made; nothing read after it
@@ -151,7 +173,9 @@ describe("uploads", () => {
 
   it("an upload cut off mid-stream leaves no row and no file", async () => {
     const before = [await fileRows(), storedFiles().length];
-    const png = await sharp({ create: { width: 1200, height: 900, channels: 3, background: "#2b4456" } }).png({ compressionLevel: 0 }).toBuffer();
+    const png = await sharp({ create: { width: 1200, height: 900, channels: 3, background: "#2b4456" } })
+      .png({ compressionLevel: 0 })
+      .toBuffer();
     const { request } = streamed(
       function* () {
         yield head("cut.png", "image/png");
@@ -170,8 +194,11 @@ describe("uploads", () => {
     const fd = new FormData();
     fd.append("file", new File([new Uint8Array([1])], "x.png"));
     expect((await through(upload.action, formRequest(fd, viewer), params())).status).toBe(403);
-    const page = await through(filesPage.loader, new Request(`${ORIGIN}/engines/${engineId}/files`, { headers: { Cookie: builder } }), params());
+    const page = await through(
+      filesPage.loader,
+      new Request(`${ORIGIN}/engines/${engineId}/files`, { headers: { Cookie: builder } }),
+      params(),
+    );
     expect((page.body as { quotaBytes: number }).quotaBytes).toBe(500 * 1024 * 1024);
   });
 });
-

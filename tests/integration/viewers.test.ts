@@ -26,7 +26,13 @@ const h = (f: unknown) => f as Handler;
 
 beforeAll(async () => {
   sink = await startTestSink();
-  for (const [k, email] of [["viewer", "viewer@example.com"], ["builder", "builder@example.com"], ["owner", "owner@example.com"], ["other", "other-owner@example.com"]] as const) cookies[k] = await signIn(email);
+  for (const [k, email] of [
+    ["viewer", "viewer@example.com"],
+    ["builder", "builder@example.com"],
+    ["owner", "owner@example.com"],
+    ["other", "other-owner@example.com"],
+  ] as const)
+    cookies[k] = await signIn(email);
   const team = await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id");
   shared = (await db()("engines").where({ team_id: team.id, name: "Fenwick-Oddy 2.0 four" }).first("id")).id;
   unshared = (await db()("engines").where({ team_id: team.id, cylinders: 6 }).first("id")).id;
@@ -34,14 +40,20 @@ beforeAll(async () => {
   return () => sink.close();
 });
 
-const engineNames = async (cookie: string) => ((await call(h(list.loader), get("/engines", cookie))).body as { rows: { name: string }[] }).rows.map((r) => r.name).sort();
+const engineNames = async (cookie: string) =>
+  ((await call(h(list.loader), get("/engines", cookie))).body as { rows: { name: string }[] }).rows.map((r) => r.name).sort();
 
 describe("what a viewer sees", () => {
   it("lists only the engines shared with them; builders and owners list all three", async () => {
     expect(await engineNames(cookies.viewer)).toEqual(["Fenwick-Oddy 2.0 four"]);
     expect(await engineNames(cookies.builder)).toHaveLength(3);
     expect(await engineNames(cookies.owner)).toHaveLength(3);
-    const dash = (await call(h(dashboard.loader), get("/dashboard", cookies.viewer))).body as { counts: Record<string, number>; recent: unknown[]; events: unknown[]; atRisk: { engineId: number }[] };
+    const dash = (await call(h(dashboard.loader), get("/dashboard", cookies.viewer))).body as {
+      counts: Record<string, number>;
+      recent: unknown[];
+      events: unknown[];
+      atRisk: { engineId: number }[];
+    };
     expect(Object.values(dash.counts).reduce((a, b) => a + b, 0)).toBe(1);
     expect(dash.recent).toHaveLength(1);
     expect(dash.events).toEqual([]);
@@ -61,19 +73,24 @@ describe("what a viewer sees", () => {
     ] as const) {
       expect((await call(h(loader), get(path, cookies.viewer), { engineId: String(unshared), ...params })).status, path).toBe(404);
     }
-    expect((await call(h(editor.loader), get("/", cookies.viewer), { engineId: String(shared), planId: String(sharedPlan.id) })).status).toBe(200);
+    expect(
+      (await call(h(editor.loader), get("/", cookies.viewer), { engineId: String(shared), planId: String(sharedPlan.id) })).status,
+    ).toBe(200);
     expect((await call(h(overview.loader), get("/", cookies.viewer), { engineId: String(shared) })).status).toBe(200);
   });
 });
 
 describe("sharing an engine", () => {
   it("is a builder's: sharing the six makes it appear for the viewer, stopping hides it again", async () => {
-    const share = (value: string, cookie: string, engineId = unshared, id = viewerId) => call(h(sharing.action), post("/", { viewerId: String(id), shared: value }, cookie), { engineId: String(engineId) });
+    const share = (value: string, cookie: string, engineId = unshared, id = viewerId) =>
+      call(h(sharing.action), post("/", { viewerId: String(id), shared: value }, cookie), { engineId: String(engineId) });
     expect((await share("true", cookies.viewer)).status).toBe(403);
     expect(await engineNames(cookies.viewer)).toEqual(["Fenwick-Oddy 2.0 four"]);
     expect((await share("true", cookies.builder)).status).toBe(302);
     expect(await engineNames(cookies.viewer)).toHaveLength(2);
-    const page = (await call(h(sharing.loader), get("/", cookies.builder), { engineId: String(unshared) })).body as { viewers: { userId: number; shared: boolean }[] };
+    const page = (await call(h(sharing.loader), get("/", cookies.builder), { engineId: String(unshared) })).body as {
+      viewers: { userId: number; shared: boolean }[];
+    };
     expect(page.viewers).toEqual([expect.objectContaining({ userId: viewerId, shared: true })]);
     expect((await share("false", cookies.builder)).status).toBe(302);
     expect(await engineNames(cookies.viewer)).toEqual(["Fenwick-Oddy 2.0 four"]);
@@ -82,11 +99,36 @@ describe("sharing an engine", () => {
   it("refuses a non-viewer, another shop's engine (404) and bad input (400), writing nothing", async () => {
     const before = JSON.stringify(await db()("engine_shares").orderBy(["engine_id", "user_id"]));
     const builderId = (await db()("users").where({ email: "builder@example.com" }).first("id")).id;
-    const otherEngine = (await db()("engines").whereNot({ team_id: (await db()("engines").where({ id: shared }).first("team_id")).team_id }).first("id"))?.id ?? 999_999;
-    expect((await call(h(sharing.action), post("/", { viewerId: String(builderId), shared: "true" }, cookies.builder), { engineId: String(unshared) })).status).toBe(404);
-    expect((await call(h(sharing.action), post("/", { viewerId: String(viewerId), shared: "true" }, cookies.other), { engineId: String(shared) })).status).toBe(404);
-    expect((await call(h(sharing.action), post("/", { viewerId: String(viewerId), shared: "true" }, cookies.builder), { engineId: String(otherEngine) })).status).toBe(404);
-    const bad = await call(h(sharing.action), post("/", { viewerId: "x", shared: "maybe" }, cookies.builder), { engineId: String(unshared) });
+    const otherEngine =
+      (
+        await db()("engines")
+          .whereNot({ team_id: (await db()("engines").where({ id: shared }).first("team_id")).team_id })
+          .first("id")
+      )?.id ?? 999_999;
+    expect(
+      (
+        await call(h(sharing.action), post("/", { viewerId: String(builderId), shared: "true" }, cookies.builder), {
+          engineId: String(unshared),
+        })
+      ).status,
+    ).toBe(404);
+    expect(
+      (
+        await call(h(sharing.action), post("/", { viewerId: String(viewerId), shared: "true" }, cookies.other), {
+          engineId: String(shared),
+        })
+      ).status,
+    ).toBe(404);
+    expect(
+      (
+        await call(h(sharing.action), post("/", { viewerId: String(viewerId), shared: "true" }, cookies.builder), {
+          engineId: String(otherEngine),
+        })
+      ).status,
+    ).toBe(404);
+    const bad = await call(h(sharing.action), post("/", { viewerId: "x", shared: "maybe" }, cookies.builder), {
+      engineId: String(unshared),
+    });
     expect(bad.status).toBe(400);
     expect(Object.keys((bad.body as { errors: object }).errors).sort()).toEqual(["shared", "viewerId"]);
     expect(JSON.stringify(await db()("engine_shares").orderBy(["engine_id", "user_id"]))).toBe(before);
@@ -97,7 +139,16 @@ describe("the build sheet", () => {
   it("shows the chosen plan with the estimate, the maker's figures and the chamber", async () => {
     const out = await call(h(sheet.loader), get("/", cookies.viewer), { engineId: String(shared) });
     expect(out.status).toBe(200);
-    const body = out.body as { canSend: boolean; sheet: { ok: true; plan: { id: number }; view: { estimate: { cylinders: { clampN: number; sealMargin: number }[]; verdict: { status: string } } }; chamber: { compressionRatio: number } | null; fastener: { makerTorqueNm: number | null } } };
+    const body = out.body as {
+      canSend: boolean;
+      sheet: {
+        ok: true;
+        plan: { id: number };
+        view: { estimate: { cylinders: { clampN: number; sealMargin: number }[]; verdict: { status: string } } };
+        chamber: { compressionRatio: number } | null;
+        fastener: { makerTorqueNm: number | null };
+      };
+    };
     const engine = await db()("engines").where({ id: shared }).first("chosen_plan_id");
     expect(body.canSend).toBe(false);
     expect(body.sheet.ok).toBe(true);
@@ -111,7 +162,11 @@ describe("the build sheet", () => {
   });
 
   it("is e-mailed by a builder to a viewer it is shared with: a summary and a sign-in link", async () => {
-    const out = await call(h(sheet.action), post("/", { viewerId: String(viewerId), note: "Here is the plan we settled on." }, cookies.builder), { engineId: String(shared) });
+    const out = await call(
+      h(sheet.action),
+      post("/", { viewerId: String(viewerId), note: "Here is the plan we settled on." }, cookies.builder),
+      { engineId: String(shared) },
+    );
     expect(out.status).toBe(302);
     const [mail] = await sink.waitFor("viewer@example.com");
     expect(mail!.subject).toBe("Build sheet: Fenwick-Oddy 2.0 four — Harrow Lane Boost Works");
@@ -125,9 +180,15 @@ describe("the build sheet", () => {
 
   it("is not sent to a viewer the engine is not shared with (404), nor by a viewer (403), nor with bad input (400)", async () => {
     const before = sink.messagesTo("viewer@example.com").length;
-    expect((await call(h(sheet.action), post("/", { viewerId: String(viewerId) }, cookies.builder), { engineId: String(unshared) })).status).toBe(404);
-    expect((await call(h(sheet.action), post("/", { viewerId: String(viewerId) }, cookies.viewer), { engineId: String(shared) })).status).toBe(403);
-    const bad = await call(h(sheet.action), post("/", { viewerId: "", note: "x".repeat(1001) }, cookies.builder), { engineId: String(shared) });
+    expect(
+      (await call(h(sheet.action), post("/", { viewerId: String(viewerId) }, cookies.builder), { engineId: String(unshared) })).status,
+    ).toBe(404);
+    expect(
+      (await call(h(sheet.action), post("/", { viewerId: String(viewerId) }, cookies.viewer), { engineId: String(shared) })).status,
+    ).toBe(403);
+    const bad = await call(h(sheet.action), post("/", { viewerId: "", note: "x".repeat(1001) }, cookies.builder), {
+      engineId: String(shared),
+    });
     expect(bad.status).toBe(400);
     expect(Object.keys((bad.body as { errors: object }).errors).sort()).toEqual(["note", "viewerId"]);
     await new Promise((r) => setTimeout(r, 100));

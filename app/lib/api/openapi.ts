@@ -25,7 +25,10 @@ const json = (schema: z.ZodType) => ({ "application/json": { schema } });
 const refusal = (description: string) => ({ description, content: json(ErrorBodySchema) });
 const REFUSALS = {
   "401": refusal("No session and no token, or the token is unknown or revoked."),
-  "429": { ...refusal("Too many requests; wait the Retry-After seconds."), headers: { "Retry-After": { schema: { type: "integer" as const }, description: "seconds" } } },
+  "429": {
+    ...refusal("Too many requests; wait the Retry-After seconds."),
+    headers: { "Retry-After": { schema: { type: "integer" as const }, description: "seconds" } },
+  },
 };
 const WRITE_REFUSALS = {
   ...REFUSALS,
@@ -42,8 +45,18 @@ const read = (schema: z.ZodType, description: string) => ({
   "200": { description, headers: READ_HEADERS, content: json(schema) },
   "304": { description: "Unchanged since the ETag sent in If-None-Match." },
 });
-const engineIdParam = z.object({ engineId: z.string().regex(/^[1-9][0-9]*$/).meta({ description: "engine id" }) });
-const planIdParams = engineIdParam.extend({ planId: z.string().regex(/^[1-9][0-9]*$/).meta({ description: "plan id" }) });
+const engineIdParam = z.object({
+  engineId: z
+    .string()
+    .regex(/^[1-9][0-9]*$/)
+    .meta({ description: "engine id" }),
+});
+const planIdParams = engineIdParam.extend({
+  planId: z
+    .string()
+    .regex(/^[1-9][0-9]*$/)
+    .meta({ description: "plan id" }),
+});
 const notFound = refusal("Not this team's, or no such record.");
 
 const op = (o: ZodOpenApiOperationObject) => ({ security: [{ bearer: [] }, { session: [] }], ...o });
@@ -66,7 +79,13 @@ const paths: ZodOpenApiPathsObject = {
       operationId: "estimatePlan",
       summary: "Run the clamp model on one plan (stores nothing)",
       requestBody: { required: true, content: json(EstimateRequestSchema) },
-      responses: { "200": { description: "The estimate, a torque sweep around the plan's torque and the scatter run.", content: json(EstimateViewSchema) }, ...WRITE_REFUSALS },
+      responses: {
+        "200": {
+          description: "The estimate, a torque sweep around the plan's torque and the scatter run.",
+          content: json(EstimateViewSchema),
+        },
+        ...WRITE_REFUSALS,
+      },
     }),
   },
   "/api/v1/sweep": {
@@ -86,7 +105,12 @@ const paths: ZodOpenApiPathsObject = {
     }),
   },
   "/api/v1/engines/{engineId}": {
-    get: op({ operationId: "getEngine", summary: "One engine", requestParams: { path: engineIdParam }, responses: { ...read(EngineSchema, "The engine."), ...REFUSALS, "404": notFound } }),
+    get: op({
+      operationId: "getEngine",
+      summary: "One engine",
+      requestParams: { path: engineIdParam },
+      responses: { ...read(EngineSchema, "The engine."), ...REFUSALS, "404": notFound },
+    }),
   },
   "/api/v1/engines/{engineId}/plans": {
     get: op({
@@ -101,7 +125,12 @@ const paths: ZodOpenApiPathsObject = {
       operationId: "getPlan",
       summary: "One plan with its clamp-model input and estimate",
       requestParams: { path: planIdParams, query: PlanReadQuerySchema },
-      responses: { ...read(PlanWithEstimateSchema, "The plan and its estimate."), ...REFUSALS, "400": refusal("A query value is wrong."), "404": notFound },
+      responses: {
+        ...read(PlanWithEstimateSchema, "The plan and its estimate."),
+        ...REFUSALS,
+        "400": refusal("A query value is wrong."),
+        "404": notFound,
+      },
     }),
   },
   "/api/v1/runs": {
@@ -109,17 +138,31 @@ const paths: ZodOpenApiPathsObject = {
       operationId: "listRuns",
       summary: `The team's run log, newest first, by cursor (limit at most ${PAGE_LIMIT_MAX})`,
       requestParams: { query: RunListQuerySchema },
-      responses: { ...read(RunListSchema, "One page of runs."), ...REFUSALS, "400": refusal("A filter is wrong."), "404": refusal("The run log is not in this installation yet.") },
+      responses: {
+        ...read(RunListSchema, "One page of runs."),
+        ...REFUSALS,
+        "400": refusal("A filter is wrong."),
+        "404": refusal("The run log is not in this installation yet."),
+      },
     }),
     post: op({
       operationId: "logRun",
       summary: "Log one dyno session or pass (builder or owner)",
       requestBody: { required: true, content: json(RunCreateSchema) },
-      responses: { "201": { description: "The run as stored.", content: json(RunSchema) }, ...WRITE_REFUSALS, "404": refusal("The engine is not this team's, or the run log is not installed yet.") },
+      responses: {
+        "201": { description: "The run as stored.", content: json(RunSchema) },
+        ...WRITE_REFUSALS,
+        "404": refusal("The engine is not this team's, or the run log is not installed yet."),
+      },
     }),
   },
   "/api/v1/openapi.json": {
-    get: { operationId: "openApiDocument", summary: "This document (public)", security: [], responses: { "200": { description: "OpenAPI 3.1" } } },
+    get: {
+      operationId: "openApiDocument",
+      summary: "This document (public)",
+      security: [],
+      responses: { "200": { description: "OpenAPI 3.1" } },
+    },
   },
 };
 

@@ -4,7 +4,16 @@ import { PAGE_LIMIT_DEFAULT, PAGE_LIMIT_MAX } from "./paging";
 
 // The same values as the run log's own schema and table checks (the run-log branch's app/lib/records/run.ts).
 export const RUN_KINDS = ["dyno", "pass", "street"] as const;
-export const RUN_OUTCOMES = ["held", "seeping", "coolant-leak", "combustion-leak", "lifted-head", "blown-gasket", "stud-failure", "other"] as const;
+export const RUN_OUTCOMES = [
+  "held",
+  "seeping",
+  "coolant-leak",
+  "combustion-leak",
+  "lifted-head",
+  "blown-gasket",
+  "stud-failure",
+  "other",
+] as const;
 
 const isoDate = z.iso.date("ranOn is a date like 2026-12-01");
 
@@ -13,9 +22,19 @@ export const RunCreateSchema = z
     engineId: z.number().int("engineId is a whole number").positive("engineId is a record id"),
     ranOn: isoDate,
     kind: z.enum(RUN_KINDS, `kind is one of ${RUN_KINDS.join(", ")}`),
-    manifoldPressureKpa: z.number().gt(0, "manifoldPressureKpa is absolute and above zero").max(1000, "manifoldPressureKpa is at most 1000").nullable().default(null),
+    manifoldPressureKpa: z
+      .number()
+      .gt(0, "manifoldPressureKpa is absolute and above zero")
+      .max(1000, "manifoldPressureKpa is at most 1000")
+      .nullable()
+      .default(null),
     fuel: z.string().trim().max(60, "fuel is at most 60 characters").default(""),
-    peakCylinderPressureMpa: z.number().gt(0, "peakCylinderPressureMpa must be above zero").max(60, "peakCylinderPressureMpa is at most 60").nullable().default(null),
+    peakCylinderPressureMpa: z
+      .number()
+      .gt(0, "peakCylinderPressureMpa must be above zero")
+      .max(60, "peakCylinderPressureMpa is at most 60")
+      .nullable()
+      .default(null),
     peakPressureSource: z.enum(["measured", "estimated"], "peakPressureSource is measured or estimated").default("estimated"),
     outcome: z.enum(RUN_OUTCOMES, `outcome is one of ${RUN_OUTCOMES.join(", ")}`),
     cylindersAffected: z
@@ -54,10 +73,22 @@ export const RunListQuerySchema = z.strictObject({
   outcome: z.enum(RUN_OUTCOMES).optional(),
   from: isoDate.optional().meta({ description: "earliest ranOn, inclusive" }),
   to: isoDate.optional().meta({ description: "latest ranOn, inclusive" }),
-  cursor: z.string().regex(/^[1-9][0-9]{0,15}$/, "cursor is the nextCursor of the last page").optional(),
-  limit: z.coerce.number().int().min(1, "limit is at least 1").max(PAGE_LIMIT_MAX, `limit is at most ${PAGE_LIMIT_MAX}`).default(PAGE_LIMIT_DEFAULT),
+  cursor: z
+    .string()
+    .regex(/^[1-9][0-9]{0,15}$/, "cursor is the nextCursor of the last page")
+    .optional(),
+  limit: z.coerce
+    .number()
+    .int()
+    .min(1, "limit is at least 1")
+    .max(PAGE_LIMIT_MAX, `limit is at most ${PAGE_LIMIT_MAX}`)
+    .default(PAGE_LIMIT_DEFAULT),
 });
 
 export const RunListSchema = z
-  .object({ items: z.array(RunSchema), limit: z.number().int(), nextCursor: z.string().nullable().meta({ description: "Pass as ?cursor= for the next page; null on the last." }) })
+  .object({
+    items: z.array(RunSchema),
+    limit: z.number().int(),
+    nextCursor: z.string().nullable().meta({ description: "Pass as ?cursor= for the next page; null on the last." }),
+  })
   .meta({ id: "RunList" });

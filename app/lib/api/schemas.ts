@@ -30,7 +30,10 @@ const pageFields = { page: z.number().int(), limit: z.number().int(), total: z.n
 
 // ─── Estimate and sweep (stateless) ──────────────────────────────────────────────────────────
 export const UnitsSchema = z.enum(["metric", "imperial"]).meta({ description: "How sentences word their figures; numbers stay SI." });
-export const PlanInputDoc = PlanInputSchema.meta({ id: "PlanInput", description: "One plan in the clamp model's own shape (docs/clamp-model.md#inputs). Unknown keys inside it are ignored." });
+export const PlanInputDoc = PlanInputSchema.meta({
+  id: "PlanInput",
+  description: "One plan in the clamp model's own shape (docs/clamp-model.md#inputs). Unknown keys inside it are ignored.",
+});
 
 export const EstimateRequestSchema = z.strictObject({ input: PlanInputDoc, units: UnitsSchema.optional() }).meta({ id: "EstimateRequest" });
 
@@ -45,8 +48,18 @@ export const SweepRowSchema = z.object({
   mostlySqueezing: z.boolean(),
 });
 const nullableFigure = finite.nullable().meta({ description: "null where the limit never binds" });
-export const CeilingSchema = z.looseObject({ torqueNm: nullableFigure, cause: z.string(), torques: z.record(z.string(), nullableFigure), explanation: z.string() });
-export const VerdictSchema = z.looseObject({ status: z.enum(["holds", "thin", "short"]), headline: z.string(), limiting: z.string(), checks: z.array(z.looseObject({})) });
+export const CeilingSchema = z.looseObject({
+  torqueNm: nullableFigure,
+  cause: z.string(),
+  torques: z.record(z.string(), nullableFigure),
+  explanation: z.string(),
+});
+export const VerdictSchema = z.looseObject({
+  status: z.enum(["holds", "thin", "short"]),
+  headline: z.string(),
+  limiting: z.string(),
+  checks: z.array(z.looseObject({})),
+});
 export const PlanEstimateSchema = z
   .looseObject({
     tightening: z.looseObject({ torqueNm: finite, torquePerPreloadMm: finite, equivalentNutFactor: finite }),
@@ -58,7 +71,10 @@ export const PlanEstimateSchema = z
     verdict: VerdictSchema,
     ceiling: CeilingSchema,
   })
-  .meta({ id: "PlanEstimate", description: "The clamp model's estimate (per-cylinder clamp, seal margins, stud stress, stiffness, warnings …); docs/clamp-model.md." });
+  .meta({
+    id: "PlanEstimate",
+    description: "The clamp model's estimate (per-cylinder clamp, seal margins, stud stress, stiffness, warnings …); docs/clamp-model.md.",
+  });
 export const EstimateViewSchema = z
   .object({
     torqueNm: finite,
@@ -82,13 +98,26 @@ export const SweepRequestSchema = z
     input: PlanInputDoc,
     fromNm: z.number().min(0, "fromNm cannot be negative").max(SWEEP_MAX_NM, `fromNm is at most ${SWEEP_MAX_NM}`),
     toNm: z.number().gt(0, "toNm must be greater than zero").max(SWEEP_MAX_NM, `toNm is at most ${SWEEP_MAX_NM}`),
-    points: z.number().int("points is a whole number").min(2, "points is at least 2").max(SWEEP_MAX_POINTS, `points is at most ${SWEEP_MAX_POINTS}`).default(41),
+    points: z
+      .number()
+      .int("points is a whole number")
+      .min(2, "points is at least 2")
+      .max(SWEEP_MAX_POINTS, `points is at most ${SWEEP_MAX_POINTS}`)
+      .default(41),
     units: UnitsSchema.optional(),
   })
   .refine((b) => b.toNm > b.fromNm, { message: "toNm must be above fromNm", path: ["toNm"] })
   .meta({ id: "SweepRequest" });
-export const SweepPointSchema = SweepRowSchema.extend({ preloadMinN: finite, preloadN: finite, preloadMaxN: finite, weakestCylinder: z.number().int(), headStrain: finite });
-export const SweepResponseSchema = z.object({ points: z.array(SweepPointSchema), ceiling: CeilingSchema, headSqueezeOnsetNm: finite.nullable() }).meta({ id: "Sweep" });
+export const SweepPointSchema = SweepRowSchema.extend({
+  preloadMinN: finite,
+  preloadN: finite,
+  preloadMaxN: finite,
+  weakestCylinder: z.number().int(),
+  headStrain: finite,
+});
+export const SweepResponseSchema = z
+  .object({ points: z.array(SweepPointSchema), ceiling: CeilingSchema, headSqueezeOnsetNm: finite.nullable() })
+  .meta({ id: "Sweep" });
 
 // ─── Engines and plans (reads) ───────────────────────────────────────────────────────────────
 export const ENGINE_STATUSES = ["quoted", "in-build", "running", "retired"] as const;
@@ -110,7 +139,10 @@ export const EngineSummarySchema = z.object({
   updatedAt: isoDateTime,
 });
 export const EngineListSchema = z.object({ items: z.array(EngineSummarySchema), ...pageFields }).meta({ id: "EngineList" });
-export const StudRowSchema = z.object({ label: z.string().optional(), serves: z.array(z.object({ cylinder: z.number().int(), share: finite })) });
+export const StudRowSchema = z.object({
+  label: z.string().optional(),
+  serves: z.array(z.object({ cylinder: z.number().int(), share: finite })),
+});
 export const EngineSchema = z
   .object({
     id,
@@ -178,7 +210,10 @@ export const PlanReadQuerySchema = z.strictObject({ units: UnitsSchema.optional(
 export const PlanWithEstimateSchema = z
   .object({
     plan: PlanSchema,
-    input: z.looseObject({}).nullable().meta({ description: "The plan as the clamp model's input (send it to /api/v1/sweep); null when it cannot be built." }),
+    input: z
+      .looseObject({})
+      .nullable()
+      .meta({ description: "The plan as the clamp model's input (send it to /api/v1/sweep); null when it cannot be built." }),
     estimate: EstimateViewSchema.nullable(),
     problems: z.array(z.string()).meta({ description: "Why there is no estimate (empty when there is one)." }),
   })

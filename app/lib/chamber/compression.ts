@@ -94,8 +94,10 @@ export function chamberProblems(a: CompressionInput): string[] {
   if (!(a.strokeMm > 0)) out.push("Stroke must be greater than zero");
   if (!(a.gasketBoreMm >= a.boreMm)) out.push("Gasket bore must be at least the cylinder bore");
   if (!(a.gasketThicknessMm > 0)) out.push("Gasket thickness must be greater than zero");
-  if (out.length === 0 && !(a.chamberCc + cylinderCc(a.gasketBoreMm, a.gasketThicknessMm) +
-      cylinderCc(a.boreMm, a.deckClearanceMm) + a.pistonVolumeCc > 0))
+  if (
+    out.length === 0 &&
+    !(a.chamberCc + cylinderCc(a.gasketBoreMm, a.gasketThicknessMm) + cylinderCc(a.boreMm, a.deckClearanceMm) + a.pistonVolumeCc > 0)
+  )
     out.push("The dome and deck leave no clearance volume: check the piston volume and deck clearance");
   return out;
 }

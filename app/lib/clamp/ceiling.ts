@@ -11,7 +11,6 @@ import { CEILING_WORDS, type CeilingCause } from "./ceiling-words";
 
 export { CEILING_WORDS, type CeilingCause };
 
-
 export interface Ceiling {
   torqueNm: number;
   cause: CeilingCause;
@@ -96,10 +95,14 @@ function ceilingFor(p: Prepared): { torques: Record<CeilingCause, number>; cause
   const qb = (2 * extra) / (a0 * a0);
   const qc = (extra * extra) / (a0 * a0) - f.yieldMpa * f.yieldMpa;
   const studWorking = qc >= 0 ? 0 : toT((-qb + Math.sqrt(qb * qb - 4 * qa * qc)) / (2 * qa));
-  const crush = crushApplies(p)
-    ? firstFailing((T) => crushedAtMax(p, preloadForTorque(p, T)), hi)
-    : Infinity;
-  const torques: Record<CeilingCause, number> = { "stud-assembly": studAssembly, "stud-working": studWorking, bearing, "thread-strip": strip, crush };
+  const crush = crushApplies(p) ? firstFailing((T) => crushedAtMax(p, preloadForTorque(p, T)), hi) : Infinity;
+  const torques: Record<CeilingCause, number> = {
+    "stud-assembly": studAssembly,
+    "stud-working": studWorking,
+    bearing,
+    "thread-strip": strip,
+    crush,
+  };
   let cause: CeilingCause = "stud-assembly";
   for (const c of Object.keys(torques) as CeilingCause[]) if (torques[c] < torques[cause]) cause = c;
   return { torques, cause };

@@ -111,7 +111,11 @@ export function boreCrush(p: Prepared, clampColdN: number, clampHotN: number): n
 }
 
 /** Weakest seal margin over the bores for given per-bore cold and hot clamps. */
-export function weakestMargin(p: Prepared, coldClamps: Float64Array, hotClamps: Float64Array): { margin: number; bore: number; bodyMargin: number } {
+export function weakestMargin(
+  p: Prepared,
+  coldClamps: Float64Array,
+  hotClamps: Float64Array,
+): { margin: number; bore: number; bodyMargin: number } {
   let margin = Infinity;
   let bodyMargin = Infinity;
   let bore = 0;

@@ -69,7 +69,13 @@ export interface StudEstimate {
 export interface PlanEstimate {
   threadForm: ThreadForm;
   thread: ThreadGeometry;
-  tightening: { torqueNm: number; preload: PreloadBand; torquePerPreloadMm: number; equivalentNutFactor: number; frictionDiameterMm: number };
+  tightening: {
+    torqueNm: number;
+    preload: PreloadBand;
+    torquePerPreloadMm: number;
+    equivalentNutFactor: number;
+    frictionDiameterMm: number;
+  };
   studStress: { nominal: TighteningStress; atMax: TighteningStress; limitMpa: number; working: WorkingState };
   stiffness: {
     gripMm: number;
@@ -136,7 +142,12 @@ export function evaluatePlan(input: PlanInput, wording: Wording = SI_WORDING, op
   return evaluatePrepared(prepare(input), undefined, wording, options);
 }
 
-export function evaluatePrepared(p: Prepared, torqueOverrideNm: number | undefined, wording: Wording = SI_WORDING, options: EvaluateOptions = {}): PlanEstimate {
+export function evaluatePrepared(
+  p: Prepared,
+  torqueOverrideNm: number | undefined,
+  wording: Wording = SI_WORDING,
+  options: EvaluateOptions = {},
+): PlanEstimate {
   const base = targetTorqueAndPreload(p);
   const torqueNm = torqueOverrideNm ?? base.torqueNm;
   const F = torqueOverrideNm === undefined ? base.preloadN : (torqueOverrideNm * 1000) / p.torquePerPreloadMm;

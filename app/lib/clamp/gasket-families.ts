@@ -39,7 +39,8 @@ export const TYPICAL_GASKETS: Record<GasketFamily, TypicalGasket> = {
     relaxationPercent: 3,
     // with sealant or o-rings at the coolant holes, as is usual under solid copper (common practice)
     bodySealPressureMpa: 5,
-    notes: "Ring: 300-series wire; the wire bites into annealed copper (40 HV, published). Body pressure to seal coolant (with sealant or o-rings at the coolant holes, common practice) and relaxation are our assumptions.",
+    notes:
+      "Ring: 300-series wire; the wire bites into annealed copper (40 HV, published). Body pressure to seal coolant (with sealant or o-rings at the coolant holes, common practice) and relaxation are our assumptions.",
   },
   mls: {
     label: "Multilayer steel with a stopper",
@@ -54,7 +55,8 @@ export const TYPICAL_GASKETS: Record<GasketFamily, TypicalGasket> = {
     bodySealPressureMpa: 5,
     beadLoadNPerMm: 80,
     beadTravelMm: 0.15,
-    notes: "Bead line load 80 N/mm over 0.15 mm of travel to the stopper, body modulus and body seal pressure are our assumptions; the stopper presses on a cast aluminium head (3 × its 165 MPa yield).",
+    notes:
+      "Bead line load 80 N/mm over 0.15 mm of travel to the stopper, body modulus and body seal pressure are our assumptions; the stopper presses on a cast aluminium head (3 × its 165 MPa yield).",
   },
   "mls-with-ring": {
     label: "Multilayer steel with a ring in the sleeve",

@@ -11,14 +11,43 @@ export interface HandbookMaterial {
 }
 
 export const HANDBOOK_MATERIALS: Record<string, HandbookMaterial> = {
-  "a356-t6": { name: "A356.0-T6 cast aluminium (sand, minimum)", modulusMpa: 72_400, yieldMpa: 165, expansionUmPerMC: 21.4, source: "Aluminum Association data via MatWeb" },
+  "a356-t6": {
+    name: "A356.0-T6 cast aluminium (sand, minimum)",
+    modulusMpa: 72_400,
+    yieldMpa: 165,
+    expansionUmPerMC: 21.4,
+    source: "Aluminum Association data via MatWeb",
+  },
   "6061-t6": { name: "6061-T6 wrought aluminium", modulusMpa: 68_900, yieldMpa: 276, expansionUmPerMC: 23.6, source: "MatWeb" },
   "7075-t6": { name: "7075-T6 wrought aluminium", modulusMpa: 71_700, yieldMpa: 503, expansionUmPerMC: 23.4, source: "MatWeb" },
-  "gray-iron-30-40": { name: "Gray cast iron, class 30–40", modulusMpa: 100_000, expansionUmPerMC: 10.8, source: "ASTM A48; Shigley table A-5" },
+  "gray-iron-30-40": {
+    name: "Gray cast iron, class 30–40",
+    modulusMpa: 100_000,
+    expansionUmPerMC: 10.8,
+    source: "ASTM A48; Shigley table A-5",
+  },
   "ductile-65-45-12": { name: "Ductile iron 65-45-12", modulusMpa: 169_000, yieldMpa: 310, expansionUmPerMC: 11.5, source: "ASTM A536" },
-  "4340-qt": { name: "4340 steel, quenched and tempered (425 °C)", modulusMpa: 205_000, yieldMpa: 1379, expansionUmPerMC: 12.3, source: "MatWeb" },
-  "stainless-300-wire": { name: "300-series stainless wire (annealed)", modulusMpa: 193_000, yieldMpa: 207, expansionUmPerMC: 17.3, source: "MatWeb" },
-  "c11000-annealed": { name: "C11000 copper, annealed", modulusMpa: 115_000, yieldMpa: 70, expansionUmPerMC: 17.0, source: "copper producer data sheet" },
+  "4340-qt": {
+    name: "4340 steel, quenched and tempered (425 °C)",
+    modulusMpa: 205_000,
+    yieldMpa: 1379,
+    expansionUmPerMC: 12.3,
+    source: "MatWeb",
+  },
+  "stainless-300-wire": {
+    name: "300-series stainless wire (annealed)",
+    modulusMpa: 193_000,
+    yieldMpa: 207,
+    expansionUmPerMC: 17.3,
+    source: "MatWeb",
+  },
+  "c11000-annealed": {
+    name: "C11000 copper, annealed",
+    modulusMpa: 115_000,
+    yieldMpa: 70,
+    expansionUmPerMC: 17.0,
+    source: "copper producer data sheet",
+  },
 };
 
 /** Limiting surface pressure under washers, MPa (VDI 2230, 2003 edition, as quoted by a fastener catalogue). */

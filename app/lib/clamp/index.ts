@@ -4,8 +4,29 @@ export type { PlanInput, PlanInputRaw, Stud } from "./schema";
 export { defaultStudPattern } from "./pattern";
 export { evaluatePlan, type EvaluateOptions, type PlanEstimate, type CylinderEstimate, type StudEstimate } from "./evaluate";
 export { torqueSweep, type SweepOptions, type SweepPoint, type SweepResult } from "./sweep";
-export { torqueCeiling, sealGainPer10, headSqueeze, headSqueezeOnset, CEILING_WORDS, type Ceiling, type CeilingCause, type SealGain, type HeadSqueeze } from "./ceiling";
-export { verdictFor, bandSeal, workingState, rankChecks, TORSION_RELIEF, type Verdict, type LimitCheck, type CheckId, type Status, type WorkingState } from "./limits";
+export {
+  torqueCeiling,
+  sealGainPer10,
+  headSqueeze,
+  headSqueezeOnset,
+  CEILING_WORDS,
+  type Ceiling,
+  type CeilingCause,
+  type SealGain,
+  type HeadSqueeze,
+} from "./ceiling";
+export {
+  verdictFor,
+  bandSeal,
+  workingState,
+  rankChecks,
+  TORSION_RELIEF,
+  type Verdict,
+  type LimitCheck,
+  type CheckId,
+  type Status,
+  type WorkingState,
+} from "./limits";
 export { REMEDIES, remediesFor } from "./warnings";
 export { TYPICAL_GASKETS, ANNEALED_COPPER_HARDNESS_MPA, type TypicalGasket, type GasketFamily } from "./gasket-families";
 export { SI_WORDING, type Wording } from "./wording";
@@ -41,6 +62,25 @@ export {
   loadFactorAtInnerPlane,
   WILEMAN,
 } from "./stiffness";
-export { asmeRequirement, sealRequirement, loadBore, moveBore, ringLoadPlateCompliance, effectiveGapMm, sealLineStiffness, gasketBodyStiffness, type SealRequirement, type BorePaths, type PathElement, type BoreState } from "./seal";
+export {
+  asmeRequirement,
+  sealRequirement,
+  loadBore,
+  moveBore,
+  ringLoadPlateCompliance,
+  effectiveGapMm,
+  sealLineStiffness,
+  gasketBodyStiffness,
+  type SealRequirement,
+  type BorePaths,
+  type PathElement,
+  type BoreState,
+} from "./seal";
 export { thermalPreloadChangeN, embeddingMm, embeddingLossN, EMBEDDING_UM, type Roughness } from "./thermal";
-export { HANDBOOK_MATERIALS, LIMITING_SURFACE_PRESSURE_MPA, FASTENER_CLASSES, ASME_GASKET_FACTORS, type HandbookMaterial } from "./handbook";
+export {
+  HANDBOOK_MATERIALS,
+  LIMITING_SURFACE_PRESSURE_MPA,
+  FASTENER_CLASSES,
+  ASME_GASKET_FACTORS,
+  type HandbookMaterial,
+} from "./handbook";

@@ -161,7 +161,12 @@ function status(ratio: number, thinBelow: number): Status {
 }
 
 /** Every check at the plan's preload, worst first in the verdict. */
-export function verdictFor(p: Prepared, nominalN: number, targetMargin: number, w: Wording = SI_WORDING): { verdict: Verdict; bands: BandSeal; working: WorkingState } {
+export function verdictFor(
+  p: Prepared,
+  nominalN: number,
+  targetMargin: number,
+  w: Wording = SI_WORDING,
+): { verdict: Verdict; bands: BandSeal; working: WorkingState } {
   const bands = bandSeal(p, nominalN);
   const work = workingState(p, bands.band.maxN);
   const f = p.plan.fastener;
@@ -245,7 +250,15 @@ export function verdictFor(p: Prepared, nominalN: number, targetMargin: number, 
       checked: true,
     });
   } else {
-    checks.push({ id: "thread-strip", label: "Thread in the block", ratio: Infinity, thinBelow: 1, status: "holds", detail: "not checked: the block material has no shear strength or yield", checked: false });
+    checks.push({
+      id: "thread-strip",
+      label: "Thread in the block",
+      ratio: Infinity,
+      thinBelow: 1,
+      status: "holds",
+      detail: "not checked: the block material has no shear strength or yield",
+      checked: false,
+    });
   }
   let crush = 0;
   let crushBore = 0;
@@ -262,7 +275,9 @@ export function verdictFor(p: Prepared, nominalN: number, targetMargin: number, 
     ratio: crushChecked ? (crush > 0 ? 1 / crush : Infinity) : Infinity,
     thinBelow: 1,
     status: crushChecked && crush >= 1 ? "short" : "holds",
-    detail: crushChecked ? `${pct(crush)} of what the seal line takes without damage on cylinder ${crushBore + 1}` : "not checked: no damage limit for this seal line",
+    detail: crushChecked
+      ? `${pct(crush)} of what the seal line takes without damage on cylinder ${crushBore + 1}`
+      : "not checked: no damage limit for this seal line",
     cylinder: crushBore + 1,
     checked: crushChecked,
   });
@@ -270,24 +285,33 @@ export function verdictFor(p: Prepared, nominalN: number, targetMargin: number, 
   const ranked = rankChecks(checks);
   // every check passing: the headline speaks of the seal
   const worst = ranked[0].checked && ranked[0].status !== "holds" ? ranked[0] : checks[0];
-  return { verdict: { status: worst.status, headline: headline(worst, targetMargin, seatingShort), limiting: worst.id, checks }, bands, working: work };
+  return {
+    verdict: { status: worst.status, headline: headline(worst, targetMargin, seatingShort), limiting: worst.id, checks },
+    bands,
+    working: work,
+  };
 }
 
 function headline(c: LimitCheck, target: number, seatingShort: boolean): string {
   const cyl = c.cylinder;
   switch (c.id) {
     case "seal":
-      if (c.status === "short") return seatingShort ? `Seal short at seating in cylinder ${cyl}` : `Seal short under firing in cylinder ${cyl}`;
+      if (c.status === "short")
+        return seatingShort ? `Seal short at seating in cylinder ${cyl}` : `Seal short under firing in cylinder ${cyl}`;
       if (c.status === "thin") return `Seal thin in cylinder ${cyl}: margin ${c.ratio.toFixed(2)}, under the ${target.toFixed(2)} target`;
       return `Every check passed; the weakest seal margin is ${c.ratio.toFixed(2)} in cylinder ${cyl}`;
     case "body-seal":
       return `Gasket body short of seal in cylinder ${cyl} (coolant and oil)`;
     case "stud-assembly":
-      return c.status === "short" ? "Stud past yield at the top of the scatter band" : "Stud over the 90 % tightening limit at the top of the scatter band";
+      return c.status === "short"
+        ? "Stud past yield at the top of the scatter band"
+        : "Stud over the 90 % tightening limit at the top of the scatter band";
     case "stud-working":
       return "Stud past yield hot and under firing";
     case "fatigue":
-      return c.status === "short" ? "Stud thread fatigue: the firing stress swing passes its endurance limit" : "Stud thread fatigue reserve under 1.2";
+      return c.status === "short"
+        ? "Stud thread fatigue: the firing stress swing passes its endurance limit"
+        : "Stud thread fatigue reserve under 1.2";
     case "bearing":
       return "Washer sinks into the head: bearing pressure over the head's limit";
     case "thread-strip":

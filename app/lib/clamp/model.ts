@@ -5,12 +5,40 @@ import type { CeilingCause } from "./ceiling";
 import { TYPICAL_GASKETS } from "./gasket-families";
 import type { PlanInput } from "./schema";
 import { gripLengthMm } from "./schema";
-import { effectiveGapMm, gasketBodyStiffness, sealBandAreaMm2, sealLineStiffness, sealRequirement, surroundCompliance, type BorePaths, type PathElement, type SealLineBuild, type SealRequirement } from "./seal";
-import { jointConstant, loadFactorAtInnerPlane, memberStiffness, studStiffness, wilemanMemberStiffness, type Layer, type MemberStiffness, type StudStiffness } from "./stiffness";
+import {
+  effectiveGapMm,
+  gasketBodyStiffness,
+  sealBandAreaMm2,
+  sealLineStiffness,
+  sealRequirement,
+  surroundCompliance,
+  type BorePaths,
+  type PathElement,
+  type SealLineBuild,
+  type SealRequirement,
+} from "./seal";
+import {
+  jointConstant,
+  loadFactorAtInnerPlane,
+  memberStiffness,
+  studStiffness,
+  wilemanMemberStiffness,
+  type Layer,
+  type MemberStiffness,
+  type StudStiffness,
+} from "./stiffness";
 import { embeddingLossN, embeddingMm, thermalPreloadChangeN } from "./thermal";
 import { circleAreaMm2, looksUnified, threadGeometry, type ThreadForm, type ThreadGeometry } from "./thread";
 import { washerBearing, type WasherBearing } from "./washer";
-import { bearingDiameterMm, frictionFaceOdMm, TIGHTENING_FACTOR, tighteningStressPerN, torquePerPreloadMm, type Friction, type TorqueGeometry } from "./torque";
+import {
+  bearingDiameterMm,
+  frictionFaceOdMm,
+  TIGHTENING_FACTOR,
+  tighteningStressPerN,
+  torquePerPreloadMm,
+  type Friction,
+  type TorqueGeometry,
+} from "./torque";
 
 export interface Prepared {
   plan: PlanInput;
@@ -130,7 +158,8 @@ export function prepare(plan: PlanInput): Prepared {
   if (f.washerThicknessMm > 0) layers.push({ name: "washer", thicknessMm: f.washerThicknessMm, modulusMpa: f.modulusMpa });
   layers.push({ name: "head", thicknessMm: plan.head.thicknessAtStudMm, modulusMpa: plan.head.modulusMpa });
   layers.push({ name: "gasket", thicknessMm: plan.gasket.compressedThicknessMm, modulusMpa: plan.gasket.bodyModulusMpa });
-  if (plan.block.clampedDepthMm > 0) layers.push({ name: "block", thicknessMm: plan.block.clampedDepthMm, modulusMpa: plan.block.modulusMpa });
+  if (plan.block.clampedDepthMm > 0)
+    layers.push({ name: "block", thicknessMm: plan.block.clampedDepthMm, modulusMpa: plan.block.modulusMpa });
   const spacing = studSpacing(plan);
   // VDI 2230 Part 1: the substitute body's outside diameter DA is limited by the neighbouring studs
   const coneLimitMm = spacing.mm;

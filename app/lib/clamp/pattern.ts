@@ -11,9 +11,7 @@ import type { Stud } from "./schema";
 export function defaultStudPattern(layout: "inline" | "V", cylinders: number, studsPerSide?: number): Stud[] {
   const banks = layout === "V" ? 2 : 1;
   if (!Number.isInteger(cylinders) || cylinders < 1 || cylinders % banks !== 0) {
-    throw new RangeError(
-      layout === "V" ? "A V engine needs an even number of cylinders" : "Cylinder count must be a whole number ≥ 1",
-    );
+    throw new RangeError(layout === "V" ? "A V engine needs an even number of cylinders" : "Cylinder count must be a whole number ≥ 1");
   }
   const perBank = cylinders / banks;
   const m = studsPerSide ?? perBank + 1;

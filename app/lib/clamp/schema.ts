@@ -13,12 +13,7 @@ const between = (label: string, min: number, max: number) =>
   num(label).gte(min, `${label} must be at least ${min}`).lte(max, `${label} must be at most ${max}`);
 
 export const GASKET_TYPES = ["solid-copper", "mls", "mls-with-ring", "fire-ring"] as const;
-export const TIGHTENING_METHODS = [
-  "torque-estimated-friction",
-  "torque-tested-friction",
-  "angle-or-yield",
-  "stretch-measured",
-] as const;
+export const TIGHTENING_METHODS = ["torque-estimated-friction", "torque-tested-friction", "angle-or-yield", "stretch-measured"] as const;
 export const ROUGHNESS = ["rz-under-10", "rz-10-40", "rz-40-160"] as const;
 
 export const StudSchema = z.object({
@@ -27,9 +22,7 @@ export const StudSchema = z.object({
     .array(
       z.object({
         cylinder: z.number().int("Cylinder numbers are whole numbers").gte(1, "Cylinder numbers start at 1"),
-        share: num("Stud share")
-          .gt(0, "A stud's share of a cylinder must be greater than zero")
-          .lte(1, "A stud's share cannot exceed 1"),
+        share: num("Stud share").gt(0, "A stud's share of a cylinder must be greater than zero").lte(1, "A stud's share cannot exceed 1"),
       }),
     )
     .min(1, "Every stud must serve at least one cylinder")
@@ -207,9 +200,7 @@ const fmt = (x: number) => String(Math.round(x * 1000) / 1000);
 
 /** Clamped stack length lK at the stud: washer, head, gasket and block above the thread. */
 export function gripLengthMm(p: Pick<PlanInput, "fastener" | "head" | "gasket" | "block">): number {
-  return (
-    p.fastener.washerThicknessMm + p.head.thicknessAtStudMm + p.gasket.compressedThicknessMm + p.block.clampedDepthMm
-  );
+  return p.fastener.washerThicknessMm + p.head.thicknessAtStudMm + p.gasket.compressedThicknessMm + p.block.clampedDepthMm;
 }
 
 /** At most this many cross-field messages: a runaway input cannot build a runaway list. */
@@ -231,10 +222,8 @@ function checkPlan(p: PlanInput, ctx: z.RefinementCtx): void {
     issue(["fastener", "reducedShankDiameterMm"], "Reduced shank must be narrower than the thread");
   if (f.reducedShankLengthMm > 0 && f.reducedShankDiameterMm === undefined)
     issue(["fastener", "reducedShankDiameterMm"], "Give the reduced shank diameter, or set its length to zero");
-  if (f.washerHoleMm < f.diameterMm)
-    issue(["fastener", "washerHoleMm"], "Washer hole must be at least the stud diameter");
-  if (f.washerOdMm <= f.washerHoleMm)
-    issue(["fastener", "washerOdMm"], "Washer outer diameter must be larger than its hole");
+  if (f.washerHoleMm < f.diameterMm) issue(["fastener", "washerHoleMm"], "Washer hole must be at least the stud diameter");
+  if (f.washerOdMm <= f.washerHoleMm) issue(["fastener", "washerOdMm"], "Washer outer diameter must be larger than its hole");
   const grip = gripLengthMm(p);
   if (f.reducedShankLengthMm + f.freeThreadLengthMm > grip)
     issue(
@@ -277,9 +266,7 @@ function checkPlan(p: PlanInput, ctx: z.RefinementCtx): void {
 const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 /** Parse raw plan input; on failure, plain messages keyed by field path. */
-export function parsePlan(
-  raw: unknown,
-): { ok: true; plan: PlanInput } | { ok: false; errors: { path: string; message: string }[] } {
+export function parsePlan(raw: unknown): { ok: true; plan: PlanInput } | { ok: false; errors: { path: string; message: string }[] } {
   const r = PlanInputSchema.safeParse(raw);
   if (r.success) return { ok: true, plan: r.data };
   return { ok: false, errors: r.error.issues.map((i) => ({ path: i.path.join("."), message: i.message })) };

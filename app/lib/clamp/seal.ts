@@ -44,7 +44,13 @@ export function sealBandAreaMm2(sealDiameterMm: number, ringWidthMm: number): nu
  * and Shells (2nd ed.), the clamped plate loaded along a circle (section number from memory); the test
  * checks it against a numerical integration of the plate equation. D = E·t³/(12·(1 − ν²)).
  */
-export function ringLoadPlateCompliance(modulusMpa: number, thicknessMm: number, outerRadiusMm: number, loadRadiusMm: number, poisson = 0.3): number {
+export function ringLoadPlateCompliance(
+  modulusMpa: number,
+  thicknessMm: number,
+  outerRadiusMm: number,
+  loadRadiusMm: number,
+  poisson = 0.3,
+): number {
   const a = outerRadiusMm;
   const b = Math.min(loadRadiusMm, a);
   if (b <= 0 || b >= a) return 0;
@@ -83,7 +89,8 @@ export function surroundCompliance(b: SealLineBuild): number {
   // Timoshenko & Woinowsky-Krieger (see ringLoadPlateCompliance): the fire deck bends between the studs
   let plate = ringLoadPlateCompliance(b.headModulusMpa, b.deck.thicknessMm, b.deck.outerRadiusMm, b.sealDiameterMm / 2);
   // the same for the block's deck under the ring (ours: in series with the head's)
-  if (b.blockDeck) plate += ringLoadPlateCompliance(b.blockDeck.modulusMpa, b.blockDeck.thicknessMm, b.deck.outerRadiusMm, b.sealDiameterMm / 2);
+  if (b.blockDeck)
+    plate += ringLoadPlateCompliance(b.blockDeck.modulusMpa, b.blockDeck.thicknessMm, b.deck.outerRadiusMm, b.sealDiameterMm / 2);
   return seriesCompliance(sections) + plate;
 }
 
@@ -324,12 +331,28 @@ export function asmeRequirement(meanDiameterMm: number, widthMm: number, pressur
   const Hp = 2 * b * Math.PI * G * m * pressureMpa;
   // ASME VIII-1 App. 2-5: Wm2 = π·b·G·y
   const Wm2 = Math.PI * b * G * yMpa;
-  return { basicWidthMm: b0, effectiveWidthMm: b, reactionDiameterMm: G, pressureForceN: H, operatingContactN: Hp, operatingBoltLoadN: H + Hp, seatingLoadN: Wm2 };
+  return {
+    basicWidthMm: b0,
+    effectiveWidthMm: b,
+    reactionDiameterMm: G,
+    pressureForceN: H,
+    operatingContactN: Hp,
+    operatingBoltLoadN: H + Hp,
+    seatingLoadN: Wm2,
+  };
 }
 
 /** The seal's needs from EN 13555 figures when all are given, else the ASME stand-in. */
 export function sealRequirement(
-  g: { sealDiameterMm: number; ringWidthMm: number; m: number; yMpa: number; seatingPressureMpa?: number; minServicePressureMpa?: number; maxPressureMpa?: number },
+  g: {
+    sealDiameterMm: number;
+    ringWidthMm: number;
+    m: number;
+    yMpa: number;
+    seatingPressureMpa?: number;
+    minServicePressureMpa?: number;
+    maxPressureMpa?: number;
+  },
   pressureMpa: number,
 ): SealRequirement {
   const asme = asmeRequirement(g.sealDiameterMm, g.ringWidthMm, pressureMpa, g.m, g.yMpa);

@@ -24,10 +24,7 @@ export function shigleyBoltStiffness(a: {
   shankLengthMm: number;
 }): number {
   // Shigley eq. 8-17: kb = Ad·At·E/(Ad·lt + At·ld)
-  return (
-    (a.shankAreaMm2 * a.stressAreaMm2 * a.modulusMpa) /
-    (a.shankAreaMm2 * a.threadLengthMm + a.stressAreaMm2 * a.shankLengthMm)
-  );
+  return (a.shankAreaMm2 * a.stressAreaMm2 * a.modulusMpa) / (a.shankAreaMm2 * a.threadLengthMm + a.stressAreaMm2 * a.shankLengthMm);
 }
 
 export interface StudBuild {
@@ -77,12 +74,7 @@ export function studStiffness(s: StudBuild): StudStiffness {
 }
 
 /** Stiffness of one frustum of a 30° pressure cone. */
-export function frustumStiffness(
-  modulusMpa: number,
-  thicknessMm: number,
-  smallDiameterMm: number,
-  holeMm: number,
-): number {
+export function frustumStiffness(modulusMpa: number, thicknessMm: number, smallDiameterMm: number, holeMm: number): number {
   const t = thicknessMm;
   const D = smallDiameterMm;
   const d = holeMm;
@@ -171,12 +163,7 @@ export const WILEMAN: Record<WilemanMaterial, { A: number; B: number }> = {
 };
 
 /** Wileman's exponential fit for a member of one material (cross-check). */
-export function wilemanMemberStiffness(
-  modulusMpa: number,
-  diameterMm: number,
-  gripMm: number,
-  material: WilemanMaterial,
-): number {
+export function wilemanMemberStiffness(modulusMpa: number, diameterMm: number, gripMm: number, material: WilemanMaterial): number {
   const { A, B } = WILEMAN[material];
   // Wileman et al. 1991 (Shigley eq. 8-23): km = E·d·A·exp(B·d/l)
   return modulusMpa * diameterMm * A * Math.exp((B * diameterMm) / gripMm);
@@ -216,7 +203,11 @@ export function jointUnderLoad(preloadN: number, externalN: number, phi: number)
  * head sits on the stud's side, and only the parts below the plane (gasket, block, sleeve) are relieved.
  * From the two compatibility conditions: Φn = δ_below/(δS + δP), so those parts lose (1 − Φn)·FA.
  */
-export function loadFactorAtInnerPlane(studComplianceMmPerN: number, memberComplianceMmPerN: number, belowComplianceMmPerN: number): number {
+export function loadFactorAtInnerPlane(
+  studComplianceMmPerN: number,
+  memberComplianceMmPerN: number,
+  belowComplianceMmPerN: number,
+): number {
   // VDI 2230 Part 1: Φn = n·δP/(δS + δP) with n·δP = δ of the parts between the load planes
   return belowComplianceMmPerN / (studComplianceMmPerN + memberComplianceMmPerN);
 }

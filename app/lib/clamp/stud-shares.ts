@@ -11,5 +11,7 @@ export function shareSum(stud: { serves: readonly { share: number }[] }): number
 /** The message when a stud's shares do not add up to 1, or null. */
 export function shareProblem(stud: { serves: readonly { share: number }[] }, name: string): string | null {
   const sum = shareSum(stud);
-  return Math.abs(sum - 1) > SHARE_TOLERANCE ? `Stud shares for ${name} add up to ${String(Math.round(sum * 1000) / 1000)}; they must add up to 1` : null;
+  return Math.abs(sum - 1) > SHARE_TOLERANCE
+    ? `Stud shares for ${name} add up to ${String(Math.round(sum * 1000) / 1000)}; they must add up to 1`
+    : null;
 }

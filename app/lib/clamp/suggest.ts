@@ -101,15 +101,23 @@ export function suggest(input: PlanInput, options: SuggestOptions): Suggestion {
   const changes: string[] = [];
   const atLimit = marginsAtTorque(p, limit.torqueNm);
   if (atLimit.body < 1) {
-    changes.push(`The gasket body does not keep enough clamp to seal coolant and oil. Try ${remediesFor("body-seal", input).join("; or ")}.`);
+    changes.push(
+      `The gasket body does not keep enough clamp to seal coolant and oil. Try ${remediesFor("body-seal", input).join("; or ")}.`,
+    );
   }
   // the ceiling's own remedies first: they raise the torque the plan may use
-  changes.push(`The ceiling is set by the ${CEILING_WORDS[limit.cause]}: ${limit.explanation} To raise it: ${remediesFor(limit.cause, input).join("; or ")}.`);
+  changes.push(
+    `The ceiling is set by the ${CEILING_WORDS[limit.cause]}: ${limit.explanation} To raise it: ${remediesFor(limit.cause, input).join("; or ")}.`,
+  );
   if (atLimit.seal < target) {
-    changes.push(`At the ceiling the weakest seal margin is ${atLimit.seal.toFixed(2)}. For more seal: ${remediesFor("seal", input).slice(1).join("; or ")}.`);
+    changes.push(
+      `At the ceiling the weakest seal margin is ${atLimit.seal.toFixed(2)}. For more seal: ${remediesFor("seal", input).slice(1).join("; or ")}.`,
+    );
   }
   if (found) {
-    changes.push(`With ${mm(found.protrusionMm)} sleeve protrusion (now ${mm(input.sealing.sleeveProtrusionMm)}) ${nm(found.torqueNm)} would reach the target below the ceiling.`);
+    changes.push(
+      `With ${mm(found.protrusionMm)} sleeve protrusion (now ${mm(input.sealing.sleeveProtrusionMm)}) ${nm(found.torqueNm)} would reach the target below the ceiling.`,
+    );
   } else if (input.sleeve.kind !== "none") {
     changes.push(`More sleeve protrusion (up to ${mm(0.3)} more) does not reach the target by itself.`);
   }

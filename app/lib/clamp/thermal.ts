@@ -24,8 +24,7 @@ export function thermalPreloadChangeN(a: {
   for (const m of a.members) {
     memberGrowth += m.thicknessMm * m.expansionUmPerMC * 1e-6 * (m.temperatureC - a.assemblyTemperatureC);
   }
-  const studGrowth =
-    a.studLengthMm * a.studExpansionUmPerMC * 1e-6 * (a.studTemperatureC - a.assemblyTemperatureC);
+  const studGrowth = a.studLengthMm * a.studExpansionUmPerMC * 1e-6 * (a.studTemperatureC - a.assemblyTemperatureC);
   // VDI 2230 form (from memory), Bickford eqs. 11.12–11.13: ΔF = lK·(αP·ΔTP − αS·ΔTS)/(δS + δP), per layer
   return (memberGrowth - studGrowth) / (a.studComplianceMmPerN + a.memberComplianceMmPerN);
 }
@@ -39,10 +38,7 @@ export const EMBEDDING_UM: Record<Roughness, { thread: number; bearing: number; 
   "rz-40-160": { thread: 3, bearing: 4, inner: 3 },
 };
 
-export function embeddingMm(
-  roughness: Roughness,
-  counts: { threads: number; bearings: number; innerInterfaces: number },
-): number {
+export function embeddingMm(roughness: Roughness, counts: { threads: number; bearings: number; innerInterfaces: number }): number {
   const e = EMBEDDING_UM[roughness];
   // VDI 2230 (from memory): fZ = Σ embedding amounts of the thread, bearings and inner interfaces
   return (e.thread * counts.threads + e.bearing * counts.bearings + e.inner * counts.innerInterfaces) / 1000;

@@ -36,11 +36,7 @@ export function frictionFaceOdMm(f: { diameterMm: number; washerOdMm: number; nu
 /** Torque per unit preload, in N·mm per N (i.e. mm): the bracket of the long form. */
 export function torquePerPreloadMm(g: TorqueGeometry, f: Friction): number {
   // ISO 16047 / VDI 2230 Part 1: T = F·[P/(2π) + μG·d2/(2·cos 30°) + μK·DKm/2]
-  return (
-    g.pitchMm / (2 * Math.PI) +
-    (f.thread * g.pitchDiameterMm) / (2 * COS_30) +
-    (f.bearing * g.bearingDiameterMm) / 2
-  );
+  return g.pitchMm / (2 * Math.PI) + (f.thread * g.pitchDiameterMm) / (2 * COS_30) + (f.bearing * g.bearingDiameterMm) / 2;
 }
 
 /** Tightening torque (N·m) that gives the preload (N). */
@@ -59,11 +55,7 @@ export function equivalentNutFactor(g: TorqueGeometry, f: Friction, diameterMm: 
   return torquePerPreloadMm(g, f) / diameterMm;
 }
 
-export type TighteningMethod =
-  | "torque-estimated-friction"
-  | "torque-tested-friction"
-  | "angle-or-yield"
-  | "stretch-measured";
+export type TighteningMethod = "torque-estimated-friction" | "torque-tested-friction" | "angle-or-yield" | "stretch-measured";
 
 /**
  * Tightening factor αA = FMmax/FMmin by method. VDI 2230 via a fastener supplier's table
@@ -125,9 +117,7 @@ export function tighteningStressPerN(
   // VDI 2230: σ = F/A0
   const axial = 1 / section.areaMm2;
   // VDI 2230: MG = F·(d2/2)·(P/(π·d2) + 1.155·μG)
-  const threadTorquePerN =
-    (thread.pitchDiameterMm / 2) *
-    (thread.pitchMm / (Math.PI * thread.pitchDiameterMm) + 1.155 * threadFriction);
+  const threadTorquePerN = (thread.pitchDiameterMm / 2) * (thread.pitchMm / (Math.PI * thread.pitchDiameterMm) + 1.155 * threadFriction);
   // VDI 2230: τ = MG/Wp, Wp = π·d0³/16 (elastic)
   const wp = (Math.PI * section.diameterMm ** 3) / 16;
   const torsion = threadTorquePerN / wp;

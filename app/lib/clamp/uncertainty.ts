@@ -121,7 +121,9 @@ export function uncertaintyPrepared(p: Prepared, o: UncertaintyOptions): Uncerta
     for (let s = 0; s < p.studCount; s++) {
       const F = F0 * (1 + sigma * clamp3(z[s]));
       // the friction that gives this preload at this torque (torque-controlled), else friction on its own
-      const scale = torqueControlled ? Math.max(0.05, ((p.torquePerPreloadMm * F0) / F - pitchPart) / frictionPart) : 1 + cv * clamp3(z[p.studCount + s]);
+      const scale = torqueControlled
+        ? Math.max(0.05, ((p.torquePerPreloadMm * F0) / F - pitchPart) / frictionPart)
+        : 1 + cv * clamp3(z[p.studCount + s]);
       // VDI 2230: MG ∝ (P/(π·d2) + 1.155·μG); the torsion rescaled from the entered μG (μG = μ·scale)
       const tau = tauBase + tauPerScale * scale;
       // VDI 2230 FMzul (von Mises, torsion on π·d0³/12): σred = √(σ² + 3·(¾τ)²) per newton, times this preload

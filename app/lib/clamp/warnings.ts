@@ -53,11 +53,15 @@ export function remediesFor(id: CheckId, plan: PlanInput): string[] {
   const sleeve = plan.sleeve.kind !== "none";
   const wire = plan.sealing.wireProjectionMm > 0;
   const proud = sleeve ? (wire ? "sleeve protrusion or wire projection" : "sleeve protrusion") : wire ? "wire projection" : null;
-  const stands = sleeve || wire ? plan.sealing.sleeveProtrusionMm > 0 || plan.sealing.wireProjectionMm > plan.sealing.receiverGrooveDepthMm : false;
+  const stands =
+    sleeve || wire ? plan.sealing.sleeveProtrusionMm > 0 || plan.sealing.wireProjectionMm > plan.sealing.receiverGrooveDepthMm : false;
   return REMEDIES[id].flatMap((r) => {
     if (r.startsWith("more sleeve protrusion or wire projection"))
-      return proud ? [r.replace("sleeve protrusion or wire projection", proud)] : ["a wire ring standing proud of the gasket, so the seal line takes clamp before the body"];
-    if (r.startsWith("less sleeve protrusion or wire projection")) return proud && stands ? [r.replace("sleeve protrusion or wire projection", proud)] : [];
+      return proud
+        ? [r.replace("sleeve protrusion or wire projection", proud)]
+        : ["a wire ring standing proud of the gasket, so the seal line takes clamp before the body"];
+    if (r.startsWith("less sleeve protrusion or wire projection"))
+      return proud && stands ? [r.replace("sleeve protrusion or wire projection", proud)] : [];
     return [r];
   });
 }
@@ -80,11 +84,15 @@ export function planWarnings(p: Prepared, e: PlanEstimate, w: Wording = SI_WORDI
   }
   const lifted = e.cylinders.filter((c) => c.remainingSealLineHotSettledN <= 0);
   if (lifted.length > 0) {
-    out.push(`Firing lifts the seal line off cylinder${lifted.length > 1 ? "s" : ""} ${lifted.map((c) => c.cylinder).join(", ")} when hot and settled.`);
+    out.push(
+      `Firing lifts the seal line off cylinder${lifted.length > 1 ? "s" : ""} ${lifted.map((c) => c.cylinder).join(", ")} when hot and settled.`,
+    );
   }
   const letGo = e.cylinders.filter((c) => c.beadReserveMm !== null && c.beadReserveMm <= 0);
   if (letGo.length > 0) {
-    out.push(`Firing lifts the head further than the bead can follow on cylinder${letGo.length > 1 ? "s" : ""} ${letGo.map((c) => c.cylinder).join(", ")} (bottom of the band): the bead lets go of the head.`);
+    out.push(
+      `Firing lifts the head further than the bead can follow on cylinder${letGo.length > 1 ? "s" : ""} ${letGo.map((c) => c.cylinder).join(", ")} (bottom of the band): the bead lets go of the head.`,
+    );
   }
   if (e.squeeze.mostlySqueezing) {
     out.push(
@@ -96,7 +104,9 @@ export function planWarnings(p: Prepared, e: PlanEstimate, w: Wording = SI_WORDI
   const opened = e.studs.filter((s) => s.memberFiredN <= 0);
   if (opened.length > 0) out.push(`Firing would open the joint at ${opened.length} stud(s): the clamp on the gasket there falls to zero.`);
   if (e.hotSettled.preloadN < 0.5 * e.tightening.preload.nominalN) {
-    out.push(`Hot and settled, the preload falls to ${kN(e.hotSettled.preloadN)}, under half of the ${kN(e.tightening.preload.nominalN)} set at assembly.`);
+    out.push(
+      `Hot and settled, the preload falls to ${kN(e.hotSettled.preloadN)}, under half of the ${kN(e.tightening.preload.nominalN)} set at assembly.`,
+    );
   }
   // common practice (docs/references.md §9): engagement ≥ 2·d in aluminium, ≈ 1.25·d in iron or steel
   const d = plan.fastener.diameterMm;
@@ -104,7 +114,8 @@ export function planWarnings(p: Prepared, e: PlanEstimate, w: Wording = SI_WORDI
   if (plan.fastener.engagementMm < needed) {
     out.push(`Thread engagement ${w.length(plan.fastener.engagementMm)} is short of the shop rule for this block (${w.length(needed)}).`);
   }
-  if (p.peakEstimated) out.push(`Peak cylinder pressure ${w.pressure(p.peakPressureMpa)} is an estimate. ${peakPressureNote(plan.firing, w)}`);
+  if (p.peakEstimated)
+    out.push(`Peak cylinder pressure ${w.pressure(p.peakPressureMpa)} is an estimate. ${peakPressureNote(plan.firing, w)}`);
   return out;
 }
 
@@ -112,10 +123,15 @@ export function planWarnings(p: Prepared, e: PlanEstimate, w: Wording = SI_WORDI
 export function planAssumptions(p: Prepared, w: Wording = SI_WORDING): string[] {
   const out: string[] = [];
   if (p.requirement.basis === "asme-stand-in")
-    out.push("The seal's needs use flange-code figures (seal hold factor m and seating stress y) as a conservative stand-in; the gasket maker's seating and service pressures replace them.");
-  if (p.deck.assumed) out.push(`Head fire deck taken as ${w.length(p.deck.thicknessMm)} thick (an eighth of the bore); enter the real figure on the engine.`);
-  if (p.studSpacingAssumed) out.push(`Stud spacing taken as ${w.length(p.studSpacingMm)} from the stud pattern (bores about 1.15 bores apart).`);
-  if (p.bodySealAssumed) out.push(`The gasket body is taken to seal coolant and oil at ${w.stress(p.bodySealPressureMpa)} (a typical figure for this family).`);
+    out.push(
+      "The seal's needs use flange-code figures (seal hold factor m and seating stress y) as a conservative stand-in; the gasket maker's seating and service pressures replace them.",
+    );
+  if (p.deck.assumed)
+    out.push(`Head fire deck taken as ${w.length(p.deck.thicknessMm)} thick (an eighth of the bore); enter the real figure on the engine.`);
+  if (p.studSpacingAssumed)
+    out.push(`Stud spacing taken as ${w.length(p.studSpacingMm)} from the stud pattern (bores about 1.15 bores apart).`);
+  if (p.bodySealAssumed)
+    out.push(`The gasket body is taken to seal coolant and oil at ${w.stress(p.bodySealPressureMpa)} (a typical figure for this family).`);
   if (p.plan.fastener.nutFaceOdMm === undefined && !p.plan.fastener.washerTurns)
     out.push("Washer-face friction acts on a nut face of 1.45 × the stud diameter; enter the nut's face diameter in the fastener library.");
   return out;

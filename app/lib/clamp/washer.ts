@@ -45,10 +45,14 @@ const annulus = (od: number, id: number) => (Math.PI / 4) * Math.max(0, od * od 
 export function washerBearing(w: WasherFigures, headLimitMpa: number): WasherBearing {
   const hard = w.washerHardnessHv === undefined || w.washerHardnessHv >= HARDENED_WASHER_HV;
   // 30° pressure cone from the nut face through the washer (Shigley §8-5), never past the washer's edge
-  const headBearingOdMm = hard || w.washerThicknessMm <= 0 ? w.washerOdMm : Math.min(w.washerOdMm, w.nutFaceOdMm + 2 * w.washerThicknessMm * TAN_30);
+  const headBearingOdMm =
+    hard || w.washerThicknessMm <= 0 ? w.washerOdMm : Math.min(w.washerOdMm, w.nutFaceOdMm + 2 * w.washerThicknessMm * TAN_30);
   const headAreaMm2 = annulus(headBearingOdMm, w.washerHoleMm);
   const headCapacityN = headLimitMpa * headAreaMm2;
-  const washerCapacityN = w.washerHardnessHv === undefined || w.washerThicknessMm <= 0 ? Infinity : w.washerHardnessHv * MPA_PER_HV * annulus(w.nutFaceOdMm, w.washerHoleMm);
+  const washerCapacityN =
+    w.washerHardnessHv === undefined || w.washerThicknessMm <= 0
+      ? Infinity
+      : w.washerHardnessHv * MPA_PER_HV * annulus(w.nutFaceOdMm, w.washerHoleMm);
   const limitedBy = washerCapacityN < headCapacityN ? "washer" : "head";
   return { headAreaMm2, headBearingOdMm, headCapacityN, washerCapacityN, capacityN: Math.min(headCapacityN, washerCapacityN), limitedBy };
 }

@@ -112,9 +112,7 @@ export function formToRaw(form: Record<string, string>, studs: StudRow[], units:
   return raw;
 }
 
-export type ParsedEngine =
-  | { ok: true; engine: EngineInput }
-  | { ok: false; errors: Record<string, string> };
+export type ParsedEngine = { ok: true; engine: EngineInput } | { ok: false; errors: Record<string, string> };
 
 /** Parse the posted engine form; on failure, the first message per field path ("studs.3.serves"). */
 function parseEngineForm(form: Record<string, string>, studs: StudRow[], units: UnitSystem): ParsedEngine {
@@ -164,7 +162,6 @@ export function patternSummary(studs: Stud[]): string {
   return `${studs.length} stud${studs.length === 1 ? "" : "s"}: ${parts.join(", ")}`;
 }
 
-
 // ─── One post of the engine form ──────────────────────────────────────────────────────────
 
 /**
@@ -186,7 +183,8 @@ export function engineFormStep(form: Record<string, string>, units: UnitSystem):
     if ("error" in r) return { step: "render", values, errors: { studsPerSide: r.error } };
     return { step: "render", values: { ...values, studs: r.rows }, errors: {} };
   }
-  if (intent === "add-stud") return { step: "render", values: { ...values, studs: [...values.studs, { label: "", cylinders: "", shares: "" }] }, errors: {} };
+  if (intent === "add-stud")
+    return { step: "render", values: { ...values, studs: [...values.studs, { label: "", cylinders: "", shares: "" }] }, errors: {} };
   if (intent.startsWith("remove-stud:")) {
     const i = Number(intent.slice("remove-stud:".length));
     return { step: "render", values: { ...values, studs: values.studs.filter((_, j) => j !== i) }, errors: {} };

@@ -28,11 +28,12 @@ const num = (label: string, missing = `Give the ${label.toLowerCase()}`) =>
 const positive = (label: string, max: number, unit: string) =>
   num(label).gt(0, `${label} must be greater than zero`).lte(max, `${label} must be at most ${max} ${unit}`);
 const between = (label: string, min: number, max: number, unit: string) =>
-  num(label)
-    .gte(min, `${label} must be at least ${min} ${unit}`)
-    .lte(max, `${label} must be at most ${max} ${unit}`);
+  num(label).gte(min, `${label} must be at least ${min} ${unit}`).lte(max, `${label} must be at most ${max} ${unit}`);
 const materialId = (what: string) =>
-  z.number({ error: `Choose the ${what} material` }).int(`Choose the ${what} material`).positive(`Choose the ${what} material`);
+  z
+    .number({ error: `Choose the ${what} material` })
+    .int(`Choose the ${what} material`)
+    .positive(`Choose the ${what} material`);
 
 export const EngineSchema = z
   .object({
@@ -151,5 +152,3 @@ export function studShareIssues(studs: Stud[], cylinders: number): { path: (stri
 function studName(stud: Stud, index: number): string {
   return stud.label ? `stud ${stud.label}` : `stud ${index + 1}`;
 }
-
-

@@ -17,7 +17,13 @@ export interface NumberField {
 
 export const MATERIAL_NUMBER_FIELDS: NumberField[] = [
   { name: "modulusMpa", label: "Modulus (Young's)", quantity: "modulus" },
-  { name: "yieldMpa", label: "Yield strength", quantity: "stress", optional: true, hint: "Leave empty when the material has no yield point (gray iron)." },
+  {
+    name: "yieldMpa",
+    label: "Yield strength",
+    quantity: "stress",
+    optional: true,
+    hint: "Leave empty when the material has no yield point (gray iron).",
+  },
   { name: "expansionUmPerMC", label: "Expansion coefficient", quantity: "expansion" },
   {
     name: "limitingSurfacePressureMpa",
@@ -38,9 +44,20 @@ export const MATERIAL_NUMBER_FIELDS: NumberField[] = [
 export const FASTENER_GEOMETRY_FIELDS: NumberField[] = [
   { name: "diameterMm", label: "Thread diameter", quantity: "length" },
   { name: "pitchMm", label: "Pitch", quantity: "plain", special: "pitch", hint: "Metric: pitch in mm. Unified inch: threads per inch." },
-  { name: "reducedShankDiameterMm", label: "Reduced shank diameter", quantity: "length", optional: true, hint: "Empty for a full-shank stud." },
+  {
+    name: "reducedShankDiameterMm",
+    label: "Reduced shank diameter",
+    quantity: "length",
+    optional: true,
+    hint: "Empty for a full-shank stud.",
+  },
   { name: "reducedShankLengthMm", label: "Reduced shank length", quantity: "length" },
-  { name: "freeThreadLengthMm", label: "Free thread in the grip", quantity: "length", hint: "Loaded thread between nut and block, both ends together." },
+  {
+    name: "freeThreadLengthMm",
+    label: "Free thread in the grip",
+    quantity: "length",
+    hint: "Loaded thread between nut and block, both ends together.",
+  },
   { name: "engagementMm", label: "Thread engagement in the block", quantity: "length" },
   { name: "washerOdMm", label: "Washer outer diameter", quantity: "length" },
   { name: "washerHoleMm", label: "Washer hole", quantity: "length" },
@@ -63,11 +80,22 @@ export const FASTENER_GEOMETRY_FIELDS: NumberField[] = [
 
 export const FASTENER_MAKER_FIELDS: NumberField[] = [
   { name: "makerTorqueNm", label: "Maker's recommended torque", quantity: "torque", optional: true },
-  { name: "makerStretchMm", label: "Maker's stretch figure", quantity: "smallLength", optional: true, hint: "Elongation at full torque, if the sheet gives one." },
+  {
+    name: "makerStretchMm",
+    label: "Maker's stretch figure",
+    quantity: "smallLength",
+    optional: true,
+    hint: "Elongation at full torque, if the sheet gives one.",
+  },
 ];
 
 export const FASTENER_FRICTION_FIELDS: NumberField[] = [
-  { name: "threadFriction", label: "Thread friction", quantity: "plain", hint: "μG. About 0.10–0.14 with moly paste, 0.14–0.18 with engine oil." },
+  {
+    name: "threadFriction",
+    label: "Thread friction",
+    quantity: "plain",
+    hint: "μG. About 0.10–0.14 with moly paste, 0.14–0.18 with engine oil.",
+  },
   { name: "bearingFriction", label: "Washer-face friction", quantity: "plain", hint: "μK, between the nut face and the washer." },
 ];
 
@@ -94,8 +122,20 @@ export const GASKET_NUMBER_FIELDS: NumberField[] = [
     optional: true,
     hint: "Least pressure on the body that still seals coolant and oil. Empty: the typical figure of the family.",
   },
-  { name: "beadLoadNPerMm", label: "Bead load (N per mm of circumference)", quantity: "plain", optional: true, hint: "Multilayer steel: line load of the bead pressed down to the stopper." },
-  { name: "beadTravelMm", label: "Bead travel to the stopper", quantity: "smallLength", optional: true, hint: "Multilayer steel: how far the bead gives before the stopper carries." },
+  {
+    name: "beadLoadNPerMm",
+    label: "Bead load (N per mm of circumference)",
+    quantity: "plain",
+    optional: true,
+    hint: "Multilayer steel: line load of the bead pressed down to the stopper.",
+  },
+  {
+    name: "beadTravelMm",
+    label: "Bead travel to the stopper",
+    quantity: "smallLength",
+    optional: true,
+    hint: "Multilayer steel: how far the bead gives before the stopper carries.",
+  },
   { name: "expansionUmPerMC", label: "Expansion coefficient", quantity: "expansion" },
   {
     name: "seatingPressureMpa",
@@ -104,9 +144,26 @@ export const GASKET_NUMBER_FIELDS: NumberField[] = [
     optional: true,
     hint: "From the gasket maker, in the terms of EN 13555: Qmin(L), the pressure that seats it tight. Give it with the service pressure; together they replace the flange-code factors.",
   },
-  { name: "minServicePressureMpa", label: "Minimum service pressure (maker's)", quantity: "stress", optional: true, hint: "EN 13555 QSmin(L): least pressure left in service that keeps it tight." },
-  { name: "maxPressureMpa", label: "Maximum pressure (maker's)", quantity: "stress", optional: true, hint: "EN 13555 QSmax: most the seal line takes without damage." },
-  { name: "m", label: "Seal hold factor m (flange code)", quantity: "plain", hint: "A stand-in from the pressure-vessel flange code (ASME VIII-1 table 2-5.1) used while the maker's pressures are not known." },
+  {
+    name: "minServicePressureMpa",
+    label: "Minimum service pressure (maker's)",
+    quantity: "stress",
+    optional: true,
+    hint: "EN 13555 QSmin(L): least pressure left in service that keeps it tight.",
+  },
+  {
+    name: "maxPressureMpa",
+    label: "Maximum pressure (maker's)",
+    quantity: "stress",
+    optional: true,
+    hint: "EN 13555 QSmax: most the seal line takes without damage.",
+  },
+  {
+    name: "m",
+    label: "Seal hold factor m (flange code)",
+    quantity: "plain",
+    hint: "A stand-in from the pressure-vessel flange code (ASME VIII-1 table 2-5.1) used while the maker's pressures are not known.",
+  },
   { name: "yMpa", label: "Seating stress y (flange code)", quantity: "stress", hint: "Flange-code stand-in, as m." },
   { name: "relaxationPercent", label: "Relaxation after heat cycles (%)", quantity: "plain" },
   { name: "finishMinRaUm", label: "Smoothest finish", quantity: "roughness", optional: true },
@@ -145,8 +202,7 @@ function parseNumber(raw: string): number | null | typeof NaN {
 }
 
 export type ParsedLibrary<K extends LibraryKind> =
-  | { ok: true; value: z.infer<(typeof SCHEMAS)[K]> }
-  | { ok: false; errors: Record<string, string> };
+  { ok: true; value: z.infer<(typeof SCHEMAS)[K]> } | { ok: false; errors: Record<string, string> };
 
 /**
  * A posted form (strings, in the person's units) → the SI record, or one message per field.
@@ -164,7 +220,8 @@ export function parseLibraryForm<K extends LibraryKind>(kind: K, form: Record<st
     const typed = (form[field.name] ?? "").trim();
     if (typed === "") {
       if (field.optional) out[field.name] = null;
-      else if (field.name === "reducedShankLengthMm" || field.name === "washerThicknessMm" || field.name === "relaxationPercent") out[field.name] = 0;
+      else if (field.name === "reducedShankLengthMm" || field.name === "washerThicknessMm" || field.name === "relaxationPercent")
+        out[field.name] = 0;
       else errors[field.name] = `Enter the ${field.label.charAt(0).toLowerCase()}${field.label.slice(1)}`;
       continue;
     }
@@ -202,7 +259,10 @@ export function formValues(kind: LibraryKind, record: Record<string, unknown>, u
       out[field.name] = "";
       continue;
     }
-    const shown = field.special === "pitch" ? pitchFromMm(v, String(record.threadSystem)) : toDisplay(field.quantity, v, unitFor(field.quantity, units));
+    const shown =
+      field.special === "pitch"
+        ? pitchFromMm(v, String(record.threadSystem))
+        : toDisplay(field.quantity, v, unitFor(field.quantity, units));
     out[field.name] = String(Number(shown.toPrecision(6)));
   }
   return out;

@@ -27,9 +27,7 @@ export const GASKET_TYPE_LABELS: Record<(typeof LIBRARY_GASKET_TYPES)[number], s
 
 const num = (label: string) => z.number({ error: `Enter ${label.toLowerCase()} as a number` });
 const positive = (label: string, max: number, unit: string) =>
-  num(label)
-    .gt(0, `${label} must be greater than zero`)
-    .lte(max, `${label} looks too large (over ${max} ${unit})`);
+  num(label).gt(0, `${label} must be greater than zero`).lte(max, `${label} looks too large (over ${max} ${unit})`);
 const nonNegative = (label: string, max: number, unit: string) =>
   num(label).gte(0, `${label} cannot be negative`).lte(max, `${label} looks too large (over ${max} ${unit})`);
 /**
@@ -167,7 +165,7 @@ function gasketConsistency(g: {
       field: "sealDiameterMm",
       message: "The seal band (seal diameter less ring width) must sit outside the gasket bore",
     });
-  if ((g.seatingPressureMpa ?? null) === null !== ((g.minServicePressureMpa ?? null) === null))
+  if (((g.seatingPressureMpa ?? null) === null) !== ((g.minServicePressureMpa ?? null) === null))
     out.push({ field: "minServicePressureMpa", message: "Give both the seating pressure and the minimum service pressure, or neither" });
   if (g.minServicePressureMpa != null && g.maxPressureMpa != null && g.maxPressureMpa <= g.minServicePressureMpa)
     out.push({ field: "maxPressureMpa", message: "The maximum pressure must be above the minimum service pressure" });

@@ -27,7 +27,10 @@ export function mailHtml(title: string, blocks: Block[], footer: string): string
       if ("small" in b) return `<p style="margin:0 0 14px;font-size:13px;color:${FORGE_700};line-height:1.5">${escapeHtml(b.small)}</p>`;
       if ("rows" in b)
         return `<table role="presentation" style="border-collapse:collapse;margin:0 0 14px;width:100%">${b.rows
-          .map(([k, v]) => `<tr><th align="left" style="padding:4px 8px 4px 0;font-weight:600;vertical-align:top">${escapeHtml(k)}</th><td style="padding:4px 0">${escapeHtml(v)}</td></tr>`)
+          .map(
+            ([k, v]) =>
+              `<tr><th align="left" style="padding:4px 8px 4px 0;font-weight:600;vertical-align:top">${escapeHtml(k)}</th><td style="padding:4px 0">${escapeHtml(v)}</td></tr>`,
+          )
           .join("")}</table>`;
       return `<p style="margin:0 0 18px"><a href="${escapeHtml(b.button.href)}" style="display:inline-block;background:${COPPER_700};color:#ffffff;padding:10px 18px;border-radius:4px;text-decoration:none;font-weight:600">${escapeHtml(b.button.label)}</a></p><p style="margin:0 0 14px;font-size:13px;color:${FORGE_700};word-break:break-all">${escapeHtml(b.button.href)}</p>`;
     })

@@ -18,7 +18,9 @@ export function inviteMail(v: { teamName: string; inviterName: string; role: key
     [
       { p: `${v.inviterName} invites you to ${v.teamName} on Sealwright as ${ROLE_WORDS[v.role]}.` },
       { button: { href: v.link, label: "Accept the invite" } },
-      { small: `The link works once and for ${INVITE_DAYS} days. If you already have a Sealwright account with this address, sign in and the shop is added to it; if not, you choose your name and password.` },
+      {
+        small: `The link works once and for ${INVITE_DAYS} days. If you already have a Sealwright account with this address, sign in and the shop is added to it; if not, you choose your name and password.`,
+      },
     ],
     "You get this because someone in the shop entered your address. If you did not expect it, ignore it: nothing happens unless the link is used.",
   );
@@ -31,7 +33,9 @@ export function resetMail(v: { name: string; link: string }): MailContent {
     [
       { p: `Hello ${v.name}, someone (we hope you) asked to reset the password of your Sealwright account.` },
       { button: { href: v.link, label: "Choose a new password" } },
-      { small: `The link works once and for ${RESET_MINUTES} minutes. After the reset every device signed in to your account is signed out.` },
+      {
+        small: `The link works once and for ${RESET_MINUTES} minutes. After the reset every device signed in to your account is signed out.`,
+      },
     ],
     "If you did not ask for this, ignore this message: your password stays as it is.",
   );
@@ -54,12 +58,17 @@ export function buildSheetMail(v: BuildSheetSummary): MailContent {
     `Build sheet: ${v.engineName} — ${v.teamName}`,
     `Build sheet for ${v.engineName}`,
     [
-      { p: `Hello ${v.recipientName}, ${v.senderName} of ${v.teamName} sends you the build sheet of ${v.engineName}: the seal plan "${v.planName}".` },
+      {
+        p: `Hello ${v.recipientName}, ${v.senderName} of ${v.teamName} sends you the build sheet of ${v.engineName}: the seal plan "${v.planName}".`,
+      },
       ...(v.note ? [{ p: v.note }] : []),
       { p: `Our estimate: ${v.verdict}` },
       { rows: v.rows },
       { button: { href: v.link, label: "Open the build sheet" } },
-      { small: "The full sheet needs you to sign in to Sealwright with this address. Our numbers are estimates; the fastener and engine makers' torque, lubricant and procedure govern; defer to local codes and licensed practice." },
+      {
+        small:
+          "The full sheet needs you to sign in to Sealwright with this address. Our numbers are estimates; the fastener and engine makers' torque, lubricant and procedure govern; defer to local codes and licensed practice.",
+      },
     ],
     `Sent by ${v.teamName} through Sealwright.`,
   );

@@ -98,7 +98,9 @@ export interface PlanRecord {
 }
 
 /** Whether the plan's tightening target is a stud stretch rather than a torque. */
-export function plannedByStretch(plan: Pick<PlanRecord, "method" | "targetStretchMm">): plan is { method: "stretch-measured"; targetStretchMm: number } {
+export function plannedByStretch(
+  plan: Pick<PlanRecord, "method" | "targetStretchMm">,
+): plan is { method: "stretch-measured"; targetStretchMm: number } {
   return plan.method === "stretch-measured" && typeof plan.targetStretchMm === "number" && plan.targetStretchMm > 0;
 }
 

@@ -32,9 +32,17 @@ export function sheetSummary(f: SheetFacts, units: UnitSystem): [string, string]
   const rows: [string, string][] = [
     ["Gasket", `${f.gasket.name} (${GASKET_TYPE_LABELS[f.gasket.type]})`],
     ["Fastener", f.fastener.name],
-    ["Maker's torque", f.fastener.makerTorqueNm === null ? "not recorded: ask the fastener maker" : `${torque(f.fastener.makerTorqueNm)}${f.fastener.makerStages ? ` (stages: ${f.fastener.makerStages})` : ""}`],
+    [
+      "Maker's torque",
+      f.fastener.makerTorqueNm === null
+        ? "not recorded: ask the fastener maker"
+        : `${torque(f.fastener.makerTorqueNm)}${f.fastener.makerStages ? ` (stages: ${f.fastener.makerStages})` : ""}`,
+    ],
     ["Maker's lubricant", f.fastener.makerLubricant || "not recorded"],
-    ["This plan", `${METHOD_LABEL[f.plan.method]}, ${stagesText(f.plan.stagesNm, f.plan.torqueNm, units)}${f.plan.lubricant ? `, on ${f.plan.lubricant}` : ""}`],
+    [
+      "This plan",
+      `${METHOD_LABEL[f.plan.method]}, ${stagesText(f.plan.stagesNm, f.plan.torqueNm, units)}${f.plan.lubricant ? `, on ${f.plan.lubricant}` : ""}`,
+    ],
     ["Weakest seal margin", `${e.weakestMargin.toFixed(2)} on cylinder ${e.weakestCylinder} (target ${f.view.targetMargin.toFixed(2)})`],
     ["Clamp per cylinder", e.cylinders.map((c) => `${c.cylinder}: ${formatQuantity(c.clampN, "force", units)}`).join(", ")],
     [

@@ -38,7 +38,11 @@ export function wrenchStages(torqueNm: number, system: UnitSystem, fractions = D
 /** Stages scaled to a new final torque, keeping their proportions, each at a wrench setting. */
 export function scaledWrenchStages(stagesNm: number[], fromNm: number, toNm: number, system: UnitSystem): number[] {
   if (stagesNm.length === 0 || !(fromNm > 0)) return [toNm];
-  return wrenchStages(toNm, system, stagesNm.slice(0, -1).map((s) => s / fromNm));
+  return wrenchStages(
+    toNm,
+    system,
+    stagesNm.slice(0, -1).map((s) => s / fromNm),
+  );
 }
 
 const NUMBER_WORDS: Record<string, number> = { two: 2, three: 3, four: 4, five: 5, six: 6 };
@@ -84,7 +88,11 @@ function unitMatching(text: string, makerTorqueNm: number): DisplayUnit | null {
 
 /** Two lubricant names that say the same thing (case, spacing and punctuation aside). */
 export function sameLubricant(a: string | null | undefined, b: string | null | undefined): boolean {
-  const norm = (s: string | null | undefined) => (s ?? "").toLowerCase().replace(/[^a-z0-9]+/g, " ").trim();
+  const norm = (s: string | null | undefined) =>
+    (s ?? "")
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, " ")
+      .trim();
   return norm(a) === norm(b);
 }
 
@@ -101,7 +109,11 @@ export function lubricantWarning(planLubricant: string, fastener: Pick<MakerFigu
 export const FOLLOWED_FIELDS = ["torque", "stages", "lubricant", "threadFriction", "bearingFriction", "targetStretch"] as const;
 
 export function figuresFingerprint(values: Record<string, unknown>): string {
-  return FOLLOWED_FIELDS.map((k) => String(values[k] ?? "").trim().replace(/\s+/g, " ")).join("|");
+  return FOLLOWED_FIELDS.map((k) =>
+    String(values[k] ?? "")
+      .trim()
+      .replace(/\s+/g, " "),
+  ).join("|");
 }
 
 const torqueText = (nm: number, system: UnitSystem) => String(Number(toDisplay("torque", nm, unitFor("torque", system)).toFixed(1)));
@@ -135,7 +147,11 @@ export function followedNote(f: MakerFigures): string {
 }
 
 /** The form after the fastener changed to `next`: its figures, the note, and the fingerprint of what is now shown. */
-export function followFastener(current: Record<string, string>, next: MakerFigures, system: UnitSystem): { values: Record<string, string>; note: string } {
+export function followFastener(
+  current: Record<string, string>,
+  next: MakerFigures,
+  system: UnitSystem,
+): { values: Record<string, string>; note: string } {
   const values = { ...current, ...makerFieldValues(next, current, system) };
   values.figuresFastenerId = String(next.id);
   values.figuresSeen = figuresFingerprint(values);
@@ -147,7 +163,11 @@ export function followFastener(current: Record<string, string>, next: MakerFigur
  * lubricant and friction are still exactly what was shown for the old fastener: answer with the new
  * fastener's figures (nothing saved) rather than save the old stud's figures under the new stud.
  */
-export function figuresFollowStep(form: Record<string, string>, fasteners: MakerFigures[], system: UnitSystem): { values: Record<string, string>; note: string } | null {
+export function figuresFollowStep(
+  form: Record<string, string>,
+  fasteners: MakerFigures[],
+  system: UnitSystem,
+): { values: Record<string, string>; note: string } | null {
   const shownFor = form.figuresFastenerId;
   if (!shownFor || form.fastenerId === shownFor) return null;
   if (figuresFingerprint(form) !== form.figuresSeen) return null;

@@ -38,8 +38,10 @@ export const METHOD_LABEL: Record<PlanWrite["method"], string> = {
 
 /** What each method means for the clamp, for the help under the select. */
 export const METHOD_HELP: Record<PlanWrite["method"], string> = {
-  "torque-estimated-friction": "Torque wrench with the friction taken from the library or the lube's usual range: the clamp varies most from stud to stud.",
-  "torque-tested-friction": "Torque wrench, with the friction found by tightening these studs with this lube and measuring: less spread than an estimated friction.",
+  "torque-estimated-friction":
+    "Torque wrench with the friction taken from the library or the lube's usual range: the clamp varies most from stud to stud.",
+  "torque-tested-friction":
+    "Torque wrench, with the friction found by tightening these studs with this lube and measuring: less spread than an estimated friction.",
   "angle-or-yield": "Snug to a torque, then turn a set angle (or to the yield point): the least spread of clamp.",
   "stretch-measured": "Tighten until a stretch gauge on the stud reads the target stretch: the clamp follows the stretch, not the torque.",
 };
@@ -86,11 +88,14 @@ const QUANTITIES: QuantityField[] = [
 // Plain numbers typed with a decimal comma are read like the quantities (see app/lib/units/decimal-comma.ts).
 const PLAIN_NUMBERS = ["threadFriction", "bearingFriction", "targetMargin"] as const;
 
-export type PlanFormResult =
-  | { ok: true; plan: PlanWrite }
-  | { ok: false; errors: Record<string, string> };
+export type PlanFormResult = { ok: true; plan: PlanWrite } | { ok: false; errors: Record<string, string> };
 
-function quantityIn(text: string, f: QuantityField, system: UnitSystem, fieldUnit: DisplayUnit = unitFor(f.quantity, system)): { value?: number; unit?: DisplayUnit; error?: string } {
+function quantityIn(
+  text: string,
+  f: QuantityField,
+  system: UnitSystem,
+  fieldUnit: DisplayUnit = unitFor(f.quantity, system),
+): { value?: number; unit?: DisplayUnit; error?: string } {
   const r = parseQuantity(decimalPoint(text), f.quantity, fieldUnit);
   if (!r.ok) return { error: `${f.label}: ${r.message}` };
   const lo = formatQuantity(f.min, f.quantity, system);
@@ -203,7 +208,10 @@ export function planFormValues(plan: PlanWrite, system: UnitSystem): Record<stri
     wireProjection: num(plan.wireProjectionMm, "smallLength", system, smallDecimals),
     receiverGrooveDepth: num(plan.receiverGrooveDepthMm, "smallLength", system, smallDecimals),
     sleeveProtrusion: plan.sleeveProtrusionMm === null ? "" : num(plan.sleeveProtrusionMm, "smallLength", system, smallDecimals),
-    targetStretch: plan.targetStretchMm === null || plan.targetStretchMm === undefined ? "" : num(plan.targetStretchMm, "smallLength", system, smallDecimals),
+    targetStretch:
+      plan.targetStretchMm === null || plan.targetStretchMm === undefined
+        ? ""
+        : num(plan.targetStretchMm, "smallLength", system, smallDecimals),
     targetMargin: String(plan.targetMargin),
     notes: plan.notes,
   };
@@ -215,5 +223,8 @@ export function planFormValues(plan: PlanWrite, system: UnitSystem): Record<stri
 
 /** The copy-a-plan form: which engine of the shop gets the copy. */
 export const CopyPlanSchema = z.object({
-  targetEngineId: z.coerce.number({ error: "Pick the engine to copy the plan to." }).int("Pick the engine to copy the plan to.").positive("Pick the engine to copy the plan to."),
+  targetEngineId: z.coerce
+    .number({ error: "Pick the engine to copy the plan to." })
+    .int("Pick the engine to copy the plan to.")
+    .positive("Pick the engine to copy the plan to."),
 });

@@ -34,7 +34,12 @@ export interface StretchLine {
 }
 
 /** From the estimate's nominal preload and torque and the stud stiffness. */
-export function stretchLine(mode: "torque" | "stretch", preloadN: number, torqueNm: number, stiffnessNPerMm: number | null): StretchLine | null {
+export function stretchLine(
+  mode: "torque" | "stretch",
+  preloadN: number,
+  torqueNm: number,
+  stiffnessNPerMm: number | null,
+): StretchLine | null {
   if (stiffnessNPerMm === null || !(preloadN > 0)) return null;
   return { mode, stretchMm: stretchForPreloadMm(preloadN, stiffnessNPerMm), preloadN, torqueNm, studStiffnessNPerMm: stiffnessNPerMm };
 }

@@ -97,7 +97,11 @@ export interface ImpliedPreload {
  * Preload from each measured stretch through the model's stud stiffness k (F = k·δ, the same rule the
  * plan form uses), beside the preload the clamp model gave for the torque reached.
  */
-export function impliedPreloads(stretch: readonly StudStretch[], studStiffnessNPerMm: number, predictedPreloadN: number | null): ImpliedPreload[] {
+export function impliedPreloads(
+  stretch: readonly StudStretch[],
+  studStiffnessNPerMm: number,
+  predictedPreloadN: number | null,
+): ImpliedPreload[] {
   return stretch.map((s) => {
     const impliedPreloadN = preloadForStretchN(s.stretchMm, studStiffnessNPerMm);
     return {

@@ -51,7 +51,12 @@ export interface EvidenceFilter {
 }
 
 export function filterPoints(points: readonly EvidencePoint[], f: EvidenceFilter): EvidencePoint[] {
-  return points.filter((p) => (!f.gasketType || p.gasketType === f.gasketType) && (!f.fastenerName || p.fastenerName === f.fastenerName) && (!f.fuel || p.fuel === f.fuel));
+  return points.filter(
+    (p) =>
+      (!f.gasketType || p.gasketType === f.gasketType) &&
+      (!f.fastenerName || p.fastenerName === f.fastenerName) &&
+      (!f.fuel || p.fuel === f.fuel),
+  );
 }
 
 export function combinations(points: readonly EvidencePoint[]): CombinationRow[] {
@@ -95,5 +100,13 @@ export function summarize(points: readonly EvidencePoint[]): EvidenceSummary {
         : failures.length < 3
           ? `${n} runs but only ${failures.length} seal failure${failures.length === 1 ? "" : "s"}: the failure line rests on very little.`
           : `${n} runs, ${failures.length} seal failures.`;
-  return { points: n, sealFailures: failures.length, failedAtOrBelowMargin, failuresBelowOne, failuresAboveOne: failures.length - failuresBelowOne, heldBelowOne, honesty };
+  return {
+    points: n,
+    sealFailures: failures.length,
+    failedAtOrBelowMargin,
+    failuresBelowOne,
+    failuresAboveOne: failures.length - failuresBelowOne,
+    heldBelowOne,
+    honesty,
+  };
 }

@@ -40,7 +40,11 @@ const sampleSd = (xs: number[]) => {
 export function learnFriction(obs: readonly FrictionObservation[]): LearnedFriction {
   const usable = obs.filter((o) => o.torqueNm > 0 && o.observedPreloadN > 0);
   if (usable.length < MIN_ASSEMBLIES_TO_LEARN)
-    return { ok: false, count: usable.length, reason: `Needs stretch measured at a known torque on at least ${MIN_ASSEMBLIES_TO_LEARN} assemblies with this fastener and lubricant; there ${usable.length === 1 ? "is" : "are"} ${usable.length}.` };
+    return {
+      ok: false,
+      count: usable.length,
+      reason: `Needs stretch measured at a known torque on at least ${MIN_ASSEMBLIES_TO_LEARN} assemblies with this fastener and lubricant; there ${usable.length === 1 ? "is" : "are"} ${usable.length}.`,
+    };
   let num = 0;
   let den = 0;
   const each: number[] = [];
@@ -57,7 +61,11 @@ export function learnFriction(obs: readonly FrictionObservation[]): LearnedFrict
   }
   const friction = num / den;
   if (!(friction >= 0.02 && friction <= 0.6))
-    return { ok: false, count: usable.length, reason: `The fit gives a friction of ${friction.toFixed(3)}, outside any real lubricant (0.02–0.6): check the stretch readings.` };
+    return {
+      ok: false,
+      count: usable.length,
+      reason: `The fit gives a friction of ${friction.toFixed(3)}, outside any real lubricant (0.02–0.6): check the stretch readings.`,
+    };
   return {
     ok: true,
     friction,

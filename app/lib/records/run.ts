@@ -5,7 +5,16 @@ export const RUN_KINDS = ["dyno", "pass", "street"] as const;
 export type RunKind = (typeof RUN_KINDS)[number];
 export const RUN_KIND_LABEL: Record<RunKind, string> = { dyno: "Dyno session", pass: "Pass", street: "Street use" };
 
-export const OUTCOMES = ["held", "seeping", "coolant-leak", "combustion-leak", "lifted-head", "blown-gasket", "stud-failure", "other"] as const;
+export const OUTCOMES = [
+  "held",
+  "seeping",
+  "coolant-leak",
+  "combustion-leak",
+  "lifted-head",
+  "blown-gasket",
+  "stud-failure",
+  "other",
+] as const;
 export type Outcome = (typeof OUTCOMES)[number];
 export const OUTCOME_LABEL: Record<Outcome, string> = {
   held: "Held",
@@ -27,7 +36,10 @@ export const isoDate = (label: string) =>
     .string()
     .trim()
     .regex(ISO_DATE, `${label}: give a date as YYYY-MM-DD`)
-    .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), `${label} is not a real date`);
+    .refine(
+      (s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s),
+      `${label} is not a real date`,
+    );
 
 /** "" → undefined, else a finite number within [min, max]. */
 export const optionalNumber = (label: string, min: number, max: number) =>
@@ -86,7 +98,11 @@ export function runSchema(cylinders: number) {
     })
     .superRefine((r, ctx) => {
       if (r.peakCylinderPressureMpa === undefined && r.manifoldPressureKpa === undefined)
-        ctx.addIssue({ code: "custom", path: ["manifoldPressureKpa"], message: "Give the manifold pressure, or the measured peak cylinder pressure" });
+        ctx.addIssue({
+          code: "custom",
+          path: ["manifoldPressureKpa"],
+          message: "Give the manifold pressure, or the measured peak cylinder pressure",
+        });
       if (r.outcome !== "held" && r.outcome !== "other" && r.cylindersAffected.length === 0)
         ctx.addIssue({ code: "custom", path: ["cylindersAffected"], message: "Say which cylinders it affected" });
       if (r.outcome === "held" && r.cylindersAffected.length > 0)
@@ -95,7 +111,17 @@ export function runSchema(cylinders: number) {
 }
 export type RunInput = z.output<ReturnType<typeof runSchema>>;
 
-export const RUN_FIELDS = ["ranOn", "kind", "manifoldPressureKpa", "fuel", "peakCylinderPressureMpa", "outcome", "cylindersAffected", "notes", "teardownFindings"] as const;
+export const RUN_FIELDS = [
+  "ranOn",
+  "kind",
+  "manifoldPressureKpa",
+  "fuel",
+  "peakCylinderPressureMpa",
+  "outcome",
+  "cylindersAffected",
+  "notes",
+  "teardownFindings",
+] as const;
 
 /** A stored run, as the pages and the CSV see it. */
 export interface RunRecord {
@@ -125,7 +151,12 @@ export interface RunFilter {
 }
 
 /** Filter and sort a run list (the table's query string); unknown values are ignored. */
-export function selectRuns(runs: readonly RunRecord[], filter: RunFilter, sort: RunSort = "ranOn", dir: "asc" | "desc" = "desc"): RunRecord[] {
+export function selectRuns(
+  runs: readonly RunRecord[],
+  filter: RunFilter,
+  sort: RunSort = "ranOn",
+  dir: "asc" | "desc" = "desc",
+): RunRecord[] {
   const kept = runs.filter(
     (r) =>
       (!filter.kind || r.kind === filter.kind) &&
@@ -143,7 +174,18 @@ export function selectRuns(runs: readonly RunRecord[], filter: RunFilter, sort: 
   });
 }
 
-export const RUN_CSV_COLUMNS = ["date", "kind", "manifold_kpa_abs", "fuel", "peak_cylinder_pressure_mpa", "peak_pressure_source", "outcome", "cylinders_affected", "notes", "teardown_findings"] as const;
+export const RUN_CSV_COLUMNS = [
+  "date",
+  "kind",
+  "manifold_kpa_abs",
+  "fuel",
+  "peak_cylinder_pressure_mpa",
+  "peak_pressure_source",
+  "outcome",
+  "cylinders_affected",
+  "notes",
+  "teardown_findings",
+] as const;
 
 /** One CSV row per run, SI figures; the CSV library does the quoting. */
 export function runCsvRows(runs: readonly RunRecord[]): string[][] {

@@ -40,7 +40,9 @@ export function layoutStuds(studs: readonly Stud[], cylinders: number, layout: "
     const own = studs.map((s, index) => ({ s, index })).filter(({ s }) => bankOf(s) === bank);
     const named = own.every(({ s }) => SIDE_LABEL.test(s.label ?? ""));
     const half = Math.ceil(own.length / 2);
-    const sides = [0, 1].map((side) => own.filter(({ s }, i) => (named ? (SIDE_LABEL.exec(s.label ?? "")![2] === "B" ? 1 : 0) : i >= half ? 1 : 0) === side));
+    const sides = [0, 1].map((side) =>
+      own.filter(({ s }, i) => (named ? (SIDE_LABEL.exec(s.label ?? "")![2] === "B" ? 1 : 0) : i >= half ? 1 : 0) === side),
+    );
     sides.forEach((list, side) => {
       list.forEach(({ s, index }, j) => {
         const x = list.length > 1 ? (j * perBank) / (list.length - 1) : perBank / 2;
@@ -54,7 +56,7 @@ export function layoutStuds(studs: readonly Stud[], cylinders: number, layout: "
     mine.sort((a, b) => rank(a) - rank(b) || a.x - b.x || a.side - b.side);
     // alternate sides inside each ring of equal distance: A, B, A, B …
     const ordered: PlacedStud[] = [];
-    for (let i = 0; i < mine.length; ) {
+    for (let i = 0; i < mine.length;) {
       let j = i;
       while (j < mine.length && rank(mine[j]!) === rank(mine[i]!)) j++;
       const ring = mine.slice(i, j);

@@ -50,7 +50,12 @@ export interface FormatOptions {
 }
 
 /** "12.5 kN", "0.004 in", "23.9 ksi"; a dash for a missing or non-finite figure. */
-export function formatQuantity(valueSi: number | null | undefined, quantity: Quantity, system: UnitSystem, options: FormatOptions = {}): string {
+export function formatQuantity(
+  valueSi: number | null | undefined,
+  quantity: Quantity,
+  system: UnitSystem,
+  options: FormatOptions = {},
+): string {
   if (valueSi === null || valueSi === undefined || !Number.isFinite(valueSi)) return "—";
   const unit = options.unit ?? unitFor(quantity, system);
   const decimals = options.decimals ?? unitDef(quantity, unit).decimals;

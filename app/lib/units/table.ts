@@ -22,7 +22,10 @@ const KPA_PER_KSI = (N_PER_LBF * 1000) / (0.0254 * 0.0254) / 1000;
 
 function exactAnchors(m: unknown, metricToImperial: number): AnyMeasure {
   const d = m as AnyMeasure;
-  return { ...d, anchors: { metric: { imperial: { ratio: metricToImperial } }, imperial: { metric: { ratio: 1 / metricToImperial } } } } as AnyMeasure;
+  return {
+    ...d,
+    anchors: { metric: { imperial: { ratio: metricToImperial } }, imperial: { metric: { ratio: 1 / metricToImperial } } },
+  } as AnyMeasure;
 }
 function exactLbf(m: unknown): AnyMeasure {
   const d = m as AnyMeasure & { systems: Record<string, Record<string, { to_anchor: number }>> };
@@ -96,23 +99,66 @@ const absSpellings = (name: string) => [name, `${name} abs`, `${name}a`];
 
 /** Every unit a quantity is read or typed in; the first two are the metric and imperial choice. */
 const UNITS: Record<Quantity, { metric: string; imperial: string; units: UnitDef[] }> = {
-  length: { metric: "mm", imperial: "in", units: [u("mm", SAME, 2), u("in", linear("mm", "in"), 3, ['"', "inch"]), u("thou", linear("mm", "mil"), 1, ["mil"])] },
-  smallLength: { metric: "mm", imperial: "thou", units: [u("mm", SAME, 2), u("thou", linear("mm", "mil"), 1, ["mil"]), u("in", linear("mm", "in"), 4, ['"', "inch"])] },
+  length: {
+    metric: "mm",
+    imperial: "in",
+    units: [u("mm", SAME, 2), u("in", linear("mm", "in"), 3, ['"', "inch"]), u("thou", linear("mm", "mil"), 1, ["mil"])],
+  },
+  smallLength: {
+    metric: "mm",
+    imperial: "thou",
+    units: [u("mm", SAME, 2), u("thou", linear("mm", "mil"), 1, ["mil"]), u("in", linear("mm", "in"), 4, ['"', "inch"])],
+  },
   area: { metric: "mm²", imperial: "in²", units: [u("mm²", SAME, 0, ["mm2"]), u("in²", linear("mm2", "in2"), 3, ["in2", "sq in"])] },
-  force: { metric: "kN", imperial: "lbf", units: [u("kN", linear("N", "kN"), 1), u("lbf", linear("N", "lbf"), 0, ["lb"]), u("N", SAME, 0)] },
+  force: {
+    metric: "kN",
+    imperial: "lbf",
+    units: [u("kN", linear("N", "kN"), 1), u("lbf", linear("N", "lbf"), 0, ["lb"]), u("N", SAME, 0)],
+  },
   torque: {
     metric: "N·m",
     imperial: "lbf·ft",
-    units: [u("N·m", SAME, 0, ["nm", "n-m", "n.m"]), u("lbf·ft", linear("Nm", "lbf-ft"), 0, ["lbf-ft", "ft-lb", "ft·lbf", "ft-lbf", "lb-ft", "ft-lbs", "ft lb"])],
+    units: [
+      u("N·m", SAME, 0, ["nm", "n-m", "n.m"]),
+      u("lbf·ft", linear("Nm", "lbf-ft"), 0, ["lbf-ft", "ft-lb", "ft·lbf", "ft-lbf", "lb-ft", "ft-lbs", "ft lb"]),
+    ],
   },
-  pressure: { metric: "bar", imperial: "psi", units: [u("bar", linear("MPa", "bar"), 1), u("psi", linear("MPa", "psi"), 0), u("MPa", SAME, 2), u("kPa", linear("MPa", "kPa"), 0)] },
+  pressure: {
+    metric: "bar",
+    imperial: "psi",
+    units: [u("bar", linear("MPa", "bar"), 1), u("psi", linear("MPa", "psi"), 0), u("MPa", SAME, 2), u("kPa", linear("MPa", "kPa"), 0)],
+  },
   // stresses read in ksi for imperial everywhere (plan pages and library tables alike)
-  stress: { metric: "MPa", imperial: "ksi", units: [u("MPa", SAME, 0, ["n/mm²", "n/mm2"]), u("ksi", linear("MPa", "ksi"), 1), u("psi", linear("MPa", "psi"), 0), u("GPa", linear("MPa", "kPa", 1e-6), 3)] },
-  modulus: { metric: "GPa", imperial: "Mpsi", units: [u("GPa", linear("MPa", "kPa", 1e-6), 1), u("Mpsi", linear("MPa", "psi", 1e-6), 2, ["msi"]), u("MPa", SAME, 0)] },
+  stress: {
+    metric: "MPa",
+    imperial: "ksi",
+    units: [
+      u("MPa", SAME, 0, ["n/mm²", "n/mm2"]),
+      u("ksi", linear("MPa", "ksi"), 1),
+      u("psi", linear("MPa", "psi"), 0),
+      u("GPa", linear("MPa", "kPa", 1e-6), 3),
+    ],
+  },
+  modulus: {
+    metric: "GPa",
+    imperial: "Mpsi",
+    units: [u("GPa", linear("MPa", "kPa", 1e-6), 1), u("Mpsi", linear("MPa", "psi", 1e-6), 2, ["msi"]), u("MPa", SAME, 0)],
+  },
   // a Fahrenheit degree is 5/9 of a Celsius degree, so a per-degree figure is 5/9 as large per °F
-  expansion: { metric: "µm/m·°C", imperial: "µin/in·°F", units: [u("µm/m·°C", SAME, 1, ["um/m", "µm/m", "ppm/c"]), u("µin/in·°F", { factor: 1 / linear("C", "F").factor, offset: 0 }, 1, ["uin/in", "µin/in", "ppm/f"])] },
+  expansion: {
+    metric: "µm/m·°C",
+    imperial: "µin/in·°F",
+    units: [
+      u("µm/m·°C", SAME, 1, ["um/m", "µm/m", "ppm/c"]),
+      u("µin/in·°F", { factor: 1 / linear("C", "F").factor, offset: 0 }, 1, ["uin/in", "µin/in", "ppm/f"]),
+    ],
+  },
   // µm → µin is the mm → thou ratio (1 µin = 0.0254 µm)
-  roughness: { metric: "µm Ra", imperial: "µin Ra", units: [u("µm Ra", SAME, 2, ["µm", "um", "ra µm"]), u("µin Ra", linear("mm", "mil"), 0, ["µin", "uin", "ra µin"])] },
+  roughness: {
+    metric: "µm Ra",
+    imperial: "µin Ra",
+    units: [u("µm Ra", SAME, 2, ["µm", "um", "ra µm"]), u("µin Ra", linear("mm", "mil"), 0, ["µin", "uin", "ra µin"])],
+  },
   temperature: { metric: "°C", imperial: "°F", units: [u("°C", SAME, 0, ["c", "degc"]), u("°F", linear("C", "F"), 0, ["f", "degf"])] },
   volume: { metric: "cc", imperial: "cc", units: [u("cc", SAME, 1, ["cm3", "cm³", "ml"])] },
   manifold: {

@@ -25,11 +25,20 @@ export async function loader({ request }: Route.LoaderArgs) {
   ]);
   // Activity names the plan it touched and links to it while the plan is still there.
   const subjects = rawEvents.map((e) => auditSubject(e.detail));
-  const live = await livePlans(team.id, subjects.flatMap((s) => (s.planId ? [s.planId] : [])));
+  const live = await livePlans(
+    team.id,
+    subjects.flatMap((s) => (s.planId ? [s.planId] : [])),
+  );
   const events = rawEvents.map((e, i) => {
     const s = subjects[i]!;
     const plan = s.planId ? live.get(s.planId) : undefined;
-    return { id: e.id, action: e.action, at: e.at, who: e.who, plan: plan && s.planId ? { name: plan.name, href: `/engines/${plan.engineId}/plans/${s.planId}` } : null };
+    return {
+      id: e.id,
+      action: e.action,
+      at: e.at,
+      who: e.who,
+      plan: plan && s.planId ? { name: plan.name, href: `/engines/${plan.engineId}/plans/${s.planId}` } : null,
+    };
   });
   return { user, team, role, counts, recent: recent.rows, events, atRisk: verdicts.filter(atRisk) };
 }
@@ -111,7 +120,10 @@ export default function Dashboard({ loaderData }: Route.ComponentProps) {
           </h2>
           {recent.length === 0 ? (
             <p className="mt-2 text-forge-700">
-              No engines yet. <Link to="/engines" className="text-copper-700 underline">Go to Engines</Link>
+              No engines yet.{" "}
+              <Link to="/engines" className="text-copper-700 underline">
+                Go to Engines
+              </Link>
             </p>
           ) : (
             <ul className="mt-2 divide-y divide-forge-100 rounded border border-forge-100 bg-white">

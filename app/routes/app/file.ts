@@ -10,10 +10,12 @@ import { fileStorage } from "~/utils/files.server";
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { team, who } = await requireUser(request);
   const row = await getStoredFile(team.id, params.fileId);
-  if (!row || !(await getEngine(who, row.engineId))) throw new Response("No such file in this shop.", { status: 404, headers: { "Content-Type": "text/plain; charset=utf-8" } });
+  if (!row || !(await getEngine(who, row.engineId)))
+    throw new Response("No such file in this shop.", { status: 404, headers: { "Content-Type": "text/plain; charset=utf-8" } });
   const thumb = new URL(request.url).searchParams.get("thumb") === "1" && row.thumbKey;
   const stored = await fileStorage().get(thumb ? row.thumbKey! : row.storageKey);
-  if (!stored) throw new Response("The file is missing from storage.", { status: 404, headers: { "Content-Type": "text/plain; charset=utf-8" } });
+  if (!stored)
+    throw new Response("The file is missing from storage.", { status: 404, headers: { "Content-Type": "text/plain; charset=utf-8" } });
   const type = thumb ? "image/webp" : row.contentType;
   const disposition = type === "application/pdf" ? "attachment" : "inline";
   return new Response(stored.stream(), {

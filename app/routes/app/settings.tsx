@@ -14,7 +14,11 @@ export const meta: Route.MetaFunction = () => [{ title: "Settings · Sealwright"
 
 const ProfileSchema = z.object({ name: PersonName, units: z.enum(["metric", "imperial"], "Pick metric or imperial") });
 const PasswordSchema = z
-  .object({ current: z.string({ error: "Enter your current password" }).min(1, "Enter your current password"), password: NewPassword, confirm: z.string({ error: "Type the new password again" }) })
+  .object({
+    current: z.string({ error: "Enter your current password" }).min(1, "Enter your current password"),
+    password: NewPassword,
+    confirm: z.string({ error: "Type the new password again" }),
+  })
   .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords differ" });
 
 export async function loader({ request }: Route.LoaderArgs) {
@@ -29,11 +33,18 @@ export async function action({ request }: Route.ActionArgs) {
     const parsed = PasswordSchema.safeParse(form);
     if (!parsed.success) return data({ intent: "password", errors: fieldErrors(parsed.error.issues) }, { status: 400 });
     const ok = await verifyPassword((await getPasswordHash(user.id)) ?? "", parsed.data.current);
-    if (!ok) return data({ intent: "password", errors: { current: "That is not your current password" } as Record<string, string> }, { status: 400 });
+    if (!ok)
+      return data(
+        { intent: "password", errors: { current: "That is not your current password" } as Record<string, string> },
+        { status: 400 },
+      );
     // every session ends (other devices too); this browser gets a fresh one
     await setPassword(user.id, parsed.data.password);
     const response = await startSession(request, user.id, team.id, "/settings");
-    response.headers.append("Set-Cookie", await flashToast(request, { kind: "done", message: "Password changed; other devices were signed out." }));
+    response.headers.append(
+      "Set-Cookie",
+      await flashToast(request, { kind: "done", message: "Password changed; other devices were signed out." }),
+    );
     return response;
   }
   // a post with units alone keeps the name
@@ -57,10 +68,12 @@ export default function Settings({ loaderData, actionData }: Route.ComponentProp
             <legend className="font-bold">Display units</legend>
             {errors("profile").units ? <p className="text-failed">✖ {errors("profile").units}</p> : null}
             <label className="mt-2 flex items-center gap-2">
-              <input type="radio" name="units" value="metric" defaultChecked={loaderData.units === "metric"} /> Metric (mm, kN, N·m, bar, MPa)
+              <input type="radio" name="units" value="metric" defaultChecked={loaderData.units === "metric"} /> Metric (mm, kN, N·m, bar,
+              MPa)
             </label>
             <label className="mt-1 flex items-center gap-2">
-              <input type="radio" name="units" value="imperial" defaultChecked={loaderData.units === "imperial"} /> Imperial (in, thou, lbf, lbf·ft, psi)
+              <input type="radio" name="units" value="imperial" defaultChecked={loaderData.units === "imperial"} /> Imperial (in, thou, lbf,
+              lbf·ft, psi)
             </label>
           </fieldset>
           <Button type="submit">Save</Button>
@@ -69,12 +82,39 @@ export default function Settings({ loaderData, actionData }: Route.ComponentProp
         <Form method="post" className="space-y-4 rounded border border-forge-100 bg-white p-4">
           <h2 className="font-bold">Change your password</h2>
           <input type="hidden" name="intent" value="password" />
-          <Field label="Current password" name="current" type="password" autoComplete="current-password" required error={errors("password").current} />
-          <Field label="New password" name="password" type="password" autoComplete="new-password" required error={errors("password").password} hint={`${PASSWORD_MIN} to ${PASSWORD_MAX} characters. Every other device signed in as you is signed out.`} />
-          <Field label="New password again" name="confirm" type="password" autoComplete="new-password" required error={errors("password").confirm} />
+          <Field
+            label="Current password"
+            name="current"
+            type="password"
+            autoComplete="current-password"
+            required
+            error={errors("password").current}
+          />
+          <Field
+            label="New password"
+            name="password"
+            type="password"
+            autoComplete="new-password"
+            required
+            error={errors("password").password}
+            hint={`${PASSWORD_MIN} to ${PASSWORD_MAX} characters. Every other device signed in as you is signed out.`}
+          />
+          <Field
+            label="New password again"
+            name="confirm"
+            type="password"
+            autoComplete="new-password"
+            required
+            error={errors("password").confirm}
+          />
           <Button type="submit">Change the password</Button>
         </Form>
-        <p><a className="text-copper-700 underline" href="/settings/tokens">API tokens</a> for scripts and dyno laptops</p>
+        <p>
+          <a className="text-copper-700 underline" href="/settings/tokens">
+            API tokens
+          </a>{" "}
+          for scripts and dyno laptops
+        </p>
       </div>
     </>
   );

@@ -42,7 +42,8 @@ async function done(request: Request, message: string) {
 export async function action({ request }: Route.ActionArgs) {
   const { team, user } = await requireRole(request, "owner");
   const form = Object.fromEntries(await request.formData());
-  const refuse = (errors: Record<string, string>, error: string | null = null) => data({ intent: String(form.intent ?? "rename"), errors, error, values: form }, { status: 400 });
+  const refuse = (errors: Record<string, string>, error: string | null = null) =>
+    data({ intent: String(form.intent ?? "rename"), errors, error, values: form }, { status: 400 });
   try {
     switch (form.intent) {
       case "invite": {
@@ -53,7 +54,10 @@ export async function action({ request }: Route.ActionArgs) {
         try {
           await sendMail(parsed.data.email, inviteMail({ teamName: team.name, inviterName: user.name, role: parsed.data.role, link }));
         } catch (error) {
-          return refuse({}, `The invite is made, but the mail could not be sent (${(error as Error).message}). Check the SMTP settings, withdraw it and invite again.`);
+          return refuse(
+            {},
+            `The invite is made, but the mail could not be sent (${(error as Error).message}). Check the SMTP settings, withdraw it and invite again.`,
+          );
         }
         return done(request, `Invite sent to ${parsed.data.email}; the link works once, for ${INVITE_DAYS} days.`);
       }
@@ -101,33 +105,59 @@ export default function TeamPage({ loaderData, actionData }: Route.ComponentProp
           <caption className="sr-only">Members of {team.name}</caption>
           <thead className="bg-forge-100 text-sm">
             <tr>
-              <th scope="col" className="px-3 py-2">Name</th>
-              <th scope="col" className="px-3 py-2">E-mail</th>
-              <th scope="col" className="px-3 py-2">Role</th>
-              <th scope="col" className="px-3 py-2"><span className="sr-only">Remove</span></th>
+              <th scope="col" className="px-3 py-2">
+                Name
+              </th>
+              <th scope="col" className="px-3 py-2">
+                E-mail
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Role
+              </th>
+              <th scope="col" className="px-3 py-2">
+                <span className="sr-only">Remove</span>
+              </th>
             </tr>
           </thead>
           <tbody>
             {members.map((m) => (
               <tr key={m.userId} className="border-t border-forge-100">
-                <td className="px-3 py-2">{m.name}{m.userId === me ? " (you)" : ""}</td>
+                <td className="px-3 py-2">
+                  {m.name}
+                  {m.userId === me ? " (you)" : ""}
+                </td>
                 <td className="px-3 py-2 break-all">{m.email}</td>
                 <td className="px-3 py-2">
                   <Form method="post" className="flex items-center gap-2">
                     <input type="hidden" name="intent" value="role" />
                     <input type="hidden" name="userId" value={m.userId} />
-                    <label htmlFor={`role-${m.userId}`} className="sr-only">Role of {m.name}</label>
-                    <select id={`role-${m.userId}`} name="role" defaultValue={m.role} className="rounded border border-forge-300 px-2 py-1 capitalize">
-                      {ROLES.map((r) => <option key={r} value={r}>{r}</option>)}
+                    <label htmlFor={`role-${m.userId}`} className="sr-only">
+                      Role of {m.name}
+                    </label>
+                    <select
+                      id={`role-${m.userId}`}
+                      name="role"
+                      defaultValue={m.role}
+                      className="rounded border border-forge-300 px-2 py-1 capitalize"
+                    >
+                      {ROLES.map((r) => (
+                        <option key={r} value={r}>
+                          {r}
+                        </option>
+                      ))}
                     </select>
-                    <Button type="submit" kind="plain" aria-label={`Change the role of ${m.name}`}>Change</Button>
+                    <Button type="submit" kind="plain" aria-label={`Change the role of ${m.name}`}>
+                      Change
+                    </Button>
                   </Form>
                 </td>
                 <td className="px-3 py-2">
                   <Form method="post">
                     <input type="hidden" name="intent" value="remove" />
                     <input type="hidden" name="userId" value={m.userId} />
-                    <Button type="submit" kind="plain" aria-label={`Remove ${m.name} from the shop`}>Remove</Button>
+                    <Button type="submit" kind="plain" aria-label={`Remove ${m.name} from the shop`}>
+                      Remove
+                    </Button>
                   </Form>
                 </td>
               </tr>
@@ -137,12 +167,24 @@ export default function TeamPage({ loaderData, actionData }: Route.ComponentProp
       </div>
 
       <section aria-labelledby="invite-title" className="mt-8 max-w-xl rounded border border-forge-100 bg-white p-4">
-        <h2 id="invite-title" className="text-xl font-bold">Invite someone</h2>
-        <p className="mt-1 text-sm text-forge-700">They get an e-mail with a link that works once, for {INVITE_DAYS} days. A customer is a viewer: they see only the engines you share with them.</p>
+        <h2 id="invite-title" className="text-xl font-bold">
+          Invite someone
+        </h2>
+        <p className="mt-1 text-sm text-forge-700">
+          They get an e-mail with a link that works once, for {INVITE_DAYS} days. A customer is a viewer: they see only the engines you
+          share with them.
+        </p>
         {/* a new key after each invite empties the form for the next one */}
         <Form method="post" className="mt-3 space-y-3" key={invites[0]?.id ?? 0}>
           <input type="hidden" name="intent" value="invite" />
-          <Field label="E-mail" name="email" type="email" required defaultValue={actionData?.intent === "invite" ? String(actionData.values.email ?? "") : undefined} error={errorsFor("invite").email} />
+          <Field
+            label="E-mail"
+            name="email"
+            type="email"
+            required
+            defaultValue={actionData?.intent === "invite" ? String(actionData.values.email ?? "") : undefined}
+            error={errorsFor("invite").email}
+          />
           <SelectField label="Role" name="role" options={ROLE_OPTIONS} defaultValue="viewer" error={errorsFor("invite").role} />
           <Button type="submit">Send the invite</Button>
         </Form>
@@ -150,11 +192,15 @@ export default function TeamPage({ loaderData, actionData }: Route.ComponentProp
           <ul className="mt-4 space-y-2 text-sm" aria-label="Invites not yet accepted">
             {invites.map((i) => (
               <li key={i.id} className="flex flex-wrap items-center gap-2">
-                <span className="break-all">{i.email} as {i.role}, until {i.expiresAt.slice(0, 10)}</span>
+                <span className="break-all">
+                  {i.email} as {i.role}, until {i.expiresAt.slice(0, 10)}
+                </span>
                 <Form method="post">
                   <input type="hidden" name="intent" value="revoke" />
                   <input type="hidden" name="inviteId" value={i.id} />
-                  <Button type="submit" kind="plain" aria-label={`Withdraw the invite to ${i.email}`}>Withdraw</Button>
+                  <Button type="submit" kind="plain" aria-label={`Withdraw the invite to ${i.email}`}>
+                    Withdraw
+                  </Button>
                 </Form>
               </li>
             ))}

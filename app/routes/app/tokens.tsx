@@ -31,8 +31,11 @@ export async function action({ request }: Route.ActionArgs) {
   if (form.intent === "revoke") {
     const parsed = TokenRevokeSchema.safeParse(form);
     const id = parsed.success ? parseId(parsed.data.tokenId) : null;
-    if (id === null || !(await revokeToken(team.id, user.id, id))) return data({ error: "No such live token of yours in this shop.", errors: {}, token: null }, { status: 404 });
-    return redirect("/settings/tokens", { headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: "Token revoked; it is refused from now on." }) } });
+    if (id === null || !(await revokeToken(team.id, user.id, id)))
+      return data({ error: "No such live token of yours in this shop.", errors: {}, token: null }, { status: 404 });
+    return redirect("/settings/tokens", {
+      headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: "Token revoked; it is refused from now on." }) },
+    });
   }
   const parsed = TokenCreateSchema.safeParse(form);
   if (!parsed.success) {
@@ -41,7 +44,10 @@ export async function action({ request }: Route.ActionArgs) {
   }
   // never more than the person may do in this shop today
   if (!roleAtLeast(role, parsed.data.role)) {
-    return data({ error: "The token was not created.", errors: { role: `You are a ${role} here; a token cannot do more.` }, token: null }, { status: 400 });
+    return data(
+      { error: "The token was not created.", errors: { role: `You are a ${role} here; a token cannot do more.` }, token: null },
+      { status: 400 },
+    );
   }
   try {
     const made = await createToken(team.id, user.id, parsed.data.name, parsed.data.role);
@@ -59,20 +65,51 @@ export default function Tokens({ loaderData, actionData }: Route.ComponentProps)
   const errors = (actionData?.errors ?? {}) as Record<string, string>;
   return (
     <>
-      <PageTitle sub={<>Keys for scripts and dyno laptops to use the <Link className="text-copper-700 underline" to="/docs/api">JSON API</Link> as you, in {loaderData.team.name}.</>}>API tokens</PageTitle>
+      <PageTitle
+        sub={
+          <>
+            Keys for scripts and dyno laptops to use the{" "}
+            <Link className="text-copper-700 underline" to="/docs/api">
+              JSON API
+            </Link>{" "}
+            as you, in {loaderData.team.name}.
+          </>
+        }
+      >
+        API tokens
+      </PageTitle>
       {fresh ? (
         <section aria-labelledby="fresh-token" className="mb-6 max-w-3xl rounded border-2 border-copper-600 bg-white p-4">
-          <h2 id="fresh-token" className="font-bold">Copy “{fresh.name}” now</h2>
-          <p className="text-sm">This is the only time it is shown; we keep only a hash of it. It acts as a {fresh.role} in {loaderData.team.name}.</p>
-          <output data-testid="new-token" className="mt-2 block break-all rounded bg-forge-900 p-3 font-mono text-sm text-white">{fresh.text}</output>
+          <h2 id="fresh-token" className="font-bold">
+            Copy “{fresh.name}” now
+          </h2>
+          <p className="text-sm">
+            This is the only time it is shown; we keep only a hash of it. It acts as a {fresh.role} in {loaderData.team.name}.
+          </p>
+          <output data-testid="new-token" className="mt-2 block break-all rounded bg-forge-900 p-3 font-mono text-sm text-white">
+            {fresh.text}
+          </output>
         </section>
       ) : null}
       <Form method="post" className="max-w-xl space-y-3 rounded border border-forge-100 bg-white p-4">
         <h2 className="font-bold">New token</h2>
         <FormError message={actionData?.error} />
         <input type="hidden" name="intent" value="create" />
-        <Field label="Name" name="name" maxLength={80} required error={errors.name} hint="What will use it, so you can tell your tokens apart." />
-        <SelectField label="May act as" name="role" defaultValue={loaderData.roles[0]} error={errors.role} options={loaderData.roles.map((r) => [r, r === "viewer" ? "viewer (read only)" : r])} />
+        <Field
+          label="Name"
+          name="name"
+          maxLength={80}
+          required
+          error={errors.name}
+          hint="What will use it, so you can tell your tokens apart."
+        />
+        <SelectField
+          label="May act as"
+          name="role"
+          defaultValue={loaderData.roles[0]}
+          error={errors.role}
+          options={loaderData.roles.map((r) => [r, r === "viewer" ? "viewer (read only)" : r])}
+        />
         <Button type="submit">Create token</Button>
       </Form>
       <h2 className="mt-8 font-bold">Your tokens in {loaderData.team.name}</h2>
@@ -87,7 +124,9 @@ export default function Tokens({ loaderData, actionData }: Route.ComponentProps)
               <th scope="col">Role</th>
               <th scope="col">Created</th>
               <th scope="col">Last used</th>
-              <th scope="col"><span className="sr-only">Revoke</span></th>
+              <th scope="col">
+                <span className="sr-only">Revoke</span>
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -102,7 +141,9 @@ export default function Tokens({ loaderData, actionData }: Route.ComponentProps)
                   <Form method="post">
                     <input type="hidden" name="intent" value="revoke" />
                     <input type="hidden" name="tokenId" value={t.id} />
-                    <Button type="submit" kind="plain" aria-label={`Revoke ${t.name}`}>Revoke</Button>
+                    <Button type="submit" kind="plain" aria-label={`Revoke ${t.name}`}>
+                      Revoke
+                    </Button>
                   </Form>
                 </td>
               </tr>

@@ -35,7 +35,8 @@ export async function action({ request, params }: Route.ActionArgs) {
     await acceptInviteAsUser(invite, user);
     return startSession(request, user.id, invite.teamId, "/dashboard");
   }
-  if (invite.accountExists) return data({ errors: {} as Record<string, string>, error: "This address has an account: sign in to accept." }, { status: 400 });
+  if (invite.accountExists)
+    return data({ errors: {} as Record<string, string>, error: "This address has an account: sign in to accept." }, { status: 400 });
   const parsed = NewAccountSchema.safeParse(form);
   if (!parsed.success) return data({ errors: fieldErrors(parsed.error.issues), error: null }, { status: 400 });
   const created = await acceptInviteAsNewUser(invite, parsed.data);
@@ -90,7 +91,15 @@ export default function Invite({ loaderData, actionData, params }: Route.Compone
           <Form method="post" className="space-y-4">
             <input type="hidden" name="intent" value="create" />
             <Field label="Your name" name="name" autoComplete="name" required error={actionData?.errors?.name} />
-            <Field label="Password" name="password" type="password" autoComplete="new-password" required error={actionData?.errors?.password} hint={`${PASSWORD_MIN} to ${PASSWORD_MAX} characters; a short sentence is easy to remember.`} />
+            <Field
+              label="Password"
+              name="password"
+              type="password"
+              autoComplete="new-password"
+              required
+              error={actionData?.errors?.password}
+              hint={`${PASSWORD_MIN} to ${PASSWORD_MAX} characters; a short sentence is easy to remember.`}
+            />
             <Button type="submit">Create my account and join</Button>
           </Form>
         )}

@@ -25,11 +25,15 @@ export async function loader({ params }: Route.LoaderArgs) {
 export async function action({ request, params }: Route.ActionArgs) {
   const parsed = ResetSchema.safeParse(Object.fromEntries(await request.formData()));
   if (!parsed.success) return data({ errors: fieldErrors(parsed.error.issues), gone: false }, { status: 400 });
-  if (!(await completePasswordReset(params.token, parsed.data.password))) return data({ errors: {} as Record<string, string>, gone: true }, { status: 410 });
+  if (!(await completePasswordReset(params.token, parsed.data.password)))
+    return data({ errors: {} as Record<string, string>, gone: true }, { status: 410 });
   // every session of the account ended with the reset, this browser's too: its cookie goes as well
   const headers = new Headers();
   headers.append("Set-Cookie", await sessionStorage().destroySession(await getSession(request)));
-  headers.append("Set-Cookie", await flashToast(request, { kind: "done", message: "Password changed. Sign in with the new one; every other device was signed out." }));
+  headers.append(
+    "Set-Cookie",
+    await flashToast(request, { kind: "done", message: "Password changed. Sign in with the new one; every other device was signed out." }),
+  );
   return redirect("/login", { headers });
 }
 
@@ -48,8 +52,23 @@ export default function ResetPassword({ loaderData, actionData }: Route.Componen
         </>
       ) : (
         <Form method="post" className="space-y-4">
-          <Field label="New password" name="password" type="password" autoComplete="new-password" required error={actionData?.errors?.password} hint={`${PASSWORD_MIN} to ${PASSWORD_MAX} characters; a short sentence is easy to remember.`} />
-          <Field label="New password again" name="confirm" type="password" autoComplete="new-password" required error={actionData?.errors?.confirm} />
+          <Field
+            label="New password"
+            name="password"
+            type="password"
+            autoComplete="new-password"
+            required
+            error={actionData?.errors?.password}
+            hint={`${PASSWORD_MIN} to ${PASSWORD_MAX} characters; a short sentence is easy to remember.`}
+          />
+          <Field
+            label="New password again"
+            name="confirm"
+            type="password"
+            autoComplete="new-password"
+            required
+            error={actionData?.errors?.confirm}
+          />
           <Button type="submit">Set the password</Button>
         </Form>
       )}

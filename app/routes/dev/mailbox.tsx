@@ -22,13 +22,18 @@ export default function Mailbox({ loaderData }: Route.ComponentProps) {
   return (
     <main className="mx-auto max-w-6xl p-4">
       <h1 className="text-2xl font-bold">Mailbox (development only)</h1>
-      <p className="text-sm text-forge-700">Every message the app sent to the local SMTP sink, newest first; stored in {dir}. Nothing here left the machine.</p>
+      <p className="text-sm text-forge-700">
+        Every message the app sent to the local SMTP sink, newest first; stored in {dir}. Nothing here left the machine.
+      </p>
       <div className="mt-4 grid gap-4 md:grid-cols-[20rem_1fr]">
         <ul className="space-y-1 text-sm">
           {messages.length === 0 ? <li>No messages yet.</li> : null}
           {messages.map((m) => (
             <li key={m.id}>
-              <Link to={`/dev/mailbox?id=${m.id}`} className={`block rounded px-2 py-1 ${open?.id === m.id ? "bg-copper-50 font-bold" : "hover:bg-forge-100"}`}>
+              <Link
+                to={`/dev/mailbox?id=${m.id}`}
+                className={`block rounded px-2 py-1 ${open?.id === m.id ? "bg-copper-50 font-bold" : "hover:bg-forge-100"}`}
+              >
                 <span className="block break-all">{m.to.join(", ")}</span>
                 <span className="block">{m.subject}</span>
                 <span className="block text-xs text-forge-700">{m.receivedAt}</span>
@@ -38,7 +43,9 @@ export default function Mailbox({ loaderData }: Route.ComponentProps) {
         </ul>
         {open ? (
           <section aria-label="The message" className="space-y-2">
-            <p className="text-sm"><strong>{open.subject}</strong> — to {open.to.join(", ")} from {open.from}</p>
+            <p className="text-sm">
+              <strong>{open.subject}</strong> — to {open.to.join(", ")} from {open.from}
+            </p>
             {/* sandbox without scripts: the mail's HTML cannot run anything in the app's origin */}
             <iframe title="HTML part" sandbox="" srcDoc={open.html} className="h-[32rem] w-full rounded border border-forge-300 bg-white" />
             <details>

@@ -30,7 +30,14 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const sheet = await buildSheet(team.id, engine, user.units);
   const canSend = roleAtLeast(role, "builder");
   const recipients = canSend ? (await engineViewers(team.id, engine.id)).filter((v) => v.shared) : [];
-  return { engine, teamName: team.name, units: user.units, sheet, canSend, recipients: recipients.map((r) => ({ userId: r.userId, name: r.name, email: r.email })) };
+  return {
+    engine,
+    teamName: team.name,
+    units: user.units,
+    sheet,
+    canSend,
+    recipients: recipients.map((r) => ({ userId: r.userId, name: r.name, email: r.email })),
+  };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -58,9 +65,14 @@ export async function action({ request, params }: Route.ActionArgs) {
   try {
     await sendMail(recipient.email, content);
   } catch (error) {
-    return data({ errors: {} as Record<string, string>, error: `The mail could not be sent (${(error as Error).message}). Try again later.` }, { status: 502 });
+    return data(
+      { errors: {} as Record<string, string>, error: `The mail could not be sent (${(error as Error).message}). Try again later.` },
+      { status: 502 },
+    );
   }
-  return redirect(`/engines/${engine.id}/build-sheet`, { headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: `Build sheet sent to ${recipient.name}.` }) } });
+  return redirect(`/engines/${engine.id}/build-sheet`, {
+    headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: `Build sheet sent to ${recipient.name}.` }) },
+  });
 }
 
 export default function BuildSheetPage({ loaderData, actionData }: Route.ComponentProps) {
@@ -87,20 +99,39 @@ export default function BuildSheetPage({ loaderData, actionData }: Route.Compone
       )}
       {canSend && sheet.ok ? (
         <section aria-labelledby="send-title" className="no-print max-w-xl rounded border border-forge-100 bg-white p-4">
-          <h2 id="send-title" className="text-xl font-bold">E-mail it to the customer</h2>
+          <h2 id="send-title" className="text-xl font-bold">
+            E-mail it to the customer
+          </h2>
           {recipients.length === 0 ? (
             <p className="mt-2 text-sm">
               Nobody can receive it yet: share the engine with a viewer first on the{" "}
-              <Link to={`/engines/${engine.id}/sharing`} className="text-copper-700 underline">Sharing</Link> tab.
+              <Link to={`/engines/${engine.id}/sharing`} className="text-copper-700 underline">
+                Sharing
+              </Link>{" "}
+              tab.
             </p>
           ) : (
             <Form method="post" className="mt-3 space-y-3">
               <p className="text-sm text-forge-700">The mail carries a summary and a link; the full sheet opens only when they sign in.</p>
               <FormError message={actionData?.error} />
-              <SelectField label="Send to" name="viewerId" options={recipients.map((r) => [String(r.userId), `${r.name} (${r.email})`])} error={actionData?.errors?.viewerId} />
+              <SelectField
+                label="Send to"
+                name="viewerId"
+                options={recipients.map((r) => [String(r.userId), `${r.name} (${r.email})`])}
+                error={actionData?.errors?.viewerId}
+              />
               <div>
-                <label htmlFor="f-note" className="block text-sm font-medium text-forge-800">Note (optional)</label>
-                <textarea id="f-note" name="note" rows={3} maxLength={1000} className="mt-1 block w-full rounded border border-forge-300 px-3 py-2" aria-invalid={actionData?.errors?.note ? true : undefined} />
+                <label htmlFor="f-note" className="block text-sm font-medium text-forge-800">
+                  Note (optional)
+                </label>
+                <textarea
+                  id="f-note"
+                  name="note"
+                  rows={3}
+                  maxLength={1000}
+                  className="mt-1 block w-full rounded border border-forge-300 px-3 py-2"
+                  aria-invalid={actionData?.errors?.note ? true : undefined}
+                />
                 {actionData?.errors?.note ? <p className="mt-1 text-sm font-medium text-failed">✖ {actionData.errors.note}</p> : null}
               </div>
               <Button type="submit">Send the build sheet</Button>

@@ -15,5 +15,9 @@ export async function action({ request, params }: Route.ActionArgs) {
   const { user, team, who } = await requireRole(request, "builder");
   const engine = await requireEngine(who, params.engineId);
   const copy = await duplicateEngine(team.id, user.id, engine.id);
-  return redirectWithToast(request, `/engines/${copy.id}`, `“${copy.name}” made from “${engine.name}”: the record and stud pattern, no plans. Edit it to tell them apart.`);
+  return redirectWithToast(
+    request,
+    `/engines/${copy.id}`,
+    `“${copy.name}” made from “${engine.name}”: the record and stud pattern, no plans. Edit it to tell them apart.`,
+  );
 }

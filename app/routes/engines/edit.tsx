@@ -61,5 +61,12 @@ export default function EditEngine({ loaderData, actionData }: Route.ComponentPr
 
 // Inside the engine layout, so the header and tabs stay: a viewer who follows an edit link reads why.
 export function ErrorBoundary({ error, params }: Route.ErrorBoundaryProps) {
-  return <RoleRefusal error={error} who="A builder or the owner edits engine records." backTo={`/engines/${params.engineId}`} backLabel="Back to the overview" />;
+  return (
+    <RoleRefusal
+      error={error}
+      who="A builder or the owner edits engine records."
+      backTo={`/engines/${params.engineId}`}
+      backLabel="Back to the overview"
+    />
+  );
 }

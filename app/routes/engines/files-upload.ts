@@ -14,8 +14,12 @@ export async function action({ request, params }: Route.ActionArgs) {
   const result = await receiveUpload(request, team.id, user.id, engine.id);
   if (!result.ok) {
     if (wantsJson) return data({ ok: false, message: result.message }, { status: result.status });
-    return redirect(`/engines/${engine.id}/files`, { headers: { "Set-Cookie": await flashToast(request, { kind: "problem", message: result.message }) } });
+    return redirect(`/engines/${engine.id}/files`, {
+      headers: { "Set-Cookie": await flashToast(request, { kind: "problem", message: result.message }) },
+    });
   }
   if (wantsJson) return data({ ok: true, file: result.file });
-  return redirect(result.returnTo ?? `/engines/${engine.id}/files`, { headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: `Kept ${result.file.name}.` }) } });
+  return redirect(result.returnTo ?? `/engines/${engine.id}/files`, {
+    headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: `Kept ${result.file.name}.` }) },
+  });
 }

@@ -24,13 +24,18 @@ export default function Files({ loaderData: d }: Route.ComponentProps) {
     <section className="max-w-4xl space-y-4">
       <h2 className="text-2xl font-bold">Files</h2>
       <p className="text-sm text-forge-700">
-        Build photos, teardown pictures and makers' sheets, kept for this shop only. {UPLOAD_RULE_TEXT} The shop has used {MB(d.usedBytes)} of its {MB(d.quotaBytes)}.
+        Build photos, teardown pictures and makers' sheets, kept for this shop only. {UPLOAD_RULE_TEXT} The shop has used {MB(d.usedBytes)}{" "}
+        of its {MB(d.quotaBytes)}.
       </p>
       {d.canEdit ? <Uploader engineId={d.engineId} returnTo={`/engines/${d.engineId}/files`} /> : null}
       <h3 className="text-lg font-bold">On the engine ({own.length})</h3>
       {own.length ? <FileList files={own} /> : <p className="text-sm text-forge-700">No files on the engine itself yet.</p>}
       <h3 className="text-lg font-bold">On its assemblies and runs ({onRecords.length})</h3>
-      {onRecords.length ? <FileList files={onRecords} /> : <p className="text-sm text-forge-700">None yet: add them from the Assembly and Runs tabs.</p>}
+      {onRecords.length ? (
+        <FileList files={onRecords} />
+      ) : (
+        <p className="text-sm text-forge-700">None yet: add them from the Assembly and Runs tabs.</p>
+      )}
     </section>
   );
 }

@@ -67,13 +67,24 @@ export default function EngineList({ loaderData }: Route.ComponentProps) {
           <label htmlFor="engine-q" className="block text-sm font-medium text-forge-800">
             Search name, customer or fuel
           </label>
-          <input id="engine-q" type="search" name="q" defaultValue={q} className="mt-1 w-72 rounded border border-forge-500 bg-white px-3 py-2" />
+          <input
+            id="engine-q"
+            type="search"
+            name="q"
+            defaultValue={q}
+            className="mt-1 w-72 rounded border border-forge-500 bg-white px-3 py-2"
+          />
         </div>
         <div>
           <label htmlFor="engine-status" className="block text-sm font-medium text-forge-800">
             Status
           </label>
-          <select id="engine-status" name="status" defaultValue={status} className="mt-1 rounded border border-forge-500 bg-white px-3 py-2">
+          <select
+            id="engine-status"
+            name="status"
+            defaultValue={status}
+            className="mt-1 rounded border border-forge-500 bg-white px-3 py-2"
+          >
             <option value="">Any status</option>
             {ENGINE_STATUSES.map((s) => (
               <option key={s} value={s}>
@@ -104,7 +115,10 @@ export default function EngineList({ loaderData }: Route.ComponentProps) {
               </Link>
             </p>
           ) : filtered ? (
-            <p>No engine matches {q ? <>“{q}”</> : "that filter"}{status ? ` with status ${STATUS_LABEL[status as EngineStatus].word.toLowerCase()}` : ""}.</p>
+            <p>
+              No engine matches {q ? <>“{q}”</> : "that filter"}
+              {status ? ` with status ${STATUS_LABEL[status as EngineStatus].word.toLowerCase()}` : ""}.
+            </p>
           ) : (
             <>
               <p className="font-bold">No engines yet.</p>

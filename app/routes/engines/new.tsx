@@ -36,7 +36,9 @@ export default function NewEngine({ loaderData, actionData }: Route.ComponentPro
   const seedKey = useSeedKey(values, Boolean(actionData && "reseed" in actionData));
   return (
     <>
-      <PageTitle sub={`Geometry, materials, sleeves, studs and boost: what every seal plan for it starts from. Lengths in ${loaderData.units === "imperial" ? "inches" : "millimetres"}; change units in Settings.`}>
+      <PageTitle
+        sub={`Geometry, materials, sleeves, studs and boost: what every seal plan for it starts from. Lengths in ${loaderData.units === "imperial" ? "inches" : "millimetres"}; change units in Settings.`}
+      >
         New engine
       </PageTitle>
       <EngineForm

@@ -45,55 +45,56 @@ export default function EngineOverview({ loaderData }: Route.ComponentProps) {
       </div>
       <Section title="Geometry">
         <dl>
-        <Row k="Layout">
-          {layoutName(e.layout, e.cylinders)} ({e.layout === "V" ? `V, two banks of ${e.cylinders / 2}` : `inline, ${e.cylinders} cylinders`})
-        </Row>
-        <Row k="Bore">{len(e.boreMm)}</Row>
-        <Row k="Stroke">{len(e.strokeMm)}</Row>
-        <Row k="Rod length">{len(e.rodLengthMm)}</Row>
-        <Row k="Head thickness at the stud">{len(e.headThicknessAtStudMm)}</Row>
-        <Row k="Block depth to the engaged thread">{len(e.blockDepthToThreadMm)}</Row>
-        <Row k="Deck clearance">{formatQuantity(e.deckClearanceMm, "smallLength", units)}</Row>
-        <Row k="Chamber volume">{formatQuantity(e.chamberCc, "volume", units)}</Row>
-        <Row k="Piston volume (dish +, dome −)">{formatQuantity(e.pistonVolumeCc, "volume", units)}</Row>
+          <Row k="Layout">
+            {layoutName(e.layout, e.cylinders)} (
+            {e.layout === "V" ? `V, two banks of ${e.cylinders / 2}` : `inline, ${e.cylinders} cylinders`})
+          </Row>
+          <Row k="Bore">{len(e.boreMm)}</Row>
+          <Row k="Stroke">{len(e.strokeMm)}</Row>
+          <Row k="Rod length">{len(e.rodLengthMm)}</Row>
+          <Row k="Head thickness at the stud">{len(e.headThicknessAtStudMm)}</Row>
+          <Row k="Block depth to the engaged thread">{len(e.blockDepthToThreadMm)}</Row>
+          <Row k="Deck clearance">{formatQuantity(e.deckClearanceMm, "smallLength", units)}</Row>
+          <Row k="Chamber volume">{formatQuantity(e.chamberCc, "volume", units)}</Row>
+          <Row k="Piston volume (dish +, dome −)">{formatQuantity(e.pistonVolumeCc, "volume", units)}</Row>
         </dl>
       </Section>
       <Section title="Materials and sleeves">
         <dl>
-        <Row k="Block (deck)">{mat(e.blockMaterialId)}</Row>
-        <Row k="Head">{mat(e.headMaterialId)}</Row>
-        <Row k="Sleeves">{SLEEVE_LABEL[e.sleeveKind]}</Row>
-        {e.sleeveKind !== "none" ? (
-          <>
-            <Row k="Sleeve material">{mat(e.sleeveMaterialId)}</Row>
-            <Row k="Sleeve wall">{len(e.sleeveWallMm)}</Row>
-            {e.sleeveKind === "wet-mid" ? <Row k="Support length (top to seat)">{len(e.sleeveSupportLengthMm)}</Row> : null}
-          </>
-        ) : null}
-        <Row k="Protrusion as machined">{formatQuantity(e.sleeveProtrusionMm, "smallLength", units)}</Row>
+          <Row k="Block (deck)">{mat(e.blockMaterialId)}</Row>
+          <Row k="Head">{mat(e.headMaterialId)}</Row>
+          <Row k="Sleeves">{SLEEVE_LABEL[e.sleeveKind]}</Row>
+          {e.sleeveKind !== "none" ? (
+            <>
+              <Row k="Sleeve material">{mat(e.sleeveMaterialId)}</Row>
+              <Row k="Sleeve wall">{len(e.sleeveWallMm)}</Row>
+              {e.sleeveKind === "wet-mid" ? <Row k="Support length (top to seat)">{len(e.sleeveSupportLengthMm)}</Row> : null}
+            </>
+          ) : null}
+          <Row k="Protrusion as machined">{formatQuantity(e.sleeveProtrusionMm, "smallLength", units)}</Row>
         </dl>
       </Section>
       <Section title="Boost and firing">
         <dl>
-        <Row k="Fuel">{e.fuel || "—"}</Row>
-        <Row k="Target manifold pressure">{formatQuantity(e.targetManifoldKpa, "manifold", units)}</Row>
-        <Row k="Peak cylinder pressure">
-          {e.peakPressureMpa === null ? (
-            "not given — estimated from boost in each plan"
-          ) : (
-            <>
-              {formatQuantity(e.peakPressureMpa, "pressure", units)}{" "}
-              <span className="rounded bg-forge-100 px-1.5 text-sm">{PEAK_SOURCE_LABEL[e.peakPressureSource]}</span>
-            </>
-          )}
-        </Row>
-        <Row k="Pressure-rise factor">{e.pressureRiseFactor}</Row>
-        <Row k="Running head / block temperature">
-          {formatQuantity(e.runningHeadC, "temperature", units)} / {formatQuantity(e.runningBlockC, "temperature", units)}
-        </Row>
-        <Row k="Status">
-          <StatusBadge status={e.status} />
-        </Row>
+          <Row k="Fuel">{e.fuel || "—"}</Row>
+          <Row k="Target manifold pressure">{formatQuantity(e.targetManifoldKpa, "manifold", units)}</Row>
+          <Row k="Peak cylinder pressure">
+            {e.peakPressureMpa === null ? (
+              "not given — estimated from boost in each plan"
+            ) : (
+              <>
+                {formatQuantity(e.peakPressureMpa, "pressure", units)}{" "}
+                <span className="rounded bg-forge-100 px-1.5 text-sm">{PEAK_SOURCE_LABEL[e.peakPressureSource]}</span>
+              </>
+            )}
+          </Row>
+          <Row k="Pressure-rise factor">{e.pressureRiseFactor}</Row>
+          <Row k="Running head / block temperature">
+            {formatQuantity(e.runningHeadC, "temperature", units)} / {formatQuantity(e.runningBlockC, "temperature", units)}
+          </Row>
+          <Row k="Status">
+            <StatusBadge status={e.status} />
+          </Row>
         </dl>
       </Section>
       <Section title="Stud pattern">
@@ -103,9 +104,15 @@ export default function EngineOverview({ loaderData }: Route.ComponentProps) {
           <table className="mt-2 w-full border-collapse text-left text-sm tabular">
             <thead className="bg-forge-100">
               <tr>
-                <th scope="col" className="px-2 py-1">Stud</th>
-                <th scope="col" className="px-2 py-1">Cylinders served</th>
-                <th scope="col" className="px-2 py-1">Share of each</th>
+                <th scope="col" className="px-2 py-1">
+                  Stud
+                </th>
+                <th scope="col" className="px-2 py-1">
+                  Cylinders served
+                </th>
+                <th scope="col" className="px-2 py-1">
+                  Share of each
+                </th>
               </tr>
             </thead>
             <tbody>

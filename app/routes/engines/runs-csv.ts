@@ -14,5 +14,11 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const runs = selectRuns(await listRuns(team.id, engine.id), q.filter, q.sort, q.dir);
   const csv = stringify([[...RUN_CSV_COLUMNS], ...runCsvRows(runs)]);
   const name = `runs-engine-${engine.id}.csv`;
-  return new Response(csv, { headers: { "Content-Type": "text/csv; charset=utf-8", "Content-Disposition": `attachment; filename="${name}"`, "X-Content-Type-Options": "nosniff" } });
+  return new Response(csv, {
+    headers: {
+      "Content-Type": "text/csv; charset=utf-8",
+      "Content-Disposition": `attachment; filename="${name}"`,
+      "X-Content-Type-Options": "nosniff",
+    },
+  });
 }

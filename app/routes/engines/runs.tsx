@@ -46,12 +46,25 @@ export async function action({ request, params }: Route.ActionArgs) {
   const form = await request.formData();
   const values = Object.fromEntries(RUN_FIELDS.map((k) => [k, typeof form.get(k) === "string" ? (form.get(k) as string) : ""]));
   const parsed = runSchema(engine.cylinders).safeParse(values);
-  if (!parsed.success) return data({ errors: fieldErrors(parsed.error.issues), values, message: "The run was not logged: see the fields marked." }, { status: 400 });
+  if (!parsed.success)
+    return data(
+      { errors: fieldErrors(parsed.error.issues), values, message: "The run was not logged: see the fields marked." },
+      { status: 400 },
+    );
   await createRun(team.id, user.id, engine, parsed.data);
-  return redirect(`/engines/${engine.id}/runs`, { headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: "Run logged." }) } });
+  return redirect(`/engines/${engine.id}/runs`, {
+    headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: "Run logged." }) },
+  });
 }
 
-const SORT_LABEL: Record<RunSort, string> = { ranOn: "Date", kind: "Kind", manifoldPressureKpa: "Manifold", peakCylinderPressureMpa: "Peak pressure", outcome: "Outcome", fuel: "Fuel" };
+const SORT_LABEL: Record<RunSort, string> = {
+  ranOn: "Date",
+  kind: "Kind",
+  manifoldPressureKpa: "Manifold",
+  peakCylinderPressureMpa: "Peak pressure",
+  outcome: "Outcome",
+  fuel: "Fuel",
+};
 
 export default function Runs({ loaderData: d, actionData }: Route.ComponentProps) {
   const values = actionData?.values ?? d.values;
@@ -67,27 +80,61 @@ export default function Runs({ loaderData: d, actionData }: Route.ComponentProps
       <h2 className="text-2xl font-bold">Runs</h2>
       <Caution />
       <Form method="get" className="no-print flex flex-wrap items-end gap-3 rounded border border-forge-100 bg-white p-3">
-        <FilterSelect label="Show kind" name="kind" value={d.query.kind} options={[["", "Any"], ...RUN_KINDS.map((k) => [k, RUN_KIND_LABEL[k]] as [string, string])]} />
-        <FilterSelect label="Show outcome" name="outcome" value={d.query.outcome} options={[["", "Any"], ["failed", "Anything but held"], ...OUTCOMES.map((o) => [o, OUTCOME_LABEL[o]] as [string, string])]} />
-        <FilterSelect label="Show fuel" name="fuel" value={d.query.fuel} options={[["", "Any"], ...d.fuels.map((f) => [f, f] as [string, string])]} />
+        <FilterSelect
+          label="Show kind"
+          name="kind"
+          value={d.query.kind}
+          options={[["", "Any"], ...RUN_KINDS.map((k) => [k, RUN_KIND_LABEL[k]] as [string, string])]}
+        />
+        <FilterSelect
+          label="Show outcome"
+          name="outcome"
+          value={d.query.outcome}
+          options={[["", "Any"], ["failed", "Anything but held"], ...OUTCOMES.map((o) => [o, OUTCOME_LABEL[o]] as [string, string])]}
+        />
+        <FilterSelect
+          label="Show fuel"
+          name="fuel"
+          value={d.query.fuel}
+          options={[["", "Any"], ...d.fuels.map((f) => [f, f] as [string, string])]}
+        />
         <input type="hidden" name="sort" value={d.query.sort} />
         <input type="hidden" name="dir" value={d.query.dir} />
-        <Button type="submit" kind="plain">Filter</Button>
-        <a href={`/engines/${d.engine.id}/runs.csv${d.search}`} download className="py-2 text-copper-700 underline">Export CSV</a>
+        <Button type="submit" kind="plain">
+          Filter
+        </Button>
+        <a href={`/engines/${d.engine.id}/runs.csv${d.search}`} download className="py-2 text-copper-700 underline">
+          Export CSV
+        </a>
       </Form>
-      <p className="text-sm text-forge-700">{d.runs.length} of {d.total} runs shown. Peak pressures marked “est.” were estimated by the model from the manifold pressure, not measured.</p>
+      <p className="text-sm text-forge-700">
+        {d.runs.length} of {d.total} runs shown. Peak pressures marked “est.” were estimated by the model from the manifold pressure, not
+        measured.
+      </p>
       <div className="overflow-x-auto">
         <table className="w-full border-collapse bg-white text-sm tabular">
           <caption className="sr-only">The engine's runs</caption>
           <thead className="bg-forge-100">
             <tr>
               {(["ranOn", "kind", "manifoldPressureKpa", "fuel", "peakCylinderPressureMpa", "outcome"] as RunSort[]).map((s) => (
-                <th key={s} scope="col" className="px-2 py-2 text-left" aria-sort={d.query.sort === s ? (d.query.dir === "asc" ? "ascending" : "descending") : undefined}>
-                  <Link to={sortLink(s)} className="underline">{SORT_LABEL[s]}{d.query.sort === s ? (d.query.dir === "asc" ? " ▲" : " ▼") : ""}</Link>
+                <th
+                  key={s}
+                  scope="col"
+                  className="px-2 py-2 text-left"
+                  aria-sort={d.query.sort === s ? (d.query.dir === "asc" ? "ascending" : "descending") : undefined}
+                >
+                  <Link to={sortLink(s)} className="underline">
+                    {SORT_LABEL[s]}
+                    {d.query.sort === s ? (d.query.dir === "asc" ? " ▲" : " ▼") : ""}
+                  </Link>
                 </th>
               ))}
-              <th scope="col" className="px-2 py-2 text-left">Cylinders</th>
-              <th scope="col" className="px-2 py-2 text-left">Notes and teardown</th>
+              <th scope="col" className="px-2 py-2 text-left">
+                Cylinders
+              </th>
+              <th scope="col" className="px-2 py-2 text-left">
+                Notes and teardown
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -97,18 +144,40 @@ export default function Runs({ loaderData: d, actionData }: Route.ComponentProps
                 <td className="px-2 py-2">{RUN_KIND_LABEL[r.kind]}</td>
                 <td className="px-2 py-2">{r.manifoldPressureKpa === null ? "—" : `${r.manifoldPressureKpa.toFixed(0)} kPa abs`}</td>
                 <td className="px-2 py-2">{r.fuel || "—"}</td>
-                <td className="px-2 py-2">{formatQuantity(r.peakCylinderPressureMpa, "pressure", d.units)}{r.peakPressureSource === "estimated" && r.peakCylinderPressureMpa !== null ? " est." : ""}</td>
-                <td className={`px-2 py-2 font-medium ${r.outcome === "held" ? "text-held" : "text-failed"}`}>{r.outcome === "held" ? "✔" : "✖"} {OUTCOME_LABEL[r.outcome]}</td>
+                <td className="px-2 py-2">
+                  {formatQuantity(r.peakCylinderPressureMpa, "pressure", d.units)}
+                  {r.peakPressureSource === "estimated" && r.peakCylinderPressureMpa !== null ? " est." : ""}
+                </td>
+                <td className={`px-2 py-2 font-medium ${r.outcome === "held" ? "text-held" : "text-failed"}`}>
+                  {r.outcome === "held" ? "✔" : "✖"} {OUTCOME_LABEL[r.outcome]}
+                </td>
                 <td className="px-2 py-2">{r.cylindersAffected.join(", ") || "—"}</td>
                 <td className="max-w-md px-2 py-2">
                   {r.notes ? <p>{r.notes}</p> : null}
-                  {r.teardownFindings ? <p><strong>Teardown:</strong> {r.teardownFindings}</p> : null}
+                  {r.teardownFindings ? (
+                    <p>
+                      <strong>Teardown:</strong> {r.teardownFindings}
+                    </p>
+                  ) : null}
                   <FileList files={d.files.filter((f) => f.runId === r.id)} />
-                  {d.canEdit ? <Uploader engineId={d.engine.id} runId={r.id} returnTo={`/engines/${d.engine.id}/runs`} label="Add a photo to this run" /> : null}
+                  {d.canEdit ? (
+                    <Uploader
+                      engineId={d.engine.id}
+                      runId={r.id}
+                      returnTo={`/engines/${d.engine.id}/runs`}
+                      label="Add a photo to this run"
+                    />
+                  ) : null}
                 </td>
               </tr>
             ))}
-            {d.runs.length === 0 ? <tr><td colSpan={8} className="px-2 py-4 text-forge-700">No runs {d.total ? "match these filters" : "logged yet"}.</td></tr> : null}
+            {d.runs.length === 0 ? (
+              <tr>
+                <td colSpan={8} className="px-2 py-4 text-forge-700">
+                  No runs {d.total ? "match these filters" : "logged yet"}.
+                </td>
+              </tr>
+            ) : null}
           </tbody>
         </table>
       </div>
@@ -118,15 +187,51 @@ export default function Runs({ loaderData: d, actionData }: Route.ComponentProps
           <FormError message={actionData?.message} />
           <div className="grid gap-3 sm:grid-cols-3">
             <Field label="Date" name="ranOn" type="date" defaultValue={values.ranOn} error={errors.ranOn} />
-            <SelectField label="Kind" name="kind" defaultValue={values.kind} error={errors.kind} options={RUN_KINDS.map((k) => [k, RUN_KIND_LABEL[k]])} />
+            <SelectField
+              label="Kind"
+              name="kind"
+              defaultValue={values.kind}
+              error={errors.kind}
+              options={RUN_KINDS.map((k) => [k, RUN_KIND_LABEL[k]])}
+            />
             <Field label="Fuel" name="fuel" defaultValue={values.fuel} error={errors.fuel} />
-            <Field label="Manifold pressure (kPa absolute)" name="manifoldPressureKpa" inputMode="decimal" defaultValue={values.manifoldPressureKpa} error={errors.manifoldPressureKpa} />
-            <Field label="Peak cylinder pressure, measured (MPa)" name="peakCylinderPressureMpa" inputMode="decimal" defaultValue={values.peakCylinderPressureMpa} error={errors.peakCylinderPressureMpa} hint="Leave empty and the model estimates it from the manifold pressure (marked est.)." />
-            <SelectField label="Outcome" name="outcome" defaultValue={values.outcome ?? "held"} error={errors.outcome} options={OUTCOMES.map((o) => [o, OUTCOME_LABEL[o]])} />
-            <Field label="Cylinders affected" name="cylindersAffected" defaultValue={values.cylindersAffected} error={errors.cylindersAffected} hint={`Numbers 1–${d.engine.cylinders}, e.g. "3, 4".`} />
+            <Field
+              label="Manifold pressure (kPa absolute)"
+              name="manifoldPressureKpa"
+              inputMode="decimal"
+              defaultValue={values.manifoldPressureKpa}
+              error={errors.manifoldPressureKpa}
+            />
+            <Field
+              label="Peak cylinder pressure, measured (MPa)"
+              name="peakCylinderPressureMpa"
+              inputMode="decimal"
+              defaultValue={values.peakCylinderPressureMpa}
+              error={errors.peakCylinderPressureMpa}
+              hint="Leave empty and the model estimates it from the manifold pressure (marked est.)."
+            />
+            <SelectField
+              label="Outcome"
+              name="outcome"
+              defaultValue={values.outcome ?? "held"}
+              error={errors.outcome}
+              options={OUTCOMES.map((o) => [o, OUTCOME_LABEL[o]])}
+            />
+            <Field
+              label="Cylinders affected"
+              name="cylindersAffected"
+              defaultValue={values.cylindersAffected}
+              error={errors.cylindersAffected}
+              hint={`Numbers 1–${d.engine.cylinders}, e.g. "3, 4".`}
+            />
           </div>
           <TextArea label="Ignition and notes" name="notes" defaultValue={values.notes} error={errors.notes} />
-          <TextArea label="Teardown findings" name="teardownFindings" defaultValue={values.teardownFindings} error={errors.teardownFindings} />
+          <TextArea
+            label="Teardown findings"
+            name="teardownFindings"
+            defaultValue={values.teardownFindings}
+            error={errors.teardownFindings}
+          />
           <Button type="submit">Log the run</Button>
         </Form>
       ) : null}
@@ -138,9 +243,20 @@ export default function Runs({ loaderData: d, actionData }: Route.ComponentProps
 function FilterSelect({ label, name, value, options }: { label: string; name: string; value: string; options: [string, string][] }) {
   return (
     <div>
-      <label htmlFor={`filter-${name}`} className="block text-sm font-medium text-forge-800">{label}</label>
-      <select id={`filter-${name}`} name={name} defaultValue={value} className="mt-1 block w-full rounded border border-forge-300 bg-white px-3 py-2 text-base">
-        {options.map(([v, t]) => <option key={v} value={v}>{t}</option>)}
+      <label htmlFor={`filter-${name}`} className="block text-sm font-medium text-forge-800">
+        {label}
+      </label>
+      <select
+        id={`filter-${name}`}
+        name={name}
+        defaultValue={value}
+        className="mt-1 block w-full rounded border border-forge-300 bg-white px-3 py-2 text-base"
+      >
+        {options.map(([v, t]) => (
+          <option key={v} value={v}>
+            {t}
+          </option>
+        ))}
       </select>
     </div>
   );
@@ -150,9 +266,23 @@ export function TextArea({ label, name, defaultValue, error }: { label: string; 
   const id = `f-${name}`;
   return (
     <div>
-      <label htmlFor={id} className="block text-sm font-medium text-forge-800">{label}</label>
-      <textarea id={id} name={name} rows={2} defaultValue={defaultValue} aria-invalid={error ? true : undefined} aria-describedby={error ? `${id}-error` : undefined} className="mt-1 block w-full rounded border border-forge-300 px-3 py-2" />
-      {error ? <p id={`${id}-error`} className="mt-1 text-sm font-medium text-failed">✖ {error}</p> : null}
+      <label htmlFor={id} className="block text-sm font-medium text-forge-800">
+        {label}
+      </label>
+      <textarea
+        id={id}
+        name={name}
+        rows={2}
+        defaultValue={defaultValue}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${id}-error` : undefined}
+        className="mt-1 block w-full rounded border border-forge-300 px-3 py-2"
+      />
+      {error ? (
+        <p id={`${id}-error`} className="mt-1 text-sm font-medium text-failed">
+          ✖ {error}
+        </p>
+      ) : null}
     </div>
   );
 }

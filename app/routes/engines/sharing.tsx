@@ -38,28 +38,40 @@ export default function Sharing({ loaderData, actionData }: Route.ComponentProps
     <div className="max-w-3xl space-y-4">
       <h2 className="text-2xl font-bold">Sharing</h2>
       <p className="text-forge-700">
-        Viewers (customers, tuners) see only the engines shared with them: this engine's record, seal plans, chamber and build sheet, read-only. Builders and owners always see every engine.
+        Viewers (customers, tuners) see only the engines shared with them: this engine's record, seal plans, chamber and build sheet,
+        read-only. Builders and owners always see every engine.
       </p>
       <FormError message={error} />
       {viewers.length === 0 ? (
         <p className="rounded border border-forge-100 bg-white p-3">
           The shop has no viewers yet. An owner invites one on the{" "}
-          <Link to="/team" className="text-copper-700 underline">Team</Link> page (builders: ask an owner).
+          <Link to="/team" className="text-copper-700 underline">
+            Team
+          </Link>{" "}
+          page (builders: ask an owner).
         </p>
       ) : (
         <table className="w-full border-collapse bg-white text-left">
           <caption className="sr-only">The shop's viewers and whether {engine.name} is shared with them</caption>
           <thead className="bg-forge-100 text-sm">
             <tr>
-              <th scope="col" className="px-3 py-2">Viewer</th>
-              <th scope="col" className="px-3 py-2">Sees this engine</th>
-              <th scope="col" className="px-3 py-2"><span className="sr-only">Change</span></th>
+              <th scope="col" className="px-3 py-2">
+                Viewer
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Sees this engine
+              </th>
+              <th scope="col" className="px-3 py-2">
+                <span className="sr-only">Change</span>
+              </th>
             </tr>
           </thead>
           <tbody>
             {viewers.map((v) => (
               <tr key={v.userId} className="border-t border-forge-100">
-                <td className="px-3 py-2">{v.name} <span className="break-all text-sm text-forge-700">{v.email}</span></td>
+                <td className="px-3 py-2">
+                  {v.name} <span className="break-all text-sm text-forge-700">{v.email}</span>
+                </td>
                 <td className="px-3 py-2">{v.shared ? "✔ yes" : "no"}</td>
                 <td className="px-3 py-2">
                   <Form method="post">

@@ -15,8 +15,22 @@ import {
   type NumberField,
 } from "~/lib/library/fields";
 import { unitFor, type UnitSystem } from "~/lib/units";
-import { GASKET_TYPE_LABELS, isLibraryKind, LIBRARY_GASKET_TYPES, MATERIAL_KIND_LABELS, MATERIAL_KINDS, type LibraryKind } from "~/lib/library/schemas";
-import { createLibraryItem, getMaterial, listMaterials, requireLibraryItem, setLibraryArchived, updateLibraryItem } from "~/models/library.server";
+import {
+  GASKET_TYPE_LABELS,
+  isLibraryKind,
+  LIBRARY_GASKET_TYPES,
+  MATERIAL_KIND_LABELS,
+  MATERIAL_KINDS,
+  type LibraryKind,
+} from "~/lib/library/schemas";
+import {
+  createLibraryItem,
+  getMaterial,
+  listMaterials,
+  requireLibraryItem,
+  setLibraryArchived,
+  updateLibraryItem,
+} from "~/models/library.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
@@ -58,13 +72,18 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     units,
     canEdit: roleAtLeast(role, "builder"),
     materials,
-    item: item ? { id: item.id, name: item.name, archived: Boolean(item.archivedAt), provenance: sourceLine(item), seeded: Boolean(item.source) } : null,
-    values: item ? formValues(kind, item as unknown as Record<string, unknown>, units) : defaults(kind, new URL(request.url).searchParams.get("type"), units),
+    item: item
+      ? { id: item.id, name: item.name, archived: Boolean(item.archivedAt), provenance: sourceLine(item), seeded: Boolean(item.source) }
+      : null,
+    values: item
+      ? formValues(kind, item as unknown as Record<string, unknown>, units)
+      : defaults(kind, new URL(request.url).searchParams.get("type"), units),
     typicalFor: !item && kind === "gaskets" ? typicalType(new URL(request.url).searchParams.get("type")) : null,
   };
 }
 
-const typicalType = (t: string | null) => (LIBRARY_GASKET_TYPES as readonly string[]).includes(t ?? "") ? (t as (typeof LIBRARY_GASKET_TYPES)[number]) : null;
+const typicalType = (t: string | null) =>
+  (LIBRARY_GASKET_TYPES as readonly string[]).includes(t ?? "") ? (t as (typeof LIBRARY_GASKET_TYPES)[number]) : null;
 
 function defaults(kind: LibraryKind, type: string | null, units: UnitSystem): Record<string, string> {
   if (kind === "fasteners")
@@ -93,7 +112,9 @@ export async function action({ request, params }: Route.ActionArgs) {
   if (intent === "archive" || intent === "unarchive") {
     if (!item) throw data("Save it first; only a saved row can be archived.", { status: 400 });
     await setLibraryArchived(kind, team.id, item.id, user.id, intent === "archive");
-    return done(intent === "archive" ? `Archived “${item.name}”. It no longer appears in pickers.` : `“${item.name}” is back in the library.`);
+    return done(
+      intent === "archive" ? `Archived “${item.name}”. It no longer appears in pickers.` : `“${item.name}” is back in the library.`,
+    );
   }
   if (intent !== "save") return data({ errors: { form: "Unknown action." } as Record<string, string>, values: form }, { status: 400 });
 
@@ -133,7 +154,13 @@ export default function LibraryEdit({ loaderData, actionData }: Route.ComponentP
         Figures in your units ({units}); the shop's data is stored in SI.
       </p>
       <Caution className="mb-4" />
-      <ErrorSummary errors={errors} message={count > 0 ? (errors.form ?? `Nothing was saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention.`) : null} answer={actionData} />
+      <ErrorSummary
+        errors={errors}
+        message={
+          count > 0 ? (errors.form ?? `Nothing was saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention.`) : null
+        }
+        answer={actionData}
+      />
 
       <Form method="post" noValidate className="mt-4">
         <fieldset disabled={!canEdit} className="space-y-6">
@@ -165,7 +192,8 @@ export default function LibraryEdit({ loaderData, actionData }: Route.ComponentP
                   </p>
                   {typicalFor ? (
                     <p className="mt-2 rounded border border-caution bg-caution-50 px-2 py-1" role="note">
-                      ⚠ Typical figures for {TYPICAL_GASKETS[typicalFor].label.toLowerCase()} — replace each with the gasket maker's figure. {TYPICAL_GASKETS[typicalFor].notes}
+                      ⚠ Typical figures for {TYPICAL_GASKETS[typicalFor].label.toLowerCase()} — replace each with the gasket maker's figure.{" "}
+                      {TYPICAL_GASKETS[typicalFor].notes}
                     </p>
                   ) : null}
                 </div>
@@ -185,8 +213,8 @@ export default function LibraryEdit({ loaderData, actionData }: Route.ComponentP
               <fieldset className="rounded border-2 border-copper-600 bg-copper-50 p-4">
                 <legend className="px-1 text-lg font-bold">From the fastener maker's sheet</legend>
                 <p className="mb-3 text-sm">
-                  Record the maker's own torque, lubricant, stages and stretch exactly as the sheet gives them. Wherever our estimate shows a torque, these
-                  figures stand beside it, and they govern.
+                  Record the maker's own torque, lubricant, stages and stretch exactly as the sheet gives them. Wherever our estimate shows
+                  a torque, these figures stand beside it, and they govern.
                 </p>
                 <div className="grid gap-4 sm:grid-cols-2">
                   <NumberInput field={FASTENER_MAKER_FIELDS[0]!} {...props} />
@@ -245,7 +273,14 @@ export default function LibraryEdit({ loaderData, actionData }: Route.ComponentP
               {item ? "Save" : `Add ${what}`}
             </Button>
             {item ? (
-              <Button type="submit" kind="plain" name="intent" value={item.archived ? "unarchive" : "archive"} formNoValidate disabled={busy}>
+              <Button
+                type="submit"
+                kind="plain"
+                name="intent"
+                value={item.archived ? "unarchive" : "archive"}
+                formNoValidate
+                disabled={busy}
+              >
                 {item.archived ? "Bring back from archive" : "Archive"}
               </Button>
             ) : null}

@@ -30,7 +30,9 @@ export default function LibrariesLayout() {
             to={t.to}
             className={({ isActive }) =>
               `-mb-px rounded-t border px-4 py-2 font-medium ${
-                isActive ? "border-forge-300 border-b-white bg-white text-forge-950" : "border-transparent text-copper-700 hover:bg-forge-100"
+                isActive
+                  ? "border-forge-300 border-b-white bg-white text-forge-950"
+                  : "border-transparent text-copper-700 hover:bg-forge-100"
               }`
             }
           >

@@ -37,7 +37,11 @@ export default function LibraryList({ loaderData }: Route.ComponentProps) {
           <Form method="get" className="flex items-center gap-2">
             {/* Works without JavaScript: the button submits the toggle. */}
             <input type="hidden" name="archived" value={showArchived ? "0" : "1"} />
-            <button type="submit" className="rounded border border-forge-300 bg-white px-3 py-2 text-sm hover:bg-forge-100" aria-pressed={showArchived}>
+            <button
+              type="submit"
+              className="rounded border border-forge-300 bg-white px-3 py-2 text-sm hover:bg-forge-100"
+              aria-pressed={showArchived}
+            >
               {showArchived ? "☑ Showing archived — hide them" : "☐ Show archived"}
             </button>
           </Form>
@@ -116,7 +120,18 @@ function FastenerTable({ rows, units }: { rows: FastenerRow[]; units: UnitSystem
   return (
     <Table
       caption="Fasteners: thread, shank, material, and the fastener maker's recorded figures"
-      head={["Name", "Thread", "Shank", "Material", "Maker's torque", "Maker's lubricant", "Maker's stages", "Stretch", "μ thread / bearing", "Source"]}
+      head={[
+        "Name",
+        "Thread",
+        "Shank",
+        "Material",
+        "Maker's torque",
+        "Maker's lubricant",
+        "Maker's stages",
+        "Stretch",
+        "μ thread / bearing",
+        "Source",
+      ]}
     >
       {rows.map((f) => (
         <tr key={f.id} className="border-t border-forge-100">

@@ -25,8 +25,19 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   // Fewer than two ticked: show the first four and say so.
   const tooFew = wanted.length > 0 && chosen.length < 2;
   const picked = (chosen.length >= 2 ? chosen : plans).slice(0, 4);
-  const columns = await Promise.all(picked.map(async (plan) => ({ plan, result: await estimatePlan(team.id, engine, plan, { units: user.units }) })));
-  return { units: user.units, canEdit: roleAtLeast(role, "builder"), engineId: engine.id, chosenPlanId: engine.chosenPlanId, plans: plans.map((p) => ({ id: p.id, name: p.name })), columns, tooMany: wanted.length > 4, tooFew };
+  const columns = await Promise.all(
+    picked.map(async (plan) => ({ plan, result: await estimatePlan(team.id, engine, plan, { units: user.units }) })),
+  );
+  return {
+    units: user.units,
+    canEdit: roleAtLeast(role, "builder"),
+    engineId: engine.id,
+    chosenPlanId: engine.chosenPlanId,
+    plans: plans.map((p) => ({ id: p.id, name: p.name })),
+    columns,
+    tooMany: wanted.length > 4,
+    tooFew,
+  };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -43,34 +54,118 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 type Column = { plan: PlanRow; result: PlanEstimateResult };
-type Row = { label: string; better?: "higher" | "lower"; value: (c: Column) => number | null; show: (v: number, u: UnitSystem, c: Column) => string };
+type Row = {
+  label: string;
+  better?: "higher" | "lower";
+  value: (c: Column) => number | null;
+  show: (v: number, u: UnitSystem, c: Column) => string;
+};
 
 const ok = (c: Column) => (c.result.ok ? c.result.view : null);
 
 // The outputs compared, and which way is better where one way is.
 const SEVERITY: Record<Status, number> = { holds: 2, thin: 1, short: 0 };
 const ROWS: Row[] = [
-  { label: "Verdict", better: "higher", value: (c) => { const v = ok(c); return v ? SEVERITY[v.estimate.verdict.status] : null; }, show: (_v, _u, c) => { const v = ok(c)!.estimate.verdict; const l = STATUS_LOOK[v.status]; return `${l.icon} ${l.word}: ${v.headline}`; } },
+  {
+    label: "Verdict",
+    better: "higher",
+    value: (c) => {
+      const v = ok(c);
+      return v ? SEVERITY[v.estimate.verdict.status] : null;
+    },
+    show: (_v, _u, c) => {
+      const v = ok(c)!.estimate.verdict;
+      const l = STATUS_LOOK[v.status];
+      return `${l.icon} ${l.word}: ${v.headline}`;
+    },
+  },
   { label: "Final torque (ours)", value: (c) => c.plan.torqueNm, show: (v, u) => formatQuantity(v, "torque", u) },
-  { label: "Fastener maker's figure", value: (c) => c.result.fastener?.makerTorqueNm ?? null, show: (v, u, c) => `${formatQuantity(v, "torque", u)}${c.result.fastener?.makerLubricant ? ` · ${c.result.fastener.makerLubricant}` : ""}` },
-  { label: "Weakest seal margin, bottom of the scatter band", better: "higher", value: (c) => ok(c)?.estimate.weakestMargin ?? null, show: (v, _u, c) => `${STATUS_LOOK[marginStatus(v, c.plan.targetMargin)].icon} ${v.toFixed(2)} (cyl ${ok(c)?.estimate.weakestCylinder})` },
+  {
+    label: "Fastener maker's figure",
+    value: (c) => c.result.fastener?.makerTorqueNm ?? null,
+    show: (v, u, c) =>
+      `${formatQuantity(v, "torque", u)}${c.result.fastener?.makerLubricant ? ` · ${c.result.fastener.makerLubricant}` : ""}`,
+  },
+  {
+    label: "Weakest seal margin, bottom of the scatter band",
+    better: "higher",
+    value: (c) => ok(c)?.estimate.weakestMargin ?? null,
+    show: (v, _u, c) =>
+      `${STATUS_LOOK[marginStatus(v, c.plan.targetMargin)].icon} ${v.toFixed(2)} (cyl ${ok(c)?.estimate.weakestCylinder})`,
+  },
   { label: "…at the nominal preload", value: (c) => ok(c)?.estimate.weakestMarginNominal ?? null, show: (v) => v.toFixed(2) },
   { label: "Chance weakest margin < 1", better: "lower", value: (c) => ok(c)?.probabilityMarginBelowOne ?? null, show: (v) => chance(v) },
-  { label: "Nominal preload per stud", value: (c) => ok(c)?.estimate.tightening.preload.nominalN ?? null, show: (v, u) => formatQuantity(v, "force", u) },
-  { label: "Hot and settled preload per stud", better: "higher", value: (c) => ok(c)?.estimate.hotSettled.preloadN ?? null, show: (v, u) => formatQuantity(v, "force", u) },
-  { label: "Stud while tightened, top of the band (of yield)", better: "lower", value: (c) => ok(c)?.estimate.studStress.atMax.utilization ?? null, show: (v) => `${(v * 100).toFixed(0)} %` },
-  { label: "Stud hot and fired, top of the band (of yield)", better: "lower", value: (c) => ok(c)?.estimate.studStress.working.utilization ?? null, show: (v) => `${(v * 100).toFixed(0)} %` },
-  { label: "Washer on the head (of its limit)", better: "lower", value: (c) => ok(c)?.estimate.head.bearingUtilizationMax ?? null, show: (v) => `${(v * 100).toFixed(0)} %` },
-  { label: "Seal gained per +10 % torque", better: "higher", value: (c) => ok(c)?.estimate.gain.share ?? null, show: (v) => `${(v * 100).toFixed(0)} % of the added clamp` },
-  { label: "Headroom to the torque ceiling", better: "higher", value: (c) => { const v = ok(c); return v && Number.isFinite(v.ceiling.torqueNm) ? v.ceiling.torqueNm - v.torqueNm : null; }, show: (v, u, c) => `${v < 0 ? "⚠ past it by " : ""}${formatQuantity(Math.abs(v), "torque", u)} (${CEILING_WORDS[ok(c)!.ceiling.cause]})` },
-  { label: "More torque mostly squeezes the head", value: (c) => { const v = ok(c); return v ? (v.estimate.squeeze.mostlySqueezing ? 1 : 0) : null; }, show: (v) => (v ? "✖ yes, at this torque" : "no") },
-  { label: "Firing load the stud takes", value: (c) => ok(c)?.estimate.stiffness.loadFactor ?? null, show: (v) => `${(v * 100).toFixed(0)} %` },
+  {
+    label: "Nominal preload per stud",
+    value: (c) => ok(c)?.estimate.tightening.preload.nominalN ?? null,
+    show: (v, u) => formatQuantity(v, "force", u),
+  },
+  {
+    label: "Hot and settled preload per stud",
+    better: "higher",
+    value: (c) => ok(c)?.estimate.hotSettled.preloadN ?? null,
+    show: (v, u) => formatQuantity(v, "force", u),
+  },
+  {
+    label: "Stud while tightened, top of the band (of yield)",
+    better: "lower",
+    value: (c) => ok(c)?.estimate.studStress.atMax.utilization ?? null,
+    show: (v) => `${(v * 100).toFixed(0)} %`,
+  },
+  {
+    label: "Stud hot and fired, top of the band (of yield)",
+    better: "lower",
+    value: (c) => ok(c)?.estimate.studStress.working.utilization ?? null,
+    show: (v) => `${(v * 100).toFixed(0)} %`,
+  },
+  {
+    label: "Washer on the head (of its limit)",
+    better: "lower",
+    value: (c) => ok(c)?.estimate.head.bearingUtilizationMax ?? null,
+    show: (v) => `${(v * 100).toFixed(0)} %`,
+  },
+  {
+    label: "Seal gained per +10 % torque",
+    better: "higher",
+    value: (c) => ok(c)?.estimate.gain.share ?? null,
+    show: (v) => `${(v * 100).toFixed(0)} % of the added clamp`,
+  },
+  {
+    label: "Headroom to the torque ceiling",
+    better: "higher",
+    value: (c) => {
+      const v = ok(c);
+      return v && Number.isFinite(v.ceiling.torqueNm) ? v.ceiling.torqueNm - v.torqueNm : null;
+    },
+    show: (v, u, c) =>
+      `${v < 0 ? "⚠ past it by " : ""}${formatQuantity(Math.abs(v), "torque", u)} (${CEILING_WORDS[ok(c)!.ceiling.cause]})`,
+  },
+  {
+    label: "More torque mostly squeezes the head",
+    value: (c) => {
+      const v = ok(c);
+      return v ? (v.estimate.squeeze.mostlySqueezing ? 1 : 0) : null;
+    },
+    show: (v) => (v ? "✖ yes, at this torque" : "no"),
+  },
+  {
+    label: "Firing load the stud takes",
+    value: (c) => ok(c)?.estimate.stiffness.loadFactor ?? null,
+    show: (v) => `${(v * 100).toFixed(0)} %`,
+  },
 ];
 
 export default function Compare({ loaderData }: Route.ComponentProps) {
   const { units, canEdit, engineId, chosenPlanId, plans, columns, tooMany, tooFew } = loaderData;
   if (plans.length < 2) {
-    return <p className="rounded border border-dashed border-forge-300 bg-white p-6">Comparing needs at least two plans. <Link className="text-copper-700 underline" to={`/engines/${engineId}/plans`}>Back to the plans</Link></p>;
+    return (
+      <p className="rounded border border-dashed border-forge-300 bg-white p-6">
+        Comparing needs at least two plans.{" "}
+        <Link className="text-copper-700 underline" to={`/engines/${engineId}/plans`}>
+          Back to the plans
+        </Link>
+      </p>
+    );
   }
   return (
     <>
@@ -82,7 +177,9 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
             <input type="checkbox" name="ids" value={p.id} defaultChecked={columns.some((c) => c.plan.id === p.id)} /> {p.name}
           </label>
         ))}
-        <button type="submit" className="rounded border border-forge-300 bg-white px-3 py-1">Show</button>
+        <button type="submit" className="rounded border border-forge-300 bg-white px-3 py-1">
+          Show
+        </button>
         {tooMany ? <span className="text-failed">✖ At most four plans side by side; showing the first four.</span> : null}
         {tooFew ? <span className="text-failed">✖ Tick two to four plans to compare; showing the first ones.</span> : null}
       </Form>
@@ -91,10 +188,14 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
           <caption className="sr-only">Plans side by side; the best value of each row is marked “best”.</caption>
           <thead className="bg-forge-100">
             <tr>
-              <th scope="col" className="px-2 py-2 text-left">Output</th>
+              <th scope="col" className="px-2 py-2 text-left">
+                Output
+              </th>
               {columns.map((c) => (
                 <th scope="col" key={c.plan.id} className="px-2 py-2 text-right">
-                  <Link to={`/engines/${engineId}/plans/${c.plan.id}`} className="text-copper-700 underline">{c.plan.name}</Link>
+                  <Link to={`/engines/${engineId}/plans/${c.plan.id}`} className="text-copper-700 underline">
+                    {c.plan.name}
+                  </Link>
                   {c.plan.id === chosenPlanId ? <span className="block text-xs text-held">✔ chosen</span> : null}
                 </th>
               ))}
@@ -102,19 +203,26 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
           </thead>
           <tbody>
             <tr className="border-t border-forge-100">
-              <th scope="row" className="px-2 py-2 text-left font-medium">Gasket · fastener</th>
+              <th scope="row" className="px-2 py-2 text-left font-medium">
+                Gasket · fastener
+              </th>
               {columns.map((c) => (
-                <td key={c.plan.id} className="px-2 py-2 text-right">{c.result.gasket?.name ?? "—"} · {c.result.fastener?.name ?? "—"}</td>
+                <td key={c.plan.id} className="px-2 py-2 text-right">
+                  {c.result.gasket?.name ?? "—"} · {c.result.fastener?.name ?? "—"}
+                </td>
               ))}
             </tr>
             {ROWS.map((row) => {
               const values = columns.map((c) => row.value(c));
               const present = values.filter((v): v is number => v !== null);
-              const best = row.better && present.length > 1 ? (row.better === "higher" ? Math.max(...present) : Math.min(...present)) : null;
+              const best =
+                row.better && present.length > 1 ? (row.better === "higher" ? Math.max(...present) : Math.min(...present)) : null;
               const distinct = new Set(present.map((v) => v.toPrecision(6))).size > 1;
               return (
                 <tr key={row.label} className="border-t border-forge-100">
-                  <th scope="row" className="px-2 py-2 text-left font-medium">{row.label}</th>
+                  <th scope="row" className="px-2 py-2 text-left font-medium">
+                    {row.label}
+                  </th>
                   {columns.map((c, i) => {
                     const v = values[i];
                     const isBest = best !== null && distinct && v !== null && v === best;
@@ -133,12 +241,16 @@ export default function Compare({ loaderData }: Route.ComponentProps) {
       </div>
       {canEdit ? (
         <div className="no-print mt-4 flex flex-wrap gap-2">
-          {columns.filter((c) => c.plan.id !== chosenPlanId).map((c) => (
-            <Form method="post" key={c.plan.id}>
-              <input type="hidden" name="planId" value={c.plan.id} />
-              <button type="submit" className="rounded border border-forge-300 bg-white px-4 py-2 font-medium hover:bg-forge-100">Mark “{c.plan.name}” as chosen</button>
-            </Form>
-          ))}
+          {columns
+            .filter((c) => c.plan.id !== chosenPlanId)
+            .map((c) => (
+              <Form method="post" key={c.plan.id}>
+                <input type="hidden" name="planId" value={c.plan.id} />
+                <button type="submit" className="rounded border border-forge-300 bg-white px-4 py-2 font-medium hover:bg-forge-100">
+                  Mark “{c.plan.name}” as chosen
+                </button>
+              </Form>
+            ))}
         </div>
       ) : null}
       <Caution className="mt-6" />

@@ -12,7 +12,9 @@ import type { Asker } from "~/models/viewer-scope.server";
 import { requireRole } from "~/utils/auth.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
-export const meta: Route.MetaFunction = ({ data, error }) => [{ title: error ? REFUSAL_TITLE : `Copy ${data?.plan.name ?? "seal plan"} · Sealwright` }];
+export const meta: Route.MetaFunction = ({ data, error }) => [
+  { title: error ? REFUSAL_TITLE : `Copy ${data?.plan.name ?? "seal plan"} · Sealwright` },
+];
 
 /** The other engines of the team, each with whether the plan's gasket fits its bore (and why not). */
 async function targets(who: Asker, engineId: number, gasketBoreMm: number | null, units: UnitSystem) {
@@ -102,5 +104,12 @@ export default function CopyPlan({ loaderData, actionData }: Route.ComponentProp
 }
 
 export function ErrorBoundary({ error, params }: Route.ErrorBoundaryProps) {
-  return <RoleRefusal error={error} who="A builder or the owner copies seal plans." backTo={`/engines/${params.engineId}/plans/${params.planId}`} backLabel="Back to the plan" />;
+  return (
+    <RoleRefusal
+      error={error}
+      who="A builder or the owner copies seal plans."
+      backTo={`/engines/${params.engineId}/plans/${params.planId}`}
+      backLabel="Back to the plan"
+    />
+  );
 }

@@ -72,13 +72,27 @@ export async function action({ request, params }: Route.ActionArgs) {
     const protrusion = form.protrusionMm === undefined || form.protrusionMm === "" ? plan.sleeveProtrusionMm : Number(form.protrusionMm);
     if (!(torqueNm > 0 && torqueNm <= 5000) || (protrusion !== null && !(protrusion >= -0.5 && protrusion <= 1))) {
       return data(
-        { errors: { torque: "The suggested figures are out of range." }, values: planFormValues(plan, user.units), note: null, preview: null, suggestion: null, problems: [] as string[], stretch: null },
+        {
+          errors: { torque: "The suggested figures are out of range." },
+          values: planFormValues(plan, user.units),
+          note: null,
+          preview: null,
+          suggestion: null,
+          problems: [] as string[],
+          stretch: null,
+        },
         { status: 400 },
       );
     }
-    const next: PlanWrite = { ...plan, torqueNm, stagesNm: scaledWrenchStages(plan.stagesNm, plan.torqueNm, torqueNm, user.units), sleeveProtrusionMm: protrusion };
+    const next: PlanWrite = {
+      ...plan,
+      torqueNm,
+      stagesNm: scaledWrenchStages(plan.stagesNm, plan.torqueNm, torqueNm, user.units),
+      sleeveProtrusionMm: protrusion,
+    };
     // planned by stretch: the suggested torque becomes the stretch it gives, or the suggestion would change nothing
-    if (plannedByStretch(plan)) next.targetStretchMm = await stretchAtTorque(team.id, engine, { ...next, method: "torque-estimated-friction" });
+    if (plannedByStretch(plan))
+      next.targetStretchMm = await stretchAtTorque(team.id, engine, { ...next, method: "torque-estimated-friction" });
     if (intent === "apply-torque") {
       await updatePlan(team.id, user.id, engine.id, plan.id, next);
       return redirectWithToast(request, `${base}/${plan.id}`, "Suggested figures applied to this plan.");
@@ -89,8 +103,16 @@ export async function action({ request, params }: Route.ActionArgs) {
 
   let values = Object.fromEntries(Object.entries(form).map(([k, v]) => [k, String(v)]));
   let note: string | null = null;
-  const answer = (status: number, extra: { errors?: Record<string, string>; preview?: EstimateView | null; suggestion?: Suggestion | null; problems?: string[]; stretch?: StretchLine | null } = {}) =>
-    data({ errors: {}, values, note, preview: null, suggestion: null, problems: [] as string[], stretch: null, ...extra }, { status });
+  const answer = (
+    status: number,
+    extra: {
+      errors?: Record<string, string>;
+      preview?: EstimateView | null;
+      suggestion?: Suggestion | null;
+      problems?: string[];
+      stretch?: StretchLine | null;
+    } = {},
+  ) => data({ errors: {}, values, note, preview: null, suggestion: null, problems: [] as string[], stretch: null, ...extra }, { status });
   if (intent === "show-all-gaskets") {
     values = { ...values, showAllGaskets: "1" };
     return answer(200);
@@ -122,7 +144,6 @@ async function stretchAtTorque(teamId: number, engine: Awaited<ReturnType<typeof
   return line ? Number(line.stretchMm.toFixed(4)) : null;
 }
 
-
 export default function PlanEditor({ loaderData, actionData }: Route.ComponentProps) {
   const { units, canEdit, engine, materials, plan, choices, result, chosen } = loaderData;
   const values = actionData?.values ?? loaderData.values;
@@ -131,12 +152,16 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
   const view: EstimateView | null = live.view ?? actionData?.preview ?? (result.ok ? result.view : null);
   const problems = live.problems ?? (actionData?.problems?.length ? actionData.problems : result.ok ? [] : result.problems);
   const suggestion = (actionData?.suggestion ?? null) as Suggestion | null;
-  const fastener = choices.fasteners.find((f) => String(f.id) === (live.fastenerId ?? values.fastenerId)) ?? (result.fastener as (typeof choices.fasteners)[number] | null);
+  const fastener =
+    choices.fasteners.find((f) => String(f.id) === (live.fastenerId ?? values.fastenerId)) ??
+    (result.fastener as (typeof choices.fasteners)[number] | null);
   const sleeved = engine.sleeveKind !== "none" && materials.sleeve !== null;
   const torqueNm = view?.torqueNm ?? plan.torqueNm;
   // a refused save or recalculation that brought no estimate back: what shows is the stored plan's
   const refusedWithoutPreview = Boolean(actionData && Object.keys(actionData.errors ?? {}).length > 0 && !actionData.preview);
-  const refusedProblems = actionData?.problems?.length ? `Nothing was saved: the estimate cannot run. ${actionData.problems.join(" ")}` : null;
+  const refusedProblems = actionData?.problems?.length
+    ? `Nothing was saved: the estimate cannot run. ${actionData.problems.join(" ")}`
+    : null;
   // After a successful Recalculate or Suggest, focus goes to what it answered (a refusal focuses its summary).
   useEffect(() => {
     if (!actionData || Object.keys(actionData.errors ?? {}).length > 0 || actionData.problems?.length || !actionData.preview) return;
@@ -152,12 +177,17 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
             className={`print-hide sticky top-0 z-10 mb-3 rounded border-2 px-3 py-2 text-sm shadow lg:hidden ${STATUS_LOOK[view.estimate.verdict.status].tone}`}
             data-testid="verdict-bar"
           >
-            <VerdictLine view={view} /> <a href="#estimate-title" className="underline">Estimate ↓</a>
+            <VerdictLine view={view} />{" "}
+            <a href="#estimate-title" className="underline">
+              Estimate ↓
+            </a>
           </p>
         ) : null}
         <div className="mb-3 flex flex-wrap items-center gap-2">
           <h2 className="text-2xl font-bold">{plan.name}</h2>
-          {chosen ? <span className="rounded border border-held bg-held-50 px-2 py-0.5 text-sm font-bold text-held">✔ Chosen plan</span> : null}
+          {chosen ? (
+            <span className="rounded border border-held bg-held-50 px-2 py-0.5 text-sm font-bold text-held">✔ Chosen plan</span>
+          ) : null}
         </div>
         <PlanPrintSheet
           values={values}
@@ -168,7 +198,15 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
         />
         <ErrorSummary errors={actionData?.errors} message={refusedProblems} answer={actionData} />
         {/* Stays mounted across answers (focus stays put); re-seeded only when the stored plan changed. */}
-        <Form method="post" key={JSON.stringify(loaderData.values)} onChange={live.onChange} onKeyDown={enterRecalculates} ref={live.formRef} className="print-hide space-y-4" noValidate>
+        <Form
+          method="post"
+          key={JSON.stringify(loaderData.values)}
+          onChange={live.onChange}
+          onKeyDown={enterRecalculates}
+          ref={live.formRef}
+          className="print-hide space-y-4"
+          noValidate
+        >
           <fieldset disabled={!canEdit} className="space-y-4">
             <legend className="sr-only">Plan inputs</legend>
             <PlanFields
@@ -217,25 +255,40 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
             <Link to={`/engines/${engine.id}/compare`} className="rounded border border-forge-300 bg-white px-4 py-2 font-medium">
               Compare plans
             </Link>
-            <Link to={`/engines/${engine.id}/plans/${plan.id}/copy`} className="rounded border border-forge-300 bg-white px-4 py-2 font-medium">
+            <Link
+              to={`/engines/${engine.id}/plans/${plan.id}/copy`}
+              className="rounded border border-forge-300 bg-white px-4 py-2 font-medium"
+            >
               Copy to another engine
             </Link>
           </div>
         ) : null}
       </div>
       <div className="space-y-4">
-        <MakerTorque ourTorqueNm={torqueNm} makerTorqueNm={fastener?.makerTorqueNm ?? null} makerLubricant={fastener?.makerLubricant ?? null} makerStages={fastener?.makerStages} units={units} />
+        <MakerTorque
+          ourTorqueNm={torqueNm}
+          makerTorqueNm={fastener?.makerTorqueNm ?? null}
+          makerLubricant={fastener?.makerLubricant ?? null}
+          makerStages={fastener?.makerStages}
+          units={units}
+        />
         {suggestion ? <SuggestionBox suggestion={suggestion} units={units} canEdit={canEdit} /> : null}
         <Caution />
         {problems.length > 0 ? <FormError message={`The estimate cannot run: ${problems.join(" ")}`} /> : null}
         {live.stale || refusedWithoutPreview ? (
-          <p role="status" className="rounded border border-caution bg-caution-50 px-3 py-2 text-sm font-medium" data-testid="estimate-stale">
+          <p
+            role="status"
+            className="rounded border border-caution bg-caution-50 px-3 py-2 text-sm font-medium"
+            data-testid="estimate-stale"
+          >
             {refusedWithoutPreview && !live.view
               ? "⚠ Nothing was saved, and the estimate below is still the saved plan's, not these figures: fix the marked fields, then Recalculate."
               : "⚠ The estimate below is for the last inputs that made sense; fix the marked fields to update it."}
           </p>
         ) : null}
-        {view ? <EstimatePanel view={view} units={units} targetMargin={Number(values.targetMargin) || plan.targetMargin} busy={live.busy} /> : null}
+        {view ? (
+          <EstimatePanel view={view} units={units} targetMargin={Number(values.targetMargin) || plan.targetMargin} busy={live.busy} />
+        ) : null}
       </div>
     </div>
   );

@@ -54,7 +54,9 @@ export default function PlanList({ loaderData }: Route.ComponentProps) {
         ) : null}
       </div>
       {rows.length === 0 ? (
-        <p className="rounded border border-dashed border-forge-300 bg-white p-6">No plans yet.{canEdit ? " Start one with “New plan”." : ""}</p>
+        <p className="rounded border border-dashed border-forge-300 bg-white p-6">
+          No plans yet.{canEdit ? " Start one with “New plan”." : ""}
+        </p>
       ) : (
         <Form method="get" action={`/engines/${engineId}/compare`}>
           <div className="overflow-x-auto">
@@ -62,14 +64,30 @@ export default function PlanList({ loaderData }: Route.ComponentProps) {
               <caption className="sr-only">Seal plans of this engine; tick 2 to 4 to compare</caption>
               <thead className="bg-forge-100 text-left">
                 <tr>
-                  <th scope="col" className="px-2 py-2">Compare</th>
-                  <th scope="col" className="px-2 py-2">Plan</th>
-                  <th scope="col" className="px-2 py-2">Gasket</th>
-                  <th scope="col" className="px-2 py-2">Fastener</th>
-                  <th scope="col" className="px-2 py-2 text-right">Torque (ours)</th>
-                  <th scope="col" className="px-2 py-2 text-right">Maker's figure</th>
-                  <th scope="col" className="px-2 py-2">Verdict</th>
-                  <th scope="col" className="px-2 py-2 text-right">Torque ceiling</th>
+                  <th scope="col" className="px-2 py-2">
+                    Compare
+                  </th>
+                  <th scope="col" className="px-2 py-2">
+                    Plan
+                  </th>
+                  <th scope="col" className="px-2 py-2">
+                    Gasket
+                  </th>
+                  <th scope="col" className="px-2 py-2">
+                    Fastener
+                  </th>
+                  <th scope="col" className="px-2 py-2 text-right">
+                    Torque (ours)
+                  </th>
+                  <th scope="col" className="px-2 py-2 text-right">
+                    Maker's figure
+                  </th>
+                  <th scope="col" className="px-2 py-2">
+                    Verdict
+                  </th>
+                  <th scope="col" className="px-2 py-2 text-right">
+                    Torque ceiling
+                  </th>
                 </tr>
               </thead>
               <tbody>
@@ -84,7 +102,9 @@ export default function PlanList({ loaderData }: Route.ComponentProps) {
                         <Link to={String(r.id)} className="text-copper-700 underline">
                           {r.name}
                         </Link>
-                        {r.id === chosenPlanId ? <span className="ml-2 rounded border border-held bg-held-50 px-1 text-xs text-held">✔ chosen</span> : null}
+                        {r.id === chosenPlanId ? (
+                          <span className="ml-2 rounded border border-held bg-held-50 px-1 text-xs text-held">✔ chosen</span>
+                        ) : null}
                       </th>
                       <td className="px-2 py-2">{r.gasket}</td>
                       <td className="px-2 py-2">{r.fastener}</td>
@@ -100,7 +120,9 @@ export default function PlanList({ loaderData }: Route.ComponentProps) {
                               {s.icon} {s.word}
                             </span>{" "}
                             {r.verdict.headline}
-                            <span className="block text-xs text-forge-700">weakest seal margin {r.weakestMargin!.toFixed(2)}, bottom of the scatter band</span>
+                            <span className="block text-xs text-forge-700">
+                              weakest seal margin {r.weakestMargin!.toFixed(2)}, bottom of the scatter band
+                            </span>
                           </>
                         ) : (
                           `✖ ${r.problems[0] ?? "cannot estimate"}`
@@ -109,7 +131,9 @@ export default function PlanList({ loaderData }: Route.ComponentProps) {
                       <td className="px-2 py-2 text-right">
                         {r.ceilingNm === null || !Number.isFinite(r.ceilingNm) ? "—" : formatQuantity(r.ceilingNm, "torque", units)}
                         {r.ceilingCause ? <span className="block text-xs text-forge-700">{r.ceilingCause}</span> : null}
-                        {r.ceilingNm !== null && r.ceilingNm < r.torqueNm ? <span className="block text-xs font-medium text-failed">⚠ below this plan's torque</span> : null}
+                        {r.ceilingNm !== null && r.ceilingNm < r.torqueNm ? (
+                          <span className="block text-xs font-medium text-failed">⚠ below this plan's torque</span>
+                        ) : null}
                       </td>
                     </tr>
                   );

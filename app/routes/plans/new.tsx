@@ -59,7 +59,20 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     stretch: await planStretch(team.id, engine, plan),
     emptyLibrary: !fastener || !gasket,
     // the shop's own friction, where three or more assemblies teach one: offered, never applied
-    learned: (await learnedFrictions(team.id)).flatMap((l) => (l.learned.ok ? [{ fastenerId: l.fastenerId, lubricant: l.lubricant, friction: l.learned.friction, spread: l.learned.frictionSpread, count: l.learned.count, shift: l.shift }] : [])),
+    learned: (await learnedFrictions(team.id)).flatMap((l) =>
+      l.learned.ok
+        ? [
+            {
+              fastenerId: l.fastenerId,
+              lubricant: l.lubricant,
+              friction: l.learned.friction,
+              spread: l.learned.frictionSpread,
+              count: l.learned.count,
+              shift: l.shift,
+            },
+          ]
+        : [],
+    ),
   };
 }
 
@@ -68,7 +81,10 @@ export async function action({ request, params }: Route.ActionArgs) {
   const engine = await requireEngine(who, params.engineId);
   const form = Object.fromEntries(await request.formData());
   const values = Object.fromEntries(Object.entries(form).map(([k, v]) => [k, String(v)]));
-  const answer = async (status: number, extra: { errors?: Record<string, string>; problems?: string[]; note?: string | null; values?: Record<string, string> } = {}) => {
+  const answer = async (
+    status: number,
+    extra: { errors?: Record<string, string>; problems?: string[]; note?: string | null; values?: Record<string, string> } = {},
+  ) => {
     const shown = parsePlanForm(extra.values ?? values, user.units);
     const stretch = shown.ok ? await planStretch(team.id, engine, shown.plan) : null;
     return data({ errors: {}, problems: [] as string[], note: null as string | null, values, stretch, ...extra }, { status });
@@ -93,7 +109,11 @@ export default function NewPlan({ loaderData, actionData }: Route.ComponentProps
   return <NewPlanForm values={values} loaderData={loaderData} actionData={actionData} />;
 }
 
-function NewPlanForm({ values, loaderData, actionData }: { values: Record<string, string> } & Pick<Route.ComponentProps, "loaderData" | "actionData">) {
+function NewPlanForm({
+  values,
+  loaderData,
+  actionData,
+}: { values: Record<string, string> } & Pick<Route.ComponentProps, "loaderData" | "actionData">) {
   const { units, engine, choices, emptyLibrary } = loaderData;
   const [fastenerId, setFastenerId] = useState(values.fastenerId);
   const [torqueText, setTorqueText] = useState(values.torque ?? "");
@@ -110,7 +130,13 @@ function NewPlanForm({ values, loaderData, actionData }: { values: Record<string
       />
       {fastener ? (
         <div className="mb-4">
-          <MakerTorque ourTorqueNm={torque.ok ? torque.valueSi : 0} makerTorqueNm={fastener.makerTorqueNm} makerLubricant={fastener.makerLubricant} makerStages={fastener.makerStages} units={units} />
+          <MakerTorque
+            ourTorqueNm={torque.ok ? torque.valueSi : 0}
+            makerTorqueNm={fastener.makerTorqueNm}
+            makerLubricant={fastener.makerLubricant}
+            makerStages={fastener.makerStages}
+            units={units}
+          />
           <LearnedFrictionOffer learned={loaderData.learned.filter((l) => l.fastenerId === fastener.id)} units={units} />
         </div>
       ) : null}
@@ -149,5 +175,12 @@ function NewPlanForm({ values, loaderData, actionData }: { values: Record<string
 
 // Inside the engine layout: a viewer who types this address reads why, with the engine's tabs still there.
 export function ErrorBoundary({ error, params }: Route.ErrorBoundaryProps) {
-  return <RoleRefusal error={error} who="A builder or the owner makes seal plans." backTo={`/engines/${params.engineId}/plans`} backLabel="Back to the seal plans" />;
+  return (
+    <RoleRefusal
+      error={error}
+      who="A builder or the owner makes seal plans."
+      backTo={`/engines/${params.engineId}/plans`}
+      backLabel="Back to the seal plans"
+    />
+  );
 }

@@ -19,7 +19,10 @@ const OBSERVE = `
 async function vitals(page: Page, url: string): Promise<{ lcp: number; cls: number }> {
   await page.goto(`${ORIGIN}${url}`, { waitUntil: "networkidle" });
   await page.waitForTimeout(500);
-  return page.evaluate(() => ({ lcp: (window as unknown as { __lcp: number }).__lcp, cls: (window as unknown as { __cls: number }).__cls }));
+  return page.evaluate(() => ({
+    lcp: (window as unknown as { __lcp: number }).__lcp,
+    cls: (window as unknown as { __cls: number }).__cls,
+  }));
 }
 
 /** ms from the torque field's input event (typed by Playwright) to the weakest margin's text changing, painted. */
@@ -47,7 +50,10 @@ async function torqueToEstimate(page: Page, torque: string): Promise<number> {
 
 export async function browserRows(): Promise<Row[]> {
   const server = await startServer(path.join(ROOT, "tests/.bench-data/browser.sqlite"));
-  const browser = await chromium.launch({ executablePath: "/usr/bin/chromium", args: ["--no-sandbox", "--disable-gpu", "--no-first-run", "--disable-background-networking"] });
+  const browser = await chromium.launch({
+    executablePath: "/usr/bin/chromium",
+    args: ["--no-sandbox", "--disable-gpu", "--no-first-run", "--disable-background-networking"],
+  });
   try {
     const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     await context.addInitScript(OBSERVE);
@@ -77,7 +83,12 @@ export async function browserRows(): Promise<Row[]> {
       for (const t of ["150", "170", "140"]) times.push(await torqueToEstimate(page, t));
       const ms = median(times);
       const limit = rate === 1 ? 100 : 200;
-      rows.push({ figure: `torque changed → estimate updated${rate > 1 ? `, ${rate}× CPU slow-down` : ""}`, value: `${fmt(ms, 0)} ms (median of ${times.length})`, target: `≤ ${limit} ms`, met: ms <= limit });
+      rows.push({
+        figure: `torque changed → estimate updated${rate > 1 ? `, ${rate}× CPU slow-down` : ""}`,
+        value: `${fmt(ms, 0)} ms (median of ${times.length})`,
+        target: `≤ ${limit} ms`,
+        met: ms <= limit,
+      });
     }
     await cdp.send("Emulation.setCPUThrottlingRate", { rate: 1 });
     return rows;

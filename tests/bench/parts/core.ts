@@ -63,7 +63,12 @@ export function coreRows(): Row[] {
   const viewCold = timeMs(() => (UNCERTAINTY_CACHE.clear(), estimateView(plan).torqueNm), 3, 7, 2);
   const viewWarm = timeMs(() => estimateView(plan).torqueNm, 20, 7);
   return [
-    { figure: "reference agrees (identical numbers)", value: `${plans.length - mismatched}/${plans.length} plans`, target: "all", met: mismatched === 0 },
+    {
+      figure: "reference agrees (identical numbers)",
+      value: `${plans.length - mismatched}/${plans.length} plans`,
+      target: "all",
+      met: mismatched === 0,
+    },
     {
       figure: "one plan evaluation / bare-loop reference",
       value: `×${fmt(ratio, 2)} (${fmt(core * 1000)} vs ${fmt(ref * 1000)} µs)`,
@@ -74,6 +79,11 @@ export function coreRows(): Row[] {
     { figure: "torque sweep, 41 points", value: `${fmt(sweep, 2)} ms`, target: "info", met: null },
     { figure: "10,000-sample uncertainty run", value: `${fmt(scatter)} ms`, target: "≤ 25 ms", met: scatter <= 25 },
     { figure: "uncertainty run, cached (same validated input)", value: `${fmt(cached * 1000, 1)} µs`, target: "info", met: null },
-    { figure: "estimate view (evaluation + sweep + 2,000 samples), cold / cached run", value: `${fmt(viewCold, 1)} / ${fmt(viewWarm, 2)} ms`, target: "info", met: null },
+    {
+      figure: "estimate view (evaluation + sweep + 2,000 samples), cold / cached run",
+      value: `${fmt(viewCold, 1)} / ${fmt(viewWarm, 2)} ms`,
+      target: "info",
+      met: null,
+    },
   ];
 }

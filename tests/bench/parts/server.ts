@@ -37,7 +37,11 @@ export async function startServer(dbPath: string, seed = true): Promise<Server> 
     const r = spawnSync("npm", ["run", "--silent", "db:setup"], { cwd: ROOT, env: { ...ENV, DATABASE_PATH: dbPath }, stdio: "ignore" });
     if (r.status !== 0) throw new Error("db:setup failed");
   }
-  const child: ChildProcess = spawn(process.execPath, ["scripts/serve.mjs", "build/server/index.js"], { cwd: ROOT, env: { ...ENV, DATABASE_PATH: dbPath }, stdio: "ignore" });
+  const child: ChildProcess = spawn(process.execPath, ["scripts/serve.mjs", "build/server/index.js"], {
+    cwd: ROOT,
+    env: { ...ENV, DATABASE_PATH: dbPath },
+    stdio: "ignore",
+  });
   let exited = false;
   child.once("exit", () => (exited = true));
   let up = false;
@@ -68,7 +72,10 @@ export async function signIn(email = "builder@example.com"): Promise<string> {
     headers: { "Content-Type": "application/x-www-form-urlencoded", Origin: ORIGIN },
     body: new URLSearchParams({ email, password: "sealwright-demo" }),
   });
-  const cookie = res.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+  const cookie = res.headers
+    .getSetCookie()
+    .map((c) => c.split(";")[0])
+    .join("; ");
   if (!cookie.includes("=")) throw new Error(`sign-in failed: ${res.status}`);
   return cookie;
 }
@@ -78,7 +85,9 @@ export function somePlanPath(dbPath: string): string {
   const d = new Database(dbPath, { readonly: true });
   try {
     const row = d
-      .prepare("select p.id as planId, p.engine_id as engineId from seal_plans p join memberships m on m.team_id = p.team_id join users u on u.id = m.user_id where u.email = ? and p.archived_at is null order by p.id limit 1")
+      .prepare(
+        "select p.id as planId, p.engine_id as engineId from seal_plans p join memberships m on m.team_id = p.team_id join users u on u.id = m.user_id where u.email = ? and p.archived_at is null order by p.id limit 1",
+      )
       .get("builder@example.com") as { planId: number; engineId: number };
     return `/engines/${row.engineId}/plans/${row.planId}`;
   } finally {
@@ -115,12 +124,27 @@ export async function serverRound(cookie: string, planPath: string, seconds: num
   const out: Load[] = [];
   out.push(await hammer("health", { url: "/healthz", duration: seconds }));
   // the API allows 240 requests a minute per person: a fixed count under that, not a duration
-  out.push(await hammer("estimate API", { url: "/api/v1/estimate", method: "POST", headers: { ...headers, "content-type": "application/json" }, body, amount: 200, connections: 4 }));
+  out.push(
+    await hammer("estimate API", {
+      url: "/api/v1/estimate",
+      method: "POST",
+      headers: { ...headers, "content-type": "application/json" },
+      body,
+      amount: 200,
+      connections: 4,
+    }),
+  );
   out.push(await hammer("engines list", { url: "/engines", headers, duration: seconds }));
   out.push(await hammer("plan editor", { url: planPath, headers, duration: seconds }));
   out.push(await hammer("dashboard", { url: "/dashboard", headers, duration: seconds }));
   const h2 = await hammer("health", { url: "/healthz", duration: seconds });
-  out[0] = { ...out[0], rps: (out[0].rps + h2.rps) / 2, p95: (out[0].p95 + h2.p95) / 2, p50: (out[0].p50 + h2.p50) / 2, p99: (out[0].p99 + h2.p99) / 2 };
+  out[0] = {
+    ...out[0],
+    rps: (out[0].rps + h2.rps) / 2,
+    p95: (out[0].p95 + h2.p95) / 2,
+    p50: (out[0].p50 + h2.p50) / 2,
+    p99: (out[0].p99 + h2.p99) / 2,
+  };
   return out;
 }
 

@@ -5,8 +5,40 @@ import { join, relative } from "node:path";
 import { describe, expect, it } from "vitest";
 
 const ROOT = join(__dirname, "../../../app/lib");
-const NODE_BUILTINS = ["assert", "buffer", "child_process", "crypto", "dns", "events", "fs", "http", "https", "net", "os", "path", "process", "stream", "tls", "url", "util", "worker_threads", "zlib", "perf_hooks", "v8", "vm"];
-const FORBIDDEN = [/^react($|\/)/, /^react-dom($|\/)/, /^react-router($|\/)/, /^@react-router\//, /^knex($|\/)/, /^better-sqlite3($|\/)/, /^node:/, new RegExp(`^(${NODE_BUILTINS.join("|")})($|/)`)];
+const NODE_BUILTINS = [
+  "assert",
+  "buffer",
+  "child_process",
+  "crypto",
+  "dns",
+  "events",
+  "fs",
+  "http",
+  "https",
+  "net",
+  "os",
+  "path",
+  "process",
+  "stream",
+  "tls",
+  "url",
+  "util",
+  "worker_threads",
+  "zlib",
+  "perf_hooks",
+  "v8",
+  "vm",
+];
+const FORBIDDEN = [
+  /^react($|\/)/,
+  /^react-dom($|\/)/,
+  /^react-router($|\/)/,
+  /^@react-router\//,
+  /^knex($|\/)/,
+  /^better-sqlite3($|\/)/,
+  /^node:/,
+  new RegExp(`^(${NODE_BUILTINS.join("|")})($|/)`),
+];
 
 function files(dir: string): string[] {
   return readdirSync(dir).flatMap((n) => {
@@ -18,7 +50,8 @@ function files(dir: string): string[] {
 /** Every module specifier: static import/export, dynamic import(), require(). */
 export function specifiers(src: string): string[] {
   const out: string[] = [];
-  const re = /(?:import|export)\s[^'"]*?from\s*["']([^"']+)["']|import\s*["']([^"']+)["']|import\(\s*["']([^"']+)["']\s*\)|require\(\s*["']([^"']+)["']\s*\)/g;
+  const re =
+    /(?:import|export)\s[^'"]*?from\s*["']([^"']+)["']|import\s*["']([^"']+)["']|import\(\s*["']([^"']+)["']\s*\)|require\(\s*["']([^"']+)["']\s*\)/g;
   for (const m of src.matchAll(re)) out.push(m[1] ?? m[2] ?? m[3] ?? m[4]);
   return out;
 }

@@ -4,7 +4,15 @@ import { apiCaller, apiQuery, apiRead, notFound } from "~/utils/api.server";
 import { parseId } from "~/utils/ids";
 
 // GET /api/v1/engines/:engineId/plans/:planId?units → the plan, its clamp-model input and its estimate.
-export async function loader({ request, context, params }: { request: Request; context?: unknown; params: { engineId?: string; planId?: string } }) {
+export async function loader({
+  request,
+  context,
+  params,
+}: {
+  request: Request;
+  context?: unknown;
+  params: { engineId?: string; planId?: string };
+}) {
   const caller = await apiCaller(request, context);
   const query = apiQuery(request, PlanReadQuerySchema);
   const engineId = parseId(params.engineId);

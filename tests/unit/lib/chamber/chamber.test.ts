@@ -1,6 +1,12 @@
 // docs/references.md §8: compression ratio, polytropic compression, quench.
 import { describe, expect, it } from "vitest";
-import { chamberProblems, compressionRatio, compressionRatioFromVolumes, estimatePeakPressure, gasketThicknessWhatIf } from "../../../../app/lib/chamber";
+import {
+  chamberProblems,
+  compressionRatio,
+  compressionRatioFromVolumes,
+  estimatePeakPressure,
+  gasketThicknessWhatIf,
+} from "../../../../app/lib/chamber";
 import { IN_TO_MM, relErr } from "../nist";
 
 const CC_PER_IN3 = IN_TO_MM ** 3 / 1000; // 16.387064 exactly (NIST SP 811: 1 in = 25.4 mm)
@@ -20,16 +26,40 @@ describe("§8 chamber", () => {
   it("compressionRatio from geometry: gasket volume = π/4·bore²·thickness (docs/references.md §8), hand arithmetic ±0.01 %", () => {
     // bore 100, stroke 90: Vs = π/4·100²·90/1000 = 706.858 cc; gasket π/4·102²·1.0/1000 = 8.1713 cc
     // deck 0.2 mm: π/4·100²·0.2/1000 = 1.5708 cc; chamber 60, dish +5 → Vc = 74.7421; CR = 781.600/74.7421 = 10.4573
-    const r = compressionRatio({ boreMm: 100, strokeMm: 90, chamberCc: 60, gasketBoreMm: 102, gasketThicknessMm: 1.0, deckClearanceMm: 0.2, pistonVolumeCc: 5 });
+    const r = compressionRatio({
+      boreMm: 100,
+      strokeMm: 90,
+      chamberCc: 60,
+      gasketBoreMm: 102,
+      gasketThicknessMm: 1.0,
+      deckClearanceMm: 0.2,
+      pistonVolumeCc: 5,
+    });
     expect(relErr(r.sweptCc, 706.858)).toBeLessThan(1e-4);
     expect(relErr(r.gasketCc, 8.1713)).toBeLessThan(1e-4);
     expect(relErr(r.compressionRatio, 10.4573)).toBeLessThan(1e-4);
     // a dome (negative piston volume) raises the ratio
-    const dome = compressionRatio({ boreMm: 100, strokeMm: 90, chamberCc: 60, gasketBoreMm: 102, gasketThicknessMm: 1.0, deckClearanceMm: 0.2, pistonVolumeCc: -5 });
+    const dome = compressionRatio({
+      boreMm: 100,
+      strokeMm: 90,
+      chamberCc: 60,
+      gasketBoreMm: 102,
+      gasketThicknessMm: 1.0,
+      deckClearanceMm: 0.2,
+      pistonVolumeCc: -5,
+    });
     expect(dome.compressionRatio).toBeGreaterThan(r.compressionRatio);
   });
   it("quench = deck clearance + gasket thickness; 0.9–1.15 mm is the usual range (common practice)", () => {
-    const base = { boreMm: 100, strokeMm: 90, chamberCc: 60, gasketBoreMm: 102, gasketThicknessMm: 1.0, deckClearanceMm: 0.0, pistonVolumeCc: 5 };
+    const base = {
+      boreMm: 100,
+      strokeMm: 90,
+      chamberCc: 60,
+      gasketBoreMm: 102,
+      gasketThicknessMm: 1.0,
+      deckClearanceMm: 0.0,
+      pistonVolumeCc: 5,
+    };
     expect(compressionRatio(base).quenchMm).toBeCloseTo(1.0, 12);
     expect(compressionRatio(base).quenchInUsualRange).toBe(true);
     const w = gasketThicknessWhatIf(base, 1.5);
@@ -50,11 +80,27 @@ describe("§8 chamber", () => {
     expect(f.note).toMatch(/Estimate/);
   });
   it("says what is wrong with impossible chambers", () => {
-    expect(chamberProblems({ boreMm: 100, strokeMm: 90, chamberCc: 2, gasketBoreMm: 102, gasketThicknessMm: 0.5, deckClearanceMm: 0, pistonVolumeCc: -10 })).toEqual([
-      "The dome and deck leave no clearance volume: check the piston volume and deck clearance",
-    ]);
-    expect(chamberProblems({ boreMm: 100, strokeMm: 90, chamberCc: 60, gasketBoreMm: 98, gasketThicknessMm: 1, deckClearanceMm: 0, pistonVolumeCc: 0 })).toContain(
-      "Gasket bore must be at least the cylinder bore",
-    );
+    expect(
+      chamberProblems({
+        boreMm: 100,
+        strokeMm: 90,
+        chamberCc: 2,
+        gasketBoreMm: 102,
+        gasketThicknessMm: 0.5,
+        deckClearanceMm: 0,
+        pistonVolumeCc: -10,
+      }),
+    ).toEqual(["The dome and deck leave no clearance volume: check the piston volume and deck clearance"]);
+    expect(
+      chamberProblems({
+        boreMm: 100,
+        strokeMm: 90,
+        chamberCc: 60,
+        gasketBoreMm: 98,
+        gasketThicknessMm: 1,
+        deckClearanceMm: 0,
+        pistonVolumeCc: 0,
+      }),
+    ).toContain("Gasket bore must be at least the cylinder bore");
   });
 });

@@ -54,7 +54,9 @@ export const rawPlan: fc.Arbitrary<PlanInputRaw> = fc
     gasketType: fc.constantFrom("solid-copper", "mls", "mls-with-ring", "fire-ring" as const),
     bead: fc.option(fc.record({ loadNPerMm: dbl(5, 400), travelMm: dbl(0.02, 0.4) }), { nil: undefined }),
     hardness: fc.option(dbl(100, 3000), { nil: undefined }),
-    en13555: fc.option(fc.record({ seating: dbl(5, 300), service: dbl(2, 200), max: fc.option(dbl(100, 2000), { nil: undefined }) }), { nil: undefined }),
+    en13555: fc.option(fc.record({ seating: dbl(5, 300), service: dbl(2, 200), max: fc.option(dbl(100, 2000), { nil: undefined }) }), {
+      nil: undefined,
+    }),
     bodySeal: fc.option(dbl(0.5, 50), { nil: undefined }),
     headDeck: fc.option(dbl(4, 30), { nil: undefined }),
     blockDeck: fc.option(dbl(4, 30), { nil: undefined }),
@@ -80,7 +82,12 @@ export const rawPlan: fc.Arbitrary<PlanInputRaw> = fc
         ? { kind: "none" as const }
         : r.sleeve === "dry"
           ? { kind: "dry" as const, modulusMpa: 169_000, wallMm: r.ringW + r.sleeveWallExtra }
-          : { kind: r.wetMid ? ("wet-mid" as const) : ("wet-flange" as const), modulusMpa: 169_000, wallMm: r.ringW + r.sleeveWallExtra, supportLengthMm: r.support };
+          : {
+              kind: r.wetMid ? ("wet-mid" as const) : ("wet-flange" as const),
+              modulusMpa: 169_000,
+              wallMm: r.ringW + r.sleeveWallExtra,
+              supportLengthMm: r.support,
+            };
     return {
       engine: { cylinders, layout: r.layout, boreMm: r.boreMm, studSpacingMm: r.studSpacing },
       studs: defaultStudPattern(r.layout, cylinders, perBank + 1 + r.extraStuds),
@@ -107,7 +114,14 @@ export const rawPlan: fc.Arbitrary<PlanInputRaw> = fc
         bearingFriction: r.muK,
         method: r.method,
       },
-      head: { thicknessAtStudMm: r.headT, modulusMpa: r.headE, expansionUmPerMC: 21.4, limitingSurfacePressureMpa: r.pG, yieldMpa: r.headYield, deckThicknessMm: r.headDeck },
+      head: {
+        thicknessAtStudMm: r.headT,
+        modulusMpa: r.headE,
+        expansionUmPerMC: 21.4,
+        limitingSurfacePressureMpa: r.pG,
+        yieldMpa: r.headYield,
+        deckThicknessMm: r.headDeck,
+      },
       gasket: {
         type: r.gasketType,
         compressedThicknessMm: r.gasketT,
@@ -129,7 +143,14 @@ export const rawPlan: fc.Arbitrary<PlanInputRaw> = fc
         maxPressureMpa: r.en13555?.max,
         bodySealPressureMpa: r.bodySeal,
       },
-      block: { modulusMpa: r.blockE, expansionUmPerMC: 10.8, clampedDepthMm: r.blockDepth, yieldMpa: r.blockYield, deckThicknessMm: r.blockDeck, shearStrengthMpa: r.blockShear },
+      block: {
+        modulusMpa: r.blockE,
+        expansionUmPerMC: 10.8,
+        clampedDepthMm: r.blockDepth,
+        yieldMpa: r.blockYield,
+        deckThicknessMm: r.blockDeck,
+        shearStrengthMpa: r.blockShear,
+      },
       sleeve,
       sealing: { sleeveProtrusionMm: r.protrusion, wireProjectionMm: r.wire, receiverGrooveDepthMm: r.receiver },
       firing: r.estimated

@@ -18,7 +18,10 @@ import {
 import { relErr } from "../nist";
 import { demoFourRaw, v8Raw, workedExample } from "./fixtures";
 
-const atTorque = (p: PlanInput, torqueNm: number): PlanInput => ({ ...p, tightening: { ...p.tightening, target: { mode: "torque", torqueNm } } });
+const atTorque = (p: PlanInput, torqueNm: number): PlanInput => ({
+  ...p,
+  tightening: { ...p.tightening, target: { mode: "torque", torqueNm } },
+});
 
 describe("heat and settling", () => {
   it("an aluminium head on steel studs gains preload hot; an iron head on the same studs hardly does", () => {
@@ -59,7 +62,10 @@ describe("bearing friction at the nut face (ISO 16047 DKm from the face that tur
 });
 
 describe("member cones limited to the stud spacing (VDI 2230 limiting outside diameter DA)", () => {
-  const layers = [{ name: "head", thicknessMm: 90, modulusMpa: 72_400 }, { name: "block", thicknessMm: 30, modulusMpa: 100_000 }];
+  const layers = [
+    { name: "head", thicknessMm: 90, modulusMpa: 72_400 },
+    { name: "block", thicknessMm: 30, modulusMpa: 100_000 },
+  ];
   it("a limit wider than the cones reach changes nothing; a tighter one makes the stack softer", () => {
     // cones from 24 mm at the top and 21 mm at the bottom grow 1.155 per mm of depth: at mid-grip (60 mm) 93 mm wide
     const free = memberStiffness(layers, 14, 24, 21);
@@ -184,7 +190,12 @@ describe("suggest", () => {
   });
   it("offers sleeve protrusion that reaches an otherwise unreachable target, and it does reach it", () => {
     const p = workedExample();
-    const dry: PlanInput = { ...p, firing: { mode: "entered", peakPressureMpa: 4 }, sleeve: { kind: "dry", modulusMpa: 169_000, wallMm: 6 }, sealing: { ...p.sealing, sleeveProtrusionMm: 0 } };
+    const dry: PlanInput = {
+      ...p,
+      firing: { mode: "entered", peakPressureMpa: 4 },
+      sleeve: { kind: "dry", modulusMpa: 169_000, wallMm: 6 },
+      sealing: { ...p.sealing, sleeveProtrusionMm: 0 },
+    };
     const r = suggest(dry, { targetMargin: 1.2 });
     expect(r.reachable).toBe(false);
     expect(r.protrusion).not.toBeNull();

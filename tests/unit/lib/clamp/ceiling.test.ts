@@ -16,7 +16,10 @@ import {
 import { relErr } from "../nist";
 import { demoFourRaw, demoSixRaw, demoV8Raw, v8Raw, workedExample } from "./fixtures";
 
-const atTorque = (p: PlanInput, torqueNm: number): PlanInput => ({ ...p, tightening: { ...p.tightening, target: { mode: "torque", torqueNm } } });
+const atTorque = (p: PlanInput, torqueNm: number): PlanInput => ({
+  ...p,
+  tightening: { ...p.tightening, target: { mode: "torque", torqueNm } },
+});
 
 describe("torque ceiling", () => {
   it("stud while tightened, by hand (demo four): σred(FMmax) = 0.9·Rp0.2 → 156.4 N·m", () => {
@@ -47,7 +50,17 @@ describe("torque ceiling", () => {
       // an EN 13555 QSmax of 80 MPa on the six's seal band, with an iron-like bearing limit so the washer does not decide
       ["crush", { ...six, head: { ...six.head, limitingSurfacePressureMpa: 900 }, gasket: { ...six.gasket, maxPressureMpa: 80 } }],
       // a hot head (200 °C) on the worked example with a 900 MPa bearing limit: the thermal gain decides
-      ["stud-working", (() => { const w = workedExample(); return { ...w, head: { ...w.head, limitingSurfacePressureMpa: 900 }, temperatures: { ...w.temperatures, headC: 200, blockC: 200 } }; })()],
+      [
+        "stud-working",
+        (() => {
+          const w = workedExample();
+          return {
+            ...w,
+            head: { ...w.head, limitingSurfacePressureMpa: 900 },
+            temperatures: { ...w.temperatures, headC: 200, blockC: 200 },
+          };
+        })(),
+      ],
     ];
     for (const [cause, plan] of cases) {
       const c = torqueCeiling(prepare(plan));

@@ -67,7 +67,12 @@ export function v8Raw(): PlanInputRaw {
       washerHoleMm: 13.5,
       washerThicknessMm: 3,
     },
-    tightening: { target: { mode: "torque", torqueNm: 160 }, threadFriction: 0.1, bearingFriction: 0.1, method: "torque-estimated-friction" },
+    tightening: {
+      target: { mode: "torque", torqueNm: 160 },
+      threadFriction: 0.1,
+      bearingFriction: 0.1,
+      method: "torque-estimated-friction",
+    },
     head: { thicknessAtStudMm: 95, modulusMpa: 72_400, expansionUmPerMC: 21.4, limitingSurfacePressureMpa: 380, yieldMpa: 165 },
     gasket: {
       type: "solid-copper",
@@ -121,7 +126,12 @@ export function demoFourRaw(): PlanInputRaw {
     engine: { cylinders: 4, layout: "inline", boreMm: 86 },
     studs: defaultStudPattern("inline", 4),
     fastener: { ...halfInchChromoly },
-    tightening: { target: { mode: "torque", torqueNm: 115 * LBF_FT }, threadFriction: 0.11, bearingFriction: 0.12, method: "stretch-measured" },
+    tightening: {
+      target: { mode: "torque", torqueNm: 115 * LBF_FT },
+      threadFriction: 0.11,
+      bearingFriction: 0.12,
+      method: "stretch-measured",
+    },
     head: { thicknessAtStudMm: 100, modulusMpa: 72_400, expansionUmPerMC: 21.4, limitingSurfacePressureMpa: 380, yieldMpa: 165 },
     gasket: {
       type: "solid-copper",
@@ -162,7 +172,12 @@ export function demoSixRaw(): PlanInputRaw {
       washerHoleMm: 0.47 * IN,
       washerThicknessMm: 0.12 * IN,
     },
-    tightening: { target: { mode: "torque", torqueNm: 85 * LBF_FT }, threadFriction: 0.15, bearingFriction: 0.16, method: "torque-estimated-friction" },
+    tightening: {
+      target: { mode: "torque", torqueNm: 85 * LBF_FT },
+      threadFriction: 0.15,
+      bearingFriction: 0.16,
+      method: "torque-estimated-friction",
+    },
     head: { thicknessAtStudMm: 95, modulusMpa: 72_400, expansionUmPerMC: 21.4, limitingSurfacePressureMpa: 380, yieldMpa: 165 },
     gasket: {
       type: "mls",
@@ -191,7 +206,12 @@ export function demoV8Raw(): PlanInputRaw {
     engine: { cylinders: 8, layout: "V", boreMm: 106 },
     studs: defaultStudPattern("V", 8, 9),
     fastener: { ...halfInchChromoly },
-    tightening: { target: { mode: "torque", torqueNm: 115 * LBF_FT }, threadFriction: 0.11, bearingFriction: 0.12, method: "stretch-measured" },
+    tightening: {
+      target: { mode: "torque", torqueNm: 115 * LBF_FT },
+      threadFriction: 0.11,
+      bearingFriction: 0.12,
+      method: "stretch-measured",
+    },
     head: { thicknessAtStudMm: 105, modulusMpa: 72_400, expansionUmPerMC: 21.4, limitingSurfacePressureMpa: 380, yieldMpa: 165 },
     gasket: {
       type: "mls-with-ring",
@@ -238,7 +258,12 @@ export function demoFourNowRaw(): PlanInputRaw {
     ...old,
     studs: defaultStudPattern("inline", 4, 7),
     fastener: { ...nineSixteenthsChromoly },
-    tightening: { target: { mode: "torque", torqueNm: 125 * LBF_FT }, threadFriction: 0.11, bearingFriction: 0.12, method: "stretch-measured" },
+    tightening: {
+      target: { mode: "torque", torqueNm: 125 * LBF_FT },
+      threadFriction: 0.11,
+      bearingFriction: 0.12,
+      method: "stretch-measured",
+    },
     gasket: { ...(old.gasket as object), ringWidthMm: 0.8 } as PlanInputRaw["gasket"],
     firing: { mode: "entered", peakPressureMpa: 14 },
   };
@@ -250,7 +275,12 @@ export function demoV8NowRaw(): PlanInputRaw {
   return {
     ...old,
     fastener: { ...halfInchChromoly, engagementMm: 40 },
-    tightening: { target: { mode: "torque", torqueNm: 105 * LBF_FT }, threadFriction: 0.11, bearingFriction: 0.12, method: "stretch-measured" },
+    tightening: {
+      target: { mode: "torque", torqueNm: 105 * LBF_FT },
+      threadFriction: 0.11,
+      bearingFriction: 0.12,
+      method: "stretch-measured",
+    },
     gasket: { ...(old.gasket as object), ringWidthMm: 1.2 } as PlanInputRaw["gasket"],
     sealing: { sleeveProtrusionMm: 0.02 },
     firing: { mode: "estimated", manifoldAbsKpa: 420, compressionRatio: 9.37, pressureRiseFactor: 2.2 },

@@ -1,7 +1,14 @@
 // docs/references.md §7 materials and §6 gasket factors as carried in app/lib/clamp/handbook.ts.
 // These are transcription checks (a wrong digit fails) plus the one conversion in the table.
 import { describe, expect, it } from "vitest";
-import { ANNEALED_COPPER_HARDNESS_MPA, ASME_GASKET_FACTORS, FASTENER_CLASSES, HANDBOOK_MATERIALS, LIMITING_SURFACE_PRESSURE_MPA, TYPICAL_GASKETS } from "../../../../app/lib/clamp";
+import {
+  ANNEALED_COPPER_HARDNESS_MPA,
+  ASME_GASKET_FACTORS,
+  FASTENER_CLASSES,
+  HANDBOOK_MATERIALS,
+  LIMITING_SURFACE_PRESSURE_MPA,
+  TYPICAL_GASKETS,
+} from "../../../../app/lib/clamp";
 import { PSI_TO_MPA, relErr } from "../nist";
 
 describe("§7 materials (typical or minimum, as docs/references.md notes)", () => {

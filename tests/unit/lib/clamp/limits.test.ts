@@ -32,7 +32,9 @@ describe("working state (VDI 2230 Part 1)", () => {
     // d = 12.7 mm: 0.85·(150/12.7 + 45) = 0.85·56.811 = 48.289 MPa
     expect(w.enduranceMpa).toBeCloseTo(48.289, 3);
     // rolled after heat treatment: σASG = (2 − FS/F0.2)·σASV (VDI 2230, from memory), F0.2 = Rp0.2·A0
-    const rolled = prepare(PlanInputSchema.parse({ ...demoFourRaw(), fastener: { ...demoFourRaw().fastener, rolledAfterHeatTreatment: true } }));
+    const rolled = prepare(
+      PlanInputSchema.parse({ ...demoFourRaw(), fastener: { ...demoFourRaw().fastener, rolledAfterHeatTreatment: true } }),
+    );
     const wr = workingState(rolled, 100_000);
     const f02 = 1379 * rolled.section.areaMm2;
     expect(wr.enduranceMpa).toBeCloseTo((2 - wr.studLoadN / f02) * 48.289, 2);
@@ -56,7 +58,12 @@ describe("one verdict: the worst of every check", () => {
   // Every check passes comfortably in this plan: worked example at a low 3 MPa peak pressure, a 1.0 target,
   // and an iron-like 900 MPa bearing limit under the washer.
   const base = workedExample();
-  const ok: PlanInput = { ...base, targetMargin: 1, firing: { mode: "entered", peakPressureMpa: 3 }, head: { ...base.head, limitingSurfacePressureMpa: 900 } };
+  const ok: PlanInput = {
+    ...base,
+    targetMargin: 1,
+    firing: { mode: "entered", peakPressureMpa: 3 },
+    head: { ...base.head, limitingSurfacePressureMpa: 900 },
+  };
   const withYield = (yieldMpa: number): PlanInput => ({ ...ok, fastener: { ...ok.fastener, yieldMpa } });
   const u0 = evaluatePlan(ok).studStress.atMax.utilization;
 

@@ -25,9 +25,18 @@ function integratedRingDeflection(E: number, t: number, a: number, b: number, P:
       for (let i = 0; i < steps; i++) {
         const r = r0 + i * h;
         const k1 = f(r, s);
-        const k2 = f(r + h / 2, s.map((x, j) => x + (h / 2) * k1[j]));
-        const k3 = f(r + h / 2, s.map((x, j) => x + (h / 2) * k2[j]));
-        const k4 = f(r + h, s.map((x, j) => x + h * k3[j]));
+        const k2 = f(
+          r + h / 2,
+          s.map((x, j) => x + (h / 2) * k1[j]),
+        );
+        const k3 = f(
+          r + h / 2,
+          s.map((x, j) => x + (h / 2) * k2[j]),
+        );
+        const k4 = f(
+          r + h,
+          s.map((x, j) => x + h * k3[j]),
+        );
         s = s.map((x, j) => x + (h / 6) * (k1[j] + 2 * k2[j] + 2 * k3[j] + k4[j]));
       }
     };

@@ -28,15 +28,19 @@ const SWEEP_RUNS = { numRuns: 500 };
 vi.setConfig({ testTimeout: 120_000 });
 const dbl = (min: number, max: number) => fc.double({ min, max, noNaN: true, noDefaultInfinity: true });
 const geometry = fc.record({ pitchMm: dbl(0.3, 4), pitchDiameterMm: dbl(5, 40), bearingDiameterMm: dbl(8, 60) });
-const atTorque = (p: PlanInput, torqueNm: number): PlanInput => ({ ...p, tightening: { ...p.tightening, target: { mode: "torque", torqueNm } } });
+const atTorque = (p: PlanInput, torqueNm: number): PlanInput => ({
+  ...p,
+  tightening: { ...p.tightening, target: { mode: "torque", torqueNm } },
+});
 const withProtrusion = (p: PlanInput, mm: number): PlanInput => ({ ...p, sealing: { ...p.sealing, sleeveProtrusionMm: mm } });
 
 /** Slope bound of the seal-line load against the gap: the seal paths and the body as springs in series. */
 function gapSlopeBound(p: Prepared): number {
   let seal = 0;
   let body = 0;
-  for (const e of p.paths.elements) if (e.seal) seal += e.kNPerMm;
-  else body += e.kNPerMm;
+  for (const e of p.paths.elements)
+    if (e.seal) seal += e.kNPerMm;
+    else body += e.kNPerMm;
   return (seal * body) / (seal + body);
 }
 
@@ -88,7 +92,12 @@ describe("sleeve protrusion 0.05–0.15 mm (the shop's usual range, common pract
               const dFired = fired[b] - prev.fired[b];
               // one expect per failure only: thousands of passing expects per run would dominate the time
               if (dCold < -tol || dCold > step + tol || dFired < -tol || dFired > step + tol)
-                expect({ bore: b + 1, protrusionMm: g, dCold, dFired }).toEqual({ bore: b + 1, protrusionMm: g, dCold: `0 … ${step}`, dFired: `0 … ${step}` });
+                expect({ bore: b + 1, protrusionMm: g, dCold, dFired }).toEqual({
+                  bore: b + 1,
+                  protrusionMm: g,
+                  dCold: `0 … ${step}`,
+                  dFired: `0 … ${step}`,
+                });
             }
           }
           prev = { cold, fired };
@@ -112,7 +121,10 @@ describe("sleeve protrusion 0.05–0.15 mm (the shop's usual range, common pract
       const p = prepare(withProtrusion(p0, g));
       for (let b = 0; b < p.cylinders; b++) {
         const s = loadBore(p.paths, p.boreStudWeight[b] * F);
-        expect(s.bodyN, `bore ${b + 1} at ${g.toFixed(2)} mm: clamp ${s.clampN.toFixed(0)} N, line ${s.lineN.toFixed(0)} N`).toBeGreaterThan(0);
+        expect(
+          s.bodyN,
+          `bore ${b + 1} at ${g.toFixed(2)} mm: clamp ${s.clampN.toFixed(0)} N, line ${s.lineN.toFixed(0)} N`,
+        ).toBeGreaterThan(0);
       }
     }
   });
@@ -120,22 +132,35 @@ describe("sleeve protrusion 0.05–0.15 mm (the shop's usual range, common pract
   it("demo-like plans at ±15 % torque and ±0.02 friction: the seal-line load still rises with protrusion until the line is at its limit or the body has lifted", () => {
     // 200 runs: each run prepares 11 plans.
     fc.assert(
-      fc.property(fc.constantFrom(demoFourRaw, demoV8Raw, demoFourNowRaw, demoV8NowRaw), dbl(0.85, 1.15), dbl(-0.02, 0.02), (raw, tq, dmu) => {
-        const base = PlanInputSchema.parse(raw());
-        const t = base.tightening;
-        const torqueNm = (t.target.mode === "torque" ? t.target.torqueNm : Number.NaN) * tq;
-        const p0: PlanInput = { ...base, tightening: { ...t, target: { mode: "torque", torqueNm }, threadFriction: t.threadFriction + dmu, bearingFriction: t.bearingFriction + dmu } };
-        const F = targetTorqueAndPreload(prepare(p0)).preloadN;
-        let prev = -Infinity;
-        for (let i = 0; i <= 10; i++) {
-          const p = prepare(withProtrusion(p0, 0.05 + i * 0.01));
-          const s = loadBore(p.paths, p.boreStudWeight[1] * F);
-          expect(s.lineN).toBeGreaterThanOrEqual(prev - 1e-9 * s.clampN);
-          // strictly rising while the body still touches and the line is elastic
-          if (prev > -Infinity && s.bodyN > 0 && !s.lineAtLimit) expect(s.lineN).toBeGreaterThan(prev);
-          prev = s.lineN;
-        }
-      }),
+      fc.property(
+        fc.constantFrom(demoFourRaw, demoV8Raw, demoFourNowRaw, demoV8NowRaw),
+        dbl(0.85, 1.15),
+        dbl(-0.02, 0.02),
+        (raw, tq, dmu) => {
+          const base = PlanInputSchema.parse(raw());
+          const t = base.tightening;
+          const torqueNm = (t.target.mode === "torque" ? t.target.torqueNm : Number.NaN) * tq;
+          const p0: PlanInput = {
+            ...base,
+            tightening: {
+              ...t,
+              target: { mode: "torque", torqueNm },
+              threadFriction: t.threadFriction + dmu,
+              bearingFriction: t.bearingFriction + dmu,
+            },
+          };
+          const F = targetTorqueAndPreload(prepare(p0)).preloadN;
+          let prev = -Infinity;
+          for (let i = 0; i <= 10; i++) {
+            const p = prepare(withProtrusion(p0, 0.05 + i * 0.01));
+            const s = loadBore(p.paths, p.boreStudWeight[1] * F);
+            expect(s.lineN).toBeGreaterThanOrEqual(prev - 1e-9 * s.clampN);
+            // strictly rising while the body still touches and the line is elastic
+            if (prev > -Infinity && s.bodyN > 0 && !s.lineAtLimit) expect(s.lineN).toBeGreaterThan(prev);
+            prev = s.lineN;
+          }
+        },
+      ),
       { numRuns: 200 },
     );
   });
@@ -158,7 +183,10 @@ describe("head squeeze and seal gained per +10 % torque", () => {
           const w = q.boreStudWeight[bore];
           const a = bandSeal(q, preloadFromTorque(T, q.torqueGeometry, q.friction)).atMin[bore];
           const b = bandSeal(q, preloadFromTorque(1.1 * T, q.torqueGeometry, q.friction)).atMin[bore];
-          const clampGain = w * (preloadBand(preloadFromTorque(1.1 * T, q.torqueGeometry, q.friction), q.tighteningFactor).minN - preloadBand(preloadFromTorque(T, q.torqueGeometry, q.friction), q.tighteningFactor).minN);
+          const clampGain =
+            w *
+            (preloadBand(preloadFromTorque(1.1 * T, q.torqueGeometry, q.friction), q.tighteningFactor).minN -
+              preloadBand(preloadFromTorque(T, q.torqueGeometry, q.friction), q.tighteningFactor).minN);
           expect((b.fired.lineN - a.fired.lineN) / clampGain).toBeLessThan(p.model.squeezeGainThreshold + 1e-9);
           // and the seal line really is at its limit
           expect(a.cold.lineAtLimit || a.hot.lineAtLimit).toBe(true);
@@ -197,24 +225,59 @@ function residualJump(f: (x: number) => number, x0: number, x1: number, halvings
 
 type Edit = { name: string; apply: (p: PlanInput, x: number) => PlanInput; base: (p: PlanInput) => number };
 const EDITS: Edit[] = [
-  { name: "gasket body modulus", base: (p) => p.gasket.bodyModulusMpa, apply: (p, x) => ({ ...p, gasket: { ...p.gasket, bodyModulusMpa: x } }) },
+  {
+    name: "gasket body modulus",
+    base: (p) => p.gasket.bodyModulusMpa,
+    apply: (p, x) => ({ ...p, gasket: { ...p.gasket, bodyModulusMpa: x } }),
+  },
   { name: "ring modulus", base: (p) => p.gasket.ringModulusMpa, apply: (p, x) => ({ ...p, gasket: { ...p.gasket, ringModulusMpa: x } }) },
-  { name: "gasket thickness", base: (p) => p.gasket.compressedThicknessMm, apply: (p, x) => ({ ...p, gasket: { ...p.gasket, compressedThicknessMm: x } }) },
-  { name: "body area", base: (p) => p.gasket.bodyAreaPerBoreMm2, apply: (p, x) => ({ ...p, gasket: { ...p.gasket, bodyAreaPerBoreMm2: x } }) },
+  {
+    name: "gasket thickness",
+    base: (p) => p.gasket.compressedThicknessMm,
+    apply: (p, x) => ({ ...p, gasket: { ...p.gasket, compressedThicknessMm: x } }),
+  },
+  {
+    name: "body area",
+    base: (p) => p.gasket.bodyAreaPerBoreMm2,
+    apply: (p, x) => ({ ...p, gasket: { ...p.gasket, bodyAreaPerBoreMm2: x } }),
+  },
   { name: "head modulus", base: (p) => p.head.modulusMpa, apply: (p, x) => ({ ...p, head: { ...p.head, modulusMpa: x } }) },
   { name: "head thickness", base: (p) => p.head.thicknessAtStudMm, apply: (p, x) => ({ ...p, head: { ...p.head, thicknessAtStudMm: x } }) },
-  { name: "head limiting pressure", base: (p) => p.head.limitingSurfacePressureMpa, apply: (p, x) => ({ ...p, head: { ...p.head, limitingSurfacePressureMpa: x } }) },
+  {
+    name: "head limiting pressure",
+    base: (p) => p.head.limitingSurfacePressureMpa,
+    apply: (p, x) => ({ ...p, head: { ...p.head, limitingSurfacePressureMpa: x } }),
+  },
   { name: "block modulus", base: (p) => p.block.modulusMpa, apply: (p, x) => ({ ...p, block: { ...p.block, modulusMpa: x } }) },
   { name: "stud yield", base: (p) => p.fastener.yieldMpa, apply: (p, x) => ({ ...p, fastener: { ...p.fastener, yieldMpa: x } }) },
   { name: "washer OD", base: (p) => p.fastener.washerOdMm, apply: (p, x) => ({ ...p, fastener: { ...p.fastener, washerOdMm: x } }) },
-  { name: "thread friction", base: (p) => p.tightening.threadFriction, apply: (p, x) => ({ ...p, tightening: { ...p.tightening, threadFriction: x } }) },
-  { name: "bearing friction", base: (p) => p.tightening.bearingFriction, apply: (p, x) => ({ ...p, tightening: { ...p.tightening, bearingFriction: x } }) },
-  { name: "head temperature", base: (p) => p.temperatures.headC + 300, apply: (p, x) => ({ ...p, temperatures: { ...p.temperatures, headC: x - 300 } }) },
-  { name: "protrusion", base: (p) => p.sealing.sleeveProtrusionMm + 1, apply: (p, x) => ({ ...p, sealing: { ...p.sealing, sleeveProtrusionMm: x - 1 } }) },
+  {
+    name: "thread friction",
+    base: (p) => p.tightening.threadFriction,
+    apply: (p, x) => ({ ...p, tightening: { ...p.tightening, threadFriction: x } }),
+  },
+  {
+    name: "bearing friction",
+    base: (p) => p.tightening.bearingFriction,
+    apply: (p, x) => ({ ...p, tightening: { ...p.tightening, bearingFriction: x } }),
+  },
+  {
+    name: "head temperature",
+    base: (p) => p.temperatures.headC + 300,
+    apply: (p, x) => ({ ...p, temperatures: { ...p.temperatures, headC: x - 300 } }),
+  },
+  {
+    name: "protrusion",
+    base: (p) => p.sealing.sleeveProtrusionMm + 1,
+    apply: (p, x) => ({ ...p, sealing: { ...p.sealing, sleeveProtrusionMm: x - 1 } }),
+  },
   {
     name: "peak pressure",
     base: (p) => (p.firing.mode === "entered" ? p.firing.peakPressureMpa : p.firing.manifoldAbsKpa),
-    apply: (p, x) => ({ ...p, firing: p.firing.mode === "entered" ? { ...p.firing, peakPressureMpa: x } : { ...p.firing, manifoldAbsKpa: x } }),
+    apply: (p, x) => ({
+      ...p,
+      firing: p.firing.mode === "entered" ? { ...p.firing, peakPressureMpa: x } : { ...p.firing, manifoldAbsKpa: x },
+    }),
   },
 ];
 

@@ -68,18 +68,28 @@ describe("§1 unified threads through the model (ASME B1.1)", () => {
     { size: "7/16-14 UNC", dIn: 0.4375, tpi: 14, tableIn2: 0.1063 },
     { size: "7/16-20 UNF", dIn: 0.4375, tpi: 20, tableIn2: 0.1187 },
     { size: "3/8-16 UNC", dIn: 0.375, tpi: 16, tableIn2: 0.0775 },
-  ])("$size: threadGeometry(d, P, \"unified\") gives the B1.1 table's $tableIn2 in² (from memory), ±0.0002 in²", ({ dIn, tpi, tableIn2 }) => {
-    const d = dIn * IN_TO_MM;
-    const P = IN_TO_MM / tpi;
-    const t = threadGeometry(d, P, "unified");
-    expect(Math.abs(t.stressAreaMm2 / IN2 - tableIn2)).toBeLessThanOrEqual(0.0002);
-    // and the size is recognised as unified, so a plan without a thread form gets B1.1's area
-    expect(looksUnified(d, P)).toBe(true);
-    // the ISO form (d2 + d3)/2 = d − 0.9382·P would give 0.6–1 % more area for the same size: the switch matters
-    expect(threadGeometry(d, P, "iso").stressAreaMm2 / t.stressAreaMm2).toBeGreaterThan(1.005);
-  });
+  ])(
+    '$size: threadGeometry(d, P, "unified") gives the B1.1 table\'s $tableIn2 in² (from memory), ±0.0002 in²',
+    ({ dIn, tpi, tableIn2 }) => {
+      const d = dIn * IN_TO_MM;
+      const P = IN_TO_MM / tpi;
+      const t = threadGeometry(d, P, "unified");
+      expect(Math.abs(t.stressAreaMm2 / IN2 - tableIn2)).toBeLessThanOrEqual(0.0002);
+      // and the size is recognised as unified, so a plan without a thread form gets B1.1's area
+      expect(looksUnified(d, P)).toBe(true);
+      // the ISO form (d2 + d3)/2 = d − 0.9382·P would give 0.6–1 % more area for the same size: the switch matters
+      expect(threadGeometry(d, P, "iso").stressAreaMm2 / t.stressAreaMm2).toBeGreaterThan(1.005);
+    },
+  );
   it("metric sizes are not taken for unified ones: M12×1.5, M12×1.25, M14×1.5, M10×1.25, M16×1.5", () => {
-    for (const [d, P] of [[12, 1.5], [12, 1.25], [14, 1.5], [10, 1.25], [16, 1.5]]) expect(looksUnified(d, P), `M${d}×${P}`).toBe(false);
+    for (const [d, P] of [
+      [12, 1.5],
+      [12, 1.25],
+      [14, 1.5],
+      [10, 1.25],
+      [16, 1.5],
+    ])
+      expect(looksUnified(d, P), `M${d}×${P}`).toBe(false);
   });
   it("a plan with 1/2-20 studs and no thread form is evaluated with the B1.1 area (0.1599 in², ±0.0002)", () => {
     const p = prepare(PlanInputSchema.parse(v8Raw()));
@@ -88,7 +98,6 @@ describe("§1 unified threads through the model (ASME B1.1)", () => {
     expect(prepare(workedExample()).threadForm).toBe("iso"); // M14×1.5
   });
 });
-
 
 describe("§2 torque to preload", () => {
   // 1/2-20, μG = μK = 0.12, dw = 0.75 in, dh = 0.53 in → T/F = 0.07875 in, K 0.1575 (computed, ISO 16047 form)
@@ -185,14 +194,17 @@ describe("§2 VDI 2230 tightening table: metric fine threads, hex-head screws, �
     expect(relErr(fm / 1000, r.fmKn)).toBeLessThan(0.015);
   });
 
-  it.each(rows)("$size $cls: the table itself follows VDI's FMzul = As·ν·Rp0.2/√(1 + 3·[3/2·(d2/d0)·(P/(π·d2) + 1.155·μG)]²), ±0.5 %", (r) => {
-    // VDI 2230 Part 1 FMzul with the plastic torsion modulus π·d0³/12, hence 3/2 where the elastic π·d0³/16
-    // gives 2 (from memory). This checks the transcription of the table and names the formula it follows.
-    const t = threadGeometry(r.d, r.P);
-    const k = 1.5 * (t.pitchDiameterMm / t.stressDiameterMm) * (r.P / (Math.PI * t.pitchDiameterMm) + 1.155 * mu.thread);
-    const fm = (t.stressAreaMm2 * 0.9 * r.rp) / Math.sqrt(1 + 3 * k * k);
-    expect(relErr(fm / 1000, r.fmKn)).toBeLessThan(0.005);
-  });
+  it.each(rows)(
+    "$size $cls: the table itself follows VDI's FMzul = As·ν·Rp0.2/√(1 + 3·[3/2·(d2/d0)·(P/(π·d2) + 1.155·μG)]²), ±0.5 %",
+    (r) => {
+      // VDI 2230 Part 1 FMzul with the plastic torsion modulus π·d0³/12, hence 3/2 where the elastic π·d0³/16
+      // gives 2 (from memory). This checks the transcription of the table and names the formula it follows.
+      const t = threadGeometry(r.d, r.P);
+      const k = 1.5 * (t.pitchDiameterMm / t.stressDiameterMm) * (r.P / (Math.PI * t.pitchDiameterMm) + 1.155 * mu.thread);
+      const fm = (t.stressAreaMm2 * 0.9 * r.rp) / Math.sqrt(1 + 3 * k * k);
+      expect(relErr(fm / 1000, r.fmKn)).toBeLessThan(0.005);
+    },
+  );
 
   // Tolerance 3 %: dw,min and the ISO 273 holes are recalled, not read; the table rounds MA to 1 N·m and
   // uses VDI's rounded 0.16·P and 0.58·d2 (0.5 % apart from the exact long form, see above).
@@ -202,7 +214,6 @@ describe("§2 VDI 2230 tightening table: metric fine threads, hex-head screws, �
     expect(relErr(torqueForPreload(r.fmKn * 1000, g, mu), r.maNm)).toBeLessThan(0.03);
   });
 });
-
 
 describe("§3 stud stiffness", () => {
   it("Shigley 8th ed. problem 8-20: Ad 113, At 84.3, E 207 GPa, lt 15, ld 30 → 466.8 MN/m, ±0.05 %", () => {
@@ -296,7 +307,6 @@ describe("§4 load introduced inside the joint (VDI 2230 Φn; Shigley's joint di
     expect(p.reliefPerBoreN).toBeGreaterThan((1 - p.C) * p.requirement.pressureForceN);
   });
 });
-
 
 describe("§5 settling and heat", () => {
   it("embedding amounts (VDI 2230 table, from memory): Rz 10–40, 2 threads + 1 bearing + 2 inner = 13 µm", () => {

@@ -24,35 +24,71 @@ describe("PlanInputSchema", () => {
   });
   it.each([
     ["thread pitch ≥ diameter", (r: Raw) => (r.fastener.pitchMm = 14), "Thread pitch must be smaller than the diameter"],
-    ["reduced shank wider than the thread", (r: Raw) => ((r.fastener.reducedShankDiameterMm = 14.5), (r.fastener.reducedShankLengthMm = 10)), "Reduced shank must be narrower than the thread"],
-    ["reduced shank length without diameter", (r: Raw) => (r.fastener.reducedShankLengthMm = 10), "Give the reduced shank diameter, or set its length to zero"],
+    [
+      "reduced shank wider than the thread",
+      (r: Raw) => ((r.fastener.reducedShankDiameterMm = 14.5), (r.fastener.reducedShankLengthMm = 10)),
+      "Reduced shank must be narrower than the thread",
+    ],
+    [
+      "reduced shank length without diameter",
+      (r: Raw) => (r.fastener.reducedShankLengthMm = 10),
+      "Give the reduced shank diameter, or set its length to zero",
+    ],
     ["negative bore", (r: Raw) => (r.engine.boreMm = -96), "Bore must be greater than zero"],
     ["zero gasket thickness", (r: Raw) => (r.gasket.compressedThicknessMm = 0), "Gasket compressed thickness must be greater than zero"],
     ["NaN torque", (r: Raw) => (r.tightening.target = { mode: "torque", torqueNm: Number.NaN }), "Torque must be a finite number"],
     ["Infinity modulus", (r: Raw) => (r.head.modulusMpa = Number.POSITIVE_INFINITY), "Head modulus must be a finite number"],
     ["washer hole smaller than the stud", (r: Raw) => (r.fastener.washerHoleMm = 13), "Washer hole must be at least the stud diameter"],
     ["washer OD not above its hole", (r: Raw) => (r.fastener.washerOdMm = 15), "Washer outer diameter must be larger than its hole"],
-    ["seal band inside the bore", (r: Raw) => (r.gasket.sealDiameterMm = 96.5), "The seal band (diameter 96.5 mm, width 1.5 mm) must sit outside the 96 mm bore"],
-    ["free thread longer than the stack", (r: Raw) => (r.fastener.freeThreadLengthMm = 100), "Reduced shank and free thread add up to 100 mm, longer than the clamped stack (91.3 mm)"],
-    ["odd V", (r: Raw) => ((r.engine.layout = "V"), (r.engine.cylinders = 5), (r.studs = defaultStudPattern("inline", 5))), "A V engine needs an even number of cylinders"],
+    [
+      "seal band inside the bore",
+      (r: Raw) => (r.gasket.sealDiameterMm = 96.5),
+      "The seal band (diameter 96.5 mm, width 1.5 mm) must sit outside the 96 mm bore",
+    ],
+    [
+      "free thread longer than the stack",
+      (r: Raw) => (r.fastener.freeThreadLengthMm = 100),
+      "Reduced shank and free thread add up to 100 mm, longer than the clamped stack (91.3 mm)",
+    ],
+    [
+      "odd V",
+      (r: Raw) => ((r.engine.layout = "V"), (r.engine.cylinders = 5), (r.studs = defaultStudPattern("inline", 5))),
+      "A V engine needs an even number of cylinders",
+    ],
     ["friction out of range", (r: Raw) => (r.tightening.threadFriction = 0.9), "Thread friction must be at most 0.6"],
   ])("rejects %s", (_name, edit, message) => {
     expect(messages(edit)).toContain(message);
   });
   it("stud shares must add up to 1, with the stud named", () => {
     const m = messages((r) => {
-      r.studs[2].serves = [{ cylinder: 2, share: 0.5 }, { cylinder: 3, share: 0.3 }];
+      r.studs[2].serves = [
+        { cylinder: 2, share: 0.5 },
+        { cylinder: 3, share: 0.3 },
+      ];
     });
     expect(m).toContain("Stud shares for stud A3 add up to 0.8; they must add up to 1");
     const unlabeled = messages((r) => {
       r.studs = r.studs.map((s) => ({ serves: s.serves }));
-      r.studs[2].serves = [{ cylinder: 2, share: 0.5 }, { cylinder: 3, share: 0.3 }];
+      r.studs[2].serves = [
+        { cylinder: 2, share: 0.5 },
+        { cylinder: 3, share: 0.3 },
+      ];
     });
     expect(unlabeled).toContain("Stud shares for stud 3 add up to 0.8; they must add up to 1");
   });
   it("stud pointing at a cylinder the engine does not have, duplicates, and unserved cylinders", () => {
-    expect(messages((r) => (r.studs[0].serves = [{ cylinder: 9, share: 1 }]))).toContain("Stud A1 serves cylinder 9, but the engine has 4 cylinders");
-    expect(messages((r) => (r.studs[1].serves = [{ cylinder: 1, share: 0.5 }, { cylinder: 1, share: 0.5 }]))).toContain("Stud A2 lists cylinder 1 twice");
+    expect(messages((r) => (r.studs[0].serves = [{ cylinder: 9, share: 1 }]))).toContain(
+      "Stud A1 serves cylinder 9, but the engine has 4 cylinders",
+    );
+    expect(
+      messages(
+        (r) =>
+          (r.studs[1].serves = [
+            { cylinder: 1, share: 0.5 },
+            { cylinder: 1, share: 0.5 },
+          ]),
+      ),
+    ).toContain("Stud A2 lists cylinder 1 twice");
     expect(messages((r) => (r.engine.cylinders = 5))).toContain("No stud serves cylinder 5");
   });
   it("errors carry the field path for the form", () => {
@@ -69,7 +105,10 @@ describe("defaultStudPattern", () => {
     const s = defaultStudPattern("inline", 4);
     expect(s).toHaveLength(10);
     expect(s[0].serves).toEqual([{ cylinder: 1, share: 1 }]);
-    expect(s[1].serves).toEqual([{ cylinder: 1, share: 0.5 }, { cylinder: 2, share: 0.5 }]);
+    expect(s[1].serves).toEqual([
+      { cylinder: 1, share: 0.5 },
+      { cylinder: 2, share: 0.5 },
+    ]);
     expect(s[4].serves).toEqual([{ cylinder: 4, share: 1 }]);
     // every stud's shares add to 1, and per bore: ends 1 + ½ on each side = 3, middles 4 × ½ = 2
     const per = [0, 0, 0, 0];
@@ -147,7 +186,9 @@ describe("parsePlan on runaway sizes (fuzz)", () => {
   });
   it("within every size limit, 80 studs × 16 bad serves: the cross-field messages stop at the cap", () => {
     // 80 × 16 wrong cylinder numbers would be 1280 messages (plus duplicates and share sums) without the cap
-    const errors = parse((r) => (r.studs = Array.from({ length: 80 }, () => ({ serves: Array.from({ length: 16 }, () => ({ cylinder: 99, share: 0.5 })) }))));
+    const errors = parse(
+      (r) => (r.studs = Array.from({ length: 80 }, () => ({ serves: Array.from({ length: 16 }, () => ({ cylinder: 99, share: 0.5 })) }))),
+    );
     expect(MAX_PLAN_ISSUES).toBe(50);
     expect(errors.length).toBeLessThanOrEqual(50);
     expect(errors[0].message).toBe("Stud 1 serves cylinder 99, but the engine has 4 cylinders");

@@ -9,7 +9,9 @@ import { PlanInputSchema } from "../../../../app/lib/clamp";
 
 describe("scatter-run cache", () => {
   it("keys equal inputs alike whatever their key order, and different inputs apart", () => {
-    expect(canonicalJson({ b: 1, a: { d: [1, { y: 2, x: 1 }], c: "s" } })).toBe(canonicalJson({ a: { c: "s", d: [1, { x: 1, y: 2 }] }, b: 1 }));
+    expect(canonicalJson({ b: 1, a: { d: [1, { y: 2, x: 1 }], c: "s" } })).toBe(
+      canonicalJson({ a: { c: "s", d: [1, { x: 1, y: 2 }] }, b: 1 }),
+    );
     expect(canonicalJson({ a: 1 })).not.toBe(canonicalJson({ a: 2 }));
     expect(canonicalJson({ a: undefined, b: 1 })).toBe(canonicalJson({ b: 1 }));
   });

@@ -28,7 +28,11 @@ describe("washerBearing", () => {
     expect(b.capacityN).toBe(b.washerCapacityN);
   });
   it("no recorded hardness reads as hardened (the records before hardness was kept)", () => {
-    expect(washerBearing(base, HEAD_MPA)).toEqual({ ...washerBearing({ ...base, washerHardnessHv: HARDENED_WASHER_HV }, HEAD_MPA), washerCapacityN: Infinity, capacityN: washerBearing(base, HEAD_MPA).headCapacityN });
+    expect(washerBearing(base, HEAD_MPA)).toEqual({
+      ...washerBearing({ ...base, washerHardnessHv: HARDENED_WASHER_HV }, HEAD_MPA),
+      washerCapacityN: Infinity,
+      capacityN: washerBearing(base, HEAD_MPA).headCapacityN,
+    });
   });
   it("trend: a bigger washer, or a harder one, lets the head carry more preload", () => {
     const cap = (over: Partial<typeof base> & { washerHardnessHv?: number }) => washerBearing({ ...base, ...over }, HEAD_MPA).capacityN;
@@ -41,7 +45,8 @@ describe("washerBearing", () => {
 describe("the washer in the clamp model", () => {
   it("a soft washer lowers the bearing ceiling and raises the bearing utilization; a larger hardened washer lifts them", () => {
     const raw = demoFourRaw();
-    const withWasher = (od: number, hv: number) => PlanInputSchema.parse({ ...raw, fastener: { ...raw.fastener, washerOdMm: od, washerHardnessHv: hv } });
+    const withWasher = (od: number, hv: number) =>
+      PlanInputSchema.parse({ ...raw, fastener: { ...raw.fastener, washerOdMm: od, washerHardnessHv: hv } });
     const hard = withWasher(raw.fastener.washerOdMm, 400);
     const soft = withWasher(raw.fastener.washerOdMm, 150);
     const big = withWasher(raw.fastener.washerOdMm + 4, 400);

@@ -38,7 +38,13 @@ describe("schemas answer huge counts in bounded time and messages", () => {
       fc.property(
         huge,
         fc.constantFrom("inline", "V", "W"),
-        fc.array(fc.array(fc.record({ cylinder: fc.oneof(huge, fc.integer({ min: 1, max: 16 })), share: fc.double({ min: 0, max: 2, noNaN: true }) }), { minLength: 1, maxLength: 3 }), { minLength: 0, maxLength: 3 }),
+        fc.array(
+          fc.array(
+            fc.record({ cylinder: fc.oneof(huge, fc.integer({ min: 1, max: 16 })), share: fc.double({ min: 0, max: 2, noNaN: true }) }),
+            { minLength: 1, maxLength: 3 },
+          ),
+          { minLength: 0, maxLength: 3 },
+        ),
         (cylinders, layout, serves) => {
           const m = measure(EngineSchema, { name: "x", cylinders, layout, studs: serves.map((s) => ({ serves: s })) });
           expect(m.issues).toBeLessThanOrEqual(ISSUES_LIMIT);
@@ -65,16 +71,50 @@ describe("schemas answer huge counts in bounded time and messages", () => {
   it("library schemas: huge numbers in every field", () => {
     const fields = {
       materials: ["modulusMpa", "yieldMpa", "expansionUmPerMC", "limitingSurfacePressureMpa"],
-      fasteners: ["diameterMm", "pitchMm", "reducedShankDiameterMm", "reducedShankLengthMm", "freeThreadLengthMm", "engagementMm", "materialId", "washerOdMm", "washerHoleMm", "washerThicknessMm", "makerTorqueNm", "makerStretchMm", "threadFriction", "bearingFriction"],
-      gaskets: ["compressedThicknessMm", "boreMm", "sealDiameterMm", "ringWidthMm", "ringModulusMpa", "sealLineYieldMpa", "bodyModulusMpa", "bodyAreaPerBoreMm2", "expansionUmPerMC", "m", "yMpa", "relaxationPercent", "finishMinRaUm", "finishMaxRaUm"],
+      fasteners: [
+        "diameterMm",
+        "pitchMm",
+        "reducedShankDiameterMm",
+        "reducedShankLengthMm",
+        "freeThreadLengthMm",
+        "engagementMm",
+        "materialId",
+        "washerOdMm",
+        "washerHoleMm",
+        "washerThicknessMm",
+        "makerTorqueNm",
+        "makerStretchMm",
+        "threadFriction",
+        "bearingFriction",
+      ],
+      gaskets: [
+        "compressedThicknessMm",
+        "boreMm",
+        "sealDiameterMm",
+        "ringWidthMm",
+        "ringModulusMpa",
+        "sealLineYieldMpa",
+        "bodyModulusMpa",
+        "bodyAreaPerBoreMm2",
+        "expansionUmPerMC",
+        "m",
+        "yMpa",
+        "relaxationPercent",
+        "finishMinRaUm",
+        "finishMaxRaUm",
+      ],
     };
     const schemas = { materials: MaterialSchema, fasteners: FastenerSchema, gaskets: GasketSchema };
     fc.assert(
-      fc.property(fc.constantFrom("materials", "fasteners", "gaskets") as fc.Arbitrary<keyof typeof schemas>, fc.array(huge, { minLength: 14, maxLength: 14 }), (kind, values) => {
-        const record = Object.fromEntries(fields[kind].map((f, i) => [f, values[i]]));
-        const m = measure(schemas[kind], { name: "x", ...record });
-        expect(m.issues).toBeLessThanOrEqual(ISSUES_LIMIT);
-      }),
+      fc.property(
+        fc.constantFrom("materials", "fasteners", "gaskets") as fc.Arbitrary<keyof typeof schemas>,
+        fc.array(huge, { minLength: 14, maxLength: 14 }),
+        (kind, values) => {
+          const record = Object.fromEntries(fields[kind].map((f, i) => [f, values[i]]));
+          const m = measure(schemas[kind], { name: "x", ...record });
+          expect(m.issues).toBeLessThanOrEqual(ISSUES_LIMIT);
+        },
+      ),
       { numRuns: 300 },
     );
   });

@@ -22,7 +22,9 @@ describe("threadLabel", () => {
 describe("sourceLine", () => {
   it("names the handbook source, the editor, or the person who entered the row", () => {
     expect(sourceLine({ source: "Handbook table", enteredById: null, enteredByName: null })).toBe("Handbook table");
-    expect(sourceLine({ source: "Handbook table", enteredById: 3, enteredByName: "Demo Builder" })).toBe("Handbook table · edited by Demo Builder");
+    expect(sourceLine({ source: "Handbook table", enteredById: 3, enteredByName: "Demo Builder" })).toBe(
+      "Handbook table · edited by Demo Builder",
+    );
     expect(sourceLine({ source: null, enteredById: 3, enteredByName: null })).toBe("entered by a former member");
   });
 });

@@ -5,14 +5,22 @@ import { buildSheetMail, INVITE_DAYS, inviteMail, RESET_MINUTES, resetMail } fro
 describe("the mail layout", () => {
   it("escapes everything a shop or person typed", () => {
     expect(escapeHtml(`<b>"Tom's" & co</b>`)).toBe("&lt;b&gt;&quot;Tom&#39;s&quot; &amp; co&lt;/b&gt;");
-    const html = mailHtml("Hi <script>", [{ p: "<img src=x onerror=alert(1)>" }, { button: { href: 'https://x.example/a"b', label: "Go" } }], "footer");
+    const html = mailHtml(
+      "Hi <script>",
+      [{ p: "<img src=x onerror=alert(1)>" }, { button: { href: 'https://x.example/a"b', label: "Go" } }],
+      "footer",
+    );
     expect(html).not.toContain("<script>");
     expect(html).not.toContain("<img");
     expect(html).toContain('href="https://x.example/a&quot;b"');
   });
 
   it("gives a plain-text part with the same words and the link written out", () => {
-    const text = mailText("Title", [{ p: "One." }, { rows: [["Gasket", "MLS"]] }, { button: { href: "https://x.example/l", label: "Open" } }], "Why you got this.");
+    const text = mailText(
+      "Title",
+      [{ p: "One." }, { rows: [["Gasket", "MLS"]] }, { button: { href: "https://x.example/l", label: "Open" } }],
+      "Why you got this.",
+    );
     expect(text).toBe("Title\n=====\n\nOne.\n\nGasket: MLS\n\nOpen:\nhttps://x.example/l\n\n-- \nWhy you got this.\n");
   });
 });
@@ -37,7 +45,17 @@ describe("the messages", () => {
   });
 
   it("the build sheet mail carries the summary rows, the note and the caution", () => {
-    const m = buildSheetMail({ teamName: "Shop", senderName: "Bo", recipientName: "Cy", engineName: "Four", planName: "Copper", verdict: "Holds: fine", rows: [["Weakest seal margin", "1.80"]], link, note: "" });
+    const m = buildSheetMail({
+      teamName: "Shop",
+      senderName: "Bo",
+      recipientName: "Cy",
+      engineName: "Four",
+      planName: "Copper",
+      verdict: "Holds: fine",
+      rows: [["Weakest seal margin", "1.80"]],
+      link,
+      note: "",
+    });
     expect(m.text).toContain("Weakest seal margin: 1.80");
     expect(m.text).toContain("Our estimate: Holds: fine");
     expect(m.text).toContain("makers' torque, lubricant and procedure govern");

@@ -1,7 +1,13 @@
 // The shop's records → the clamp model's input: the assumptions it makes are pinned here.
 import { describe, expect, it } from "vitest";
 import { parsePlan } from "../../../../app/lib/clamp";
-import { assemblePlanInput, engineCompressionRatio, gasketFitProblem, GASKET_BORE_OVERSIZE_LIMIT_MM, type PlanParts } from "../../../../app/lib/plan/assemble";
+import {
+  assemblePlanInput,
+  engineCompressionRatio,
+  gasketFitProblem,
+  GASKET_BORE_OVERSIZE_LIMIT_MM,
+  type PlanParts,
+} from "../../../../app/lib/plan/assemble";
 
 // invented demo figures: a four-cylinder, 86 mm bore, steel ½-20 studs (demo data)
 const steel = { name: "Demo stud steel", modulusMpa: 205_000, yieldMpa: 1379, expansionUmPerMC: 11.7, limitingSurfacePressureMpa: null };
@@ -12,14 +18,63 @@ const studs = Array.from({ length: 10 }, (_, i) => ({ serves: [{ cylinder: Math.
 function parts(over: { runningHeadC?: number; runningBlockC?: number; gasketBoreMm?: number } = {}): PlanParts {
   return {
     engine: {
-      cylinders: 4, layout: "inline", boreMm: 86, strokeMm: 86, headThicknessAtStudMm: 110, blockDepthToThreadMm: 20,
-      sleeveKind: "none", sleeveWallMm: null, sleeveSupportLengthMm: null, sleeveProtrusionMm: 0, studs,
-      targetManifoldKpa: 250, peakPressureMpa: null, pressureRiseFactor: 4, runningHeadC: over.runningHeadC ?? 110,
-      runningBlockC: over.runningBlockC ?? 90, chamberCc: null, pistonVolumeCc: 0, deckClearanceMm: 0,
+      cylinders: 4,
+      layout: "inline",
+      boreMm: 86,
+      strokeMm: 86,
+      headThicknessAtStudMm: 110,
+      blockDepthToThreadMm: 20,
+      sleeveKind: "none",
+      sleeveWallMm: null,
+      sleeveSupportLengthMm: null,
+      sleeveProtrusionMm: 0,
+      studs,
+      targetManifoldKpa: 250,
+      peakPressureMpa: null,
+      pressureRiseFactor: 4,
+      runningHeadC: over.runningHeadC ?? 110,
+      runningBlockC: over.runningBlockC ?? 90,
+      chamberCc: null,
+      pistonVolumeCc: 0,
+      deckClearanceMm: 0,
     },
-    plan: { torqueNm: 150, threadFriction: 0.12, bearingFriction: 0.12, method: "torque-estimated-friction", wireLocation: "none", wireProjectionMm: 0, receiverGrooveDepthMm: 0, sleeveProtrusionMm: null },
-    fastener: { diameterMm: 12.7, pitchMm: 1.27, reducedShankDiameterMm: null, reducedShankLengthMm: 0, freeThreadLengthMm: 20, engagementMm: 22, washerOdMm: 24, washerHoleMm: 13.5, washerThicknessMm: 3, material: steel },
-    gasket: { type: "mls", compressedThicknessMm: 1.0, boreMm: over.gasketBoreMm ?? 87, sealDiameterMm: 90, ringWidthMm: 2, ringModulusMpa: 200_000, sealLineYieldMpa: 600, bodyModulusMpa: 20_000, bodyAreaPerBoreMm2: 3000, expansionUmPerMC: 12, m: 3, yMpa: 80, relaxationPercent: 2 },
+    plan: {
+      torqueNm: 150,
+      threadFriction: 0.12,
+      bearingFriction: 0.12,
+      method: "torque-estimated-friction",
+      wireLocation: "none",
+      wireProjectionMm: 0,
+      receiverGrooveDepthMm: 0,
+      sleeveProtrusionMm: null,
+    },
+    fastener: {
+      diameterMm: 12.7,
+      pitchMm: 1.27,
+      reducedShankDiameterMm: null,
+      reducedShankLengthMm: 0,
+      freeThreadLengthMm: 20,
+      engagementMm: 22,
+      washerOdMm: 24,
+      washerHoleMm: 13.5,
+      washerThicknessMm: 3,
+      material: steel,
+    },
+    gasket: {
+      type: "mls",
+      compressedThicknessMm: 1.0,
+      boreMm: over.gasketBoreMm ?? 87,
+      sealDiameterMm: 90,
+      ringWidthMm: 2,
+      ringModulusMpa: 200_000,
+      sealLineYieldMpa: 600,
+      bodyModulusMpa: 20_000,
+      bodyAreaPerBoreMm2: 3000,
+      expansionUmPerMC: 12,
+      m: 3,
+      yMpa: 80,
+      relaxationPercent: 2,
+    },
     head: alu,
     block: iron,
     sleeve: null,

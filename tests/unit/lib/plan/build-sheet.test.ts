@@ -27,7 +27,9 @@ describe("sheetSummary", () => {
     const rows = Object.fromEntries(sheetSummary(facts, "metric"));
     const e = evaluatePlan(input);
     expect(verdictText(view)).toContain(e.verdict.headline);
-    expect(rows["Weakest seal margin"]).toBe(`${e.weakestMargin.toFixed(2)} on cylinder ${e.weakestCylinder} (target ${view.targetMargin.toFixed(2)})`);
+    expect(rows["Weakest seal margin"]).toBe(
+      `${e.weakestMargin.toFixed(2)} on cylinder ${e.weakestCylinder} (target ${view.targetMargin.toFixed(2)})`,
+    );
     expect(rows["Clamp per cylinder"]!.split(", ")).toHaveLength(e.cylinders.length);
     expect(rows["Maker's torque"]).toBe("not recorded: ask the fastener maker");
     expect(rows["Compression ratio"]).toBe("9.25 : 1");

@@ -34,7 +34,14 @@ const M12: MakerFigures = {
   threadFriction: 0.15,
   bearingFriction: 0.16,
 };
-const NO_MAKER_TORQUE: MakerFigures = { ...M12, id: 3, name: "Unrecorded stud", makerTorqueNm: null, makerStages: null, makerLubricant: "" };
+const NO_MAKER_TORQUE: MakerFigures = {
+  ...M12,
+  id: 3,
+  name: "Unrecorded stud",
+  makerTorqueNm: null,
+  makerStages: null,
+  makerLubricant: "",
+};
 
 describe("wrench settings", () => {
   it("round to whole N·m, or whole lbf·ft", () => {
@@ -86,7 +93,15 @@ describe("following a new fastener", () => {
   };
   it("takes the new maker's torque, stages, lubricant, friction and stretch, in the person's units", () => {
     const metric = followFastener({ ...current, fastenerId: "1" }, HALF_INCH, "metric");
-    expect(metric.values).toMatchObject({ torque: "156", stages: "54, 108, 156", lubricant: "Moly paste", threadFriction: "0.11", bearingFriction: "0.12", targetStretch: "0.178", figuresFastenerId: "1" });
+    expect(metric.values).toMatchObject({
+      torque: "156",
+      stages: "54, 108, 156",
+      lubricant: "Moly paste",
+      threadFriction: "0.11",
+      bearingFriction: "0.12",
+      targetStretch: "0.178",
+      figuresFastenerId: "1",
+    });
     expect(metric.note).toBe("Torque, stages and lubricant now follow the maker's figures for ½-20 test stud; change them if you mean to.");
     const imperial = followFastener({ ...current, fastenerId: "1" }, HALF_INCH, "imperial");
     expect(imperial.values).toMatchObject({ torque: "115", stages: "40, 80, 115", targetStretch: "7" });
@@ -111,7 +126,9 @@ describe("following a new fastener", () => {
 describe("lubricant warning", () => {
   it("is silent for the maker's lubricant however it is spelt, and speaks for another", () => {
     expect(lubricantWarning("moly  PASTE.", HALF_INCH)).toBeNull();
-    expect(lubricantWarning("Engine oil", HALF_INCH)).toMatch(/^This plan's lubricant \(“Engine oil”\) is not the maker's \(“Moly paste”\)/);
+    expect(lubricantWarning("Engine oil", HALF_INCH)).toMatch(
+      /^This plan's lubricant \(“Engine oil”\) is not the maker's \(“Moly paste”\)/,
+    );
     expect(lubricantWarning("", HALF_INCH)).toMatch(/names no lubricant/);
     expect(lubricantWarning("Anything", NO_MAKER_TORQUE)).toBeNull();
   });
@@ -119,7 +136,12 @@ describe("lubricant warning", () => {
 
 describe("a new plan's figures with no plan to start from", () => {
   it("are the maker's at wrench settings, or 100 N·m in three stages", () => {
-    expect(makerPlanFigures(M12, "metric")).toMatchObject({ torqueNm: 150, stagesNm: [50, 100, 150], lubricant: "Engine oil", threadFriction: 0.15 });
+    expect(makerPlanFigures(M12, "metric")).toMatchObject({
+      torqueNm: 150,
+      stagesNm: [50, 100, 150],
+      lubricant: "Engine oil",
+      threadFriction: 0.15,
+    });
     expect(makerPlanFigures(NO_MAKER_TORQUE, "metric")).toMatchObject({ torqueNm: 100, stagesNm: [40, 70, 100] });
   });
 });
@@ -127,7 +149,11 @@ describe("a new plan's figures with no plan to start from", () => {
 describe("stage scaling and the stage-tolerance check (oneway)", () => {
   it("scaled stages keep their proportions and land on wrench settings in the person's units", () => {
     // 1/3 and 2/3 of 200 N·m
-    expect(scaledWrenchStages([50, 100, 150], 150, 200, "metric")).toEqual([wrenchSetting(200 / 3, "metric"), wrenchSetting(400 / 3, "metric"), 200]);
+    expect(scaledWrenchStages([50, 100, 150], 150, 200, "metric")).toEqual([
+      wrenchSetting(200 / 3, "metric"),
+      wrenchSetting(400 / 3, "metric"),
+      200,
+    ]);
     const imperial = scaledWrenchStages([60, 120, 180], 180, 240, "imperial");
     expect(imperial[imperial.length - 1]).toBe(240);
     expect(imperial).toHaveLength(3);

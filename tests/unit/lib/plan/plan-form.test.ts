@@ -43,7 +43,16 @@ describe("decimal commas (the rule in app/lib/units/decimal-comma.ts)", () => {
     expect(splitList("40, 80,115")).toEqual(["40", "80", "115"]);
   });
   it("the plan form takes decimal commas in friction, margin, lengths and stages", () => {
-    const plan = ok({ ...FORM, threadFriction: "0,11", bearingFriction: "0,13", targetMargin: "1,25", torque: "156", stages: "54,5; 108; 156", wireLocation: "block", wireProjection: "0,1" });
+    const plan = ok({
+      ...FORM,
+      threadFriction: "0,11",
+      bearingFriction: "0,13",
+      targetMargin: "1,25",
+      torque: "156",
+      stages: "54,5; 108; 156",
+      wireLocation: "block",
+      wireProjection: "0,1",
+    });
     expect(plan.threadFriction).toBe(0.11);
     expect(plan.bearingFriction).toBe(0.13);
     expect(plan.targetMargin).toBe(1.25);

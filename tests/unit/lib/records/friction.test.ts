@@ -4,11 +4,20 @@ import { learnFriction, preloadShift, type FrictionObservation } from "~/lib/rec
 
 // ½-20 UNF stud with a 19 mm nut face on a 13.5 mm hole (figures of the demo's ½ stud class)
 const thread = threadGeometry(12.7, 25.4 / 20, "unified");
-const geometry: TorqueGeometry = { pitchMm: 25.4 / 20, pitchDiameterMm: thread.pitchDiameterMm, bearingDiameterMm: bearingDiameterMm(19, 13.5) };
+const geometry: TorqueGeometry = {
+  pitchMm: 25.4 / 20,
+  pitchDiameterMm: thread.pitchDiameterMm,
+  bearingDiameterMm: bearingDiameterMm(19, 13.5),
+};
 
 /** Assemblies tightened with friction μ (thread and face alike): the preload the stretch gauge would read. */
 function assemblies(mu: number, torques: number[], noise: number[] = []): FrictionObservation[] {
-  return torques.map((t, i) => ({ torqueNm: t, observedPreloadN: preloadFromTorque(t, geometry, { thread: mu, bearing: mu }) * (1 + (noise[i] ?? 0)), geometry, diameterMm: 12.7 }));
+  return torques.map((t, i) => ({
+    torqueNm: t,
+    observedPreloadN: preloadFromTorque(t, geometry, { thread: mu, bearing: mu }) * (1 + (noise[i] ?? 0)),
+    geometry,
+    diameterMm: 12.7,
+  }));
 }
 
 describe("learned friction", () => {
@@ -20,7 +29,7 @@ describe("learned friction", () => {
     expect(r.frictionSpread).toBeLessThan(1e-9);
     expect(r.count).toBe(4);
     // the nut factor K = T/(F·d) of the same assemblies
-    expect(r.nutFactor).toBeCloseTo(115 / (preloadFromTorque(115, geometry, { thread: 0.137, bearing: 0.137 }) * 12.7) * 1000, 6);
+    expect(r.nutFactor).toBeCloseTo((115 / (preloadFromTorque(115, geometry, { thread: 0.137, bearing: 0.137 }) * 12.7)) * 1000, 6);
   });
 
   it("gives a spread when the readings scatter, and the fit stays near the truth", () => {

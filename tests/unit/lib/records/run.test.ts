@@ -3,7 +3,17 @@ import { impliedPreloads } from "~/lib/records/assembly";
 import { filterPoints, summarize, type EvidencePoint } from "~/lib/records/evidence";
 import { runSchema, selectRuns, type RunRecord } from "~/lib/records/run";
 
-const ok = { ranOn: "2026-07-12", kind: "dyno", manifoldPressureKpa: "300", fuel: "E85", peakCylinderPressureMpa: "", outcome: "held", cylindersAffected: "", notes: "", teardownFindings: "" };
+const ok = {
+  ranOn: "2026-07-12",
+  kind: "dyno",
+  manifoldPressureKpa: "300",
+  fuel: "E85",
+  peakCylinderPressureMpa: "",
+  outcome: "held",
+  cylindersAffected: "",
+  notes: "",
+  teardownFindings: "",
+};
 
 describe("run schema", () => {
   it("takes a plain run and a failure with its cylinders", () => {
@@ -24,7 +34,22 @@ describe("run schema", () => {
   });
 });
 
-const run = (id: number, ranOn: string, outcome: RunRecord["outcome"], peak: number | null): RunRecord => ({ id, engineId: 1, planId: 1, ranOn, kind: "dyno", manifoldPressureKpa: 200, fuel: "E85", peakCylinderPressureMpa: peak, peakPressureSource: "measured", outcome, cylindersAffected: [], notes: "", teardownFindings: "", createdAt: "" });
+const run = (id: number, ranOn: string, outcome: RunRecord["outcome"], peak: number | null): RunRecord => ({
+  id,
+  engineId: 1,
+  planId: 1,
+  ranOn,
+  kind: "dyno",
+  manifoldPressureKpa: 200,
+  fuel: "E85",
+  peakCylinderPressureMpa: peak,
+  peakPressureSource: "measured",
+  outcome,
+  cylindersAffected: [],
+  notes: "",
+  teardownFindings: "",
+  createdAt: "",
+});
 
 describe("run table", () => {
   const runs = [run(1, "2026-01-01", "held", 9), run(2, "2026-03-01", "blown-gasket", 12), run(3, "2026-02-01", "held", null)];
@@ -45,7 +70,21 @@ describe("implied preload", () => {
   });
 });
 
-const point = (margin: number, outcome: EvidencePoint["outcome"], fuel = "E85"): EvidencePoint => ({ runId: 1, engineId: 1, engineName: "x", ranOn: "2026-01-01", gasketType: "mls", gasketName: "g", fastenerName: "f", fuel, peakMpa: 10, peakSource: "measured", outcome, margin, status: "holds" });
+const point = (margin: number, outcome: EvidencePoint["outcome"], fuel = "E85"): EvidencePoint => ({
+  runId: 1,
+  engineId: 1,
+  engineName: "x",
+  ranOn: "2026-01-01",
+  gasketType: "mls",
+  gasketName: "g",
+  fastenerName: "f",
+  fuel,
+  peakMpa: 10,
+  peakSource: "measured",
+  outcome,
+  margin,
+  status: "holds",
+});
 
 describe("evidence summary", () => {
   it("puts the failure line at the highest margin that failed and says how few the points are", () => {

@@ -9,7 +9,10 @@ describe("tightening sequence", () => {
     expect(l.studs).toHaveLength(10);
     const order = [...l.studs].sort((a, b) => a.order - b.order);
     // the middle studs (x = 2 bore pitches) first, one on each side
-    expect(order.slice(0, 2).map((s) => [s.x, s.side])).toEqual([[2, 0], [2, 1]]);
+    expect(order.slice(0, 2).map((s) => [s.x, s.side])).toEqual([
+      [2, 0],
+      [2, 1],
+    ]);
     // distance from the middle never decreases along the sequence
     for (let i = 1; i < order.length; i++) expect(Math.abs(order[i]!.x - 2)).toBeGreaterThanOrEqual(Math.abs(order[i - 1]!.x - 2) - 1e-9);
     // consecutive studs change side
@@ -23,7 +26,10 @@ describe("tightening sequence", () => {
     const l = layoutStuds(defaultStudPattern("V", 8, 5), 8, "V");
     expect(l.banks).toBe(2);
     for (const bank of [0, 1]) {
-      const own = l.studs.filter((s) => s.bank === bank).map((s) => s.order).sort((a, b) => a - b);
+      const own = l.studs
+        .filter((s) => s.bank === bank)
+        .map((s) => s.order)
+        .sort((a, b) => a - b);
       expect(own).toEqual(Array.from({ length: 10 }, (_, i) => i + 1));
     }
   });

@@ -25,7 +25,12 @@ describe("units: NIST SP 811 factors", () => {
     expect(fromDisplay("pressure", 1, "bar")).toBeCloseTo(0.1, 12);
   });
   it("round trip SI → display → SI", () => {
-    for (const [q, u] of [["length", "in"], ["force", "lbf"], ["torque", "lbf·ft"], ["stress", "psi"]] as const) {
+    for (const [q, u] of [
+      ["length", "in"],
+      ["force", "lbf"],
+      ["torque", "lbf·ft"],
+      ["stress", "psi"],
+    ] as const) {
       expect(relErr(fromDisplay(q, toDisplay(q, 123.456, u), u), 123.456)).toBeLessThan(1e-12);
     }
   });

@@ -29,7 +29,21 @@ describe("units table", () => {
     expect(fromDisplay("area", 1, "in²")).toBeCloseTo(645.16, 2);
   });
   it("every quantity has a choice for each system among its units", () => {
-    for (const q of ["length", "smallLength", "area", "force", "torque", "pressure", "stress", "modulus", "expansion", "roughness", "temperature", "volume", "manifold"] as const) {
+    for (const q of [
+      "length",
+      "smallLength",
+      "area",
+      "force",
+      "torque",
+      "pressure",
+      "stress",
+      "modulus",
+      "expansion",
+      "roughness",
+      "temperature",
+      "volume",
+      "manifold",
+    ] as const) {
       for (const s of UNIT_SYSTEMS) expect(unitsOf(q)).toContain(unitFor(q, s));
     }
   });
