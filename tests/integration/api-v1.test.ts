@@ -183,9 +183,9 @@ describe("what the reads say", () => {
 
   it("engines page by page/limit with a stated maximum", async () => {
     const total = Number((await db()("engines").where({ team_id: demoTeam }).whereNull("archived_at").count({ n: "*" }).first())!.n);
-    const one = await api("GET", "/api/v1/engines?limit=1", { token: token.viewer });
+    const one = await api("GET", "/api/v1/engines?limit=1", { token: token.builder });
     expect(one.body).toMatchObject({ page: 1, limit: 1, total, nextPage: total > 1 ? 2 : null });
-    const last = await api("GET", `/api/v1/engines?limit=1&page=${total}`, { token: token.viewer });
+    const last = await api("GET", `/api/v1/engines?limit=1&page=${total}`, { token: token.builder });
     expect((last.body as { items: unknown[]; nextPage: null }).nextPage).toBeNull();
     const tooMany = await api("GET", "/api/v1/engines?limit=101", { token: token.viewer });
     expect(tooMany.status).toBe(400);

@@ -100,14 +100,14 @@ describe("uploads", () => {
     expect(row.storage_key).toMatch(/^t\d+\/[0-9a-f-]{36}$/);
     expect(storedFiles().some((n) => n.includes("head"))).toBe(false);
 
-    const served = await through(fileRoute.loader, new Request(`${ORIGIN}/files/${file.id}`, { headers: { Cookie: viewer } }), {
+    const served = await through(fileRoute.loader, new Request(`${ORIGIN}/files/${file.id}`, { headers: { Cookie: builder } }), {
       fileId: String(file.id),
     });
     expect(served.status).toBe(200);
     expect(served.headers.get("Content-Type")).toBe("image/png");
     expect(served.headers.get("X-Content-Type-Options")).toBe("nosniff");
     expect(served.headers.get("Content-Disposition")).toMatch(/^inline; filename\*=UTF-8''head%20gasket\.png$/);
-    const thumb = await through(fileRoute.loader, new Request(`${ORIGIN}/files/${file.id}?thumb=1`, { headers: { Cookie: viewer } }), {
+    const thumb = await through(fileRoute.loader, new Request(`${ORIGIN}/files/${file.id}?thumb=1`, { headers: { Cookie: builder } }), {
       fileId: String(file.id),
     });
     expect(thumb.headers.get("Content-Type")).toBe("image/webp");
@@ -122,9 +122,14 @@ describe("uploads", () => {
       ).status,
     ).toBe(404);
     expect((await through(fileRoute.loader, new Request(`${ORIGIN}/files/${file.id}`), { fileId: String(file.id) })).status).toBe(302);
+    // the demo viewer is a customer shown another engine: this engine's files are not theirs either
+    const notShared = await through(fileRoute.loader, new Request(`${ORIGIN}/files/${file.id}`, { headers: { Cookie: viewer } }), {
+      fileId: String(file.id),
+    });
+    expect(notShared.status).toBe(404);
     const page = await through(
       filesPage.loader,
-      new Request(`${ORIGIN}/engines/${engineId}/files`, { headers: { Cookie: viewer } }),
+      new Request(`${ORIGIN}/engines/${engineId}/files`, { headers: { Cookie: builder } }),
       params(),
     );
     expect((page.body as { files: { id: number }[] }).files.map((f) => f.id)).toContain(file.id);

@@ -2,18 +2,9 @@
 import { z } from "zod";
 import { PAGE_LIMIT_DEFAULT, PAGE_LIMIT_MAX } from "./paging";
 
-// The same values as the run log's own schema and table checks (the run-log branch's app/lib/records/run.ts).
-export const RUN_KINDS = ["dyno", "pass", "street"] as const;
-export const RUN_OUTCOMES = [
-  "held",
-  "seeping",
-  "coolant-leak",
-  "combustion-leak",
-  "lifted-head",
-  "blown-gasket",
-  "stud-failure",
-  "other",
-] as const;
+// The run log's own kinds and outcomes (one list, app/lib/records/run.ts).
+export { RUN_KINDS, OUTCOMES as RUN_OUTCOMES } from "../records/run";
+import { RUN_KINDS, OUTCOMES as RUN_OUTCOMES } from "../records/run";
 
 const isoDate = z.iso.date("ranOn is a date like 2026-12-01");
 
