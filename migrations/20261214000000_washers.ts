@@ -5,7 +5,7 @@ import type { Knex } from "knex";
 // recorded, taken as a hardened washer as before. Plain ALTER TABLE … ADD COLUMN on SQLite and PostgreSQL.
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.alterTable("fasteners", (t) => {
-    t.float("washer_hardness_hv").nullable();
+    t.double("washer_hardness_hv").nullable();
   });
 }
 

@@ -16,9 +16,9 @@ export async function up(knex: Knex): Promise<void> {
     t.text("stages_done").notNullable().defaultTo("[]");
     // JSON: [{ label, stretchMm }] for the studs whose stretch was measured at the final stage
     t.text("stud_stretch").notNullable().defaultTo("[]");
-    t.float("final_torque_nm");
-    t.float("measured_protrusion_mm");
-    t.float("gasket_compressed_mm");
+    t.double("final_torque_nm");
+    t.double("measured_protrusion_mm");
+    t.double("gasket_compressed_mm");
     t.text("notes").notNullable().defaultTo("");
     t.integer("created_by").references("users.id").onDelete("SET NULL");
     t.string("created_at").notNullable();
@@ -34,9 +34,9 @@ export async function up(knex: Knex): Promise<void> {
     t.integer("plan_id").references("seal_plans.id").onDelete("SET NULL");
     t.string("ran_on", 10).notNullable();
     t.string("kind", 10).notNullable();
-    t.float("manifold_pressure_kpa");
+    t.double("manifold_pressure_kpa");
     t.string("fuel", 60).notNullable().defaultTo("");
-    t.float("peak_cylinder_pressure_mpa");
+    t.double("peak_cylinder_pressure_mpa");
     t.string("peak_pressure_source", 10).notNullable().defaultTo("estimated");
     t.string("outcome", 20).notNullable();
     // JSON list of cylinder numbers

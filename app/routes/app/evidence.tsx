@@ -86,7 +86,7 @@ export default function EvidencePage({ loaderData: d }: Route.ComponentProps) {
         </div>
       ) : null}
       <h2 className="mb-2 text-xl font-bold">By gasket type and fastener</h2>
-      <div className="overflow-x-auto">
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="held and failed, by gasket and fastener (scrolls sideways)">
         <table className="w-full border-collapse bg-white text-sm tabular">
           <thead className="bg-forge-100">
             <tr>

@@ -100,7 +100,7 @@ export default function TeamPage({ loaderData, actionData }: Route.ComponentProp
     <>
       <PageTitle sub="Who works in this shop and what they may do.">Team</PageTitle>
       <FormError message={actionData?.error} />
-      <div className="max-w-4xl overflow-x-auto">
+      <div className="max-w-4xl overflow-x-auto" tabIndex={0} role="region" aria-label="members (scrolls sideways)">
         <table className="w-full border-collapse bg-white text-left">
           <caption className="sr-only">Members of {team.name}</caption>
           <thead className="bg-forge-100 text-sm">

@@ -101,7 +101,7 @@ curl -H "Authorization: Bearer $SW_TOKEN" ${o}/api/v1/engines`}</Code>
         </Section>
 
         <Section title="Endpoints">
-          <div className="overflow-x-auto">
+          <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="endpoints (scrolls sideways)">
             <table className="w-full text-left text-xs">
               <thead>
                 <tr>

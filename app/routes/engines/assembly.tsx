@@ -112,7 +112,7 @@ export default function Assembly({ loaderData: d, actionData }: Route.ComponentP
                 .join(" · ") || "—"}
             </p>
             {a.reading.studs.length ? (
-              <div className="mt-2 overflow-x-auto">
+              <div className="mt-2 overflow-x-auto" tabIndex={0} role="region" aria-label="stages and studs (scrolls sideways)">
                 <table className="border-collapse tabular">
                   <caption className="text-left text-xs text-forge-700">
                     Measured stretch → preload through the model's stud stiffness (

@@ -111,7 +111,7 @@ export default function Runs({ loaderData: d, actionData }: Route.ComponentProps
         {d.runs.length} of {d.total} runs shown. Peak pressures marked “est.” were estimated by the model from the manifold pressure, not
         measured.
       </p>
-      <div className="overflow-x-auto">
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="runs (scrolls sideways)">
         <table className="w-full border-collapse bg-white text-sm tabular">
           <caption className="sr-only">The engine's runs</caption>
           <thead className="bg-forge-100">

@@ -147,7 +147,7 @@ export default function Checklist({ loaderData: d }: Route.ComponentProps) {
                   <td className="px-2 py-1">{s.label}</td>
                   {d.plan.stagesNm.map((_, i) => (
                     <td key={i} className="px-2 py-1 text-center">
-                      <span aria-label="box to tick" className="inline-block h-5 w-5 border-2 border-forge-700" />
+                      <span role="img" aria-label="box to tick" className="inline-block h-5 w-5 border-2 border-forge-700" />
                     </td>
                   ))}
                   {d.gasket && d.gasket.relaxationPercent > 0 ? (
