@@ -85,7 +85,7 @@ test("switching to imperial converts the figures", async ({ page }) => {
   await page.goto("/settings");
   await page.getByLabel(/Imperial/).check();
   await page.getByRole("button", { name: "Save" }).click();
-  await expect(page.getByRole("status")).toHaveText("✔ Units saved.");
+  await expect(page.getByRole("status")).toHaveText("✔ Settings saved.");
   await openFirstPlan(page);
   const imperialTorque = Number(await page.getByLabel(/Final torque \(lbf·ft\)/).inputValue());
   // 1 lbf·ft = 1.3558179 N·m (NIST SP 811)
