@@ -190,3 +190,29 @@ export function useSeedKey(values: unknown, reseed: boolean): string {
 }
 
 export { fieldErrors } from "~/utils/field-errors";
+
+// A labelled text area, tied to its error message like Field.
+export function TextArea({ label, name, defaultValue, error }: { label: string; name: string; defaultValue?: string; error?: string }) {
+  const id = `f-${name}`;
+  return (
+    <div>
+      <label htmlFor={id} className="block text-sm font-medium text-forge-800">
+        {label}
+      </label>
+      <textarea
+        id={id}
+        name={name}
+        rows={2}
+        defaultValue={defaultValue}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={error ? `${id}-error` : undefined}
+        className="mt-1 block w-full rounded border border-forge-500 bg-white px-3 py-2 text-base aria-[invalid]:border-failed"
+      />
+      {error ? (
+        <p id={`${id}-error`} className="mt-1 text-sm font-medium text-failed">
+          ✖ {error}
+        </p>
+      ) : null}
+    </div>
+  );
+}

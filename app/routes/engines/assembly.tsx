@@ -1,7 +1,7 @@
 import { data, Form, Link, redirect } from "react-router";
 import type { Route } from "./+types/assembly";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
-import { Button, Field, FormError, SelectField } from "~/components/form";
+import { Button, Field, FormError, SelectField, TextArea } from "~/components/form";
 import { FileList, Uploader } from "~/components/uploader";
 import { parseAssemblyForm } from "~/lib/records/assembly";
 import { formatQuantity } from "~/lib/units";
@@ -12,7 +12,6 @@ import { listPlans } from "~/models/plan.server";
 import { createAssembly, listAssemblies } from "~/models/records.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
 import { flashToast } from "~/utils/toast.server";
-import { TextArea } from "./runs";
 
 export const meta: Route.MetaFunction = () => [{ title: "Assembly · Sealwright" }];
 export const handle = CAUTION_HANDLE;

@@ -1,7 +1,7 @@
 import { data, Form, Link, redirect } from "react-router";
 import type { Route } from "./+types/runs";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
-import { Button, Field, fieldErrors, FormError, SelectField } from "~/components/form";
+import { Button, Field, fieldErrors, FormError, SelectField, TextArea } from "~/components/form";
 import { FileList, Uploader } from "~/components/uploader";
 import { OUTCOME_LABEL, OUTCOMES, RUN_FIELDS, RUN_KIND_LABEL, RUN_KINDS, runSchema, selectRuns, type RunSort } from "~/lib/records/run";
 import { runQuery } from "~/lib/records/run-query";
@@ -258,31 +258,6 @@ function FilterSelect({ label, name, value, options }: { label: string; name: st
           </option>
         ))}
       </select>
-    </div>
-  );
-}
-
-export function TextArea({ label, name, defaultValue, error }: { label: string; name: string; defaultValue?: string; error?: string }) {
-  const id = `f-${name}`;
-  return (
-    <div>
-      <label htmlFor={id} className="block text-sm font-medium text-forge-800">
-        {label}
-      </label>
-      <textarea
-        id={id}
-        name={name}
-        rows={2}
-        defaultValue={defaultValue}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${id}-error` : undefined}
-        className="mt-1 block w-full rounded border border-forge-300 px-3 py-2"
-      />
-      {error ? (
-        <p id={`${id}-error`} className="mt-1 text-sm font-medium text-failed">
-          ✖ {error}
-        </p>
-      ) : null}
     </div>
   );
 }
