@@ -19,5 +19,8 @@ export default defineConfig({
     pool: "forks",
     execArgv: ["--import", "tsx"],
     testTimeout: 20_000,
+    // the matrix and fuzz files' beforeAll imports every route module and signs people in: on a busy
+    // two-core machine that takes longer than the 10 s default
+    hookTimeout: 60_000,
   },
 });
