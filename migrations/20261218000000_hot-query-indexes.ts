@@ -1,7 +1,7 @@
 import type { Knex } from "knex";
 
 // Indexes for the hot queries (issue 14), with Knex's schema builder so PostgreSQL runs the same file:
-// each names the query it serves; tests/integration/query-plans.test.ts reads EXPLAIN QUERY PLAN for them.
+// each names the query it serves; tests/integration/query-plans.sqlite.test.ts reads EXPLAIN QUERY PLAN for them.
 const INDEXES: { table: string; columns: string[]; name: string }[] = [
   // dashboard activity: the team's newest rows by id (the (team_id, created_at) index sorts by time)
   { table: "audit_events", columns: ["team_id", "id"], name: "audit_events_team_id_id_index" },

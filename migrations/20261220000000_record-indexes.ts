@@ -1,7 +1,7 @@
 import type { Knex } from "knex";
 
 // A leading index for every foreign key the team, records and API tables brought (the rule
-// tests/integration/query-plans.test.ts keeps): joins and deletes from the parent side, and the
+// tests/integration/query-plans.sqlite.test.ts keeps): joins and deletes from the parent side, and the
 // engine-scoped lists (an engine's assemblies, runs and files; a viewer's shared engines).
 const INDEXES: { table: string; columns: string[]; name: string }[] = [
   { table: "team_invites", columns: ["invited_by"], name: "team_invites_invited_by_index" },

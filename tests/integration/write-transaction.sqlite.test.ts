@@ -1,7 +1,6 @@
 import { spawn } from "node:child_process";
 import Database from "better-sqlite3";
 import { describe, expect, it } from "vitest";
-import { onPostgres } from "../setup/engine";
 import { db, writeTransaction } from "~/utils/db.server";
 
 // Defect 7 of issue 9: Knex began SQLite transactions DEFERRED. A transaction that reads, then writes,
@@ -10,7 +9,7 @@ import { db, writeTransaction } from "~/utils/db.server";
 
 const file = () => process.env.DATABASE_PATH!;
 
-describe.skipIf(onPostgres)("write transactions begin IMMEDIATE (SQLite)", () => {
+describe("write transactions begin IMMEDIATE (SQLite)", () => {
   it("hold the write lock from the first statement: another connection cannot write until commit", async () => {
     await writeTransaction(async (trx) => {
       await trx("teams").first("id"); // only a read so far
