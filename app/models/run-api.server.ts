@@ -11,7 +11,6 @@ import { viewerScope, type Asker } from "./viewer-scope.server";
 //   outcome, cylinders_affected (JSON text: an array of cylinder numbers), notes, created_by, created_at;
 //   and, as the run-log branch's migration (20261217000000_records.ts) has them, plan_id (nullable),
 //   teardown_findings and updated_at.
-// Until that table exists, `runsApiEnabled()` is false and the runs endpoints answer 404 in words.
 
 export const RUNS_TABLE = "runs";
 export type RunCreate = z.output<typeof RunCreateSchema>;
@@ -43,11 +42,6 @@ export interface RunFilter {
   /** The id of the last run on the previous page (runs come newest id first). */
   cursor?: number;
   limit: number;
-}
-
-/** The feature check: the runs endpoints are live once the run log's table is in the database. */
-export async function runsApiEnabled(): Promise<boolean> {
-  return db().schema.hasTable(RUNS_TABLE);
 }
 
 function toRun(r: DbRow): RunApiRow {

@@ -6,7 +6,7 @@ import { getEngine } from "~/models/engine.server";
 import { listPlans, planParts } from "~/models/plan.server";
 import { db } from "~/utils/db.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
-import { api, DEMO_TEAM, ensureTestRunsTable, rowCounts, teamId, tokenFor } from "./api-helpers";
+import { api, DEMO_TEAM, rowCounts, teamId, tokenFor } from "./api-helpers";
 import { EMAIL, teamWide } from "./helpers";
 import type { z } from "zod";
 
@@ -21,7 +21,6 @@ let engineId = 0;
 let planInput: Record<string, unknown> = {};
 
 beforeAll(async () => {
-  await ensureTestRunsTable();
   token = await tokenFor(EMAIL.builder);
   const demo = await teamId(DEMO_TEAM);
   engineId = (await db()("engines").where({ team_id: demo, cylinders: 4 }).first("id")).id;

@@ -72,34 +72,6 @@ export async function tokenFor(email: string, role?: Role): Promise<string> {
   return (await createToken(m.team_id, uid, `test ${email}`, role ?? m.role)).token;
 }
 
-/**
- * The run log's table as this branch's contract names it (app/models/run-api.server.ts). Test-only:
- * the run-log branch owns the real migration. Created only when the database has no `runs` table.
- */
-export async function ensureTestRunsTable(): Promise<void> {
-  if (await db().schema.hasTable("runs")) return;
-  await db().schema.createTable("runs", (t) => {
-    t.increments("id").primary();
-    t.integer("team_id").notNullable().references("teams.id");
-    t.integer("engine_id").notNullable().references("engines.id");
-    t.integer("plan_id").nullable().references("seal_plans.id");
-    t.string("ran_on", 10).notNullable();
-    t.string("kind", 20).notNullable();
-    t.float("manifold_pressure_kpa").nullable();
-    t.string("fuel", 60).notNullable().defaultTo("");
-    t.float("peak_cylinder_pressure_mpa").nullable();
-    t.string("peak_pressure_source", 10).notNullable();
-    t.string("outcome", 20).notNullable();
-    t.text("cylinders_affected").notNullable().defaultTo("[]");
-    t.text("notes").notNullable().defaultTo("");
-    t.text("teardown_findings").notNullable().defaultTo("");
-    t.integer("created_by").nullable().references("users.id");
-    t.string("created_at").notNullable();
-    t.string("updated_at").notNullable();
-    t.check("kind in ('dyno','pass','street')", [], "runs_kind_check");
-  });
-}
-
 export async function rowCounts(): Promise<Record<string, number>> {
   const out: Record<string, number> = {};
   for (const t of ["runs", "api_tokens", "audit_events", "engines", "seal_plans"]) {

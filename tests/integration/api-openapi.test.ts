@@ -7,7 +7,7 @@ import { getEngine } from "~/models/engine.server";
 import { listPlans, planParts } from "~/models/plan.server";
 import { db } from "~/utils/db.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
-import { api, DEMO_TEAM, ensureTestRunsTable, teamId, tokenFor } from "./api-helpers";
+import { api, DEMO_TEAM, teamId, tokenFor } from "./api-helpers";
 import { EMAIL, teamWide } from "./helpers";
 import { appRoutes } from "./routes-list";
 
@@ -23,9 +23,7 @@ type Doc = {
 };
 let doc: Doc;
 
-beforeAll(async () => {
-  await ensureTestRunsTable();
-}, 60_000);
+beforeAll(async () => {}, 60_000);
 beforeEach(() => resetThrottles());
 
 describe("the document", () => {

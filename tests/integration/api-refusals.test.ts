@@ -5,7 +5,7 @@ import { listPlans, planParts } from "~/models/plan.server";
 import * as tokens from "~/routes/app/tokens";
 import { db } from "~/utils/db.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
-import { api, DEMO_TEAM, ensureTestRunsTable, otherTeamEngine, rowCounts, teamId, tokenFor } from "./api-helpers";
+import { api, DEMO_TEAM, otherTeamEngine, rowCounts, teamId, tokenFor } from "./api-helpers";
 import { call, EMAIL, get, post, signIn, type Handler, teamWide } from "./helpers";
 
 // Refusals of the API: each bad request gets its documented status and error body and writes nothing;
@@ -19,7 +19,6 @@ let engineId = 0;
 let planInput: Record<string, unknown> = {};
 
 beforeAll(async () => {
-  await ensureTestRunsTable();
   builderToken = await tokenFor(EMAIL.builder);
   builderCookie = await signIn(EMAIL.builder);
   const demo = await teamId(DEMO_TEAM);

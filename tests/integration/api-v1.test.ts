@@ -4,7 +4,7 @@ import { getEngine } from "~/models/engine.server";
 import { listPlans, planParts } from "~/models/plan.server";
 import { db } from "~/utils/db.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
-import { api, DEMO_TEAM, ensureTestRunsTable, OTHER_TEAM, otherTeamEngine, rowCounts, teamId, tokenFor } from "./api-helpers";
+import { api, DEMO_TEAM, OTHER_TEAM, otherTeamEngine, rowCounts, teamId, tokenFor } from "./api-helpers";
 import { EMAIL, signIn, teamWide } from "./helpers";
 
 // Every /api/v1 endpoint as each role of the demo shop and as another shop's owner, once with a
@@ -23,7 +23,6 @@ let planId = 0;
 let planInput: unknown;
 
 beforeAll(async () => {
-  await ensureTestRunsTable();
   await otherTeamEngine();
   for (const p of PEOPLE) {
     token[p] = await tokenFor(EMAIL[p]);

@@ -1,15 +1,13 @@
 import { RunCreateSchema, RunListQuerySchema } from "~/lib/api/schemas";
-import { createRunForApi, listRunsForApi, runsApiEnabled } from "~/models/run-api.server";
+import { createRunForApi, listRunsForApi } from "~/models/run-api.server";
 import { apiBody, apiCaller, apiError, apiQuery, apiRead, requireApiRole, wrongMethod } from "~/utils/api.server";
 
 // GET /api/v1/runs?engineId&kind&outcome&from&to&cursor&limit → the team's run log, newest first.
-// POST /api/v1/runs (builder or owner) logs one run. Both wait for the run log's table (feature check).
-const NOT_YET = "The run log is not in this installation yet.";
+// POST /api/v1/runs (builder or owner) logs one run.
 
 export async function loader({ request, context }: { request: Request; context?: unknown }) {
   const caller = await apiCaller(request, context);
   const query = apiQuery(request, RunListQuerySchema);
-  if (!(await runsApiEnabled())) throw apiError(404, NOT_YET);
   const { cursor, ...rest } = query;
   const page = await listRunsForApi(caller, { ...rest, cursor: cursor === undefined ? undefined : Number(cursor) });
   return apiRead(request, { items: page.rows, limit: query.limit, nextCursor: page.nextCursor });
@@ -20,7 +18,6 @@ export async function action({ request, context }: { request: Request; context?:
   const caller = await apiCaller(request, context);
   requireApiRole(caller, "builder");
   const run = await apiBody(request, RunCreateSchema);
-  if (!(await runsApiEnabled())) throw apiError(404, NOT_YET);
   const created = await createRunForApi(caller, run);
   if (!created.ok) {
     const error = created.status === 404 ? "No such engine in this shop." : "The request has problems; nothing was done.";
