@@ -56,7 +56,9 @@ const EnvSchema = z
     S3_BUCKET: z.string().min(1).optional(),
     S3_REGION: z.string().min(1).default("us-east-1"),
     // Unset: AWS for S3_REGION. Set (MinIO, a local fake, another provider): requests go there, path-style.
-    S3_ENDPOINT: z.url("S3_ENDPOINT must be a full URL like https://objects.example.com").optional(),
+    S3_ENDPOINT: z
+      .url({ protocol: /^https?$/, error: "S3_ENDPOINT must be a full http(s) URL like https://objects.example.com" })
+      .optional(),
     S3_FORCE_PATH_STYLE: z.enum(["true", "false"], "S3_FORCE_PATH_STYLE must be true or false").optional(),
     S3_ACCESS_KEY_ID: z.string().min(1).optional(),
     S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
