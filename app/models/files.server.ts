@@ -189,9 +189,13 @@ export async function receiveUpload(request: Request, teamId: number, userId: nu
   }
 }
 
+// An object the store would not remove (it is down, say) stays for the sweep; the caller's outcome stands.
 async function removeObjects(...keys: (string | null)[]) {
   const storage = fileStorage();
-  for (const key of keys) if (key) await storage.remove(key);
+  for (const key of keys) {
+    if (key)
+      await Promise.resolve(storage.remove(key)).catch((e: Error) => console.warn(`stored object ${key} left for the sweep: ${e.message}`));
+  }
 }
 
 /** Takes a file away (a builder's act): the row and its audit line first, then the stored objects. */
@@ -212,10 +216,7 @@ export async function deleteFile(teamId: number, userId: number, idParam: string
     return found as Row;
   });
   if (!row) return null;
-  // the row is gone either way; an object left behind by a failure here is the sweep's
-  await removeObjects(row.storage_key, row.thumb_key).catch((e: Error) =>
-    console.warn(`file ${id}: objects left for the sweep: ${e.message}`),
-  );
+  await removeObjects(row.storage_key, row.thumb_key);
   return toFile(row);
 }
 

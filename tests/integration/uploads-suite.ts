@@ -305,10 +305,18 @@ export function describeUploads(store: "disk" | "s3") {
       const page = (who: string) =>
         through(libraryEdit.loader, new Request(`${ORIGIN}/libraries/fasteners/${fastenerId}`, { headers: { Cookie: who } }), itemParams);
       expect(((await page(viewer)).body as { files: { id: number }[] }).files.map((f) => f.id)).toEqual([file.id]);
+      expect(((await page(builder)).body as { files: { id: number }[] }).files.map((f) => f.id)).toEqual([file.id]);
       // a viewer of the shop reads the library and its sheets; another team finds neither
       expect((await fileGet(file.id, viewer)).status).toBe(200);
       expect((await fileGet(file.id, other)).status).toBe(404);
       expect((await page(other)).status).toBe(404);
+
+      // a sheet of 300 KB: past the 128 KiB cap on form posts, so this passes only as an upload path of the guard
+      const big = new Uint8Array(300 * 1024).fill(0x20);
+      big.set(PDF);
+      const bigForm = new FormData();
+      bigForm.append("file", new File([big], "scanned sheet.pdf"));
+      expect((await through(itemUpload.action, formRequest(bigForm, builder, to), itemParams)).status).toBe(200);
 
       const was = await before();
       expect((await through(itemUpload.action, formRequest(pdfForm("x.pdf"), viewer, to), itemParams)).status).toBe(403);
