@@ -51,6 +51,7 @@ test("the builder adds a fastener with the maker's figures, sees it listed, and 
   await expect(sheets.getByText("✔ Kept stud maker sheet.pdf.")).toBeVisible();
   await expect(sheets.getByRole("link", { name: /stud maker sheet\.pdf/ })).toHaveAttribute("href", /^\/files\/\d+$/);
   await expect(page.getByRole("heading", { name: "The fastener maker's sheets (1)" })).toBeVisible();
+  expect(await seriousViolations(page)).toEqual([]);
   await screenshot(page, "library-fastener-sheet");
   await sheets.getByRole("button", { name: "Take away stud maker sheet.pdf" }).click();
   await expect(page.getByRole("status").first()).toContainText("Took away stud maker sheet.pdf.");
