@@ -48,6 +48,7 @@ export default [
   ]),
   route("docs/api", "routes/docs/api.tsx"),
   route("files/:fileId", "routes/app/file.ts"),
+  route("libraries/:kind/:itemId/files/upload", "routes/libraries/item-files-upload.ts"),
   route("api/v1/estimate", "routes/api/estimate.ts"),
   route("api/v1/sweep", "routes/api/v1/sweep.ts"),
   route("api/v1/engines", "routes/api/v1/engines.ts"),

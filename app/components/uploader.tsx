@@ -2,16 +2,17 @@ import { useRef, useState } from "react";
 import { useRevalidator } from "react-router";
 import { UPLOAD_RULE_TEXT } from "~/utils/upload-rules";
 
-// One file to the engine's upload endpoint. With JavaScript it goes by XMLHttpRequest, whose upload
-// events drive a progress bar, and the page reloads its data when the file is kept; without, the form posts.
+// One file to an upload endpoint: the engine's (given engineId), or another (given action, e.g. a
+// library item's). With JavaScript it goes by XMLHttpRequest, whose upload events drive a progress bar,
+// and the page reloads its data when the file is kept; without, the form posts.
 export function Uploader({
   engineId,
+  action = `/engines/${engineId}/files/upload`,
   assemblyId,
   runId,
   returnTo,
   label = "Add a photo or PDF",
-}: {
-  engineId: number;
+}: ({ engineId: number; action?: undefined } | { engineId?: undefined; action: string }) & {
   assemblyId?: number;
   runId?: number;
   returnTo: string;
@@ -22,7 +23,6 @@ export function Uploader({
   const revalidator = useRevalidator();
   const formRef = useRef<HTMLFormElement>(null);
   const id = `upload-${assemblyId ?? "a"}-${runId ?? "r"}`;
-  const action = `/engines/${engineId}/files/upload`;
 
   function send(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();
@@ -109,7 +109,14 @@ export function Uploader({
   );
 }
 
-export function FileList({ files }: { files: { id: number; name: string; contentType: string; sizeBytes: number; hasThumb: boolean }[] }) {
+/** The files as thumbnails or document links; with `returnTo`, each has a button that takes it away (builders). */
+export function FileList({
+  files,
+  returnTo,
+}: {
+  files: { id: number; name: string; contentType: string; sizeBytes: number; hasThumb: boolean }[];
+  returnTo?: string;
+}) {
   if (files.length === 0) return null;
   return (
     <ul className="mt-2 flex flex-wrap gap-3">
@@ -131,6 +138,14 @@ export function FileList({ files }: { files: { id: number; name: string; content
           <span className="block truncate" title={f.name}>
             {f.name} · {(f.sizeBytes / 1024).toFixed(0)} KB
           </span>
+          {returnTo ? (
+            <form method="post" action={`/files/${f.id}`} className="no-print">
+              <input type="hidden" name="returnTo" value={returnTo} />
+              <button type="submit" name="intent" value="delete" className="text-failed underline" aria-label={`Take away ${f.name}`}>
+                Take away
+              </button>
+            </form>
+          ) : null}
         </li>
       ))}
     </ul>

@@ -50,6 +50,25 @@ const EnvSchema = z.object({
   UPLOAD_DIR: z.string().min(1).optional(),
   // Total upload storage per team, in MB.
   UPLOAD_TEAM_QUOTA_MB: z.coerce.number().positive("UPLOAD_TEAM_QUOTA_MB must be a positive number").default(500),
+  // Where uploads are kept: "disk" (UPLOAD_DIR) or "s3", any S3-compatible object storage (docs/hosting.md).
+  FILE_STORAGE: z.enum(["disk", "s3"], "FILE_STORAGE must be disk or s3").default("disk"),
+  S3_BUCKET: z.string().min(1).optional(),
+  S3_REGION: z.string().min(1).default("us-east-1"),
+  // Unset: AWS for S3_REGION. Set (MinIO, a local fake, another provider): requests go there, path-style.
+  S3_ENDPOINT: z.url({ protocol: /^https?$/, error: "S3_ENDPOINT must be a full http(s) URL like https://objects.example.com" }).optional(),
+  S3_FORCE_PATH_STYLE: z.enum(["true", "false"], "S3_FORCE_PATH_STYLE must be true or false").optional(),
+  S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+  S3_SESSION_TOKEN: z.string().min(1).optional(),
+  // The sweep (npm run files:sweep) removes stored objects without a row once they are this old.
+  FILE_SWEEP_MINUTES: z.coerce.number().positive("FILE_SWEEP_MINUTES must be a positive number of minutes").default(60),
+});
+
+// Settings that need one another.
+const CheckedEnv = EnvSchema.superRefine((env, ctx) => {
+  if (env.FILE_STORAGE !== "s3") return;
+  for (const name of ["S3_BUCKET", "S3_ACCESS_KEY_ID", "S3_SECRET_ACCESS_KEY"] as const)
+    if (!env[name]) ctx.addIssue({ code: "custom", path: [name], message: `${name} is needed when FILE_STORAGE=s3` });
 });
 
 export type Env = z.infer<typeof EnvSchema>;
@@ -57,14 +76,18 @@ export type Env = z.infer<typeof EnvSchema>;
 let cached: Env | undefined;
 
 export function getEnv(): Env {
-  if (cached) return cached;
-  const parsed = EnvSchema.safeParse(process.env);
+  cached ??= parseEnv(process.env);
+  return cached;
+}
+
+/** The settings from these variables, or an error naming each bad one. */
+export function parseEnv(source: Record<string, string | undefined>): Env {
+  const parsed = CheckedEnv.safeParse(source);
   if (!parsed.success) {
     const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`);
     throw new Error(`Invalid environment:\n${lines.join("\n")}`);
   }
-  cached = parsed.data;
-  return cached;
+  return parsed.data;
 }
 
 /** What Knex opens: the PostgreSQL URL when one is set, else the SQLite file. */

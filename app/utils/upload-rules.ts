@@ -6,5 +6,5 @@ export const ALLOWED_UPLOAD_TYPES = ["image/jpeg", "image/png", "image/webp", "a
 export type UploadType = (typeof ALLOWED_UPLOAD_TYPES)[number];
 export const UPLOAD_RULE_TEXT = "Photos (JPEG, PNG, WebP) and PDFs, at most 10 MB each.";
 
-/** The upload endpoint of an engine; the request guard lets its bodies run to the file cap. */
-export const UPLOAD_PATH = /^\/engines\/\d+\/files\/upload\/?$/;
+/** The upload endpoints (an engine's, a fastener's or gasket's); the request guard lets their bodies run to the file cap. */
+export const UPLOAD_PATH = /^\/(engines\/\d+|libraries\/(fasteners|gaskets)\/\d+)\/files\/upload\/?$/;

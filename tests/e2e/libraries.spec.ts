@@ -12,7 +12,7 @@ test("the builder adds a fastener with the maker's figures, sees it listed, and 
 
   await page.getByRole("link", { name: "New fastener" }).click();
   await expect(page.getByRole("group", { name: "From the fastener maker's sheet" })).toBeVisible();
-  await expect(page.getByText("Attach the maker's sheet: arrives with uploads")).toBeVisible();
+  await expect(page.getByText("Keep the maker's sheet itself below the form, once the fastener is saved.")).toBeVisible();
   await page.getByLabel("Name").fill("E2E M11×1.5 head stud");
   await page.getByLabel(/^Maker's recommended torque/).fill("118");
   await page.getByLabel("Maker's lubricant").fill("Moly assembly paste");
@@ -39,6 +39,23 @@ test("the builder adds a fastener with the maker's figures, sees it listed, and 
   await screenshot(page, "library-fasteners");
 
   await row.getByRole("link", { name: "E2E M11×1.5 head stud" }).click();
+  // the maker's sheet, kept with the row
+  const sheets = page.getByRole("region", { name: /The fastener maker's sheets/ });
+  await expect(sheets).toContainText("No sheets kept yet.");
+  await sheets.getByLabel("Add the maker's sheet (PDF) or a photo of it").setInputFiles({
+    name: "stud maker sheet.pdf",
+    mimeType: "application/pdf",
+    buffer: Buffer.from("%PDF-1.4\n1 0 obj\n<< /Type /Catalog >>\nendobj\ntrailer\n<< /Root 1 0 R >>\n%%EOF\n"),
+  });
+  await sheets.getByRole("button", { name: "Upload" }).click();
+  await expect(sheets.getByText("✔ Kept stud maker sheet.pdf.")).toBeVisible();
+  await expect(sheets.getByRole("link", { name: /stud maker sheet\.pdf/ })).toHaveAttribute("href", /^\/files\/\d+$/);
+  await expect(page.getByRole("heading", { name: "The fastener maker's sheets (1)" })).toBeVisible();
+  expect(await seriousViolations(page)).toEqual([]);
+  await screenshot(page, "library-fastener-sheet");
+  await sheets.getByRole("button", { name: "Take away stud maker sheet.pdf" }).click();
+  await expect(page.getByRole("status").first()).toContainText("Took away stud maker sheet.pdf.");
+  await expect(page.getByRole("heading", { name: "The fastener maker's sheets (0)" })).toBeVisible();
   await page.getByRole("button", { name: "Archive" }).click();
   await expect(page.getByRole("status")).toContainText("Archived");
   await expect(page.getByRole("row", { name: /E2E M11×1\.5 head stud/ })).toHaveCount(0);

@@ -11,6 +11,7 @@ import { resetThrottles } from "~/utils/rate-limit.server";
 import { sessionStorage } from "~/utils/session.server";
 import { call, get, ORIGIN, signIn, teamWide, type Handler } from "./helpers";
 import { startTestSink } from "./mail";
+import { seedFile } from "./seed-file";
 import { through } from "./pipeline";
 import { appRoutes, fill, type RouteInfo } from "./routes-list";
 
@@ -160,6 +161,7 @@ beforeAll(async () => {
     kind: "gaskets",
     itemId: String(gasket.id),
     token: "not-a-token",
+    fileId: String(await seedFile(teamId, engine.id)),
   };
   planInput = assemblePlanInput((await planParts(teamId, engine, plan))!);
 
@@ -246,6 +248,8 @@ beforeAll(async () => {
       teardownFindings: "",
     },
     "routes/engines/files-upload": { returnTo: `/engines/${engine.id}/files` },
+    "routes/libraries/item-files-upload": {},
+    "routes/app/file": { intent: "delete", returnTo: `/engines/${engine.id}/files` },
   });
   // importing every route module and signing in takes a while on a loaded machine
 }, 60_000);
@@ -313,6 +317,7 @@ export const FUZZ_GROUPS = {
     "routes/engines/sharing",
     "routes/engines/runs",
     "routes/engines/files-upload",
+    "routes/libraries/item-files-upload",
   ],
   plans: [
     "routes/plans/new",
@@ -325,6 +330,7 @@ export const FUZZ_GROUPS = {
     "routes/api/v1/runs",
     "routes/plans/copy",
     "routes/engines/assembly",
+    "routes/app/file",
   ],
 };
 

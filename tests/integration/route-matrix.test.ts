@@ -73,6 +73,8 @@ const MATRIX: Record<string, Row> = {
   "routes/engines/files GET": demoOnly("200"),
   "routes/engines/files-upload POST": builderDemo("→/engines/:engineId/files"),
   "routes/app/file GET": demoOnly("200"),
+  "routes/app/file POST": builderDemo("400"),
+  "routes/libraries/item-files-upload POST": builderDemo("→/libraries/gaskets/*"),
   "routes/libraries/layout GET": member("200"),
   "routes/libraries/index GET": member("→/libraries/fasteners"),
   "routes/libraries/list GET": member("200"),
@@ -253,6 +255,8 @@ const WRITING: Record<string, Record<string, string>> = {
   "routes/engines/assembly": { planId: "1", assembledOn: "2026-01-01", assembledBy: "Forged", "stage-0-reached": "50" },
   "routes/engines/runs": { ranOn: "2026-01-01", kind: "dyno", manifoldPressureKpa: "200", outcome: "held" },
   "routes/engines/files-upload": {},
+  "routes/libraries/item-files-upload": {},
+  "routes/app/file": { intent: "delete" },
 };
 
 async function digest(): Promise<string> {

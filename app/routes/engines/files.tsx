@@ -20,6 +20,7 @@ const MB = (n: number) => `${(n / 1024 / 1024).toFixed(1)} MB`;
 export default function Files({ loaderData: d }: Route.ComponentProps) {
   const own = d.files.filter((f) => !f.assemblyId && !f.runId);
   const onRecords = d.files.filter((f) => f.assemblyId || f.runId);
+  const returnTo = d.canEdit ? `/engines/${d.engineId}/files` : undefined;
   return (
     <section className="max-w-4xl space-y-4">
       <h2 className="text-2xl font-bold">Files</h2>
@@ -27,12 +28,16 @@ export default function Files({ loaderData: d }: Route.ComponentProps) {
         Build photos, teardown pictures and makers' sheets, kept for this shop only. {UPLOAD_RULE_TEXT} The shop has used {MB(d.usedBytes)}{" "}
         of its {MB(d.quotaBytes)}.
       </p>
-      {d.canEdit ? <Uploader engineId={d.engineId} returnTo={`/engines/${d.engineId}/files`} /> : null}
+      {returnTo ? <Uploader engineId={d.engineId} returnTo={returnTo} /> : null}
       <h3 className="text-lg font-bold">On the engine ({own.length})</h3>
-      {own.length ? <FileList files={own} /> : <p className="text-sm text-forge-700">No files on the engine itself yet.</p>}
+      {own.length ? (
+        <FileList files={own} returnTo={returnTo} />
+      ) : (
+        <p className="text-sm text-forge-700">No files on the engine itself yet.</p>
+      )}
       <h3 className="text-lg font-bold">On its assemblies and runs ({onRecords.length})</h3>
       {onRecords.length ? (
-        <FileList files={onRecords} />
+        <FileList files={onRecords} returnTo={returnTo} />
       ) : (
         <p className="text-sm text-forge-700">None yet: add them from the Assembly and Runs tabs.</p>
       )}

@@ -2,6 +2,7 @@ import { data, Form, Link, useNavigation } from "react-router";
 import type { Route } from "./+types/edit";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { Button, ErrorSummary, Field, SelectField } from "~/components/form";
+import { ItemFiles } from "~/components/item-files";
 import { TYPICAL_GASKETS } from "~/lib/clamp";
 import { sourceLine } from "~/lib/library/display";
 import {
@@ -31,6 +32,7 @@ import {
   setLibraryArchived,
   updateLibraryItem,
 } from "~/models/library.server";
+import { libraryOwner, listFiles } from "~/models/files.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
@@ -79,6 +81,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       ? formValues(kind, item as unknown as Record<string, unknown>, units)
       : defaults(kind, new URL(request.url).searchParams.get("type"), units),
     typicalFor: !item && kind === "gaskets" ? typicalType(new URL(request.url).searchParams.get("type")) : null,
+    files: item && kind !== "materials" ? await listFiles(team.id, libraryOwner(kind, item.id)) : [],
   };
 }
 
@@ -235,7 +238,7 @@ export default function LibraryEdit({ loaderData, actionData }: Route.ComponentP
                   />
                   <NumberInput field={FASTENER_MAKER_FIELDS[1]!} {...props} />
                 </div>
-                <p className="mt-3 text-sm text-forge-700">Attach the maker's sheet: arrives with uploads.</p>
+                <p className="mt-3 text-sm text-forge-700">Keep the maker's sheet itself below the form, once the fastener is saved.</p>
               </fieldset>
               <fieldset className="rounded border border-forge-300 bg-white p-4">
                 <legend className="px-1 font-bold">Thread, shank and washer</legend>
@@ -292,6 +295,7 @@ export default function LibraryEdit({ loaderData, actionData }: Route.ComponentP
           <p className="mt-4 text-sm text-forge-700">You can read the shop's library; builders and owners change it.</p>
         )}
       </Form>
+      {item && kind !== "materials" ? <ItemFiles kind={kind} itemId={item.id} files={loaderData.files} canEdit={canEdit} /> : null}
     </section>
   );
 }
