@@ -96,12 +96,12 @@ test("a builder records an assembly with a photo, logs two runs and sees them in
   // two runs, one a failure
   await page.goto(`${engineUrl}/runs`);
   for (const run of [
-    { date: "2026-11-30", kpa: "300", peak: "13.5", outcome: "Held", cyl: "" },
-    { date: "2026-12-01", kpa: "360", peak: "17.5", outcome: "Combustion leak", cyl: "2, 3" },
+    { date: "2026-11-30", kpa: "300", peak: "135", outcome: "Held", cyl: "" },
+    { date: "2026-12-01", kpa: "360", peak: "175", outcome: "Combustion leak", cyl: "2, 3" },
   ]) {
     await page.getByLabel("Date", { exact: true }).fill(run.date);
-    await page.getByLabel("Manifold pressure (kPa absolute)").fill(run.kpa);
-    await page.getByLabel("Peak cylinder pressure, measured (MPa)").fill(run.peak);
+    await page.getByLabel("Manifold pressure (kPa abs)").fill(run.kpa);
+    await page.getByLabel("Peak cylinder pressure, measured (bar)").fill(run.peak);
     await page.getByLabel("Outcome", { exact: true }).selectOption({ label: run.outcome });
     await page.getByLabel("Cylinders affected").fill(run.cyl);
     await page.getByRole("button", { name: "Log the run" }).click();
