@@ -147,29 +147,31 @@ function SheetView({ sheet: s, units: u }: { sheet: Sheet; units: UnitSystem }) 
       <h3 className="font-bold">
         {s.measuredOn} · {s.planName} · by {s.measuredBy}
       </h3>
-      <table className="border-collapse tabular">
-        <caption className="text-left text-xs text-forge-700">As measured, and what each figure does in the estimate</caption>
-        <tbody>
-          {MACHINING_FIGURES.map((f) => (
-            <tr key={f.name}>
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="as measured (scrolls sideways)">
+        <table className="border-collapse tabular">
+          <caption className="text-left text-xs text-forge-700">As measured, and what each figure does in the estimate</caption>
+          <tbody>
+            {MACHINING_FIGURES.map((f) => (
+              <tr key={f.name}>
+                <th scope="row" className="pr-3 text-left font-medium">
+                  {f.label}
+                </th>
+                <td className="pr-3 text-right">{figure(f, s[f.name])}</td>
+                <td className="text-forge-700">{s[f.name] === null ? "not measured" : use(f.name)}</td>
+              </tr>
+            ))}
+            <tr>
               <th scope="row" className="pr-3 text-left font-medium">
-                {f.label}
+                Sleeve protrusion
               </th>
-              <td className="pr-3 text-right">{figure(f, s[f.name])}</td>
-              <td className="text-forge-700">{s[f.name] === null ? "not measured" : use(f.name)}</td>
+              <td className="pr-3 text-right">
+                {measuredProtrusions.length} of {s.sleeveProtrusionMm.length} bores
+              </td>
+              <td className="text-forge-700">{measuredProtrusions.length === 0 ? "not measured" : use("sleeveProtrusionMm")}</td>
             </tr>
-          ))}
-          <tr>
-            <th scope="row" className="pr-3 text-left font-medium">
-              Sleeve protrusion
-            </th>
-            <td className="pr-3 text-right">
-              {measuredProtrusions.length} of {s.sleeveProtrusionMm.length} bores
-            </td>
-            <td className="text-forge-700">{measuredProtrusions.length === 0 ? "not measured" : use("sleeveProtrusionMm")}</td>
-          </tr>
-        </tbody>
-      </table>
+          </tbody>
+        </table>
+      </div>
       {s.notes ? <p>{s.notes}</p> : null}
       {e.ok ? (
         <>
