@@ -30,6 +30,7 @@ export default [
       route("sharing", "routes/engines/sharing.tsx"),
       route("plans/:planId/checklist", "routes/plans/checklist.tsx"),
       route("assembly", "routes/engines/assembly.tsx"),
+      route("machining", "routes/engines/machining.tsx"),
       route("runs", "routes/engines/runs.tsx"),
       route("runs.csv", "routes/engines/runs-csv.ts"),
       route("files", "routes/engines/files.tsx"),

@@ -1,5 +1,5 @@
 import { evaluatePlan, parsePlan, suggest, type PlanEstimate, type PlanInput, type Status, type Suggestion } from "~/lib/clamp";
-import { assemblePlanInput, gasketFitProblem, type PlanRecord } from "~/lib/plan/assemble";
+import { assemblePlanInput, gasketFitProblem, type PlanParts, type PlanRecord } from "~/lib/plan/assemble";
 import { estimateView, type EstimateView } from "~/lib/plan/estimate-view";
 import { stretchLineFor, type StretchLine } from "~/lib/plan/stretch";
 import { displayWording } from "~/lib/plan/wording";
@@ -23,25 +23,26 @@ type Parsed =
   | { ok: true; plan: PlanInput; fastener: FastenerInfo; gasket: GasketInfo }
   | { ok: false; problems: string[]; fastener: FastenerInfo | null; gasket: GasketInfo | null };
 
+const NO_PARTS = "Pick a gasket and fastener from this shop's library (and the engine's materials).";
+
+/** Plan parts checked for gasket fit, as the clamp model's validated input. */
+function checkParts(parts: PlanParts & { fastenerInfo: FastenerInfo; gasketInfo: GasketInfo }, units: UnitSystem): Parsed {
+  const found = { fastener: parts.fastenerInfo, gasket: parts.gasketInfo };
+  const misfit = gasketFitProblem(parts.engine.boreMm, parts.gasket.boreMm, (mm) => formatQuantity(mm, "length", units));
+  if (misfit) return { ok: false, problems: [misfit], ...found };
+  const parsed = parsePlan(assemblePlanInput(parts));
+  if (!parsed.ok) return { ok: false, problems: parsed.errors.map((e) => e.message), ...found };
+  return { ok: true, plan: parsed.plan, ...found };
+}
+
 /**
  * The plan's parts from this team's rows, checked for gasket fit, as the clamp model's validated input
  * (the API hands it out as the plan's `input`).
  */
 export async function checkedPlanInput(teamId: number, engine: EngineRow, plan: PlanFigures, units: UnitSystem): Promise<Parsed> {
   const parts = await planParts(teamId, engine, plan);
-  if (!parts)
-    return {
-      ok: false,
-      problems: ["Pick a gasket and fastener from this shop's library (and the engine's materials)."],
-      fastener: null,
-      gasket: null,
-    };
-  const found = { fastener: parts.fastenerInfo, gasket: parts.gasketInfo };
-  const misfit = gasketFitProblem(engine.boreMm, parts.gasket.boreMm, (mm) => formatQuantity(mm, "length", units));
-  if (misfit) return { ok: false, problems: [misfit], ...found };
-  const parsed = parsePlan(assemblePlanInput(parts));
-  if (!parsed.ok) return { ok: false, problems: parsed.errors.map((e) => e.message), ...found };
-  return { ok: true, plan: parsed.plan, ...found };
+  if (!parts) return { ok: false, problems: [NO_PARTS], fastener: null, gasket: null };
+  return checkParts(parts, units);
 }
 
 export interface EstimateOptions {
@@ -84,6 +85,37 @@ export async function evaluateStoredPlan(
   const r = await checkedPlanInput(teamId, engine, plan, units);
   if (!r.ok) return r;
   return { ok: true, estimate: evaluatePlan(r.plan, displayWording(units), { sentences: false }), fastener: r.fastener, gasket: r.gasket };
+}
+
+export type VariantEvaluation = { ok: true; estimate: PlanEstimate } | { ok: false; problems: string[] };
+
+/**
+ * The evaluation of a stored plan and of variants of its parts (the machining record's measured figures
+ * in place of the planned ones), the parts read once. The plan itself must evaluate; a variant that
+ * the model refuses (a head cut thinner than it can be) says why.
+ */
+export async function evaluateVariants(
+  teamId: number,
+  engine: EngineRow,
+  plan: PlanFigures,
+  units: UnitSystem,
+  variantsOf: (parts: PlanParts) => PlanParts[],
+): Promise<{ ok: true; planned: PlanEstimate; variants: VariantEvaluation[]; parts: PlanParts } | { ok: false; problems: string[] }> {
+  const parts = await planParts(teamId, engine, plan);
+  if (!parts) return { ok: false, problems: [NO_PARTS] };
+  const wording = displayWording(units);
+  const evaluate = (r: Parsed) => (r.ok ? evaluatePlan(r.plan, wording, { sentences: false }) : null);
+  const base = checkParts(parts, units);
+  if (!base.ok) return { ok: false, problems: base.problems };
+  return {
+    ok: true,
+    planned: evaluate(base)!,
+    parts,
+    variants: variantsOf(parts).map((v) => {
+      const r = checkParts({ ...parts, ...v }, units);
+      return r.ok ? { ok: true, estimate: evaluate(r)! } : { ok: false, problems: r.problems };
+    }),
+  };
 }
 
 /** The stud stretch line for plan figures (saved or as typed), or null when the parts are missing. */

@@ -48,7 +48,7 @@ export function toRun(r: Row): RunRecord {
   };
 }
 
-async function audit(trx: Knex, teamId: number, userId: number, action: string, detail: Record<string, unknown>) {
+export async function audit(trx: Knex, teamId: number, userId: number, action: string, detail: Record<string, unknown>) {
   await trx("audit_events").insert({ team_id: teamId, user_id: userId, action, detail: JSON.stringify(detail), created_at: now() });
 }
 

@@ -7,7 +7,18 @@ import { db } from "~/utils/db.server";
 export const TEAM_EXPORT_VERSION = 1;
 
 // files: the rows (names, types, sizes); the bytes stay in the file storage
-const TEAM_TABLES = ["materials", "fasteners", "gaskets", "engines", "seal_plans", "assemblies", "runs", "files", "audit_events"] as const;
+const TEAM_TABLES = [
+  "materials",
+  "fasteners",
+  "gaskets",
+  "engines",
+  "seal_plans",
+  "assemblies",
+  "machining_records",
+  "runs",
+  "files",
+  "audit_events",
+] as const;
 
 export interface TeamExport {
   format: "sealwright-team-export";

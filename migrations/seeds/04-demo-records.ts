@@ -5,7 +5,7 @@ import type { Knex } from "knex";
 // cylinders 5 and 6, then was rebuilt on ½ studs and has held since. The stretch readings on the ½
 // studs sit a little under what the handbook friction predicts, as a shop's real readings often do, so
 // three assemblies teach a friction of about 0.13 (checked by tests/integration/demo-seed.test.ts).
-// Runs only while the demo shop has no assemblies.
+// Runs only while the demo shop has no assemblies; the four's machining sheet, while it has none.
 const DEMO_TEAM = "Harrow Lane Boost Works";
 const FOUR = "Fenwick-Oddy 2.0 four";
 const SIX = "Number 47 crew straight six";
@@ -218,11 +218,49 @@ const SIX_RUNS: RunSeed[] = [
   },
 ];
 
+// The four's sleeves as measured after the deck was cut (invented): three about as planned (0.10 mm
+// proud), bore 1's sitting 0.06 mm under the deck, so only the wire gives its seal line a head start
+// over the copper body and its margin falls from the plan's to thin.
+const FOUR_MACHINING = {
+  measured_on: "2026-11-20",
+  measured_by: "Teo Vastrick",
+  head_flatness_mm: 0.02,
+  deck_flatness_mm: 0.015,
+  head_finish_um: 0.8,
+  deck_finish_um: 1.1,
+  head_removed_mm: 0.1,
+  deck_removed_mm: 0.05,
+  sleeve_protrusion_mm: JSON.stringify([-0.06, 0.11, 0.12, 0.11]),
+  wire_projection_mm: 0.12,
+  receiver_groove_depth_mm: 0.05,
+  gasket_compressed_mm: 1.07,
+  notes: "Demo record. Sleeves read with a dial indicator at four points each, the lowest kept. Bore 1 to be shimmed before assembly.",
+};
+
+/** The four's machining sheet, while the demo shop has none (apart from the records below, so an older demo gets it). */
+async function seedMachining(knex: Knex, teamId: number, at: string): Promise<void> {
+  if (await knex("machining_records").where({ team_id: teamId }).first("id")) return;
+  const engine = await knex("engines").where({ team_id: teamId, name: FOUR }).first("id");
+  const plan = engine && (await knex("seal_plans").where({ team_id: teamId, engine_id: engine.id, name: FOUR_PLAN }).first("id"));
+  if (!plan) return;
+  const builder = await knex("users").where({ email: "builder@example.com" }).first("id");
+  await knex("machining_records").insert({
+    ...FOUR_MACHINING,
+    team_id: teamId,
+    engine_id: engine.id,
+    plan_id: plan.id,
+    created_by: builder?.id ?? null,
+    created_at: at,
+    updated_at: at,
+  });
+}
+
 export async function seed(knex: Knex): Promise<void> {
   const team = await knex("teams").where({ name: DEMO_TEAM }).first("id");
   if (!team) return;
-  if (await knex("assemblies").where({ team_id: team.id }).first("id")) return;
   const at = new Date().toISOString();
+  await seedMachining(knex, team.id, at);
+  if (await knex("assemblies").where({ team_id: team.id }).first("id")) return;
   await knex.transaction(async (trx) => {
     const builder = await trx("users").where({ email: "builder@example.com" }).first("id");
     const engineId = async (name: string) => (await trx("engines").where({ team_id: team.id, name }).first("id"))?.id as number | undefined;

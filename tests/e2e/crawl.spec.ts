@@ -139,6 +139,7 @@ for (const [role, email] of [
     expect(visited.some((u) => /\/libraries\/fasteners\/\d+$/.test(u))).toBe(true);
     expect(visited.some((u) => /\/engines\/\d+\/compare\?/.test(u))).toBe(true);
     expect(visited.some((u) => /\/engines\/\d+\/build-sheet$/.test(u))).toBe(true);
+    expect(visited.some((u) => /\/engines\/\d+\/machining$/.test(u))).toBe(true);
     // sharing is a builder's; the demo viewer is shown the one engine shared with them
     expect(visited.some((u) => /\/engines\/\d+\/sharing$/.test(u))).toBe(role !== "viewer");
     if (role === "viewer") expect(new Set(visited.flatMap((u) => u.match(/\/engines\/(\d+)/)?.[1] ?? [])).size).toBe(1);

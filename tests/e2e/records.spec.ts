@@ -1,6 +1,6 @@
 import { expect, test } from "@playwright/test";
 import zlib from "node:zlib";
-import { screenshot, signIn } from "./fixtures";
+import { screenshot, seriousViolations, signIn } from "./fixtures";
 
 // The shop's records in the browser: an assembly with a photo (the progress bar shows while it goes),
 // two runs (one a failure) in the table and on the evidence chart, and the printed torque checklist.
@@ -96,12 +96,12 @@ test("a builder records an assembly with a photo, logs two runs and sees them in
   // two runs, one a failure
   await page.goto(`${engineUrl}/runs`);
   for (const run of [
-    { date: "2026-11-30", kpa: "300", peak: "13.5", outcome: "Held", cyl: "" },
-    { date: "2026-12-01", kpa: "360", peak: "17.5", outcome: "Combustion leak", cyl: "2, 3" },
+    { date: "2026-11-30", kpa: "300", peak: "135", outcome: "Held", cyl: "" },
+    { date: "2026-12-01", kpa: "360", peak: "175", outcome: "Combustion leak", cyl: "2, 3" },
   ]) {
     await page.getByLabel("Date", { exact: true }).fill(run.date);
-    await page.getByLabel("Manifold pressure (kPa absolute)").fill(run.kpa);
-    await page.getByLabel("Peak cylinder pressure, measured (MPa)").fill(run.peak);
+    await page.getByLabel("Manifold pressure (kPa abs)").fill(run.kpa);
+    await page.getByLabel("Peak cylinder pressure, measured (bar)").fill(run.peak);
     await page.getByLabel("Outcome", { exact: true }).selectOption({ label: run.outcome });
     await page.getByLabel("Cylinders affected").fill(run.cyl);
     await page.getByRole("button", { name: "Log the run" }).click();
@@ -138,4 +138,39 @@ test("the torque procedure checklist prints with its sequence drawing and a box 
   // 14 studs × 3 stages
   await expect(page.getByLabel("box to tick")).toHaveCount(42);
   await screenshot(page, "records-checklist-print");
+});
+
+test("a builder records a machining sheet and reads the plan's estimate planned against measured", async ({ page }) => {
+  await signIn(page, "builder@example.com");
+  await page.goto("/engines");
+  await page.getByRole("link", { name: FOUR }).click();
+  await page.getByRole("navigation", { name: "Engine" }).getByRole("link", { name: "Machining" }).click();
+  await expect(page.getByRole("heading", { name: "Machining and measurement", exact: true })).toBeVisible();
+  // the demo's sheet: bore 1's sleeve under the deck reads thin where the plan holds
+  const demo = page.getByRole("article", { name: "Machining record of 2026-11-20" });
+  await expect(demo.getByText("As planned")).toBeVisible();
+  await expect(demo.getByText(/^✔ Holds: combustion seal/)).toBeVisible();
+  await expect(demo.getByText(/^⚠ Thin: combustion seal.*cylinder 1/)).toBeVisible();
+
+  const form = page.getByRole("form", { name: "Record machining and measurements" });
+  await form.getByLabel("Date").fill("2026-11-27");
+  await form.getByLabel("Head flatness (mm)").fill("0.02");
+  await form.getByLabel("Gasket compressed thickness (mm)").fill("1.08");
+  for (const [bore, mm] of [
+    ["Bore 1", "0.10"],
+    ["Bore 2", "0.11"],
+    ["Bore 3", "-0.05"],
+    ["Bore 4", "0.10"],
+  ])
+    await form.getByLabel(bore, { exact: true }).fill(mm);
+  await form.getByRole("button", { name: "Keep the record" }).click();
+  await expect(page.getByRole("status").first()).toHaveText("✔ Machining record kept.");
+  const sheet = page.getByRole("article", { name: "Machining record of 2026-11-27" });
+  const table = sheet.getByRole("table", { name: "Seal margin planned and measured, per cylinder" });
+  await expect(table.getByRole("row")).toHaveCount(5);
+  await expect(table.getByRole("row").nth(3)).toContainText("-0.050 mm");
+  await expect(sheet.getByText("recorded only: the model takes the faces as flat")).toBeVisible();
+  await expect(sheet.getByText(/^⚠ Thin: combustion seal.*cylinder 3/)).toBeVisible();
+  expect(await seriousViolations(page)).toEqual([]);
+  await screenshot(page, "records-machining");
 });

@@ -236,6 +236,15 @@ beforeAll(async () => {
       ...Object.fromEntries(plan.stagesNm.map((s, i) => [`stage-${i}-reached`, String(s)])),
       "stretch-0": "0.35",
     },
+    "routes/engines/machining": {
+      planId: String(plan.id),
+      measuredOn: "2026-11-30",
+      measuredBy: "Fuzz Builder",
+      headFlatnessMm: "0.02",
+      gasketCompressedMm: "1.1",
+      "protrusion-0": "0.1",
+      notes: "",
+    },
     "routes/engines/runs": {
       ranOn: "2026-11-30",
       kind: "dyno",
@@ -331,6 +340,7 @@ export const FUZZ_GROUPS = {
     "routes/plans/copy",
     "routes/engines/assembly",
     "routes/app/file",
+    "routes/engines/machining",
   ],
 };
 

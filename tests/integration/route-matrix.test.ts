@@ -67,6 +67,8 @@ const MATRIX: Record<string, Row> = {
   "routes/plans/checklist GET": demoOnly("200"),
   "routes/engines/assembly GET": demoOnly("200"),
   "routes/engines/assembly POST": builderDemo("400"),
+  "routes/engines/machining GET": demoOnly("200"),
+  "routes/engines/machining POST": builderDemo("400"),
   "routes/engines/runs GET": demoOnly("200"),
   "routes/engines/runs POST": builderDemo("400"),
   "routes/engines/runs-csv GET": demoOnly("200"),
@@ -148,6 +150,7 @@ const HARMLESS: Record<string, Record<string, string>> = {
   "routes/engines/sharing": { viewerId: "" },
   "routes/app/tokens": { intent: "create", name: "" },
   "routes/engines/assembly": { assembledBy: "" },
+  "routes/engines/machining": { measuredBy: "" },
   "routes/engines/runs": { ranOn: "" },
 };
 
@@ -253,6 +256,7 @@ const WRITING: Record<string, Record<string, string>> = {
   "routes/api/v1/runs": {},
   "routes/app/tokens": { intent: "create", name: "Forged", role: "viewer" },
   "routes/engines/assembly": { planId: "1", assembledOn: "2026-01-01", assembledBy: "Forged", "stage-0-reached": "50" },
+  "routes/engines/machining": { planId: "1", measuredOn: "2026-01-01", measuredBy: "Forged", headFlatnessMm: "0.02" },
   "routes/engines/runs": { ranOn: "2026-01-01", kind: "dyno", manifoldPressureKpa: "200", outcome: "held" },
   "routes/engines/files-upload": {},
   "routes/libraries/item-files-upload": {},

@@ -148,10 +148,16 @@ export function assemblePlanInput(parts: PlanParts): PlanInputRaw {
   return plannedByStretch(parts.plan) ? withStretchTarget(raw, parts.plan.targetStretchMm) : raw;
 }
 
+/** The sleeves' material when the model sees sleeves (the engine has them and their material is known), else null. */
+export function sleeveOf(parts: Pick<PlanParts, "engine" | "sleeve">): MaterialRecord | null {
+  return parts.engine.sleeveKind !== "none" ? parts.sleeve : null;
+}
+
 function assembleTorqueInput(parts: PlanParts): PlanInputRaw {
-  const { engine, plan, fastener, gasket, head, block, sleeve } = parts;
+  const { engine, plan, fastener, gasket, head, block } = parts;
   const f = fastener;
-  const sleeved = engine.sleeveKind !== "none" && sleeve !== null;
+  const sleeve = sleeveOf(parts);
+  const sleeved = sleeve !== null;
   return {
     engine: { cylinders: engine.cylinders, layout: engine.layout, boreMm: engine.boreMm },
     studs: engine.studs,

@@ -1,7 +1,8 @@
 // The assembly record: a plan installed on an engine, as it was tightened. Pure; SI inside.
 import { z } from "zod";
 import { preloadForStretchN } from "../plan/stretch";
-import { isoDate, optionalNumber } from "./run";
+import type { UnitSystem } from "../units";
+import { isoDate, optionalNumber, optionalQuantity } from "./run";
 
 export interface StageDone {
   targetNm: number;
@@ -29,14 +30,15 @@ export interface AssemblyRecord {
   createdAt: string;
 }
 
-/** What the form needs to know of the plan picked: its stages and the engine's stud labels. */
+/** What the form needs to know of the plan picked: its stages and the engine's stud labels; the person's units. */
 export interface AssemblyFormContext {
   planIds: number[];
   stagesNm: number[];
   studLabels: string[];
+  units: UnitSystem;
 }
 
-/** The assembly form: fixed fields, then stage-N-reached / stage-N-angle and stretch-<i> per stud. */
+/** The assembly form, typed in the person's units: fixed fields, then stage-N-reached / stage-N-angle and stretch-<i> per stud. */
 export function parseAssemblyForm(form: Record<string, string>, ctx: AssemblyFormContext) {
   const base = z
     .object({
@@ -44,8 +46,8 @@ export function parseAssemblyForm(form: Record<string, string>, ctx: AssemblyFor
       assembledOn: isoDate("Date"),
       assembledBy: z.string().trim().min(1, "Say who assembled it").max(120, "At most 120 characters"),
       lubricant: z.string().trim().max(120, "Lubricant: at most 120 characters"),
-      measuredProtrusionMm: optionalNumber("Measured protrusion", -0.5, 1),
-      gasketCompressedMm: optionalNumber("Gasket compressed thickness", 0.1, 10),
+      measuredProtrusionMm: optionalQuantity("Measured protrusion", "smallLength", ctx.units, -0.5, 1),
+      gasketCompressedMm: optionalQuantity("Gasket compressed thickness", "smallLength", ctx.units, 0.1, 10),
       notes: z.string().max(4000, "Notes: at most 4,000 characters"),
     })
     .safeParse({
@@ -60,7 +62,9 @@ export function parseAssemblyForm(form: Record<string, string>, ctx: AssemblyFor
   const errors: Record<string, string> = {};
   if (!base.success) for (const i of base.error.issues) errors[i.path.map(String).join(".")] ??= i.message;
   const stagesDone: StageDone[] = ctx.stagesNm.map((targetNm, i) => {
-    const reached = optionalNumber(`Stage ${i + 1} torque reached`, 1, 5000).safeParse(form[`stage-${i}-reached`] ?? "");
+    const reached = optionalQuantity(`Stage ${i + 1} torque reached`, "torque", ctx.units, 1, 5000).safeParse(
+      form[`stage-${i}-reached`] ?? "",
+    );
     const angle = optionalNumber(`Stage ${i + 1} angle`, 1, 720).safeParse(form[`stage-${i}-angle`] ?? "");
     if (!reached.success) errors[`stage-${i}-reached`] = reached.error.issues[0]!.message;
     if (!angle.success) errors[`stage-${i}-angle`] = angle.error.issues[0]!.message;
@@ -71,7 +75,7 @@ export function parseAssemblyForm(form: Record<string, string>, ctx: AssemblyFor
   const studStretch: StudStretch[] = [];
   ctx.studLabels.forEach((label, i) => {
     // a stud stretch beyond 2 mm is a typing slip (heads studs stretch a few tenths at most)
-    const s = optionalNumber(`Stretch of stud ${label}`, 0.005, 2).safeParse(form[`stretch-${i}`] ?? "");
+    const s = optionalQuantity(`Stretch of stud ${label}`, "smallLength", ctx.units, 0.005, 2).safeParse(form[`stretch-${i}`] ?? "");
     if (!s.success) errors[`stretch-${i}`] = s.error.issues[0]!.message;
     else if (s.data !== undefined) studStretch.push({ label, stretchMm: s.data });
   });

@@ -1,5 +1,6 @@
 // The run log: what a run is, in the builder's words, and the form schema. Pure; SI inside.
 import { z } from "zod";
+import { formatQuantity, parseQuantity, unitFor, type Quantity, type UnitSystem } from "../units";
 
 export const RUN_KINDS = ["dyno", "pass", "street"] as const;
 export type RunKind = (typeof RUN_KINDS)[number];
@@ -60,6 +61,29 @@ export const optionalNumber = (label: string, min: number, max: number) =>
       return n;
     });
 
+/**
+ * "" → undefined, else a figure typed in the person's unit (or with a unit of the quantity after it) read
+ * into SI, within [minSi, maxSi]; the bounds are worded in the person's unit.
+ */
+export const optionalQuantity = (label: string, quantity: Quantity, system: UnitSystem, minSi: number, maxSi: number) =>
+  z
+    .string()
+    .trim()
+    .transform((s, ctx) => {
+      if (s === "") return undefined;
+      const r = parseQuantity(s, quantity, unitFor(quantity, system));
+      if (!r.ok) {
+        ctx.addIssue({ code: "custom", message: `${label}: ${r.message}` });
+        return z.NEVER;
+      }
+      if (r.valueSi < minSi || r.valueSi > maxSi) {
+        const f = (x: number) => formatQuantity(x, quantity, system);
+        ctx.addIssue({ code: "custom", message: `${label} must be between ${f(minSi)} and ${f(maxSi)}` });
+        return z.NEVER;
+      }
+      return r.valueSi;
+    });
+
 /** "1, 3 4" → [1, 3, 4]: each a cylinder of this engine. */
 export function cylinderList(cylinders: number) {
   return z
@@ -82,15 +106,16 @@ export function cylinderList(cylinders: number) {
     });
 }
 
-export function runSchema(cylinders: number) {
+/** The run form in the person's units (pressures read into kPa absolute and MPa). */
+export function runSchema(cylinders: number, units: UnitSystem) {
   return z
     .object({
       ranOn: isoDate("Date"),
       kind: z.enum(RUN_KINDS, "Pick dyno, pass or street"),
       // kPa absolute; 1000 kPa is about 10 bar of boost, far past any engine here
-      manifoldPressureKpa: optionalNumber("Manifold pressure", 20, 1000),
+      manifoldPressureKpa: optionalQuantity("Manifold pressure", "manifold", units, 20, 1000),
       fuel: z.string().trim().max(60, "Fuel: at most 60 characters"),
-      peakCylinderPressureMpa: optionalNumber("Peak cylinder pressure", 1, 100),
+      peakCylinderPressureMpa: optionalQuantity("Peak cylinder pressure", "pressure", units, 1, 100),
       outcome: z.enum(OUTCOMES, "Pick an outcome"),
       cylindersAffected: cylinderList(cylinders),
       notes: z.string().max(4000, "Notes: at most 4,000 characters"),

@@ -4,7 +4,7 @@ import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { Button, Field, FormError, SelectField, TextArea } from "~/components/form";
 import { FileList, Uploader } from "~/components/uploader";
 import { parseAssemblyForm } from "~/lib/records/assembly";
-import { formatQuantity } from "~/lib/units";
+import { formatQuantity, inputValue, unitFor } from "~/lib/units";
 import { assemblyReadings, learnedFrictions } from "~/models/assembly-readings.server";
 import { requireEngine } from "~/models/engine.server";
 import { listFiles } from "~/models/files.server";
@@ -56,6 +56,7 @@ export async function action({ request, params }: Route.ActionArgs) {
     planIds: plans.map((p) => p.id),
     stagesNm: plan?.stagesNm ?? [],
     studLabels: engine.studs.map((s, i) => s.label ?? `S${i + 1}`),
+    units: user.units,
   });
   if (!parsed.ok)
     return data({ errors: parsed.errors, values: form, message: "The assembly was not recorded: see the fields marked." }, { status: 400 });
@@ -193,14 +194,14 @@ export default function Assembly({ loaderData: d, actionData }: Route.ComponentP
             <Field label="Assembled by" name="assembledBy" defaultValue={values.assembledBy ?? d.userName} error={errors.assembledBy} />
             <Field label="Lubricant used" name="lubricant" defaultValue={values.lubricant ?? formPlan.lubricant} error={errors.lubricant} />
             <Field
-              label="Protrusion measured (mm)"
+              label={`Protrusion measured (${unitFor("smallLength", u)})`}
               name="measuredProtrusionMm"
               inputMode="decimal"
               defaultValue={values.measuredProtrusionMm}
               error={errors.measuredProtrusionMm}
             />
             <Field
-              label="Gasket compressed thickness (mm)"
+              label={`Gasket compressed thickness (${unitFor("smallLength", u)})`}
               name="gasketCompressedMm"
               inputMode="decimal"
               defaultValue={values.gasketCompressedMm}
@@ -218,14 +219,14 @@ export default function Assembly({ loaderData: d, actionData }: Route.ComponentP
               ))}
           </p>
           <fieldset className="grid gap-3 sm:grid-cols-3">
-            <legend className="text-sm font-bold">Tightening as done (N·m reached, or the angle turned)</legend>
+            <legend className="text-sm font-bold">Tightening as done ({unitFor("torque", u)} reached, or the angle turned)</legend>
             {formPlan.stagesNm.map((s, i) => (
               <div key={i} className="flex gap-2">
                 <Field
-                  label={`Stage ${i + 1} (plan ${s} N·m) reached`}
+                  label={`Stage ${i + 1} (plan ${formatQuantity(s, "torque", u)}) reached`}
                   name={`stage-${i}-reached`}
                   inputMode="decimal"
-                  defaultValue={values[`stage-${i}-reached`] ?? String(s)}
+                  defaultValue={values[`stage-${i}-reached`] ?? inputValue(s, "torque", u)}
                   error={errors[`stage-${i}-reached`]}
                 />
                 <Field
@@ -239,7 +240,9 @@ export default function Assembly({ loaderData: d, actionData }: Route.ComponentP
             ))}
           </fieldset>
           <fieldset className="grid grid-cols-2 gap-2 sm:grid-cols-6">
-            <legend className="text-sm font-bold">Stud stretch measured at the last stage (mm), where taken</legend>
+            <legend className="text-sm font-bold">
+              Stud stretch measured at the last stage ({unitFor("smallLength", u)}), where taken
+            </legend>
             {d.studLabels.map((label, i) => (
               <Field
                 key={i}

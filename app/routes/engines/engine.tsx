@@ -20,6 +20,7 @@ const TABS: { to: string; label: string; end?: boolean; builder?: boolean }[] = 
   { to: "build-sheet", label: "Build sheet" },
   { to: "sharing", label: "Sharing", builder: true },
   { to: "assembly", label: "Assembly" },
+  { to: "machining", label: "Machining" },
   { to: "runs", label: "Runs" },
   { to: "files", label: "Files" },
 ];

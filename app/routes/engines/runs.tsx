@@ -5,7 +5,7 @@ import { Button, Field, fieldErrors, FormError, SelectField, TextArea } from "~/
 import { FileList, Uploader } from "~/components/uploader";
 import { OUTCOME_LABEL, OUTCOMES, RUN_FIELDS, RUN_KIND_LABEL, RUN_KINDS, runSchema, selectRuns, type RunSort } from "~/lib/records/run";
 import { runQuery } from "~/lib/records/run-query";
-import { formatQuantity } from "~/lib/units";
+import { formatQuantity, unitFor } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
 import { listFiles } from "~/models/files.server";
 import { createRun, listRuns } from "~/models/records.server";
@@ -45,7 +45,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const engine = await requireEngine(who, params.engineId);
   const form = await request.formData();
   const values = Object.fromEntries(RUN_FIELDS.map((k) => [k, typeof form.get(k) === "string" ? (form.get(k) as string) : ""]));
-  const parsed = runSchema(engine.cylinders).safeParse(values);
+  const parsed = runSchema(engine.cylinders, user.units).safeParse(values);
   if (!parsed.success)
     return data(
       { errors: fieldErrors(parsed.error.issues), values, message: "The run was not logged: see the fields marked." },
@@ -196,14 +196,15 @@ export default function Runs({ loaderData: d, actionData }: Route.ComponentProps
             />
             <Field label="Fuel" name="fuel" defaultValue={values.fuel} error={errors.fuel} />
             <Field
-              label="Manifold pressure (kPa absolute)"
+              label={`Manifold pressure (${unitFor("manifold", d.units)})`}
               name="manifoldPressureKpa"
               inputMode="decimal"
               defaultValue={values.manifoldPressureKpa}
               error={errors.manifoldPressureKpa}
+              hint="Absolute, or boost with a g after it (e.g. 1.4 bar g, 20 psi g)."
             />
             <Field
-              label="Peak cylinder pressure, measured (MPa)"
+              label={`Peak cylinder pressure, measured (${unitFor("pressure", d.units)})`}
               name="peakCylinderPressureMpa"
               inputMode="decimal"
               defaultValue={values.peakCylinderPressureMpa}

@@ -17,18 +17,18 @@ const ok = {
 
 describe("run schema", () => {
   it("takes a plain run and a failure with its cylinders", () => {
-    expect(runSchema(6).parse(ok).manifoldPressureKpa).toBe(300);
-    expect(runSchema(6).parse({ ...ok, outcome: "blown-gasket", cylindersAffected: "6, 5 5" }).cylindersAffected).toEqual([5, 6]);
+    expect(runSchema(6, "metric").parse(ok).manifoldPressureKpa).toBe(300);
+    expect(runSchema(6, "metric").parse({ ...ok, outcome: "blown-gasket", cylindersAffected: "6, 5 5" }).cylindersAffected).toEqual([5, 6]);
   });
   it.each([
     [{ ranOn: "2026-02-30" }, "ranOn"],
     [{ kind: "drag" }, "kind"],
     [{ manifoldPressureKpa: "", peakCylinderPressureMpa: "" }, "manifoldPressureKpa"],
-    [{ peakCylinderPressureMpa: "500" }, "peakCylinderPressureMpa"],
+    [{ peakCylinderPressureMpa: "5000" }, "peakCylinderPressureMpa"],
     [{ outcome: "blown-gasket" }, "cylindersAffected"],
     [{ outcome: "seeping", cylindersAffected: "7" }, "cylindersAffected"],
   ])("refuses %j with a message on %s", (change, field) => {
-    const r = runSchema(6).safeParse({ ...ok, ...change });
+    const r = runSchema(6, "metric").safeParse({ ...ok, ...change });
     expect(r.success).toBe(false);
     expect(r.error!.issues.map((i) => i.path.join("."))).toContain(field);
   });
