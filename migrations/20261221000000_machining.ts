@@ -28,6 +28,10 @@ export async function up(knex: Knex): Promise<void> {
     t.string("created_at").notNullable();
     t.string("updated_at").notNullable();
     t.index(["team_id", "engine_id"]);
+    // a leading index for each foreign key (deletes and joins from the parent side)
+    t.index(["engine_id"]);
+    t.index(["plan_id"]);
+    t.index(["created_by"]);
   });
 }
 
