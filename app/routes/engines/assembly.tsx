@@ -1,5 +1,6 @@
 import { data, Form, Link, redirect } from "react-router";
 import type { Route } from "./+types/assembly";
+import { ScrollTable } from "~/components/scroll-table";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { Button, Field, FormError, SelectField, TextArea } from "~/components/form";
 import { FileList, Uploader } from "~/components/uploader";
@@ -112,45 +113,28 @@ export default function Assembly({ loaderData: d, actionData }: Route.ComponentP
                 .join(" · ") || "—"}
             </p>
             {a.reading.studs.length ? (
-              <div className="mt-2 overflow-x-auto" tabIndex={0} role="region" aria-label="stages and studs (scrolls sideways)">
-                <table className="border-collapse tabular">
-                  <caption className="text-left text-xs text-forge-700">
+              <ScrollTable
+                className="mt-2"
+                region="stages and studs"
+                caption={
+                  <>
                     Measured stretch → preload through the model's stud stiffness (
                     {a.reading.studStiffnessNPerMm ? `${(a.reading.studStiffnessNPerMm / 1000).toFixed(0)} kN/mm` : "—"}), beside what the
                     torque reached predicted
-                  </caption>
-                  <thead>
-                    <tr>
-                      <th scope="col" className="px-2 text-left">
-                        Stud
-                      </th>
-                      <th scope="col" className="px-2 text-right">
-                        Stretch
-                      </th>
-                      <th scope="col" className="px-2 text-right">
-                        Implied preload
-                      </th>
-                      <th scope="col" className="px-2 text-right">
-                        Predicted from torque
-                      </th>
-                      <th scope="col" className="px-2 text-right">
-                        Difference
-                      </th>
-                    </tr>
-                  </thead>
-                  <tbody>
-                    {a.reading.studs.map((s) => (
-                      <tr key={s.label}>
-                        <td className="px-2">{s.label}</td>
-                        <td className="px-2 text-right">{formatQuantity(s.stretchMm, "smallLength", u, { decimals: 3 })}</td>
-                        <td className="px-2 text-right">{formatQuantity(s.impliedPreloadN, "force", u)}</td>
-                        <td className="px-2 text-right">{formatQuantity(s.predictedPreloadN, "force", u)}</td>
-                        <td className="px-2 text-right">{pct(s.difference)}</td>
-                      </tr>
-                    ))}
-                  </tbody>
-                </table>
-              </div>
+                  </>
+                }
+                columns={["Stud", "Stretch", "Implied preload", "Predicted from torque", "Difference"]}
+              >
+                {a.reading.studs.map((s) => (
+                  <tr key={s.label}>
+                    <td className="px-2">{s.label}</td>
+                    <td className="px-2 text-right">{formatQuantity(s.stretchMm, "smallLength", u, { decimals: 3 })}</td>
+                    <td className="px-2 text-right">{formatQuantity(s.impliedPreloadN, "force", u)}</td>
+                    <td className="px-2 text-right">{formatQuantity(s.predictedPreloadN, "force", u)}</td>
+                    <td className="px-2 text-right">{pct(s.difference)}</td>
+                  </tr>
+                ))}
+              </ScrollTable>
             ) : null}
             {a.reading.problem ? <p className="text-caution">⚠ {a.reading.problem}</p> : null}
             {a.notes ? <p className="mt-1">{a.notes}</p> : null}

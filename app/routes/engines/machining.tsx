@@ -1,5 +1,6 @@
 import { data, Form, redirect } from "react-router";
 import type { Route } from "./+types/machining";
+import { ScrollTable } from "~/components/scroll-table";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { Button, Field, FormError, SelectField, TextArea } from "~/components/form";
 import { STATUS_LOOK } from "~/components/status-look";
@@ -175,51 +176,27 @@ function SheetView({ sheet: s, units: u }: { sheet: Sheet; units: UnitSystem }) 
       {s.notes ? <p>{s.notes}</p> : null}
       {e.ok ? (
         <>
-          <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="planned against measured (scrolls sideways)">
-            <table className="border-collapse tabular" aria-label="Seal margin planned and measured, per cylinder">
-              <caption className="text-left text-xs text-forge-700">
-                Seal margin per cylinder at the bottom of the preload band, hot and fired: planned, and with the measured figures
-              </caption>
-              <thead>
-                <tr>
-                  <th scope="col" className="px-2 text-left">
-                    Cylinder
-                  </th>
-                  <th scope="col" className="px-2 text-right">
-                    Protrusion planned
-                  </th>
-                  <th scope="col" className="px-2 text-right">
-                    measured
-                  </th>
-                  <th scope="col" className="px-2 text-right">
-                    Margin planned
-                  </th>
-                  <th scope="col" className="px-2 text-right">
-                    measured
-                  </th>
-                  <th scope="col" className="px-2 text-right">
-                    Change
-                  </th>
-                </tr>
-              </thead>
-              <tbody>
-                {e.compare.cylinders.map((c, b) => (
-                  <tr key={c.cylinder}>
-                    <td className="px-2">{c.cylinder}</td>
-                    <td className="px-2 text-right">{fine(e.planned.protrusionMm)}</td>
-                    <td className="px-2 text-right">{fine(s.sleeveProtrusionMm[b] ?? null)}</td>
-                    <td className="px-2 text-right">
-                      {STATUS_LOOK[c.plannedStatus].icon} {c.planned.toFixed(2)}
-                    </td>
-                    <td className="px-2 text-right">
-                      {STATUS_LOOK[c.measuredStatus].icon} {c.measured.toFixed(2)}
-                    </td>
-                    <td className="px-2 text-right">{`${c.measured >= c.planned ? "+" : ""}${(c.measured - c.planned).toFixed(2)}`}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+          <ScrollTable
+            region="planned against measured"
+            label="Seal margin planned and measured, per cylinder"
+            caption="Seal margin per cylinder at the bottom of the preload band, hot and fired: planned, and with the measured figures"
+            columns={["Cylinder", "Protrusion planned", "measured", "Margin planned", "measured", "Change"]}
+          >
+            {e.compare.cylinders.map((c, b) => (
+              <tr key={c.cylinder}>
+                <td className="px-2">{c.cylinder}</td>
+                <td className="px-2 text-right">{fine(e.planned.protrusionMm)}</td>
+                <td className="px-2 text-right">{fine(s.sleeveProtrusionMm[b] ?? null)}</td>
+                <td className="px-2 text-right">
+                  {STATUS_LOOK[c.plannedStatus].icon} {c.planned.toFixed(2)}
+                </td>
+                <td className="px-2 text-right">
+                  {STATUS_LOOK[c.measuredStatus].icon} {c.measured.toFixed(2)}
+                </td>
+                <td className="px-2 text-right">{`${c.measured >= c.planned ? "+" : ""}${(c.measured - c.planned).toFixed(2)}`}</td>
+              </tr>
+            ))}
+          </ScrollTable>
           <dl className="grid gap-2 sm:grid-cols-2">
             <VerdictBox title="As planned" check={e.compare.planned} />
             <VerdictBox title="As measured" check={e.compare.measured} />
