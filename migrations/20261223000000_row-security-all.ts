@@ -45,7 +45,13 @@ const USER = `${setting("user_id")}::integer`;
 type Policy = { name: string; table: string; command: "all" | "select" | "insert" | "update" | "delete"; using?: string; check?: string };
 
 const NARROW: Policy[] = [
-  { name: "sessions_by_hash", table: "sessions", command: "all", using: `id_hash = ${setting("session_hash")}`, check: `id_hash = ${setting("session_hash")}` },
+  {
+    name: "sessions_by_hash",
+    table: "sessions",
+    command: "all",
+    using: `id_hash = ${setting("session_hash")}`,
+    check: `id_hash = ${setting("session_hash")}`,
+  },
   { name: "sessions_by_user", table: "sessions", command: "all", using: `user_id = ${USER}`, check: `user_id = ${USER}` },
   { name: "memberships_by_user", table: "memberships", command: "select", using: `user_id = ${USER}` },
   { name: "api_tokens_by_hash", table: "api_tokens", command: "select", using: `token_hash = ${setting("token_hash")}` },

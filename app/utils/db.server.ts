@@ -43,12 +43,18 @@ const ATTEMPTS = 5;
  * owner, a quota) that another process raced is refused with 40001 and run again here from the start,
  * so `work` must only touch the database. Every write that is more than one statement goes through here.
  */
-export async function writeTransaction<T>(work: (trx: Knex.Transaction) => Promise<T>): Promise<T> {
+export async function writeTransaction<T>(work: (trx: Knex.Transaction) => Promise<T>, scope: RowScope = {}): Promise<T> {
   const knex = db();
   if (!isPostgres(knex)) return knex.transaction(work);
   for (let attempt = 1; ; attempt++) {
     try {
-      return await knex.transaction(work, { isolationLevel: "serializable" });
+      return await knex.transaction(
+        async (trx) => {
+          await setScope(trx, scope);
+          return work(trx);
+        },
+        { isolationLevel: "serializable" },
+      );
     } catch (error) {
       const code = (error as { code?: string }).code;
       if (attempt >= ATTEMPTS || !code || !RETRYABLE.has(code)) throw error;
@@ -56,6 +62,36 @@ export async function writeTransaction<T>(work: (trx: Knex.Transaction) => Promi
       await new Promise((resolve) => setTimeout(resolve, 5 * attempt + Math.random() * 20));
     }
   }
+}
+
+/**
+ * What PostgreSQL's row-security policies are told about one transaction (migrations 20261219000000_hosted
+ * and 20261223000000_row-security-all): the team whose rows it may see and write, and for the few lookups
+ * made before the team is known, the one person, session or token hash they may find.
+ */
+export type RowScope = { teamId?: number; userId?: number; sessionHash?: string; tokenHash?: string };
+
+const SETTINGS = { teamId: "app.team_id", userId: "app.user_id", sessionHash: "app.session_hash", tokenHash: "app.token_hash" } as const;
+
+// SET LOCAL (set_config(…, true)): the settings end with the transaction, so a pooled connection never
+// carries them to the next request.
+async function setScope(trx: Knex.Transaction, scope: RowScope): Promise<void> {
+  for (const key of Object.keys(SETTINGS) as (keyof RowScope)[]) {
+    const value = scope[key];
+    if (value === undefined) continue;
+    if (typeof value === "number" && (!Number.isSafeInteger(value) || value <= 0)) throw new Error(`row scope: bad ${key} ${value}`);
+    await trx.raw("select set_config(?, ?, true)", [SETTINGS[key], String(value)]);
+  }
+}
+
+/** Reads (or single writes) in one row scope; on SQLite `work` runs on the plain connection. */
+export async function withScope<T>(scope: RowScope, work: (q: Knex) => Promise<T>): Promise<T> {
+  const knex = db();
+  if (!isPostgres(knex)) return work(knex);
+  return knex.transaction(async (trx) => {
+    await setScope(trx, scope);
+    return work(trx);
+  });
 }
 
 /**
@@ -67,12 +103,7 @@ export async function writeTransaction<T>(work: (trx: Knex.Transaction) => Promi
  */
 export async function withTeam<T>(teamId: number, work: (q: Knex) => Promise<T>): Promise<T> {
   if (!Number.isSafeInteger(teamId) || teamId <= 0) throw new Error(`withTeam: bad team id ${teamId}`);
-  const knex = db();
-  if (!isPostgres(knex)) return work(knex);
-  return knex.transaction(async (trx) => {
-    await trx.raw("select set_config('app.team_id', ?, true)", [String(teamId)]);
-    return work(trx);
-  });
+  return withScope({ teamId }, work);
 }
 
 export async function closeDb(): Promise<void> {

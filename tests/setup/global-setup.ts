@@ -4,7 +4,7 @@ import knexFactory from "knex";
 import { register } from "tsx/esm/api";
 import type { TestProject } from "vitest/node";
 import { knexConfig } from "../../app/utils/knex-config.server.ts";
-import { createDatabase, dropDatabase, testPostgresUrl, uniqueName, urlFor } from "./postgres.ts";
+import { createAppRole, createDatabase, dropDatabase, dropRole, testPostgresUrl, uniqueName, urlFor } from "./postgres.ts";
 
 declare module "vitest" {
   export interface ProvidedContext {
@@ -12,6 +12,8 @@ declare module "vitest" {
     /** Set on the PostgreSQL pass: the server's URL and the template database each test file copies. */
     pgBaseUrl: string | null;
     pgTemplate: string | null;
+    /** On the PostgreSQL pass: the role that owns nothing (RLS binds it), granted the template's tables. */
+    pgAppRole: string | null;
   }
 }
 
@@ -32,6 +34,9 @@ export default async function setup(project: TestProject) {
   try {
     await knex.migrate.latest();
     await knex.seed.run();
+    // The app role of docs/hosting.md for this run: it owns nothing, so row security binds it. Its grants
+    // are on the template's tables, and every per-file copy carries them.
+    if (pgBaseUrl && pgTemplate) await createAppRole(knex, `${pgTemplate}_app`);
     // Fold the WAL into the main file so a plain copy holds everything.
     if (!pgBaseUrl) await knex.raw("PRAGMA wal_checkpoint(TRUNCATE)");
   } finally {
@@ -41,8 +46,12 @@ export default async function setup(project: TestProject) {
   project.provide("testDbDir", dir);
   project.provide("pgBaseUrl", pgBaseUrl);
   project.provide("pgTemplate", pgTemplate);
+  project.provide("pgAppRole", pgTemplate ? `${pgTemplate}_app` : null);
   return async () => {
     fs.rmSync(dir, { recursive: true, force: true });
-    if (pgBaseUrl && pgTemplate) await dropDatabase(pgBaseUrl, pgTemplate);
+    if (pgBaseUrl && pgTemplate) {
+      await dropDatabase(pgBaseUrl, pgTemplate);
+      await dropRole(pgBaseUrl, `${pgTemplate}_app`);
+    }
   };
 }

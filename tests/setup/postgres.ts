@@ -55,3 +55,28 @@ export async function createDatabase(baseUrl: string, name: string, template?: s
 export async function dropDatabase(baseUrl: string, name: string): Promise<void> {
   await admin(baseUrl, (c) => c.query(`DROP DATABASE IF EXISTS ${ident(name)} WITH (FORCE)`));
 }
+
+type RawRunner = { raw: (sql: string, bindings?: readonly string[]) => Promise<unknown> };
+
+/**
+ * The hosted app role (docs/hosting.md, docs/decisions/0017-row-security.md) for a test run: a login role
+ * that owns nothing and does not bypass row security, granted the tables and sequences of the database
+ * `owner` is connected to. Roles are cluster-wide, so each run makes its own and drops it after.
+ */
+export async function createAppRole(owner: RawRunner, role: string): Promise<void> {
+  await owner.raw(`create role ${ident(role)} login nosuperuser nocreatedb nocreaterole nobypassrls`);
+  await owner.raw(`grant select, insert, update, delete on all tables in schema public to ${ident(role)}`);
+  await owner.raw(`grant usage, select on all sequences in schema public to ${ident(role)}`);
+}
+
+export async function dropRole(baseUrl: string, role: string): Promise<void> {
+  await admin(baseUrl, (c) => c.query(`DROP ROLE IF EXISTS ${ident(role)}`));
+}
+
+/** The same URL with another user (trust auth on the project's machines: no password). */
+export function urlAs(url: string, user: string): string {
+  const parsed = new URL(url);
+  parsed.username = user;
+  parsed.password = "";
+  return parsed.toString();
+}

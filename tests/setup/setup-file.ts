@@ -2,18 +2,26 @@ import crypto from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import { afterAll, afterEach, beforeEach, inject, vi } from "vitest";
-import { createDatabase, dropDatabase, uniqueName, urlFor } from "./postgres.ts";
+import { createDatabase, dropDatabase, uniqueName, urlAs, urlFor } from "./postgres.ts";
+import { withUser } from "../../app/utils/knex-config.server.ts";
 
 // Each test file gets its own copy of the migrated, seeded template database: a SQLite file, or on the
 // PostgreSQL pass a database made from the template database.
 const tmp = inject("testDbDir");
 const pgBaseUrl = inject("pgBaseUrl");
 const pgTemplate = inject("pgTemplate");
+const pgAppRole = inject("pgAppRole");
 const file = path.join(tmp, `db-${process.pid}-${crypto.randomBytes(4).toString("hex")}.sqlite`);
 const pgDatabase = pgBaseUrl && pgTemplate ? uniqueName("") : null;
 if (pgBaseUrl && pgTemplate && pgDatabase) {
   await createDatabase(pgBaseUrl, pgDatabase, pgTemplate);
-  process.env.DATABASE_URL = urlFor(pgBaseUrl, pgDatabase);
+  // Two doors to the same copy (tests/setup/db-roles.ts): the owner (migrations, set-up rows; row security
+  // never binds it) and the app role of docs/hosting.md (owns nothing, so the policies bind it).
+  // TEST_PG_ROLE=app puts the app's own db() on the app role, as a hosted process runs.
+  const ownerUrl = withUser(urlFor(pgBaseUrl, pgDatabase));
+  process.env.TEST_OWNER_DATABASE_URL = ownerUrl;
+  process.env.TEST_APP_DATABASE_URL = pgAppRole ? urlAs(ownerUrl, pgAppRole) : ownerUrl;
+  process.env.DATABASE_URL = process.env.TEST_PG_ROLE === "app" ? process.env.TEST_APP_DATABASE_URL : ownerUrl;
 } else {
   fs.copyFileSync(path.join(tmp, "template.sqlite"), file);
   delete process.env.DATABASE_URL;
