@@ -1,5 +1,5 @@
 import crypto from "node:crypto";
-import { db, now, writeTransaction } from "~/utils/db.server";
+import { db, now, withTeam, writeTransaction } from "~/utils/db.server";
 import type { Role } from "./user.server";
 
 // Personal API tokens. A token is 32 random bytes (256 bits) shown once; the database keeps only its
@@ -41,48 +41,64 @@ export class TokenLimitError extends Error {}
 /** A new token for the person in the team at `role` (the caller checks it is within theirs); its text once. */
 export async function createToken(teamId: number, userId: number, name: string, role: Role): Promise<{ id: number; token: string }> {
   const token = TOKEN_PREFIX + crypto.randomBytes(32).toString("base64url");
-  return writeTransaction(async (trx) => {
-    const live = await trx("api_tokens").where({ team_id: teamId, user_id: userId }).whereNull("revoked_at").count({ n: "*" }).first();
-    if (Number(live?.n ?? 0) >= MAX_TOKENS_PER_TEAM)
-      throw new TokenLimitError(`You have ${MAX_TOKENS_PER_TEAM} live tokens in this shop; revoke one first.`);
-    const [row] = await trx("api_tokens")
-      .insert({ team_id: teamId, user_id: userId, name, token_hash: hashToken(token), prefix: token.slice(0, 10), role, created_at: now() })
-      .returning("id");
-    const id = typeof row === "object" ? row.id : row;
-    await trx("audit_events").insert({
-      team_id: teamId,
-      user_id: userId,
-      action: "api-token.created",
-      detail: JSON.stringify({ tokenId: id, name, role }),
-      created_at: now(),
-    });
-    return { id, token };
-  });
+  return writeTransaction(
+    async (trx) => {
+      const live = await trx("api_tokens").where({ team_id: teamId, user_id: userId }).whereNull("revoked_at").count({ n: "*" }).first();
+      if (Number(live?.n ?? 0) >= MAX_TOKENS_PER_TEAM)
+        throw new TokenLimitError(`You have ${MAX_TOKENS_PER_TEAM} live tokens in this shop; revoke one first.`);
+      const [row] = await trx("api_tokens")
+        .insert({
+          team_id: teamId,
+          user_id: userId,
+          name,
+          token_hash: hashToken(token),
+          prefix: token.slice(0, 10),
+          role,
+          created_at: now(),
+        })
+        .returning("id");
+      const id = typeof row === "object" ? row.id : row;
+      await trx("audit_events").insert({
+        team_id: teamId,
+        user_id: userId,
+        action: "api-token.created",
+        detail: JSON.stringify({ tokenId: id, name, role }),
+        created_at: now(),
+      });
+      return { id, token };
+    },
+    { teamId: teamId },
+  );
 }
 
 /** The person's live tokens in the team, newest first. */
 export async function listTokens(teamId: number, userId: number): Promise<ApiTokenRow[]> {
-  const rows = await db()("api_tokens").where({ team_id: teamId, user_id: userId }).whereNull("revoked_at").orderBy("id", "desc");
+  const rows = await withTeam(teamId, (k) =>
+    k("api_tokens").where({ team_id: teamId, user_id: userId }).whereNull("revoked_at").orderBy("id", "desc"),
+  );
   return rows.map((r) => ({ id: r.id, name: r.name, prefix: r.prefix, role: r.role, createdAt: r.created_at, lastUsedAt: r.last_used_at }));
 }
 
 /** Revokes one of the person's own tokens in the team; false when there is no such live token. */
 export async function revokeToken(teamId: number, userId: number, tokenId: number): Promise<boolean> {
-  return writeTransaction(async (trx) => {
-    const n = await trx("api_tokens")
-      .where({ id: tokenId, team_id: teamId, user_id: userId })
-      .whereNull("revoked_at")
-      .update({ revoked_at: now() });
-    if (n === 0) return false;
-    await trx("audit_events").insert({
-      team_id: teamId,
-      user_id: userId,
-      action: "api-token.revoked",
-      detail: JSON.stringify({ tokenId }),
-      created_at: now(),
-    });
-    return true;
-  });
+  return writeTransaction(
+    async (trx) => {
+      const n = await trx("api_tokens")
+        .where({ id: tokenId, team_id: teamId, user_id: userId })
+        .whereNull("revoked_at")
+        .update({ revoked_at: now() });
+      if (n === 0) return false;
+      await trx("audit_events").insert({
+        team_id: teamId,
+        user_id: userId,
+        action: "api-token.revoked",
+        detail: JSON.stringify({ tokenId }),
+        created_at: now(),
+      });
+      return true;
+    },
+    { teamId: teamId },
+  );
 }
 
 // last_used_at is written at most once a minute per token, so a busy script is not a write per request.

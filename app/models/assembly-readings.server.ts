@@ -1,7 +1,7 @@
 import { preloadFromTorque } from "~/lib/clamp";
 import { impliedPreloads, type AssemblyRecord, type ImpliedPreload } from "~/lib/records/assembly";
 import { learnFriction, preloadShift, type FrictionObservation, type LearnedFriction } from "~/lib/records/friction";
-import { db } from "~/utils/db.server";
+import { withTeam } from "~/utils/db.server";
 import { getEngine, type EngineRow } from "./engine.server";
 import { evaluateAtFiring } from "./plan-at-pressure.server";
 import { listPlans, type PlanRow } from "./plan.server";
@@ -70,21 +70,23 @@ const lubeKey = (s: string) => s.trim().toLowerCase();
 
 /** The team's learned friction per fastener + lubricant, from every assembly with stretch at a known torque. */
 export async function learnedFrictions(teamId: number): Promise<LearnedFor[]> {
-  const rows = await db()("assemblies as a")
-    .join("seal_plans as p", "p.id", "a.plan_id")
-    .join("fasteners as f", "f.id", "p.fastener_id")
-    .where("a.team_id", teamId)
-    .where("p.team_id", teamId)
-    .whereNotNull("a.final_torque_nm")
-    .whereNot("a.stud_stretch", "[]")
-    .select(
-      "a.*",
-      "p.fastener_id",
-      "f.name as fastener_name",
-      "f.maker_torque_nm",
-      "f.thread_friction as hb_thread",
-      "f.bearing_friction as hb_bearing",
-    );
+  const rows = await withTeam(teamId, (k) =>
+    k("assemblies as a")
+      .join("seal_plans as p", "p.id", "a.plan_id")
+      .join("fasteners as f", "f.id", "p.fastener_id")
+      .where("a.team_id", teamId)
+      .where("p.team_id", teamId)
+      .whereNotNull("a.final_torque_nm")
+      .whereNot("a.stud_stretch", "[]")
+      .select(
+        "a.*",
+        "p.fastener_id",
+        "f.name as fastener_name",
+        "f.maker_torque_nm",
+        "f.thread_friction as hb_thread",
+        "f.bearing_friction as hb_bearing",
+      ),
+  );
   const groups = new Map<
     string,
     { rows: typeof rows; obs: FrictionObservation[]; geometry: FrictionObservation["geometry"] | null; d: number }

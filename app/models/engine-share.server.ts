@@ -1,5 +1,5 @@
 import { data } from "react-router";
-import { db, now, writeTransaction } from "~/utils/db.server";
+import { now, withTeam, writeTransaction } from "~/utils/db.server";
 
 // Which of the shop's viewers (customers, tuners) may see an engine. Builders and owners see every
 // engine of the shop; a viewer sees only those shared here (app/models/viewer-scope.server.ts).
@@ -13,14 +13,16 @@ export interface ViewerShare {
 
 /** The shop's viewers, each with whether this engine is shared with them. */
 export async function engineViewers(teamId: number, engineId: number): Promise<ViewerShare[]> {
-  const rows = await db()("memberships as m")
-    .join("users as u", "u.id", "m.user_id")
-    .leftJoin("engine_shares as s", function () {
-      this.on("s.user_id", "=", "m.user_id").andOn("s.team_id", "=", "m.team_id").andOnVal("s.engine_id", "=", engineId);
-    })
-    .where({ "m.team_id": teamId, "m.role": "viewer" })
-    .orderBy("u.name")
-    .select({ userId: "u.id", name: "u.name", email: "u.email", sharedAt: "s.created_at" });
+  const rows = await withTeam(teamId, (k) =>
+    k("memberships as m")
+      .join("users as u", "u.id", "m.user_id")
+      .leftJoin("engine_shares as s", function () {
+        this.on("s.user_id", "=", "m.user_id").andOn("s.team_id", "=", "m.team_id").andOnVal("s.engine_id", "=", engineId);
+      })
+      .where({ "m.team_id": teamId, "m.role": "viewer" })
+      .orderBy("u.name")
+      .select({ userId: "u.id", name: "u.name", email: "u.email", sharedAt: "s.created_at" }),
+  );
   return rows.map((r: { userId: number; name: string; email: string; sharedAt: string | null }) => ({
     userId: r.userId,
     name: r.name,
@@ -31,24 +33,27 @@ export async function engineViewers(teamId: number, engineId: number): Promise<V
 
 /** Shares the engine (this team's, not archived) with one of the team's viewers; anything else is 404. */
 export async function setEngineShare(teamId: number, byUserId: number, engineId: number, viewerId: number, shared: boolean): Promise<void> {
-  await writeTransaction(async (trx) => {
-    const engine = await trx("engines").where({ team_id: teamId, id: engineId }).whereNull("archived_at").first("id");
-    if (!engine) throw data("No such engine in this shop.", { status: 404 });
-    const viewer = await trx("memberships").where({ team_id: teamId, user_id: viewerId, role: "viewer" }).first("user_id");
-    if (!viewer) throw data("No such viewer in this shop.", { status: 404 });
-    const key = { engine_id: engineId, user_id: viewerId, team_id: teamId };
-    if (shared) {
-      if (!(await trx("engine_shares").where(key).first("engine_id")))
-        await trx("engine_shares").insert({ ...key, shared_by: byUserId, created_at: now() });
-    } else {
-      await trx("engine_shares").where(key).delete();
-    }
-    await trx("audit_events").insert({
-      team_id: teamId,
-      user_id: byUserId,
-      action: shared ? "engine.shared" : "engine.unshared",
-      detail: JSON.stringify({ engineId, viewerId }),
-      created_at: now(),
-    });
-  });
+  await writeTransaction(
+    async (trx) => {
+      const engine = await trx("engines").where({ team_id: teamId, id: engineId }).whereNull("archived_at").first("id");
+      if (!engine) throw data("No such engine in this shop.", { status: 404 });
+      const viewer = await trx("memberships").where({ team_id: teamId, user_id: viewerId, role: "viewer" }).first("user_id");
+      if (!viewer) throw data("No such viewer in this shop.", { status: 404 });
+      const key = { engine_id: engineId, user_id: viewerId, team_id: teamId };
+      if (shared) {
+        if (!(await trx("engine_shares").where(key).first("engine_id")))
+          await trx("engine_shares").insert({ ...key, shared_by: byUserId, created_at: now() });
+      } else {
+        await trx("engine_shares").where(key).delete();
+      }
+      await trx("audit_events").insert({
+        team_id: teamId,
+        user_id: byUserId,
+        action: shared ? "engine.shared" : "engine.unshared",
+        detail: JSON.stringify({ engineId, viewerId }),
+        created_at: now(),
+      });
+    },
+    { teamId: teamId },
+  );
 }

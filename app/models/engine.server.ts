@@ -2,7 +2,7 @@ import type { Knex } from "knex";
 import { data } from "react-router";
 import type { Stud } from "~/lib/clamp/schema";
 import type { EngineInput } from "~/lib/engine/schema";
-import { db, now, withTeam, type DbRow } from "~/utils/db.server";
+import { type DbRow, now, teamTransaction, withTeam } from "~/utils/db.server";
 import { parseId } from "~/utils/ids";
 import { viewerScope, type Asker } from "./viewer-scope.server";
 
@@ -263,7 +263,7 @@ export class EngineInputError extends Error {
 }
 
 export async function createEngine(teamId: number, userId: number, input: EngineInput): Promise<number> {
-  return db().transaction(async (trx) => {
+  return teamTransaction(teamId, async (trx) => {
     const errors = await foreignMaterialErrors(trx, teamId, input);
     if (Object.keys(errors).length > 0) throw new EngineInputError(errors);
     const at = now();
@@ -276,7 +276,7 @@ export async function createEngine(teamId: number, userId: number, input: Engine
 }
 
 export async function updateEngine(teamId: number, userId: number, engineId: number, input: EngineInput): Promise<void> {
-  await db().transaction(async (trx) => {
+  await teamTransaction(teamId, async (trx) => {
     const errors = await foreignMaterialErrors(trx, teamId, input);
     if (Object.keys(errors).length > 0) throw new EngineInputError(errors);
     const n = await trx("engines")
@@ -289,7 +289,7 @@ export async function updateEngine(teamId: number, userId: number, engineId: num
 }
 
 export async function archiveEngine(teamId: number, userId: number, engineId: number): Promise<void> {
-  await db().transaction(async (trx) => {
+  await teamTransaction(teamId, async (trx) => {
     const at = now();
     const n = await trx("engines")
       .where({ team_id: teamId, id: engineId })
@@ -314,29 +314,32 @@ export interface MaterialOption {
 
 /** The team's active materials for the engine form's selects. */
 export async function listMaterialOptions(teamId: number): Promise<MaterialOption[]> {
-  return db()("materials").where({ team_id: teamId }).whereNull("archived_at").orderBy(["kind", "name", "id"]).select("id", "name", "kind");
+  return withTeam(teamId, (k) =>
+    k("materials").where({ team_id: teamId }).whereNull("archived_at").orderBy(["kind", "name", "id"]).select("id", "name", "kind"),
+  );
 }
 
 /** Names of the materials an engine uses (archived ones included: the record still names them). */
 export async function materialNames(teamId: number, ids: (number | null)[]): Promise<Record<number, string>> {
   const wanted = ids.filter((v): v is number => typeof v === "number");
-  const rows = await db()("materials").where({ team_id: teamId }).whereIn("id", wanted).select("id", "name");
+  const rows = await withTeam(teamId, (k) => k("materials").where({ team_id: teamId }).whereIn("id", wanted).select("id", "name"));
   return Object.fromEntries(rows.map((r: { id: number; name: string }) => [r.id, r.name]));
 }
 
 /** The chosen plan's name, when it is this engine's. */
 export async function chosenPlanName(teamId: number, engine: EngineRow): Promise<string | null> {
   if (engine.chosenPlanId === null) return null;
-  const row = await db()("seal_plans")
-    .where({ team_id: teamId, engine_id: engine.id, id: engine.chosenPlanId })
-    .whereNull("archived_at")
-    .first("name");
+  const row = await withTeam(teamId, (k) =>
+    k("seal_plans").where({ team_id: teamId, engine_id: engine.id, id: engine.chosenPlanId }).whereNull("archived_at").first("name"),
+  );
   return row?.name ?? null;
 }
 
 /** How many of the engines the asker sees are in each status. */
 export async function engineStatusCounts(who: Asker): Promise<Record<EngineStatus, number>> {
-  const rows = await viewerScope(db()("engines"), who).whereNull("archived_at").groupBy("status").select("status").count({ n: "*" });
+  const rows = await withTeam(who.teamId, (k) =>
+    viewerScope(k("engines"), who).whereNull("archived_at").groupBy("status").select("status").count({ n: "*" }),
+  );
   const out: Record<EngineStatus, number> = { quoted: 0, "in-build": 0, running: 0, retired: 0 };
   for (const r of rows as { status: EngineStatus; n: number }[]) out[r.status] = Number(r.n);
   return out;
@@ -358,7 +361,7 @@ export function copyName(name: string): string {
  * named "… (copy)". Returns the new id; another team's engine is not found (404).
  */
 export async function duplicateEngine(teamId: number, userId: number, engineId: number): Promise<{ id: number; name: string }> {
-  return db().transaction(async (trx) => {
+  return teamTransaction(teamId, async (trx) => {
     const row = await trx("engines").where({ team_id: teamId, id: engineId }).whereNull("archived_at").first();
     if (!row) throw data("No such engine in this shop.", { status: 404 });
     const {
@@ -381,5 +384,7 @@ export async function duplicateEngine(teamId: number, userId: number, engineId: 
 
 /** The active engines the asker sees, for a picker: id, name and bore. */
 export async function engineChoices(who: Asker): Promise<{ id: number; name: string; boreMm: number }[]> {
-  return viewerScope(db()("engines"), who).whereNull("archived_at").orderBy(["name", "id"]).select("id", "name", { boreMm: "bore_mm" });
+  return withTeam(who.teamId, (k) =>
+    viewerScope(k("engines"), who).whereNull("archived_at").orderBy(["name", "id"]).select("id", "name", { boreMm: "bore_mm" }),
+  );
 }

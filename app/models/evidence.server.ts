@@ -1,5 +1,5 @@
 import type { EvidencePoint } from "~/lib/records/evidence";
-import { db } from "~/utils/db.server";
+import { withTeam } from "~/utils/db.server";
 import { toEngine } from "./engine.server";
 import { evaluateAtFiring } from "./plan-at-pressure.server";
 import { listPlans } from "./plan.server";
@@ -10,11 +10,11 @@ import { toRun } from "./records.server";
 // fired) and verdict beside what happened. Runs without a plan or a pressure are counted, not plotted.
 
 export async function evidencePoints(teamId: number): Promise<{ points: EvidencePoint[]; unplotted: number }> {
-  const engines = (await db()("engines").where({ team_id: teamId }).whereNull("archived_at")).map(toEngine);
+  const engines = (await withTeam(teamId, (k) => k("engines").where({ team_id: teamId }).whereNull("archived_at"))).map(toEngine);
   const points: EvidencePoint[] = [];
   let unplotted = 0;
   for (const engine of engines) {
-    const runs = (await db()("runs").where({ team_id: teamId, engine_id: engine.id }).orderBy("ran_on")).map(toRun);
+    const runs = (await withTeam(teamId, (k) => k("runs").where({ team_id: teamId, engine_id: engine.id }).orderBy("ran_on"))).map(toRun);
     if (runs.length === 0) continue;
     const plans = await listPlans(teamId, engine.id);
     for (const run of runs) {

@@ -1,6 +1,6 @@
 import type { Knex } from "knex";
 import { FormDataParseError, MaxFileSizeExceededError, MaxFilesExceededError, parseFormData } from "@remix-run/form-data-parser";
-import { db, now, withTeam, writeTransaction, type DbRow } from "~/utils/db.server";
+import { db, type DbRow, now, withTeam, writeTransaction } from "~/utils/db.server";
 import { getEnv } from "~/utils/env.server";
 import { fileStorage, MAX_UPLOAD_BYTES, newStorageKey, sniffType, teamQuotaBytes, thumbnail } from "~/utils/files.server";
 import { parseId } from "~/utils/ids";
@@ -60,16 +60,18 @@ const toFile = (r: Row): FileRow => ({
 export async function listFiles(teamId: number, owner: number | FileOwner): Promise<FileRow[]> {
   const where = ownerColumns(typeof owner === "number" ? { engineId: owner } : owner);
   return (
-    await db()("files")
-      .where({ team_id: teamId, ...where })
-      .orderBy("id", "desc")
+    await withTeam(teamId, (k) =>
+      k("files")
+        .where({ team_id: teamId, ...where })
+        .orderBy("id", "desc"),
+    )
   ).map(toFile);
 }
 
 /** The stored file of this team (with its storage keys), or null: another team's file is not found. */
 export async function getStoredFile(teamId: number, idParam: string | undefined) {
   const id = parseId(idParam);
-  const row = id === null ? null : await db()("files").where({ team_id: teamId, id }).first();
+  const row = id === null ? null : await withTeam(teamId, (k) => k("files").where({ team_id: teamId, id }).first());
   return row ? { ...toFile(row), storageKey: row.storage_key as string, thumbKey: (row.thumb_key as string | null) ?? null } : null;
 }
 
@@ -147,34 +149,37 @@ export async function receiveUpload(request: Request, teamId: number, userId: nu
   try {
     await storage.set(key, new File([chosen.bytes as BlobPart], name, { type }));
     if (thumb && thumbKey) await storage.set(thumbKey, new File([thumb as BlobPart], "thumb.webp", { type: "image/webp" }));
-    const row = await writeTransaction(async (trx) => {
-      const used = await teamUsedBytes(teamId, trx);
-      if (used + chosen.bytes.length > quota) throw new QuotaFull(used);
-      const at = now();
-      const [inserted] = await trx("files")
-        .insert({
+    const row = await writeTransaction(
+      async (trx) => {
+        const used = await teamUsedBytes(teamId, trx);
+        if (used + chosen.bytes.length > quota) throw new QuotaFull(used);
+        const at = now();
+        const [inserted] = await trx("files")
+          .insert({
+            team_id: teamId,
+            ...ownerColumns(owner),
+            assembly_id: on.assemblyId,
+            run_id: on.runId,
+            storage_key: key,
+            thumb_key: thumbKey,
+            name,
+            content_type: type,
+            size_bytes: chosen.bytes.length,
+            created_by: userId,
+            created_at: at,
+          })
+          .returning("*");
+        await trx("audit_events").insert({
           team_id: teamId,
-          ...ownerColumns(owner),
-          assembly_id: on.assemblyId,
-          run_id: on.runId,
-          storage_key: key,
-          thumb_key: thumbKey,
-          name,
-          content_type: type,
-          size_bytes: chosen.bytes.length,
-          created_by: userId,
+          user_id: userId,
+          action: "file.uploaded",
+          detail: JSON.stringify({ ...owner, fileId: inserted.id }),
           created_at: at,
-        })
-        .returning("*");
-      await trx("audit_events").insert({
-        team_id: teamId,
-        user_id: userId,
-        action: "file.uploaded",
-        detail: JSON.stringify({ ...owner, fileId: inserted.id }),
-        created_at: at,
-      });
-      return inserted as Row;
-    });
+        });
+        return inserted as Row;
+      },
+      { teamId: teamId },
+    );
     const returnTo = text("returnTo");
     return { ok: true, file: toFile(row), returnTo: /^\/engines\/\d+\/[a-z]+$/.test(returnTo) ? returnTo : null };
   } catch (e) {
@@ -202,19 +207,22 @@ async function removeObjects(...keys: (string | null)[]) {
 export async function deleteFile(teamId: number, userId: number, idParam: string | undefined): Promise<FileRow | null> {
   const id = parseId(idParam);
   if (id === null) return null;
-  const row = await writeTransaction(async (trx) => {
-    const found = await trx("files").where({ team_id: teamId, id }).first();
-    if (!found) return null;
-    await trx("files").where({ team_id: teamId, id }).delete();
-    await trx("audit_events").insert({
-      team_id: teamId,
-      user_id: userId,
-      action: "file.deleted",
-      detail: JSON.stringify({ fileId: id, name: found.name }),
-      created_at: now(),
-    });
-    return found as Row;
-  });
+  const row = await writeTransaction(
+    async (trx) => {
+      const found = await trx("files").where({ team_id: teamId, id }).first();
+      if (!found) return null;
+      await trx("files").where({ team_id: teamId, id }).delete();
+      await trx("audit_events").insert({
+        team_id: teamId,
+        user_id: userId,
+        action: "file.deleted",
+        detail: JSON.stringify({ fileId: id, name: found.name }),
+        created_at: now(),
+      });
+      return found as Row;
+    },
+    { teamId: teamId },
+  );
   if (!row) return null;
   await removeObjects(row.storage_key, row.thumb_key);
   return toFile(row);
@@ -226,13 +234,15 @@ async function attachTo(teamId: number, engineId: number, assemblyText: string, 
   const out = { ok: true as const, assemblyId: null as number | null, runId: null as number | null };
   if (assemblyText) {
     const id = parseId(assemblyText);
-    const row = id === null ? null : await db()("assemblies").where({ team_id: teamId, engine_id: engineId, id }).first("id");
+    const row =
+      id === null ? null : await withTeam(teamId, (k) => k("assemblies").where({ team_id: teamId, engine_id: engineId, id }).first("id"));
     if (!row) return { ok: false as const, status: 404 as const, message: "No such assembly on this engine." };
     out.assemblyId = row.id;
   }
   if (runText) {
     const id = parseId(runText);
-    const row = id === null ? null : await db()("runs").where({ team_id: teamId, engine_id: engineId, id }).first("id");
+    const row =
+      id === null ? null : await withTeam(teamId, (k) => k("runs").where({ team_id: teamId, engine_id: engineId, id }).first("id"));
     if (!row) return { ok: false as const, status: 404 as const, message: "No such run on this engine." };
     out.runId = row.id;
   }

@@ -1,7 +1,7 @@
 import type { Knex } from "knex";
 import { data } from "react-router";
 import { INVITE_DAYS } from "~/lib/mail/messages";
-import { db, now, writeTransaction } from "~/utils/db.server";
+import { db, now, withTeam, writeTransaction } from "~/utils/db.server";
 import { hashPassword } from "~/utils/password.server";
 import { hashLinkToken, isLinkToken, newLinkToken } from "~/utils/tokens.server";
 import { insertUser, normalizeEmail, type Role, type UserRow } from "./user.server";
@@ -38,69 +38,77 @@ export async function createInvite(
 ): Promise<{ token: string; id: number }> {
   const email = normalizeEmail(input.email);
   const { token, hash } = newLinkToken();
-  return writeTransaction(async (trx) => {
-    const member = await trx("memberships as m")
-      .join("users as u", "u.id", "m.user_id")
-      .where({ "m.team_id": teamId, "u.email": email })
-      .first("u.id");
-    if (member) throw new InviteError({ email: "This address is already a member of the shop" });
-    const at = new Date();
-    await trx("team_invites")
-      .where({ team_id: teamId, email })
-      .whereNull("accepted_at")
-      .whereNull("revoked_at")
-      .update({ revoked_at: at.toISOString() });
-    const [{ id }] = await trx("team_invites")
-      .insert({
+  return writeTransaction(
+    async (trx) => {
+      const member = await trx("memberships as m")
+        .join("users as u", "u.id", "m.user_id")
+        .where({ "m.team_id": teamId, "u.email": email })
+        .first("u.id");
+      if (member) throw new InviteError({ email: "This address is already a member of the shop" });
+      const at = new Date();
+      await trx("team_invites")
+        .where({ team_id: teamId, email })
+        .whereNull("accepted_at")
+        .whereNull("revoked_at")
+        .update({ revoked_at: at.toISOString() });
+      const [{ id }] = await trx("team_invites")
+        .insert({
+          team_id: teamId,
+          email,
+          role: input.role,
+          token_hash: hash,
+          invited_by: byUserId,
+          created_at: at.toISOString(),
+          expires_at: new Date(at.getTime() + INVITE_DAYS * DAY_MS).toISOString(),
+        })
+        .returning("id");
+      await trx("audit_events").insert({
         team_id: teamId,
-        email,
-        role: input.role,
-        token_hash: hash,
-        invited_by: byUserId,
-        created_at: at.toISOString(),
-        expires_at: new Date(at.getTime() + INVITE_DAYS * DAY_MS).toISOString(),
-      })
-      .returning("id");
-    await trx("audit_events").insert({
-      team_id: teamId,
-      user_id: byUserId,
-      action: "member.invited",
-      detail: JSON.stringify({ email, role: input.role }),
-      created_at: now(),
-    });
-    return { token, id: id as number };
-  });
+        user_id: byUserId,
+        action: "member.invited",
+        detail: JSON.stringify({ email, role: input.role }),
+        created_at: now(),
+      });
+      return { token, id: id as number };
+    },
+    { teamId: teamId },
+  );
 }
 
 /** Invites of this team not yet accepted, revoked or expired. */
 export async function listPendingInvites(teamId: number): Promise<PendingInvite[]> {
-  return db()("team_invites as i")
-    .leftJoin("users as u", "u.id", "i.invited_by")
-    .where("i.team_id", teamId)
-    .whereNull("i.accepted_at")
-    .whereNull("i.revoked_at")
-    .where("i.expires_at", ">", now())
-    .orderBy("i.id", "desc")
-    .select({ id: "i.id", email: "i.email", role: "i.role", invitedBy: "u.name", expiresAt: "i.expires_at" });
+  return withTeam(teamId, (k) =>
+    k("team_invites as i")
+      .leftJoin("users as u", "u.id", "i.invited_by")
+      .where("i.team_id", teamId)
+      .whereNull("i.accepted_at")
+      .whereNull("i.revoked_at")
+      .where("i.expires_at", ">", now())
+      .orderBy("i.id", "desc")
+      .select({ id: "i.id", email: "i.email", role: "i.role", invitedBy: "u.name", expiresAt: "i.expires_at" }),
+  );
 }
 
 /** Withdraws a pending invite of this team; another team's (or a used one) is not found. */
 export async function revokeInvite(teamId: number, byUserId: number, inviteId: number): Promise<void> {
-  await writeTransaction(async (trx) => {
-    const n = await trx("team_invites")
-      .where({ team_id: teamId, id: inviteId })
-      .whereNull("accepted_at")
-      .whereNull("revoked_at")
-      .update({ revoked_at: now() });
-    if (n === 0) throw data("No such invite in this shop.", { status: 404 });
-    await trx("audit_events").insert({
-      team_id: teamId,
-      user_id: byUserId,
-      action: "member.invite-withdrawn",
-      detail: JSON.stringify({ inviteId }),
-      created_at: now(),
-    });
-  });
+  await writeTransaction(
+    async (trx) => {
+      const n = await trx("team_invites")
+        .where({ team_id: teamId, id: inviteId })
+        .whereNull("accepted_at")
+        .whereNull("revoked_at")
+        .update({ revoked_at: now() });
+      if (n === 0) throw data("No such invite in this shop.", { status: 404 });
+      await trx("audit_events").insert({
+        team_id: teamId,
+        user_id: byUserId,
+        action: "member.invite-withdrawn",
+        detail: JSON.stringify({ inviteId }),
+        created_at: now(),
+      });
+    },
+    { teamId: teamId },
+  );
 }
 
 export async function findInvite(token: string | undefined): Promise<InviteLookup> {

@@ -1,7 +1,7 @@
 import type { Knex } from "knex";
 import { data } from "react-router";
 import type { FastenerInput, GasketInput, LibraryKind, MaterialInput } from "~/lib/library/schemas";
-import { db, now, type DbRow } from "~/utils/db.server";
+import { db, type DbRow, now, teamTransaction } from "~/utils/db.server";
 
 export { seedTeamLibrary } from "./library-seed.server";
 
@@ -177,7 +177,7 @@ export async function createLibraryItem<K extends LibraryKind>(
   userId: number,
   input: InputFor<K>,
 ): Promise<number> {
-  return db().transaction(async (trx) => {
+  return teamTransaction(teamId, async (trx) => {
     await assertOwnMaterial(trx, teamId, input as Record<string, unknown>);
     const at = now();
     const [row] = await trx(TABLE[kind])
@@ -207,7 +207,7 @@ export async function updateLibraryItem<K extends LibraryKind>(
   userId: number,
   input: InputFor<K>,
 ): Promise<boolean> {
-  return db().transaction(async (trx) => {
+  return teamTransaction(teamId, async (trx) => {
     await assertOwnMaterial(trx, teamId, input as Record<string, unknown>);
     const n = await trx(TABLE[kind])
       .where({ team_id: teamId, id })
@@ -226,7 +226,7 @@ export async function setLibraryArchived(
   userId: number,
   archived: boolean,
 ): Promise<boolean> {
-  return db().transaction(async (trx) => {
+  return teamTransaction(teamId, async (trx) => {
     const at = now();
     const n = await trx(TABLE[kind])
       .where({ team_id: teamId, id })

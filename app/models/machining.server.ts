@@ -10,7 +10,7 @@ import {
   type SideBySide,
 } from "~/lib/records/machining";
 import type { UnitSystem } from "~/lib/units";
-import { db, now, writeTransaction, type DbRow } from "~/utils/db.server";
+import { type DbRow, now, withTeam, writeTransaction } from "~/utils/db.server";
 import type { EngineRow } from "./engine.server";
 import { evaluateVariants } from "./plan-estimate.server";
 import type { PlanRow } from "./plan.server";
@@ -42,42 +42,44 @@ function toMachining(r: DbRow): MachiningRecord {
 }
 
 export async function listMachining(teamId: number, engineId: number): Promise<MachiningRecord[]> {
-  const rows = await db()("machining_records")
-    .where({ team_id: teamId, engine_id: engineId })
-    .orderBy("measured_on", "desc")
-    .orderBy("id", "desc");
+  const rows = await withTeam(teamId, (k) =>
+    k("machining_records").where({ team_id: teamId, engine_id: engineId }).orderBy("measured_on", "desc").orderBy("id", "desc"),
+  );
   return rows.map(toMachining);
 }
 
 export async function createMachining(teamId: number, userId: number, engineId: number, m: MachiningInput): Promise<number> {
-  return writeTransaction(async (trx) => {
-    const at = now();
-    const [row] = await trx("machining_records")
-      .insert({
-        team_id: teamId,
-        engine_id: engineId,
-        plan_id: m.planId,
-        measured_on: m.measuredOn,
-        measured_by: m.measuredBy,
-        head_flatness_mm: m.headFlatnessMm,
-        deck_flatness_mm: m.deckFlatnessMm,
-        head_finish_um: m.headFinishUm,
-        deck_finish_um: m.deckFinishUm,
-        head_removed_mm: m.headRemovedMm,
-        deck_removed_mm: m.deckRemovedMm,
-        sleeve_protrusion_mm: JSON.stringify(m.sleeveProtrusionMm),
-        wire_projection_mm: m.wireProjectionMm,
-        receiver_groove_depth_mm: m.receiverGrooveDepthMm,
-        gasket_compressed_mm: m.gasketCompressedMm,
-        notes: m.notes,
-        created_by: userId,
-        created_at: at,
-        updated_at: at,
-      })
-      .returning("id");
-    await audit(trx, teamId, userId, "machining.recorded", { engineId, machiningId: row.id, planId: m.planId });
-    return row.id as number;
-  });
+  return writeTransaction(
+    async (trx) => {
+      const at = now();
+      const [row] = await trx("machining_records")
+        .insert({
+          team_id: teamId,
+          engine_id: engineId,
+          plan_id: m.planId,
+          measured_on: m.measuredOn,
+          measured_by: m.measuredBy,
+          head_flatness_mm: m.headFlatnessMm,
+          deck_flatness_mm: m.deckFlatnessMm,
+          head_finish_um: m.headFinishUm,
+          deck_finish_um: m.deckFinishUm,
+          head_removed_mm: m.headRemovedMm,
+          deck_removed_mm: m.deckRemovedMm,
+          sleeve_protrusion_mm: JSON.stringify(m.sleeveProtrusionMm),
+          wire_projection_mm: m.wireProjectionMm,
+          receiver_groove_depth_mm: m.receiverGrooveDepthMm,
+          gasket_compressed_mm: m.gasketCompressedMm,
+          notes: m.notes,
+          created_by: userId,
+          created_at: at,
+          updated_at: at,
+        })
+        .returning("id");
+      await audit(trx, teamId, userId, "machining.recorded", { engineId, machiningId: row.id, planId: m.planId });
+      return row.id as number;
+    },
+    { teamId: teamId },
+  );
 }
 
 export type MeasuredEstimate =

@@ -26,35 +26,41 @@ async function otherOwners(trx: Knex.Transaction, teamId: number, userId: number
 }
 
 export async function changeRole(teamId: number, byUserId: number, userId: number, role: Role): Promise<void> {
-  await writeTransaction(async (trx) => {
-    const current = await membershipOf(trx, teamId, userId);
-    if (current === role) return;
-    if (current === "owner" && (await otherOwners(trx, teamId, userId)) === 0) throw new LastOwnerError();
-    await trx("memberships").where({ team_id: teamId, user_id: userId }).update({ role });
-    await trx("audit_events").insert({
-      team_id: teamId,
-      user_id: byUserId,
-      action: "member.role-changed",
-      detail: JSON.stringify({ userId, role }),
-      created_at: now(),
-    });
-  });
+  await writeTransaction(
+    async (trx) => {
+      const current = await membershipOf(trx, teamId, userId);
+      if (current === role) return;
+      if (current === "owner" && (await otherOwners(trx, teamId, userId)) === 0) throw new LastOwnerError();
+      await trx("memberships").where({ team_id: teamId, user_id: userId }).update({ role });
+      await trx("audit_events").insert({
+        team_id: teamId,
+        user_id: byUserId,
+        action: "member.role-changed",
+        detail: JSON.stringify({ userId, role }),
+        created_at: now(),
+      });
+    },
+    { teamId: teamId },
+  );
 }
 
 /** Takes the person out of the shop: their membership, the engines shared with them there, and their sessions in it. */
 export async function removeMember(teamId: number, byUserId: number, userId: number): Promise<void> {
-  await writeTransaction(async (trx) => {
-    const current = await membershipOf(trx, teamId, userId);
-    if (current === "owner" && (await otherOwners(trx, teamId, userId)) === 0) throw new LastOwnerError();
-    await trx("memberships").where({ team_id: teamId, user_id: userId }).delete();
-    await trx("engine_shares").where({ team_id: teamId, user_id: userId }).delete();
-    await trx("sessions").where({ team_id: teamId, user_id: userId }).delete();
-    await trx("audit_events").insert({
-      team_id: teamId,
-      user_id: byUserId,
-      action: "member.removed",
-      detail: JSON.stringify({ userId }),
-      created_at: now(),
-    });
-  });
+  await writeTransaction(
+    async (trx) => {
+      const current = await membershipOf(trx, teamId, userId);
+      if (current === "owner" && (await otherOwners(trx, teamId, userId)) === 0) throw new LastOwnerError();
+      await trx("memberships").where({ team_id: teamId, user_id: userId }).delete();
+      await trx("engine_shares").where({ team_id: teamId, user_id: userId }).delete();
+      await trx("sessions").where({ team_id: teamId, user_id: userId }).delete();
+      await trx("audit_events").insert({
+        team_id: teamId,
+        user_id: byUserId,
+        action: "member.removed",
+        detail: JSON.stringify({ userId }),
+        created_at: now(),
+      });
+    },
+    { teamId: teamId },
+  );
 }

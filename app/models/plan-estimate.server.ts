@@ -5,7 +5,7 @@ import { stretchLineFor, type StretchLine } from "~/lib/plan/stretch";
 import { displayWording } from "~/lib/plan/wording";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
 import { toEngine, type EngineRow } from "./engine.server";
-import { db } from "~/utils/db.server";
+import { withTeam } from "~/utils/db.server";
 import { viewerScope, type Asker } from "./viewer-scope.server";
 import { planParts, requirePlan, type FastenerInfo, type GasketInfo } from "./plan.server";
 
@@ -141,13 +141,15 @@ export interface ChosenPlanVerdict {
  */
 export async function chosenPlanVerdicts(who: Asker, units: UnitSystem, limit = 50): Promise<ChosenPlanVerdict[]> {
   const teamId = who.teamId;
-  const rows = await viewerScope(db()("engines"), who)
-    .whereNull("archived_at")
-    .whereNot("status", "retired")
-    .whereNotNull("chosen_plan_id")
-    .orderBy("updated_at", "desc")
-    .orderBy("id", "desc")
-    .limit(limit);
+  const rows = await withTeam(who.teamId, (k) =>
+    viewerScope(k("engines"), who)
+      .whereNull("archived_at")
+      .whereNot("status", "retired")
+      .whereNotNull("chosen_plan_id")
+      .orderBy("updated_at", "desc")
+      .orderBy("id", "desc")
+      .limit(limit),
+  );
   const out: ChosenPlanVerdict[] = [];
   for (const row of rows) {
     const engine = toEngine(row);

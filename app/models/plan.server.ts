@@ -2,7 +2,7 @@ import { data } from "react-router";
 import type { PlanParts, PlanRecord } from "~/lib/plan/assemble";
 import type { PlanWrite } from "~/lib/plan/form";
 import type { Knex } from "knex";
-import { db, now, writeTransaction, type DbRow } from "~/utils/db.server";
+import { type DbRow, now, withTeam, writeTransaction } from "~/utils/db.server";
 import type { EngineRow } from "./engine.server";
 import {
   getFastener as getLibraryFastener,
@@ -65,14 +65,16 @@ async function material(teamId: number, id: number | null): Promise<MaterialRow 
 }
 
 export async function listPlans(teamId: number, engineId: number): Promise<PlanRow[]> {
-  const rows = await db()("seal_plans").where({ team_id: teamId, engine_id: engineId }).whereNull("archived_at").orderBy("id");
+  const rows = await withTeam(teamId, (k) =>
+    k("seal_plans").where({ team_id: teamId, engine_id: engineId }).whereNull("archived_at").orderBy("id"),
+  );
   return rows.map(toPlan);
 }
 
 export async function requirePlan(teamId: number, engineId: number, planIdParam: string | undefined): Promise<PlanRow> {
   const id = Number(planIdParam);
   const row = Number.isInteger(id)
-    ? await db()("seal_plans").where({ team_id: teamId, engine_id: engineId, id }).whereNull("archived_at").first()
+    ? await withTeam(teamId, (k) => k("seal_plans").where({ team_id: teamId, engine_id: engineId, id }).whereNull("archived_at").first())
     : null;
   if (!row) throw data("No such seal plan on this engine.", { status: 404 });
   return toPlan(row);
@@ -152,56 +154,71 @@ async function audit(trx: Knex.Transaction, teamId: number, userId: number, acti
 }
 
 export async function createPlan(teamId: number, userId: number, engineId: number, w: PlanWrite): Promise<number> {
-  return writeTransaction(async (trx) => {
-    const at = now();
-    const [row] = await trx("seal_plans")
-      .insert({ team_id: teamId, engine_id: engineId, created_at: at, updated_at: at, ...planColumns(w) })
-      .returning("id");
-    const id = (row as { id: number }).id;
-    await audit(trx, teamId, userId, "plan.created", { engineId, planId: id, name: w.name });
-    return id;
-  });
+  return writeTransaction(
+    async (trx) => {
+      const at = now();
+      const [row] = await trx("seal_plans")
+        .insert({ team_id: teamId, engine_id: engineId, created_at: at, updated_at: at, ...planColumns(w) })
+        .returning("id");
+      const id = (row as { id: number }).id;
+      await audit(trx, teamId, userId, "plan.created", { engineId, planId: id, name: w.name });
+      return id;
+    },
+    { teamId: teamId },
+  );
 }
 
 export async function updatePlan(teamId: number, userId: number, engineId: number, planId: number, w: PlanWrite): Promise<void> {
-  await writeTransaction(async (trx) => {
-    await trx("seal_plans")
-      .where({ team_id: teamId, engine_id: engineId, id: planId })
-      .update({ ...planColumns(w), updated_at: now() });
-    await audit(trx, teamId, userId, "plan.updated", { engineId, planId, name: w.name });
-  });
+  await writeTransaction(
+    async (trx) => {
+      await trx("seal_plans")
+        .where({ team_id: teamId, engine_id: engineId, id: planId })
+        .update({ ...planColumns(w), updated_at: now() });
+      await audit(trx, teamId, userId, "plan.updated", { engineId, planId, name: w.name });
+    },
+    { teamId: teamId },
+  );
 }
 
 export async function archivePlan(teamId: number, userId: number, engineId: number, planId: number): Promise<void> {
-  await writeTransaction(async (trx) => {
-    await trx("seal_plans").where({ team_id: teamId, engine_id: engineId, id: planId }).update({ archived_at: now() });
-    await trx("engines").where({ team_id: teamId, id: engineId, chosen_plan_id: planId }).update({ chosen_plan_id: null });
-    await audit(trx, teamId, userId, "plan.archived", { engineId, planId });
-  });
+  await writeTransaction(
+    async (trx) => {
+      await trx("seal_plans").where({ team_id: teamId, engine_id: engineId, id: planId }).update({ archived_at: now() });
+      await trx("engines").where({ team_id: teamId, id: engineId, chosen_plan_id: planId }).update({ chosen_plan_id: null });
+      await audit(trx, teamId, userId, "plan.archived", { engineId, planId });
+    },
+    { teamId: teamId },
+  );
 }
 
 export async function choosePlan(teamId: number, userId: number, engineId: number, planId: number): Promise<void> {
-  await writeTransaction(async (trx) => {
-    await trx("engines").where({ team_id: teamId, id: engineId }).update({ chosen_plan_id: planId, updated_at: now() });
-    await audit(trx, teamId, userId, "plan.chosen", { engineId, planId });
-  });
+  await writeTransaction(
+    async (trx) => {
+      await trx("engines").where({ team_id: teamId, id: engineId }).update({ chosen_plan_id: planId, updated_at: now() });
+      await audit(trx, teamId, userId, "plan.chosen", { engineId, planId });
+    },
+    { teamId: teamId },
+  );
 }
 
 /** A copy of the plan on another engine of the same team (the caller checks the gasket fits). Returns the new id. */
 export async function copyPlanToEngine(teamId: number, userId: number, plan: PlanRow, targetEngineId: number): Promise<number> {
-  return writeTransaction(async (trx) => {
-    const at = now();
-    const [row] = await trx("seal_plans")
-      .insert({ team_id: teamId, engine_id: targetEngineId, created_at: at, updated_at: at, ...planColumns(plan) })
-      .returning("id");
-    const id = (row as { id: number }).id;
-    await audit(trx, teamId, userId, "plan.copied", {
-      engineId: targetEngineId,
-      planId: id,
-      fromEngineId: plan.engineId,
-      fromPlanId: plan.id,
-      name: plan.name,
-    });
-    return id;
-  });
+  return writeTransaction(
+    async (trx) => {
+      const at = now();
+      const [row] = await trx("seal_plans")
+        .insert({ team_id: teamId, engine_id: targetEngineId, created_at: at, updated_at: at, ...planColumns(plan) })
+        .returning("id");
+      const id = (row as { id: number }).id;
+      await audit(trx, teamId, userId, "plan.copied", {
+        engineId: targetEngineId,
+        planId: id,
+        fromEngineId: plan.engineId,
+        fromPlanId: plan.id,
+        name: plan.name,
+      });
+      return id;
+    },
+    { teamId: teamId },
+  );
 }

@@ -1,7 +1,7 @@
 import type { Knex } from "knex";
 import type { AssemblyRecord, StageDone, StudStretch } from "~/lib/records/assembly";
 import type { RunInput, RunRecord } from "~/lib/records/run";
-import { db, now, writeTransaction, type DbRow } from "~/utils/db.server";
+import { type DbRow, now, withTeam, writeTransaction } from "~/utils/db.server";
 import type { EngineRow } from "./engine.server";
 import { evaluateAtFiring } from "./plan-at-pressure.server";
 import { listPlans, type PlanRow } from "./plan.server";
@@ -53,10 +53,9 @@ export async function audit(trx: Knex, teamId: number, userId: number, action: s
 }
 
 export async function listAssemblies(teamId: number, engineId: number): Promise<AssemblyRecord[]> {
-  const rows = await db()("assemblies")
-    .where({ team_id: teamId, engine_id: engineId })
-    .orderBy("assembled_on", "desc")
-    .orderBy("id", "desc");
+  const rows = await withTeam(teamId, (k) =>
+    k("assemblies").where({ team_id: teamId, engine_id: engineId }).orderBy("assembled_on", "desc").orderBy("id", "desc"),
+  );
   return rows.map(toAssembly);
 }
 
@@ -74,46 +73,53 @@ export interface AssemblyWrite {
 }
 
 export async function createAssembly(teamId: number, userId: number, engineId: number, w: AssemblyWrite): Promise<number> {
-  return writeTransaction(async (trx) => {
-    const at = now();
-    const [row] = await trx("assemblies")
-      .insert({
-        team_id: teamId,
-        engine_id: engineId,
-        plan_id: w.planId,
-        assembled_on: w.assembledOn,
-        assembled_by: w.assembledBy,
-        lubricant: w.lubricant,
-        stages_done: JSON.stringify(w.stagesDone),
-        stud_stretch: JSON.stringify(w.studStretch),
-        final_torque_nm: w.finalTorqueNm,
-        measured_protrusion_mm: w.measuredProtrusionMm ?? null,
-        gasket_compressed_mm: w.gasketCompressedMm ?? null,
-        notes: w.notes,
-        created_by: userId,
-        created_at: at,
-        updated_at: at,
-      })
-      .returning("id");
-    await audit(trx, teamId, userId, "assembly.recorded", { engineId, assemblyId: row.id, planId: w.planId });
-    return row.id as number;
-  });
+  return writeTransaction(
+    async (trx) => {
+      const at = now();
+      const [row] = await trx("assemblies")
+        .insert({
+          team_id: teamId,
+          engine_id: engineId,
+          plan_id: w.planId,
+          assembled_on: w.assembledOn,
+          assembled_by: w.assembledBy,
+          lubricant: w.lubricant,
+          stages_done: JSON.stringify(w.stagesDone),
+          stud_stretch: JSON.stringify(w.studStretch),
+          final_torque_nm: w.finalTorqueNm,
+          measured_protrusion_mm: w.measuredProtrusionMm ?? null,
+          gasket_compressed_mm: w.gasketCompressedMm ?? null,
+          notes: w.notes,
+          created_by: userId,
+          created_at: at,
+          updated_at: at,
+        })
+        .returning("id");
+      await audit(trx, teamId, userId, "assembly.recorded", { engineId, assemblyId: row.id, planId: w.planId });
+      return row.id as number;
+    },
+    { teamId: teamId },
+  );
 }
 
 export async function listRuns(teamId: number, engineId: number): Promise<RunRecord[]> {
-  const rows = await db()("runs").where({ team_id: teamId, engine_id: engineId }).orderBy("ran_on", "desc").orderBy("id", "desc");
+  const rows = await withTeam(teamId, (k) =>
+    k("runs").where({ team_id: teamId, engine_id: engineId }).orderBy("ran_on", "desc").orderBy("id", "desc"),
+  );
   return rows.map(toRun);
 }
 
 /** The plan on the engine on that day: its latest assembly on or before it, else the chosen plan. */
 export async function planOnDay(teamId: number, engine: EngineRow, day: string): Promise<PlanRow | null> {
   const plans = await listPlans(teamId, engine.id);
-  const fitted = await db()("assemblies")
-    .where({ team_id: teamId, engine_id: engine.id })
-    .where("assembled_on", "<=", day)
-    .orderBy("assembled_on", "desc")
-    .orderBy("id", "desc")
-    .first("plan_id");
+  const fitted = await withTeam(teamId, (k) =>
+    k("assemblies")
+      .where({ team_id: teamId, engine_id: engine.id })
+      .where("assembled_on", "<=", day)
+      .orderBy("assembled_on", "desc")
+      .orderBy("id", "desc")
+      .first("plan_id"),
+  );
   return plans.find((p) => p.id === fitted?.plan_id) ?? plans.find((p) => p.id === engine.chosenPlanId) ?? null;
 }
 
@@ -127,29 +133,32 @@ export async function createRun(teamId: number, userId: number, engine: EngineRo
     if (at.ok) peak = at.estimate.firing.peakPressureMpa;
     source = "estimated";
   }
-  return writeTransaction(async (trx) => {
-    const at = now();
-    const [row] = await trx("runs")
-      .insert({
-        team_id: teamId,
-        engine_id: engine.id,
-        plan_id: plan?.id ?? null,
-        ran_on: r.ranOn,
-        kind: r.kind,
-        manifold_pressure_kpa: r.manifoldPressureKpa ?? null,
-        fuel: r.fuel,
-        peak_cylinder_pressure_mpa: peak,
-        peak_pressure_source: source,
-        outcome: r.outcome,
-        cylinders_affected: JSON.stringify(r.cylindersAffected),
-        notes: r.notes,
-        teardown_findings: r.teardownFindings,
-        created_by: userId,
-        created_at: at,
-        updated_at: at,
-      })
-      .returning("id");
-    await audit(trx, teamId, userId, "run.logged", { engineId: engine.id, runId: row.id });
-    return row.id as number;
-  });
+  return writeTransaction(
+    async (trx) => {
+      const at = now();
+      const [row] = await trx("runs")
+        .insert({
+          team_id: teamId,
+          engine_id: engine.id,
+          plan_id: plan?.id ?? null,
+          ran_on: r.ranOn,
+          kind: r.kind,
+          manifold_pressure_kpa: r.manifoldPressureKpa ?? null,
+          fuel: r.fuel,
+          peak_cylinder_pressure_mpa: peak,
+          peak_pressure_source: source,
+          outcome: r.outcome,
+          cylinders_affected: JSON.stringify(r.cylindersAffected),
+          notes: r.notes,
+          teardown_findings: r.teardownFindings,
+          created_by: userId,
+          created_at: at,
+          updated_at: at,
+        })
+        .returning("id");
+      await audit(trx, teamId, userId, "run.logged", { engineId: engine.id, runId: row.id });
+      return row.id as number;
+    },
+    { teamId: teamId },
+  );
 }

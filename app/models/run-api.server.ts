@@ -1,6 +1,6 @@
 import type { z } from "zod";
 import type { RunCreateSchema } from "~/lib/api/schemas";
-import { db, now, writeTransaction, type DbRow } from "~/utils/db.server";
+import { db, type DbRow, now, writeTransaction } from "~/utils/db.server";
 import { getEngine } from "./engine.server";
 import { viewerScope, type Asker } from "./viewer-scope.server";
 

@@ -1,4 +1,4 @@
-import { db } from "~/utils/db.server";
+import { teamTransaction } from "~/utils/db.server";
 
 // Everything one shop owns, as one consistent JSON document (an owner's backup of the team's data).
 // Read inside one transaction, so a write landing meanwhile is either wholly in it or not at all.
@@ -30,7 +30,7 @@ export interface TeamExport {
 }
 
 export async function exportTeam(teamId: number): Promise<TeamExport> {
-  return db().transaction(async (trx) => {
+  return teamTransaction(teamId, async (trx) => {
     const team = await trx("teams").where({ id: teamId }).first("id", "name", "created_at");
     const members = await trx("memberships as m")
       .join("users as u", "u.id", "m.user_id")

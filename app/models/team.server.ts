@@ -1,4 +1,4 @@
-import { db, now } from "~/utils/db.server";
+import { db, now, teamTransaction, withTeam } from "~/utils/db.server";
 import type { Role } from "./user.server";
 import type { Asker } from "./viewer-scope.server";
 
@@ -14,15 +14,17 @@ export async function getTeam(teamId: number): Promise<{ id: number; name: strin
 }
 
 export async function listMembers(teamId: number): Promise<MemberRow[]> {
-  return db()("memberships as m")
-    .join("users as u", "u.id", "m.user_id")
-    .where("m.team_id", teamId)
-    .orderBy([{ column: "m.role", order: "asc" }, { column: "u.name" }, { column: "u.id" }])
-    .select({ userId: "u.id", name: "u.name", email: "u.email", role: "m.role" });
+  return withTeam(teamId, (k) =>
+    k("memberships as m")
+      .join("users as u", "u.id", "m.user_id")
+      .where("m.team_id", teamId)
+      .orderBy([{ column: "m.role", order: "asc" }, { column: "u.name" }, { column: "u.id" }])
+      .select({ userId: "u.id", name: "u.name", email: "u.email", role: "m.role" }),
+  );
 }
 
 export async function renameTeam(teamId: number, name: string, byUserId: number): Promise<void> {
-  await db().transaction(async (trx) => {
+  await teamTransaction(teamId, async (trx) => {
     await trx("teams").where({ id: teamId }).update({ name: name.trim() });
     await trx("audit_events").insert({
       team_id: teamId,
@@ -43,12 +45,14 @@ export async function recentActivity(who: Asker, limit = 20) {
 }
 
 export async function listAuditEvents(teamId: number, limit = 20) {
-  return db()("audit_events as a")
-    .leftJoin("users as u", "u.id", "a.user_id")
-    .where("a.team_id", teamId)
-    .orderBy("a.id", "desc")
-    .limit(limit)
-    .select({ id: "a.id", action: "a.action", at: "a.created_at", who: "u.name", detail: "a.detail" });
+  return withTeam(teamId, (k) =>
+    k("audit_events as a")
+      .leftJoin("users as u", "u.id", "a.user_id")
+      .where("a.team_id", teamId)
+      .orderBy("a.id", "desc")
+      .limit(limit)
+      .select({ id: "a.id", action: "a.action", at: "a.created_at", who: "u.name", detail: "a.detail" }),
+  );
 }
 
 /** What an audit row's detail names (engine and plan ids, a name), read leniently: old rows have none. */
@@ -66,12 +70,14 @@ export function auditSubject(detail: unknown): { engineId?: number; planId?: num
 /** Of these plan ids, the ones that still exist (not archived) in this team, with their engine and name. */
 export async function livePlans(teamId: number, planIds: number[]): Promise<Map<number, { engineId: number; name: string }>> {
   if (planIds.length === 0) return new Map();
-  const rows = await db()("seal_plans as p")
-    .join("engines as e", "e.id", "p.engine_id")
-    .where("p.team_id", teamId)
-    .whereIn("p.id", planIds)
-    .whereNull("p.archived_at")
-    .whereNull("e.archived_at")
-    .select({ id: "p.id", engineId: "p.engine_id", name: "p.name" });
+  const rows = await withTeam(teamId, (k) =>
+    k("seal_plans as p")
+      .join("engines as e", "e.id", "p.engine_id")
+      .where("p.team_id", teamId)
+      .whereIn("p.id", planIds)
+      .whereNull("p.archived_at")
+      .whereNull("e.archived_at")
+      .select({ id: "p.id", engineId: "p.engine_id", name: "p.name" }),
+  );
   return new Map(rows.map((r: { id: number; engineId: number; name: string }) => [r.id, { engineId: r.engineId, name: r.name }]));
 }

@@ -84,8 +84,21 @@ async function setScope(trx: Knex.Transaction, scope: RowScope): Promise<void> {
   }
 }
 
+/**
+ * A plain transaction (not SERIALIZABLE: see writeTransaction for read-then-write races) for one team,
+ * with app.team_id set for the row-security policies; on SQLite the usual IMMEDIATE transaction.
+ */
+export async function teamTransaction<T>(teamId: number, work: (trx: Knex.Transaction) => Promise<T>): Promise<T> {
+  const knex = db();
+  if (!isPostgres(knex)) return knex.transaction(work);
+  return knex.transaction(async (trx) => {
+    await setScope(trx, { teamId });
+    return work(trx);
+  });
+}
+
 /** Reads (or single writes) in one row scope; on SQLite `work` runs on the plain connection. */
-export async function withScope<T>(scope: RowScope, work: (q: Knex) => Promise<T>): Promise<T> {
+export async function withScope<T>(scope: RowScope, work: (q: Knex) => PromiseLike<T>): Promise<T> {
   const knex = db();
   if (!isPostgres(knex)) return work(knex);
   return knex.transaction(async (trx) => {
@@ -101,7 +114,7 @@ export async function withScope<T>(scope: RowScope, work: (q: Knex) => Promise<T
  * 20261219000000_hosted then let through only that team's rows — a second wall behind the models'
  * `where team_id`. On SQLite (one shop, no policies) `work` runs on the plain connection.
  */
-export async function withTeam<T>(teamId: number, work: (q: Knex) => Promise<T>): Promise<T> {
+export async function withTeam<T>(teamId: number, work: (q: Knex) => PromiseLike<T>): Promise<T> {
   if (!Number.isSafeInteger(teamId) || teamId <= 0) throw new Error(`withTeam: bad team id ${teamId}`);
   return withScope({ teamId }, work);
 }
