@@ -1,5 +1,5 @@
 import crypto from "node:crypto";
-import { db, now, withTeam, writeTransaction } from "~/utils/db.server";
+import { now, withScope, withTeam, writeTransaction } from "~/utils/db.server";
 import type { Role } from "./user.server";
 
 // Personal API tokens. A token is 32 random bytes (256 bits) shown once; the database keeps only its
@@ -67,7 +67,7 @@ export async function createToken(teamId: number, userId: number, name: string, 
       });
       return { id, token };
     },
-    { teamId: teamId },
+    { teamId },
   );
 }
 
@@ -97,7 +97,7 @@ export async function revokeToken(teamId: number, userId: number, tokenId: numbe
       });
       return true;
     },
-    { teamId: teamId },
+    { teamId },
   );
 }
 
@@ -110,18 +110,25 @@ const TOUCH_EVERY_MS = 60_000;
  */
 export async function callerForToken(token: string): Promise<TokenCaller | null> {
   if (!token.startsWith(TOKEN_PREFIX) || token.length > 200) return null;
-  const row = await db()("api_tokens as t")
-    .join("memberships as m", function () {
-      this.on("m.user_id", "=", "t.user_id").andOn("m.team_id", "=", "t.team_id");
-    })
-    .join("teams as tm", "tm.id", "t.team_id")
-    .where("t.token_hash", hashToken(token))
-    .whereNull("t.revoked_at")
-    .first("t.id", "t.user_id", "t.team_id", "t.role", "t.last_used_at", "m.role as member_role", "tm.name as team_name");
+  // Row security: the token is found by its hash alone (api_tokens_by_hash), then read with its person's
+  // membership in the token's team
+  const tokenHash = hashToken(token);
+  const found = await withScope({ tokenHash }, (k) => k("api_tokens").where({ token_hash: tokenHash }).first("team_id"));
+  if (!found) return null;
+  const row = await withTeam(found.team_id, (k) =>
+    k("api_tokens as t")
+      .join("memberships as m", function () {
+        this.on("m.user_id", "=", "t.user_id").andOn("m.team_id", "=", "t.team_id");
+      })
+      .join("teams as tm", "tm.id", "t.team_id")
+      .where("t.token_hash", hashToken(token))
+      .whereNull("t.revoked_at")
+      .first("t.id", "t.user_id", "t.team_id", "t.role", "t.last_used_at", "m.role as member_role", "tm.name as team_name"),
+  );
   if (!row) return null;
   const at = now();
   if (!row.last_used_at || Date.parse(at) - Date.parse(row.last_used_at) >= TOUCH_EVERY_MS) {
-    await db()("api_tokens").where({ id: row.id }).update({ last_used_at: at });
+    await withTeam(row.team_id, (k) => k("api_tokens").where({ id: row.id }).update({ last_used_at: at }));
   }
   return { tokenId: row.id, userId: row.user_id, teamId: row.team_id, teamName: row.team_name, role: lower(row.role, row.member_role) };
 }

@@ -54,6 +54,6 @@ export async function setEngineShare(teamId: number, byUserId: number, engineId:
         created_at: now(),
       });
     },
-    { teamId: teamId },
+    { teamId },
   );
 }

@@ -178,7 +178,7 @@ export async function receiveUpload(request: Request, teamId: number, userId: nu
         });
         return inserted as Row;
       },
-      { teamId: teamId },
+      { teamId },
     );
     const returnTo = text("returnTo");
     return { ok: true, file: toFile(row), returnTo: /^\/engines\/\d+\/[a-z]+$/.test(returnTo) ? returnTo : null };
@@ -221,7 +221,7 @@ export async function deleteFile(teamId: number, userId: number, idParam: string
       });
       return found as Row;
     },
-    { teamId: teamId },
+    { teamId },
   );
   if (!row) return null;
   await removeObjects(row.storage_key, row.thumb_key);

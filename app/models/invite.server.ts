@@ -1,7 +1,7 @@
 import type { Knex } from "knex";
 import { data } from "react-router";
 import { INVITE_DAYS } from "~/lib/mail/messages";
-import { db, now, withTeam, writeTransaction } from "~/utils/db.server";
+import { db, now, withScope, withTeam, writeTransaction } from "~/utils/db.server";
 import { hashPassword } from "~/utils/password.server";
 import { hashLinkToken, isLinkToken, newLinkToken } from "~/utils/tokens.server";
 import { insertUser, normalizeEmail, type Role, type UserRow } from "./user.server";
@@ -71,7 +71,7 @@ export async function createInvite(
       });
       return { token, id: id as number };
     },
-    { teamId: teamId },
+    { teamId },
   );
 }
 
@@ -107,16 +107,17 @@ export async function revokeInvite(teamId: number, byUserId: number, inviteId: n
         created_at: now(),
       });
     },
-    { teamId: teamId },
+    { teamId },
   );
 }
 
 export async function findInvite(token: string | undefined): Promise<InviteLookup> {
   if (!isLinkToken(token)) return { ok: false, reason: "unknown" };
-  const row = await db()("team_invites as i")
-    .join("teams as t", "t.id", "i.team_id")
-    .where("i.token_hash", hashLinkToken(token))
-    .first("i.*", { team_name: "t.name" });
+  const tokenHash = hashLinkToken(token);
+  // row security: the invite is found by its link's hash alone (team_invites_by_hash)
+  const row = await withScope({ tokenHash }, (k) =>
+    k("team_invites as i").join("teams as t", "t.id", "i.team_id").where("i.token_hash", tokenHash).first("i.*", { team_name: "t.name" }),
+  );
   if (!row || row.revoked_at) return { ok: false, reason: "unknown" };
   if (row.accepted_at) return { ok: false, reason: "used" };
   if (Date.parse(row.expires_at) <= Date.now()) return { ok: false, reason: "expired" };
@@ -161,10 +162,13 @@ export const INVITE_GONE = "This invite link has been used, withdrawn or has exp
 export async function acceptInviteAsUser(invite: Extract<InviteLookup, { ok: true }>, user: UserRow): Promise<void> {
   if (normalizeEmail(user.email) !== invite.email)
     throw data(`This invite is for ${invite.email}; you are signed in as ${user.email}.`, { status: 403 });
-  await writeTransaction(async (trx) => {
-    if (!(await claim(trx, invite.id))) throw data(INVITE_GONE, { status: 410 });
-    await join(trx, invite, user.id);
-  });
+  await writeTransaction(
+    async (trx) => {
+      if (!(await claim(trx, invite.id))) throw data(INVITE_GONE, { status: 410 });
+      await join(trx, invite, user.id);
+    },
+    { teamId: invite.teamId },
+  );
 }
 
 /** Accepts by making the account: the invited address, the name and password given. */
@@ -173,12 +177,15 @@ export async function acceptInviteAsNewUser(
   input: { name: string; password: string },
 ): Promise<UserRow> {
   const passwordHash = await hashPassword(input.password);
-  return writeTransaction(async (trx) => {
-    if (!(await claim(trx, invite.id))) throw data(INVITE_GONE, { status: 410 });
-    if (await trx("users").where({ email: invite.email }).first("id"))
-      throw data("This address has an account now: sign in to accept.", { status: 409 });
-    const user = await insertUser(trx, { email: invite.email, name: input.name, passwordHash });
-    await join(trx, invite, user.id);
-    return user;
-  });
+  return writeTransaction(
+    async (trx) => {
+      if (!(await claim(trx, invite.id))) throw data(INVITE_GONE, { status: 410 });
+      if (await trx("users").where({ email: invite.email }).first("id"))
+        throw data("This address has an account now: sign in to accept.", { status: 409 });
+      const user = await insertUser(trx, { email: invite.email, name: input.name, passwordHash });
+      await join(trx, invite, user.id);
+      return user;
+    },
+    { teamId: invite.teamId },
+  );
 }

@@ -78,7 +78,7 @@ export async function createMachining(teamId: number, userId: number, engineId: 
       await audit(trx, teamId, userId, "machining.recorded", { engineId, machiningId: row.id, planId: m.planId });
       return row.id as number;
     },
-    { teamId: teamId },
+    { teamId },
   );
 }
 

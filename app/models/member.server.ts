@@ -40,7 +40,7 @@ export async function changeRole(teamId: number, byUserId: number, userId: numbe
         created_at: now(),
       });
     },
-    { teamId: teamId },
+    { teamId },
   );
 }
 
@@ -61,6 +61,6 @@ export async function removeMember(teamId: number, byUserId: number, userId: num
         created_at: now(),
       });
     },
-    { teamId: teamId },
+    { teamId },
   );
 }

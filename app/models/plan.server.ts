@@ -164,7 +164,7 @@ export async function createPlan(teamId: number, userId: number, engineId: numbe
       await audit(trx, teamId, userId, "plan.created", { engineId, planId: id, name: w.name });
       return id;
     },
-    { teamId: teamId },
+    { teamId },
   );
 }
 
@@ -176,7 +176,7 @@ export async function updatePlan(teamId: number, userId: number, engineId: numbe
         .update({ ...planColumns(w), updated_at: now() });
       await audit(trx, teamId, userId, "plan.updated", { engineId, planId, name: w.name });
     },
-    { teamId: teamId },
+    { teamId },
   );
 }
 
@@ -187,7 +187,7 @@ export async function archivePlan(teamId: number, userId: number, engineId: numb
       await trx("engines").where({ team_id: teamId, id: engineId, chosen_plan_id: planId }).update({ chosen_plan_id: null });
       await audit(trx, teamId, userId, "plan.archived", { engineId, planId });
     },
-    { teamId: teamId },
+    { teamId },
   );
 }
 
@@ -197,7 +197,7 @@ export async function choosePlan(teamId: number, userId: number, engineId: numbe
       await trx("engines").where({ team_id: teamId, id: engineId }).update({ chosen_plan_id: planId, updated_at: now() });
       await audit(trx, teamId, userId, "plan.chosen", { engineId, planId });
     },
-    { teamId: teamId },
+    { teamId },
   );
 }
 
@@ -219,6 +219,6 @@ export async function copyPlanToEngine(teamId: number, userId: number, plan: Pla
       });
       return id;
     },
-    { teamId: teamId },
+    { teamId },
   );
 }

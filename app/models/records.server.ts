@@ -98,7 +98,7 @@ export async function createAssembly(teamId: number, userId: number, engineId: n
       await audit(trx, teamId, userId, "assembly.recorded", { engineId, assemblyId: row.id, planId: w.planId });
       return row.id as number;
     },
-    { teamId: teamId },
+    { teamId },
   );
 }
 
@@ -159,6 +159,6 @@ export async function createRun(teamId: number, userId: number, engine: EngineRo
       await audit(trx, teamId, userId, "run.logged", { engineId: engine.id, runId: row.id });
       return row.id as number;
     },
-    { teamId: teamId },
+    { teamId },
   );
 }

@@ -1,5 +1,5 @@
 import type { Knex } from "knex";
-import { db, now } from "~/utils/db.server";
+import { db, now, setRowScope, withScope } from "~/utils/db.server";
 import { hashPassword } from "~/utils/password.server";
 import { seedTeamLibrary } from "./library-seed.server";
 
@@ -75,6 +75,7 @@ export async function createUserWithTeam(input: {
     return await db().transaction(async (trx) => {
       const user = await insertUser(trx, { email: input.email, name: input.name, passwordHash });
       const teamId = await insertTeam(trx, input.teamName);
+      await setRowScope(trx, { teamId, userId: user.id });
       await trx("memberships").insert({ user_id: user.id, team_id: teamId, role: "owner", created_at: now() });
       await trx("audit_events").insert({ team_id: teamId, user_id: user.id, action: "team.created", created_at: now() });
       await seedTeamLibrary(trx, teamId);
@@ -108,11 +109,13 @@ export async function insertTeam(trx: Knex, name: string): Promise<number> {
 }
 
 export async function listMemberships(userId: number): Promise<MembershipRow[]> {
-  return db()("memberships as m")
-    .join("teams as t", "t.id", "m.team_id")
-    .where("m.user_id", userId)
-    .orderBy(["t.name", "t.id"])
-    .select({ teamId: "t.id", teamName: "t.name", role: "m.role" });
+  return withScope({ userId }, (k) =>
+    k("memberships as m")
+      .join("teams as t", "t.id", "m.team_id")
+      .where("m.user_id", userId)
+      .orderBy(["t.name", "t.id"])
+      .select({ teamId: "t.id", teamName: "t.name", role: "m.role" }),
+  );
 }
 
 export async function setUnits(userId: number, units: UnitSystem): Promise<void> {
@@ -131,6 +134,7 @@ export async function getPasswordHash(userId: number): Promise<string | null> {
 export async function setPassword(userId: number, password: string): Promise<void> {
   const passwordHash = await hashPassword(password);
   await db().transaction(async (trx) => {
+    await setRowScope(trx, { userId });
     await trx("users").where({ id: userId }).update({ password_hash: passwordHash });
     await trx("sessions").where({ user_id: userId }).delete();
     await trx("password_resets").where({ user_id: userId }).whereNull("used_at").update({ used_at: now() });

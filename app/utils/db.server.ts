@@ -97,6 +97,11 @@ export async function teamTransaction<T>(teamId: number, work: (trx: Knex.Transa
   });
 }
 
+/** Tells row security about a transaction already begun (a team made inside it); nothing on SQLite. */
+export async function setRowScope(trx: Knex.Transaction, scope: RowScope): Promise<void> {
+  if (isPostgres(trx)) await setScope(trx, scope);
+}
+
 /** Reads (or single writes) in one row scope; on SQLite `work` runs on the plain connection. */
 export async function withScope<T>(scope: RowScope, work: (q: Knex) => PromiseLike<T>): Promise<T> {
   const knex = db();

@@ -2,7 +2,7 @@ import crypto from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import { createCookie, createSessionStorage } from "react-router";
-import { db, now } from "./db.server";
+import { now, withScope } from "./db.server";
 import { cookieIsSecure, getEnv } from "./env.server";
 
 export interface SessionData {
@@ -54,42 +54,48 @@ function build() {
       // 256 random bits; only its hash is stored.
       const id = crypto.randomBytes(32).toString("base64url");
       const at = new Date();
-      await db()("sessions").insert({
-        id_hash: hashSessionId(id),
-        user_id: data.userId,
-        team_id: data.teamId ?? null,
-        data: "{}",
-        created_at: at.toISOString(),
-        last_seen_at: at.toISOString(),
-        expires_at: new Date(at.getTime() + maxMs).toISOString(),
-      });
+      await withScope({ sessionHash: hashSessionId(id) }, (k) =>
+        k("sessions").insert({
+          id_hash: hashSessionId(id),
+          user_id: data.userId,
+          team_id: data.teamId ?? null,
+          data: "{}",
+          created_at: at.toISOString(),
+          last_seen_at: at.toISOString(),
+          expires_at: new Date(at.getTime() + maxMs).toISOString(),
+        }),
+      );
       return id;
     },
     async readData(id) {
       const idHash = hashSessionId(id);
-      const row = await db()("sessions").where({ id_hash: idHash }).first();
+      const row = await withScope({ sessionHash: idHash }, (k) => k("sessions").where({ id_hash: idHash }).first());
       if (!row) return null;
       const t = Date.now();
       const lastSeen = Date.parse(row.last_seen_at);
       if (t > Date.parse(row.expires_at) || t - lastSeen > idleMs) {
-        await db()("sessions").where({ id_hash: idHash }).delete();
+        await withScope({ sessionHash: idHash }, (k) => k("sessions").where({ id_hash: idHash }).delete());
         return null;
       }
       if (t - lastSeen > TOUCH_EVERY_MS) {
-        await db()("sessions").where({ id_hash: idHash }).update({ last_seen_at: now() });
+        await withScope({ sessionHash: idHash }, (k) => k("sessions").where({ id_hash: idHash }).update({ last_seen_at: now() }));
       }
       return { userId: row.user_id, teamId: row.team_id, ...JSON.parse(row.data) };
     },
     async updateData(id, data) {
       const { userId, teamId, ...rest } = data as Partial<SessionData> & Record<string, unknown>;
-      await db()("sessions")
-        .where({ id_hash: hashSessionId(id) })
-        .update({ team_id: teamId ?? null, data: JSON.stringify(rest), ...(userId ? { user_id: userId } : {}) });
+      await withScope({ sessionHash: hashSessionId(id) }, (k) =>
+        k("sessions")
+          .where({ id_hash: hashSessionId(id) })
+          .update({ team_id: teamId ?? null, data: JSON.stringify(rest), ...(userId ? { user_id: userId } : {}) }),
+      );
     },
     async deleteData(id) {
-      await db()("sessions")
-        .where({ id_hash: hashSessionId(id) })
-        .delete();
+      await withScope({ sessionHash: hashSessionId(id) }, (k) =>
+        k("sessions")
+          .where({ id_hash: hashSessionId(id) })
+          .delete(),
+      );
     },
   });
 }
@@ -104,5 +110,5 @@ export function getSession(request: Request) {
 }
 
 export async function deleteSessionsOfUser(userId: number): Promise<void> {
-  await db()("sessions").where({ user_id: userId }).delete();
+  await withScope({ userId }, (k) => k("sessions").where({ user_id: userId }).delete());
 }
