@@ -1,6 +1,6 @@
 import type { Knex } from "knex";
 import { FormDataParseError, MaxFileSizeExceededError, MaxFilesExceededError, parseFormData } from "@remix-run/form-data-parser";
-import { db, type DbRow, now, withTeam, writeTransaction } from "~/utils/db.server";
+import { type DbRow, now, withTeam, writeTransaction } from "~/utils/db.server";
 import { getEnv } from "~/utils/env.server";
 import { fileStorage, MAX_UPLOAD_BYTES, newStorageKey, sniffType, teamQuotaBytes, thumbnail } from "~/utils/files.server";
 import { parseId } from "~/utils/ids";
@@ -75,8 +75,9 @@ export async function getStoredFile(teamId: number, idParam: string | undefined)
   return row ? { ...toFile(row), storageKey: row.storage_key as string, thumbKey: (row.thumb_key as string | null) ?? null } : null;
 }
 
-export async function teamUsedBytes(teamId: number, q: Knex = db()): Promise<number> {
-  const r = await q("files").where({ team_id: teamId }).sum({ total: "size_bytes" }).first();
+export async function teamUsedBytes(teamId: number, q?: Knex): Promise<number> {
+  const sum = (k: Knex) => k("files").where({ team_id: teamId }).sum({ total: "size_bytes" }).first();
+  const r = await (q ? sum(q) : withTeam(teamId, sum));
   return Number(r?.total ?? 0);
 }
 

@@ -1,7 +1,7 @@
 import type { Knex } from "knex";
 import { data } from "react-router";
 import type { FastenerInput, GasketInput, LibraryKind, MaterialInput } from "~/lib/library/schemas";
-import { db, type DbRow, now, teamTransaction } from "~/utils/db.server";
+import { type DbRow, now, teamTransaction, withTeam } from "~/utils/db.server";
 
 export { seedTeamLibrary } from "./library-seed.server";
 
@@ -113,9 +113,9 @@ function toColumns(kind: LibraryKind, input: Record<string, unknown>): Raw {
   return out;
 }
 
-function baseQuery(kind: LibraryKind, teamId: number) {
+function baseQuery(kind: LibraryKind, teamId: number, k: Knex) {
   const t = TABLE[kind];
-  const q = db()(`${t} as r`)
+  const q = k(`${t} as r`)
     .leftJoin("users as u", "u.id", "r.entered_by")
     .where("r.team_id", teamId)
     .select("r.*", { entered_by_name: "u.name" });
@@ -125,9 +125,12 @@ function baseQuery(kind: LibraryKind, teamId: number) {
 
 /** The team's rows of one kind, active ones only unless includeArchived. Sorted by name. */
 export async function listLibrary(kind: LibraryKind, teamId: number, opts: { includeArchived?: boolean } = {}): Promise<LibraryRow[]> {
-  const q = baseQuery(kind, teamId).orderBy(["r.name", "r.id"]);
-  if (!opts.includeArchived) q.whereNull("r.archived_at");
-  return (await q).map((r: Raw) => toRow(kind, r));
+  const rows = await withTeam(teamId, (k) => {
+    const q = baseQuery(kind, teamId, k).orderBy(["r.name", "r.id"]);
+    if (!opts.includeArchived) q.whereNull("r.archived_at");
+    return q;
+  });
+  return rows.map((r: Raw) => toRow(kind, r));
 }
 
 export const listMaterials = (teamId: number, opts?: { includeArchived?: boolean }) =>
@@ -140,7 +143,7 @@ export const listGaskets = (teamId: number, opts?: { includeArchived?: boolean }
 /** One of the team's rows (archived too), or null; another team's row is null. */
 export async function getLibraryItem(kind: LibraryKind, teamId: number, id: number): Promise<LibraryRow | null> {
   if (!Number.isInteger(id) || id <= 0) return null;
-  const row = await baseQuery(kind, teamId).where("r.id", id).first();
+  const row = await withTeam(teamId, (k) => baseQuery(kind, teamId, k).where("r.id", id).first());
   return row ? toRow(kind, row) : null;
 }
 
