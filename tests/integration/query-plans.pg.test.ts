@@ -52,7 +52,9 @@ async function captured(run: () => Promise<unknown>): Promise<{ sql: string; bin
 /** The plan of each captured statement as the app role for the team, and the team tables it reads in full. */
 async function seqScans(teamId: number, run: () => Promise<unknown>): Promise<{ sql: string; seq: string[]; plan: string }[]> {
   const out: { sql: string; seq: string[]; plan: string }[] = [];
-  for (const q of await captured(run)) {
+  for (const captured_ of await captured(run)) {
+    // the query event carries pg's $1, $2 … placeholders; knex.raw takes ? in the same order
+    const q = { sql: captured_.sql.replace(/\$\d+/g, "?"), bindings: captured_.bindings };
     const [json, text] = await appDb().transaction(async (trx: Knex.Transaction) => {
       await trx.raw("select set_config('app.team_id', ?, true)", [String(teamId)]);
       const j = rowsOf<{ "QUERY PLAN": { Plan: PlanNode }[] }>(await trx.raw(`explain (format json) ${q.sql}`, q.bindings as never[]));
