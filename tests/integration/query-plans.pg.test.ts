@@ -96,6 +96,15 @@ describe.runIf(onPostgres)("hot query plans on PostgreSQL at 5,000 engines / 30,
         .join(", ")} from engines src cross join generate_series(1, ${ENGINES - 1}) g where src.id = ?`,
       [engineId],
     );
+    // a hosted server holds many shops: the other team gets nine times as many engines, so the team filter
+    // is selective, as it is in production (with one shop holding every row, a Seq Scan is the right plan)
+    const otherTeam = (await k("teams").whereNot({ id: teamId }).orderBy("id").first("id"))!.id as number;
+    await k.raw(
+      `insert into engines (${engineCols.join(", ")}) select ${engineCols
+        .map((c) => pick(c, { name: "'Other shop ' || g", team_id: String(otherTeam) }))
+        .join(", ")} from engines src cross join generate_series(1, ${ENGINES * 9}) g where src.id = ?`,
+      [engineId],
+    );
     const planCols = await cols("seal_plans");
     const plan = await k("seal_plans").where({ id: e.chosen_plan_id }).first("id");
     await k.raw(
