@@ -42,10 +42,29 @@ const env: Record<string, string> = {
   PG_POOL_MAX: "4",
 };
 
+// The app processes connect as a role that owns nothing, so PostgreSQL's row security binds them
+// (docs/decisions/0017-row-security.md); migrations, the seed and this script's own reads use the owner.
+const appRole = `${dbName}_app`;
+const appUrl = new URL(url.toString());
+appUrl.username = appRole;
+const appEnv: Record<string, string> = { ...env, DATABASE_URL: appUrl.toString() };
+async function grantAppRole(): Promise<void> {
+  await admin(`drop role if exists "${appRole}"`);
+  await admin(`create role "${appRole}" login nosuperuser nocreatedb nocreaterole nobypassrls`);
+  const client = new pg.Client({ connectionString: withUser(url.toString()) });
+  await client.connect();
+  try {
+    await client.query(`grant select, insert, update, delete on all tables in schema public to "${appRole}"`);
+    await client.query(`grant usage, select on all sequences in schema public to "${appRole}"`);
+  } finally {
+    await client.end();
+  }
+}
+
 const children: ChildProcess[] = [];
 async function startAll(n: number): Promise<number[]> {
   const ports = Array.from({ length: n }, (_, i) => firstPort + i);
-  children.push(...(await Promise.all(ports.map((p) => startServer(env, p)))));
+  children.push(...(await Promise.all(ports.map((p) => startServer(appEnv, p)))));
   return ports;
 }
 async function stopAll(): Promise<void> {
@@ -102,7 +121,8 @@ try {
   const run = (args: string[]) => execFileSync(process.execPath, ["--import", "tsx", ...args], { cwd: ROOT, env, stdio: "pipe" });
   run(["node_modules/knex/bin/cli.js", "--knexfile", "knexfile.ts", "migrate:latest"]);
   run(["scripts/db-seed.ts"]);
-  console.log(`database ${dbName} migrated and seeded; rate-limit store: ${store}`);
+  await grantAppRole();
+  console.log(`database ${dbName} migrated and seeded; app processes as ${appRole} (row security binds it); rate-limit store: ${store}`);
 
   const [a, b] = await startAll(2);
   // 1. one session, two processes
@@ -160,6 +180,7 @@ try {
 } finally {
   await stopAll();
   await admin(`drop database if exists "${dbName}" with (force)`);
+  await admin(`drop role if exists "${appRole}"`);
 }
 
 /** The plan's input in SI, as the editor's estimate sends it: read from the database the servers share. */
