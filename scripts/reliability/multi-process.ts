@@ -194,7 +194,7 @@ async function planInput(planPath: string): Promise<unknown> {
   const row = await db()("engines")
     .where({ id: Number(engineId) })
     .first("team_id");
-  const engine = (await getEngine(row.team_id, Number(engineId)))!;
+  const engine = (await getEngine({ teamId: row.team_id, userId: 0, role: "owner" }, Number(engineId)))!;
   const plan = (await listPlans(row.team_id, engine.id)).find((p) => p.id === Number(planId))!;
   const input = assemblePlanInput((await planParts(row.team_id, engine, plan))!);
   await closeDb();
