@@ -1,6 +1,7 @@
+import type { Knex } from "knex";
 import type { z } from "zod";
 import type { RunCreateSchema } from "~/lib/api/schemas";
-import { db, type DbRow, now, writeTransaction } from "~/utils/db.server";
+import { db, type DbRow, now, withTeam, writeTransaction } from "~/utils/db.server";
 import { getEngine } from "./engine.server";
 import { viewerScope, type Asker } from "./viewer-scope.server";
 
@@ -84,7 +85,10 @@ export async function listRunsForApi(who: Asker, f: RunFilter): Promise<{ rows: 
   if (f.to) q.andWhere("ran_on", "<=", f.to);
   if (f.cursor !== undefined) q.andWhere("id", "<", f.cursor);
   // one more than the page tells whether another page follows
-  const rows = await q.orderBy("id", "desc").limit(f.limit + 1);
+  // built above on db(); run inside the team's scope (on PostgreSQL a transaction with app.team_id set)
+  const rows = await withTeam(who.teamId, (k) =>
+    (k.isTransaction ? q.transacting(k as Knex.Transaction) : q).orderBy("id", "desc").limit(f.limit + 1),
+  );
   const page = rows.slice(0, f.limit).map(toRun);
   return { rows: page, nextCursor: rows.length > f.limit ? String(page.at(-1)!.id) : null };
 }
@@ -107,37 +111,40 @@ export async function createRunForApi(who: Asker, run: RunCreate): Promise<RunCr
       path: "cylindersAffected",
       message: `the engine has ${engine.cylinders} cylinders; there is no cylinder ${beyond}`,
     };
-  const stored = await writeTransaction(async (trx) => {
-    const createdAt = now();
-    const [row] = await trx(RUNS_TABLE)
-      .insert({
+  const stored = await writeTransaction(
+    async (trx) => {
+      const createdAt = now();
+      const [row] = await trx(RUNS_TABLE)
+        .insert({
+          team_id: teamId,
+          engine_id: engine.id,
+          ran_on: run.ranOn,
+          kind: run.kind,
+          manifold_pressure_kpa: run.manifoldPressureKpa,
+          fuel: run.fuel,
+          peak_cylinder_pressure_mpa: run.peakCylinderPressureMpa,
+          peak_pressure_source: run.peakPressureSource,
+          outcome: run.outcome,
+          cylinders_affected: JSON.stringify(run.cylindersAffected),
+          notes: run.notes,
+          teardown_findings: run.teardownFindings,
+          plan_id: engine.chosenPlanId,
+          created_by: userId,
+          created_at: createdAt,
+          updated_at: createdAt,
+        })
+        .returning("id");
+      const id = typeof row === "object" ? row.id : row;
+      await trx("audit_events").insert({
         team_id: teamId,
-        engine_id: engine.id,
-        ran_on: run.ranOn,
-        kind: run.kind,
-        manifold_pressure_kpa: run.manifoldPressureKpa,
-        fuel: run.fuel,
-        peak_cylinder_pressure_mpa: run.peakCylinderPressureMpa,
-        peak_pressure_source: run.peakPressureSource,
-        outcome: run.outcome,
-        cylinders_affected: JSON.stringify(run.cylindersAffected),
-        notes: run.notes,
-        teardown_findings: run.teardownFindings,
-        plan_id: engine.chosenPlanId,
-        created_by: userId,
+        user_id: userId,
+        action: "run.logged",
+        detail: JSON.stringify({ engineId: engine.id, runId: id }),
         created_at: createdAt,
-        updated_at: createdAt,
-      })
-      .returning("id");
-    const id = typeof row === "object" ? row.id : row;
-    await trx("audit_events").insert({
-      team_id: teamId,
-      user_id: userId,
-      action: "run.logged",
-      detail: JSON.stringify({ engineId: engine.id, runId: id }),
-      created_at: createdAt,
-    });
-    return toRun(await trx(RUNS_TABLE).where({ id }).first());
-  });
+      });
+      return toRun(await trx(RUNS_TABLE).where({ id }).first());
+    },
+    { teamId: who.teamId },
+  );
   return { ok: true, run: stored };
 }
