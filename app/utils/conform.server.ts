@@ -53,8 +53,12 @@ export function parseSubmission<Schema extends z.ZodType>(formData: FormData, sc
  * The route's own button word (`intent`): one of `allowed`, `fallback` when no button was named
  * (Enter in a field), anything else a 400.
  */
-export function readIntent<T extends string>(formData: FormData, allowed: readonly T[], fallback: T): T {
-  const all = formData.getAll("intent");
+export function readIntent<T extends string>(
+  formData: FormData | Record<string, FormDataEntryValue | undefined>,
+  allowed: readonly T[],
+  fallback: T,
+): T {
+  const all = formData instanceof FormData ? formData.getAll("intent") : formData.intent === undefined ? [] : [formData.intent];
   if (all.length === 0) return fallback;
   const word = all[0];
   if (all.length > 1 || typeof word !== "string" || !(allowed as readonly string[]).includes(word)) throw badRequest(BAD_INTENT);

@@ -1,4 +1,4 @@
-import { data, Form, Link, redirect } from "react-router";
+import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/reset-password";
 import { AuthFrame } from "~/components/auth-frame";
@@ -7,7 +7,7 @@ import { completePasswordReset, resetTokenUsable } from "~/models/password-reset
 import { NewPassword } from "~/utils/password-field.server";
 import { PASSWORD_MAX, PASSWORD_MIN } from "~/utils/password-rules";
 import { sessionStorage, getSession } from "~/utils/session.server";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
 import { useRootData } from "~/root";
 
 export const meta: Route.MetaFunction = () => [{ title: "Choose a new password · Sealwright" }];
@@ -30,11 +30,9 @@ export async function action({ request, params }: Route.ActionArgs) {
   // every session of the account ended with the reset, this browser's too: its cookie goes as well
   const headers = new Headers();
   headers.append("Set-Cookie", await sessionStorage().destroySession(await getSession(request)));
-  headers.append(
-    "Set-Cookie",
-    await flashToast(request, { kind: "done", message: "Password changed. Sign in with the new one; every other device was signed out." }),
-  );
-  return redirect("/login", { headers });
+  return redirectWithToast(request, "/login", "Password changed. Sign in with the new one; every other device was signed out.", "done", {
+    headers,
+  });
 }
 
 export default function ResetPassword({ loaderData, actionData }: Route.ComponentProps) {

@@ -1,4 +1,4 @@
-import { data, Form, Link, redirect } from "react-router";
+import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/build-sheet";
 import { BuildSheetView } from "~/components/build-sheet";
@@ -12,7 +12,7 @@ import { requireEngine } from "~/models/engine.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
 import { appUrl } from "~/utils/env.server";
 import { sendMail } from "~/utils/mail.server";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
 import sheetCss from "~/styles/build-sheet.css?url";
 
 export const links: Route.LinksFunction = () => [{ rel: "stylesheet", href: sheetCss }];
@@ -70,9 +70,7 @@ export async function action({ request, params }: Route.ActionArgs) {
       { status: 502 },
     );
   }
-  return redirect(`/engines/${engine.id}/build-sheet`, {
-    headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: `Build sheet sent to ${recipient.name}.` }) },
-  });
+  return redirectWithToast(request, `/engines/${engine.id}/build-sheet`, `Build sheet sent to ${recipient.name}.`);
 }
 
 export default function BuildSheetPage({ loaderData, actionData }: Route.ComponentProps) {

@@ -1,4 +1,4 @@
-import { data, Form, Link, redirect } from "react-router";
+import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/runs";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { Button, Field, fieldErrors, FormError, SelectField, TextArea } from "~/components/form";
@@ -10,7 +10,7 @@ import { requireEngine } from "~/models/engine.server";
 import { listFiles } from "~/models/files.server";
 import { createRun, listRuns } from "~/models/records.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Runs · Sealwright" }];
 // peak pressures are shown, some estimated by the model: the page carries the full caution
@@ -52,9 +52,7 @@ export async function action({ request, params }: Route.ActionArgs) {
       { status: 400 },
     );
   await createRun(team.id, user.id, engine, parsed.data);
-  return redirect(`/engines/${engine.id}/runs`, {
-    headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: "Run logged." }) },
-  });
+  return redirectWithToast(request, `/engines/${engine.id}/runs`, "Run logged.");
 }
 
 const SORT_LABEL: Record<RunSort, string> = {

@@ -20,6 +20,7 @@ import { requireEngine } from "~/models/engine.server";
 import { estimatePlan, planStretch } from "~/models/plan-estimate.server";
 import { archivePlan, choosePlan, createPlan, engineMaterials, planChoices, requirePlan, updatePlan } from "~/models/plan.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
+import { readIntent } from "~/utils/conform.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.plan.name ?? "Seal plan"} · Sealwright` }];
@@ -51,12 +52,15 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   };
 }
 
+// The buttons this page's forms post (the suggestion box's too); anything else is a 400.
+const EDITOR_INTENTS = ["save", "estimate", "suggest", "choose", "archive", "apply-torque", "new-with-torque", "show-all-gaskets"] as const;
+
 export async function action({ request, params }: Route.ActionArgs) {
   const { user, team, who } = await requireRole(request, "builder");
   const engine = await requireEngine(who, params.engineId);
   const plan = await requirePlan(team.id, engine.id, params.planId);
   const form = Object.fromEntries(await request.formData());
-  const intent = String(form.intent ?? "save");
+  const intent = readIntent(form, EDITOR_INTENTS, "save");
   const base = `/engines/${engine.id}/plans`;
 
   if (intent === "choose") {

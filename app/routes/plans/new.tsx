@@ -17,6 +17,7 @@ import { requireEngine } from "~/models/engine.server";
 import { estimatePlan, planStretch } from "~/models/plan-estimate.server";
 import { createPlan, listPlans, planChoices } from "~/models/plan.server";
 import { requireRole } from "~/utils/auth.server";
+import { readIntent } from "~/utils/conform.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = ({ error }) => [{ title: error ? REFUSAL_TITLE : "New seal plan · Sealwright" }];
@@ -89,7 +90,8 @@ export async function action({ request, params }: Route.ActionArgs) {
     const stretch = shown.ok ? await planStretch(team.id, engine, shown.plan) : null;
     return data({ errors: {}, problems: [] as string[], note: null as string | null, values, stretch, ...extra }, { status });
   };
-  if (values.intent === "show-all-gaskets") return answer(200, { values: { ...values, showAllGaskets: "1" } });
+  if (readIntent(form, ["create", "show-all-gaskets"], "create") === "show-all-gaskets")
+    return answer(200, { values: { ...values, showAllGaskets: "1" } });
   // Without JavaScript: the fastener changed but its figures are still the old stud's; show the new maker's first.
   const choices = await planChoices(team.id);
   const followed = figuresFollowStep(values, choices.fasteners, user.units);
