@@ -13,7 +13,7 @@ import type { Suggestion } from "~/lib/clamp";
 import { plannedByStretch } from "~/lib/plan/assemble";
 import type { EstimateView } from "~/lib/plan/estimate-view";
 import { figuresFollowStep, scaledWrenchStages } from "~/lib/plan/fastener-figures";
-import { parsePlanForm, planFormValues, type PlanWrite } from "~/lib/plan/form";
+import { parsePlanForm, planFormValues, readSuggestedFigures, type PlanWrite } from "~/lib/plan/form";
 import type { StretchLine } from "~/lib/plan/stretch";
 import { formatQuantity } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
@@ -72,12 +72,11 @@ export async function action({ request, params }: Route.ActionArgs) {
     return redirectWithToast(request, base, `“${plan.name}” archived.`);
   }
   if (intent === "apply-torque" || intent === "new-with-torque") {
-    const torqueNm = Number(form.torqueNm);
-    const protrusion = form.protrusionMm === undefined || form.protrusionMm === "" ? plan.sleeveProtrusionMm : Number(form.protrusionMm);
-    if (!(torqueNm > 0 && torqueNm <= 5000) || (protrusion !== null && !(protrusion >= -0.5 && protrusion <= 1))) {
+    const figures = readSuggestedFigures(form, plan.sleeveProtrusionMm);
+    if (!figures.ok) {
       return data(
         {
-          errors: { torque: "The suggested figures are out of range." },
+          errors: { torque: figures.message },
           values: planFormValues(plan, user.units),
           note: null,
           preview: null,
@@ -88,6 +87,7 @@ export async function action({ request, params }: Route.ActionArgs) {
         { status: 400 },
       );
     }
+    const { torqueNm, protrusionMm: protrusion } = figures;
     const next: PlanWrite = {
       ...plan,
       torqueNm,

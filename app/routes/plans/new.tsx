@@ -7,8 +7,8 @@ import { Button, ErrorSummary, FormError } from "~/components/form";
 import { MakerTorque } from "~/components/maker-torque";
 import { PlanFields } from "~/components/plan-form";
 import { gasketsByFit } from "~/lib/plan/assemble";
-import { figuresFollowStep, makerPlanFigures } from "~/lib/plan/fastener-figures";
-import { parsePlanForm, planFormValues, type PlanWrite } from "~/lib/plan/form";
+import { figuresFollowStep } from "~/lib/plan/fastener-figures";
+import { parsePlanForm, planFormValues, startingPlan, type PlanWrite } from "~/lib/plan/form";
 import { formatQuantity, parseQuantity, unitFor } from "~/lib/units";
 import { decimalPoint } from "~/lib/units/decimal-comma";
 import { LearnedFrictionOffer } from "~/components/learned-friction";
@@ -35,21 +35,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const fastener = choices.fasteners.find((f) => f.id === template?.fastenerId) ?? choices.fasteners[0];
   const { fitting } = gasketsByFit(choices.gaskets, engine.boreMm);
   const gasket = choices.gaskets.find((g) => g.id === template?.gasketId) ?? fitting[0] ?? choices.gaskets[0];
-  const plan: PlanWrite = template
-    ? { ...template, name: "", notes: "" }
-    : {
-        name: "",
-        gasketId: gasket?.id ?? 0,
-        ...makerPlanFigures(fastener, user.units),
-        method: "torque-estimated-friction",
-        wireLocation: gasket?.type === "solid-copper" ? "block" : "none",
-        wireProjectionMm: gasket?.type === "solid-copper" ? 0.1 : 0,
-        receiverGrooveDepthMm: 0,
-        sleeveProtrusionMm: null,
-        targetStretchMm: null,
-        targetMargin: 1.5,
-        notes: "",
-      };
+  const plan: PlanWrite = template ? { ...template, name: "", notes: "" } : startingPlan(fastener, gasket, user.units);
   // planned by stretch gauge: the maker's stretch figure is the starting target
   if (plan.method === "stretch-measured" && plan.targetStretchMm == null) plan.targetStretchMm = fastener?.makerStretchMm ?? null;
   return {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { decimalPoint, splitList } from "../../../../app/lib/units/decimal-comma";
-import { METHOD_LABEL, parsePlanForm, planFormValues } from "../../../../app/lib/plan/form";
+import { METHOD_LABEL, parsePlanForm, planFormValues, readSuggestedFigures, startingPlan } from "../../../../app/lib/plan/form";
 import { figuresFingerprint } from "../../../../app/lib/plan/fastener-figures";
 import { LBF_FT_TO_NM, relErr } from "../nist";
 
@@ -131,5 +131,27 @@ describe("gaskets by bore", () => {
     // common practice: not smaller than the bore, at most 6 mm over it
     expect(fitting.map((g) => g.id)).toEqual([3, 2]);
     expect(others.map((g) => g.id)).toEqual([1, 4, 5]);
+  });
+});
+
+describe("a new plan with nothing to start from, and a suggestion's posted figures", () => {
+  it("copper gaskets start with a block wire ring 0.1 mm proud (common practice); others with none", () => {
+    const copper = startingPlan(undefined, { id: 7, type: "solid-copper" }, "metric");
+    expect(copper).toMatchObject({
+      gasketId: 7,
+      wireLocation: "block",
+      wireProjectionMm: 0.1,
+      targetMargin: 1.5,
+      method: "torque-estimated-friction",
+    });
+    const mls = startingPlan(undefined, { id: 8, type: "mls" }, "metric");
+    expect(mls).toMatchObject({ wireLocation: "none", wireProjectionMm: 0, sleeveProtrusionMm: null, targetStretchMm: null });
+    expect(startingPlan(undefined, undefined, "metric").gasketId).toBe(0);
+  });
+  it("reads the suggested torque and protrusion inside the form's ranges", () => {
+    expect(readSuggestedFigures({ torqueNm: "150", protrusionMm: "" }, 0.05)).toEqual({ ok: true, torqueNm: 150, protrusionMm: 0.05 });
+    expect(readSuggestedFigures({ torqueNm: "150", protrusionMm: "0.1" }, null)).toEqual({ ok: true, torqueNm: 150, protrusionMm: 0.1 });
+    for (const bad of [{ torqueNm: "0" }, { torqueNm: "5001" }, { torqueNm: "x" }, { torqueNm: "100", protrusionMm: "1.5" }])
+      expect(readSuggestedFigures(bad, null).ok, JSON.stringify(bad)).toBe(false);
   });
 });
