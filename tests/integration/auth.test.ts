@@ -132,6 +132,17 @@ describe("sign-up", () => {
     expect(out.status).toBe(302);
   });
 
+  it("answers a malformed Conform intent with 400 and a message, not a 500, and writes nothing", async () => {
+    const [{ n: before }] = await db()("users").count({ n: "*" });
+    const fields = { name: "Ivo Marsh", email: "ivo@example.com", teamName: "Marsh Heads", password: "long enough pass" };
+    for (const intent of ["{oops", '{"type":"explode","payload":{}}', '{"type":"remove","payload":{"name":"email","index":0}}']) {
+      const out = await call(action, post("/signup", { ...fields, __intent__: intent }));
+      expect(out.status, intent).toBe(400);
+      expect(String(out.body)).toMatch(/not one this page knows/);
+    }
+    expect((await db()("users").count({ n: "*" }))[0]!.n).toBe(before);
+  });
+
   it("rejects bad input with messages and writes nothing", async () => {
     const [{ n: before }] = await db()("users").count({ n: "*" });
     const out = await call(action, post("/signup", { name: "", email: "not-an-email", teamName: "", password: "short" }));

@@ -310,6 +310,27 @@ describe("archiving a plan", () => {
   });
 });
 
+describe("button words", () => {
+  it("an unknown intent on the editor or the new-plan page is a 400 with a message, and writes nothing", async () => {
+    const before = await planRow(planId);
+    const planParams = { engineId: String(engineId), planId: String(planId) };
+    const out = await call(
+      editor.action as Handler,
+      post(`/engines/${engineId}/plans/${planId}`, { intent: "delete-all" }, builder),
+      planParams,
+    );
+    expect(out.status).toBe(400);
+    expect(String(out.body)).toMatch(/not one this page knows/);
+    const made = await call(
+      newPlan.action as Handler,
+      post(`/engines/${engineId}/plans/new`, await currentForm({ intent: "save-everything" }), builder),
+      { engineId: String(engineId) },
+    );
+    expect(made.status).toBe(400);
+    expect(await planRow(planId)).toEqual(before);
+  });
+});
+
 describe("new plan", () => {
   it("creates a plan, and refuses bad input writing nothing", async () => {
     const params = { engineId: String(engineId) };
