@@ -136,8 +136,9 @@ beforeAll(async () => {
 const HARMLESS: Record<string, Record<string, string>> = {
   "routes/auth/login": { email: "", password: "" },
   "routes/app/team-switch": { returnTo: "/dashboard" },
-  "routes/engines/new": { intent: "add-stud" },
-  "routes/engines/edit": { intent: "add-stud" },
+  // Conform's "Add a stud" list intent: answers with one more row, writes nothing
+  "routes/engines/new": { __intent__: JSON.stringify({ type: "insert", payload: { name: "studs" } }) },
+  "routes/engines/edit": { __intent__: JSON.stringify({ type: "insert", payload: { name: "studs" } }) },
   "routes/plans/editor": { intent: "estimate" },
   "routes/plans/compare": { planId: "" },
   "library-new": { intent: "no-such-intent" },
