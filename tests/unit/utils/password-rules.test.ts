@@ -1,9 +1,9 @@
-// Password length rules (app/utils/password-rules.ts): OWASP ASVS, at least 8 and allow at least 64.
+// Password length rules (app/utils/password-rules.ts): at least 8, and allow at least 64.
 import { describe, expect, it } from "vitest";
 import { isBlankPassword, PASSWORD_MAX, PASSWORD_MIN } from "../../../app/utils/password-rules";
 
 describe("password rules", () => {
-  it("at least 8 characters, and at least 64 allowed (OWASP Application Security Verification Standard 4.0, V2.1)", () => {
+  it("at least 8 characters, and at least 64 allowed (NIST SP 800-63B, 2017, §5.1.1.1)", () => {
     expect(PASSWORD_MIN).toBe(8);
     expect(PASSWORD_MAX).toBeGreaterThanOrEqual(64);
   });
