@@ -1,4 +1,5 @@
 import crypto from "node:crypto";
+import { lowerRole } from "~/lib/team/roles";
 import { db, now, writeTransaction } from "~/utils/db.server";
 import type { Role } from "./user.server";
 
@@ -28,9 +29,6 @@ export interface TokenCaller {
   /** The lower of the token's role and the person's role in the team today. */
   role: Role;
 }
-
-const RANK: Record<Role, number> = { viewer: 0, builder: 1, owner: 2 };
-const lower = (a: Role, b: Role): Role => (RANK[a] <= RANK[b] ? a : b);
 
 export function hashToken(token: string): string {
   return crypto.createHash("sha256").update(token, "utf8").digest("hex");
@@ -107,5 +105,5 @@ export async function callerForToken(token: string): Promise<TokenCaller | null>
   if (!row.last_used_at || Date.parse(at) - Date.parse(row.last_used_at) >= TOUCH_EVERY_MS) {
     await db()("api_tokens").where({ id: row.id }).update({ last_used_at: at });
   }
-  return { tokenId: row.id, userId: row.user_id, teamId: row.team_id, teamName: row.team_name, role: lower(row.role, row.member_role) };
+  return { tokenId: row.id, userId: row.user_id, teamId: row.team_id, teamName: row.team_name, role: lowerRole(row.role, row.member_role) };
 }

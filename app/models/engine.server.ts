@@ -1,44 +1,26 @@
 import type { Knex } from "knex";
 import { data } from "react-router";
-import type { Stud } from "~/lib/clamp/schema";
-import type { EngineInput } from "~/lib/engine/schema";
+import type { EngineInput, PEAK_SOURCES, SleeveKind } from "~/lib/engine/schema";
+import type { EngineStatus } from "~/lib/engine/status";
+import type { EngineRecord } from "~/lib/plan/assemble";
 import { db, now, withTeam, type DbRow } from "~/utils/db.server";
 import { parseId } from "~/utils/ids";
 import { viewerScope, type Asker } from "./viewer-scope.server";
 
-export type EngineStatus = "quoted" | "in-build" | "running" | "retired";
-export type SleeveKind = "none" | "dry" | "wet-flange" | "wet-mid";
+export type { EngineStatus, SleeveKind };
 
-export interface EngineRow {
+/** A stored engine: the figures the clamp model reads (`EngineRecord`) and the record's own fields. */
+export interface EngineRow extends EngineRecord {
   id: number;
   teamId: number;
   name: string;
   customer: string;
-  cylinders: number;
-  layout: "inline" | "V";
-  boreMm: number;
-  strokeMm: number;
   rodLengthMm: number | null;
   blockMaterialId: number;
   headMaterialId: number;
-  headThicknessAtStudMm: number;
-  blockDepthToThreadMm: number;
-  sleeveKind: SleeveKind;
   sleeveMaterialId: number | null;
-  sleeveWallMm: number | null;
-  sleeveSupportLengthMm: number | null;
-  sleeveProtrusionMm: number;
-  studs: Stud[];
   fuel: string;
-  targetManifoldKpa: number | null;
-  peakPressureMpa: number | null;
-  peakPressureSource: "measured" | "estimated";
-  pressureRiseFactor: number;
-  runningHeadC: number;
-  runningBlockC: number;
-  chamberCc: number | null;
-  pistonVolumeCc: number;
-  deckClearanceMm: number;
+  peakPressureSource: (typeof PEAK_SOURCES)[number];
   status: EngineStatus;
   notes: string;
   chosenPlanId: number | null;

@@ -1,5 +1,6 @@
 import { data, Form, redirect } from "react-router";
 import { z } from "zod";
+import { UNIT_SYSTEMS } from "~/lib/units";
 import type { Route } from "./+types/settings";
 import { PageTitle } from "~/components/app-shell";
 import { Button, Field, fieldErrors } from "~/components/form";
@@ -12,7 +13,7 @@ import { flashToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Settings · Sealwright" }];
 
-const ProfileSchema = z.object({ name: PersonName, units: z.enum(["metric", "imperial"], "Pick metric or imperial") });
+const ProfileSchema = z.object({ name: PersonName, units: z.enum(UNIT_SYSTEMS, "Pick metric or imperial") });
 const PasswordSchema = z
   .object({
     current: z.string({ error: "Enter your current password" }).min(1, "Enter your current password"),
