@@ -1,10 +1,11 @@
 import type { Knex } from "knex";
-import { db, now } from "~/utils/db.server";
+import { db, now, writeTransaction } from "~/utils/db.server";
 import { hashPassword } from "~/utils/password.server";
 import { seedTeamLibrary } from "./library-seed.server";
 
 import type { Role } from "~/lib/team/roles";
 import type { UnitSystem } from "~/lib/units";
+import { recordAudit } from "./audit.server";
 
 export type { Role };
 
@@ -72,11 +73,11 @@ export async function createUserWithTeam(input: {
 }): Promise<{ user: UserRow; teamId: number }> {
   const passwordHash = await hashPassword(input.password);
   try {
-    return await db().transaction(async (trx) => {
+    return await writeTransaction(async (trx) => {
       const user = await insertUser(trx, { email: input.email, name: input.name, passwordHash });
       const teamId = await insertTeam(trx, input.teamName);
       await trx("memberships").insert({ user_id: user.id, team_id: teamId, role: "owner", created_at: now() });
-      await trx("audit_events").insert({ team_id: teamId, user_id: user.id, action: "team.created", created_at: now() });
+      await recordAudit(trx, teamId, user.id, "team.created");
       await seedTeamLibrary(trx, teamId);
       return { user, teamId };
     });
@@ -130,7 +131,7 @@ export async function getPasswordHash(userId: number): Promise<string | null> {
 /** A new password: the hash is replaced and every session of the person ends (the caller starts a fresh one). */
 export async function setPassword(userId: number, password: string): Promise<void> {
   const passwordHash = await hashPassword(password);
-  await db().transaction(async (trx) => {
+  await writeTransaction(async (trx) => {
     await trx("users").where({ id: userId }).update({ password_hash: passwordHash });
     await trx("sessions").where({ user_id: userId }).delete();
     await trx("password_resets").where({ user_id: userId }).whereNull("used_at").update({ used_at: now() });
