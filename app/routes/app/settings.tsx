@@ -3,13 +3,14 @@ import { z } from "zod";
 import { UNIT_SYSTEMS } from "~/lib/units";
 import type { Route } from "./+types/settings";
 import { PageTitle } from "~/components/app-shell";
-import { Button, Field, fieldErrors } from "~/components/form";
+import { Button, Field } from "~/components/form";
 import { getPasswordHash, setPassword, updateProfile } from "~/models/user.server";
 import { requireUser, startSession } from "~/utils/auth.server";
 import { NewPassword, PersonName } from "~/utils/password-field.server";
 import { verifyPassword } from "~/utils/password.server";
 import { PASSWORD_MAX, PASSWORD_MIN } from "~/utils/password-rules";
 import { flashToast } from "~/utils/toast.server";
+import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Settings · Sealwright" }];
 

@@ -2,7 +2,7 @@ import { data, Form, redirect } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/team";
 import { PageTitle } from "~/components/app-shell";
-import { Button, Field, fieldErrors, FormError, SelectField } from "~/components/form";
+import { Button, Field, FormError, SelectField } from "~/components/form";
 import { INVITE_DAYS, inviteMail } from "~/lib/mail/messages";
 import { ROLES, ROLES_HIGH_FIRST } from "~/lib/team/roles";
 import { createInvite, InviteError, listPendingInvites, revokeInvite } from "~/models/invite.server";
@@ -12,6 +12,7 @@ import { requireRole } from "~/utils/auth.server";
 import { appUrl } from "~/utils/env.server";
 import { sendMail } from "~/utils/mail.server";
 import { flashToast } from "~/utils/toast.server";
+import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Team · Sealwright" }];
 
