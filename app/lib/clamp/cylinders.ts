@@ -28,7 +28,7 @@ export function boreClamps(p: Prepared, studLoads: ArrayLike<number>, out: Float
   out.fill(0);
   for (let s = 0; s < p.studCount; s++) {
     const F = studLoads[s];
-    // ours (DESIGN.md "Studs to bores"): each stud's load goes to its bores by share
+    // ours (docs/clamp-model.md §7, studs to bores): each stud's load goes to its bores by share
     for (let j = p.start[s]; j < p.start[s + 1]; j++) out[p.boreOf[j]] += p.shareOf[j] * F;
   }
   return out;

@@ -23,7 +23,8 @@ export function fastenerIssues(f: {
   // the thread formulas (ISO 68-1, ASME B1.1) are not meant for pitches coarser than d/4
   else if (f.pitchMm > f.diameterMm / 4)
     out.push({ field: "pitchMm", message: `A ${round3(f.pitchMm)} mm pitch is too coarse for a ${round3(f.diameterMm)} mm thread` });
-  if (shank !== null && shank >= f.diameterMm) out.push({ field: "reducedShankDiameterMm", message: "Reduced shank must be narrower than the thread" });
+  if (shank !== null && shank >= f.diameterMm)
+    out.push({ field: "reducedShankDiameterMm", message: "Reduced shank must be narrower than the thread" });
   if (f.reducedShankLengthMm > 0 && shank === null)
     out.push({ field: "reducedShankDiameterMm", message: "Give the reduced shank diameter, or set its length to zero" });
   if (f.washerHoleMm < f.diameterMm) out.push({ field: "washerHoleMm", message: "Washer hole must be at least the stud diameter" });
