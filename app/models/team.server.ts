@@ -10,10 +10,6 @@ export interface MemberRow {
   role: Role;
 }
 
-export async function getTeam(teamId: number): Promise<{ id: number; name: string } | null> {
-  return (await db()("teams").select("id", "name").where({ id: teamId }).first()) ?? null;
-}
-
 export async function listMembers(teamId: number): Promise<MemberRow[]> {
   return db()("memberships as m")
     .join("users as u", "u.id", "m.user_id")

@@ -40,14 +40,6 @@ export async function getUserWithHashByEmail(email: string): Promise<(UserRow & 
   return row ?? null;
 }
 
-export async function emailTaken(email: string): Promise<boolean> {
-  return Boolean(
-    await db()("users")
-      .where({ email: normalizeEmail(email) })
-      .first("id"),
-  );
-}
-
 /** The e-mail already has an account (found by the UNIQUE constraint, so two sign-ups at once agree). */
 export class EmailTakenError extends Error {
   constructor() {
@@ -114,10 +106,6 @@ export async function listMemberships(userId: number): Promise<MembershipRow[]> 
     .where("m.user_id", userId)
     .orderBy(["t.name", "t.id"])
     .select({ teamId: "t.id", teamName: "t.name", role: "m.role" });
-}
-
-export async function setUnits(userId: number, units: UnitSystem): Promise<void> {
-  await db()("users").where({ id: userId }).update({ units });
 }
 
 export async function updateProfile(userId: number, input: { name: string; units: UnitSystem }): Promise<void> {

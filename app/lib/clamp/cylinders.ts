@@ -76,12 +76,6 @@ export function boreSeal(p: Prepared, clampColdN: number, clampHotN: number): Bo
 // One record reused by the lean loops below (the core is synchronous).
 const lean = leanBoreRecord();
 
-/** Seal and body margins of one bore without the extra figures (for the scatter run's inner loop). */
-export function boreMargins(p: Prepared, clampColdN: number, clampHotN: number): { seal: number; body: number } {
-  const seal = boreSealMargin(p, clampColdN, clampHotN);
-  return { seal, body: p.bodyRequirementN > 0 ? lean.firedBodyN / p.bodyRequirementN : Infinity };
-}
-
 /** The seal margin of one bore on scalars; leaves the bore's loads in the shared lean record. */
 export function boreSealMargin(p: Prepared, clampColdN: number, clampHotN: number): number {
   leanBore(p.paths, clampColdN, clampHotN, p.reliefPerBoreN, lean);

@@ -147,5 +147,3 @@ export const HANDBOOK_MATERIALS = {
     source: `SAE J429 grade 8: yield 130 ksi (896 MPa), proof 120 ksi; ${STUD_MEMORY}`,
   },
 } as const satisfies Record<string, HandbookMaterial>;
-
-export type HandbookMaterialKey = keyof typeof HANDBOOK_MATERIALS;

@@ -74,7 +74,6 @@ export const EngineSchema = z
   .superRefine((e, ctx) => checkEngine(e, ctx), { when: () => true });
 
 export type EngineInput = z.infer<typeof EngineSchema>;
-export type EngineInputRaw = z.input<typeof EngineSchema>;
 
 const fmt = (x: number) => String(Math.round(x * 1000) / 1000);
 
