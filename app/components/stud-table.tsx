@@ -1,4 +1,4 @@
-import { formatShare, readStudRow, SHARE_TOLERANCE, shareSum, type StudRow } from "~/lib/engine";
+import { formatShare, readStudRow, shareSum, sharesAddUp, type StudRow } from "~/lib/engine";
 
 // The stud pattern editor: one row per stud, the cylinders it serves, its share of each, and
 // whether the shares add up (in words and an icon, not colour alone).
@@ -113,7 +113,7 @@ function ShareSum({ row }: { row: StudRow }) {
   if (!stud || stud.serves.length === 0) return <span className="text-forge-700">—</span>;
   const sum = shareSum(stud);
   if (!Number.isFinite(sum)) return <span className="font-medium text-failed">✖ unreadable</span>;
-  const ok = Math.abs(sum - 1) <= SHARE_TOLERANCE;
+  const ok = sharesAddUp(stud);
   return ok ? (
     <span className="whitespace-nowrap font-medium text-held">✔ {formatShare(sum)} adds up</span>
   ) : (

@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import * as dashboard from "~/routes/app/dashboard";
+import * as dashboard from "~/routes/shop/dashboard";
 import { db } from "~/utils/db.server";
 import { call, get, signIn, type Handler } from "./helpers";
 

@@ -2,6 +2,10 @@
 // Pure: plain records in, PlanInputRaw out; the schema in app/lib/clamp validates it.
 import { compressionRatio, type CompressionInput } from "../chamber";
 import type { PlanInputRaw, Stud } from "../clamp";
+import type { LAYOUTS } from "../clamp/schema";
+import type { TighteningMethod } from "../clamp/torque";
+import type { SleeveKind } from "../engine/schema";
+import type { WIRE_LOCATIONS } from "./form";
 import { withStretchTarget } from "./stretch";
 import type { GasketFamily } from "../clamp/gasket-families";
 import { ATMOSPHERE_KPA } from "../units";
@@ -60,14 +64,15 @@ function present<T extends Record<string, number | null | undefined>>(o: T): { [
   return out as { [K in keyof T]?: number };
 }
 
+/** The engine's figures the clamp model reads: the one engine shape, which the stored row extends. */
 export interface EngineRecord {
   cylinders: number;
-  layout: "inline" | "V";
+  layout: (typeof LAYOUTS)[number];
   boreMm: number;
   strokeMm: number;
   headThicknessAtStudMm: number;
   blockDepthToThreadMm: number;
-  sleeveKind: "none" | "dry" | "wet-flange" | "wet-mid";
+  sleeveKind: SleeveKind;
   sleeveWallMm: number | null;
   sleeveSupportLengthMm: number | null;
   sleeveProtrusionMm: number;
@@ -82,12 +87,14 @@ export interface EngineRecord {
   deckClearanceMm: number;
 }
 
+type WireLocation = (typeof WIRE_LOCATIONS)[number];
+
 export interface PlanRecord {
   torqueNm: number;
   threadFriction: number;
   bearingFriction: number;
-  method: "torque-estimated-friction" | "torque-tested-friction" | "angle-or-yield" | "stretch-measured";
-  wireLocation: "none" | "head" | "block";
+  method: TighteningMethod;
+  wireLocation: WireLocation;
   wireProjectionMm: number;
   receiverGrooveDepthMm: number;
   sleeveProtrusionMm: number | null;

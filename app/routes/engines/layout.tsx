@@ -1,5 +1,5 @@
 import { isRouteErrorResponse, Link, NavLink, Outlet } from "react-router";
-import type { Route } from "./+types/engine";
+import type { Route } from "./+types/layout";
 import { StatusBadge } from "~/components/engine-status";
 import { layoutName } from "~/lib/engine";
 import { requireEngine } from "~/models/engine.server";
