@@ -22,7 +22,7 @@ describe("targetTorqueAndPreload", () => {
   it("a preload target gives the torque for it, and the two targets agree", () => {
     const byPreload = prepare({ ...plan, tightening: { ...plan.tightening, target: { mode: "preload", preloadN: 81_811.5 } } });
     expect(relErr(targetTorqueAndPreload(byPreload).torqueNm, 180)).toBeLessThan(1e-5);
-    const a = evaluatePrepared(byPreload);
+    const a = evaluatePrepared(byPreload, undefined);
     const b = evaluatePlan(plan);
     expect(relErr(a.weakestMargin, b.weakestMargin)).toBeLessThan(1e-4);
   });

@@ -1,12 +1,12 @@
 // The handbook library every shop starts with (app/lib/library/seed-data.ts): the materials against
 // docs/references.md §7 (the sources named there), and the demo rows' geometry against the thread standards.
 import { describe, expect, it } from "vitest";
-import { DEMO_FASTENERS, DEMO_GASKETS, HANDBOOK_MATERIALS } from "../../../../app/lib/library/seed-data";
+import { DEMO_FASTENERS, DEMO_GASKETS, HANDBOOK_MATERIAL_ROWS } from "../../../../app/lib/library/seed-data";
 import { looksUnified } from "../../../../app/lib/clamp/thread";
 import { FastenerSchema, GasketSchema, MaterialSchema } from "../../../../app/lib/library/schemas";
 import { PSI_TO_MPA, relErr } from "../nist";
 
-const byName = (n: string) => HANDBOOK_MATERIALS.find((m) => m.name.startsWith(n))!;
+const byName = (n: string) => HANDBOOK_MATERIAL_ROWS.find((m) => m.name.startsWith(n))!;
 
 describe("handbook materials (docs/references.md §7)", () => {
   it.each([
@@ -36,7 +36,7 @@ describe("handbook materials (docs/references.md §7)", () => {
     expect(Math.abs(byName("Alloy steel stud, SAE J429 grade 8").yield_mpa! - 130_000 * PSI_TO_MPA)).toBeLessThan(0.05);
   });
   it("every row names its source and passes the library's own schema", () => {
-    for (const m of HANDBOOK_MATERIALS) {
+    for (const m of HANDBOOK_MATERIAL_ROWS) {
       expect(m.source.length).toBeGreaterThan(5);
       const r = MaterialSchema.safeParse({
         name: m.name,
@@ -59,7 +59,7 @@ describe("demo fasteners and gaskets", () => {
   it("unified demo studs are real unified sizes (ASME B1.1); their material is a handbook row", () => {
     for (const f of DEMO_FASTENERS) {
       if (f.thread_system === "unified") expect(looksUnified(f.diameter_mm, f.pitch_mm)).toBe(true);
-      expect(HANDBOOK_MATERIALS.some((m) => m.name === f.material)).toBe(true);
+      expect(HANDBOOK_MATERIAL_ROWS.some((m) => m.name === f.material)).toBe(true);
     }
   });
   it("each demo fastener and gasket passes the library schema", () => {
