@@ -1,0 +1,12 @@
+import { PlanInputSchema, prepare } from "../../app/lib/clamp";
+import { evaluatePrepared } from "../../app/lib/clamp/evaluate";
+import { uncertaintyPrepared } from "../../app/lib/clamp/uncertainty";
+import { v8Raw } from "../unit/lib/clamp/fixtures";
+const plan = PlanInputSchema.parse(v8Raw());
+const p = prepare(plan);
+const which = process.argv[2];
+let s = 0;
+const t0 = performance.now();
+if (which === "eval") for (let i = 0; i < 100000; i++) s += evaluatePrepared(p, undefined, undefined, { sentences: false }).weakestMargin;
+else for (let i = 0; i < 20; i++) s += uncertaintyPrepared(p, { samples: 10000, seed: 42 }).probabilityMarginBelowOne;
+console.log(performance.now() - t0, s);
