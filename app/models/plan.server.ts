@@ -36,7 +36,7 @@ export type GasketInfo = GasketRow;
 
 type Row = DbRow;
 
-function toPlan(r: Row): PlanRow {
+export function toPlan(r: Row): PlanRow {
   return {
     id: r.id,
     engineId: r.engine_id,
