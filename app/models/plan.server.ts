@@ -34,7 +34,7 @@ export interface PlanRow extends PlanRecord {
 export type FastenerInfo = FastenerRow & { material: MaterialRow };
 export type GasketInfo = GasketRow;
 
-function toPlan(r: DbRow): PlanRow {
+export function toPlan(r: DbRow): PlanRow {
   return {
     id: r.id,
     engineId: r.engine_id,

@@ -16,10 +16,9 @@ const nonNegative = (label: string, max: number) =>
 const between = (label: string, min: number, max: number) =>
   num(label).gte(min, `${label} must be at least ${min}`).lte(max, `${label} must be at most ${max}`);
 
-export const GASKET_TYPES = ["solid-copper", "mls", "mls-with-ring", "fire-ring"] as const;
-/** Engine layouts the model reads (a V needs an even cylinder count). */
-export const LAYOUTS = ["inline", "V"] as const;
-export const ROUGHNESS = ["rz-under-10", "rz-10-40", "rz-40-160"] as const;
+// the lists live in a module without zod, so a form can name them without loading the schema
+import { GASKET_TYPES, LAYOUTS, ROUGHNESS } from "./plan-lists";
+export { GASKET_TYPES, LAYOUTS, ROUGHNESS };
 
 export const StudSchema = z.object({
   label: z.string().max(40).optional(),
