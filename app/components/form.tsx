@@ -178,8 +178,6 @@ export function ErrorSummary({
   );
 }
 
-export { fieldErrors } from "~/utils/field-errors";
-
 // A labelled text area, tied to its error message like Field.
 export function TextArea({ label, name, defaultValue, error }: { label: string; name: string; defaultValue?: string; error?: string }) {
   const id = `f-${name}`;

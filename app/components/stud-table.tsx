@@ -1,5 +1,5 @@
 import type { FieldMetadata, FormMetadata } from "@conform-to/react";
-import { formatShare, readStudRow, SHARE_TOLERANCE, shareSum, type EngineFormValues, type StudRow } from "~/lib/engine";
+import { formatShare, readStudRow, shareSum, sharesAddUp, type EngineFormValues, type StudRow } from "~/lib/engine";
 
 type StudRows = NonNullable<EngineFormValues["studs"]>;
 
@@ -110,7 +110,7 @@ function ShareSum({ row }: { row: StudRow }) {
   if (!stud || stud.serves.length === 0) return <span className="text-forge-700">—</span>;
   const sum = shareSum(stud);
   if (!Number.isFinite(sum)) return <span className="font-medium text-failed">✖ unreadable</span>;
-  const ok = Math.abs(sum - 1) <= SHARE_TOLERANCE;
+  const ok = sharesAddUp(stud);
   return ok ? (
     <span className="whitespace-nowrap font-medium text-held">✔ {formatShare(sum)} adds up</span>
   ) : (

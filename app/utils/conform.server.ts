@@ -1,4 +1,4 @@
-// The one form path on the server (docs/decisions/0004-forms.md): Conform's parseWithZod, with a post
+// The one form path on the server (docs/decisions/0017-forms.md): Conform's parseWithZod, with a post
 // whose control words are malformed answered 400 with a message instead of thrown as a 500.
 import { parseWithZod } from "@conform-to/zod/v4";
 import { data } from "react-router";

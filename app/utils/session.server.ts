@@ -102,7 +102,3 @@ export function sessionStorage() {
 export function getSession(request: Request) {
   return sessionStorage().getSession(request.headers.get("Cookie"));
 }
-
-export async function deleteSessionsOfUser(userId: number): Promise<void> {
-  await db()("sessions").where({ user_id: userId }).delete();
-}

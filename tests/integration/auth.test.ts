@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import * as dashboard from "~/routes/app/dashboard";
+import * as dashboard from "~/routes/shop/dashboard";
 import * as login from "~/routes/auth/login";
 import * as logout from "~/routes/auth/logout";
 import * as signup from "~/routes/auth/signup";

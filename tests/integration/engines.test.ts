@@ -3,7 +3,7 @@ import { defaultStudPattern } from "~/lib/clamp/pattern";
 import { EngineSchema, studToRow, type EngineInput } from "~/lib/engine";
 import { createEngine, listEngines } from "~/models/engine.server";
 import * as edit from "~/routes/engines/edit";
-import * as layout from "~/routes/engines/engine";
+import * as layout from "~/routes/engines/layout";
 import * as list from "~/routes/engines/list";
 import * as create from "~/routes/engines/new";
 import * as overview from "~/routes/engines/overview";

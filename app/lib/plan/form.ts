@@ -1,7 +1,7 @@
 // The seal-plan form: what the builder types (in their display units) ⇄ the SI plan the database keeps.
 // Shared by the editor's action (server) and its live estimate (browser).
 import { z } from "zod";
-import { TIGHTENING_METHODS } from "../clamp/schema";
+import { TIGHTENING_METHODS } from "../clamp/plan-lists";
 import { formatQuantity, parseQuantity, toDisplay, unitFor, type DisplayUnit, type Quantity, type UnitSystem } from "../units";
 import { decimalPoint, splitList } from "../units/decimal-comma";
 import { figuresFingerprint, makerPlanFigures, type MakerFigures } from "./fastener-figures";

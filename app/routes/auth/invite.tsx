@@ -2,13 +2,14 @@ import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/invite";
 import { AuthFrame } from "~/components/auth-frame";
-import { Button, Field, fieldErrors, FormError } from "~/components/form";
+import { Button, Field, FormError } from "~/components/form";
 import { acceptInviteAsNewUser, acceptInviteAsUser, findInvite, INVITE_GONE } from "~/models/invite.server";
 import { getUser, startSession } from "~/utils/auth.server";
 import { readIntent } from "~/utils/conform.server";
 import { NewPassword, PersonName } from "~/utils/password-field.server";
 import { PASSWORD_MAX, PASSWORD_MIN } from "~/utils/password-rules";
 import { useRootData } from "~/root";
+import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Join a shop · Sealwright" }];
 

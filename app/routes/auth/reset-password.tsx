@@ -2,13 +2,14 @@ import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/reset-password";
 import { AuthFrame } from "~/components/auth-frame";
-import { Button, Field, fieldErrors, FormError } from "~/components/form";
+import { Button, Field, FormError } from "~/components/form";
 import { completePasswordReset, resetTokenUsable } from "~/models/password-reset.server";
 import { NewPassword } from "~/utils/password-field.server";
 import { PASSWORD_MAX, PASSWORD_MIN } from "~/utils/password-rules";
 import { sessionStorage, getSession } from "~/utils/session.server";
 import { redirectWithToast } from "~/utils/toast.server";
 import { useRootData } from "~/root";
+import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Choose a new password · Sealwright" }];
 

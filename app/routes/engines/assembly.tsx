@@ -5,7 +5,7 @@ import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { Button, Field, FormError, SelectField, TextArea } from "~/components/form";
 import { FileList, Uploader } from "~/components/uploader";
 import { parseAssemblyForm } from "~/lib/records/assembly";
-import { formatQuantity, inputValue, unitFor } from "~/lib/units";
+import { formatQuantity, inputValue, unitFor, type UnitSystem } from "~/lib/units";
 import { assemblyReadings, learnedFrictions } from "~/models/assembly-readings.server";
 import { requireEngine } from "~/models/engine.server";
 import { listFiles } from "~/models/files.server";
@@ -245,7 +245,7 @@ export default function Assembly({ loaderData: d, actionData }: Route.ComponentP
   );
 }
 
-function LearnedFriction({ learned, units }: { learned: Awaited<ReturnType<typeof loader>>["learned"]; units: "metric" | "imperial" }) {
+function LearnedFriction({ learned, units }: { learned: Awaited<ReturnType<typeof loader>>["learned"]; units: UnitSystem }) {
   if (learned.length === 0) return null;
   return (
     <div>

@@ -3,7 +3,7 @@ import { z } from "zod";
 import type { Route } from "./+types/build-sheet";
 import { BuildSheetView } from "~/components/build-sheet";
 import { CAUTION_HANDLE } from "~/components/caution";
-import { Button, fieldErrors, FormError, SelectField } from "~/components/form";
+import { Button, FormError, SelectField } from "~/components/form";
 import { buildSheetMail } from "~/lib/mail/messages";
 import { sheetSummary, verdictText } from "~/lib/plan/build-sheet";
 import { buildSheet } from "~/models/build-sheet.server";
@@ -14,6 +14,7 @@ import { appUrl } from "~/utils/env.server";
 import { sendMail } from "~/utils/mail.server";
 import { redirectWithToast } from "~/utils/toast.server";
 import sheetCss from "~/styles/build-sheet.css?url";
+import { fieldErrors } from "~/utils/field-errors";
 
 export const links: Route.LinksFunction = () => [{ rel: "stylesheet", href: sheetCss }];
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Build sheet · ${data?.engine.name ?? "Engine"} · Sealwright` }];

@@ -1,11 +1,12 @@
 import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/sharing";
-import { Button, fieldErrors, FormError } from "~/components/form";
+import { Button, FormError } from "~/components/form";
 import { engineViewers, setEngineShare } from "~/models/engine-share.server";
 import { requireEngine } from "~/models/engine.server";
 import { requireRole } from "~/utils/auth.server";
 import { redirectWithToast } from "~/utils/toast.server";
+import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sharing · Sealwright" }];
 

@@ -14,7 +14,7 @@ import { plannedByStretch } from "~/lib/plan/assemble";
 import type { EstimateView } from "~/lib/plan/estimate-view";
 import { figuresFollowStep, scaledWrenchStages } from "~/lib/plan/fastener-figures";
 import { parsePlanForm, planFormValues, readSuggestedFigures, type PlanWrite } from "~/lib/plan/form";
-import type { StretchLine } from "~/lib/plan/stretch";
+import { stretchLine, type StretchLine } from "~/lib/plan/stretch";
 import { formatQuantity } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
 import { estimatePlan, planStretch } from "~/models/plan-estimate.server";
@@ -32,12 +32,21 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team, role, who } = await requireUser(request);
   const engine = await requireEngine(who, params.engineId);
   const plan = await requirePlan(team.id, engine.id, params.planId);
-  const [choices, materials, result, stretch] = await Promise.all([
+  const [choices, materials, result] = await Promise.all([
     planChoices(team.id),
     engineMaterials(team.id, engine),
     estimatePlan(team.id, engine, plan, { units: user.units }),
-    planStretch(team.id, engine, plan),
   ]);
+  // the stretch line from the estimate's own preload, torque and stud stiffness (no second evaluation);
+  // only where the plan cannot be estimated is it worked out apart
+  const stretch = result.ok
+    ? stretchLine(
+        plannedByStretch(plan) ? "stretch" : "torque",
+        result.view.estimate.tightening.preload.nominalN,
+        result.view.estimate.tightening.torqueNm,
+        result.view.estimate.stiffness.studNPerMm,
+      )
+    : await planStretch(team.id, engine, plan);
   return {
     stretch,
     units: user.units,

@@ -155,3 +155,23 @@ describe("a new plan with nothing to start from, and a suggestion's posted figur
       expect(readSuggestedFigures(bad, null).ok, JSON.stringify(bad)).toBe(false);
   });
 });
+
+describe("the last stage against the final torque (0.5 % or 0.5 N·m, whichever is more)", () => {
+  const stagesError = (torque: string, stages: string) => {
+    const r = parsePlanForm({ ...FORM, torque, stages }, "metric");
+    return r.ok ? null : (r.errors.stages ?? null);
+  };
+  it("200 N·m allows 1 N·m of rounding: 201 is taken (and set to 200), 201.5 is refused", () => {
+    expect(ok({ ...FORM, torque: "200", stages: "100, 150, 201" }).stagesNm).toEqual([100, 150, 200]);
+    expect(ok({ ...FORM, torque: "200", stages: "100, 150, 199.1" }).stagesNm).toEqual([100, 150, 200]);
+    expect(stagesError("200", "100, 150, 201.5")).toBe("The last stage must equal the final torque");
+    expect(stagesError("200", "100, 150, 198.8")).toBe("The last stage must equal the final torque");
+  });
+  it("under 100 N·m the floor of 0.5 N·m holds: 50.4 is taken at 50, 50.6 is refused", () => {
+    expect(ok({ ...FORM, torque: "50", stages: "20, 35, 50.4" }).stagesNm).toEqual([20, 35, 50]);
+    expect(stagesError("50", "20, 35, 50.6")).toBe("The last stage must equal the final torque");
+  });
+  it("stages that do not rise are refused before the last one is compared", () => {
+    expect(stagesError("150", "60, 60, 150")).toBe("Stages must rise, ending at the final torque");
+  });
+});

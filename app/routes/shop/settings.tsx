@@ -1,8 +1,9 @@
 import { data, Form } from "react-router";
 import { z } from "zod";
+import { UNIT_SYSTEMS } from "~/lib/units";
 import type { Route } from "./+types/settings";
 import { PageTitle } from "~/components/app-shell";
-import { Button, Field, fieldErrors } from "~/components/form";
+import { Button, Field } from "~/components/form";
 import { getPasswordHash, setPassword, updateProfile } from "~/models/user.server";
 import { requireUser, startSession } from "~/utils/auth.server";
 import { readIntent } from "~/utils/conform.server";
@@ -10,10 +11,11 @@ import { NewPassword, PersonName } from "~/utils/password-field.server";
 import { verifyPassword } from "~/utils/password.server";
 import { PASSWORD_MAX, PASSWORD_MIN } from "~/utils/password-rules";
 import { redirectWithToast } from "~/utils/toast.server";
+import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Settings · Sealwright" }];
 
-const ProfileSchema = z.object({ name: PersonName, units: z.enum(["metric", "imperial"], "Pick metric or imperial") });
+const ProfileSchema = z.object({ name: PersonName, units: z.enum(UNIT_SYSTEMS, "Pick metric or imperial") });
 const PasswordSchema = z
   .object({
     current: z.string({ error: "Enter your current password" }).min(1, "Enter your current password"),

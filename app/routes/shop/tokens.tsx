@@ -3,16 +3,14 @@ import { z } from "zod";
 import type { Route } from "./+types/tokens";
 import { PageTitle } from "~/components/app-shell";
 import { Button, Field, FormError, SelectField } from "~/components/form";
+import { ROLES } from "~/lib/team/roles";
 import { createToken, listTokens, revokeToken, TokenLimitError } from "~/models/api-token.server";
-import type { Role } from "~/models/user.server";
 import { requireUser, roleAtLeast } from "~/utils/auth.server";
 import { readIntent } from "~/utils/conform.server";
 import { parseId } from "~/utils/ids";
 import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "API tokens · Sealwright" }];
-
-const ROLES: Role[] = ["viewer", "builder", "owner"];
 
 const TokenCreateSchema = z.object({
   intent: z.literal("create"),

@@ -2,8 +2,9 @@ import { data, Form } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/team";
 import { PageTitle } from "~/components/app-shell";
-import { Button, Field, fieldErrors, FormError, SelectField } from "~/components/form";
+import { Button, Field, FormError, SelectField } from "~/components/form";
 import { INVITE_DAYS, inviteMail } from "~/lib/mail/messages";
+import { ROLES, ROLES_HIGH_FIRST } from "~/lib/team/roles";
 import { createInvite, InviteError, listPendingInvites, revokeInvite } from "~/models/invite.server";
 import { changeRole, LastOwnerError, removeMember } from "~/models/member.server";
 import { listMembers, renameTeam } from "~/models/team.server";
@@ -12,10 +13,10 @@ import { readIntent } from "~/utils/conform.server";
 import { appUrl } from "~/utils/env.server";
 import { sendMail } from "~/utils/mail.server";
 import { redirectWithToast } from "~/utils/toast.server";
+import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Team · Sealwright" }];
 
-const ROLES = ["owner", "builder", "viewer"] as const;
 const ROLE_OPTIONS: [string, string][] = [
   ["viewer", "Viewer — sees the engines shared with them"],
   ["builder", "Builder — engines, plans, libraries"],
@@ -142,7 +143,7 @@ export default function TeamPage({ loaderData, actionData }: Route.ComponentProp
                       defaultValue={m.role}
                       className="rounded border border-forge-300 px-2 py-1 capitalize"
                     >
-                      {ROLES.map((r) => (
+                      {ROLES_HIGH_FIRST.map((r) => (
                         <option key={r} value={r}>
                           {r}
                         </option>
