@@ -6,7 +6,7 @@ import type { Knex } from "knex";
 // its transaction names in app.team_id (withTeam / writeTransaction(…, { teamId }) in db.server.ts).
 //
 // A few lookups come before the team is known. Each gets its own narrow policy keyed on a setting that
-// names exactly the row(s) asked for, never a hole (docs/decisions/0017-row-security.md):
+// names exactly the row(s) asked for, never a hole (docs/decisions/0018-row-security.md):
 //   sessions      by app.session_hash (the cookie id's SHA-256) or app.user_id (sign out everywhere)
 //   memberships   read by app.user_id (which teams may this person enter?)
 //   api_tokens    read by app.token_hash (the bearer token's SHA-256), and by app.user_id (own keys)

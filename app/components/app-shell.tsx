@@ -148,11 +148,3 @@ export function PageTitle({ children, sub }: { children: ReactNode; sub?: ReactN
     </div>
   );
 }
-
-export function NotBuiltYet({ what }: { what: string }) {
-  return (
-    <p className="rounded border border-dashed border-forge-300 bg-white p-6 text-forge-700">
-      <strong>Not built yet.</strong> {what}
-    </p>
-  );
-}

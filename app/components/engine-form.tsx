@@ -1,17 +1,10 @@
-import { useState, type ReactNode } from "react";
+import { getFormProps, useForm, type SubmissionResult } from "@conform-to/react";
+import type { ReactNode } from "react";
 import { Form, Link } from "react-router";
 import { Button, ErrorSummary, Field, SelectField } from "~/components/form";
 import { StudTable } from "~/components/stud-table";
 import { MATERIAL_KIND_LABELS } from "~/lib/library/schemas";
-import {
-  ENGINE_STATUSES,
-  generateStudRows,
-  SLEEVE_KINDS,
-  SLEEVE_LABEL,
-  STATUS_LABEL,
-  type EngineFormValues,
-  type StudRow,
-} from "~/lib/engine";
+import { BLANK_STUD_ROW, ENGINE_STATUSES, SLEEVE_KINDS, SLEEVE_LABEL, STATUS_LABEL, type EngineFormValues } from "~/lib/engine";
 import { unitFor, type UnitSystem } from "~/lib/units";
 
 export interface MaterialChoice {
@@ -21,10 +14,10 @@ export interface MaterialChoice {
 }
 
 interface Props {
-  values: EngineFormValues;
-  errors: Record<string, string>;
-  /** The action's last answer: a new one moves focus to the error summary. */
-  answer?: unknown;
+  /** The loader's values: the stored engine, or a blank one, in the person's units. */
+  defaultValue: EngineFormValues;
+  /** The action's last answer (Conform's reply): errors, the values as typed, a changed stud list. */
+  result?: SubmissionResult<string[]>;
   materials: MaterialChoice[];
   units: UnitSystem;
   submitLabel: string;
@@ -33,30 +26,33 @@ interface Props {
   canArchive?: boolean;
 }
 
-// The engine record form, in the person's units. Works as a plain post without JavaScript:
-// the stud editor's buttons post back and the server answers with the changed rows.
-export function EngineForm({ values, errors, answer, materials, units, submitLabel, cancelTo, canArchive }: Props) {
-  const f = values.fields;
-  const [layout, setLayout] = useState(f.layout ?? "inline");
-  const [cylinders, setCylinders] = useState(f.cylinders ?? "");
-  const [sleeveKind, setSleeveKind] = useState(f.sleeveKind ?? "none");
-  const [studs, setStuds] = useState<StudRow[]>(values.studs);
-  const [studsPerSide, setStudsPerSide] = useState(values.studsPerSide);
-  const [patternError, setPatternError] = useState<string | undefined>(errors.studsPerSide);
+// The engine record form, in the person's units. Works as a plain post without JavaScript: the server
+// parses it with the form's schema (Conform), and the stud editor's buttons are Conform list intents
+// (add, remove) or a post back ("Generate pattern") that the server answers with the changed rows.
+export function EngineForm({ defaultValue, result, materials, units, submitLabel, cancelTo, canArchive }: Props) {
+  const [form, fields] = useForm<EngineFormValues>({ id: "engine", defaultValue, lastResult: result, shouldValidate: "onSubmit" });
+  const errors: Record<string, string | undefined> = Object.fromEntries(
+    Object.entries(form.allErrors).map(([name, list]) => [name, list[0]]),
+  );
+  const initial = (name: keyof EngineFormValues) => {
+    const v = fields[name].initialValue;
+    return typeof v === "string" ? v : "";
+  };
   const len = unitFor("length", units);
   const small = unitFor("smallLength", units);
-  const count = Object.keys(errors).length;
-  const n = (name: string, label: string, extra: Partial<Parameters<typeof Field>[0]> = {}) => (
-    <Field label={label} name={name} defaultValue={f[name] ?? ""} error={errors[name]} inputMode="decimal" {...extra} />
+  const n = (name: keyof EngineFormValues & string, label: string, extra: Partial<Parameters<typeof Field>[0]> = {}) => (
+    <Field label={label} name={name} defaultValue={initial(name)} error={errors[name]} inputMode="decimal" {...extra} />
   );
-  const perBank = Number(cylinders) / (layout === "V" ? 2 : 1);
+  const layout = String(fields.layout.value ?? "inline");
+  const perBank = Number(fields.cylinders.value ?? "") / (layout === "V" ? 2 : 1);
+  const count = Object.keys(errors).filter((k) => k !== "").length;
 
   return (
-    <Form method="post" noValidate className="space-y-6">
+    <Form method="post" className="space-y-6" {...getFormProps(form)}>
       <ErrorSummary
-        errors={errors}
+        errors={form.allErrors}
         message={count > 0 ? `The engine was not saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention.` : null}
-        answer={answer}
+        answer={result}
       />
       <SaveOrCancel submitLabel={submitLabel} cancelTo={cancelTo} />
       <p className="text-sm text-forge-700">
@@ -65,9 +61,9 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
       </p>
 
       <Fieldset legend="The engine">
-        <Field label="Name" name="name" defaultValue={f.name} error={errors.name} required maxLength={120} />
-        <Field label="Customer" name="customer" defaultValue={f.customer} error={errors.customer} maxLength={120} />
-        <SelectField label="Status" name="status" defaultValue={f.status} error={errors.status}>
+        <Field label="Name" name="name" defaultValue={initial("name")} error={errors.name} required maxLength={120} />
+        <Field label="Customer" name="customer" defaultValue={initial("customer")} error={errors.customer} maxLength={120} />
+        <SelectField label="Status" name="status" defaultValue={initial("status")} error={errors.status}>
           {ENGINE_STATUSES.map((s) => (
             <option key={s} value={s}>
               {STATUS_LABEL[s].word}
@@ -80,13 +76,12 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
         <Field
           label="Cylinders"
           name="cylinders"
-          value={cylinders}
-          onChange={(e) => setCylinders(e.target.value)}
+          defaultValue={initial("cylinders")}
           error={errors.cylinders}
           inputMode="numeric"
           hint="1 to 16; a V needs an even count."
         />
-        <SelectField label="Layout" name="layout" value={layout} onChange={(e) => setLayout(e.target.value)} error={errors.layout}>
+        <SelectField label="Layout" name="layout" defaultValue={initial("layout")} error={errors.layout}>
           <option value="inline">Inline (one bank)</option>
           <option value="V">V (two banks)</option>
         </SelectField>
@@ -103,7 +98,7 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
         <MaterialSelect
           label="Block (deck) material"
           name="blockMaterialId"
-          value={f.blockMaterialId}
+          value={initial("blockMaterialId")}
           error={errors.blockMaterialId}
           materials={materials}
           kinds={CASTING_KINDS}
@@ -111,18 +106,12 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
         <MaterialSelect
           label="Head material"
           name="headMaterialId"
-          value={f.headMaterialId}
+          value={initial("headMaterialId")}
           error={errors.headMaterialId}
           materials={materials}
           kinds={CASTING_KINDS}
         />
-        <SelectField
-          label="Sleeves"
-          name="sleeveKind"
-          value={sleeveKind}
-          onChange={(e) => setSleeveKind(e.target.value)}
-          error={errors.sleeveKind}
-        >
+        <SelectField label="Sleeves" name="sleeveKind" defaultValue={initial("sleeveKind")} error={errors.sleeveKind}>
           {SLEEVE_KINDS.map((k) => (
             <option key={k} value={k}>
               {SLEEVE_LABEL[k]}
@@ -135,7 +124,7 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
           <MaterialSelect
             label="Sleeve material"
             name="sleeveMaterialId"
-            value={f.sleeveMaterialId}
+            value={initial("sleeveMaterialId")}
             error={errors.sleeveMaterialId}
             materials={materials}
             kinds={SLEEVE_KINDS_OF_MATERIAL}
@@ -156,7 +145,7 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
         <Field
           label="Fuel"
           name="fuel"
-          defaultValue={f.fuel}
+          defaultValue={initial("fuel")}
           error={errors.fuel}
           maxLength={60}
           hint="As the shop names it, e.g. E85, methanol, race gasoline."
@@ -173,12 +162,12 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
         <fieldset aria-describedby={errors.peakPressureSource ? "f-peakPressureSource-error" : undefined}>
           <legend className="block text-sm font-medium text-forge-800">That peak pressure is</legend>
           <label className="mt-2 flex items-center gap-2">
-            <input type="radio" name="peakPressureSource" value="measured" defaultChecked={f.peakPressureSource === "measured"} /> measured
-            (pressure trace)
+            <input type="radio" name="peakPressureSource" value="measured" defaultChecked={initial("peakPressureSource") === "measured"} />{" "}
+            measured (pressure trace)
           </label>
           <label className="mt-1 flex items-center gap-2">
-            <input type="radio" name="peakPressureSource" value="estimated" defaultChecked={f.peakPressureSource !== "measured"} /> an
-            estimate
+            <input type="radio" name="peakPressureSource" value="estimated" defaultChecked={initial("peakPressureSource") !== "measured"} />{" "}
+            an estimate
           </label>
           {errors.peakPressureSource ? (
             <p id="f-peakPressureSource-error" className="mt-1 text-sm font-medium text-failed">
@@ -212,47 +201,24 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
           <Field
             label="Studs per side per bank"
             name="studsPerSide"
-            value={studsPerSide}
-            onChange={(e) => setStudsPerSide(e.target.value)}
-            error={patternError}
+            defaultValue={initial("studsPerSide")}
+            error={errors.studsPerSide}
             inputMode="numeric"
             placeholder={Number.isInteger(perBank) && perBank > 0 ? String(perBank + 1) : ""}
             hint={Number.isInteger(perBank) && perBank > 0 ? `Blank: ${perBank + 1} (bores per bank + 1).` : "Blank: bores per bank + 1."}
           />
-          <Button
-            type="submit"
-            kind="plain"
-            name="intent"
-            value="pattern"
-            onClick={(e) => {
-              e.preventDefault();
-              const r = generateStudRows(layout, cylinders, studsPerSide);
-              if ("error" in r) setPatternError(r.error);
-              else {
-                setPatternError(undefined);
-                setStuds(r.rows);
-              }
-            }}
-          >
+          {/* posted to the server, which answers with the new rows (a Conform update of the list) */}
+          <Button type="submit" kind="plain" name="intent" value="pattern" formNoValidate>
             Generate pattern
           </Button>
         </div>
         {errors.studs ? (
-          <p id="studs-error" role="alert" className="mt-3 text-sm font-medium text-failed">
+          <p id="f-studs" tabIndex={-1} role="alert" className="mt-3 text-sm font-medium text-failed">
             ✖ {errors.studs}
           </p>
         ) : null}
-        <StudTable studs={studs} setStuds={setStuds} errors={errors} />
-        <Button
-          type="submit"
-          kind="plain"
-          name="intent"
-          value="add-stud"
-          onClick={(e) => {
-            e.preventDefault();
-            setStuds((rows) => [...rows, { label: "", cylinders: "", shares: "" }]);
-          }}
-        >
+        <StudTable form={form} studs={fields.studs} />
+        <Button kind="plain" {...form.insert.getButtonProps({ name: fields.studs.name, defaultValue: BLANK_STUD_ROW })}>
           Add a stud
         </Button>
       </section>
@@ -267,7 +233,7 @@ export function EngineForm({ values, errors, answer, materials, units, submitLab
             name="notes"
             rows={5}
             maxLength={4000}
-            defaultValue={f.notes}
+            defaultValue={initial("notes")}
             aria-invalid={errors.notes ? true : undefined}
             aria-describedby={errors.notes ? "f-notes-error" : "f-notes-hint"}
             className="mt-1 block w-full rounded border border-forge-300 bg-white px-3 py-2"

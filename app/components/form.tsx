@@ -178,19 +178,6 @@ export function ErrorSummary({
   );
 }
 
-/**
- * A key for a form that stays mounted across answers (so focus stays where it was) and is re-seeded
- * only when the server sent back values it changed itself (a stud pattern, an added row): pass the
- * values and whether this answer re-seeds.
- */
-export function useSeedKey(values: unknown, reseed: boolean): string {
-  const key = useRef(JSON.stringify(values));
-  if (reseed) key.current = JSON.stringify(values);
-  return key.current;
-}
-
-export { fieldErrors } from "~/utils/field-errors";
-
 // A labelled text area, tied to its error message like Field.
 export function TextArea({ label, name, defaultValue, error }: { label: string; name: string; defaultValue?: string; error?: string }) {
   const id = `f-${name}`;

@@ -1,6 +1,6 @@
 import { useState, type ChangeEvent } from "react";
 import { followFastener, lubricantWarning, type MakerFigures } from "~/lib/plan/fastener-figures";
-import { gasketsByFit } from "~/lib/plan/assemble";
+import { gasketsByFit } from "~/lib/plan/parts";
 import { METHOD_HELP, METHOD_LABEL, WIRE_LABEL, type PlanWrite } from "~/lib/plan/form";
 import type { StretchLine } from "~/lib/plan/stretch";
 import { formatQuantity, toDisplay, unitFor, type UnitSystem } from "~/lib/units";

@@ -1,18 +1,18 @@
-import { formatShare, readStudRow, SHARE_TOLERANCE, shareSum, type StudRow } from "~/lib/engine";
+import type { FieldMetadata, FormMetadata } from "@conform-to/react";
+import { formatShare, readStudRow, shareSum, sharesAddUp, type EngineFormValues, type StudRow } from "~/lib/engine";
+
+type StudRows = NonNullable<EngineFormValues["studs"]>;
 
 // The stud pattern editor: one row per stud, the cylinders it serves, its share of each, and
-// whether the shares add up (in words and an icon, not colour alone).
+// whether the shares add up (in words and an icon, not colour alone). The rows are a Conform list:
+// Remove is a list intent, so it works without JavaScript too.
 export function StudTable({
+  form,
   studs,
-  setStuds,
-  errors,
 }: {
-  studs: StudRow[];
-  setStuds: (update: (rows: StudRow[]) => StudRow[]) => void;
-  errors: Record<string, string>;
+  form: FormMetadata<EngineFormValues, string[]>;
+  studs: FieldMetadata<StudRows, EngineFormValues, string[]>;
 }) {
-  const edit = (i: number, key: keyof StudRow, value: string) =>
-    setStuds((rows) => rows.map((r, j) => (j === i ? { ...r, [key]: value } : r)));
   return (
     // relative: the screen-reader-only labels inside are positioned, and must scroll with the table, not widen the page
     <div className="relative my-3 overflow-x-auto">
@@ -38,17 +38,19 @@ export function StudTable({
           </tr>
         </thead>
         <tbody>
-          {studs.map((row, i) => {
-            const error = Object.entries(errors).find(([k]) => k === `studs.${i}` || k.startsWith(`studs.${i}.`))?.[1];
+          {studs.getFieldList().map((stud, i) => {
+            const row = stud.getFieldset();
+            // every message about this stud is filed under the row (studs[i]); the first is shown
+            const error = Object.entries(stud.allErrors).find(([, list]) => list.length > 0)?.[1][0];
             const errorId = `stud-${i}-error`;
-            const name = row.label.trim() || `${i + 1}`;
+            const live = { label: text(row.label.value), cylinders: text(row.cylinders.value), shares: text(row.shares.value) };
+            const name = live.label.trim() || `${i + 1}`;
             return (
-              <tr key={i} className="border-t border-forge-100 align-top">
+              <tr key={stud.key} className="border-t border-forge-100 align-top">
                 <td className="px-2 py-1">
                   <input
-                    name={`stud-${i}-label`}
-                    value={row.label}
-                    onChange={(e) => edit(i, "label", e.target.value)}
+                    name={row.label.name}
+                    defaultValue={text(row.label.initialValue)}
                     aria-label={`Stud ${i + 1} label`}
                     maxLength={40}
                     className="w-24 rounded border border-forge-300 px-2 py-1"
@@ -56,9 +58,10 @@ export function StudTable({
                 </td>
                 <td className="px-2 py-1">
                   <input
-                    name={`stud-${i}-cylinders`}
-                    value={row.cylinders}
-                    onChange={(e) => edit(i, "cylinders", e.target.value)}
+                    // the error summary's link for this stud lands here
+                    id={`f-${stud.name}`}
+                    name={row.cylinders.name}
+                    defaultValue={text(row.cylinders.initialValue)}
                     aria-label={`Stud ${name}: cylinders served`}
                     aria-invalid={error ? true : undefined}
                     aria-describedby={error ? errorId : undefined}
@@ -67,9 +70,8 @@ export function StudTable({
                 </td>
                 <td className="px-2 py-1">
                   <input
-                    name={`stud-${i}-shares`}
-                    value={row.shares}
-                    onChange={(e) => edit(i, "shares", e.target.value)}
+                    name={row.shares.name}
+                    defaultValue={text(row.shares.initialValue)}
                     aria-label={`Stud ${name}: share of each cylinder`}
                     aria-invalid={error ? true : undefined}
                     aria-describedby={error ? errorId : undefined}
@@ -82,18 +84,11 @@ export function StudTable({
                   ) : null}
                 </td>
                 <td className="px-2 py-1">
-                  <ShareSum row={row} />
+                  <ShareSum row={live} />
                 </td>
                 <td className="px-2 py-1">
                   <button
-                    type="submit"
-                    name="intent"
-                    value={`remove-stud:${i}`}
-                    formNoValidate
-                    onClick={(e) => {
-                      e.preventDefault();
-                      setStuds((rows) => rows.filter((_, j) => j !== i));
-                    }}
+                    {...form.remove.getButtonProps({ name: studs.name, index: i })}
                     className="rounded border border-forge-300 px-2 py-1 hover:bg-forge-100"
                   >
                     Remove<span className="sr-only"> stud {name}</span>
@@ -108,12 +103,14 @@ export function StudTable({
   );
 }
 
+const text = (v: unknown) => (typeof v === "string" ? v : "");
+
 function ShareSum({ row }: { row: StudRow }) {
   const stud = readStudRow(row);
   if (!stud || stud.serves.length === 0) return <span className="text-forge-700">—</span>;
   const sum = shareSum(stud);
   if (!Number.isFinite(sum)) return <span className="font-medium text-failed">✖ unreadable</span>;
-  const ok = Math.abs(sum - 1) <= SHARE_TOLERANCE;
+  const ok = sharesAddUp(stud);
   return ok ? (
     <span className="whitespace-nowrap font-medium text-held">✔ {formatShare(sum)} adds up</span>
   ) : (

@@ -5,14 +5,14 @@
 import { useEffect, useMemo, useRef, useState } from "react";
 import type { PlanInput } from "~/lib/clamp";
 import {
-  assemblePlanInput,
+  assembleTorqueInput,
   gasketFitProblem,
   plannedByStretch,
   type EngineRecord,
   type FastenerRecord,
   type GasketRecord,
   type MaterialRecord,
-} from "~/lib/plan/assemble";
+} from "~/lib/plan/parts";
 import type { EstimateView } from "~/lib/plan/estimate-view";
 import { parsePlanForm } from "~/lib/plan/form";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
@@ -49,8 +49,10 @@ export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null)
   const lastFull = useRef<EstimateView | null>(saved);
   // the model for the immediate figures, fetched once the page is up (not with its first JavaScript)
   const model = useRef<LiveEvaluation | null>(null);
+  const loading = useRef<Promise<LiveEvaluation> | null>(null);
+  const loadModel = () => (loading.current ??= import("~/lib/plan/live-evaluation").then((m) => (model.current = m)));
   useEffect(() => {
-    void import("~/lib/plan/live-evaluation").then((m) => (model.current = m));
+    void loadModel();
   }, []);
   useEffect(
     () => () => {
@@ -110,9 +112,19 @@ export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null)
       setErrors({ ...(full.ok ? {} : full.errors), gasketId: misfit });
       return setStale(true);
     }
-    const raw = assemblePlanInput({
+    // the model turns a stretch target into a preload: before it has loaded (the first instant of the
+    // page) the change waits for it, then runs again on the form as it is by then
+    const m = model.current;
+    if (!m) {
+      setSlowPending(true);
+      void loadModel().then(onChange);
+      return;
+    }
+    const plan = parsed.plan;
+    const byStretch = plannedByStretch(plan);
+    const torqueInput = assembleTorqueInput({
       engine: d.engine,
-      plan: parsed.plan,
+      plan,
       fastener,
       gasket,
       head: d.materials.head,
@@ -120,18 +132,16 @@ export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null)
       sleeve: d.materials.sleeve,
     });
     setSlowPending(true);
-    // before the model has loaded (the first instant of the page), the server answers everything
-    const m = model.current;
-    setStud({ stiffnessNPerMm: m ? m.studStiffnessFor(raw) : (stud?.stiffnessNPerMm ?? null), byStretch: plannedByStretch(parsed.plan) });
-    if (!m) return fetchSlowParts(raw as PlanInput);
-    const input = m.validPlanInput(raw);
+    // one validation and one prepare for the stiffness, the stretch target's preload and the evaluation
+    const live = m.liveFigures(torqueInput, plannedByStretch(plan) ? plan.targetStretchMm : null, lastFull.current, d.units);
+    setStud({ stiffnessNPerMm: live.stiffnessNPerMm, byStretch });
     // the server words the model's own refusals
-    if (!input) return fetchSlowParts(raw as PlanInput);
-    if (lastFull.current) {
-      setView(m.withEvaluation(lastFull.current, input, d.units));
+    if (!live.input) return fetchSlowParts(live.raw as PlanInput);
+    if (live.view) {
+      setView(live.view);
       setProblems(null);
     }
-    fetchSlowParts(input);
+    fetchSlowParts(live.input);
   };
 
   return useMemo(() => {

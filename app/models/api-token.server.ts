@@ -1,6 +1,8 @@
 import crypto from "node:crypto";
-import { now, withScope, withTeam, writeTransaction } from "~/utils/db.server";
+import { lowerRole } from "~/lib/team/roles";
+import { now, withScope, withTeam, writeTransaction, type DbRow } from "~/utils/db.server";
 import type { Role } from "./user.server";
+import { recordAudit } from "./audit.server";
 
 // Personal API tokens. A token is 32 random bytes (256 bits) shown once; the database keeps only its
 // SHA-256. A slow password hash (argon2) is for secrets a person chose and an attacker can guess; 256
@@ -29,9 +31,6 @@ export interface TokenCaller {
   role: Role;
 }
 
-const RANK: Record<Role, number> = { viewer: 0, builder: 1, owner: 2 };
-const lower = (a: Role, b: Role): Role => (RANK[a] <= RANK[b] ? a : b);
-
 export function hashToken(token: string): string {
   return crypto.createHash("sha256").update(token, "utf8").digest("hex");
 }
@@ -58,13 +57,7 @@ export async function createToken(teamId: number, userId: number, name: string, 
         })
         .returning("id");
       const id = typeof row === "object" ? row.id : row;
-      await trx("audit_events").insert({
-        team_id: teamId,
-        user_id: userId,
-        action: "api-token.created",
-        detail: JSON.stringify({ tokenId: id, name, role }),
-        created_at: now(),
-      });
+      await recordAudit(trx, teamId, userId, "api-token.created", { tokenId: id, name, role });
       return { id, token };
     },
     { teamId },
@@ -72,11 +65,15 @@ export async function createToken(teamId: number, userId: number, name: string, 
 }
 
 /** The person's live tokens in the team, newest first. */
+function toToken(r: DbRow): ApiTokenRow {
+  return { id: r.id, name: r.name, prefix: r.prefix, role: r.role, createdAt: r.created_at, lastUsedAt: r.last_used_at };
+}
+
 export async function listTokens(teamId: number, userId: number): Promise<ApiTokenRow[]> {
   const rows = await withTeam(teamId, (k) =>
     k("api_tokens").where({ team_id: teamId, user_id: userId }).whereNull("revoked_at").orderBy("id", "desc"),
   );
-  return rows.map((r) => ({ id: r.id, name: r.name, prefix: r.prefix, role: r.role, createdAt: r.created_at, lastUsedAt: r.last_used_at }));
+  return rows.map(toToken);
 }
 
 /** Revokes one of the person's own tokens in the team; false when there is no such live token. */
@@ -88,13 +85,7 @@ export async function revokeToken(teamId: number, userId: number, tokenId: numbe
         .whereNull("revoked_at")
         .update({ revoked_at: now() });
       if (n === 0) return false;
-      await trx("audit_events").insert({
-        team_id: teamId,
-        user_id: userId,
-        action: "api-token.revoked",
-        detail: JSON.stringify({ tokenId }),
-        created_at: now(),
-      });
+      await recordAudit(trx, teamId, userId, "api-token.revoked", { tokenId });
       return true;
     },
     { teamId },
@@ -130,5 +121,5 @@ export async function callerForToken(token: string): Promise<TokenCaller | null>
   if (!row.last_used_at || Date.parse(at) - Date.parse(row.last_used_at) >= TOUCH_EVERY_MS) {
     await withTeam(row.team_id, (k) => k("api_tokens").where({ id: row.id }).update({ last_used_at: at }));
   }
-  return { tokenId: row.id, userId: row.user_id, teamId: row.team_id, teamName: row.team_name, role: lower(row.role, row.member_role) };
+  return { tokenId: row.id, userId: row.user_id, teamId: row.team_id, teamName: row.team_name, role: lowerRole(row.role, row.member_role) };
 }

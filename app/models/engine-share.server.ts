@@ -1,5 +1,6 @@
 import { data } from "react-router";
 import { now, withTeam, writeTransaction } from "~/utils/db.server";
+import { recordAudit } from "./audit.server";
 
 // Which of the shop's viewers (customers, tuners) may see an engine. Builders and owners see every
 // engine of the shop; a viewer sees only those shared here (app/models/viewer-scope.server.ts).
@@ -46,13 +47,7 @@ export async function setEngineShare(teamId: number, byUserId: number, engineId:
       } else {
         await trx("engine_shares").where(key).delete();
       }
-      await trx("audit_events").insert({
-        team_id: teamId,
-        user_id: byUserId,
-        action: shared ? "engine.shared" : "engine.unshared",
-        detail: JSON.stringify({ engineId, viewerId }),
-        created_at: now(),
-      });
+      await recordAudit(trx, teamId, byUserId, shared ? "engine.shared" : "engine.unshared", { engineId, viewerId });
     },
     { teamId },
   );

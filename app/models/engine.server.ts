@@ -1,44 +1,27 @@
 import type { Knex } from "knex";
 import { data } from "react-router";
-import type { Stud } from "~/lib/clamp/schema";
-import type { EngineInput } from "~/lib/engine/schema";
-import { type DbRow, now, teamTransaction, withTeam } from "~/utils/db.server";
+import type { EngineInput, PEAK_SOURCES, SleeveKind } from "~/lib/engine/schema";
+import type { EngineStatus } from "~/lib/engine/status";
+import type { EngineRecord } from "~/lib/plan/assemble";
+import { now, teamTransaction, withTeam, type DbRow } from "~/utils/db.server";
 import { parseId } from "~/utils/ids";
 import { viewerScope, type Asker } from "./viewer-scope.server";
+import { recordAudit } from "./audit.server";
 
-export type EngineStatus = "quoted" | "in-build" | "running" | "retired";
-export type SleeveKind = "none" | "dry" | "wet-flange" | "wet-mid";
+export type { EngineStatus, SleeveKind };
 
-export interface EngineRow {
+/** A stored engine: the figures the clamp model reads (`EngineRecord`) and the record's own fields. */
+export interface EngineRow extends EngineRecord {
   id: number;
   teamId: number;
   name: string;
   customer: string;
-  cylinders: number;
-  layout: "inline" | "V";
-  boreMm: number;
-  strokeMm: number;
   rodLengthMm: number | null;
   blockMaterialId: number;
   headMaterialId: number;
-  headThicknessAtStudMm: number;
-  blockDepthToThreadMm: number;
-  sleeveKind: SleeveKind;
   sleeveMaterialId: number | null;
-  sleeveWallMm: number | null;
-  sleeveSupportLengthMm: number | null;
-  sleeveProtrusionMm: number;
-  studs: Stud[];
   fuel: string;
-  targetManifoldKpa: number | null;
-  peakPressureMpa: number | null;
-  peakPressureSource: "measured" | "estimated";
-  pressureRiseFactor: number;
-  runningHeadC: number;
-  runningBlockC: number;
-  chamberCc: number | null;
-  pistonVolumeCc: number;
-  deckClearanceMm: number;
+  peakPressureSource: (typeof PEAK_SOURCES)[number];
   status: EngineStatus;
   notes: string;
   chosenPlanId: number | null;
@@ -270,7 +253,7 @@ export async function createEngine(teamId: number, userId: number, input: Engine
     const [{ id }] = await trx("engines")
       .insert({ team_id: teamId, ...toColumns(input), created_at: at, updated_at: at })
       .returning("id");
-    await audit(trx, teamId, userId, "engine.created", { engineId: id, name: input.name });
+    await recordAudit(trx, teamId, userId, "engine.created", { engineId: id, name: input.name });
     return id as number;
   });
 }
@@ -284,7 +267,7 @@ export async function updateEngine(teamId: number, userId: number, engineId: num
       .whereNull("archived_at")
       .update({ ...toColumns(input), updated_at: now() });
     if (n === 0) throw data("No such engine in this shop.", { status: 404 });
-    await audit(trx, teamId, userId, "engine.updated", { engineId, name: input.name });
+    await recordAudit(trx, teamId, userId, "engine.updated", { engineId, name: input.name });
   });
 }
 
@@ -296,12 +279,8 @@ export async function archiveEngine(teamId: number, userId: number, engineId: nu
       .whereNull("archived_at")
       .update({ archived_at: at, updated_at: at });
     if (n === 0) throw data("No such engine in this shop.", { status: 404 });
-    await audit(trx, teamId, userId, "engine.archived", { engineId });
+    await recordAudit(trx, teamId, userId, "engine.archived", { engineId });
   });
-}
-
-async function audit(trx: Knex, teamId: number, userId: number, action: string, detail: Record<string, unknown>) {
-  await trx("audit_events").insert({ team_id: teamId, user_id: userId, action, detail: JSON.stringify(detail), created_at: now() });
 }
 
 // ─── What the form and the overview need besides the record ───────────────────────────────
@@ -377,7 +356,7 @@ export async function duplicateEngine(teamId: number, userId: number, engineId: 
     const [{ id }] = await trx("engines")
       .insert({ ...record, name, team_id: teamId, chosen_plan_id: null, archived_at: null, created_at: at, updated_at: at })
       .returning("id");
-    await audit(trx, teamId, userId, "engine.duplicated", { engineId: id, fromEngineId: engineId, name });
+    await recordAudit(trx, teamId, userId, "engine.duplicated", { engineId: id, fromEngineId: engineId, name });
     return { id: id as number, name };
   });
 }

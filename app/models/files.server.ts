@@ -4,6 +4,7 @@ import { type DbRow, now, withTeam, writeTransaction } from "~/utils/db.server";
 import { getEnv } from "~/utils/env.server";
 import { fileStorage, MAX_UPLOAD_BYTES, newStorageKey, sniffType, teamQuotaBytes, thumbnail } from "~/utils/files.server";
 import { parseId } from "~/utils/ids";
+import { recordAudit } from "./audit.server";
 
 // Files kept on an engine (and on one of its assemblies or runs), or on a fastener or gasket of the
 // library (the maker's sheet): the rows, scoped to the team, and the upload that streams one in.
@@ -41,20 +42,21 @@ const ownerColumns = (owner: FileOwner) => ({
   gasket_id: "gasketId" in owner ? owner.gasketId : null,
 });
 
-type Row = DbRow;
-const toFile = (r: Row): FileRow => ({
-  id: r.id,
-  engineId: r.engine_id,
-  assemblyId: r.assembly_id,
-  runId: r.run_id,
-  fastenerId: r.fastener_id,
-  gasketId: r.gasket_id,
-  name: r.name,
-  contentType: r.content_type,
-  sizeBytes: r.size_bytes,
-  hasThumb: Boolean(r.thumb_key),
-  createdAt: r.created_at,
-});
+function toFile(r: DbRow): FileRow {
+  return {
+    id: r.id,
+    engineId: r.engine_id,
+    assemblyId: r.assembly_id,
+    runId: r.run_id,
+    fastenerId: r.fastener_id,
+    gasketId: r.gasket_id,
+    name: r.name,
+    contentType: r.content_type,
+    sizeBytes: r.size_bytes,
+    hasThumb: Boolean(r.thumb_key),
+    createdAt: r.created_at,
+  };
+}
 
 /** An engine's files (with those of its assemblies and runs), or a fastener's or gasket's, newest first. */
 export async function listFiles(teamId: number, owner: number | FileOwner): Promise<FileRow[]> {
@@ -170,14 +172,8 @@ export async function receiveUpload(request: Request, teamId: number, userId: nu
             created_at: at,
           })
           .returning("*");
-        await trx("audit_events").insert({
-          team_id: teamId,
-          user_id: userId,
-          action: "file.uploaded",
-          detail: JSON.stringify({ ...owner, fileId: inserted.id }),
-          created_at: at,
-        });
-        return inserted as Row;
+        await recordAudit(trx, teamId, userId, "file.uploaded", { ...owner, fileId: inserted.id }, at);
+        return inserted as DbRow;
       },
       { teamId },
     );
@@ -213,14 +209,8 @@ export async function deleteFile(teamId: number, userId: number, idParam: string
       const found = await trx("files").where({ team_id: teamId, id }).first();
       if (!found) return null;
       await trx("files").where({ team_id: teamId, id }).delete();
-      await trx("audit_events").insert({
-        team_id: teamId,
-        user_id: userId,
-        action: "file.deleted",
-        detail: JSON.stringify({ fileId: id, name: found.name }),
-        created_at: now(),
-      });
-      return found as Row;
+      await recordAudit(trx, teamId, userId, "file.deleted", { fileId: id, name: found.name });
+      return found as DbRow;
     },
     { teamId },
   );
@@ -289,7 +279,7 @@ export async function sweepOrphanFiles(
           .where((w) => void w.whereIn("storage_key", batch).orWhereIn("thumb_key", batch))
           .select("storage_key", "thumb_key"),
       );
-      const kept = new Set(rows.flatMap((r: Row) => [r.storage_key, r.thumb_key]));
+      const kept = new Set(rows.flatMap((r: DbRow) => [r.storage_key, r.thumb_key]));
       for (const key of batch.filter((k) => !kept.has(k))) {
         await storage.remove(key);
         removed.push(key);

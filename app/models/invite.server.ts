@@ -5,6 +5,7 @@ import { db, now, withScope, withTeam, writeTransaction } from "~/utils/db.serve
 import { hashPassword } from "~/utils/password.server";
 import { hashLinkToken, isLinkToken, newLinkToken } from "~/utils/tokens.server";
 import { insertUser, normalizeEmail, type Role, type UserRow } from "./user.server";
+import { recordAudit } from "./audit.server";
 
 const DAY_MS = 86_400_000;
 
@@ -62,13 +63,7 @@ export async function createInvite(
           expires_at: new Date(at.getTime() + INVITE_DAYS * DAY_MS).toISOString(),
         })
         .returning("id");
-      await trx("audit_events").insert({
-        team_id: teamId,
-        user_id: byUserId,
-        action: "member.invited",
-        detail: JSON.stringify({ email, role: input.role }),
-        created_at: now(),
-      });
+      await recordAudit(trx, teamId, byUserId, "member.invited", { email, role: input.role });
       return { token, id: id as number };
     },
     { teamId },
@@ -99,13 +94,7 @@ export async function revokeInvite(teamId: number, byUserId: number, inviteId: n
         .whereNull("revoked_at")
         .update({ revoked_at: now() });
       if (n === 0) throw data("No such invite in this shop.", { status: 404 });
-      await trx("audit_events").insert({
-        team_id: teamId,
-        user_id: byUserId,
-        action: "member.invite-withdrawn",
-        detail: JSON.stringify({ inviteId }),
-        created_at: now(),
-      });
+      await recordAudit(trx, teamId, byUserId, "member.invite-withdrawn", { inviteId });
     },
     { teamId },
   );
@@ -147,13 +136,7 @@ async function claim(trx: Knex.Transaction, inviteId: number): Promise<boolean> 
 async function join(trx: Knex.Transaction, invite: Extract<InviteLookup, { ok: true }>, userId: number) {
   const already = await trx("memberships").where({ user_id: userId, team_id: invite.teamId }).first("role");
   if (!already) await trx("memberships").insert({ user_id: userId, team_id: invite.teamId, role: invite.role, created_at: now() });
-  await trx("audit_events").insert({
-    team_id: invite.teamId,
-    user_id: userId,
-    action: "member.joined",
-    detail: JSON.stringify({ role: invite.role }),
-    created_at: now(),
-  });
+  await recordAudit(trx, invite.teamId, userId, "member.joined", { role: invite.role });
 }
 
 export const INVITE_GONE = "This invite link has been used, withdrawn or has expired. Ask the shop for a new one.";

@@ -1,7 +1,8 @@
 import type { Knex } from "knex";
 import { data } from "react-router";
 import type { FastenerInput, GasketInput, LibraryKind, MaterialInput } from "~/lib/library/schemas";
-import { type DbRow, now, teamTransaction, withTeam } from "~/utils/db.server";
+import { now, type DbRow, teamTransaction, withTeam } from "~/utils/db.server";
+import { recordAudit } from "./audit.server";
 
 export { seedTeamLibrary } from "./library-seed.server";
 
@@ -25,8 +26,6 @@ export type MaterialRow = LibraryMeta & Omit<MaterialInput, "name">;
 export type FastenerRow = LibraryMeta & Omit<FastenerInput, "name"> & { materialName: string | null };
 export type GasketRow = LibraryMeta & Omit<GasketInput, "name">;
 export type LibraryRow = MaterialRow | FastenerRow | GasketRow;
-
-type Raw = DbRow;
 
 const TABLE: Record<LibraryKind, string> = { materials: "materials", fasteners: "fasteners", gaskets: "gaskets" };
 const SINGULAR: Record<LibraryKind, string> = { materials: "material", fasteners: "fastener", gaskets: "gasket" };
@@ -90,8 +89,8 @@ const COLUMNS: Record<LibraryKind, Record<string, string>> = {
 
 const TEXT_COLUMNS = new Set(["maker_lubricant", "maker_stages"]);
 
-function toRow(kind: LibraryKind, r: Raw): LibraryRow {
-  const out: Raw = {
+function toRow(kind: LibraryKind, r: DbRow): LibraryRow {
+  const out: DbRow = {
     id: r.id,
     teamId: r.team_id,
     name: r.name,
@@ -107,8 +106,8 @@ function toRow(kind: LibraryKind, r: Raw): LibraryRow {
   return out as LibraryRow;
 }
 
-function toColumns(kind: LibraryKind, input: Record<string, unknown>): Raw {
-  const out: Raw = { name: input.name };
+function toColumns(kind: LibraryKind, input: Record<string, unknown>): DbRow {
+  const out: DbRow = { name: input.name };
   for (const [field, column] of Object.entries(COLUMNS[kind])) if (field in input) out[column] = input[field];
   return out;
 }
@@ -130,7 +129,7 @@ export async function listLibrary(kind: LibraryKind, teamId: number, opts: { inc
     if (!opts.includeArchived) q.whereNull("r.archived_at");
     return q;
   });
-  return rows.map((r: Raw) => toRow(kind, r));
+  return rows.map((r: DbRow) => toRow(kind, r));
 }
 
 export const listMaterials = (teamId: number, opts?: { includeArchived?: boolean }) =>
@@ -159,10 +158,6 @@ export async function requireLibraryItem(kind: LibraryKind, teamId: number, idPa
 }
 
 type InputFor<K extends LibraryKind> = K extends "materials" ? MaterialInput : K extends "fasteners" ? FastenerInput : GasketInput;
-
-async function audit(trx: Knex, teamId: number, userId: number, action: string, detail: Record<string, unknown>) {
-  await trx("audit_events").insert({ team_id: teamId, user_id: userId, action, detail: JSON.stringify(detail), created_at: now() });
-}
 
 /** A fastener's material must be one of the team's own (not another shop's). */
 async function assertOwnMaterial(trx: Knex, teamId: number, input: Record<string, unknown>) {
@@ -194,7 +189,7 @@ export async function createLibraryItem<K extends LibraryKind>(
       })
       .returning("id");
     const id = (row as { id: number }).id;
-    await audit(trx, teamId, userId, `${SINGULAR[kind]}.created`, { id, name: input.name });
+    await recordAudit(trx, teamId, userId, `${SINGULAR[kind]}.created`, { id, name: input.name });
     return id;
   });
 }
@@ -216,7 +211,7 @@ export async function updateLibraryItem<K extends LibraryKind>(
       .where({ team_id: teamId, id })
       .update({ ...toColumns(kind, input as Record<string, unknown>), entered_by: userId, updated_at: now() });
     if (n === 0) return false;
-    await audit(trx, teamId, userId, `${SINGULAR[kind]}.updated`, { id, name: input.name });
+    await recordAudit(trx, teamId, userId, `${SINGULAR[kind]}.updated`, { id, name: input.name });
     return true;
   });
 }
@@ -235,7 +230,7 @@ export async function setLibraryArchived(
       .where({ team_id: teamId, id })
       .update({ archived_at: archived ? at : null, updated_at: at });
     if (n === 0) return false;
-    await audit(trx, teamId, userId, `${SINGULAR[kind]}.${archived ? "archived" : "unarchived"}`, { id });
+    await recordAudit(trx, teamId, userId, `${SINGULAR[kind]}.${archived ? "archived" : "unarchived"}`, { id });
     return true;
   });
 }

@@ -14,7 +14,7 @@ import { type DbRow, now, withTeam, writeTransaction } from "~/utils/db.server";
 import type { EngineRow } from "./engine.server";
 import { evaluateVariants } from "./plan-estimate.server";
 import type { PlanRow } from "./plan.server";
-import { audit } from "./records.server";
+import { recordAudit } from "./audit.server";
 
 // Machining and measurement records of an engine's builds, each scoped to the team given, and the
 // plan's estimate re-run with the measured figures through the one estimate service.
@@ -75,7 +75,7 @@ export async function createMachining(teamId: number, userId: number, engineId: 
           updated_at: at,
         })
         .returning("id");
-      await audit(trx, teamId, userId, "machining.recorded", { engineId, machiningId: row.id, planId: m.planId });
+      await recordAudit(trx, teamId, userId, "machining.recorded", { engineId, machiningId: row.id, planId: m.planId });
       return row.id as number;
     },
     { teamId },

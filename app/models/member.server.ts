@@ -1,7 +1,8 @@
 import type { Knex } from "knex";
 import { data } from "react-router";
-import { now, writeTransaction } from "~/utils/db.server";
+import { writeTransaction } from "~/utils/db.server";
 import type { Role } from "./user.server";
+import { recordAudit } from "./audit.server";
 
 // Changing a member's role and removing a member. The shop always keeps at least one owner.
 
@@ -32,13 +33,7 @@ export async function changeRole(teamId: number, byUserId: number, userId: numbe
       if (current === role) return;
       if (current === "owner" && (await otherOwners(trx, teamId, userId)) === 0) throw new LastOwnerError();
       await trx("memberships").where({ team_id: teamId, user_id: userId }).update({ role });
-      await trx("audit_events").insert({
-        team_id: teamId,
-        user_id: byUserId,
-        action: "member.role-changed",
-        detail: JSON.stringify({ userId, role }),
-        created_at: now(),
-      });
+      await recordAudit(trx, teamId, byUserId, "member.role-changed", { userId, role });
     },
     { teamId },
   );
@@ -53,13 +48,7 @@ export async function removeMember(teamId: number, byUserId: number, userId: num
       await trx("memberships").where({ team_id: teamId, user_id: userId }).delete();
       await trx("engine_shares").where({ team_id: teamId, user_id: userId }).delete();
       await trx("sessions").where({ team_id: teamId, user_id: userId }).delete();
-      await trx("audit_events").insert({
-        team_id: teamId,
-        user_id: byUserId,
-        action: "member.removed",
-        detail: JSON.stringify({ userId }),
-        created_at: now(),
-      });
+      await recordAudit(trx, teamId, byUserId, "member.removed", { userId });
     },
     { teamId },
   );

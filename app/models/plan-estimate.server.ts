@@ -104,7 +104,8 @@ export async function evaluateVariants(
   const parts = await planParts(teamId, engine, plan);
   if (!parts) return { ok: false, problems: [NO_PARTS] };
   const wording = displayWording(units);
-  const evaluate = (r: Parsed) => (r.ok ? evaluatePlan(r.plan, wording, { sentences: false }) : null);
+  // the machining record lists each check with its detail
+  const evaluate = (r: Parsed) => (r.ok ? evaluatePlan(r.plan, wording, { sentences: false, details: true }) : null);
   const base = checkParts(parts, units);
   if (!base.ok) return { ok: false, problems: base.problems };
   return {

@@ -1,8 +1,7 @@
 import { data } from "react-router";
 import type { PlanParts, PlanRecord } from "~/lib/plan/assemble";
 import type { PlanWrite } from "~/lib/plan/form";
-import type { Knex } from "knex";
-import { type DbRow, now, withTeam, writeTransaction } from "~/utils/db.server";
+import { now, withTeam, writeTransaction, type DbRow } from "~/utils/db.server";
 import type { EngineRow } from "./engine.server";
 import {
   getFastener as getLibraryFastener,
@@ -15,6 +14,7 @@ import {
   type GasketRow,
   type MaterialRow,
 } from "./library.server";
+import { recordAudit } from "./audit.server";
 
 export interface PlanRow extends PlanRecord {
   targetStretchMm: number | null;
@@ -34,9 +34,7 @@ export interface PlanRow extends PlanRecord {
 export type FastenerInfo = FastenerRow & { material: MaterialRow };
 export type GasketInfo = GasketRow;
 
-type Row = DbRow;
-
-function toPlan(r: Row): PlanRow {
+export function toPlan(r: DbRow): PlanRow {
   return {
     id: r.id,
     engineId: r.engine_id,
@@ -149,53 +147,41 @@ function planColumns(w: PlanWrite) {
 }
 
 // Each write and its audit row in one write transaction (BEGIN IMMEDIATE on SQLite): both or neither.
-async function audit(trx: Knex.Transaction, teamId: number, userId: number, action: string, detail: object) {
-  await trx("audit_events").insert({ team_id: teamId, user_id: userId, action, detail: JSON.stringify(detail), created_at: now() });
-}
 
 export async function createPlan(teamId: number, userId: number, engineId: number, w: PlanWrite): Promise<number> {
-  return writeTransaction(
-    async (trx) => {
-      const at = now();
-      const [row] = await trx("seal_plans")
-        .insert({ team_id: teamId, engine_id: engineId, created_at: at, updated_at: at, ...planColumns(w) })
-        .returning("id");
-      const id = (row as { id: number }).id;
-      await audit(trx, teamId, userId, "plan.created", { engineId, planId: id, name: w.name });
-      return id;
-    },
-    { teamId },
-  );
+  return writeTransaction(async (trx) => {
+    const at = now();
+    const [row] = await trx("seal_plans")
+      .insert({ team_id: teamId, engine_id: engineId, created_at: at, updated_at: at, ...planColumns(w) })
+      .returning("id");
+    const id = (row as { id: number }).id;
+    await recordAudit(trx, teamId, userId, "plan.created", { engineId, planId: id, name: w.name });
+    return id;
+  });
 }
 
 export async function updatePlan(teamId: number, userId: number, engineId: number, planId: number, w: PlanWrite): Promise<void> {
-  await writeTransaction(
-    async (trx) => {
-      await trx("seal_plans")
-        .where({ team_id: teamId, engine_id: engineId, id: planId })
-        .update({ ...planColumns(w), updated_at: now() });
-      await audit(trx, teamId, userId, "plan.updated", { engineId, planId, name: w.name });
-    },
-    { teamId },
-  );
+  await writeTransaction(async (trx) => {
+    await trx("seal_plans")
+      .where({ team_id: teamId, engine_id: engineId, id: planId })
+      .update({ ...planColumns(w), updated_at: now() });
+    await recordAudit(trx, teamId, userId, "plan.updated", { engineId, planId, name: w.name });
+  });
 }
 
 export async function archivePlan(teamId: number, userId: number, engineId: number, planId: number): Promise<void> {
-  await writeTransaction(
-    async (trx) => {
-      await trx("seal_plans").where({ team_id: teamId, engine_id: engineId, id: planId }).update({ archived_at: now() });
-      await trx("engines").where({ team_id: teamId, id: engineId, chosen_plan_id: planId }).update({ chosen_plan_id: null });
-      await audit(trx, teamId, userId, "plan.archived", { engineId, planId });
-    },
-    { teamId },
-  );
+  await writeTransaction(async (trx) => {
+    await trx("seal_plans").where({ team_id: teamId, engine_id: engineId, id: planId }).update({ archived_at: now() });
+    await trx("engines").where({ team_id: teamId, id: engineId, chosen_plan_id: planId }).update({ chosen_plan_id: null });
+    await recordAudit(trx, teamId, userId, "plan.archived", { engineId, planId });
+  });
 }
 
 export async function choosePlan(teamId: number, userId: number, engineId: number, planId: number): Promise<void> {
   await writeTransaction(
     async (trx) => {
       await trx("engines").where({ team_id: teamId, id: engineId }).update({ chosen_plan_id: planId, updated_at: now() });
-      await audit(trx, teamId, userId, "plan.chosen", { engineId, planId });
+      await recordAudit(trx, teamId, userId, "plan.chosen", { engineId, planId });
     },
     { teamId },
   );
@@ -210,7 +196,7 @@ export async function copyPlanToEngine(teamId: number, userId: number, plan: Pla
         .insert({ team_id: teamId, engine_id: targetEngineId, created_at: at, updated_at: at, ...planColumns(plan) })
         .returning("id");
       const id = (row as { id: number }).id;
-      await audit(trx, teamId, userId, "plan.copied", {
+      await recordAudit(trx, teamId, userId, "plan.copied", {
         engineId: targetEngineId,
         planId: id,
         fromEngineId: plan.engineId,

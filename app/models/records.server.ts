@@ -1,17 +1,15 @@
-import type { Knex } from "knex";
 import type { AssemblyRecord, StageDone, StudStretch } from "~/lib/records/assembly";
 import type { RunInput, RunRecord } from "~/lib/records/run";
 import { type DbRow, now, withTeam, writeTransaction } from "~/utils/db.server";
 import type { EngineRow } from "./engine.server";
 import { evaluateAtFiring } from "./plan-at-pressure.server";
 import { listPlans, type PlanRow } from "./plan.server";
+import { recordAudit } from "./audit.server";
 
 // Assemblies and runs of an engine: Knex queries, each scoped to the team given. Another team's
 // engine, assembly or run is simply not found.
 
-type Row = DbRow;
-
-export function toAssembly(r: Row): AssemblyRecord {
+export function toAssembly(r: DbRow): AssemblyRecord {
   return {
     id: r.id,
     engineId: r.engine_id,
@@ -29,7 +27,7 @@ export function toAssembly(r: Row): AssemblyRecord {
   };
 }
 
-export function toRun(r: Row): RunRecord {
+export function toRun(r: DbRow): RunRecord {
   return {
     id: r.id,
     engineId: r.engine_id,
@@ -46,10 +44,6 @@ export function toRun(r: Row): RunRecord {
     teardownFindings: r.teardown_findings,
     createdAt: r.created_at,
   };
-}
-
-export async function audit(trx: Knex, teamId: number, userId: number, action: string, detail: Record<string, unknown>) {
-  await trx("audit_events").insert({ team_id: teamId, user_id: userId, action, detail: JSON.stringify(detail), created_at: now() });
 }
 
 export async function listAssemblies(teamId: number, engineId: number): Promise<AssemblyRecord[]> {
@@ -95,7 +89,7 @@ export async function createAssembly(teamId: number, userId: number, engineId: n
           updated_at: at,
         })
         .returning("id");
-      await audit(trx, teamId, userId, "assembly.recorded", { engineId, assemblyId: row.id, planId: w.planId });
+      await recordAudit(trx, teamId, userId, "assembly.recorded", { engineId, assemblyId: row.id, planId: w.planId });
       return row.id as number;
     },
     { teamId },
@@ -156,7 +150,7 @@ export async function createRun(teamId: number, userId: number, engine: EngineRo
           updated_at: at,
         })
         .returning("id");
-      await audit(trx, teamId, userId, "run.logged", { engineId: engine.id, runId: row.id });
+      await recordAudit(trx, teamId, userId, "run.logged", { engineId: engine.id, runId: row.id });
       return row.id as number;
     },
     { teamId },

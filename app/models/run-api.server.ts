@@ -4,6 +4,7 @@ import type { RunCreateSchema } from "~/lib/api/schemas";
 import { db, type DbRow, now, withTeam, writeTransaction } from "~/utils/db.server";
 import { getEngine } from "./engine.server";
 import { viewerScope, type Asker } from "./viewer-scope.server";
+import { recordAudit } from "./audit.server";
 
 // What the API needs of the run log, over the `runs` table the run-log branch creates (this branch
 // creates no such table). The columns it expects:
@@ -135,13 +136,7 @@ export async function createRunForApi(who: Asker, run: RunCreate): Promise<RunCr
         })
         .returning("id");
       const id = typeof row === "object" ? row.id : row;
-      await trx("audit_events").insert({
-        team_id: teamId,
-        user_id: userId,
-        action: "run.logged",
-        detail: JSON.stringify({ engineId: engine.id, runId: id }),
-        created_at: createdAt,
-      });
+      await recordAudit(trx, teamId, userId, "run.logged", { engineId: engine.id, runId: id }, createdAt);
       return toRun(await trx(RUNS_TABLE).where({ id }).first());
     },
     { teamId: who.teamId },

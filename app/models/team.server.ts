@@ -1,16 +1,13 @@
-import { db, now, teamTransaction, withTeam } from "~/utils/db.server";
+import { teamTransaction, withTeam } from "~/utils/db.server";
 import type { Role } from "./user.server";
 import type { Asker } from "./viewer-scope.server";
+import { recordAudit } from "./audit.server";
 
 export interface MemberRow {
   userId: number;
   name: string;
   email: string;
   role: Role;
-}
-
-export async function getTeam(teamId: number): Promise<{ id: number; name: string } | null> {
-  return (await db()("teams").select("id", "name").where({ id: teamId }).first()) ?? null;
 }
 
 export async function listMembers(teamId: number): Promise<MemberRow[]> {
@@ -26,13 +23,7 @@ export async function listMembers(teamId: number): Promise<MemberRow[]> {
 export async function renameTeam(teamId: number, name: string, byUserId: number): Promise<void> {
   await teamTransaction(teamId, async (trx) => {
     await trx("teams").where({ id: teamId }).update({ name: name.trim() });
-    await trx("audit_events").insert({
-      team_id: teamId,
-      user_id: byUserId,
-      action: "team.renamed",
-      detail: JSON.stringify({ name }),
-      created_at: now(),
-    });
+    await recordAudit(trx, teamId, byUserId, "team.renamed", { name });
   });
 }
 

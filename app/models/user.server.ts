@@ -1,10 +1,11 @@
 import type { Knex } from "knex";
-import { db, now, setRowScope, withScope } from "~/utils/db.server";
+import { db, now, setRowScope, withScope, writeTransaction } from "~/utils/db.server";
 import { hashPassword } from "~/utils/password.server";
 import { seedTeamLibrary } from "./library-seed.server";
 
 import type { Role } from "~/lib/team/roles";
 import type { UnitSystem } from "~/lib/units";
+import { recordAudit } from "./audit.server";
 
 export type { Role };
 
@@ -39,14 +40,6 @@ export async function getUserWithHashByEmail(email: string): Promise<(UserRow & 
   return row ?? null;
 }
 
-export async function emailTaken(email: string): Promise<boolean> {
-  return Boolean(
-    await db()("users")
-      .where({ email: normalizeEmail(email) })
-      .first("id"),
-  );
-}
-
 /** The e-mail already has an account (found by the UNIQUE constraint, so two sign-ups at once agree). */
 export class EmailTakenError extends Error {
   constructor() {
@@ -72,12 +65,12 @@ export async function createUserWithTeam(input: {
 }): Promise<{ user: UserRow; teamId: number }> {
   const passwordHash = await hashPassword(input.password);
   try {
-    return await db().transaction(async (trx) => {
+    return await writeTransaction(async (trx) => {
       const user = await insertUser(trx, { email: input.email, name: input.name, passwordHash });
       const teamId = await insertTeam(trx, input.teamName);
       await setRowScope(trx, { teamId, userId: user.id });
       await trx("memberships").insert({ user_id: user.id, team_id: teamId, role: "owner", created_at: now() });
-      await trx("audit_events").insert({ team_id: teamId, user_id: user.id, action: "team.created", created_at: now() });
+      await recordAudit(trx, teamId, user.id, "team.created");
       await seedTeamLibrary(trx, teamId);
       return { user, teamId };
     });
@@ -118,10 +111,6 @@ export async function listMemberships(userId: number): Promise<MembershipRow[]> 
   );
 }
 
-export async function setUnits(userId: number, units: UnitSystem): Promise<void> {
-  await db()("users").where({ id: userId }).update({ units });
-}
-
 export async function updateProfile(userId: number, input: { name: string; units: UnitSystem }): Promise<void> {
   await db()("users").where({ id: userId }).update({ name: input.name.trim(), units: input.units });
 }
@@ -133,7 +122,7 @@ export async function getPasswordHash(userId: number): Promise<string | null> {
 /** A new password: the hash is replaced and every session of the person ends (the caller starts a fresh one). */
 export async function setPassword(userId: number, password: string): Promise<void> {
   const passwordHash = await hashPassword(password);
-  await db().transaction(async (trx) => {
+  await writeTransaction(async (trx) => {
     await setRowScope(trx, { userId });
     await trx("users").where({ id: userId }).update({ password_hash: passwordHash });
     await trx("sessions").where({ user_id: userId }).delete();

@@ -108,7 +108,3 @@ export function sessionStorage() {
 export function getSession(request: Request) {
   return sessionStorage().getSession(request.headers.get("Cookie"));
 }
-
-export async function deleteSessionsOfUser(userId: number): Promise<void> {
-  await withScope({ userId }, (k) => k("sessions").where({ user_id: userId }).delete());
-}

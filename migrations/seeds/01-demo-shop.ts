@@ -1,4 +1,5 @@
 import type { Knex } from "knex";
+import { recordAudit } from "../../app/models/audit.server.ts";
 import { hashPassword } from "../../app/utils/password.server.ts";
 
 // The demo: an invented shop and a second invented team for isolation tests.
@@ -34,7 +35,7 @@ export async function seed(knex: Knex): Promise<void> {
           .returning("id");
         await trx("memberships").insert({ user_id: userId, team_id: teamId, role: person.role, created_at: at });
       }
-      await trx("audit_events").insert({ team_id: teamId, action: "demo.seeded", created_at: at });
+      await recordAudit(trx, teamId, null, "demo.seeded", {}, at);
     }
   });
 }

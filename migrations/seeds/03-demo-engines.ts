@@ -1,4 +1,5 @@
 import type { Knex } from "knex";
+import { recordAudit } from "../../app/models/audit.server.ts";
 import { defaultStudPattern } from "../../app/lib/clamp/pattern.ts";
 
 // Three invented customer engines for the demo shop, each with two or three seal plans, so a newcomer
@@ -298,6 +299,6 @@ export async function seed(knex: Knex): Promise<void> {
         if (chosen) await trx("engines").where({ id: engineId }).update({ chosen_plan_id: planId });
       }
     }
-    await trx("audit_events").insert({ team_id: team.id, action: "demo.engines-seeded", created_at: at });
+    await recordAudit(trx, team.id, null, "demo.engines-seeded", {}, at);
   });
 }

@@ -1,4 +1,5 @@
 import type { Knex } from "knex";
+import { recordAudit } from "../../app/models/audit.server.ts";
 
 // The demo shop's records (every figure invented): assemblies on the four and the six, and the six's
 // run history — it ran on its old 7/16 studs until a dyno day at higher boost blew the gasket between
@@ -315,6 +316,6 @@ export async function seed(knex: Knex): Promise<void> {
         updated_at: at,
       });
     }
-    await trx("audit_events").insert({ team_id: team.id, action: "demo.records-seeded", created_at: at });
+    await recordAudit(trx, team.id, null, "demo.records-seeded", {}, at);
   });
 }

@@ -43,7 +43,7 @@ const env: Record<string, string> = {
 };
 
 // The app processes connect as a role that owns nothing, so PostgreSQL's row security binds them
-// (docs/decisions/0017-row-security.md); migrations, the seed and this script's own reads use the owner.
+// (docs/decisions/0018-row-security.md); migrations, the seed and this script's own reads use the owner.
 const appRole = `${dbName}_app`;
 const appUrl = new URL(url.toString());
 appUrl.username = appRole;

@@ -2,7 +2,7 @@ import { beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { assemblePlanInput } from "~/lib/plan/assemble";
 import { getEngine } from "~/models/engine.server";
 import { listPlans, planParts } from "~/models/plan.server";
-import * as tokens from "~/routes/app/tokens";
+import * as tokens from "~/routes/shop/tokens";
 import { db } from "~/utils/db.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
 import { api, DEMO_TEAM, otherTeamEngine, rowCounts, teamId, tokenFor } from "./api-helpers";

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import * as dashboard from "~/routes/app/dashboard";
+import * as dashboard from "~/routes/shop/dashboard";
 import * as login from "~/routes/auth/login";
 import * as logout from "~/routes/auth/logout";
 import * as signup from "~/routes/auth/signup";
@@ -130,6 +130,17 @@ describe("sign-up", () => {
       post("/signup", { name: "Long Pass", email: "long@example.com", teamName: "Long Team", password: "x".repeat(64) }),
     );
     expect(out.status).toBe(302);
+  });
+
+  it("answers a malformed Conform intent with 400 and a message, not a 500, and writes nothing", async () => {
+    const [{ n: before }] = await db()("users").count({ n: "*" });
+    const fields = { name: "Ivo Marsh", email: "ivo@example.com", teamName: "Marsh Heads", password: "long enough pass" };
+    for (const intent of ["{oops", '{"type":"explode","payload":{}}', '{"type":"remove","payload":{"name":"email","index":0}}']) {
+      const out = await call(action, post("/signup", { ...fields, __intent__: intent }));
+      expect(out.status, intent).toBe(400);
+      expect(String(out.body)).toMatch(/not one this page knows/);
+    }
+    expect((await db()("users").count({ n: "*" }))[0]!.n).toBe(before);
   });
 
   it("rejects bad input with messages and writes nothing", async () => {

@@ -2,7 +2,7 @@ import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import * as teamExport from "~/routes/app/team-export";
+import * as teamExport from "~/routes/shop/team-export";
 import { db } from "~/utils/db.server";
 import { call, get, signIn, type Handler } from "./helpers";
 

@@ -61,9 +61,9 @@ function engineForm(cylinders: string, serve: string): Record<string, string> {
   };
   defaultStudPattern("inline", 4).forEach((s, i) => {
     const row = studToRow(s);
-    fields[`stud-${i}-label`] = row.label;
-    fields[`stud-${i}-cylinders`] = i === 0 ? serve : row.cylinders;
-    fields[`stud-${i}-shares`] = i === 0 ? "1" : row.shares;
+    fields[`studs[${i}].label`] = row.label;
+    fields[`studs[${i}].cylinders`] = i === 0 ? serve : row.cylinders;
+    fields[`studs[${i}].shares`] = i === 0 ? "1" : row.shares;
   });
   return fields;
 }
@@ -86,10 +86,10 @@ describe("huge counts through the routes", () => {
           : await call(engineNew.action as Handler, post("/engines/new", engineForm(cylinders, serve), builder));
         expect(performance.now() - t0).toBeLessThan(1000);
         expect(out.status).toBe(400);
-        // zod calls a number past 2⁵³ not whole; either way the count's own message, alone
-        expect((out.body as { errors: Record<string, string> }).errors.cylinders).toMatch(
-          /^(At most 16 cylinders|Cylinder count is a whole number)$/,
-        );
+        // zod calls a number past 2⁵³ not whole; either way the count's own messages, not one per cylinder
+        const messages = (out.body as { result: { error: Record<string, string[]> } }).result.error.cylinders!;
+        expect(messages[0]).toMatch(/^(At most 16 cylinders|Cylinder count is a whole number)$/);
+        expect(messages.length).toBeLessThanOrEqual(2);
       }),
       { numRuns: 60 },
     );

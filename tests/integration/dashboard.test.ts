@@ -1,5 +1,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import * as dashboard from "~/routes/app/dashboard";
+import * as dashboard from "~/routes/shop/dashboard";
+import { chosenPlanVerdictsBatched, VERDICT_CACHE } from "~/models/dashboard.server";
+import { chosenPlanVerdicts } from "~/models/plan-estimate.server";
 import { db } from "~/utils/db.server";
 import { call, get, signIn, type Handler } from "./helpers";
 
@@ -68,6 +70,24 @@ describe("dashboard", () => {
     } finally {
       await db()("seal_plans").where({ id: plan.id }).update({ archived_at: null });
       await db()("audit_events").where({ id }).delete();
+    }
+  });
+
+  it("reads the chosen plans in a fixed handful of queries and gives the one-by-one verdicts, also from its cache", async () => {
+    const who = { teamId: (await db()("teams").orderBy("id").first()).id as number, userId: 0, role: "owner" as const };
+    const oneByOne = await chosenPlanVerdicts(who, "metric");
+    expect(oneByOne.length).toBeGreaterThan(1);
+    let queries = 0;
+    const count = () => void queries++;
+    db().on("query", count);
+    try {
+      VERDICT_CACHE.clear();
+      expect(await chosenPlanVerdictsBatched(who, "metric")).toEqual(oneByOne);
+      expect(queries).toBe(5);
+      expect(VERDICT_CACHE.size).toBe(oneByOne.length);
+      expect(await chosenPlanVerdictsBatched(who, "imperial")).toEqual(oneByOne);
+    } finally {
+      db().removeListener("query", count);
     }
   });
 });

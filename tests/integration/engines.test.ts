@@ -3,7 +3,7 @@ import { defaultStudPattern } from "~/lib/clamp/pattern";
 import { EngineSchema, studToRow, type EngineInput } from "~/lib/engine";
 import { createEngine, listEngines } from "~/models/engine.server";
 import * as edit from "~/routes/engines/edit";
-import * as layout from "~/routes/engines/engine";
+import * as layout from "~/routes/engines/layout";
 import * as list from "~/routes/engines/list";
 import * as create from "~/routes/engines/new";
 import * as overview from "~/routes/engines/overview";
@@ -65,11 +65,21 @@ function fourForm(over: Record<string, string> = {}): Record<string, string> {
   };
   defaultStudPattern("inline", 4).forEach((s, i) => {
     const row = studToRow(s);
-    fields[`stud-${i}-label`] = row.label;
-    fields[`stud-${i}-cylinders`] = row.cylinders;
-    fields[`stud-${i}-shares`] = row.shares;
+    fields[`studs[${i}].label`] = row.label;
+    fields[`studs[${i}].cylinders`] = row.cylinders;
+    fields[`studs[${i}].shares`] = row.shares;
   });
   return { ...fields, ...over };
+}
+
+/** Conform's reply in an answer: the first message per field, and the values as posted. */
+function refusal(body: unknown): {
+  errors: Record<string, string>;
+  values: Record<string, unknown> & { studs?: Record<string, string>[] };
+} {
+  const result = (body as { result: { error?: Record<string, string[]>; initialValue: Record<string, unknown> } }).result;
+  const errors = Object.fromEntries(Object.entries(result.error ?? {}).map(([name, list]) => [name, list[0]!]));
+  return { errors, values: result.initialValue };
 }
 
 const engineCount = async () => Number((await db()("engines").count({ n: "*" }))[0]!.n);
@@ -156,7 +166,7 @@ describe("creating an engine", () => {
     });
     const out = await call(h(create.action), post("/engines/new", form, builder));
     expect(out.status).toBe(400);
-    const { errors, values } = out.body as { errors: Record<string, string>; values: { fields: Record<string, string> } };
+    const { errors, values } = refusal(out.body);
     expect(errors).toMatchObject({
       name: "Name the engine",
       cylinders: "A V engine needs an even number of cylinders",
@@ -172,22 +182,22 @@ describe("creating an engine", () => {
       status: "Pick a status",
       notes: "Keep the notes under 4000 characters",
     });
-    expect(values.fields.boreMm).toBe("abc");
+    expect(values.boreMm).toBe("abc");
     expect(await engineCount()).toBe(before);
   });
 
   it("refuses a rod no longer than half the stroke", async () => {
     const out = await call(h(create.action), post("/engines/new", fourForm({ strokeMm: "90", rodLengthMm: "45" }), builder));
     expect(out.status).toBe(400);
-    expect((out.body as { errors: Record<string, string> }).errors.rodLengthMm).toBe("The rod must be longer than half the stroke (45 mm)");
+    expect(refusal(out.body).errors.rodLengthMm).toBe("The rod must be longer than half the stroke (45 mm)");
   });
 
   it("refuses stud shares that do not add up to 1, naming the stud", async () => {
     const before = await engineCount();
-    const out = await call(h(create.action), post("/engines/new", fourForm({ "stud-2-shares": "0.5 0.4" }), builder));
+    const out = await call(h(create.action), post("/engines/new", fourForm({ "studs[2].shares": "0.5 0.4" }), builder));
     expect(out.status).toBe(400);
-    const { errors } = out.body as { errors: Record<string, string> };
-    expect(errors["studs.2.serves"]).toBe("Stud shares for stud A3 add up to 0.9; they must add up to 1");
+    const { errors } = refusal(out.body);
+    expect(errors["studs[2]"]).toBe("Stud shares for stud A3 add up to 0.9; they must add up to 1");
     expect(await engineCount()).toBe(before);
   });
 
@@ -197,19 +207,19 @@ describe("creating an engine", () => {
       post(
         "/engines/new",
         fourForm({
-          "stud-3-cylinders": "3",
-          "stud-3-shares": "1",
-          "stud-8-cylinders": "3",
-          "stud-8-shares": "1",
-          "stud-4-cylinders": "5",
-          "stud-9-cylinders": "5",
+          "studs[3].cylinders": "3",
+          "studs[3].shares": "1",
+          "studs[8].cylinders": "3",
+          "studs[8].shares": "1",
+          "studs[4].cylinders": "5",
+          "studs[9].cylinders": "5",
         }),
         builder,
       ),
     );
     expect(out.status).toBe(400);
-    const { errors } = out.body as { errors: Record<string, string> };
-    expect(errors["studs.4.serves.0.cylinder"]).toBe("Stud A5 serves cylinder 5, but the engine has 4 cylinders");
+    const { errors } = refusal(out.body);
+    expect(errors["studs[4]"]).toBe("Stud A5 serves cylinder 5, but the engine has 4 cylinders");
     expect(errors.studs).toBe("No stud serves cylinder 4");
   });
 
@@ -220,10 +230,10 @@ describe("creating an engine", () => {
         "/engines/new",
         fourForm({
           name: "Extra stud four",
-          "stud-1-shares": "1/2 1/2",
-          "stud-10-label": "X1",
-          "stud-10-cylinders": "2 3",
-          "stud-10-shares": "½ ½",
+          "studs[1].shares": "1/2 1/2",
+          "studs[10].label": "X1",
+          "studs[10].cylinders": "2 3",
+          "studs[10].shares": "½ ½",
         }),
         builder,
       ),
@@ -245,9 +255,7 @@ describe("creating an engine", () => {
     const before = await engineCount();
     const out = await call(h(create.action), post("/engines/new", fourForm({ blockMaterialId: String(otherTeamMaterial) }), builder));
     expect(out.status).toBe(400);
-    expect((out.body as { errors: Record<string, string> }).errors.blockMaterialId).toBe(
-      "Choose the block (deck) material from this shop's materials",
-    );
+    expect(refusal(out.body).errors.blockMaterialId).toBe("Choose the block (deck) material from this shop's materials");
     expect(await engineCount()).toBe(before);
   });
 
@@ -255,13 +263,39 @@ describe("creating an engine", () => {
     const before = await engineCount();
     const out = await call(h(create.action), post("/engines/new", fourForm({ intent: "pattern", layout: "V", cylinders: "8" }), builder));
     expect(out.status).toBe(200);
-    const { values } = out.body as { values: { studs: { label: string; cylinders: string }[] } };
+    const { values } = refusal(out.body);
     expect(values.studs).toHaveLength(20); // 5 per side, 2 sides, 2 banks
-    expect(values.studs[0]).toMatchObject({ label: "LA1", cylinders: "1" });
-    const added = await call(h(create.action), post("/engines/new", fourForm({ intent: "add-stud" }), builder));
-    expect((added.body as { values: { studs: unknown[] } }).values.studs).toHaveLength(11);
-    const removed = await call(h(create.action), post("/engines/new", fourForm({ intent: "remove-stud:0" }), builder));
-    expect((removed.body as { values: { studs: { label: string }[] } }).values.studs[0]!.label).toBe("A2");
+    expect(values.studs![0]).toMatchObject({ label: "LA1", cylinders: "1" });
+    // Add and Remove are Conform's list intents, posted as __intent__ by the buttons without JavaScript
+    const { intent: _, ...typed } = fourForm();
+    const list = (intent: object) => post("/engines/new", { ...typed, __intent__: JSON.stringify(intent) }, builder);
+    const added = await call(h(create.action), list({ type: "insert", payload: { name: "studs", defaultValue: { label: "" } } }));
+    expect(added.status).toBe(200);
+    expect(refusal(added.body).values.studs).toHaveLength(11);
+    const removed = await call(h(create.action), list({ type: "remove", payload: { name: "studs", index: 0 } }));
+    expect(refusal(removed.body).values.studs![0]!.label).toBe("A2");
+    expect(await engineCount()).toBe(before);
+  });
+
+  it("answers a pattern it cannot make beside Studs per side, and a malformed button word 400", async () => {
+    const before = await engineCount();
+    const out = await call(h(create.action), post("/engines/new", fourForm({ intent: "pattern", studsPerSide: "1" }), builder));
+    expect(out.status).toBe(200);
+    expect(refusal(out.body).errors).toEqual({ studsPerSide: "Studs per side is a whole number from 2 to 20" });
+    const malformed: Record<string, string>[] = [
+      { intent: "remove-stud:0" },
+      { __intent__: "{not json" },
+      { __intent__: '{"type":"explode","payload":{}}' },
+    ];
+    for (const bad of malformed) {
+      const answer = await call(h(create.action), post("/engines/new", { ...fourForm(), ...bad }, builder));
+      expect(answer.status, JSON.stringify(bad)).toBe(400);
+      expect(String(answer.body)).toMatch(/not one this page knows/);
+    }
+    // a list intent aimed at a plain field
+    const { intent: _, ...typed } = fourForm();
+    const misaimed = { ...typed, __intent__: JSON.stringify({ type: "remove", payload: { name: "name", index: 0 } }) };
+    expect((await call(h(create.action), post("/engines/new", misaimed, builder))).status).toBe(400);
     expect(await engineCount()).toBe(before);
   });
 });
@@ -271,12 +305,13 @@ describe("editing and archiving", () => {
     const id = (await demoEngineIds())[0]!;
     const loaded = await call(h(edit.loader), get(`/engines/${id}/edit`, builder), { engineId: String(id) });
     expect(loaded.status).toBe(200);
-    const { values } = loaded.body as { values: { fields: Record<string, string>; studs: Record<string, string>[] } };
-    const form: Record<string, string> = { ...values.fields, intent: "save", name: "Renamed engine", status: "running" };
-    values.studs.forEach((r, i) => {
-      form[`stud-${i}-label`] = r.label!;
-      form[`stud-${i}-cylinders`] = r.cylinders!;
-      form[`stud-${i}-shares`] = r.shares!;
+    const { values } = loaded.body as { values: Record<string, string> & { studs: Record<string, string>[] } };
+    const { studs, ...fields } = values;
+    const form: Record<string, string> = { ...fields, intent: "save", name: "Renamed engine", status: "running" };
+    studs.forEach((r, i) => {
+      form[`studs[${i}].label`] = r.label!;
+      form[`studs[${i}].cylinders`] = r.cylinders!;
+      form[`studs[${i}].shares`] = r.shares!;
     });
     const before = await db()("engines").where({ id }).first();
     const out = await call(h(edit.action), post(`/engines/${id}/edit`, form, builder), { engineId: String(id) });
@@ -298,7 +333,7 @@ describe("editing and archiving", () => {
     const before = await db()("engines").where({ id }).first();
     const out = await call(h(edit.action), post(`/engines/${id}/edit`, fourForm({ boreMm: "0" }), builder), { engineId: String(id) });
     expect(out.status).toBe(400);
-    expect((out.body as { errors: Record<string, string> }).errors.boreMm).toBe("Bore must be greater than zero");
+    expect(refusal(out.body).errors.boreMm).toBe("Bore must be greater than zero");
     expect(await db()("engines").where({ id }).first()).toEqual(before);
   });
 

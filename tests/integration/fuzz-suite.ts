@@ -207,7 +207,7 @@ beforeAll(async () => {
       password: "a sentence for the bench",
     },
     "routes/auth/logout": {},
-    "routes/app/team-switch": { teamId: String(teamId), returnTo: "/engines" },
+    "routes/shop/team-switch": { teamId: String(teamId), returnTo: "/engines" },
     "routes/engines/new": engineFields,
     "routes/engines/edit": engineFields,
     "routes/plans/new": planForm,
@@ -217,14 +217,14 @@ beforeAll(async () => {
     "routes/plans/copy": { targetEngineId: String(otherEngine.id) },
     "library-new": gasketForm,
     "library-edit": gasketForm,
-    "routes/app/team": { name: "Harrow Lane Boost Works" },
-    "routes/app/settings": { units: "metric" },
+    "routes/shop/team": { name: "Harrow Lane Boost Works" },
+    "routes/shop/settings": { units: "metric" },
     "routes/auth/forgot-password": { email: "owner@example.com" },
     "routes/auth/reset-password": { password: "a new sentence for the bench", confirm: "a new sentence for the bench" },
     "routes/auth/invite": { intent: "create", name: "Fuzz Person", password: "a sentence for the bench" },
     "routes/engines/build-sheet": { viewerId: String(viewerId), note: "" },
     "routes/engines/sharing": { viewerId: String(viewerId), shared: "true" },
-    "routes/app/tokens": { intent: "create", name: "fuzz token", role: "viewer" },
+    "routes/shop/tokens": { intent: "create", name: "fuzz token", role: "viewer" },
     "routes/engines/assembly": {
       planId: String(plan.id),
       assembledOn: "2026-11-30",
@@ -258,7 +258,7 @@ beforeAll(async () => {
     },
     "routes/engines/files-upload": { returnTo: `/engines/${engine.id}/files` },
     "routes/libraries/item-files-upload": {},
-    "routes/app/file": { intent: "delete", returnTo: `/engines/${engine.id}/files` },
+    "routes/shop/file": { intent: "delete", returnTo: `/engines/${engine.id}/files` },
   });
   // importing every route module and signing in takes a while on a loaded machine
 }, 60_000);
@@ -312,10 +312,10 @@ export const FUZZ_GROUPS = {
     "routes/auth/login",
     "routes/auth/signup",
     "routes/auth/logout",
-    "routes/app/team-switch",
-    "routes/app/team",
-    "routes/app/settings",
-    "routes/app/tokens",
+    "routes/shop/team-switch",
+    "routes/shop/team",
+    "routes/shop/settings",
+    "routes/shop/tokens",
     "routes/engines/new",
     "routes/engines/edit",
     "routes/engines/duplicate",
@@ -339,7 +339,7 @@ export const FUZZ_GROUPS = {
     "routes/api/v1/runs",
     "routes/plans/copy",
     "routes/engines/assembly",
-    "routes/app/file",
+    "routes/shop/file",
     "routes/engines/machining",
   ],
 };
@@ -371,7 +371,7 @@ export function fuzzRoutes(ids: string[]) {
                 ? await freshSession("builder@example.com")
                 : id.startsWith("routes/auth/")
                   ? ""
-                  : id === "routes/app/team"
+                  : id === "routes/shop/team"
                     ? owner
                     : builder;
             // every body is a first attempt: the throttles have their own tests (throttle.test.ts)

@@ -1,7 +1,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import * as layout from "~/routes/app/layout";
-import * as team from "~/routes/app/team";
-import * as teamSwitch from "~/routes/app/team-switch";
+import * as layout from "~/routes/shop/layout";
+import * as team from "~/routes/shop/team";
+import * as teamSwitch from "~/routes/shop/team-switch";
 import { db } from "~/utils/db.server";
 import { call, EMAIL, get, post, signIn, WHO, type Handler, type Who } from "./helpers";
 

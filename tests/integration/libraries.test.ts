@@ -383,9 +383,9 @@ describe("invalid input → 400 with messages, nothing written", () => {
       const before = await count(c.table);
       const out = await create(c.kind, c.fields, cookies.builder);
       expect(out.status).toBe(400);
-      const body = out.body as { errors: Record<string, string>; values: Record<string, string> };
-      expect(body.errors[c.field]).toMatch(c.message);
-      expect(body.values.name).toBe(c.fields.name);
+      const { result } = out.body as { result: { error: Record<string, string[]>; initialValue: Record<string, string> } };
+      expect(result.error[c.field]![0]).toMatch(c.message);
+      expect(result.initialValue.name).toBe(c.fields.name);
       expect(await count(c.table)).toBe(before);
     });
   }
@@ -394,7 +394,7 @@ describe("invalid input → 400 with messages, nothing written", () => {
     const row = await db()("gaskets").where({ team_id: teamId }).first();
     const out = await update("gaskets", row.id, { intent: "save", ...gasket({ ringWidthMm: "0" }) }, cookies.builder);
     expect(out.status).toBe(400);
-    expect((out.body as { errors: Record<string, string> }).errors.ringWidthMm).toMatch(/greater than zero/);
+    expect((out.body as { result: { error: Record<string, string[]> } }).result.error.ringWidthMm![0]).toMatch(/greater than zero/);
     expect(await db()("gaskets").where({ id: row.id }).first()).toEqual(row);
   });
 
@@ -403,7 +403,7 @@ describe("invalid input → 400 with messages, nothing written", () => {
     const before = await count("fasteners");
     const out = await create("fasteners", fastener({ materialId: String(theirs.id) }), cookies.builder);
     expect(out.status).toBe(400);
-    expect((out.body as { errors: Record<string, string> }).errors.materialId).toMatch(/this shop's materials/);
+    expect((out.body as { result: { error: Record<string, string[]> } }).result.error.materialId![0]).toMatch(/this shop's materials/);
     expect(await count("fasteners")).toBe(before);
   });
 });

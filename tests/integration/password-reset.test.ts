@@ -1,8 +1,8 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import * as forgot from "~/routes/auth/forgot-password";
 import * as reset from "~/routes/auth/reset-password";
-import * as settings from "~/routes/app/settings";
-import * as dashboard from "~/routes/app/dashboard";
+import * as settings from "~/routes/shop/settings";
+import * as dashboard from "~/routes/shop/dashboard";
 import { db } from "~/utils/db.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
 import { hashLinkToken } from "~/utils/tokens.server";

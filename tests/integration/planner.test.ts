@@ -334,9 +334,9 @@ async function engineForm(name: string): Promise<Record<string, string>> {
     ["4", "1"],
   ];
   studs.forEach(([c, s], i) => {
-    form[`stud-${i}-label`] = "";
-    form[`stud-${i}-cylinders`] = c;
-    form[`stud-${i}-shares`] = s;
+    form[`studs[${i}].label`] = "";
+    form[`studs[${i}].cylinders`] = c;
+    form[`studs[${i}].shares`] = s;
   });
   return form;
 }

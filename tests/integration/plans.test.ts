@@ -274,7 +274,11 @@ describe("gasket fit", () => {
     const before = await count();
     const out = await call(
       newPlan.action as Handler,
-      post(`/engines/${engineId}/plans/new`, await currentForm({ name: "Wrong gasket", gasketId: String(big.id) }), builder),
+      post(
+        `/engines/${engineId}/plans/new`,
+        await currentForm({ intent: "create", name: "Wrong gasket", gasketId: String(big.id) }),
+        builder,
+      ),
       params,
     );
     expect(out.status).toBe(400);
@@ -288,7 +292,7 @@ describe("archiving a plan", () => {
     const params = { engineId: String(engineId) };
     const made = await call(
       newPlan.action as Handler,
-      post(`/engines/${engineId}/plans/new`, await currentForm({ name: "To be archived" }), builder),
+      post(`/engines/${engineId}/plans/new`, await currentForm({ intent: "create", name: "To be archived" }), builder),
       params,
     );
     const id = Number(made.location!.split("/").pop());
@@ -306,6 +310,27 @@ describe("archiving a plan", () => {
   });
 });
 
+describe("button words", () => {
+  it("an unknown intent on the editor or the new-plan page is a 400 with a message, and writes nothing", async () => {
+    const before = await planRow(planId);
+    const planParams = { engineId: String(engineId), planId: String(planId) };
+    const out = await call(
+      editor.action as Handler,
+      post(`/engines/${engineId}/plans/${planId}`, { intent: "delete-all" }, builder),
+      planParams,
+    );
+    expect(out.status).toBe(400);
+    expect(String(out.body)).toMatch(/not one this page knows/);
+    const made = await call(
+      newPlan.action as Handler,
+      post(`/engines/${engineId}/plans/new`, await currentForm({ intent: "save-everything" }), builder),
+      { engineId: String(engineId) },
+    );
+    expect(made.status).toBe(400);
+    expect(await planRow(planId)).toEqual(before);
+  });
+});
+
 describe("new plan", () => {
   it("creates a plan, and refuses bad input writing nothing", async () => {
     const params = { engineId: String(engineId) };
@@ -313,7 +338,7 @@ describe("new plan", () => {
     const before = await count();
     const bad = await call(
       newPlan.action as Handler,
-      post(`/engines/${engineId}/plans/new`, await currentForm({ name: "" }), builder),
+      post(`/engines/${engineId}/plans/new`, await currentForm({ intent: "create", name: "" }), builder),
       params,
     );
     expect(bad.status).toBe(400);
@@ -321,14 +346,14 @@ describe("new plan", () => {
     expect(await count()).toBe(before);
     const good = await call(
       newPlan.action as Handler,
-      post(`/engines/${engineId}/plans/new`, await currentForm({ name: "Fresh plan" }), builder),
+      post(`/engines/${engineId}/plans/new`, await currentForm({ intent: "create", name: "Fresh plan" }), builder),
       params,
     );
     expect(good.status).toBe(302);
     expect(await count()).toBe(before + 1);
     const viewerTry = await call(
       newPlan.action as Handler,
-      post(`/engines/${engineId}/plans/new`, await currentForm({ name: "Viewer plan" }), viewer),
+      post(`/engines/${engineId}/plans/new`, await currentForm({ intent: "create", name: "Viewer plan" }), viewer),
       params,
     );
     expect(viewerTry.status).toBe(403);

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { engineStatusCounts, listEngines } from "~/models/engine.server";
 import { chosenPlanVerdicts } from "~/models/plan-estimate.server";
+import { chosenPlanVerdictsBatched } from "~/models/dashboard.server";
 import { listPlans } from "~/models/plan.server";
 import { listAuditEvents, livePlans } from "~/models/team.server";
 import { db } from "~/utils/db.server";
@@ -61,6 +62,7 @@ const HOT: [string, (t: { teamId: number; engineId: number }) => Promise<unknown
   ["dashboard activity", ({ teamId }) => listAuditEvents(teamId, 10)],
   ["dashboard engine counts", ({ teamId }) => engineStatusCounts(owner(teamId))],
   ["dashboard chosen-plan verdicts", ({ teamId }) => chosenPlanVerdicts(owner(teamId), "metric")],
+  ["dashboard chosen-plan verdicts, batched", ({ teamId }) => chosenPlanVerdictsBatched(owner(teamId), "metric")],
   ["engine list, default sort", ({ teamId }) => listEngines(owner(teamId), {})],
   ["engine list by name", ({ teamId }) => listEngines(owner(teamId), { sort: "name", dir: "asc" })],
   ["engine list by status filter", ({ teamId }) => listEngines(owner(teamId), { status: "running" })],

@@ -3,7 +3,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import * as assembly from "~/routes/engines/assembly";
 import * as runsPage from "~/routes/engines/runs";
 import * as runsCsv from "~/routes/engines/runs-csv";
-import * as evidence from "~/routes/app/evidence";
+import * as evidence from "~/routes/shop/evidence";
 import * as checklist from "~/routes/plans/checklist";
 import * as newPlan from "~/routes/plans/new";
 import { assemblePlanInput } from "~/lib/plan/assemble";

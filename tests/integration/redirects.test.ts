@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { beforeAll, describe, expect, it } from "vitest";
-import * as teamSwitch from "~/routes/app/team-switch";
+import * as teamSwitch from "~/routes/shop/team-switch";
 import * as login from "~/routes/auth/login";
 import { safeRedirect } from "~/utils/auth.server";
 import { db } from "~/utils/db.server";

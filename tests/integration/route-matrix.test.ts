@@ -36,17 +36,17 @@ const MATRIX: Record<string, Row> = {
   "routes/auth/invite POST": all("410"),
   // the development mailbox (NODE_ENV=test here); a production build answers 404 (team.test.ts)
   "routes/dev/mailbox GET": all("200"),
-  "routes/app/team-switch GET": all("→/dashboard"),
-  "routes/app/team-export GET": ["signin", "403", "403", "200", "200"],
-  "routes/app/team-switch POST": ["signin", "→/dashboard", "→/dashboard", "→/dashboard", "403"],
-  "routes/app/layout GET": member("200"),
-  "routes/app/dashboard GET": member("200"),
+  "routes/shop/team-switch GET": all("→/dashboard"),
+  "routes/shop/team-export GET": ["signin", "403", "403", "200", "200"],
+  "routes/shop/team-switch POST": ["signin", "→/dashboard", "→/dashboard", "→/dashboard", "403"],
+  "routes/shop/layout GET": member("200"),
+  "routes/shop/dashboard GET": member("200"),
   "routes/engines/list GET": member("200"),
   "routes/engines/new GET": ["signin", "403", "200", "200", "200"],
   "routes/engines/new POST": ["signin", "403", "200", "200", "200"],
   "routes/engines/duplicate GET": demoOnly("→/engines/:engineId"),
   "routes/engines/duplicate POST": ["signin", "403", "→/engines/*", "→/engines/*", "404"],
-  "routes/engines/engine GET": demoOnly("200"),
+  "routes/engines/layout GET": demoOnly("200"),
   "routes/engines/overview GET": demoOnly("200"),
   "routes/engines/edit GET": builderDemo("200"),
   "routes/engines/edit POST": builderDemo("200"),
@@ -74,8 +74,8 @@ const MATRIX: Record<string, Row> = {
   "routes/engines/runs-csv GET": demoOnly("200"),
   "routes/engines/files GET": demoOnly("200"),
   "routes/engines/files-upload POST": builderDemo("→/engines/:engineId/files"),
-  "routes/app/file GET": demoOnly("200"),
-  "routes/app/file POST": builderDemo("400"),
+  "routes/shop/file GET": demoOnly("200"),
+  "routes/shop/file POST": builderDemo("400"),
   "routes/libraries/item-files-upload POST": builderDemo("→/libraries/gaskets/*"),
   "routes/libraries/layout GET": member("200"),
   "routes/libraries/index GET": member("→/libraries/fasteners"),
@@ -84,13 +84,13 @@ const MATRIX: Record<string, Row> = {
   "library-new POST": ["signin", "403", "400", "400", "400"],
   "library-edit GET": demoOnly("200"),
   "library-edit POST": builderDemo("400"),
-  "routes/app/evidence GET": ["signin", "403", "200", "200", "200"],
-  "routes/app/team GET": ["signin", "403", "403", "200", "200"],
-  "routes/app/team POST": ["signin", "403", "403", "400", "400"],
-  "routes/app/settings GET": member("200"),
-  "routes/app/settings POST": member("400"),
-  "routes/app/tokens GET": member("200"),
-  "routes/app/tokens POST": member("400"),
+  "routes/shop/evidence GET": ["signin", "403", "200", "200", "200"],
+  "routes/shop/team GET": ["signin", "403", "403", "200", "200"],
+  "routes/shop/team POST": ["signin", "403", "403", "400", "400"],
+  "routes/shop/settings GET": member("200"),
+  "routes/shop/settings POST": member("400"),
+  "routes/shop/tokens GET": member("200"),
+  "routes/shop/tokens POST": member("400"),
   "routes/docs/api GET": all("200"),
   "routes/api/estimate GET": all("405"),
   "routes/api/estimate POST": ["401", "400", "400", "400", "400"],
@@ -135,20 +135,21 @@ beforeAll(async () => {
 
 const HARMLESS: Record<string, Record<string, string>> = {
   "routes/auth/login": { email: "", password: "" },
-  "routes/app/team-switch": { returnTo: "/dashboard" },
-  "routes/engines/new": { intent: "add-stud" },
-  "routes/engines/edit": { intent: "add-stud" },
+  "routes/shop/team-switch": { returnTo: "/dashboard" },
+  // Conform's "Add a stud" list intent: answers with one more row, writes nothing
+  "routes/engines/new": { __intent__: JSON.stringify({ type: "insert", payload: { name: "studs" } }) },
+  "routes/engines/edit": { __intent__: JSON.stringify({ type: "insert", payload: { name: "studs" } }) },
   "routes/plans/editor": { intent: "estimate" },
   "routes/plans/compare": { planId: "" },
   "library-new": { intent: "no-such-intent" },
   "library-edit": { intent: "no-such-intent" },
-  "routes/app/team": { name: "" },
-  "routes/app/settings": { units: "" },
+  "routes/shop/team": { name: "" },
+  "routes/shop/settings": { units: "" },
   "routes/auth/forgot-password": { email: "" },
   "routes/auth/reset-password": { password: "" },
   "routes/engines/build-sheet": { viewerId: "" },
   "routes/engines/sharing": { viewerId: "" },
-  "routes/app/tokens": { intent: "create", name: "" },
+  "routes/shop/tokens": { intent: "create", name: "" },
   "routes/engines/assembly": { assembledBy: "" },
   "routes/engines/machining": { measuredBy: "" },
   "routes/engines/runs": { ranOn: "" },
@@ -183,7 +184,7 @@ async function run(route: RouteInfo, method: "GET" | "POST", who: Who): Promise<
   let cookie = cookies[who];
   // signing out ends the session: give that cell a session of its own
   if (route.id === "routes/auth/logout" && method === "POST" && who !== "anonymous") cookie = await signIn(EMAIL[who]);
-  const body = route.id === "routes/app/team-switch" ? { ...HARMLESS[route.id], teamId: String(demoTeamId) } : (HARMLESS[route.id] ?? {});
+  const body = route.id === "routes/shop/team-switch" ? { ...HARMLESS[route.id], teamId: String(demoTeamId) } : (HARMLESS[route.id] ?? {});
   return through(
     method === "GET" ? route.loader : route.action,
     request(route, method, cookie, route.path.startsWith("/api/") ? "{}" : body),
@@ -234,7 +235,7 @@ const WRITING: Record<string, Record<string, string>> = {
   "routes/auth/login": { email: "owner@example.com", password: DEMO_PASSWORD },
   "routes/auth/signup": { name: "Forged", email: "forged@example.com", teamName: "Forged", password: "a sentence for the bench" },
   "routes/auth/logout": {},
-  "routes/app/team-switch": { returnTo: "/dashboard" },
+  "routes/shop/team-switch": { returnTo: "/dashboard" },
   "routes/engines/new": { intent: "save", name: "Forged" },
   "routes/engines/edit": { intent: "archive" },
   "routes/engines/duplicate": {},
@@ -244,8 +245,8 @@ const WRITING: Record<string, Record<string, string>> = {
   "routes/plans/compare": { planId: "" },
   "library-new": { intent: "save", name: "Forged" },
   "library-edit": { intent: "archive" },
-  "routes/app/team": { name: "Forged" },
-  "routes/app/settings": { units: "imperial" },
+  "routes/shop/team": { name: "Forged" },
+  "routes/shop/settings": { units: "imperial" },
   "routes/auth/forgot-password": { email: "owner@example.com" },
   "routes/auth/reset-password": { password: "a new sentence for the bench", confirm: "a new sentence for the bench" },
   "routes/auth/invite": { intent: "create", name: "Forged", password: "a sentence for the bench" },
@@ -254,13 +255,13 @@ const WRITING: Record<string, Record<string, string>> = {
   "routes/api/estimate": {},
   "routes/api/v1/sweep": {},
   "routes/api/v1/runs": {},
-  "routes/app/tokens": { intent: "create", name: "Forged", role: "viewer" },
+  "routes/shop/tokens": { intent: "create", name: "Forged", role: "viewer" },
   "routes/engines/assembly": { planId: "1", assembledOn: "2026-01-01", assembledBy: "Forged", "stage-0-reached": "50" },
   "routes/engines/machining": { planId: "1", measuredOn: "2026-01-01", measuredBy: "Forged", headFlatnessMm: "0.02" },
   "routes/engines/runs": { ranOn: "2026-01-01", kind: "dyno", manifoldPressureKpa: "200", outcome: "held" },
   "routes/engines/files-upload": {},
   "routes/libraries/item-files-upload": {},
-  "routes/app/file": { intent: "delete" },
+  "routes/shop/file": { intent: "delete" },
 };
 
 async function digest(): Promise<string> {
@@ -285,7 +286,7 @@ describe("cross-site writes", () => {
     for (const route of actions) {
       for (const who of WHO) {
         const body =
-          route.id === "routes/app/team-switch"
+          route.id === "routes/shop/team-switch"
             ? { ...WRITING[route.id], teamId: String(who === "otherTeam" ? otherTeamId : demoTeamId) }
             : WRITING[route.id]!;
         for (const origin of ["http://evil.example", "null", "https://localhost.evil.example"]) {

@@ -1,7 +1,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import * as invite from "~/routes/auth/invite";
-import * as team from "~/routes/app/team";
-import * as dashboard from "~/routes/app/dashboard";
+import * as team from "~/routes/shop/team";
+import * as dashboard from "~/routes/shop/dashboard";
 import { db } from "~/utils/db.server";
 import { hashLinkToken } from "~/utils/tokens.server";
 import { call, cookiePair, get, post, signIn, type Handler } from "./helpers";
@@ -168,7 +168,7 @@ describe("roles and removal", () => {
   it("another shop's members and invites are not found (404) and nothing changes", async () => {
     const saltmarsh = await signIn("other-owner@example.com");
     await call(
-      (await import("~/routes/app/team-switch")).action as Handler,
+      (await import("~/routes/shop/team-switch")).action as Handler,
       post(
         "/team/switch",
         { teamId: String((await db()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id")).id), returnTo: "/team" },

@@ -19,7 +19,7 @@ function from(address: string) {
 }
 
 async function act(handler: unknown, request: Request, address: string): Promise<Outcome> {
-  // call() with a router context that names the client's address, as scripts/serve.ts sets it
+  // call() with a router context that names the client's address, as scripts/serve.mjs sets it
   const h = ((args: Record<string, unknown>) => (handler as Handler)({ ...args, context: from(address) })) as Handler;
   return call(h, request);
 }

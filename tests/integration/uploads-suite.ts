@@ -4,7 +4,7 @@ import path from "node:path";
 import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as upload from "~/routes/engines/files-upload";
-import * as fileRoute from "~/routes/app/file";
+import * as fileRoute from "~/routes/shop/file";
 import * as filesPage from "~/routes/engines/files";
 import * as itemUpload from "~/routes/libraries/item-files-upload";
 import * as libraryEdit from "~/routes/libraries/edit";

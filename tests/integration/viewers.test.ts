@@ -1,13 +1,13 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import * as list from "~/routes/engines/list";
-import * as layout from "~/routes/engines/engine";
+import * as layout from "~/routes/engines/layout";
 import * as overview from "~/routes/engines/overview";
 import * as plans from "~/routes/plans/list";
 import * as editor from "~/routes/plans/editor";
 import * as chamber from "~/routes/engines/chamber";
 import * as sheet from "~/routes/engines/build-sheet";
 import * as sharing from "~/routes/engines/sharing";
-import * as dashboard from "~/routes/app/dashboard";
+import * as dashboard from "~/routes/shop/dashboard";
 import * as mailbox from "~/routes/dev/mailbox";
 import { getEnv, mailboxOpen } from "~/utils/env.server";
 import { db } from "~/utils/db.server";

@@ -3,7 +3,7 @@ import { afterAll } from "vitest";
 import { db } from "../../app/utils/db.server.ts";
 import { knexConfig } from "../../app/utils/knex-config.server.ts";
 
-// Which role a test's own queries run as on the PostgreSQL pass (docs/decisions/0017-row-security.md).
+// Which role a test's own queries run as on the PostgreSQL pass (docs/decisions/0018-row-security.md).
 // The app's db() is the owner unless TEST_PG_ROLE=app (setup-file.ts). ownerDb() is for set-up rows and
 // checks that must see every team; appDb() is the hosted app role, which row security binds. On SQLite
 // both are the app's own db() (one file, no roles).

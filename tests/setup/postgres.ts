@@ -59,7 +59,7 @@ export async function dropDatabase(baseUrl: string, name: string): Promise<void>
 type RawRunner = { raw: (sql: string, bindings?: readonly string[]) => Promise<unknown> };
 
 /**
- * The hosted app role (docs/hosting.md, docs/decisions/0017-row-security.md) for a test run: a login role
+ * The hosted app role (docs/hosting.md, docs/decisions/0018-row-security.md) for a test run: a login role
  * that owns nothing and does not bypass row security, granted the tables and sequences of the database
  * `owner` is connected to. Roles are cluster-wide, so each run makes its own and drops it after.
  */

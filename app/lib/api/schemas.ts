@@ -2,7 +2,9 @@
 // check responses against them and app/lib/api/openapi.ts turns them into the OpenAPI document, so the
 // three cannot drift apart. SI units, with the unit in every field name that carries one.
 import { z } from "zod";
-import { PlanInputSchema } from "../clamp/schema";
+import { UNIT_SYSTEMS } from "../units/table";
+import { LAYOUTS, PlanInputSchema } from "../clamp/schema";
+import { ENGINE_STATUSES } from "../engine/status";
 
 import { PAGE_LIMIT_DEFAULT, PAGE_LIMIT_MAX } from "./paging";
 
@@ -29,7 +31,7 @@ export const PageQuerySchema = z.strictObject({ page: pageParam, limit: limitPar
 const pageFields = { page: z.number().int(), limit: z.number().int(), total: z.number().int(), nextPage: z.number().int().nullable() };
 
 // ─── Estimate and sweep (stateless) ──────────────────────────────────────────────────────────
-export const UnitsSchema = z.enum(["metric", "imperial"]).meta({ description: "How sentences word their figures; numbers stay SI." });
+export const UnitsSchema = z.enum(UNIT_SYSTEMS).meta({ description: "How sentences word their figures; numbers stay SI." });
 export const PlanInputDoc = PlanInputSchema.meta({
   id: "PlanInput",
   description: "One plan in the clamp model's own shape (docs/clamp-model.md#inputs). Unknown keys inside it are ignored.",
@@ -120,7 +122,7 @@ export const SweepResponseSchema = z
   .meta({ id: "Sweep" });
 
 // ─── Engines and plans (reads) ───────────────────────────────────────────────────────────────
-export const ENGINE_STATUSES = ["quoted", "in-build", "running", "retired"] as const;
+export { ENGINE_STATUSES };
 export const EngineListQuerySchema = PageQuerySchema.extend({
   q: z.string().max(100, "q is at most 100 characters").optional(),
   status: z.enum(ENGINE_STATUSES).optional(),
@@ -130,7 +132,7 @@ export const EngineSummarySchema = z.object({
   name: z.string(),
   customer: z.string(),
   cylinders: z.number().int(),
-  layout: z.enum(["inline", "V"]),
+  layout: z.enum(LAYOUTS),
   boreMm: finite,
   fuel: z.string(),
   targetManifoldKpa: finite.nullable(),

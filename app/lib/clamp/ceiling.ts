@@ -69,11 +69,18 @@ function crushedAtMax(p: Prepared, nominalN: number): boolean {
   return false;
 }
 
-export function torqueCeiling(p: Prepared, w: Wording = SI_WORDING): Ceiling {
+/** The torque ceiling; with words false its explanation is "" (lists read only the torque and the cause). */
+export function torqueCeiling(p: Prepared, w: Wording = SI_WORDING, words = true): Ceiling {
   // the ceiling's torques do not depend on the torque: once per prepared plan (the sentence per wording)
   const found = (p.memo.ceiling ??= ceilingFor(p));
   const torqueNm = found.torques[found.cause];
-  return { torqueNm, cause: found.cause, torques: { ...found.torques }, explanation: ceilingSentence(p, found.cause, torqueNm, w) };
+  const cause = found.cause;
+  return {
+    torqueNm,
+    cause,
+    torques: { ...found.torques },
+    explanation: words ? ceilingSentence(p, cause, torqueNm, w) : "",
+  };
 }
 
 function ceilingFor(p: Prepared): { torques: Record<CeilingCause, number>; cause: CeilingCause } {
@@ -124,10 +131,13 @@ function ceilingSentence(p: Prepared, cause: CeilingCause, T: number, w: Wording
   }
 }
 
-/** Seal gained per +10 % torque on the weakest bore, at the bottom of the band, hot and fired. */
-export function sealGainPer10(p: Prepared, torqueNm: number): SealGain {
+/**
+ * Seal gained per +10 % torque on the weakest bore, at the bottom of the band, hot and fired. The
+ * evaluation passes the weakest bore it has already found (its band's), saving a pass over the bores.
+ */
+export function sealGainPer10(p: Prepared, torqueNm: number, weakestBore?: number): SealGain {
   const F = preloadForTorque(p, torqueNm);
-  const bore = weakestAtMin(p, F).bore;
+  const bore = weakestBore ?? weakestAtMin(p, F).bore;
   const w = p.boreStudWeight[bore];
   const at = (Fn: number) => {
     const min = preloadBand(Fn, p.tighteningFactor).minN;

@@ -8,13 +8,16 @@ const SEVERITY: Record<Status, number> = { holds: 0, thin: 1, short: 2 };
  * limit, among thin ones the furthest into its comfort band; unchecked ones last.
  */
 export function rankChecks(checks: readonly LimitCheck[]): LimitCheck[] {
-  const depth = (x: LimitCheck) => (x.status === "short" ? x.ratio : x.ratio / x.thinBelow);
-  const key = (x: LimitCheck): [number, number] => [x.checked ? SEVERITY[x.status] : -1, depth(x)];
-  return [...checks].sort((a, b) => {
-    const [sa, da] = key(a);
-    const [sb, db] = key(b);
-    if (sa !== sb) return sb - sa;
-    if (da === db) return 0;
-    return da < db ? -1 : 1;
-  });
+  return [...checks].sort(byRank);
+}
+
+// one comparator for every call (no closures or key arrays on the evaluation's hot path)
+function byRank(a: LimitCheck, b: LimitCheck): number {
+  const sa = a.checked ? SEVERITY[a.status] : -1;
+  const sb = b.checked ? SEVERITY[b.status] : -1;
+  if (sa !== sb) return sb - sa;
+  const da = a.status === "short" ? a.ratio : a.ratio / a.thinBelow;
+  const db = b.status === "short" ? b.ratio : b.ratio / b.thinBelow;
+  if (da === db) return 0;
+  return da < db ? -1 : 1;
 }

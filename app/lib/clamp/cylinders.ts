@@ -28,7 +28,7 @@ export function boreClamps(p: Prepared, studLoads: ArrayLike<number>, out: Float
   out.fill(0);
   for (let s = 0; s < p.studCount; s++) {
     const F = studLoads[s];
-    // ours (DESIGN.md "Studs to bores"): each stud's load goes to its bores by share
+    // ours (docs/clamp-model.md §7, studs to bores): each stud's load goes to its bores by share
     for (let j = p.start[s]; j < p.start[s + 1]; j++) out[p.boreOf[j]] += p.shareOf[j] * F;
   }
   return out;
@@ -75,12 +75,6 @@ export function boreSeal(p: Prepared, clampColdN: number, clampHotN: number): Bo
 
 // One record reused by the lean loops below (the core is synchronous).
 const lean = leanBoreRecord();
-
-/** Seal and body margins of one bore without the extra figures (for the scatter run's inner loop). */
-export function boreMargins(p: Prepared, clampColdN: number, clampHotN: number): { seal: number; body: number } {
-  const seal = boreSealMargin(p, clampColdN, clampHotN);
-  return { seal, body: p.bodyRequirementN > 0 ? lean.firedBodyN / p.bodyRequirementN : Infinity };
-}
 
 /** The seal margin of one bore on scalars; leaves the bore's loads in the shared lean record. */
 export function boreSealMargin(p: Prepared, clampColdN: number, clampHotN: number): number {

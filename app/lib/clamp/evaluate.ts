@@ -125,6 +125,41 @@ export interface PlanEstimate {
   assumptions: string[];
 }
 
+type FixedParts = Pick<PlanEstimate, "stiffness" | "seal">;
+
+/**
+ * The figures of an evaluation that do not depend on the torque, built once per prepared plan and
+ * shared by its evaluations (read-only: a caller that needs to change one copies it).
+ */
+function fixedParts(p: Prepared): FixedParts {
+  if (p.memo.fixed) return p.memo.fixed as FixedParts;
+  const fixed: FixedParts = {
+    stiffness: {
+      gripMm: p.member.gripMm,
+      studNPerMm: p.stud.stiffnessNPerMm,
+      memberNPerMm: p.member.stiffnessNPerMm,
+      memberWilemanNPerMm: p.wilemanNPerMm,
+      jointConstant: p.C,
+      loadFactor: p.phi,
+      coneLimitMm: p.coneLimitMm,
+      studSpacingAssumed: p.studSpacingAssumed,
+      layers: p.layers.map((l, i) => ({ name: l.name, thicknessMm: l.thicknessMm, complianceMmPerN: p.member.layerCompliance[i] })),
+    },
+    seal: {
+      lineNPerMm: p.lineNPerMm,
+      bodyNPerMm: p.bodyNPerMm,
+      gapMm: p.gapMm,
+      lineLimitN: p.lineLimitN,
+      paths: p.paths.elements.map((e) => e.kind),
+      requirement: p.requirement,
+      deck: p.deck,
+      bodyRequirementN: p.bodyRequirementN,
+    },
+  };
+  p.memo.fixed = fixed;
+  return fixed;
+}
+
 /** Nominal torque and preload for the plan's tightening target. */
 export function targetTorqueAndPreload(p: Prepared): { torqueNm: number; preloadN: number } {
   const t = p.plan.tightening.target;
@@ -133,8 +168,13 @@ export function targetTorqueAndPreload(p: Prepared): { torqueNm: number; preload
 }
 
 export interface EvaluateOptions {
-  /** False leaves `warnings` and `assumptions` empty: for lists that show only the verdict. */
+  /**
+   * False leaves `warnings` and `assumptions` empty, and (unless `details`) every check's detail, the
+   * ceiling's explanation and the firing note "": for lists that show only the verdict, and the hot path.
+   */
   sentences?: boolean;
+  /** With sentences false: still word the checks' details, the ceiling's explanation and the firing note. */
+  details?: boolean;
 }
 
 /** Full estimate for a validated plan (parse with PlanInputSchema first). */
@@ -151,7 +191,8 @@ export function evaluatePrepared(
   const base = targetTorqueAndPreload(p);
   const torqueNm = torqueOverrideNm ?? base.torqueNm;
   const F = torqueOverrideNm === undefined ? base.preloadN : (torqueOverrideNm * 1000) / p.torquePerPreloadMm;
-  const { verdict, bands, working } = verdictFor(p, F, p.plan.targetMargin, wording);
+  const words = options.sentences !== false || options.details === true;
+  const { verdict, bands, working } = verdictFor(p, F, p.plan.targetMargin, wording, words);
   const band = bands.band;
   const yieldMpa = p.plan.fastener.yieldMpa;
   const Fhs = hotSettledPreload(p, F);
@@ -208,7 +249,9 @@ export function evaluatePrepared(
   });
 
   const w = cylinders[bands.weakestAtMin];
-  const gain = sealGainPer10(p, torqueNm);
+  // the band's weakest bore is the one sealGainPer10 would look for (the same first-smallest rule)
+  const gain = sealGainPer10(p, torqueNm, bands.weakestAtMin);
+  const fixed = fixedParts(p);
   const estimate: PlanEstimate = {
     threadForm: p.threadForm,
     thread: p.thread,
@@ -226,35 +269,20 @@ export function evaluatePrepared(
       limitMpa: p.studLimitMpa,
       working,
     },
-    stiffness: {
-      gripMm: p.member.gripMm,
-      studNPerMm: p.stud.stiffnessNPerMm,
-      memberNPerMm: p.member.stiffnessNPerMm,
-      memberWilemanNPerMm: p.wilemanNPerMm,
-      jointConstant: p.C,
-      loadFactor: p.phi,
-      coneLimitMm: p.coneLimitMm,
-      studSpacingAssumed: p.studSpacingAssumed,
-      layers: p.layers.map((l, i) => ({ name: l.name, thicknessMm: l.thicknessMm, complianceMmPerN: p.member.layerCompliance[i] })),
+    stiffness: fixed.stiffness,
+    seal: fixed.seal,
+    firing: {
+      peakPressureMpa: p.peakPressureMpa,
+      estimated: p.peakEstimated,
+      note: words ? peakPressureNote(p.plan.firing, wording) : "",
     },
-    seal: {
-      lineNPerMm: p.lineNPerMm,
-      bodyNPerMm: p.bodyNPerMm,
-      gapMm: p.gapMm,
-      lineLimitN: p.lineLimitN,
-      paths: p.paths.elements.map((e) => e.kind),
-      requirement: p.requirement,
-      deck: p.deck,
-      bodyRequirementN: p.bodyRequirementN,
-    },
-    firing: { peakPressureMpa: p.peakPressureMpa, estimated: p.peakEstimated, note: peakPressureNote(p.plan.firing, wording) },
     studs,
     cylinders,
     weakestCylinder: w.cylinder,
     weakestMargin: w.sealMargin,
     weakestMarginNominal: w.sealMarginNominal,
     verdict,
-    ceiling: torqueCeiling(p, wording),
+    ceiling: torqueCeiling(p, wording, words),
     gain,
     squeeze: headSqueeze(p, torqueNm, gain),
     head: {

@@ -1,6 +1,7 @@
 // Typical figures per gasket family, for a shop that has only the gasket maker's catalogue line.
 // Each is "typical — replace with the gasket maker's figure"; where a figure has a published source
 // it is named, the rest are our assumptions and say so.
+import { ASME_GASKET_FACTORS, HANDBOOK_MATERIALS, MPA_PER_KSI } from "./handbook";
 import type { GASKET_TYPES } from "./schema";
 
 export type GasketFamily = (typeof GASKET_TYPES)[number];
@@ -24,18 +25,21 @@ export interface TypicalGasket {
   notes: string;
 }
 
-const PSI = 0.006894757; // NIST SP 811: 1 psi = 6894.757 Pa
+const PSI = MPA_PER_KSI / 1000; // NIST SP 811: 1 psi = 6894.757 Pa
+const COPPER = HANDBOOK_MATERIALS["c11000-annealed"];
+const COPPER_FLAT = ASME_GASKET_FACTORS["solid flat copper"];
+const SOFT_STEEL_FLAT = ASME_GASKET_FACTORS["solid flat soft steel"];
 
 export const TYPICAL_GASKETS: Record<GasketFamily, TypicalGasket> = {
   "solid-copper": {
     label: "Solid copper with a stainless wire ring",
-    ringModulusMpa: 193_000,
+    ringModulusMpa: HANDBOOK_MATERIALS["stainless-300-wire"].modulusMpa,
     sealLineHardnessMpa: ANNEALED_COPPER_HARDNESS_MPA,
-    sealLineYieldMpa: 70,
-    bodyModulusMpa: 115_000,
+    sealLineYieldMpa: COPPER.yieldMpa,
+    bodyModulusMpa: COPPER.modulusMpa,
     // ASME VIII-1 Table 2-5.1, solid flat copper (a flange stand-in)
-    m: 4.75,
-    yMpa: 13_000 * PSI,
+    m: COPPER_FLAT.m,
+    yMpa: COPPER_FLAT.yPsi * PSI,
     relaxationPercent: 3,
     // with sealant or o-rings at the coolant holes, as is usual under solid copper (common practice)
     bodySealPressureMpa: 5,
@@ -49,8 +53,8 @@ export const TYPICAL_GASKETS: Record<GasketFamily, TypicalGasket> = {
     sealLineYieldMpa: 165,
     bodyModulusMpa: 2_000,
     // ASME VIII-1 Table 2-5.1, solid flat soft steel (a flange stand-in)
-    m: 5.5,
-    yMpa: 18_000 * PSI,
+    m: SOFT_STEEL_FLAT.m,
+    yMpa: SOFT_STEEL_FLAT.yPsi * PSI,
     relaxationPercent: 0,
     bodySealPressureMpa: 5,
     beadLoadNPerMm: 80,
@@ -64,8 +68,8 @@ export const TYPICAL_GASKETS: Record<GasketFamily, TypicalGasket> = {
     sealLineHardnessMpa: 3 * 165,
     sealLineYieldMpa: 165,
     bodyModulusMpa: 2_000,
-    m: 5.5,
-    yMpa: 18_000 * PSI,
+    m: SOFT_STEEL_FLAT.m,
+    yMpa: SOFT_STEEL_FLAT.yPsi * PSI,
     relaxationPercent: 0,
     bodySealPressureMpa: 5,
     notes: "Ring seated in the sleeve top against a cast aluminium head (3 × 165 MPa, ours); body as for MLS (assumption).",
@@ -76,8 +80,8 @@ export const TYPICAL_GASKETS: Record<GasketFamily, TypicalGasket> = {
     sealLineHardnessMpa: 3 * 350,
     sealLineYieldMpa: 350,
     bodyModulusMpa: 1_000,
-    m: 5.5,
-    yMpa: 18_000 * PSI,
+    m: SOFT_STEEL_FLAT.m,
+    yMpa: SOFT_STEEL_FLAT.yPsi * PSI,
     relaxationPercent: 2,
     bodySealPressureMpa: 10,
     notes: "All figures are our assumptions for a steel ring in a soft composite body.",

@@ -21,7 +21,7 @@ export interface LimitCheck {
   /** Ratio below which the check reads as thin (a comfort band above 1). */
   thinBelow: number;
   status: Status;
-  /** The figure in words, for the list of checks. */
+  /** The figure in words, for the list of checks ("" when the evaluation was asked for no words). */
   detail: string;
   cylinder?: number;
   /** False when the plan lacks the figure the check needs; such a check never decides the verdict. */
@@ -166,6 +166,8 @@ export function verdictFor(
   nominalN: number,
   targetMargin: number,
   w: Wording = SI_WORDING,
+  /** False leaves every check's detail "" (the lists read only the verdict: no formatting on their path). */
+  words = true,
 ): { verdict: Verdict; bands: BandSeal; working: WorkingState } {
   const bands = bandSeal(p, nominalN);
   const work = workingState(p, bands.band.maxN);
@@ -179,7 +181,9 @@ export function verdictFor(
     ratio: weak.sealMargin,
     thinBelow: Math.max(1, targetMargin),
     status: status(weak.sealMargin, Math.max(1, targetMargin)),
-    detail: `margin ${weak.sealMargin.toFixed(2)} on cylinder ${bands.weakestAtMin + 1} (${seatingShort ? "seating decides" : "firing decides"})`,
+    detail: words
+      ? `margin ${weak.sealMargin.toFixed(2)} on cylinder ${bands.weakestAtMin + 1} (${seatingShort ? "seating decides" : "firing decides"})`
+      : "",
     cylinder: bands.weakestAtMin + 1,
     checked: true,
   });
@@ -190,7 +194,9 @@ export function verdictFor(
     ratio: body.bodyMargin,
     thinBelow: 1,
     status: status(body.bodyMargin, 1),
-    detail: `body keeps ${w.force(body.fired.bodyN)} of the ${w.force(p.bodyRequirementN)} it needs (${w.stress(p.bodySealPressureMpa)}${p.bodySealAssumed ? ", typical figure" : ""}) on cylinder ${bands.worstBodyAtMin + 1}`,
+    detail: words
+      ? `body keeps ${w.force(body.fired.bodyN)} of the ${w.force(p.bodyRequirementN)} it needs (${w.stress(p.bodySealPressureMpa)}${p.bodySealAssumed ? ", typical figure" : ""}) on cylinder ${bands.worstBodyAtMin + 1}`
+      : "",
     cylinder: bands.worstBodyAtMin + 1,
     checked: true,
   });
@@ -202,7 +208,7 @@ export function verdictFor(
     ratio: 1 / assembly,
     thinBelow: 1 / nu,
     status: status(1 / assembly, 1 / nu),
-    detail: `${pct(assembly)} of yield in equivalent stress (limit ${pct(nu)})`,
+    detail: words ? `${pct(assembly)} of yield in equivalent stress (limit ${pct(nu)})` : "",
     checked: true,
   });
   checks.push({
@@ -211,7 +217,7 @@ export function verdictFor(
     ratio: 1 / work.utilization,
     thinBelow: 1,
     status: status(1 / work.utilization, 1),
-    detail: `${pct(work.utilization)} of yield with heat, the fired share and torsion relief`,
+    detail: words ? `${pct(work.utilization)} of yield with heat, the fired share and torsion relief` : "",
     checked: true,
   });
   const fatigueRatio = work.amplitudeMpa > 0 ? work.enduranceMpa / work.amplitudeMpa : Infinity;
@@ -221,7 +227,7 @@ export function verdictFor(
     ratio: fatigueRatio,
     thinBelow: 1.2,
     status: status(fatigueRatio, 1.2),
-    detail: `stress swing ±${w.stress(work.amplitudeMpa)} against an endurance limit of ${w.stress(work.enduranceMpa)}`,
+    detail: words ? `stress swing ±${w.stress(work.amplitudeMpa)} against an endurance limit of ${w.stress(work.enduranceMpa)}` : "",
     checked: true,
   });
   const bearingMpa = work.studLoadN / p.bearingAreaMm2;
@@ -232,13 +238,15 @@ export function verdictFor(
     ratio: bearingRatio,
     thinBelow: 1,
     status: status(bearingRatio, 1),
-    detail:
-      p.washer.limitedBy === "washer"
+    detail: words
+      ? p.washer.limitedBy === "washer"
         ? `the nut face dents the washer before the head gives: a harder washer raises this limit (${w.stress(bearingMpa)} under the washer on the head)`
-        : `${w.stress(bearingMpa)} under the washer against the head's ${w.stress(p.plan.head.limitingSurfacePressureMpa)}`,
+        : `${w.stress(bearingMpa)} under the washer against the head's ${w.stress(p.plan.head.limitingSurfacePressureMpa)}`
+      : "",
     checked: true,
   });
   if (work.stripCapacityN !== null && work.minEngagementMm !== null) {
+    const minEngagementMm = work.minEngagementMm;
     const r = work.stripCapacityN / work.studLoadN;
     checks.push({
       id: "thread-strip",
@@ -246,7 +254,7 @@ export function verdictFor(
       ratio: r,
       thinBelow: 1,
       status: status(r, 1),
-      detail: `${w.length(f.engagementMm)} engaged; ${w.length(work.minEngagementMm)} would carry the load`,
+      detail: words ? `${w.length(f.engagementMm)} engaged; ${w.length(minEngagementMm)} would carry the load` : "",
       checked: true,
     });
   } else {
@@ -262,12 +270,12 @@ export function verdictFor(
   }
   let crush = 0;
   let crushBore = 0;
-  bands.atMax.forEach((s, b) => {
-    if (s.crushUtilization > crush) {
-      crush = s.crushUtilization;
+  for (let b = 0; b < bands.atMax.length; b++) {
+    if (bands.atMax[b].crushUtilization > crush) {
+      crush = bands.atMax[b].crushUtilization;
       crushBore = b;
     }
-  });
+  }
   const crushChecked = crushApplies(p);
   checks.push({
     id: "crush",
@@ -275,9 +283,11 @@ export function verdictFor(
     ratio: crushChecked ? (crush > 0 ? 1 / crush : Infinity) : Infinity,
     thinBelow: 1,
     status: crushChecked && crush >= 1 ? "short" : "holds",
-    detail: crushChecked
-      ? `${pct(crush)} of what the seal line takes without damage on cylinder ${crushBore + 1}`
-      : "not checked: no damage limit for this seal line",
+    detail: words
+      ? crushChecked
+        ? `${pct(crush)} of what the seal line takes without damage on cylinder ${crushBore + 1}`
+        : "not checked: no damage limit for this seal line"
+      : "",
     cylinder: crushBore + 1,
     checked: crushChecked,
   });

@@ -1,9 +1,9 @@
-// Default stud pattern: which bores each stud serves, and its share of each (DESIGN.md "Studs to bores").
+// Default stud pattern: which bores each stud serves, and its share of each (docs/clamp-model.md §7, studs to bores).
 import type { Stud } from "./schema";
 
 /**
  * Studs along both sides of each bank, evenly spaced from one end of the bank to the other.
- * ours (DESIGN.md): a stud on the line between two bores serves both (½ each); an end stud, or one
+ * ours (docs/clamp-model.md §7): a stud on the line between two bores serves both (½ each); an end stud, or one
  * that falls beside a single bore, serves that bore alone. Cylinders are numbered bank by bank
  * (V: bank A 1…n/2, bank B n/2+1…n).
  * studsPerSide defaults to bores-per-bank + 1 (one between each pair of bores and one at each end).

@@ -1,7 +1,11 @@
 // The plan input: what a builder enters for one seal plan on one engine, SI with units in names.
 // Messages are written for the builder reading them beside the field.
 import { z } from "zod";
-import { shareProblem } from "./stud-shares";
+import { fastenerIssues } from "./fastener-checks";
+import { studPatternIssues } from "./stud-shares";
+import { TIGHTENING_METHODS } from "./torque";
+
+export { TIGHTENING_METHODS };
 
 // z.number() in zod 4 already refuses NaN and ±Infinity; the message covers both.
 const num = (label: string) => z.number({ error: `${label} must be a finite number` });
@@ -12,9 +16,9 @@ const nonNegative = (label: string, max: number) =>
 const between = (label: string, min: number, max: number) =>
   num(label).gte(min, `${label} must be at least ${min}`).lte(max, `${label} must be at most ${max}`);
 
-export const GASKET_TYPES = ["solid-copper", "mls", "mls-with-ring", "fire-ring"] as const;
-export const TIGHTENING_METHODS = ["torque-estimated-friction", "torque-tested-friction", "angle-or-yield", "stretch-measured"] as const;
-export const ROUGHNESS = ["rz-under-10", "rz-10-40", "rz-40-160"] as const;
+// the lists live in a module without zod, so a form can name them without loading the schema
+import { GASKET_TYPES, LAYOUTS, ROUGHNESS } from "./plan-lists";
+export { GASKET_TYPES, LAYOUTS, ROUGHNESS };
 
 export const StudSchema = z.object({
   label: z.string().max(40).optional(),
@@ -56,7 +60,7 @@ export const PlanInputSchema = z
         .int("Cylinder count is a whole number")
         .gte(1, "An engine has at least one cylinder")
         .lte(16, "At most 16 cylinders"),
-      layout: z.enum(["inline", "V"]),
+      layout: z.enum(LAYOUTS),
       boreMm: positive("Bore", 300),
       /** Distance between neighbouring studs along a side (limits the pressure cones). */
       studSpacingMm: positive("Stud spacing", 500).optional(),
@@ -215,15 +219,7 @@ function checkPlan(p: PlanInput, ctx: z.RefinementCtx): void {
     if (count++ < MAX_PLAN_ISSUES) ctx.addIssue({ code: "custom", path, message });
   };
   const f = p.fastener;
-  if (f.pitchMm >= f.diameterMm) issue(["fastener", "pitchMm"], "Thread pitch must be smaller than the diameter");
-  else if (f.pitchMm > f.diameterMm / 4)
-    issue(["fastener", "pitchMm"], `A ${fmt(f.pitchMm)} mm pitch is too coarse for a ${fmt(f.diameterMm)} mm thread`);
-  if (f.reducedShankDiameterMm !== undefined && f.reducedShankDiameterMm >= f.diameterMm)
-    issue(["fastener", "reducedShankDiameterMm"], "Reduced shank must be narrower than the thread");
-  if (f.reducedShankLengthMm > 0 && f.reducedShankDiameterMm === undefined)
-    issue(["fastener", "reducedShankDiameterMm"], "Give the reduced shank diameter, or set its length to zero");
-  if (f.washerHoleMm < f.diameterMm) issue(["fastener", "washerHoleMm"], "Washer hole must be at least the stud diameter");
-  if (f.washerOdMm <= f.washerHoleMm) issue(["fastener", "washerOdMm"], "Washer outer diameter must be larger than its hole");
+  for (const i of fastenerIssues(f)) issue(["fastener", i.field], i.message);
   const grip = gripLengthMm(p);
   if (f.reducedShankLengthMm + f.freeThreadLengthMm > grip)
     issue(
@@ -240,30 +236,8 @@ function checkPlan(p: PlanInput, ctx: z.RefinementCtx): void {
     issue(["engine", "cylinders"], "A V engine needs an even number of cylinders");
   if (p.sleeve.kind !== "none" && p.sleeve.wallMm < g.ringWidthMm)
     issue(["sleeve", "wallMm"], "The sleeve wall must be at least as wide as the ring that sits on it");
-  const served = new Set<number>();
-  p.studs.forEach((stud, i) => {
-    if (!Array.isArray(stud?.serves) || stud.serves.length > 16) return;
-    const name = stud.label ? `stud ${stud.label}` : `stud ${i + 1}`;
-    const seen = new Set<number>();
-    stud.serves.forEach((s, j) => {
-      if (s.cylinder > p.engine.cylinders)
-        issue(
-          ["studs", i, "serves", j, "cylinder"],
-          `${cap(name)} serves cylinder ${s.cylinder}, but the engine has ${p.engine.cylinders} cylinders`,
-        );
-      if (seen.has(s.cylinder)) issue(["studs", i, "serves", j, "cylinder"], `${cap(name)} lists cylinder ${s.cylinder} twice`);
-      seen.add(s.cylinder);
-      served.add(s.cylinder);
-    });
-    const shares = shareProblem(stud, name);
-    if (shares) issue(["studs", i, "serves"], shares);
-  });
-  for (let c = 1; c <= p.engine.cylinders; c++) {
-    if (!served.has(c)) issue(["studs"], `No stud serves cylinder ${c}`);
-  }
+  for (const i of studPatternIssues(p.studs, p.engine.cylinders)) issue(i.path, i.message);
 }
-
-const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 /** Parse raw plan input; on failure, plain messages keyed by field path. */
 export function parsePlan(raw: unknown): { ok: true; plan: PlanInput } | { ok: false; errors: { path: string; message: string }[] } {

@@ -109,7 +109,7 @@ export function gasketBodyStiffness(modulusMpa: number, areaMm2: number, thickne
 }
 
 export function effectiveGapMm(protrusionMm: number, wireProjectionMm: number, receiverDepthMm: number): number {
-  // ours (DESIGN.md): g = sleeve protrusion + wire projection not sunk in a receiver groove
+  // ours (docs/clamp-model.md §6): g = sleeve protrusion + wire projection not sunk in a receiver groove
   return protrusionMm + Math.max(0, wireProjectionMm - receiverDepthMm);
 }
 

@@ -55,7 +55,8 @@ export function equivalentNutFactor(g: TorqueGeometry, f: Friction, diameterMm: 
   return torquePerPreloadMm(g, f) / diameterMm;
 }
 
-export type TighteningMethod = "torque-estimated-friction" | "torque-tested-friction" | "angle-or-yield" | "stretch-measured";
+export const TIGHTENING_METHODS = ["torque-estimated-friction", "torque-tested-friction", "angle-or-yield", "stretch-measured"] as const;
+export type TighteningMethod = (typeof TIGHTENING_METHODS)[number];
 
 /**
  * Tightening factor αA = FMmax/FMmin by method. VDI 2230 via a fastener supplier's table

@@ -1,7 +1,7 @@
 // Tightening is never exact: sample each stud's preload from the method's scatter band (and the
 // friction that goes with it), and see how often the weakest bore falls below a seal margin of 1 or a
 // stud passes its limit.
-import { boreClamps, weakestMargin } from "./cylinders";
+import { scatterBore, scatterSealMargin } from "./scatter-bore";
 import { workingState } from "./limits";
 import { prepare, type Prepared } from "./model";
 import type { PlanInput } from "./schema";
@@ -37,6 +37,28 @@ export function fillNormals(rand: () => number, out: Float64Array): Float64Array
     const r = Math.sqrt(-2 * Math.log(u));
     out[i] = r * Math.cos(theta);
     if (i + 1 < out.length) out[i + 1] = r * Math.sin(theta);
+  }
+  return out;
+}
+
+/**
+ * Fills `out` with standard normal deviates by Marsaglia's polar method (Marsaglia & Bray 1964): a point
+ * (u, v) uniform in the unit disc gives u·√(−2·ln s / s) and v·√(−2·ln s / s), two independent standard
+ * normals, with one logarithm and one square root and no sine or cosine (about 1.27 draws per pair).
+ */
+export function fillNormalsPolar(rand: () => number, out: Float64Array): Float64Array {
+  for (let i = 0; i < out.length; i += 2) {
+    let u = 0;
+    let v = 0;
+    let q = 0;
+    do {
+      u = 2 * rand() - 1;
+      v = 2 * rand() - 1;
+      q = u * u + v * v;
+    } while (q >= 1 || q === 0);
+    const r = Math.sqrt((-2 * Math.log(q)) / q);
+    out[i] = u * r;
+    if (i + 1 < out.length) out[i + 1] = v * r;
   }
   return out;
 }
@@ -85,10 +107,11 @@ export function uncertaintyPrepared(p: Prepared, o: UncertaintyOptions): Uncerta
   // ISO 16047 bracket split into the pitch part and the friction part (which scales with μ)
   const pitchPart = g.pitchMm / (2 * Math.PI);
   const frictionPart = p.torquePerPreloadMm - pitchPart;
-  const studLoads = new Float64Array(p.studCount);
-  const hotLoads = new Float64Array(p.studCount);
   const cold = new Float64Array(p.cylinders);
   const hot = new Float64Array(p.cylinders);
+  const bore = scatterBore(p);
+  const { start, boreOf, shareOf, studCount, cylinders } = p;
+  const embedMinusThermal = p.embeddingLossN - p.thermalChangeN;
   const margins = new Float64Array(n);
   const spread = new Float64Array(n);
   const limitAssembly = p.studLimitMpa;
@@ -113,32 +136,46 @@ export function uncertaintyPrepared(p: Prepared, o: UncertaintyOptions): Uncerta
   const tauPerScale = (torsion * 1.155 * p.friction.thread) / (base + 1.155 * p.friction.thread);
   const tauBase = (torsion * base) / (base + 1.155 * p.friction.thread);
   const axial2 = axial * axial;
+  const limit2 = limitAssembly * limitAssembly;
   const hotFactor = 1 - p.relaxationFraction;
+  const torqueF0 = p.torquePerPreloadMm * F0;
   for (let i = 0; i < n; i++) {
     let studOver = false;
     let maxF = 0;
-    fillNormals(rand, z);
-    for (let s = 0; s < p.studCount; s++) {
-      const F = F0 * (1 + sigma * clamp3(z[s]));
-      // the friction that gives this preload at this torque (torque-controlled), else friction on its own
-      const scale = torqueControlled
-        ? Math.max(0.05, ((p.torquePerPreloadMm * F0) / F - pitchPart) / frictionPart)
-        : 1 + cv * clamp3(z[p.studCount + s]);
-      // VDI 2230: MG ∝ (P/(π·d2) + 1.155·μG); the torsion rescaled from the entered μG (μG = μ·scale)
-      const tau = tauBase + tauPerScale * scale;
-      // VDI 2230 FMzul (von Mises, torsion on π·d0³/12): σred = √(σ² + 3·(¾τ)²) per newton, times this preload
-      const tp = PLASTIC_TORSION_FACTOR * tau;
-      if (Math.sqrt(axial2 + 3 * tp * tp) * F > limitAssembly) studOver = true;
-      studLoads[s] = F;
+    fillNormalsPolar(rand, z);
+    cold.fill(0);
+    hot.fill(0);
+    for (let s = 0; s < studCount; s++) {
+      const zs = z[s];
+      const F = F0 * (1 + sigma * (zs > 3 ? 3 : zs < -3 ? -3 : zs));
+      // once one stud of the sample is over its limit the sample counts: the rest need no stud check
+      if (!studOver) {
+        // the friction that gives this preload at this torque (torque-controlled), else friction on its own
+        const scale = torqueControlled ? Math.max(0.05, (torqueF0 / F - pitchPart) / frictionPart) : 1 + cv * clamp3(z[studCount + s]);
+        // VDI 2230: MG ∝ (P/(π·d2) + 1.155·μG); the torsion rescaled from the entered μG (μG = μ·scale)
+        const tau = tauBase + tauPerScale * scale;
+        // VDI 2230 FMzul (von Mises, torsion on π·d0³/12): σred = √(σ² + 3·(¾τ)²) per newton, times this preload
+        const tp = PLASTIC_TORSION_FACTOR * tau;
+        // σred·F > limit, squared (both sides positive): no square root per stud
+        if ((axial2 + 3 * tp * tp) * F * F > limit2) studOver = true;
+      }
       // as hotSettledPreload: VDI 2230 F_running = F_M − F_Z − relaxation + ΔF_thermal
-      hotLoads[s] = Math.max(0, F * hotFactor - p.embeddingLossN + p.thermalChangeN);
+      const Fh = F * hotFactor - embedMinusThermal;
+      const hotF = Fh > 0 ? Fh : 0;
+      // ours (DESIGN.md "Studs to bores"): each stud's load goes to its bores by share
+      for (let j = start[s]; j < start[s + 1]; j++) {
+        cold[boreOf[j]] += shareOf[j] * F;
+        hot[boreOf[j]] += shareOf[j] * hotF;
+      }
+      if (s === 0) spread[i] = F / F0;
       if (F > maxF) maxF = F;
     }
-    spread[i] = studLoads[0] / F0;
     if (maxF > workingLimitN) studOver = true;
-    boreClamps(p, studLoads, cold);
-    boreClamps(p, hotLoads, hot);
-    const m = weakestMargin(p, cold, hot).margin;
+    let m = Infinity;
+    for (let b = 0; b < cylinders; b++) {
+      const mb = scatterSealMargin(bore, cold[b], hot[b]);
+      if (mb < m) m = mb;
+    }
     margins[i] = m;
     if (m < 1) below++;
     if (studOver) over++;

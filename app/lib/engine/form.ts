@@ -1,4 +1,5 @@
 // The engine form: fields as typed in the person's units ⇄ the SI engine input.
+import { z } from "zod";
 import { defaultStudPattern } from "../clamp/pattern";
 import type { Stud } from "../clamp/schema";
 import { EngineSchema, type EngineInput } from "./schema";
@@ -35,13 +36,6 @@ export interface StudRow {
   label: string;
   cylinders: string;
   shares: string;
-}
-
-/** What the form shows: every field as a string, plus the stud rows. */
-export interface EngineFormValues {
-  fields: Record<string, string>;
-  studs: StudRow[];
-  studsPerSide: string;
 }
 
 /** A typed number: blank → undefined, anything unreadable → NaN (the schema words both). Decimal commas are read. */
@@ -95,7 +89,7 @@ export function formatShare(share: number): string {
 }
 
 /** The posted form (name → value) → the raw engine input in SI, ready for EngineSchema. */
-export function formToRaw(form: Record<string, string>, studs: StudRow[], units: UnitSystem): Record<string, unknown> {
+export function formToRaw(form: Record<string, string | undefined>, studs: StudRow[], units: UnitSystem): Record<string, unknown> {
   const raw: Record<string, unknown> = {};
   for (const f of TEXT_FIELDS) raw[f] = form[f] ?? "";
   for (const f of ID_FIELDS) raw[f] = readNumber(form[f]);
@@ -112,44 +106,17 @@ export function formToRaw(form: Record<string, string>, studs: StudRow[], units:
   return raw;
 }
 
-export type ParsedEngine = { ok: true; engine: EngineInput } | { ok: false; errors: Record<string, string> };
-
-/** Parse the posted engine form; on failure, the first message per field path ("studs.3.serves"). */
-function parseEngineForm(form: Record<string, string>, studs: StudRow[], units: UnitSystem): ParsedEngine {
-  const r = EngineSchema.safeParse(formToRaw(form, studs, units));
-  if (r.success) return { ok: true, engine: r.data };
-  const errors: Record<string, string> = {};
-  for (const issue of r.error.issues) errors[issue.path.map(String).join(".")] ??= issue.message;
-  return { ok: false, errors };
-}
-
-/** Stud rows out of posted fields named stud-<i>-label / -cylinders / -shares. */
-function studRowsFromForm(form: Record<string, string>): StudRow[] {
-  const rows: StudRow[] = [];
-  for (let i = 0; i < 200; i++) {
-    const label = form[`stud-${i}-label`];
-    const cylinders = form[`stud-${i}-cylinders`];
-    const shares = form[`stud-${i}-shares`];
-    if (label === undefined && cylinders === undefined && shares === undefined) {
-      // rows are numbered without gaps by the form; stop at the first missing one
-      break;
-    }
-    rows.push({ label: label ?? "", cylinders: cylinders ?? "", shares: shares ?? "" });
-  }
-  return rows;
-}
-
 /** An engine as stored (SI) → what the form shows in the person's units. */
 export function engineToForm(engine: object & { studs: Stud[] }, units: UnitSystem): EngineFormValues {
   const e = engine as Record<string, unknown> & { studs: Stud[] };
-  const fields: Record<string, string> = {};
+  const fields: Record<EngineFormField, string> = {} as Record<EngineFormField, string>;
   for (const f of TEXT_FIELDS) fields[f] = String(e[f] ?? "");
   for (const f of ID_FIELDS) fields[f] = e[f] === undefined || e[f] === null ? "" : String(e[f]);
   for (const [f, q] of Object.entries(NUMBER_FIELDS) as [NumberField, Quantity | null][]) {
     const v = e[f];
     fields[f] = typeof v !== "number" ? "" : q === null ? String(v) : inputValue(v, q, units);
   }
-  return { fields, studs: e.studs.map(studToRow), studsPerSide: "" };
+  return { ...fields, studs: e.studs.map(studToRow), studsPerSide: "" };
 }
 
 /** "10 studs: 6 shared by two bores, 4 serving one bore". */
@@ -164,35 +131,54 @@ export function patternSummary(studs: Stud[]): string {
 
 // ─── One post of the engine form ──────────────────────────────────────────────────────────
 
-/**
- * What a post of the engine form asks for. Besides saving, the stud editor's buttons post the form
- * back (so it works without JavaScript): "pattern" regenerates the studs from the layout,
- * "add-stud" appends a blank row, "remove-stud:<i>" drops one.
- */
-export type EngineFormStep =
-  | { step: "render"; values: EngineFormValues; errors: Record<string, string> }
-  | { step: "save"; engine: EngineInput; values: EngineFormValues }
-  | { step: "invalid"; values: EngineFormValues; errors: Record<string, string> };
+// Every field as typed: Conform reads a blank field as missing, so each may be absent.
+const typed = z.string().optional();
+/** The form's text, number and choice fields (each posted under its own name). */
+export const ENGINE_FORM_FIELDS = [...TEXT_FIELDS, ...ID_FIELDS, ...(Object.keys(NUMBER_FIELDS) as NumberField[])] as const;
+type EngineFormField = (typeof ENGINE_FORM_FIELDS)[number];
 
-export function engineFormStep(form: Record<string, string>, units: UnitSystem): EngineFormStep {
-  const intent = form.intent ?? "save";
-  const values: EngineFormValues = { fields: {}, studs: studRowsFromForm(form), studsPerSide: form.studsPerSide ?? "" };
-  for (const [k, v] of Object.entries(form)) if (!k.startsWith("stud-") && k !== "intent") values.fields[k] = v;
-  if (intent === "pattern") {
-    const r = generateStudRows(values.fields.layout, values.fields.cylinders, values.studsPerSide);
-    if ("error" in r) return { step: "render", values, errors: { studsPerSide: r.error } };
-    return { step: "render", values: { ...values, studs: r.rows }, errors: {} };
-  }
-  if (intent === "add-stud")
-    return { step: "render", values: { ...values, studs: [...values.studs, { label: "", cylinders: "", shares: "" }] }, errors: {} };
-  if (intent.startsWith("remove-stud:")) {
-    const i = Number(intent.slice("remove-stud:".length));
-    return { step: "render", values: { ...values, studs: values.studs.filter((_, j) => j !== i) }, errors: {} };
-  }
-  const parsed = parseEngineForm(values.fields, values.studs, units);
-  if (!parsed.ok) return { step: "invalid", values, errors: parsed.errors };
-  return { step: "save", engine: parsed.engine, values };
+/** What the form posts: the fields as typed, studsPerSide and the stud rows (Conform's list `studs[i].label` …). */
+export const EngineFormFields = z.object({
+  ...(Object.fromEntries(ENGINE_FORM_FIELDS.map((f) => [f, typed])) as Record<EngineFormField, typeof typed>),
+  studsPerSide: typed,
+  // a row may be missing from a hand-made post (studs[0], studs[5]): a hole reads as a blank row
+  studs: z.array(z.object({ label: typed, cylinders: typed, shares: typed }).optional()).optional(),
+});
+/** What the form shows and posts: every field as a string, plus the stud rows. */
+export type EngineFormValues = z.input<typeof EngineFormFields>;
+
+/**
+ * The engine form's schema for Conform: the fields as typed in the person's units → the SI engine
+ * input (EngineSchema). A message about a stud names the row as the form numbers it (`studs[3]`),
+ * blank rows counted, so it lands beside the row the builder sees.
+ */
+export function engineFormSchema(units: UnitSystem) {
+  return EngineFormFields.transform((form, ctx): EngineInput => {
+    const rows = (form.studs ?? []).map((r) => ({ label: r?.label ?? "", cylinders: r?.cylinders ?? "", shares: r?.shares ?? "" }));
+    // the stud at position k of the input is the k-th row that was not blank
+    const rowOf = rows.flatMap((r, i) => (readStudRow(r) ? [i] : []));
+    const fields: Record<string, string> = {};
+    for (const f of ENGINE_FORM_FIELDS) fields[f] = form[f] ?? "";
+    const r = EngineSchema.safeParse(formToRaw(fields, rows, units));
+    if (r.success) return r.data;
+    for (const issue of r.error.issues) {
+      const [head, k] = issue.path;
+      const path = head === "studs" && typeof k === "number" ? ["studs", rowOf[k] ?? k] : head === undefined ? [] : [String(head)];
+      ctx.addIssue({ code: "custom", path, message: issue.message });
+    }
+    return z.NEVER;
+  });
 }
+
+/**
+ * The engine form's own buttons, besides Conform's list intents (add and remove a stud): "save",
+ * "pattern" (the default studs from the layout, answered by the server so it works without JavaScript)
+ * and, on edit, "archive". No button: save (Enter in a field).
+ */
+export const ENGINE_FORM_INTENTS = ["save", "pattern", "archive"] as const;
+
+/** A blank stud row, as "Add a stud" inserts it. */
+export const BLANK_STUD_ROW: StudRow = { label: "", cylinders: "", shares: "" };
 
 /** The default stud pattern as editor rows, or a message saying why it cannot be made. */
 export function generateStudRows(
@@ -217,22 +203,20 @@ export function generateStudRows(
 /** Blank form for a new engine: an inline four with its default studs. */
 export function blankEngineForm(units: UnitSystem): EngineFormValues {
   return {
-    fields: {
-      name: "",
-      customer: "",
-      cylinders: "4",
-      layout: "inline",
-      sleeveKind: "none",
-      peakPressureSource: "estimated",
-      status: "quoted",
-      sleeveProtrusionMm: "0",
-      blockDepthToThreadMm: "0",
-      deckClearanceMm: "0",
-      pistonVolumeCc: "0",
-      pressureRiseFactor: "3",
-      runningHeadC: inputValue(110, "temperature", units),
-      runningBlockC: inputValue(95, "temperature", units),
-    },
+    name: "",
+    customer: "",
+    cylinders: "4",
+    layout: "inline",
+    sleeveKind: "none",
+    peakPressureSource: "estimated",
+    status: "quoted",
+    sleeveProtrusionMm: "0",
+    blockDepthToThreadMm: "0",
+    deckClearanceMm: "0",
+    pistonVolumeCc: "0",
+    pressureRiseFactor: "3",
+    runningHeadC: inputValue(110, "temperature", units),
+    runningBlockC: inputValue(95, "temperature", units),
     studs: defaultStudPattern("inline", 4).map(studToRow),
     studsPerSide: "",
   };

@@ -1,16 +1,16 @@
 // The engine record as a builder enters it, SI with units in names (mm, kPa, MPa, °C, cc).
 // Messages are written for the builder reading them beside the field.
 import { z } from "zod";
-import { StudSchema, type Stud } from "../clamp/schema";
-import { shareProblem } from "../clamp/stud-shares";
+import { LAYOUTS, StudSchema, type Stud } from "../clamp/schema";
+import { studPatternIssues } from "../clamp/stud-shares";
 
-export { SHARE_TOLERANCE, shareSum } from "../clamp/stud-shares";
+export { SHARE_TOLERANCE, shareSum, sharesAddUp } from "../clamp/stud-shares";
 
 import { ENGINE_STATUSES, type EngineStatus } from "./status";
 export { ENGINE_STATUSES, type EngineStatus };
 export const SLEEVE_KINDS = ["none", "dry", "wet-flange", "wet-mid"] as const;
 export type SleeveKind = (typeof SLEEVE_KINDS)[number];
-export const LAYOUTS = ["inline", "V"] as const;
+export { LAYOUTS };
 export const PEAK_SOURCES = ["measured", "estimated"] as const;
 
 /** Largest cylinder count and stud count a record may have. */
@@ -74,10 +74,8 @@ export const EngineSchema = z
   .superRefine((e, ctx) => checkEngine(e, ctx), { when: () => true });
 
 export type EngineInput = z.infer<typeof EngineSchema>;
-export type EngineInputRaw = z.input<typeof EngineSchema>;
 
 const fmt = (x: number) => String(Math.round(x * 1000) / 1000);
-const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 const isNum = (v: unknown): v is number => typeof v === "number" && Number.isFinite(v);
 /** A cylinder count that passed its own check (whole, 1 to CYLINDERS_MAX). */
@@ -116,39 +114,11 @@ function checkEngine(e: EngineInput, ctx: z.RefinementCtx): void {
 }
 
 /**
- * The share rule for a stud pattern, the same as the clamp model's plan input applies:
- * each stud's shares add up to 1 ± SHARE_TOLERANCE, its cylinders exist and are listed once,
- * and every cylinder is served by some stud.
+ * The stud pattern rule (`studPatternIssues` in app/lib/clamp/stud-shares.ts, the one the clamp model's
+ * plan input applies), capped at CROSS_FIELD_ISSUES_MAX messages.
  */
 export function studShareIssues(studs: Stud[], cylinders: number): { path: (string | number)[]; message: string }[] {
-  const out: { path: (string | number)[]; message: string }[] = [];
   // Only a count that passed its own check is looped over; the caller words a bad count.
-  if (!isCylinderCount(cylinders)) return out;
-  const served = new Set<number>();
-  studs.forEach((stud, i) => {
-    const name = studName(stud, i);
-    const seen = new Set<number>();
-    stud.serves.forEach((s, j) => {
-      if (s.cylinder > cylinders)
-        out.push({
-          path: ["studs", i, "serves", j, "cylinder"],
-          message: `${cap(name)} serves cylinder ${s.cylinder}, but the engine has ${cylinders} cylinders`,
-        });
-      if (seen.has(s.cylinder))
-        out.push({ path: ["studs", i, "serves", j, "cylinder"], message: `${cap(name)} lists cylinder ${s.cylinder} twice` });
-      seen.add(s.cylinder);
-      served.add(s.cylinder);
-    });
-    const shares = shareProblem(stud, name);
-    if (shares) out.push({ path: ["studs", i, "serves"], message: shares });
-  });
-  const missing: number[] = [];
-  for (let c = 1; c <= cylinders; c++) if (!served.has(c)) missing.push(c);
-  if (missing.length > 0)
-    out.push({ path: ["studs"], message: `No stud serves cylinder${missing.length > 1 ? "s" : ""} ${missing.join(", ")}` });
-  return out.slice(0, CROSS_FIELD_ISSUES_MAX);
-}
-
-function studName(stud: Stud, index: number): string {
-  return stud.label ? `stud ${stud.label}` : `stud ${index + 1}`;
+  if (!isCylinderCount(cylinders)) return [];
+  return studPatternIssues(studs, cylinders).slice(0, CROSS_FIELD_ISSUES_MAX);
 }

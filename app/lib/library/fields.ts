@@ -1,9 +1,10 @@
 // The library forms: which fields each kind has, in what units they are typed, and how a posted
 // form turns into an SI record (or field errors). Pure: used by the route action and the form.
-import type { z } from "zod";
+import { z } from "zod";
+import { TYPICAL_GASKETS } from "../clamp/gasket-families";
 import { parseQuantity, toDisplay, unitFor, type Quantity, type UnitSystem } from "../units";
 import { decimalPoint } from "../units/decimal-comma";
-import { FastenerSchema, GasketSchema, MaterialSchema, type LibraryKind } from "./schemas";
+import { FastenerSchema, GasketSchema, LIBRARY_GASKET_TYPES, MaterialSchema, type LibraryKind } from "./schemas";
 
 export interface NumberField {
   name: string;
@@ -266,4 +267,46 @@ export function formValues(kind: LibraryKind, record: Record<string, unknown>, u
     out[field.name] = String(Number(shown.toPrecision(6)));
   }
   return out;
+}
+
+/** Every field the library form posts for a kind. */
+function libraryFieldNames(kind: LibraryKind): string[] {
+  return [...TEXT_FIELDS[kind], ...(kind === "fasteners" ? ["materialId"] : []), ...NUMBER_FIELDS[kind].map((f) => f.name)];
+}
+
+/**
+ * The library form's schema for Conform: the fields as typed in the person's units (blank reads as
+ * missing) → the SI row, each message filed under its field (parseLibraryForm's words).
+ */
+export function libraryFormSchema<K extends LibraryKind>(kind: K, units: UnitSystem) {
+  const typed = z.string().optional();
+  return z.object(Object.fromEntries(libraryFieldNames(kind).map((name) => [name, typed]))).transform((form, ctx) => {
+    const fields = Object.fromEntries(Object.entries(form).map(([name, v]) => [name, v ?? ""]));
+    const parsed = parseLibraryForm(kind, fields, units);
+    if (parsed.ok) return parsed.value;
+    for (const [name, message] of Object.entries(parsed.errors)) ctx.addIssue({ code: "custom", path: name.split("."), message });
+    return z.NEVER;
+  });
+}
+
+/** A gasket family the new-gasket page may start from (?type=), or null. */
+export function typicalGasketType(type: string | null): (typeof LIBRARY_GASKET_TYPES)[number] | null {
+  return (LIBRARY_GASKET_TYPES as readonly string[]).includes(type ?? "") ? (type as (typeof LIBRARY_GASKET_TYPES)[number]) : null;
+}
+
+/**
+ * A new row's starting figures: a fastener's usual 0.12 frictions (common practice for oiled steel
+ * threads) and no reduced shank or washer; a gasket of a named family starts from that family's
+ * typical figures, to be replaced with the gasket maker's (the form says so).
+ */
+export function libraryDefaults(kind: LibraryKind, type: string | null, units: UnitSystem): Record<string, string> {
+  if (kind === "fasteners")
+    return { threadSystem: "unified", reducedShankLengthMm: "0", washerThicknessMm: "0", threadFriction: "0.12", bearingFriction: "0.12" };
+  if (kind === "gaskets") {
+    const family = typicalGasketType(type);
+    if (!family) return { type: "mls", relaxationPercent: "0" };
+    const { label: _label, notes: _notes, ...figures } = TYPICAL_GASKETS[family];
+    return { ...formValues("gaskets", { ...figures, type: family }, units), name: "" };
+  }
+  return { kind: "aluminium" };
 }

@@ -1,5 +1,6 @@
 // The shop's library records, SI as stored, with messages written for the builder beside the field.
 import { z } from "zod";
+import { fastenerIssues } from "../clamp/fastener-checks";
 import { GASKET_TYPES } from "../clamp/schema";
 
 export const MATERIAL_KINDS = ["aluminium", "iron", "steel", "stainless", "copper", "other"] as const;
@@ -78,7 +79,7 @@ export const FastenerSchema = z
   })
   .superRefine(
     (f, ctx) => {
-      for (const issue of fastenerConsistency(f)) ctx.addIssue({ code: "custom", path: [issue.field], message: issue.message });
+      for (const issue of fastenerIssues(f)) ctx.addIssue({ code: "custom", path: [issue.field], message: issue.message });
     },
     { when: fieldsPassed(["diameterMm", "pitchMm", "reducedShankDiameterMm", "reducedShankLengthMm", "washerOdMm", "washerHoleMm"]) },
   );
@@ -118,34 +119,9 @@ export const GasketSchema = z
   );
 export type GasketInput = z.infer<typeof GasketSchema>;
 
-const round3 = (x: number) => String(Math.round(x * 1000) / 1000);
-
 export interface ConsistencyIssue {
   field: string;
   message: string;
-}
-
-/** Checks across fastener fields: a thread, shank and washer that can exist. */
-function fastenerConsistency(f: {
-  diameterMm: number;
-  pitchMm: number;
-  reducedShankDiameterMm: number | null;
-  reducedShankLengthMm: number;
-  washerOdMm: number;
-  washerHoleMm: number;
-}): ConsistencyIssue[] {
-  const out: ConsistencyIssue[] = [];
-  if (f.pitchMm >= f.diameterMm) out.push({ field: "pitchMm", message: "Thread pitch must be smaller than the diameter" });
-  // the clamp model refuses pitches coarser than d/4 (app/lib/clamp/schema.ts); say so here first
-  else if (f.pitchMm > f.diameterMm / 4)
-    out.push({ field: "pitchMm", message: `A ${round3(f.pitchMm)} mm pitch is too coarse for a ${round3(f.diameterMm)} mm thread` });
-  if (f.reducedShankDiameterMm !== null && f.reducedShankDiameterMm >= f.diameterMm)
-    out.push({ field: "reducedShankDiameterMm", message: "Reduced shank must be narrower than the thread" });
-  if (f.reducedShankLengthMm > 0 && f.reducedShankDiameterMm === null)
-    out.push({ field: "reducedShankDiameterMm", message: "Give the reduced shank diameter, or set its length to zero" });
-  if (f.washerHoleMm < f.diameterMm) out.push({ field: "washerHoleMm", message: "Washer hole must be at least the stud diameter" });
-  if (f.washerOdMm <= f.washerHoleMm) out.push({ field: "washerOdMm", message: "Washer outer diameter must be larger than its hole" });
-  return out;
 }
 
 /** Checks across gasket fields: the seal band outside the gasket bore, a finish window that is a window. */

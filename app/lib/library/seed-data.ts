@@ -1,105 +1,20 @@
-// The handbook library every shop starts with: materials from docs/references.md §7 (each row
-// names its source), and a few demo fasteners and gaskets whose maker figures are invented.
-// Pure data (app/lib): seeded by app/models/library-seed.server.ts; each invented figure says so.
+// The handbook library every shop starts with: the materials of app/lib/clamp/handbook.ts
+// (docs/references.md §7, each row names its source), and a few demo fasteners and gaskets whose maker
+// figures are invented. Pure data (app/lib): seeded by app/models/library-seed.server.ts; each invented
+// figure says so. Imported by the seed files with a relative path: no "~" alias here.
+import { ASME_GASKET_FACTORS, HANDBOOK_MATERIALS, MPA_PER_KSI } from "../clamp/handbook.ts";
 
-const LIMIT = "limiting surface pressure from VDI 2230 (2003) as quoted by a fastener catalogue";
-const STUD_MEMORY = "modulus 205 GPa and expansion 12 µm/m·°C from memory";
-
-export const HANDBOOK_MATERIALS = [
-  {
-    name: "A356.0-T6 cast aluminium",
-    kind: "aluminium",
-    modulus_mpa: 72_400,
-    yield_mpa: 165,
-    expansion_um_per_m_c: 21.4,
-    limiting_surface_pressure_mpa: 380,
-    source: `Aluminum Association data via MatWeb, sand-cast minimum yield; ${LIMIT}: cast AlSi7Mg heat-treated, the closest listed alloy`,
-  },
-  {
-    name: "6061-T6 wrought aluminium",
-    kind: "aluminium",
-    modulus_mpa: 68_900,
-    yield_mpa: 276,
-    expansion_um_per_m_c: 23.6,
-    limiting_surface_pressure_mpa: 260,
-    source: `MatWeb; ${LIMIT}: AlMgSi1, the closest listed alloy`,
-  },
-  {
-    name: "7075-T6 wrought aluminium",
-    kind: "aluminium",
-    modulus_mpa: 71_700,
-    yield_mpa: 503,
-    expansion_um_per_m_c: 23.4,
-    limiting_surface_pressure_mpa: null,
-    source: "MatWeb; no close alloy in the VDI 2230 list, so no limiting surface pressure is given",
-  },
-  {
-    name: "Gray cast iron, class 30–40",
-    kind: "iron",
-    modulus_mpa: 100_000,
-    yield_mpa: null,
-    expansion_um_per_m_c: 10.8,
-    limiting_surface_pressure_mpa: 900,
-    // Shigley table A-24 (from memory): class 30 gray iron, torsional shear strength 40 kpsi = 276 MPa
-    shear_strength_mpa: 276,
-    source: `ASTM A48; Shigley table A-5, no yield point (UTS ≥ 207–276 MPa); shear strength 40 kpsi for class 30, Shigley table A-24 (from memory); ${LIMIT}: GJL-250, the closest listed grade`,
-  },
-  {
-    name: "Ductile iron 65-45-12",
-    kind: "iron",
-    modulus_mpa: 169_000,
-    yield_mpa: 310,
-    expansion_um_per_m_c: 11.5,
-    limiting_surface_pressure_mpa: 900,
-    source: `ASTM A536; ${LIMIT}: GJS-500, the closest listed grade`,
-  },
-  {
-    name: "4340 steel, quenched and tempered",
-    kind: "steel",
-    modulus_mpa: 205_000,
-    yield_mpa: 1379,
-    expansion_um_per_m_c: 12.3,
-    limiting_surface_pressure_mpa: null,
-    source: "MatWeb, tempered at 425 °C; no steel in the VDI 2230 list quoted there",
-  },
-  {
-    name: "300-series stainless wire, annealed",
-    kind: "stainless",
-    modulus_mpa: 193_000,
-    yield_mpa: 207,
-    expansion_um_per_m_c: 17.3,
-    limiting_surface_pressure_mpa: null,
-    source: "MatWeb, annealed",
-  },
-  {
-    name: "C11000 copper, annealed",
-    kind: "copper",
-    modulus_mpa: 115_000,
-    yield_mpa: 70,
-    expansion_um_per_m_c: 17.0,
-    limiting_surface_pressure_mpa: null,
-    source: "Copper producer data sheet, annealed; yield about 70 MPa",
-  },
-  {
-    name: "Alloy steel stud, ISO 898-1 class 12.9",
-    kind: "steel",
-    modulus_mpa: 205_000,
-    yield_mpa: 970,
-    expansion_um_per_m_c: 12,
-    limiting_surface_pressure_mpa: null,
-    source: `ISO 898-1: proof stress 970 MPa, used here as the yield (conservative); ${STUD_MEMORY}`,
-  },
-  {
-    name: "Alloy steel stud, SAE J429 grade 8",
-    kind: "steel",
-    // 130 ksi × 6.894757 MPa/ksi (NIST SP 811)
-    modulus_mpa: 205_000,
-    yield_mpa: 896.3,
-    expansion_um_per_m_c: 12,
-    limiting_surface_pressure_mpa: null,
-    source: `SAE J429 grade 8: yield 130 ksi (896 MPa), proof 120 ksi; ${STUD_MEMORY}`,
-  },
-] as const;
+/** The materials' library rows, one per handbook entry, in the handbook's order. */
+export const HANDBOOK_MATERIAL_ROWS = Object.values(HANDBOOK_MATERIALS).map((m) => ({
+  name: m.name,
+  kind: m.kind,
+  modulus_mpa: m.modulusMpa,
+  yield_mpa: m.yieldMpa,
+  expansion_um_per_m_c: m.expansionUmPerMC,
+  limiting_surface_pressure_mpa: m.limitingSurfacePressureMpa,
+  ...("shearStrengthMpa" in m ? { shear_strength_mpa: m.shearStrengthMpa } : {}),
+  source: m.source,
+}));
 
 const IN = 25.4;
 const LBF_FT = 1.3558179;
@@ -109,7 +24,7 @@ const DEMO = "demo data (invented)";
 export const DEMO_FASTENERS = [
   {
     name: "½-20 alloy steel head stud, full shank",
-    material: "Alloy steel stud, SAE J429 grade 8",
+    material: HANDBOOK_MATERIALS["stud-sae-grade-8"].name,
     thread_system: "unified",
     diameter_mm: 0.5 * IN,
     pitch_mm: IN / 20,
@@ -131,7 +46,7 @@ export const DEMO_FASTENERS = [
   },
   {
     name: "½-20 chromoly head stud, reduced shank",
-    material: "4340 steel, quenched and tempered",
+    material: HANDBOOK_MATERIALS["4340-qt"].name,
     thread_system: "unified",
     diameter_mm: 0.5 * IN,
     pitch_mm: IN / 20,
@@ -154,7 +69,7 @@ export const DEMO_FASTENERS = [
   },
   {
     name: "½-20 chromoly head stud, reduced shank, long thread for inserts",
-    material: "4340 steel, quenched and tempered",
+    material: HANDBOOK_MATERIALS["4340-qt"].name,
     thread_system: "unified",
     diameter_mm: 0.5 * IN,
     pitch_mm: IN / 20,
@@ -177,7 +92,7 @@ export const DEMO_FASTENERS = [
   },
   {
     name: "9/16-18 chromoly head stud, full shank",
-    material: "4340 steel, quenched and tempered",
+    material: HANDBOOK_MATERIALS["4340-qt"].name,
     thread_system: "unified",
     diameter_mm: 0.5625 * IN,
     pitch_mm: IN / 18,
@@ -201,7 +116,7 @@ export const DEMO_FASTENERS = [
   },
   {
     name: "7/16-20 chromoly head stud, full shank",
-    material: "4340 steel, quenched and tempered",
+    material: HANDBOOK_MATERIALS["4340-qt"].name,
     thread_system: "unified",
     diameter_mm: 0.4375 * IN,
     pitch_mm: IN / 20,
@@ -222,7 +137,7 @@ export const DEMO_FASTENERS = [
   },
   {
     name: "M12×1.5 head stud, reduced shank",
-    material: "Alloy steel stud, ISO 898-1 class 12.9",
+    material: HANDBOOK_MATERIALS["stud-iso-12.9"].name,
     thread_system: "metric",
     diameter_mm: 12,
     pitch_mm: 1.5,
@@ -243,7 +158,6 @@ export const DEMO_FASTENERS = [
   },
 ] as const;
 
-const KSI = 6.894757; // MPa per ksi (NIST SP 811)
 const ASME = "m, y: ASME VIII-1 App. 2 Table 2-5.1, flange design values used as a conservative criterion";
 
 export const DEMO_GASKETS = [
@@ -260,8 +174,8 @@ export const DEMO_GASKETS = [
     body_modulus_mpa: 115_000,
     body_area_per_bore_mm2: 3_500,
     expansion_um_per_m_c: 17.0,
-    m: 4.75,
-    y_mpa: 13 * KSI,
+    m: ASME_GASKET_FACTORS["solid flat copper"].m,
+    y_mpa: (ASME_GASKET_FACTORS["solid flat copper"].yPsi / 1000) * MPA_PER_KSI,
     relaxation_percent: 5,
     finish_min_ra_um: 0.8,
     finish_max_ra_um: 3.2,
@@ -279,8 +193,8 @@ export const DEMO_GASKETS = [
     body_modulus_mpa: 115_000,
     body_area_per_bore_mm2: 3_500,
     expansion_um_per_m_c: 17.0,
-    m: 4.75,
-    y_mpa: 13 * KSI,
+    m: ASME_GASKET_FACTORS["solid flat copper"].m,
+    y_mpa: (ASME_GASKET_FACTORS["solid flat copper"].yPsi / 1000) * MPA_PER_KSI,
     relaxation_percent: 5,
     finish_min_ra_um: 0.8,
     finish_max_ra_um: 3.2,
@@ -298,8 +212,8 @@ export const DEMO_GASKETS = [
     body_modulus_mpa: 2_000,
     body_area_per_bore_mm2: 3_800,
     expansion_um_per_m_c: 17.3,
-    m: 3.0,
-    y_mpa: 10 * KSI,
+    m: ASME_GASKET_FACTORS["spiral-wound stainless"].m,
+    y_mpa: (ASME_GASKET_FACTORS["spiral-wound stainless"].yPsi / 1000) * MPA_PER_KSI,
     relaxation_percent: 1,
     finish_min_ra_um: 0.5,
     finish_max_ra_um: 1.3,
@@ -320,8 +234,8 @@ export const DEMO_GASKETS = [
     body_modulus_mpa: 5_000,
     body_area_per_bore_mm2: 5_000,
     expansion_um_per_m_c: 17.3,
-    m: 3.0,
-    y_mpa: 10 * KSI,
+    m: ASME_GASKET_FACTORS["spiral-wound stainless"].m,
+    y_mpa: (ASME_GASKET_FACTORS["spiral-wound stainless"].yPsi / 1000) * MPA_PER_KSI,
     relaxation_percent: 1,
     finish_min_ra_um: 0.5,
     finish_max_ra_um: 1.3,
@@ -339,8 +253,8 @@ export const DEMO_GASKETS = [
     body_modulus_mpa: 3_000,
     body_area_per_bore_mm2: 5_000,
     expansion_um_per_m_c: 12,
-    m: 5.5,
-    y_mpa: 18 * KSI,
+    m: ASME_GASKET_FACTORS["ring joint, soft steel"].m,
+    y_mpa: (ASME_GASKET_FACTORS["ring joint, soft steel"].yPsi / 1000) * MPA_PER_KSI,
     relaxation_percent: 2,
     finish_min_ra_um: 0.8,
     finish_max_ra_um: 2.0,

@@ -1,10 +1,10 @@
 // The seal-plan form: what the builder types (in their display units) ⇄ the SI plan the database keeps.
 // Shared by the editor's action (server) and its live estimate (browser).
 import { z } from "zod";
-import { TIGHTENING_METHODS } from "../clamp/schema";
+import { TIGHTENING_METHODS } from "../clamp/plan-lists";
 import { formatQuantity, parseQuantity, toDisplay, unitFor, type DisplayUnit, type Quantity, type UnitSystem } from "../units";
 import { decimalPoint, splitList } from "../units/decimal-comma";
-import { figuresFingerprint } from "./fastener-figures";
+import { figuresFingerprint, makerPlanFigures, type MakerFigures } from "./fastener-figures";
 
 export const WIRE_LOCATIONS = ["none", "head", "block"] as const;
 
@@ -228,3 +228,50 @@ export const CopyPlanSchema = z.object({
     .int("Pick the engine to copy the plan to.")
     .positive("Pick the engine to copy the plan to."),
 });
+
+/**
+ * A new plan when the engine has none to start from: the fastener maker's figures (or wrench-set
+ * defaults), a torque wrench, a target margin of 1.5 and, on a solid copper gasket, a wire ring in the
+ * block standing 0.1 mm proud (common practice for a receiver-groove copper seal).
+ */
+export function startingPlan(
+  fastener: MakerFigures | undefined,
+  gasket: { id: number; type: string } | undefined,
+  units: UnitSystem,
+): PlanWrite {
+  const copper = gasket?.type === "solid-copper";
+  return {
+    name: "",
+    gasketId: gasket?.id ?? 0,
+    ...makerPlanFigures(fastener, units),
+    method: "torque-estimated-friction",
+    wireLocation: copper ? "block" : "none",
+    wireProjectionMm: copper ? 0.1 : 0,
+    receiverGrooveDepthMm: 0,
+    sleeveProtrusionMm: null,
+    targetStretchMm: null,
+    targetMargin: 1.5,
+    notes: "",
+  };
+}
+
+/** The accepted SI range of a torque and a sleeve protrusion (as the plan form's fields check them). */
+const TORQUE_RANGE = QUANTITIES.find((q) => q.name === "torque")!;
+const PROTRUSION_RANGE = QUANTITIES.find((q) => q.name === "sleeveProtrusion")!;
+
+/**
+ * The figures a suggestion's Apply button posts (torqueNm, protrusionMm, SI): read and range-checked
+ * like the plan form's fields. A blank protrusion keeps `currentProtrusionMm`.
+ */
+export function readSuggestedFigures(
+  form: { torqueNm?: unknown; protrusionMm?: unknown },
+  currentProtrusionMm: number | null,
+): { ok: true; torqueNm: number; protrusionMm: number | null } | { ok: false; message: string } {
+  const torqueNm = Number(form.torqueNm);
+  const blank = form.protrusionMm === undefined || form.protrusionMm === "";
+  const protrusionMm = blank ? currentProtrusionMm : Number(form.protrusionMm);
+  const inRange = (v: number, f: QuantityField) => v >= f.min && v <= f.max;
+  if (!(inRange(torqueNm, TORQUE_RANGE) && torqueNm > 0) || (protrusionMm !== null && !inRange(protrusionMm, PROTRUSION_RANGE)))
+    return { ok: false, message: "The suggested figures are out of range." };
+  return { ok: true, torqueNm, protrusionMm };
+}

@@ -10,3 +10,11 @@ const RANK: Record<Role, number> = { viewer: 0, builder: 1, owner: 2 };
 export function roleAtLeast(role: Role, needed: Role): boolean {
   return RANK[role] >= RANK[needed];
 }
+
+/** The lesser of two roles (a token acts at most at its own role and the person's role today). */
+export function lowerRole(a: Role, b: Role): Role {
+  return RANK[a] <= RANK[b] ? a : b;
+}
+
+/** The roles from the most to the least it may do, for lists that name the owner first. */
+export const ROLES_HIGH_FIRST: readonly Role[] = [...ROLES].reverse();

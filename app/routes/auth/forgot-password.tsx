@@ -2,7 +2,7 @@ import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/forgot-password";
 import { AuthFrame } from "~/components/auth-frame";
-import { Button, Field, fieldErrors } from "~/components/form";
+import { Button, Field } from "~/components/form";
 import { RESET_MINUTES, resetMail } from "~/lib/mail/messages";
 import { startPasswordReset } from "~/models/password-reset.server";
 import { normalizeEmail } from "~/models/user.server";
@@ -11,6 +11,7 @@ import { getUser } from "~/utils/auth.server";
 import { appUrl } from "~/utils/env.server";
 import { sendMailLater } from "~/utils/mail.server";
 import { useRootData } from "~/root";
+import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Reset your password · Sealwright" }];
 

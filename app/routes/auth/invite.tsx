@@ -2,12 +2,14 @@ import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/invite";
 import { AuthFrame } from "~/components/auth-frame";
-import { Button, Field, fieldErrors, FormError } from "~/components/form";
+import { Button, Field, FormError } from "~/components/form";
 import { acceptInviteAsNewUser, acceptInviteAsUser, findInvite, INVITE_GONE } from "~/models/invite.server";
 import { getUser, startSession } from "~/utils/auth.server";
+import { readIntent } from "~/utils/conform.server";
 import { NewPassword, PersonName } from "~/utils/password-field.server";
 import { PASSWORD_MAX, PASSWORD_MIN } from "~/utils/password-rules";
 import { useRootData } from "~/root";
+import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Join a shop · Sealwright" }];
 
@@ -29,7 +31,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const invite = await findInvite(params.token);
   if (!invite.ok) return data({ errors: {} as Record<string, string>, error: INVITE_GONE }, { status: 410 });
   const user = await getUser(request);
-  if (form.intent === "join") {
+  if (readIntent(form, ["join", "create"], "create") === "join") {
     // an account with the invited address: the shop is added to it, and this session moves to it
     if (!user) return data({ errors: {} as Record<string, string>, error: "Sign in first, with the invited address." }, { status: 400 });
     await acceptInviteAsUser(invite, user);

@@ -1,14 +1,15 @@
-import { data, Form, Link, redirect } from "react-router";
+import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/reset-password";
 import { AuthFrame } from "~/components/auth-frame";
-import { Button, Field, fieldErrors, FormError } from "~/components/form";
+import { Button, Field, FormError } from "~/components/form";
 import { completePasswordReset, resetTokenUsable } from "~/models/password-reset.server";
 import { NewPassword } from "~/utils/password-field.server";
 import { PASSWORD_MAX, PASSWORD_MIN } from "~/utils/password-rules";
 import { sessionStorage, getSession } from "~/utils/session.server";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
 import { useRootData } from "~/root";
+import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Choose a new password · Sealwright" }];
 
@@ -30,11 +31,9 @@ export async function action({ request, params }: Route.ActionArgs) {
   // every session of the account ended with the reset, this browser's too: its cookie goes as well
   const headers = new Headers();
   headers.append("Set-Cookie", await sessionStorage().destroySession(await getSession(request)));
-  headers.append(
-    "Set-Cookie",
-    await flashToast(request, { kind: "done", message: "Password changed. Sign in with the new one; every other device was signed out." }),
-  );
-  return redirect("/login", { headers });
+  return redirectWithToast(request, "/login", "Password changed. Sign in with the new one; every other device was signed out.", "done", {
+    headers,
+  });
 }
 
 export default function ResetPassword({ loaderData, actionData }: Route.ComponentProps) {

@@ -1,5 +1,4 @@
 import { getFormProps, useForm } from "@conform-to/react";
-import { parseWithZod } from "@conform-to/zod/v4";
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/signup";
@@ -8,6 +7,7 @@ import { Button, ErrorSummary, Field } from "~/components/form";
 import { createUserWithTeam, EmailTakenError } from "~/models/user.server";
 import { getUser, startSession } from "~/utils/auth.server";
 import { clientAddress } from "~/utils/client-address.server";
+import { parseSubmission } from "~/utils/conform.server";
 import { isCommonPassword } from "~/utils/password.server";
 import { isBlankPassword, PASSWORD_MAX, PASSWORD_MIN } from "~/utils/password-rules";
 import { takeAll, tooManyHeaders, waitWords } from "~/utils/rate-limit.server";
@@ -50,7 +50,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 }
 
 export async function action({ request, context }: Route.ActionArgs) {
-  const submission = parseWithZod(await request.formData(), { schema: SignUpSchema });
+  const submission = parseSubmission(await request.formData(), SignUpSchema);
   // the password is never sent back to the page
   const refuse = (status: number, options: Parameters<typeof submission.reply>[0] = {}, init: ResponseInit = {}) =>
     data({ result: submission.reply({ ...options, hideFields: ["password"] }) }, { ...init, status });

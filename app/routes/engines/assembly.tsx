@@ -1,18 +1,18 @@
-import { data, Form, Link, redirect } from "react-router";
+import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/assembly";
 import { ScrollTable } from "~/components/scroll-table";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { Button, Field, FormError, SelectField, TextArea } from "~/components/form";
 import { FileList, Uploader } from "~/components/uploader";
 import { parseAssemblyForm } from "~/lib/records/assembly";
-import { formatQuantity, inputValue, unitFor } from "~/lib/units";
+import { formatQuantity, inputValue, unitFor, type UnitSystem } from "~/lib/units";
 import { assemblyReadings, learnedFrictions } from "~/models/assembly-readings.server";
 import { requireEngine } from "~/models/engine.server";
 import { listFiles } from "~/models/files.server";
 import { listPlans } from "~/models/plan.server";
 import { createAssembly, listAssemblies } from "~/models/records.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Assembly · Sealwright" }];
 export const handle = CAUTION_HANDLE;
@@ -62,9 +62,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   if (!parsed.ok)
     return data({ errors: parsed.errors, values: form, message: "The assembly was not recorded: see the fields marked." }, { status: 400 });
   await createAssembly(team.id, user.id, engine.id, parsed.value);
-  return redirect(`/engines/${engine.id}/assembly`, {
-    headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: "Assembly recorded." }) },
-  });
+  return redirectWithToast(request, `/engines/${engine.id}/assembly`, "Assembly recorded.");
 }
 
 const pct = (x: number | null) => (x === null ? "—" : `${x >= 0 ? "+" : ""}${(x * 100).toFixed(0)} %`);
@@ -247,7 +245,7 @@ export default function Assembly({ loaderData: d, actionData }: Route.ComponentP
   );
 }
 
-function LearnedFriction({ learned, units }: { learned: Awaited<ReturnType<typeof loader>>["learned"]; units: "metric" | "imperial" }) {
+function LearnedFriction({ learned, units }: { learned: Awaited<ReturnType<typeof loader>>["learned"]; units: UnitSystem }) {
   if (learned.length === 0) return null;
   return (
     <div>

@@ -1,9 +1,9 @@
-import { data, Form, Link, redirect } from "react-router";
+import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/build-sheet";
 import { BuildSheetView } from "~/components/build-sheet";
 import { CAUTION_HANDLE } from "~/components/caution";
-import { Button, fieldErrors, FormError, SelectField } from "~/components/form";
+import { Button, FormError, SelectField } from "~/components/form";
 import { buildSheetMail } from "~/lib/mail/messages";
 import { sheetSummary, verdictText } from "~/lib/plan/build-sheet";
 import { buildSheet } from "~/models/build-sheet.server";
@@ -12,8 +12,9 @@ import { requireEngine } from "~/models/engine.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
 import { appUrl } from "~/utils/env.server";
 import { sendMail } from "~/utils/mail.server";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
 import sheetCss from "~/styles/build-sheet.css?url";
+import { fieldErrors } from "~/utils/field-errors";
 
 export const links: Route.LinksFunction = () => [{ rel: "stylesheet", href: sheetCss }];
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Build sheet · ${data?.engine.name ?? "Engine"} · Sealwright` }];
@@ -70,9 +71,7 @@ export async function action({ request, params }: Route.ActionArgs) {
       { status: 502 },
     );
   }
-  return redirect(`/engines/${engine.id}/build-sheet`, {
-    headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: `Build sheet sent to ${recipient.name}.` }) },
-  });
+  return redirectWithToast(request, `/engines/${engine.id}/build-sheet`, `Build sheet sent to ${recipient.name}.`);
 }
 
 export default function BuildSheetPage({ loaderData, actionData }: Route.ComponentProps) {

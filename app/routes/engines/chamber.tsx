@@ -2,8 +2,9 @@ import { Form, Link } from "react-router";
 import { ErrorSummary } from "~/components/form";
 import type { Route } from "./+types/chamber";
 import { chamberProblems, gasketThicknessWhatIf } from "~/lib/chamber";
+import { readWhatIfThickness } from "~/lib/chamber/what-if";
 import { chamberInput } from "~/lib/plan/assemble";
-import { formatQuantity, parseQuantity, unitFor } from "~/lib/units";
+import { formatQuantity, unitFor } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
 import { listPlans, planChoices } from "~/models/plan.server";
 import { requireUser, roleAtLeast } from "~/utils/auth.server";
@@ -18,15 +19,8 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const chosen = plans.find((p) => p.id === engine.chosenPlanId) ?? plans[0];
   const gasket =
     gaskets.find((g) => g.id === Number(url.searchParams.get("gasketId"))) ?? gaskets.find((g) => g.id === chosen?.gasketId) ?? gaskets[0];
-  const smallUnit = unitFor("smallLength", user.units);
   const whatIfText = url.searchParams.get("thickness") ?? "";
-  const whatIf = whatIfText ? parseQuantity(whatIfText, "smallLength", smallUnit) : null;
-  const whatIfError =
-    whatIf && !whatIf.ok
-      ? whatIf.message
-      : whatIf && whatIf.ok && !(whatIf.valueSi > 0 && whatIf.valueSi < 10)
-        ? "Give a compressed thickness between 0 and 10 mm"
-        : null;
+  const { thicknessMm: whatIfMm, error: whatIfError } = readWhatIfThickness(whatIfText, user.units);
   const base = {
     units: user.units,
     engine,
@@ -46,7 +40,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     };
   const problems = chamberProblems(input);
   if (problems.length) return { ...base, problems, result: null };
-  const newThickness = whatIf?.ok && !whatIfError ? whatIf.valueSi : input.gasketThicknessMm;
+  const newThickness = whatIfMm ?? input.gasketThicknessMm;
   return {
     ...base,
     problems: [],

@@ -4,6 +4,7 @@ import { PageTitle } from "~/components/app-shell";
 import { StatusBadge } from "~/components/engine-status";
 // from the modules themselves, not the barrel: the barrel's schema would bring zod to this page
 import { layoutName, STATUS_LABEL } from "~/lib/engine/labels";
+import { ENGINE_PAGE_SIZE, readEngineListQuery } from "~/lib/engine/list-query";
 import { ENGINE_STATUSES, type EngineStatus } from "~/lib/engine/status";
 import { formatQuantity } from "~/lib/units";
 import { isEngineSort, listEngines, type EngineSort } from "~/models/engine.server";
@@ -11,22 +12,11 @@ import { requireUser, roleAtLeast } from "~/utils/auth.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Engines · Sealwright" }];
 
-const PAGE_SIZE = 25;
-// Past any real list; a larger page number would overflow SQLite's integer offset.
-const MAX_PAGE = 1_000_000;
-
 export async function loader({ request }: Route.LoaderArgs) {
   const { user, role, who } = await requireUser(request);
-  const sp = new URL(request.url).searchParams;
-  const q = (sp.get("q") ?? "").slice(0, 120);
-  const statusParam = sp.get("status") ?? "";
-  const status = (ENGINE_STATUSES as readonly string[]).includes(statusParam) ? (statusParam as EngineStatus) : "";
-  const sortParam = sp.get("sort") ?? "";
-  const sort: EngineSort = isEngineSort(sortParam) ? sortParam : "updated";
-  const dir = sp.get("dir") === "asc" ? "asc" : sp.get("dir") === "desc" ? "desc" : sort === "updated" ? "desc" : "asc";
-  const page = Math.min(MAX_PAGE, Math.max(1, Math.floor(Number(sp.get("page")) || 1)));
-  const { rows, total } = await listEngines(who, { q, status, sort, dir, page, pageSize: PAGE_SIZE });
-  return { rows, total, page, pageSize: PAGE_SIZE, q, status, sort, dir, units: user.units, canEdit: roleAtLeast(role, "builder") };
+  const query = readEngineListQuery(new URL(request.url).searchParams, isEngineSort, "updated");
+  const { rows, total } = await listEngines(who, { ...query, pageSize: ENGINE_PAGE_SIZE });
+  return { rows, total, ...query, pageSize: ENGINE_PAGE_SIZE, units: user.units, canEdit: roleAtLeast(role, "builder") };
 }
 
 const COLUMNS: { key: EngineSort; label: string; numeric?: boolean }[] = [

@@ -1,4 +1,4 @@
-import { data, Form, redirect } from "react-router";
+import { data, Form } from "react-router";
 import type { Route } from "./+types/machining";
 import { ScrollTable } from "~/components/scroll-table";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
@@ -11,7 +11,7 @@ import { requireEngine } from "~/models/engine.server";
 import { createMachining, listMachining, measuredEstimate } from "~/models/machining.server";
 import { listPlans } from "~/models/plan.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Machining · Sealwright" }];
 export const handle = CAUTION_HANDLE;
@@ -55,9 +55,7 @@ export async function action({ request, params }: Route.ActionArgs) {
       { status: 400 },
     );
   await createMachining(team.id, user.id, engine.id, parsed.value);
-  return redirect(`/engines/${engine.id}/machining`, {
-    headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: "Machining record kept." }) },
-  });
+  return redirectWithToast(request, `/engines/${engine.id}/machining`, "Machining record kept.");
 }
 
 type Sheet = Awaited<ReturnType<typeof loader>>["sheets"][number];

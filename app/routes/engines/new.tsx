@@ -1,11 +1,10 @@
-import { data } from "react-router";
 import type { Route } from "./+types/new";
 import { PageTitle } from "~/components/app-shell";
 import { EngineForm } from "~/components/engine-form";
-import { useSeedKey } from "~/components/form";
-import { blankEngineForm, engineFormStep } from "~/lib/engine";
+import { blankEngineForm } from "~/lib/engine";
 import { createEngine, EngineInputError, listMaterialOptions } from "~/models/engine.server";
 import { requireRole } from "~/utils/auth.server";
+import { engineFormStep, refuseEngine } from "~/utils/engine-form.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "New engine · Sealwright" }];
@@ -18,22 +17,19 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export async function action({ request }: Route.ActionArgs) {
   const { user, team } = await requireRole(request, "builder");
-  const form = Object.fromEntries([...(await request.formData())].map(([k, v]) => [k, String(v)]));
-  const step = engineFormStep(form, user.units);
-  if (step.step === "render") return { values: step.values, errors: step.errors, reseed: true };
-  if (step.step === "invalid") return data({ values: step.values, errors: step.errors }, { status: 400 });
+  const formData = await request.formData();
+  const step = await engineFormStep(formData, user.units, ["save", "pattern"]);
+  if (step.answer) return step.answer;
   try {
     const id = await createEngine(team.id, user.id, step.engine);
     return redirectWithToast(request, `/engines/${id}`, `Engine “${step.engine.name}” added.`);
   } catch (e) {
-    if (e instanceof EngineInputError) return data({ values: step.values, errors: e.errors }, { status: 400 });
+    if (e instanceof EngineInputError) return refuseEngine(step.submission, e);
     throw e;
   }
 }
 
 export default function NewEngine({ loaderData, actionData }: Route.ComponentProps) {
-  const values = actionData?.values ?? loaderData.blank;
-  const seedKey = useSeedKey(values, Boolean(actionData && "reseed" in actionData));
   return (
     <>
       <PageTitle
@@ -42,11 +38,8 @@ export default function NewEngine({ loaderData, actionData }: Route.ComponentPro
         New engine
       </PageTitle>
       <EngineForm
-        // stays mounted; a post-back that changed the rows (pattern, add or remove stud) re-seeds it
-        key={seedKey}
-        values={values}
-        errors={actionData?.errors ?? {}}
-        answer={actionData}
+        defaultValue={loaderData.blank}
+        result={actionData?.result}
         materials={loaderData.materials}
         units={loaderData.units}
         submitLabel="Save engine"

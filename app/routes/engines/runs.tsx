@@ -1,7 +1,7 @@
-import { data, Form, Link, redirect } from "react-router";
+import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/runs";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
-import { Button, Field, fieldErrors, FormError, SelectField, TextArea } from "~/components/form";
+import { Button, Field, FormError, SelectField, TextArea } from "~/components/form";
 import { FileList, Uploader } from "~/components/uploader";
 import { OUTCOME_LABEL, OUTCOMES, RUN_FIELDS, RUN_KIND_LABEL, RUN_KINDS, runSchema, selectRuns, type RunSort } from "~/lib/records/run";
 import { runQuery } from "~/lib/records/run-query";
@@ -10,7 +10,8 @@ import { requireEngine } from "~/models/engine.server";
 import { listFiles } from "~/models/files.server";
 import { createRun, listRuns } from "~/models/records.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
+import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Runs · Sealwright" }];
 // peak pressures are shown, some estimated by the model: the page carries the full caution
@@ -52,9 +53,7 @@ export async function action({ request, params }: Route.ActionArgs) {
       { status: 400 },
     );
   await createRun(team.id, user.id, engine, parsed.data);
-  return redirect(`/engines/${engine.id}/runs`, {
-    headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: "Run logged." }) },
-  });
+  return redirectWithToast(request, `/engines/${engine.id}/runs`, "Run logged.");
 }
 
 const SORT_LABEL: Record<RunSort, string> = {

@@ -1,11 +1,12 @@
-import { data, Form, Link, redirect } from "react-router";
+import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/sharing";
-import { Button, fieldErrors, FormError } from "~/components/form";
+import { Button, FormError } from "~/components/form";
 import { engineViewers, setEngineShare } from "~/models/engine-share.server";
 import { requireEngine } from "~/models/engine.server";
 import { requireRole } from "~/utils/auth.server";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
+import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sharing · Sealwright" }];
 
@@ -28,7 +29,7 @@ export async function action({ request, params }: Route.ActionArgs) {
   const shared = parsed.data.shared === "true";
   await setEngineShare(team.id, user.id, engine.id, parsed.data.viewerId, shared);
   const message = shared ? "Shared: the viewer now sees this engine, its plans and its build sheet." : "No longer shared with that viewer.";
-  return redirect(`/engines/${engine.id}/sharing`, { headers: { "Set-Cookie": await flashToast(request, { kind: "done", message }) } });
+  return redirectWithToast(request, `/engines/${engine.id}/sharing`, message);
 }
 
 export default function Sharing({ loaderData, actionData }: Route.ComponentProps) {

@@ -1,3 +1,4 @@
+import { getFormProps, useForm } from "@conform-to/react";
 import { data, Form, Link, useNavigation } from "react-router";
 import type { Route } from "./+types/edit";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
@@ -12,7 +13,9 @@ import {
   formValues,
   GASKET_NUMBER_FIELDS,
   MATERIAL_NUMBER_FIELDS,
-  parseLibraryForm,
+  libraryDefaults,
+  libraryFormSchema,
+  typicalGasketType,
   type NumberField,
 } from "~/lib/library/fields";
 import { unitFor, type UnitSystem } from "~/lib/units";
@@ -34,6 +37,7 @@ import {
 } from "~/models/library.server";
 import { libraryOwner, listFiles } from "~/models/files.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
+import { parseSubmission, readIntent } from "~/utils/conform.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
 // One module for two routes: "library-new" (:kind/new) and "library-edit" (:kind/:itemId).
@@ -79,26 +83,10 @@ export async function loader({ request, params }: Route.LoaderArgs) {
       : null,
     values: item
       ? formValues(kind, item as unknown as Record<string, unknown>, units)
-      : defaults(kind, new URL(request.url).searchParams.get("type"), units),
-    typicalFor: !item && kind === "gaskets" ? typicalType(new URL(request.url).searchParams.get("type")) : null,
+      : libraryDefaults(kind, new URL(request.url).searchParams.get("type"), units),
+    typicalFor: !item && kind === "gaskets" ? typicalGasketType(new URL(request.url).searchParams.get("type")) : null,
     files: item && kind !== "materials" ? await listFiles(team.id, libraryOwner(kind, item.id)) : [],
   };
-}
-
-const typicalType = (t: string | null) =>
-  (LIBRARY_GASKET_TYPES as readonly string[]).includes(t ?? "") ? (t as (typeof LIBRARY_GASKET_TYPES)[number]) : null;
-
-function defaults(kind: LibraryKind, type: string | null, units: UnitSystem): Record<string, string> {
-  if (kind === "fasteners")
-    return { threadSystem: "unified", reducedShankLengthMm: "0", washerThicknessMm: "0", threadFriction: "0.12", bearingFriction: "0.12" };
-  if (kind === "gaskets") {
-    const family = typicalType(type);
-    if (!family) return { type: "mls", relaxationPercent: "0" };
-    // The family's typical figures, to be replaced with the gasket maker's (the form says so).
-    const { label: _label, notes: _notes, ...figures } = TYPICAL_GASKETS[family];
-    return { ...formValues("gaskets", { ...figures, type: family }, units), name: "" };
-  }
-  return { kind: "aluminium" };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
@@ -107,8 +95,8 @@ export async function action({ request, params }: Route.ActionArgs) {
   const itemId = itemIdOf(params);
   // Another team's row is a 404 before anything is read from the form.
   const item = itemId ? await requireLibraryItem(kind, team.id, itemId) : null;
-  const form = Object.fromEntries([...(await request.formData())].map(([k, v]) => [k, typeof v === "string" ? v : ""]));
-  const intent = form.intent ?? "save";
+  const formData = await request.formData();
+  const intent = readIntent(formData, ["save", "archive", "unarchive"], "save");
   const back = `/libraries/${kind}`;
   const done = (message: string, to = back) => redirectWithToast(request, to, message);
 
@@ -119,24 +107,33 @@ export async function action({ request, params }: Route.ActionArgs) {
       intent === "archive" ? `Archived “${item.name}”. It no longer appears in pickers.` : `“${item.name}” is back in the library.`,
     );
   }
-  if (intent !== "save") return data({ errors: { form: "Unknown action." } as Record<string, string>, values: form }, { status: 400 });
 
-  const parsed = parseLibraryForm(kind, form, user.units);
-  if (!parsed.ok) return data({ errors: parsed.errors, values: form }, { status: 400 });
-  if ("materialId" in parsed.value && !(await getMaterial(team.id, parsed.value.materialId)))
-    return data({ errors: { materialId: "Pick one of this shop's materials" } as Record<string, string>, values: form }, { status: 400 });
+  const submission = parseSubmission(formData, libraryFormSchema(kind, user.units));
+  if (submission.status !== "success") return data({ result: submission.reply() }, { status: submission.status === "error" ? 400 : 200 });
+  const value = submission.value;
+  if ("materialId" in value && !(await getMaterial(team.id, value.materialId)))
+    return data({ result: submission.reply({ fieldErrors: { materialId: ["Pick one of this shop's materials"] } }) }, { status: 400 });
   if (item) {
-    await updateLibraryItem(kind, team.id, item.id, user.id, parsed.value);
-    return done(`Saved “${parsed.value.name}”.`);
+    await updateLibraryItem(kind, team.id, item.id, user.id, value);
+    return done(`Saved “${value.name}”.`);
   }
-  await createLibraryItem(kind, team.id, user.id, parsed.value);
-  return done(`Added “${parsed.value.name}” to the ${kind}.`);
+  await createLibraryItem(kind, team.id, user.id, value);
+  return done(`Added “${value.name}” to the ${kind}.`);
 }
 
 export default function LibraryEdit({ loaderData, actionData }: Route.ComponentProps) {
   const { kind, units, materials, item, canEdit, typicalFor } = loaderData;
-  const values: Record<string, string> = actionData?.values ?? loaderData.values;
-  const errors: Record<string, string> = actionData?.errors ?? {};
+  // the one form path: the server parses with the schema, Conform carries its answer (values as typed)
+  const [form] = useForm<Record<string, string>>({
+    id: `library-${kind}`,
+    defaultValue: loaderData.values,
+    lastResult: actionData?.result,
+    shouldValidate: "onSubmit",
+  });
+  const values = (form.initialValue ?? loaderData.values) as Record<string, string>;
+  const errors: Record<string, string> = Object.fromEntries(
+    Object.entries(form.allErrors).flatMap(([name, list]) => (list[0] ? [[name, list[0]]] : [])),
+  );
   const busy = useNavigation().state === "submitting";
   const what = SINGULAR[kind];
   const count = Object.keys(errors).length;
@@ -159,13 +156,11 @@ export default function LibraryEdit({ loaderData, actionData }: Route.ComponentP
       <Caution className="mb-4" />
       <ErrorSummary
         errors={errors}
-        message={
-          count > 0 ? (errors.form ?? `Nothing was saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention.`) : null
-        }
-        answer={actionData}
+        message={count > 0 ? `Nothing was saved: ${count === 1 ? "one field needs" : `${count} fields need`} attention.` : null}
+        answer={actionData?.result}
       />
 
-      <Form method="post" noValidate className="mt-4">
+      <Form method="post" className="mt-4" {...getFormProps(form)}>
         <fieldset disabled={!canEdit} className="space-y-6">
           <legend className="sr-only">{canEdit ? `Edit the ${what}` : `The ${what} (read only)`}</legend>
           <Field label="Name" name="name" defaultValue={values.name ?? ""} error={errors.name} required maxLength={120} />

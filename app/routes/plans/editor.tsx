@@ -13,13 +13,14 @@ import type { Suggestion } from "~/lib/clamp";
 import { plannedByStretch } from "~/lib/plan/assemble";
 import type { EstimateView } from "~/lib/plan/estimate-view";
 import { figuresFollowStep, scaledWrenchStages } from "~/lib/plan/fastener-figures";
-import { parsePlanForm, planFormValues, type PlanWrite } from "~/lib/plan/form";
-import type { StretchLine } from "~/lib/plan/stretch";
+import { parsePlanForm, planFormValues, readSuggestedFigures, type PlanWrite } from "~/lib/plan/form";
+import { stretchLine, type StretchLine } from "~/lib/plan/stretch";
 import { formatQuantity } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
 import { estimatePlan, planStretch } from "~/models/plan-estimate.server";
 import { archivePlan, choosePlan, createPlan, engineMaterials, planChoices, requirePlan, updatePlan } from "~/models/plan.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
+import { readIntent } from "~/utils/conform.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.plan.name ?? "Seal plan"} · Sealwright` }];
@@ -31,12 +32,21 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team, role, who } = await requireUser(request);
   const engine = await requireEngine(who, params.engineId);
   const plan = await requirePlan(team.id, engine.id, params.planId);
-  const [choices, materials, result, stretch] = await Promise.all([
+  const [choices, materials, result] = await Promise.all([
     planChoices(team.id),
     engineMaterials(team.id, engine),
     estimatePlan(team.id, engine, plan, { units: user.units }),
-    planStretch(team.id, engine, plan),
   ]);
+  // the stretch line from the estimate's own preload, torque and stud stiffness (no second evaluation);
+  // only where the plan cannot be estimated is it worked out apart
+  const stretch = result.ok
+    ? stretchLine(
+        plannedByStretch(plan) ? "stretch" : "torque",
+        result.view.estimate.tightening.preload.nominalN,
+        result.view.estimate.tightening.torqueNm,
+        result.view.estimate.stiffness.studNPerMm,
+      )
+    : await planStretch(team.id, engine, plan);
   return {
     stretch,
     units: user.units,
@@ -51,12 +61,15 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   };
 }
 
+// The buttons this page's forms post (the suggestion box's too); anything else is a 400.
+const EDITOR_INTENTS = ["save", "estimate", "suggest", "choose", "archive", "apply-torque", "new-with-torque", "show-all-gaskets"] as const;
+
 export async function action({ request, params }: Route.ActionArgs) {
   const { user, team, who } = await requireRole(request, "builder");
   const engine = await requireEngine(who, params.engineId);
   const plan = await requirePlan(team.id, engine.id, params.planId);
   const form = Object.fromEntries(await request.formData());
-  const intent = String(form.intent ?? "save");
+  const intent = readIntent(form, EDITOR_INTENTS, "save");
   const base = `/engines/${engine.id}/plans`;
 
   if (intent === "choose") {
@@ -68,12 +81,11 @@ export async function action({ request, params }: Route.ActionArgs) {
     return redirectWithToast(request, base, `“${plan.name}” archived.`);
   }
   if (intent === "apply-torque" || intent === "new-with-torque") {
-    const torqueNm = Number(form.torqueNm);
-    const protrusion = form.protrusionMm === undefined || form.protrusionMm === "" ? plan.sleeveProtrusionMm : Number(form.protrusionMm);
-    if (!(torqueNm > 0 && torqueNm <= 5000) || (protrusion !== null && !(protrusion >= -0.5 && protrusion <= 1))) {
+    const figures = readSuggestedFigures(form, plan.sleeveProtrusionMm);
+    if (!figures.ok) {
       return data(
         {
-          errors: { torque: "The suggested figures are out of range." },
+          errors: { torque: figures.message },
           values: planFormValues(plan, user.units),
           note: null,
           preview: null,
@@ -84,6 +96,7 @@ export async function action({ request, params }: Route.ActionArgs) {
         { status: 400 },
       );
     }
+    const { torqueNm, protrusionMm: protrusion } = figures;
     const next: PlanWrite = {
       ...plan,
       torqueNm,

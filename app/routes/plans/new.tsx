@@ -7,8 +7,8 @@ import { Button, ErrorSummary, FormError } from "~/components/form";
 import { MakerTorque } from "~/components/maker-torque";
 import { PlanFields } from "~/components/plan-form";
 import { gasketsByFit } from "~/lib/plan/assemble";
-import { figuresFollowStep, makerPlanFigures } from "~/lib/plan/fastener-figures";
-import { parsePlanForm, planFormValues, type PlanWrite } from "~/lib/plan/form";
+import { figuresFollowStep } from "~/lib/plan/fastener-figures";
+import { parsePlanForm, planFormValues, startingPlan, type PlanWrite } from "~/lib/plan/form";
 import { formatQuantity, parseQuantity, unitFor } from "~/lib/units";
 import { decimalPoint } from "~/lib/units/decimal-comma";
 import { LearnedFrictionOffer } from "~/components/learned-friction";
@@ -17,6 +17,7 @@ import { requireEngine } from "~/models/engine.server";
 import { estimatePlan, planStretch } from "~/models/plan-estimate.server";
 import { createPlan, listPlans, planChoices } from "~/models/plan.server";
 import { requireRole } from "~/utils/auth.server";
+import { readIntent } from "~/utils/conform.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = ({ error }) => [{ title: error ? REFUSAL_TITLE : "New seal plan · Sealwright" }];
@@ -34,21 +35,7 @@ export async function loader({ request, params }: Route.LoaderArgs) {
   const fastener = choices.fasteners.find((f) => f.id === template?.fastenerId) ?? choices.fasteners[0];
   const { fitting } = gasketsByFit(choices.gaskets, engine.boreMm);
   const gasket = choices.gaskets.find((g) => g.id === template?.gasketId) ?? fitting[0] ?? choices.gaskets[0];
-  const plan: PlanWrite = template
-    ? { ...template, name: "", notes: "" }
-    : {
-        name: "",
-        gasketId: gasket?.id ?? 0,
-        ...makerPlanFigures(fastener, user.units),
-        method: "torque-estimated-friction",
-        wireLocation: gasket?.type === "solid-copper" ? "block" : "none",
-        wireProjectionMm: gasket?.type === "solid-copper" ? 0.1 : 0,
-        receiverGrooveDepthMm: 0,
-        sleeveProtrusionMm: null,
-        targetStretchMm: null,
-        targetMargin: 1.5,
-        notes: "",
-      };
+  const plan: PlanWrite = template ? { ...template, name: "", notes: "" } : startingPlan(fastener, gasket, user.units);
   // planned by stretch gauge: the maker's stretch figure is the starting target
   if (plan.method === "stretch-measured" && plan.targetStretchMm == null) plan.targetStretchMm = fastener?.makerStretchMm ?? null;
   return {
@@ -89,7 +76,8 @@ export async function action({ request, params }: Route.ActionArgs) {
     const stretch = shown.ok ? await planStretch(team.id, engine, shown.plan) : null;
     return data({ errors: {}, problems: [] as string[], note: null as string | null, values, stretch, ...extra }, { status });
   };
-  if (values.intent === "show-all-gaskets") return answer(200, { values: { ...values, showAllGaskets: "1" } });
+  if (readIntent(form, ["create", "show-all-gaskets"], "create") === "show-all-gaskets")
+    return answer(200, { values: { ...values, showAllGaskets: "1" } });
   // Without JavaScript: the fastener changed but its figures are still the old stud's; show the new maker's first.
   const choices = await planChoices(team.id);
   const followed = figuresFollowStep(values, choices.fasteners, user.units);

@@ -74,13 +74,16 @@ export async function browserRows(): Promise<Row[]> {
       const cls = median(runs.map((r) => r.cls));
       rows.push({ figure: `LCP / CLS, ${name}`, value: `${fmt(lcp, 0)} ms / ${fmt(cls, 3)}`, target: "CLS ≤ 0.05", met: cls <= 0.05 });
     }
+    // a plan whose preload follows its torque: the first plan of the demo shop is planned by stretch, and a
+    // new torque there changes no figure (the probe used to wait for a change that never came: NaN)
+    const torquePath = somePlanPath(server.dbPath, true);
     const cdp = await context.newCDPSession(page);
     for (const rate of [1, 4]) {
       await cdp.send("Emulation.setCPUThrottlingRate", { rate });
-      await page.goto(`${ORIGIN}${planPath}`, { waitUntil: "networkidle" });
+      await page.goto(`${ORIGIN}${torquePath}`, { waitUntil: "networkidle" });
       await page.waitForTimeout(1000);
       const times: number[] = [];
-      for (const t of ["150", "170", "140"]) times.push(await torqueToEstimate(page, t));
+      for (const t of ["150", "170", "140", "160", "130"]) times.push(await torqueToEstimate(page, t));
       const ms = median(times);
       const limit = rate === 1 ? 100 : 200;
       rows.push({

@@ -51,7 +51,7 @@ export function initialJsBytes(m: Manifest, routeId: string): { bytes: number; f
 }
 
 const PAGES: [string, string][] = [
-  ["dashboard", "routes/app/dashboard"],
+  ["dashboard", "routes/shop/dashboard"],
   ["engine list", "routes/engines/list"],
   ["plan editor", "routes/plans/editor"],
   ["plan list", "routes/plans/list"],

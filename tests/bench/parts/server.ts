@@ -80,13 +80,19 @@ export async function signIn(email = "builder@example.com"): Promise<string> {
   return cookie;
 }
 
-/** A plan of the demo builder's shop, read from the database (the URL the editor lives at). */
-export function somePlanPath(dbPath: string): string {
+/**
+ * A plan of the demo builder's shop, read from the database (the URL the editor lives at). With
+ * torquePlanned, the first plan whose preload follows its torque (not one planned by stretch, where a
+ * new torque changes none of the figures the browser probe watches).
+ */
+export function somePlanPath(dbPath: string, torquePlanned = false): string {
   const d = new Database(dbPath, { readonly: true });
   try {
     const row = d
       .prepare(
-        "select p.id as planId, p.engine_id as engineId from seal_plans p join memberships m on m.team_id = p.team_id join users u on u.id = m.user_id where u.email = ? and p.archived_at is null order by p.id limit 1",
+        "select p.id as planId, p.engine_id as engineId from seal_plans p join memberships m on m.team_id = p.team_id join users u on u.id = m.user_id where u.email = ? and p.archived_at is null" +
+          (torquePlanned ? " and p.method like 'torque-%'" : "") +
+          " order by p.id limit 1",
       )
       .get("builder@example.com") as { planId: number; engineId: number };
     return `/engines/${row.engineId}/plans/${row.planId}`;

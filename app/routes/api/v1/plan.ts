@@ -2,17 +2,10 @@ import { PlanReadQuerySchema } from "~/lib/api/schemas";
 import { engineById, planWithEstimateForApi } from "~/models/api-v1.server";
 import { apiCaller, apiQuery, apiRead, notFound } from "~/utils/api.server";
 import { parseId } from "~/utils/ids";
+import type { Route } from "./+types/plan";
 
 // GET /api/v1/engines/:engineId/plans/:planId?units → the plan, its clamp-model input and its estimate.
-export async function loader({
-  request,
-  context,
-  params,
-}: {
-  request: Request;
-  context?: unknown;
-  params: { engineId?: string; planId?: string };
-}) {
+export async function loader({ request, context, params }: Route.LoaderArgs) {
   const caller = await apiCaller(request, context);
   const query = apiQuery(request, PlanReadQuerySchema);
   const engineId = parseId(params.engineId);

@@ -2,9 +2,10 @@ import { PageQuerySchema } from "~/lib/api/schemas";
 import { engineById, planListForApi } from "~/models/api-v1.server";
 import { apiCaller, apiQuery, apiRead, notFound } from "~/utils/api.server";
 import { parseId } from "~/utils/ids";
+import type { Route } from "./+types/plans";
 
 // GET /api/v1/engines/:engineId/plans?page&limit → the engine's seal plans (not retired), oldest first.
-export async function loader({ request, context, params }: { request: Request; context?: unknown; params: { engineId?: string } }) {
+export async function loader({ request, context, params }: Route.LoaderArgs) {
   const caller = await apiCaller(request, context);
   const query = apiQuery(request, PageQuerySchema);
   const id = parseId(params.engineId);

@@ -1,11 +1,12 @@
 import { RunCreateSchema, RunListQuerySchema } from "~/lib/api/schemas";
 import { createRunForApi, listRunsForApi } from "~/models/run-api.server";
 import { apiBody, apiCaller, apiError, apiQuery, apiRead, requireApiRole, wrongMethod } from "~/utils/api.server";
+import type { Route } from "./+types/runs";
 
 // GET /api/v1/runs?engineId&kind&outcome&from&to&cursor&limit → the team's run log, newest first.
 // POST /api/v1/runs (builder or owner) logs one run.
 
-export async function loader({ request, context }: { request: Request; context?: unknown }) {
+export async function loader({ request, context }: Route.LoaderArgs) {
   const caller = await apiCaller(request, context);
   const query = apiQuery(request, RunListQuerySchema);
   const { cursor, ...rest } = query;
@@ -13,7 +14,7 @@ export async function loader({ request, context }: { request: Request; context?:
   return apiRead(request, { items: page.rows, limit: query.limit, nextCursor: page.nextCursor });
 }
 
-export async function action({ request, context }: { request: Request; context?: unknown }) {
+export async function action({ request, context }: Route.ActionArgs) {
   if (request.method !== "POST") return wrongMethod("GET, POST");
   const caller = await apiCaller(request, context);
   requireApiRole(caller, "builder");

@@ -1,5 +1,5 @@
 // Torque ceiling (the first limit torque reaches, with its cause), seal gained per +10 % torque, and
-// "more torque mostly squeezes the head" — kept apart (issue 7, DESIGN.md §7).
+// "more torque mostly squeezes the head" — kept apart (issue 7, docs/clamp-model.md §12).
 import { describe, expect, it } from "vitest";
 import {
   CEILING_WORDS,

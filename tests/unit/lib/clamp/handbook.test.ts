@@ -9,24 +9,45 @@ import {
   LIMITING_SURFACE_PRESSURE_MPA,
   TYPICAL_GASKETS,
 } from "../../../../app/lib/clamp";
+import { HANDBOOK_MATERIAL_ROWS } from "../../../../app/lib/library/seed-data";
 import { PSI_TO_MPA, relErr } from "../nist";
 
 describe("§7 materials (typical or minimum, as docs/references.md notes)", () => {
   it.each([
-    ["a356-t6", 72_400, 165, 21.4, "Aluminum Association data via MatWeb"],
-    ["6061-t6", 68_900, 276, 23.6, "MatWeb"],
-    ["7075-t6", 71_700, 503, 23.4, "MatWeb"],
-    ["gray-iron-30-40", 100_000, undefined, 10.8, "ASTM A48; Shigley table A-5"],
-    ["ductile-65-45-12", 169_000, 310, 11.5, "ASTM A536"],
-    ["4340-qt", 205_000, 1379, 12.3, "MatWeb"],
-    ["stainless-300-wire", 193_000, 207, 17.3, "MatWeb"],
-    ["c11000-annealed", 115_000, 70, 17.0, "copper producer data sheet"],
-  ])("%s: E %d MPa, yield %s MPa, α %d µm/m·°C (%s)", (key, E, y, a, source) => {
+    ["a356-t6", 72_400, 165, 21.4, 380, /Aluminum Association data via MatWeb/],
+    ["6061-t6", 68_900, 276, 23.6, 260, /MatWeb/],
+    ["7075-t6", 71_700, 503, 23.4, null, /MatWeb/],
+    ["gray-iron-30-40", 100_000, null, 10.8, 900, /ASTM A48; Shigley table A-5/],
+    ["ductile-65-45-12", 169_000, 310, 11.5, 900, /ASTM A536/],
+    ["4340-qt", 205_000, 1379, 12.3, null, /MatWeb/],
+    ["stainless-300-wire", 193_000, 207, 17.3, null, /MatWeb/],
+    ["c11000-annealed", 115_000, 70, 17.0, null, /copper producer data sheet/i],
+    ["stud-iso-12.9", 205_000, 970, 12, null, /ISO 898-1/],
+    ["stud-sae-grade-8", 205_000, 896.3, 12, null, /SAE J429/],
+  ] as const)("%s: E %d MPa, yield %s MPa, α %d µm/m·°C, limiting pressure %s MPa (%s)", (key, E, y, a, p, source) => {
     const m = HANDBOOK_MATERIALS[key];
     expect(m.modulusMpa).toBe(E);
     expect(m.yieldMpa).toBe(y);
     expect(m.expansionUmPerMC).toBe(a);
-    expect(m.source).toBe(source);
+    expect(m.limitingSurfacePressureMpa).toBe(p);
+    expect(m.source).toMatch(source);
+  });
+  it("gray iron: Shigley table A-24 class 30 torsional shear strength 40 kpsi = 276 MPa (NIST SP 811)", () => {
+    const g = HANDBOOK_MATERIALS["gray-iron-30-40"];
+    expect(relErr(g.shearStrengthMpa, 40_000 * PSI_TO_MPA)).toBeLessThan(1e-3);
+  });
+  it("the shop's starting library is seeded from this one table, every figure and source as here", () => {
+    const entries = Object.values(HANDBOOK_MATERIALS);
+    expect(HANDBOOK_MATERIAL_ROWS).toHaveLength(entries.length);
+    HANDBOOK_MATERIAL_ROWS.forEach((row, i) => {
+      const m = entries[i];
+      expect(row.name).toBe(m.name);
+      expect(row.modulus_mpa).toBe(m.modulusMpa);
+      expect(row.yield_mpa).toBe(m.yieldMpa);
+      expect(row.expansion_um_per_m_c).toBe(m.expansionUmPerMC);
+      expect(row.limiting_surface_pressure_mpa).toBe(m.limitingSurfacePressureMpa);
+      expect(row.source).toBe(m.source);
+    });
   });
   it("fastener classes: ISO 898-1 10.9 proof 830, 12.9 proof 970; SAE J429 grade 8 130 ksi yield = 896.3 MPa (NIST SP 811)", () => {
     expect(FASTENER_CLASSES["iso-10.9"].proofMpa).toBe(830);

@@ -107,7 +107,7 @@ describe("sleeve protrusion 0.05–0.15 mm (the shop's usual range, common pract
     );
   });
 
-  // DESIGN.md "The clamp model" §5 and issue 7: in the shop's range the split changes smoothly and the
+  // docs/clamp-model.md §6 and issue 7: in the shop's range the split changes smoothly and the
   // gasket body keeps load to seal coolant and oil. Demo-like plans (the seed's sleeved engines, whose
   // bores carry 160–330 kN of clamp) must show it: the body carries load at assembly at every protrusion.
   it.each([

@@ -1,6 +1,6 @@
 // Every check in docs/references.md §1–§7, each with its source and a stated tolerance, and the
 // published checks of the model's load-introduction factor, unified threads and copper hardness.
-// §8 (chamber) lives in tests/unit/lib/chamber/chamber.test.ts; the plate formula in plate.test.ts.
+// §8 (chamber) lives in tests/unit/lib/chamber/compression.test.ts; the plate formula in plate.test.ts.
 import { describe, expect, it } from "vitest";
 import {
   ANNEALED_COPPER_HARDNESS_MPA,

@@ -1,5 +1,5 @@
-// The bore's load paths (ours, DESIGN.md "Seal line and body as two springs with a gap", "Paths that
-// yield", "MLS is a bead spring with a stopper"): hand cases worked out in the comments, then the same
+// The bore's load paths (ours, docs/clamp-model.md §6: seal line and body as two springs with a gap, paths that
+// yield, MLS as a bead spring with a stopper): hand cases worked out in the comments, then the same
 // behaviour on the plans.
 import { describe, expect, it } from "vitest";
 import { loadBore, moveBore, PlanInputSchema, prepare, type BorePaths } from "../../../../app/lib/clamp";

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { decimalPoint, splitList } from "../../../../app/lib/units/decimal-comma";
-import { METHOD_LABEL, parsePlanForm, planFormValues } from "../../../../app/lib/plan/form";
+import { METHOD_LABEL, parsePlanForm, planFormValues, readSuggestedFigures, startingPlan } from "../../../../app/lib/plan/form";
 import { figuresFingerprint } from "../../../../app/lib/plan/fastener-figures";
 import { LBF_FT_TO_NM, relErr } from "../nist";
 
@@ -131,5 +131,47 @@ describe("gaskets by bore", () => {
     // common practice: not smaller than the bore, at most 6 mm over it
     expect(fitting.map((g) => g.id)).toEqual([3, 2]);
     expect(others.map((g) => g.id)).toEqual([1, 4, 5]);
+  });
+});
+
+describe("a new plan with nothing to start from, and a suggestion's posted figures", () => {
+  it("copper gaskets start with a block wire ring 0.1 mm proud (common practice); others with none", () => {
+    const copper = startingPlan(undefined, { id: 7, type: "solid-copper" }, "metric");
+    expect(copper).toMatchObject({
+      gasketId: 7,
+      wireLocation: "block",
+      wireProjectionMm: 0.1,
+      targetMargin: 1.5,
+      method: "torque-estimated-friction",
+    });
+    const mls = startingPlan(undefined, { id: 8, type: "mls" }, "metric");
+    expect(mls).toMatchObject({ wireLocation: "none", wireProjectionMm: 0, sleeveProtrusionMm: null, targetStretchMm: null });
+    expect(startingPlan(undefined, undefined, "metric").gasketId).toBe(0);
+  });
+  it("reads the suggested torque and protrusion inside the form's ranges", () => {
+    expect(readSuggestedFigures({ torqueNm: "150", protrusionMm: "" }, 0.05)).toEqual({ ok: true, torqueNm: 150, protrusionMm: 0.05 });
+    expect(readSuggestedFigures({ torqueNm: "150", protrusionMm: "0.1" }, null)).toEqual({ ok: true, torqueNm: 150, protrusionMm: 0.1 });
+    for (const bad of [{ torqueNm: "0" }, { torqueNm: "5001" }, { torqueNm: "x" }, { torqueNm: "100", protrusionMm: "1.5" }])
+      expect(readSuggestedFigures(bad, null).ok, JSON.stringify(bad)).toBe(false);
+  });
+});
+
+describe("the last stage against the final torque (0.5 % or 0.5 N·m, whichever is more)", () => {
+  const stagesError = (torque: string, stages: string) => {
+    const r = parsePlanForm({ ...FORM, torque, stages }, "metric");
+    return r.ok ? null : (r.errors.stages ?? null);
+  };
+  it("200 N·m allows 1 N·m of rounding: 201 is taken (and set to 200), 201.5 is refused", () => {
+    expect(ok({ ...FORM, torque: "200", stages: "100, 150, 201" }).stagesNm).toEqual([100, 150, 200]);
+    expect(ok({ ...FORM, torque: "200", stages: "100, 150, 199.1" }).stagesNm).toEqual([100, 150, 200]);
+    expect(stagesError("200", "100, 150, 201.5")).toBe("The last stage must equal the final torque");
+    expect(stagesError("200", "100, 150, 198.8")).toBe("The last stage must equal the final torque");
+  });
+  it("under 100 N·m the floor of 0.5 N·m holds: 50.4 is taken at 50, 50.6 is refused", () => {
+    expect(ok({ ...FORM, torque: "50", stages: "20, 35, 50.4" }).stagesNm).toEqual([20, 35, 50]);
+    expect(stagesError("50", "20, 35, 50.6")).toBe("The last stage must equal the final torque");
+  });
+  it("stages that do not rise are refused before the last one is compared", () => {
+    expect(stagesError("150", "60, 60, 150")).toBe("Stages must rise, ending at the final torque");
   });
 });

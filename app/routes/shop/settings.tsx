@@ -1,18 +1,21 @@
-import { data, Form, redirect } from "react-router";
+import { data, Form } from "react-router";
 import { z } from "zod";
+import { UNIT_SYSTEMS } from "~/lib/units";
 import type { Route } from "./+types/settings";
 import { PageTitle } from "~/components/app-shell";
-import { Button, Field, fieldErrors } from "~/components/form";
+import { Button, Field } from "~/components/form";
 import { getPasswordHash, setPassword, updateProfile } from "~/models/user.server";
 import { requireUser, startSession } from "~/utils/auth.server";
+import { readIntent } from "~/utils/conform.server";
 import { NewPassword, PersonName } from "~/utils/password-field.server";
 import { verifyPassword } from "~/utils/password.server";
 import { PASSWORD_MAX, PASSWORD_MIN } from "~/utils/password-rules";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
+import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Settings · Sealwright" }];
 
-const ProfileSchema = z.object({ name: PersonName, units: z.enum(["metric", "imperial"], "Pick metric or imperial") });
+const ProfileSchema = z.object({ name: PersonName, units: z.enum(UNIT_SYSTEMS, "Pick metric or imperial") });
 const PasswordSchema = z
   .object({
     current: z.string({ error: "Enter your current password" }).min(1, "Enter your current password"),
@@ -29,7 +32,7 @@ export async function loader({ request }: Route.LoaderArgs) {
 export async function action({ request }: Route.ActionArgs) {
   const { user, team } = await requireUser(request);
   const form = Object.fromEntries(await request.formData());
-  if (form.intent === "password") {
+  if (readIntent(form, ["profile", "password"], "profile") === "password") {
     const parsed = PasswordSchema.safeParse(form);
     if (!parsed.success) return data({ intent: "password", errors: fieldErrors(parsed.error.issues) }, { status: 400 });
     const ok = await verifyPassword((await getPasswordHash(user.id)) ?? "", parsed.data.current);
@@ -40,18 +43,16 @@ export async function action({ request }: Route.ActionArgs) {
       );
     // every session ends (other devices too); this browser gets a fresh one
     await setPassword(user.id, parsed.data.password);
-    const response = await startSession(request, user.id, team.id, "/settings");
-    response.headers.append(
-      "Set-Cookie",
-      await flashToast(request, { kind: "done", message: "Password changed; other devices were signed out." }),
-    );
-    return response;
+    const session = await startSession(request, user.id, team.id, "/settings");
+    return redirectWithToast(request, "/settings", "Password changed; other devices were signed out.", "done", {
+      headers: session.headers,
+    });
   }
   // a post with units alone keeps the name
   const parsed = ProfileSchema.safeParse({ name: user.name, ...form });
   if (!parsed.success) return data({ intent: "profile", errors: fieldErrors(parsed.error.issues) }, { status: 400 });
   await updateProfile(user.id, parsed.data);
-  return redirect("/settings", { headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: "Settings saved." }) } });
+  return redirectWithToast(request, "/settings", "Settings saved.");
 }
 
 export default function Settings({ loaderData, actionData }: Route.ComponentProps) {

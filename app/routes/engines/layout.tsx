@@ -1,7 +1,7 @@
 import { isRouteErrorResponse, Link, NavLink, Outlet } from "react-router";
-import type { Route } from "./+types/engine";
+import type { Route } from "./+types/layout";
 import { StatusBadge } from "~/components/engine-status";
-import { layoutName } from "~/lib/engine";
+import { layoutName } from "~/lib/engine/labels";
 import { requireEngine } from "~/models/engine.server";
 import { roleAtLeast, requireUser } from "~/utils/auth.server";
 

@@ -1,17 +1,16 @@
-import { data, Form, Link, redirect } from "react-router";
+import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/tokens";
 import { PageTitle } from "~/components/app-shell";
 import { Button, Field, FormError, SelectField } from "~/components/form";
+import { ROLES } from "~/lib/team/roles";
 import { createToken, listTokens, revokeToken, TokenLimitError } from "~/models/api-token.server";
-import type { Role } from "~/models/user.server";
 import { requireUser, roleAtLeast } from "~/utils/auth.server";
+import { readIntent } from "~/utils/conform.server";
 import { parseId } from "~/utils/ids";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "API tokens · Sealwright" }];
-
-const ROLES: Role[] = ["viewer", "builder", "owner"];
 
 const TokenCreateSchema = z.object({
   intent: z.literal("create"),
@@ -28,14 +27,12 @@ export async function loader({ request }: Route.LoaderArgs) {
 export async function action({ request }: Route.ActionArgs) {
   const { user, team, role } = await requireUser(request);
   const form = Object.fromEntries(await request.formData());
-  if (form.intent === "revoke") {
+  if (readIntent(form, ["create", "revoke"], "create") === "revoke") {
     const parsed = TokenRevokeSchema.safeParse(form);
     const id = parsed.success ? parseId(parsed.data.tokenId) : null;
     if (id === null || !(await revokeToken(team.id, user.id, id)))
       return data({ error: "No such live token of yours in this shop.", errors: {}, token: null }, { status: 404 });
-    return redirect("/settings/tokens", {
-      headers: { "Set-Cookie": await flashToast(request, { kind: "done", message: "Token revoked; it is refused from now on." }) },
-    });
+    return redirectWithToast(request, "/settings/tokens", "Token revoked; it is refused from now on.");
   }
   const parsed = TokenCreateSchema.safeParse(form);
   if (!parsed.success) {

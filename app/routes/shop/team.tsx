@@ -1,20 +1,22 @@
-import { data, Form, redirect } from "react-router";
+import { data, Form } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/team";
 import { PageTitle } from "~/components/app-shell";
-import { Button, Field, fieldErrors, FormError, SelectField } from "~/components/form";
+import { Button, Field, FormError, SelectField } from "~/components/form";
 import { INVITE_DAYS, inviteMail } from "~/lib/mail/messages";
+import { ROLES, ROLES_HIGH_FIRST } from "~/lib/team/roles";
 import { createInvite, InviteError, listPendingInvites, revokeInvite } from "~/models/invite.server";
 import { changeRole, LastOwnerError, removeMember } from "~/models/member.server";
 import { listMembers, renameTeam } from "~/models/team.server";
 import { requireRole } from "~/utils/auth.server";
+import { readIntent } from "~/utils/conform.server";
 import { appUrl } from "~/utils/env.server";
 import { sendMail } from "~/utils/mail.server";
-import { flashToast } from "~/utils/toast.server";
+import { redirectWithToast } from "~/utils/toast.server";
+import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Team · Sealwright" }];
 
-const ROLES = ["owner", "builder", "viewer"] as const;
 const ROLE_OPTIONS: [string, string][] = [
   ["viewer", "Viewer — sees the engines shared with them"],
   ["builder", "Builder — engines, plans, libraries"],
@@ -36,16 +38,17 @@ export async function loader({ request }: Route.LoaderArgs) {
 }
 
 async function done(request: Request, message: string) {
-  return redirect("/team", { headers: { "Set-Cookie": await flashToast(request, { kind: "done", message }) } });
+  return redirectWithToast(request, "/team", message);
 }
 
 export async function action({ request }: Route.ActionArgs) {
   const { team, user } = await requireRole(request, "owner");
   const form = Object.fromEntries(await request.formData());
   const refuse = (errors: Record<string, string>, error: string | null = null) =>
-    data({ intent: String(form.intent ?? "rename"), errors, error, values: form }, { status: 400 });
+    data({ intent, errors, error, values: form }, { status: 400 });
+  const intent = readIntent(form, ["rename", "invite", "role", "remove", "revoke"], "rename");
   try {
-    switch (form.intent) {
+    switch (intent) {
       case "invite": {
         const parsed = InviteSchema.safeParse(form);
         if (!parsed.success) return refuse(fieldErrors(parsed.error.issues));
@@ -140,7 +143,7 @@ export default function TeamPage({ loaderData, actionData }: Route.ComponentProp
                       defaultValue={m.role}
                       className="rounded border border-forge-300 px-2 py-1 capitalize"
                     >
-                      {ROLES.map((r) => (
+                      {ROLES_HIGH_FIRST.map((r) => (
                         <option key={r} value={r}>
                           {r}
                         </option>
