@@ -11,9 +11,9 @@ import { formatQuantity, type UnitSystem } from "~/lib/units";
 import { withTeam } from "~/utils/db.server";
 import { toEngine } from "./engine.server";
 import { listFasteners, listGaskets, listMaterials, type MaterialRow } from "./library.server";
-import type { ChosenPlanVerdict } from "./plan-estimate.server";
+import { workingEnginesWithChosenPlan, type ChosenPlanVerdict } from "./plan-estimate.server";
 import { toPlan } from "./plan.server";
-import { viewerScope, type Asker } from "./viewer-scope.server";
+import type { Asker } from "./viewer-scope.server";
 
 type Verdict = Pick<ChosenPlanVerdict, "status" | "headline" | "limiting">;
 
@@ -44,16 +44,7 @@ function verdictOf(raw: PlanInputRaw): Verdict | null {
  */
 export async function chosenPlanVerdictsBatched(who: Asker, units: UnitSystem, limit = 50): Promise<ChosenPlanVerdict[]> {
   const teamId = who.teamId;
-  // withTeam: on PostgreSQL the row-security policies check the team too (a second wall)
-  const engineRows = await withTeam(teamId, (k) =>
-    viewerScope(k("engines"), who)
-      .whereNull("archived_at")
-      .whereNot("status", "retired")
-      .whereNotNull("chosen_plan_id")
-      .orderBy("updated_at", "desc")
-      .orderBy("id", "desc")
-      .limit(limit),
-  );
+  const engineRows = await workingEnginesWithChosenPlan(who, limit);
   if (engineRows.length === 0) return [];
   const engines = engineRows.map(toEngine);
   const [planRows, materials, fasteners, gaskets] = await Promise.all([

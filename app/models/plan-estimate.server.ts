@@ -5,7 +5,7 @@ import { stretchLineFor, type StretchLine } from "~/lib/plan/stretch";
 import { displayWording } from "~/lib/plan/wording";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
 import { toEngine, type EngineRow } from "./engine.server";
-import { withTeam } from "~/utils/db.server";
+import { withTeam, type DbRow } from "~/utils/db.server";
 import { viewerScope, type Asker } from "./viewer-scope.server";
 import { planParts, requirePlan, type FastenerInfo, type GasketInfo } from "./plan.server";
 
@@ -136,13 +136,9 @@ export interface ChosenPlanVerdict {
   limiting: string;
 }
 
-/**
- * The verdict of each working engine's chosen plan (not retired, most recently touched first, at most
- * `limit`): the evaluation only, no sweep or scatter run. Plans that cannot be estimated are left out.
- */
-export async function chosenPlanVerdicts(who: Asker, units: UnitSystem, limit = 50): Promise<ChosenPlanVerdict[]> {
-  const teamId = who.teamId;
-  const rows = await withTeam(who.teamId, (k) =>
+/** The engines the asker may see that are working (not archived, not retired) and have a chosen plan: most recently touched first. */
+export function workingEnginesWithChosenPlan(who: Asker, limit: number): Promise<DbRow[]> {
+  return withTeam(who.teamId, (k) =>
     viewerScope(k("engines"), who)
       .whereNull("archived_at")
       .whereNot("status", "retired")
@@ -151,6 +147,15 @@ export async function chosenPlanVerdicts(who: Asker, units: UnitSystem, limit = 
       .orderBy("id", "desc")
       .limit(limit),
   );
+}
+
+/**
+ * The verdict of each working engine's chosen plan (not retired, most recently touched first, at most
+ * `limit`): the evaluation only, no sweep or scatter run. Plans that cannot be estimated are left out.
+ */
+export async function chosenPlanVerdicts(who: Asker, units: UnitSystem, limit = 50): Promise<ChosenPlanVerdict[]> {
+  const teamId = who.teamId;
+  const rows = await workingEnginesWithChosenPlan(who, limit);
   const out: ChosenPlanVerdict[] = [];
   for (const row of rows) {
     const engine = toEngine(row);
