@@ -2,6 +2,9 @@ import { expect, test } from "@playwright/test";
 import { screenshot, seriousViolations, signIn } from "./fixtures";
 
 test("a builder adds an engine through the form: a bad figure first, then a clean save", async ({ page }) => {
+  // the stud rows come from round trips to the server (Generate pattern, Conform's list intents), then the
+  // new engine's pages are read: more than the default 30 s on a busy two-core machine
+  test.setTimeout(60_000);
   await signIn(page, "builder@example.com");
   await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Engines" }).click();
   await expect(page.getByRole("heading", { name: "Engines", level: 1 })).toBeVisible();
