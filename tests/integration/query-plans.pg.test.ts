@@ -4,9 +4,9 @@ import { engineStatusCounts, listEngines } from "~/models/engine.server";
 import { chosenPlanVerdicts } from "~/models/plan-estimate.server";
 import { listPlans } from "~/models/plan.server";
 import { listAuditEvents, livePlans } from "~/models/team.server";
-import { db } from "~/utils/db.server";
 import { appDb, ownerDb } from "../setup/db-roles";
 import { onPostgres, rowsOf } from "../setup/engine";
+import { capturedSelects } from "./captured-selects";
 
 // PostgreSQL's plans of the hot queries (engine list, plan list, dashboard counts and verdicts, activity)
 // at hosted size: 5,000 engines and 30,000 plans in one team (issue 15). The statements are the ones the
@@ -37,18 +37,6 @@ function nodes(n: PlanNode): PlanNode[] {
   return [n, ...(n.Plans ?? []).flatMap(nodes)];
 }
 
-async function captured(run: () => Promise<unknown>): Promise<{ sql: string; bindings: unknown[] }[]> {
-  const seen: { sql: string; bindings: unknown[] }[] = [];
-  const listen = (q: { sql: string; bindings?: unknown[] }) => seen.push({ sql: q.sql, bindings: q.bindings ?? [] });
-  db().on("query", listen);
-  try {
-    await run();
-  } finally {
-    db().removeListener("query", listen);
-  }
-  return seen.filter((q) => /^\s*select/i.test(q.sql) && !/set_config/.test(q.sql));
-}
-
 // A Seq Scan of a table that holds a handful of rows (a shop's library, its members) is the right plan;
 // one of a table that grows with the shop's work (engines, plans, activity) is what the test is for.
 const SMALL_ROWS = 1000;
@@ -69,7 +57,7 @@ async function fullScans(plan: PlanNode): Promise<string[]> {
 /** The plan of each captured statement as the app role for the team, and the team tables it reads in full. */
 async function seqScans(teamId: number, run: () => Promise<unknown>): Promise<{ sql: string; seq: string[]; plan: string }[]> {
   const out: { sql: string; seq: string[]; plan: string }[] = [];
-  for (const captured_ of await captured(run)) {
+  for (const captured_ of await capturedSelects(run)) {
     // the query event carries pg's $1, $2 … placeholders; knex.raw takes ? in the same order
     const q = { sql: captured_.sql.replace(/\$\d+/g, "?"), bindings: captured_.bindings };
     const [json, text] = await appDb().transaction(async (trx: Knex.Transaction) => {

@@ -5,6 +5,7 @@ import { chosenPlanVerdictsBatched } from "~/models/dashboard.server";
 import { listPlans } from "~/models/plan.server";
 import { listAuditEvents, livePlans } from "~/models/team.server";
 import { db } from "~/utils/db.server";
+import { capturedSelects } from "./captured-selects";
 
 // The hot queries (dashboard, engine list, plan list) read through EXPLAIN QUERY PLAN: none may scan a
 // team-scoped table in full, and the activity and the default engine list must not sort in a temp tree.
@@ -16,22 +17,10 @@ interface Step {
   detail: string;
 }
 
-async function captured(run: () => Promise<unknown>): Promise<{ sql: string; bindings: unknown[] }[]> {
-  const seen: { sql: string; bindings: unknown[] }[] = [];
-  const listen = (q: { sql: string; bindings?: unknown[] }) => seen.push({ sql: q.sql, bindings: q.bindings ?? [] });
-  db().on("query", listen);
-  try {
-    await run();
-  } finally {
-    db().removeListener("query", listen);
-  }
-  return seen.filter((q) => /^\s*select/i.test(q.sql));
-}
-
 /** Every step of every captured statement's plan, with the table name resolved from its alias. */
 async function plans(run: () => Promise<unknown>): Promise<{ sql: string; steps: string[] }[]> {
   const out: { sql: string; steps: string[] }[] = [];
-  for (const q of await captured(run)) {
+  for (const q of await capturedSelects(run)) {
     const rows = (await db().raw(`explain query plan ${q.sql}`, q.bindings as never[])) as Step[];
     out.push({ sql: q.sql, steps: rows.map((r) => r.detail) });
   }
