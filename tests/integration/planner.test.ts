@@ -53,6 +53,12 @@ async function editorValues(id = planId, engineId = four): Promise<Record<string
   return (out.body as Loaded).values;
 }
 
+/** The values a Conform reply shows (blank fields left out), and the answer's note. */
+function answered(body: unknown): { values: Record<string, string>; note: string | null } {
+  const b = body as { result: { initialValue: Record<string, string> }; note: string | null };
+  return { values: b.result.initialValue, note: b.note };
+}
+
 const editorPost = (fields: Record<string, string>, cookie = builder, id = planId) =>
   call(editor.action as Handler, post(`/engines/${four}/plans/${id}`, fields, cookie), { engineId: String(four), planId: String(id) });
 
@@ -65,7 +71,7 @@ describe("choosing another fastener", () => {
     expect(shown.figuresFastenerId).toBe(shown.fastenerId);
     const out = await editorPost({ ...shown, intent: "save", fastenerId: String(fastener[M12]) });
     expect(out.status).toBe(200);
-    const body = out.body as { values: Record<string, string>; note: string };
+    const body = answered(out.body);
     // the M12 maker's sheet (demo): 40, 90, then 150 N·m with moly assembly paste; the library's friction 0.11 / 0.12
     expect(body.values).toMatchObject({
       torque: "150",
@@ -108,7 +114,7 @@ describe("choosing another fastener", () => {
     const again = await editorValues();
     const recalc = await editorPost({ ...again, intent: "estimate", fastenerId: String(fastener[M12]) });
     expect(recalc.status).toBe(200);
-    const body = recalc.body as { values: Record<string, string>; preview: { torqueNm: number } | null; note: string | null };
+    const body = { ...answered(recalc.body), preview: (recalc.body as { preview: { torqueNm: number } | null }).preview };
     expect(body.note).toMatch(/follow the maker's figures for M12/);
     expect(body.values.torque).toBe("150");
     // the estimate shown is for the followed figures; the stretch-gauge plan follows the M12 maker's 0.15 mm
@@ -131,7 +137,7 @@ describe("choosing another fastener", () => {
       params,
     );
     expect(out.status).toBe(200);
-    const body = out.body as { values: Record<string, string>; note: string };
+    const body = answered(out.body);
     // 35, 65, then 85 lbf·ft, shown to a metric builder at whole N·m
     expect(body.values).toMatchObject({
       torque: "115",
@@ -293,7 +299,7 @@ describe("gaskets by bore", () => {
     const shown = await editorValues();
     const out = await editorPost({ ...shown, intent: "show-all-gaskets", torque: "133" });
     expect(out.status).toBe(200);
-    expect((out.body as { values: Record<string, string> }).values).toMatchObject({ showAllGaskets: "1", torque: "133" });
+    expect(answered(out.body).values).toMatchObject({ showAllGaskets: "1", torque: "133" });
     expect(await planRow(planId)).toEqual(before);
   });
 });

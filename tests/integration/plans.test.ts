@@ -57,6 +57,13 @@ beforeAll(async () => {
   planId = (await listPlans(teamId, engineId))[0]!.id;
 });
 
+/** Conform's reply in an answer: the first message per field ("" for the form's own), and the values it shows. */
+function reply(body: unknown): { errors: Record<string, string>; values: Record<string, unknown> } {
+  const result = (body as { result: { error?: Record<string, string[]>; initialValue: Record<string, unknown> } }).result;
+  const errors = Object.fromEntries(Object.entries(result.error ?? {}).map(([name, list]) => [name, list[0]!]));
+  return { errors, values: result.initialValue };
+}
+
 async function currentForm(overrides: Record<string, string> = {}) {
   const row = await planRow(planId);
   return editorForm({ gasketId: String(row.gasket_id), fastenerId: String(row.fastener_id), ...overrides });
@@ -162,9 +169,12 @@ describe("plan editor", () => {
       planId: String(planId),
     });
     expect(out.status).toBe(400);
-    const errors = (out.body as { errors: Record<string, string> }).errors;
-    expect(errors.torque).toMatch(/Torque must be between/);
+    const { errors, values } = reply(out.body);
+    expect(errors.torque).toBe("Torque must be between 1 N·m and 5,000 N·m");
+    expect(errors.stages).toBe("Stages must rise, ending at the final torque");
     expect(errors.threadFriction).toBe("Thread friction is a number like 0.12");
+    // what was typed comes back as typed
+    expect(values).toMatchObject({ torque: "-5", stages: "10, 5", threadFriction: "abc" });
     expect(await planRow(planId)).toEqual(before);
   });
 
@@ -282,7 +292,11 @@ describe("gasket fit", () => {
       params,
     );
     expect(out.status).toBe(400);
-    expect((out.body as { problems: string[] }).problems[0]).toMatch(/far larger than the 86\.00 mm cylinder bore/);
+    // filed under the gasket, the field the builder changes
+    const { errors, values } = reply(out.body);
+    expect(errors.gasketId).toMatch(/far larger than the 86\.00 mm cylinder bore/);
+    expect(errors[""]).toBeUndefined();
+    expect(values).toMatchObject({ name: "Wrong gasket", gasketId: String(big.id) });
     expect(await count()).toBe(before);
   });
 });
@@ -342,7 +356,7 @@ describe("new plan", () => {
       params,
     );
     expect(bad.status).toBe(400);
-    expect((bad.body as { errors: Record<string, string> }).errors.name).toBe("Name the plan");
+    expect(reply(bad.body).errors.name).toBe("Name the plan");
     expect(await count()).toBe(before);
     const good = await call(
       newPlan.action as Handler,
