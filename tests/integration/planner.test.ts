@@ -393,6 +393,12 @@ describe("duplicating an engine", () => {
   });
 });
 
+/** The copy form's one message (Conform's reply: the form's own, or the engine field's). */
+function copyRefusal(body: unknown): string | undefined {
+  const error = (body as { result: { error?: Record<string, string[]> } }).result.error ?? {};
+  return (error[""] ?? error.targetEngineId)?.[0];
+}
+
 describe("copying a plan to another engine", () => {
   const url = (id: number) => `/engines/${four}/plans/${id}/copy`;
   const params = (id: number) => ({ engineId: String(four), planId: String(id) });
@@ -426,7 +432,7 @@ describe("copying a plan to another engine", () => {
     const before = await plansOn(v8);
     const out = await cp(planId, v8);
     expect(out.status).toBe(400);
-    expect((out.body as { error: string }).error).toBe(
+    expect(copyRefusal(out.body)).toBe(
       "Not copied to “Saltings 6.5 V8”: The gasket's 87.00 mm bore is smaller than the 106.00 mm cylinder bore: it would hang into the bore.",
     );
     expect(await plansOn(v8)).toBe(before);
@@ -455,7 +461,7 @@ describe("copying a plan: the form", () => {
       planId: String(planId),
     });
     expect(out.status).toBe(400);
-    expect((out.body as { error: string }).error).toBe("Pick the engine to copy the plan to.");
+    expect(copyRefusal(out.body)).toBe("Pick the engine to copy the plan to.");
     expect(Number((await db()("seal_plans").count({ n: "*" }))[0]!.n)).toBe(count);
   });
 });
