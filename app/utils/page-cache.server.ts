@@ -22,8 +22,9 @@ export const documentRequestContext = createContext<boolean>(false);
 interface KeptPage {
   status: number;
   headers: [string, string][];
-  body: string;
-  /** The CSP nonce the page was rendered with; each answer gets a fresh one in its place. */
+  /** The page's bytes cut at each place its CSP nonce stood; each answer puts a fresh one there. */
+  parts: Buffer[];
+  /** The CSP nonce the page was rendered with (in the headers). */
   nonce: string;
 }
 
@@ -66,14 +67,29 @@ export async function cachedPage({ request, context }: MiddlewareArgs, next: () 
     return response;
   const body = await response.text();
   const nonce = NONCE_ATTR.exec(body)?.[1];
-  if (nonce) PAGE_CACHE.set(key, { status: response.status, headers: [...response.headers], body, nonce });
+  if (nonce)
+    PAGE_CACHE.set(key, {
+      status: response.status,
+      headers: [...response.headers],
+      parts: body.split(nonce).map((p) => Buffer.from(p)),
+      nonce,
+    });
   return new Response(body, { status: response.status, headers: response.headers });
 }
 
-/** The kept page with a fresh nonce in the body and the headers (one nonce per response, as rendered). */
+/**
+ * The kept page with a fresh nonce in the body and the headers (one nonce per response, as rendered):
+ * the bytes joined around it, no text to search or encode again.
+ */
 function replay(kept: KeptPage): Response {
   const nonce = crypto.randomBytes(16).toString("base64");
   const headers = new Headers();
   for (const [name, value] of kept.headers) headers.append(name, value.replaceAll(kept.nonce, nonce));
-  return new Response(kept.body.replaceAll(kept.nonce, nonce), { status: kept.status, headers });
+  const nonceBytes = Buffer.from(nonce);
+  const chunks: Buffer[] = [];
+  for (const [i, part] of kept.parts.entries()) {
+    if (i > 0) chunks.push(nonceBytes);
+    chunks.push(part);
+  }
+  return new Response(Buffer.concat(chunks), { status: kept.status, headers });
 }
