@@ -18,8 +18,9 @@ import { fillSecurityHeaders, securityHeaders } from "./utils/security-headers.s
 export const streamTimeout = 5_000;
 
 // For the production server (scripts/serve.mjs), which must use the build's own copies: the router
-// context key it puts the client's address under, and the header table it puts on static files.
+// context keys it puts the client's address and "this is a page request" under, and the header table it puts on static files.
 export { clientAddressContext } from "./utils/client-address.server";
+export { documentRequestContext } from "./utils/page-cache.server";
 export { fillHeaderValues, kindOf } from "./utils/security-headers.server";
 
 const production = process.env.NODE_ENV === "production";

@@ -17,7 +17,7 @@ const production = process.env.NODE_ENV === "production";
 
 const buildPath = path.resolve(process.argv[2] ?? "build/server/index.js");
 const build = await import(url.pathToFileURL(buildPath).href);
-const { clientAddressContext, fillHeaderValues, kindOf } = build.entry.module;
+const { clientAddressContext, documentRequestContext, fillHeaderValues, kindOf } = build.entry.module;
 const clientDir = path.resolve(path.dirname(buildPath), "..", "client");
 
 const app = express();
@@ -53,6 +53,8 @@ app.all(
     getLoadContext(req) {
       const context = new RouterContextProvider();
       context.set(clientAddressContext, req.ip ?? req.socket.remoteAddress ?? "unknown");
+      // a rendered page, not a client navigation's .data request (the page cache keeps pages only)
+      context.set(documentRequestContext, req.method === "GET" && !req.path.endsWith(".data"));
       return context;
     },
   }),

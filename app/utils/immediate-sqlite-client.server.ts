@@ -19,9 +19,70 @@ class ImmediateTransaction extends TransactionSqlite {
   }
 }
 
+// Knex's better-sqlite3 client prepares every statement anew (SQLite compiles the SQL each time: a tenth
+// of a page request's CPU in the plan editor's profile, docs/performance.md). The same SQL on the same
+// connection reuses its compiled statement instead; SQLite recompiles a kept statement by itself after a
+// schema change (sqlite3_prepare_v2). Only for queries that leave safeIntegers alone (a statement keeps
+// that setting), and at most STATEMENTS_KEPT per connection, the oldest dropped first.
+const STATEMENTS_KEPT = 500;
+
+interface Statement {
+  reader: boolean;
+  all(bindings: unknown[]): unknown;
+  run(bindings: unknown[]): { lastInsertRowid: number | bigint; changes: number };
+}
+interface Connection {
+  prepare(sql: string): Statement;
+}
+interface QueryObject {
+  sql?: string;
+  bindings?: unknown[];
+  options?: unknown;
+  response?: unknown;
+  context?: unknown;
+}
+
+const kept = new WeakMap<Connection, Map<string, Statement>>();
+
+function keptStatement(connection: Connection, sql: string): Statement {
+  let statements = kept.get(connection);
+  if (!statements) kept.set(connection, (statements = new Map()));
+  let statement = statements.get(sql);
+  if (!statement) {
+    statement = connection.prepare(sql);
+    statements.set(sql, statement);
+    if (statements.size > STATEMENTS_KEPT) statements.delete(statements.keys().next().value as string);
+  }
+  return statement;
+}
+
+type ClientInternals = {
+  _optSafeIntegers(options: unknown): boolean | undefined;
+  _formatBindings(bindings: unknown[] | undefined): unknown[];
+};
+const knexQuery = (ClientBetterSqlite3.prototype as unknown as { _query(c: Connection, o: QueryObject): Promise<QueryObject> })._query;
+
 class ImmediateClient extends ClientBetterSqlite3 {
   transaction(container: unknown, config: unknown, outerTx: unknown): Knex.Transaction {
     return new ImmediateTransaction(this, container, config, outerTx) as unknown as Knex.Transaction;
+  }
+
+  // as Knex's own _query (knex/lib/dialects/better-sqlite3), with the statement kept
+  async _query(connection: Connection, obj: QueryObject): Promise<QueryObject> {
+    const self = this as unknown as ClientInternals;
+    if (!obj.sql) throw new Error("The query is empty");
+    if (!connection) throw new Error("No connection provided");
+    if (self._optSafeIntegers(obj.options) !== undefined) return knexQuery.call(this, connection, obj);
+    const statement = keptStatement(connection, obj.sql);
+    const bindings = self._formatBindings(obj.bindings);
+    if (statement.reader) {
+      obj.response = statement.all(bindings);
+      return obj;
+    }
+    const response = statement.run(bindings);
+    obj.response = response;
+    obj.context = { lastID: response.lastInsertRowid, changes: response.changes };
+    return obj;
   }
 }
 

@@ -2,7 +2,8 @@
 // (scripts/serve.mjs, the production server) on one PostgreSQL, limits in one shared store.
 //   1. a session made on one process is valid on the other;
 //   2. the sign-in throttle counts attempts made on both (five wrong passwords over two, the sixth is 429);
-//   3. an engine saved through one is listed by the other;
+//   3. an engine saved through one is listed by the other, and a plan chosen through one shows on the
+//      other's plan editor page though that process had the page in its page cache (the version is the DB's);
 //   4. throughput of the plan page and the estimate API with 1, 2 and 4 processes (loopback only).
 // Needs `npm run build` and a PostgreSQL (HOSTED_PG_URL, default postgres://127.0.0.1:5432/test): it makes
 // its own database there and drops it at the end. RATE_LIMIT_STORE=redis uses REDIS_URL instead.
@@ -155,9 +156,31 @@ try {
   const after = await (await page(b!, "/engines", cookie)).text();
   check(dup.status === 302 && after.includes("(copy)"), `an engine saved on :${a} (duplicate → ${dup.status}) is listed on :${b}`);
 
-  // 4. throughput with 1, 2 and 4 processes
-  const planPath = /href="(\/engines\/\d+\/plans\/\d+)"/.exec(await (await page(a!, `/engines/${engineId}/plans`, cookie)).text())?.[1];
+  // 3b. B keeps the editor page of a plan not chosen; choosing it through A retires B's copy
+  const planPaths = [
+    ...(await (await page(a!, `/engines/${engineId}/plans`, cookie)).text()).matchAll(/href="(\/engines\/\d+\/plans\/\d+)"/g),
+  ].map((m) => m[1]!);
+  const planPath = planPaths[0];
   if (!planPath) throw new Error("no plan link on the plans page");
+  let notChosen: string | undefined;
+  for (const path of new Set(planPaths)) if ((await (await page(b!, path, cookie)).text()).includes("Mark as chosen")) notChosen ??= path;
+  if (notChosen) {
+    const kept = await (await page(b!, notChosen, cookie)).text();
+    const choose = await fetch(origin(a!) + notChosen, {
+      method: "POST",
+      redirect: "manual",
+      headers: { "Content-Type": "application/x-www-form-urlencoded", Origin: origin(a!), Cookie: cookie },
+      body: "intent=choose",
+    });
+    await choose.arrayBuffer();
+    const fresh = await (await page(b!, notChosen, cookie)).text();
+    check(
+      kept.includes("Mark as chosen") && choose.status === 302 && !fresh.includes("Mark as chosen"),
+      `a plan chosen on :${a} (→ ${choose.status}) shows as chosen on :${b}'s editor page, which :${b} had kept`,
+    );
+  } else check(false, "a plan that is not the chosen one, to choose");
+
+  // 4. throughput with 1, 2 and 4 processes
   const input = await planInput(planPath);
   await stopAll();
   console.log(`throughput, ${concurrency} requests at a time for ${seconds} s each (loopback; this machine's 2 cores are shared):`);

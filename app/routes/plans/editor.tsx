@@ -22,6 +22,7 @@ import { estimatePlan, planStretch, type PlanEstimateResult } from "~/models/pla
 import { archivePlan, choosePlan, createPlan, engineMaterials, planChoices, requirePlan, updatePlan } from "~/models/plan.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
 import { readIntent } from "~/utils/conform.server";
+import { cachedPage } from "~/utils/page-cache.server";
 import { planFormStep, refuseChangedEstimate, refuseEstimate, replyForStored, type PlanReply } from "~/utils/plan-form.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
@@ -29,6 +30,9 @@ export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.plan.na
 
 // this page shows the full caution beside its figures (the footer leaves it out)
 export const handle = CAUTION_HANDLE;
+
+// the rendered page is kept per person and per version of the shop's data (utils/page-cache.server.ts)
+export const middleware: Route.MiddlewareFunction[] = [cachedPage];
 
 export async function loader({ request, params }: Route.LoaderArgs) {
   const { user, team, role, who } = await requireUser(request);

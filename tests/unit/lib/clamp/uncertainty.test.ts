@@ -1,8 +1,17 @@
 // The scatter run (app/lib/clamp/uncertainty.ts): the generator, the normals and the preload band.
 import { describe, expect, it } from "vitest";
-import { fillNormals, mulberry32, normal, uncertainty } from "../../../../app/lib/clamp/uncertainty";
+import {
+  fillNormals,
+  fillNormalsPolar,
+  fillNormalsPolarInline,
+  mulberry32,
+  normal,
+  percentiles,
+  uncertainty,
+} from "../../../../app/lib/clamp/uncertainty";
+import { PlanInputSchema } from "../../../../app/lib/clamp";
 import { TIGHTENING_FACTOR } from "../../../../app/lib/clamp/torque";
-import { workedExample } from "./fixtures";
+import { v8Raw, workedExample } from "./fixtures";
 
 describe("mulberry32", () => {
   it("is deterministic for a seed, differs between seeds, and stays in [0, 1)", () => {
@@ -68,5 +77,51 @@ describe("uncertainty", () => {
       uncertainty({ ...plan, tightening: { ...plan.tightening, target: { mode: "torque", torqueNm } } }, { samples: 800, seed: 2 })
         .probabilityMarginBelowOne;
     expect(at(240)).toBeLessThanOrEqual(at(120));
+  });
+});
+
+describe("the scatter run's inner steps (third performance round)", () => {
+  it("draws the same deviates inline as fillNormalsPolar on mulberry32, to the last bit, and leaves the state where it stopped", () => {
+    for (const seed of [0, 1, 42, 0xffffffff]) {
+      const rand = mulberry32(seed);
+      const state = Uint32Array.of(seed >>> 0);
+      for (const length of [1, 2, 7, 20, 40]) {
+        const want = fillNormalsPolar(rand, new Float64Array(length));
+        const got = new Float64Array(length);
+        fillNormalsPolarInline(state, got);
+        expect(Array.from(got)).toEqual(Array.from(want));
+      }
+    }
+  });
+
+  it("reads the percentiles by selection exactly as from the sorted values, ties and NaN included", () => {
+    const rand = mulberry32(5);
+    for (const n of [1, 2, 3, 10, 101, 1000]) {
+      // coarse values: many ties
+      const a = Float64Array.from({ length: n }, () => Math.round(rand() * 20) / 4);
+      if (n === 101) a[50] = NaN;
+      const sorted = Float64Array.from(a).sort();
+      const read = (q: number) => {
+        const x = q * (n - 1);
+        const i = Math.floor(x);
+        const j = Math.min(n - 1, i + 1);
+        return sorted[i]! + (sorted[j]! - sorted[i]!) * (x - i);
+      };
+      const qs = [0.025, 0.05, 0.5, 0.95, 0.975];
+      expect(percentiles(Float64Array.from(a), qs)).toEqual(qs.map(read));
+    }
+  });
+
+  it("keeps the stud-over chance the per-stud check gave where it is neither 0 nor 1 (V8 fixture, seed 9)", () => {
+    // figures of the round-2 code, which checked every stud of every sample; the run now checks the
+    // sample's smallest and largest preload only (the check is convex in the preload)
+    for (const [torqueNm, want] of [
+      [130, 0.1805],
+      [140, 0.66375],
+    ] as const) {
+      const plan = PlanInputSchema.parse(v8Raw());
+      (plan.tightening.target as { torqueNm: number }).torqueNm = torqueNm;
+      expect(uncertainty(plan, { samples: 4000, seed: 9 }).probabilityStudOverLimit).toBe(want);
+    }
   });
 });
