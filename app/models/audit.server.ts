@@ -4,7 +4,10 @@ import type { Knex } from "knex";
 // app/utils/db.server.ts), so the row and its audit line land together or not at all. Imported by the
 // seed files with a relative path (through library-seed.server.ts), so nothing here may use the "~" alias.
 
-/** Adds one audit_events row for the team; `userId` null for the seed and other work no person did. */
+/**
+ * Adds one audit_events row for the team and moves the team's data version (team-version.server.ts) in
+ * the same transaction; `userId` null for the seed and other work no person did.
+ */
 export async function recordAudit(
   trx: Knex.Transaction | Knex,
   teamId: number,
@@ -14,4 +17,5 @@ export async function recordAudit(
   at: string = new Date().toISOString(),
 ): Promise<void> {
   await trx("audit_events").insert({ team_id: teamId, user_id: userId, action, detail: JSON.stringify(detail), created_at: at });
+  await trx("teams").where({ id: teamId }).increment("data_version", 1);
 }
