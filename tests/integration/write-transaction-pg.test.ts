@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { db, writeTransaction } from "~/utils/db.server";
+import { writeTransaction } from "~/utils/db.server";
 import { onPostgres } from "../setup/engine";
+import { ownerDb } from "../setup/db-roles";
 
 // On PostgreSQL writeTransaction is SERIALIZABLE and runs a refused transaction again: a quota-like
 // read-then-write raced by another connection stays within its limit. Under READ COMMITTED both racers
@@ -29,7 +30,7 @@ describe.runIf(onPostgres)("write transactions on PostgreSQL", () => {
     const results = await Promise.all([claim(), claim()]);
     expect(results.sort()).toEqual([false, true]);
     expect(attempts).toBeGreaterThanOrEqual(3); // two first tries and at least one retry of the refused one
-    expect(await db()("audit_events").where({ action }).count({ n: "*" })).toEqual([{ n: 1 }]);
+    expect(await ownerDb()("audit_events").where({ action }).count({ n: "*" })).toEqual([{ n: 1 }]);
   });
 
   it("does not retry an error that is not a serialization failure", async () => {
