@@ -1,6 +1,6 @@
 import type { Knex } from "knex";
 import { RESET_MINUTES } from "~/lib/mail/messages";
-import { db, now, writeTransaction } from "~/utils/db.server";
+import { db, now, setRowScope, writeTransaction } from "~/utils/db.server";
 import { hashPassword } from "~/utils/password.server";
 import { hashLinkToken, isLinkToken, newLinkToken } from "~/utils/tokens.server";
 import { normalizeEmail } from "./user.server";
@@ -50,6 +50,8 @@ export async function completePasswordReset(token: string | undefined, newPasswo
   return writeTransaction(async (trx) => {
     const row = await usableReset(trx, token);
     if (!row) return false;
+    // the person is known only now: row security lets this transaction end their sessions, nobody else's
+    await setRowScope(trx, { userId: row.user_id });
     await trx("users").where({ id: row.user_id }).update({ password_hash: passwordHash });
     await trx("password_resets").where({ user_id: row.user_id }).whereNull("used_at").update({ used_at: now() });
     await trx("sessions").where({ user_id: row.user_id }).delete();

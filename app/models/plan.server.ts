@@ -1,7 +1,7 @@
 import { data } from "react-router";
 import type { PlanParts, PlanRecord } from "~/lib/plan/assemble";
 import type { PlanWrite } from "~/lib/plan/form";
-import { now, withTeam, writeTransaction, type DbRow } from "~/utils/db.server";
+import { now, setRowScope, withTeam, writeTransaction, type DbRow } from "~/utils/db.server";
 import type { EngineRow } from "./engine.server";
 import {
   getFastener as getLibraryFastener,
@@ -150,6 +150,7 @@ function planColumns(w: PlanWrite) {
 
 export async function createPlan(teamId: number, userId: number, engineId: number, w: PlanWrite): Promise<number> {
   return writeTransaction(async (trx) => {
+    await setRowScope(trx, { teamId });
     const at = now();
     const [row] = await trx("seal_plans")
       .insert({ team_id: teamId, engine_id: engineId, created_at: at, updated_at: at, ...planColumns(w) })
@@ -162,6 +163,7 @@ export async function createPlan(teamId: number, userId: number, engineId: numbe
 
 export async function updatePlan(teamId: number, userId: number, engineId: number, planId: number, w: PlanWrite): Promise<void> {
   await writeTransaction(async (trx) => {
+    await setRowScope(trx, { teamId });
     await trx("seal_plans")
       .where({ team_id: teamId, engine_id: engineId, id: planId })
       .update({ ...planColumns(w), updated_at: now() });
@@ -171,6 +173,7 @@ export async function updatePlan(teamId: number, userId: number, engineId: numbe
 
 export async function archivePlan(teamId: number, userId: number, engineId: number, planId: number): Promise<void> {
   await writeTransaction(async (trx) => {
+    await setRowScope(trx, { teamId });
     await trx("seal_plans").where({ team_id: teamId, engine_id: engineId, id: planId }).update({ archived_at: now() });
     await trx("engines").where({ team_id: teamId, id: engineId, chosen_plan_id: planId }).update({ chosen_plan_id: null });
     await recordAudit(trx, teamId, userId, "plan.archived", { engineId, planId });

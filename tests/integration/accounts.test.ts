@@ -2,10 +2,10 @@ import argon2 from "argon2";
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
 import { createUserWithTeam, EmailTakenError } from "~/models/user.server";
 import * as signup from "~/routes/auth/signup";
-import { db } from "~/utils/db.server";
 import { isCommonPassword } from "~/utils/password.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
 import { call, post, type Handler } from "./helpers";
+import { ownerDb } from "../setup/db-roles";
 
 /** The first message Conform's answer (`result.error`) carries for a sign-up field. */
 const fieldError = (body: unknown, name: string) =>
@@ -19,7 +19,7 @@ const form = (over: Record<string, string> = {}) => ({
   password: "a sentence for the bench",
   ...over,
 });
-const count = async (table: string) => Number((await db()(table).count({ n: "*" }))[0]!.n);
+const count = async (table: string) => Number((await ownerDb()(table).count({ n: "*" }))[0]!.n);
 
 beforeEach(() => resetThrottles());
 
@@ -39,7 +39,7 @@ describe("defect 4: weak passwords are refused", () => {
       const out = await call(action, post("/signup", form({ email: "spaces@example.com", password })));
       expect(fieldError(out.body, "password")).toBe("Use letters, digits or symbols, not only spaces");
     }
-    expect(await db()("users").where({ email: "spaces@example.com" }).first()).toBeUndefined();
+    expect(await ownerDb()("users").where({ email: "spaces@example.com" }).first()).toBeUndefined();
   });
 
   it("the list is the public one (tens of thousands of entries), and a sentence is not on it", () => {

@@ -4,11 +4,11 @@ import { EstimateRequestSchema, RunCreateSchema, SweepRequestSchema } from "~/li
 import { assemblePlanInput } from "~/lib/plan/assemble";
 import { getEngine } from "~/models/engine.server";
 import { listPlans, planParts } from "~/models/plan.server";
-import { db } from "~/utils/db.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
 import { api, DEMO_TEAM, rowCounts, teamId, tokenFor } from "./api-helpers";
 import { EMAIL, teamWide } from "./helpers";
 import type { z } from "zod";
+import { ownerDb } from "../setup/db-roles";
 
 // Property: for 1,000 generated bodies per write endpoint of /api/v1 (API_FUZZ_RUNS to change it), sent
 // with a builder's token behind the root middleware — no answer is a 5xx; a body the endpoint's own zod
@@ -23,7 +23,7 @@ let planInput: Record<string, unknown> = {};
 beforeAll(async () => {
   token = await tokenFor(EMAIL.builder);
   const demo = await teamId(DEMO_TEAM);
-  engineId = (await db()("engines").where({ team_id: demo, cylinders: 4 }).first("id")).id;
+  engineId = (await ownerDb()("engines").where({ team_id: demo, cylinders: 4 }).first("id")).id;
   const engine = (await getEngine(teamWide(demo), engineId))!;
   planInput = assemblePlanInput((await planParts(demo, engine, (await listPlans(demo, engineId))[0]!))!) as unknown as Record<
     string,

@@ -2,10 +2,10 @@ import { RouterContextProvider } from "react-router";
 import { createToken } from "~/models/api-token.server";
 import type { Role } from "~/models/user.server";
 import { clientAddressContext } from "~/utils/client-address.server";
-import { db } from "~/utils/db.server";
 import { ORIGIN } from "./helpers";
 import { through, type Answer } from "./pipeline";
 import { appRoutes, type RouteInfo } from "./routes-list";
+import { ownerDb } from "../setup/db-roles";
 
 // Calls the JSON API the way a script or the browser would: the path is matched against app/routes.ts,
 // the request runs behind the root middleware, with a bearer token or a cookie, from an address.
@@ -55,11 +55,11 @@ export async function api(method: "GET" | "POST" | "PUT" | "DELETE", path: strin
 }
 
 export async function userId(email: string): Promise<number> {
-  return (await db()("users").where({ email }).first("id")).id;
+  return (await ownerDb()("users").where({ email }).first("id")).id;
 }
 
 export async function teamId(name: string): Promise<number> {
-  return (await db()("teams").where({ name }).first("id")).id;
+  return (await ownerDb()("teams").where({ name }).first("id")).id;
 }
 
 export const DEMO_TEAM = "Harrow Lane Boost Works";
@@ -68,14 +68,14 @@ export const OTHER_TEAM = "Saltmarsh Dyno Cell";
 /** A live token for the person in their (first) team at `role` (their own role when not given). */
 export async function tokenFor(email: string, role?: Role): Promise<string> {
   const uid = await userId(email);
-  const m = await db()("memberships").where({ user_id: uid }).orderBy("team_id").first();
+  const m = await ownerDb()("memberships").where({ user_id: uid }).orderBy("team_id").first();
   return (await createToken(m.team_id, uid, `test ${email}`, role ?? m.role)).token;
 }
 
 export async function rowCounts(): Promise<Record<string, number>> {
   const out: Record<string, number> = {};
   for (const t of ["runs", "api_tokens", "audit_events", "engines", "seal_plans"]) {
-    if (await db().schema.hasTable(t)) out[t] = Number((await db()(t).count({ n: "*" }).first())!.n);
+    if (await ownerDb().schema.hasTable(t)) out[t] = Number((await ownerDb()(t).count({ n: "*" }).first())!.n);
   }
   return out;
 }
@@ -83,18 +83,18 @@ export async function rowCounts(): Promise<Record<string, number>> {
 /** An engine of the other shop (the demo seed gives it none): a copy of one demo engine, on its own materials. */
 export async function otherTeamEngine(): Promise<number> {
   const other = await teamId(OTHER_TEAM);
-  const existing = await db()("engines").where({ team_id: other }).first("id");
+  const existing = await ownerDb()("engines").where({ team_id: other }).first("id");
   if (existing) return existing.id;
-  const demo = await db()("engines")
+  const demo = await ownerDb()("engines")
     .where({ team_id: await teamId(DEMO_TEAM), cylinders: 4 })
     .first();
   const own = async (materialId: number | null) => {
     if (materialId === null) return null;
-    const name = (await db()("materials").where({ id: materialId }).first("name")).name;
-    return (await db()("materials").where({ team_id: other, name }).first("id")).id;
+    const name = (await ownerDb()("materials").where({ id: materialId }).first("name")).name;
+    return (await ownerDb()("materials").where({ team_id: other, name }).first("id")).id;
   };
   const { id: _id, ...row } = demo;
-  const [made] = await db()("engines")
+  const [made] = await ownerDb()("engines")
     .insert({
       ...row,
       team_id: other,

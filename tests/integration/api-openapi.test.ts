@@ -5,11 +5,11 @@ import { API_V1_PATHS, apiDocument } from "~/lib/api/openapi";
 import { assemblePlanInput } from "~/lib/plan/assemble";
 import { getEngine } from "~/models/engine.server";
 import { listPlans, planParts } from "~/models/plan.server";
-import { db } from "~/utils/db.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
 import { api, DEMO_TEAM, teamId, tokenFor } from "./api-helpers";
 import { EMAIL, teamWide } from "./helpers";
 import { appRoutes } from "./routes-list";
+import { ownerDb } from "../setup/db-roles";
 
 // The OpenAPI document: valid OpenAPI 3.1 by a parser from the registry, naming exactly the /api/v1
 // routes of app/routes.ts, and a real answer of every endpoint (and its refusals) fits the schema the
@@ -69,7 +69,7 @@ describe("real answers fit their documented schemas", () => {
     token = await tokenFor(EMAIL.viewer);
     builder = await tokenFor(EMAIL.builder);
     const demo = await teamId(DEMO_TEAM);
-    engineId = (await db()("engines").where({ team_id: demo, cylinders: 4 }).first("id")).id;
+    engineId = (await ownerDb()("engines").where({ team_id: demo, cylinders: 4 }).first("id")).id;
     const plan = (await listPlans(demo, engineId))[0]!;
     planId = plan.id;
     input = assemblePlanInput((await planParts(demo, (await getEngine(teamWide(demo), engineId))!, plan))!);

@@ -3,10 +3,10 @@ import { assemblePlanInput } from "~/lib/plan/assemble";
 import { getEngine } from "~/models/engine.server";
 import { listPlans, planParts } from "~/models/plan.server";
 import * as tokens from "~/routes/shop/tokens";
-import { db } from "~/utils/db.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
 import { api, DEMO_TEAM, otherTeamEngine, rowCounts, teamId, tokenFor } from "./api-helpers";
 import { call, EMAIL, get, post, signIn, type Handler, teamWide } from "./helpers";
+import { ownerDb } from "../setup/db-roles";
 
 // Refusals of the API: each bad request gets its documented status and error body and writes nothing;
 // a revoked token is refused from the next request; cookie writes need our Origin; throttles answer 429.
@@ -22,7 +22,7 @@ beforeAll(async () => {
   builderToken = await tokenFor(EMAIL.builder);
   builderCookie = await signIn(EMAIL.builder);
   const demo = await teamId(DEMO_TEAM);
-  engineId = (await db()("engines").where({ team_id: demo, cylinders: 4 }).first("id")).id;
+  engineId = (await ownerDb()("engines").where({ team_id: demo, cylinders: 4 }).first("id")).id;
   const engine = (await getEngine(teamWide(demo), engineId))!;
   planInput = assemblePlanInput((await planParts(demo, engine, (await listPlans(demo, engineId))[0]!))!) as unknown as Record<
     string,
@@ -129,7 +129,7 @@ describe("tokens", () => {
     const text = (made.body as { token: { text: string } }).token.text;
     expect(text).toMatch(/^swt_[\w-]{43}$/);
     expect((await api("GET", "/api/v1/engines", { token: text })).status).toBe(200);
-    const row = await db()("api_tokens").orderBy("id", "desc").first();
+    const row = await ownerDb()("api_tokens").orderBy("id", "desc").first();
     expect(row.token_hash).toMatch(/^[0-9a-f]{64}$/);
     expect(JSON.stringify(row)).not.toContain(text.slice(4));
     expect(row.last_used_at).not.toBeNull();
@@ -161,11 +161,11 @@ describe("tokens", () => {
     expect(up.status).toBe(400);
     expect((up.body as { errors: { role: string } }).errors.role).toBe("You are a viewer here; a token cannot do more.");
     expect(await rowCounts()).toEqual(before);
-    const owners = await db()("api_tokens").whereNull("revoked_at").first("id");
+    const owners = await ownerDb()("api_tokens").whereNull("revoked_at").first("id");
     const other = await signIn(EMAIL.otherTeam);
     const out = await call(tokens.action as Handler, post("/settings/tokens", { intent: "revoke", tokenId: String(owners.id) }, other));
     expect(out.status).toBe(404);
-    expect((await db()("api_tokens").where({ id: owners.id }).first()).revoked_at).toBeNull();
+    expect((await ownerDb()("api_tokens").where({ id: owners.id }).first()).revoked_at).toBeNull();
   });
 
   it("a malformed Authorization header is 401, not a cookie fallback", async () => {

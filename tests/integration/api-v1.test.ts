@@ -2,10 +2,10 @@ import { beforeAll, beforeEach, describe, expect, it, vi } from "vitest";
 import { assemblePlanInput } from "~/lib/plan/assemble";
 import { getEngine } from "~/models/engine.server";
 import { listPlans, planParts } from "~/models/plan.server";
-import { db } from "~/utils/db.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
 import { api, DEMO_TEAM, OTHER_TEAM, otherTeamEngine, rowCounts, teamId, tokenFor } from "./api-helpers";
 import { EMAIL, signIn, teamWide } from "./helpers";
+import { ownerDb } from "../setup/db-roles";
 
 // Every /api/v1 endpoint as each role of the demo shop and as another shop's owner, once with a
 // personal token and once with the session cookie: the status each gets, and what a foreign team sees.
@@ -30,7 +30,7 @@ beforeAll(async () => {
   }
   demoTeam = await teamId(DEMO_TEAM);
   otherTeam = await teamId(OTHER_TEAM);
-  engineId = (await db()("engines").where({ team_id: demoTeam, cylinders: 4 }).first("id")).id;
+  engineId = (await ownerDb()("engines").where({ team_id: demoTeam, cylinders: 4 }).first("id")).id;
   const engine = (await getEngine(teamWide(demoTeam), engineId))!;
   const plan = (await listPlans(demoTeam, engineId))[0]!;
   planId = plan.id;
@@ -96,7 +96,7 @@ describe("every endpoint × role × credential", () => {
     const other = await api("GET", "/api/v1/engines?limit=100", { token: token.otherTeam });
     const demoIds = (demo.body as { items: { id: number }[] }).items.map((e) => e.id);
     const otherIds = (other.body as { items: { id: number }[] }).items.map((e) => e.id);
-    const otherInDb = (await db()("engines").where({ team_id: otherTeam }).whereNull("archived_at").pluck("id")) as number[];
+    const otherInDb = (await ownerDb()("engines").where({ team_id: otherTeam }).whereNull("archived_at").pluck("id")) as number[];
     expect(demoIds).toContain(engineId);
     expect(otherInDb).toHaveLength(1);
     expect(otherIds.sort()).toEqual(otherInDb.sort());
@@ -116,12 +116,12 @@ describe("every endpoint × role × credential", () => {
   it("a token falls to the person's role when their role in the team is lowered", async () => {
     const t = await tokenFor(EMAIL.builder, "builder");
     expect((await api("POST", "/api/v1/runs", { token: t, body: run() })).status).toBe(201);
-    const uid = (await db()("users").where({ email: EMAIL.builder }).first("id")).id;
-    await db()("memberships").where({ user_id: uid, team_id: demoTeam }).update({ role: "viewer" });
+    const uid = (await ownerDb()("users").where({ email: EMAIL.builder }).first("id")).id;
+    await ownerDb()("memberships").where({ user_id: uid, team_id: demoTeam }).update({ role: "viewer" });
     try {
       expect((await api("POST", "/api/v1/runs", { token: t, body: run() })).status).toBe(403);
     } finally {
-      await db()("memberships").where({ user_id: uid, team_id: demoTeam }).update({ role: "builder" });
+      await ownerDb()("memberships").where({ user_id: uid, team_id: demoTeam }).update({ role: "builder" });
     }
   });
 });
@@ -130,7 +130,7 @@ describe("what the reads say", () => {
   it("an engine in SI, the plan with its input and the estimate the plan editor shows", async () => {
     const engine = await api("GET", `/api/v1/engines/${engineId}`, { token: token.viewer });
     const e = engine.body as { id: number; cylinders: number; boreMm: number; teamId?: number };
-    const row = await db()("engines").where({ id: engineId }).first();
+    const row = await ownerDb()("engines").where({ id: engineId }).first();
     expect(e).toMatchObject({ id: engineId, cylinders: 4, boreMm: row.bore_mm });
     expect(e.teamId).toBeUndefined();
     const plan = await api("GET", `/api/v1/engines/${engineId}/plans/${planId}`, { token: token.viewer });
@@ -174,14 +174,14 @@ describe("what the reads say", () => {
     const again = await api("GET", `/api/v1/engines/${engineId}`, { token: token.viewer, headers: { "If-None-Match": etag } });
     expect(again.status).toBe(304);
     expect(again.body).toBe("");
-    await db()("engines").where({ id: engineId }).update({ notes: "changed by the ETag test" });
+    await ownerDb()("engines").where({ id: engineId }).update({ notes: "changed by the ETag test" });
     const changed = await api("GET", `/api/v1/engines/${engineId}`, { token: token.viewer, headers: { "If-None-Match": etag } });
     expect(changed.status).toBe(200);
     expect(changed.headers.get("ETag")).not.toBe(etag);
   });
 
   it("engines page by page/limit with a stated maximum", async () => {
-    const total = Number((await db()("engines").where({ team_id: demoTeam }).whereNull("archived_at").count({ n: "*" }).first())!.n);
+    const total = Number((await ownerDb()("engines").where({ team_id: demoTeam }).whereNull("archived_at").count({ n: "*" }).first())!.n);
     const one = await api("GET", "/api/v1/engines?limit=1", { token: token.builder });
     expect(one.body).toMatchObject({ page: 1, limit: 1, total, nextPage: total > 1 ? 2 : null });
     const last = await api("GET", `/api/v1/engines?limit=1&page=${total}`, { token: token.builder });
@@ -194,7 +194,7 @@ describe("what the reads say", () => {
   });
 
   it("runs page by cursor, newest first, and filter by outcome and date", async () => {
-    await db()("runs").where({ team_id: demoTeam }).delete();
+    await ownerDb()("runs").where({ team_id: demoTeam }).delete();
     for (const [ranOn, outcome] of [
       ["2026-10-01", "held"],
       ["2026-10-02", "seeping"],

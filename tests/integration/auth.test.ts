@@ -3,9 +3,9 @@ import * as dashboard from "~/routes/shop/dashboard";
 import * as login from "~/routes/auth/login";
 import * as logout from "~/routes/auth/logout";
 import * as signup from "~/routes/auth/signup";
-import { db } from "~/utils/db.server";
 import { hashSessionId } from "~/utils/session.server";
 import { call, cookiePair, get, post, signIn, type Handler } from "./helpers";
+import { ownerDb } from "../setup/db-roles";
 
 /** The first message Conform's answer (`result.error`) carries for a sign-up field. */
 const fieldError = (body: unknown, name: string) =>
@@ -14,7 +14,7 @@ const fieldError = (body: unknown, name: string) =>
 const loginAction = login.action as Handler;
 
 async function sessionRows(): Promise<number> {
-  const [row] = await db()("sessions").count({ n: "*" });
+  const [row] = await ownerDb()("sessions").count({ n: "*" });
   return Number(row?.n);
 }
 
@@ -64,12 +64,12 @@ describe("sign-in", () => {
     // 32 random bytes, base64url: 43 characters, 256 bits.
     expect(secondId).toMatch(/^[A-Za-z0-9_-]{43}$/);
     expect(
-      await db()("sessions")
+      await ownerDb()("sessions")
         .where({ id_hash: hashSessionId(firstId) })
         .first(),
     ).toBeUndefined();
     expect(
-      await db()("sessions")
+      await ownerDb()("sessions")
         .where({ id_hash: hashSessionId(secondId) })
         .first(),
     ).toBeDefined();
@@ -78,19 +78,19 @@ describe("sign-in", () => {
   it("stores only the hash of the session id", async () => {
     const pair = await signIn("owner@example.com");
     const id = sessionIdFromCookie(pair);
-    expect(await db()("sessions").where({ id_hash: id }).first()).toBeUndefined();
+    expect(await ownerDb()("sessions").where({ id_hash: id }).first()).toBeUndefined();
   });
 
   it("expires a session idle longer than the idle timeout", async () => {
     const pair = await signIn("builder@example.com");
     const idHash = hashSessionId(sessionIdFromCookie(pair));
-    await db()("sessions")
+    await ownerDb()("sessions")
       .where({ id_hash: idHash })
       .update({ last_seen_at: new Date(Date.now() - 13 * 3_600_000).toISOString() });
     const out = await call(dashboard.loader as Handler, get("/dashboard", pair));
     expect(out.status).toBe(302);
     expect(out.location).toMatch(/^\/login/);
-    expect(await db()("sessions").where({ id_hash: idHash }).first()).toBeUndefined();
+    expect(await ownerDb()("sessions").where({ id_hash: idHash }).first()).toBeUndefined();
   });
 });
 
@@ -117,9 +117,9 @@ describe("sign-up", () => {
       post("/signup", { name: "Pell Dunmore", email: "Pell@Example.com", teamName: "Dunmore Race Heads", password: "long enough pass" }),
     );
     expect(out.status).toBe(302);
-    const user = await db()("users").where({ email: "pell@example.com" }).first();
+    const user = await ownerDb()("users").where({ email: "pell@example.com" }).first();
     expect(user.password_hash).toMatch(/^\$argon2id\$v=19\$m=19456,p=1,t=2\$/);
-    const membership = await db()("memberships as m").join("teams as t", "t.id", "m.team_id").where("m.user_id", user.id).first();
+    const membership = await ownerDb()("memberships as m").join("teams as t", "t.id", "m.team_id").where("m.user_id", user.id).first();
     expect(membership.role).toBe("owner");
     expect(membership.name).toBe("Dunmore Race Heads");
   });
@@ -133,18 +133,18 @@ describe("sign-up", () => {
   });
 
   it("answers a malformed Conform intent with 400 and a message, not a 500, and writes nothing", async () => {
-    const [{ n: before }] = await db()("users").count({ n: "*" });
+    const [{ n: before }] = await ownerDb()("users").count({ n: "*" });
     const fields = { name: "Ivo Marsh", email: "ivo@example.com", teamName: "Marsh Heads", password: "long enough pass" };
     for (const intent of ["{oops", '{"type":"explode","payload":{}}', '{"type":"remove","payload":{"name":"email","index":0}}']) {
       const out = await call(action, post("/signup", { ...fields, __intent__: intent }));
       expect(out.status, intent).toBe(400);
       expect(String(out.body)).toMatch(/not one this page knows/);
     }
-    expect((await db()("users").count({ n: "*" }))[0]!.n).toBe(before);
+    expect((await ownerDb()("users").count({ n: "*" }))[0]!.n).toBe(before);
   });
 
   it("rejects bad input with messages and writes nothing", async () => {
-    const [{ n: before }] = await db()("users").count({ n: "*" });
+    const [{ n: before }] = await ownerDb()("users").count({ n: "*" });
     const out = await call(action, post("/signup", { name: "", email: "not-an-email", teamName: "", password: "short" }));
     expect(out.status).toBe(400);
     expect(fieldError(out.body, "name")).toBe("Enter your name");
@@ -153,7 +153,7 @@ describe("sign-up", () => {
     expect(fieldError(out.body, "password")).toBe("Use at least 8 characters");
     // the password is never echoed back
     expect((out.body as { result: { initialValue: Record<string, unknown> } }).result.initialValue).not.toHaveProperty("password");
-    const [{ n: after }] = await db()("users").count({ n: "*" });
+    const [{ n: after }] = await ownerDb()("users").count({ n: "*" });
     expect(after).toBe(before);
   });
 

@@ -3,8 +3,8 @@ import os from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as teamExport from "~/routes/shop/team-export";
-import { db } from "~/utils/db.server";
 import { call, get, signIn, type Handler } from "./helpers";
+import { ownerDb } from "../setup/db-roles";
 
 // Figure of issue 9, backups: an owner downloads the team's data as one consistent JSON document (the
 // instance backup of the SQLite file is backup.sqlite.test.ts).
@@ -31,12 +31,12 @@ describe("team export (owners)", () => {
     const out = await call(teamExport.loader as Handler, get("/team/export", owner));
     expect(out.status).toBe(200);
     const body = out.body as Export;
-    const teamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+    const teamId = (await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
     expect(body.format).toBe("sealwright-team-export");
     expect(body.team.name).toBe("Harrow Lane Boost Works");
     expect(body.members.map((m) => m.email)).toEqual(["builder@example.com", "owner@example.com", "viewer@example.com"]);
     for (const table of ["materials", "fasteners", "gaskets", "engines", "seal_plans", "audit_events"]) {
-      const rows = await db()(table).where({ team_id: teamId }).count({ n: "*" });
+      const rows = await ownerDb()(table).where({ team_id: teamId }).count({ n: "*" });
       expect(body.tables[table], table).toHaveLength(Number(rows[0]!.n));
       expect(
         body.tables[table]!.every((r) => r.team_id === teamId),

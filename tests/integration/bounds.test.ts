@@ -8,8 +8,8 @@ import { listPlans, planParts } from "~/models/plan.server";
 import * as estimateApi from "~/routes/api/estimate";
 import * as engineEdit from "~/routes/engines/edit";
 import * as engineNew from "~/routes/engines/new";
-import { db } from "~/utils/db.server";
 import { call, ORIGIN, post, signIn, type Handler, teamWide } from "./helpers";
+import { ownerDb } from "../setup/db-roles";
 
 // Defect 1 of issue 9 through the routes: huge counts posted to the engine form and the estimate API
 // are refused with 400 in bounded time, and nothing is written.
@@ -22,10 +22,10 @@ let alu = 0;
 
 beforeAll(async () => {
   builder = await signIn("builder@example.com");
-  teamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
-  engineId = (await db()("engines").where({ team_id: teamId, cylinders: 4 }).first("id")).id;
-  iron = (await db()("materials").where({ team_id: teamId, kind: "iron" }).first("id")).id;
-  alu = (await db()("materials").where({ team_id: teamId, kind: "aluminium" }).first("id")).id;
+  teamId = (await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+  engineId = (await ownerDb()("engines").where({ team_id: teamId, cylinders: 4 }).first("id")).id;
+  iron = (await ownerDb()("materials").where({ team_id: teamId, kind: "iron" }).first("id")).id;
+  alu = (await ownerDb()("materials").where({ team_id: teamId, kind: "aluminium" }).first("id")).id;
 });
 
 const hugeText = fc.oneof(
@@ -69,7 +69,7 @@ function engineForm(cylinders: string, serve: string): Record<string, string> {
 }
 
 const counts = async () => {
-  const [e, a] = await Promise.all([db()("engines").count({ n: "*" }), db()("audit_events").count({ n: "*" })]);
+  const [e, a] = await Promise.all([ownerDb()("engines").count({ n: "*" }), ownerDb()("audit_events").count({ n: "*" })]);
   return [Number(e[0]!.n), Number(a[0]!.n)];
 };
 

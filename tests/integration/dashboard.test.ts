@@ -4,6 +4,7 @@ import { chosenPlanVerdictsBatched, VERDICT_CACHE } from "~/models/dashboard.ser
 import { chosenPlanVerdicts } from "~/models/plan-estimate.server";
 import { db } from "~/utils/db.server";
 import { call, get, signIn, type Handler } from "./helpers";
+import { ownerDb } from "../setup/db-roles";
 
 // The dashboard puts at-risk engines first (a chosen plan that is short, or one its stud limits) and
 // names the plan each activity row touched, with a link while the plan is still there.
@@ -28,10 +29,10 @@ describe("dashboard", () => {
   });
 
   it("puts an engine first whose chosen plan is limited by its stud, with the verdict in words", async () => {
-    const six = await db()("engines").where({ name: "Number 47 crew straight six" }).first();
-    const slick = await db()("seal_plans").where({ engine_id: six.id, name: "MLS, ½ studs at 85 lbf·ft on a slicker lube" }).first();
+    const six = await ownerDb()("engines").where({ name: "Number 47 crew straight six" }).first();
+    const slick = await ownerDb()("seal_plans").where({ engine_id: six.id, name: "MLS, ½ studs at 85 lbf·ft on a slicker lube" }).first();
     const before = six.chosen_plan_id;
-    await db()("engines").where({ id: six.id }).update({ chosen_plan_id: slick.id });
+    await ownerDb()("engines").where({ id: six.id }).update({ chosen_plan_id: slick.id });
     try {
       const d = await load(builder);
       expect(d.atRisk).toHaveLength(1);
@@ -46,14 +47,14 @@ describe("dashboard", () => {
       // another shop never sees it
       expect((await load(other)).atRisk).toEqual([]);
     } finally {
-      await db()("engines").where({ id: six.id }).update({ chosen_plan_id: before });
+      await ownerDb()("engines").where({ id: six.id }).update({ chosen_plan_id: before });
     }
   });
 
   it("names the plan an activity row touched and links to it, and drops the link once the plan is archived", async () => {
-    const plan = await db()("seal_plans").orderBy("id").first();
+    const plan = await ownerDb()("seal_plans").orderBy("id").first();
     const team = plan.team_id;
-    const [{ id }] = await db()("audit_events")
+    const [{ id }] = await ownerDb()("audit_events")
       .insert({
         team_id: team,
         action: "plan.updated",
@@ -64,17 +65,17 @@ describe("dashboard", () => {
     try {
       const row = (await load(builder)).events.find((e) => e.action === "plan.updated");
       expect(row?.plan).toEqual({ name: plan.name, href: `/engines/${plan.engine_id}/plans/${plan.id}` });
-      await db()("seal_plans").where({ id: plan.id }).update({ archived_at: new Date().toISOString() });
+      await ownerDb()("seal_plans").where({ id: plan.id }).update({ archived_at: new Date().toISOString() });
       const after = (await load(builder)).events.find((e) => e.action === "plan.updated");
       expect(after?.plan).toBeNull();
     } finally {
-      await db()("seal_plans").where({ id: plan.id }).update({ archived_at: null });
-      await db()("audit_events").where({ id }).delete();
+      await ownerDb()("seal_plans").where({ id: plan.id }).update({ archived_at: null });
+      await ownerDb()("audit_events").where({ id }).delete();
     }
   });
 
   it("reads the chosen plans in a fixed handful of queries and gives the one-by-one verdicts, also from its cache", async () => {
-    const who = { teamId: (await db()("teams").orderBy("id").first()).id as number, userId: 0, role: "owner" as const };
+    const who = { teamId: (await ownerDb()("teams").orderBy("id").first()).id as number, userId: 0, role: "owner" as const };
     const oneByOne = await chosenPlanVerdicts(who, "metric");
     expect(oneByOne.length).toBeGreaterThan(1);
     let queries = 0;

@@ -2,10 +2,11 @@ import { describe, expect, it } from "vitest";
 import { toEngine } from "~/models/engine.server";
 import { estimatePlan, type PlanEstimateResult } from "~/models/plan-estimate.server";
 import { listPlans, type PlanRow } from "~/models/plan.server";
-import { db, type DbRow } from "~/utils/db.server";
+import { type DbRow } from "~/utils/db.server";
 import { learnedFrictions } from "~/models/assembly-readings.server";
 import { evidencePoints } from "~/models/evidence.server";
 import { summarize } from "~/lib/records/evidence";
+import { ownerDb } from "../setup/db-roles";
 
 // Every seeded demo plan, estimated the way the app does it (stored rows → planParts → the clamp
 // model), and the story the demo is there to tell (migrations/seeds/03-demo-engines.ts).
@@ -14,8 +15,8 @@ type Row = DbRow;
 type Estimated = { engine: string; plan: PlanRow; result: Extract<PlanEstimateResult, { ok: true }>; chosen: boolean };
 
 async function demo(): Promise<{ engines: Row[]; estimated: Estimated[] }> {
-  const team = await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id");
-  const engines = (await db()("engines").where({ team_id: team.id }).orderBy("id")) as Row[];
+  const team = await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id");
+  const engines = (await ownerDb()("engines").where({ team_id: team.id }).orderBy("id")) as Row[];
   const estimated: Estimated[] = [];
   for (const row of engines) {
     const engine = toEngine(row);
@@ -59,7 +60,7 @@ describe("the demo seed", () => {
   });
 
   it("keeps every plan's stages ending at its torque", async () => {
-    const plans = await db()("seal_plans");
+    const plans = await ownerDb()("seal_plans");
     for (const p of plans) {
       const stages = JSON.parse(p.stages) as number[];
       expect(stages.at(-1)).toBe(p.torque_nm);
@@ -134,7 +135,7 @@ describe("the demo seed", () => {
 
   it("every library source fits its column (300 characters) and every seeded row has one", async () => {
     for (const table of ["materials", "fasteners", "gaskets"]) {
-      for (const r of await db()(table).whereNull("entered_by")) {
+      for (const r of await ownerDb()(table).whereNull("entered_by")) {
         expect(r.source, `${table}: ${r.name}`).toBeTruthy();
         expect(r.source.length, `${table}: ${r.name}`).toBeLessThanOrEqual(300);
       }
@@ -142,9 +143,9 @@ describe("the demo seed", () => {
   });
 
   it("the records: assemblies on the four and the six, the six's runs with one blown gasket below margin 1", async () => {
-    const team = await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id");
-    expect((await db()("assemblies").where({ team_id: team.id })).length).toBe(5);
-    const runs = await db()("runs").where({ team_id: team.id });
+    const team = await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id");
+    expect((await ownerDb()("assemblies").where({ team_id: team.id })).length).toBe(5);
+    const runs = await ownerDb()("runs").where({ team_id: team.id });
     expect(runs.length).toBe(8);
     expect(runs.filter((r) => r.outcome !== "held").map((r) => [r.outcome, r.cylinders_affected])).toEqual([["blown-gasket", "[5,6]"]]);
     expect(runs.filter((r) => r.peak_pressure_source === "estimated")).toHaveLength(1);
@@ -159,14 +160,14 @@ describe("the demo seed", () => {
     // the estimated street run's peak is the model's from its 180 kPa (seeded figure, kept in step here)
     const street = points.find((p) => p.peakSource === "estimated")!;
     const { evaluateAtFiring } = await import("~/models/plan-at-pressure.server");
-    const engine = toEngine(await db()("engines").where({ id: street.engineId }).first());
+    const engine = toEngine(await ownerDb()("engines").where({ id: street.engineId }).first());
     const plan = (await listPlans(team.id, engine.id)).find((p) => p.name === "MLS, ½ studs at the maker's 85 lbf·ft")!;
     const at = await evaluateAtFiring(team.id, engine, plan, { manifoldKpa: 180 });
     expect(at.ok && at.estimate.firing.peakPressureMpa).toBeCloseTo(street.peakMpa, 2);
   });
 
   it("three ½ stud assemblies teach a friction near 0.13; the four's single one teaches nothing", async () => {
-    const team = await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id");
+    const team = await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id");
     const learned = await learnedFrictions(team.id);
     const half = learned.find((l) => l.fastenerName.startsWith("½-20"))!;
     expect(half.learned.ok && half.learned.count).toBe(3);
@@ -176,19 +177,19 @@ describe("the demo seed", () => {
   });
 
   it("the other team has the handbook library but no demo engines", async () => {
-    const other = await db()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id");
-    expect((await db()("materials").where({ team_id: other.id })).length).toBe(10);
-    expect((await db()("engines").where({ team_id: other.id })).length).toBe(0);
-    expect((await db()("runs").where({ team_id: other.id })).length).toBe(0);
+    const other = await ownerDb()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id");
+    expect((await ownerDb()("materials").where({ team_id: other.id })).length).toBe(10);
+    expect((await ownerDb()("engines").where({ team_id: other.id })).length).toBe(0);
+    expect((await ownerDb()("runs").where({ team_id: other.id })).length).toBe(0);
   });
 });
 
 describe("the demo viewer", () => {
   it("is shown exactly one demo engine, the four-cylinder, and sees only it", async () => {
     const { listEngines } = await import("~/models/engine.server");
-    const team = await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id");
-    const viewer = await db()("users").where({ email: "viewer@example.com" }).first("id");
-    const shares = await db()("engine_shares as s")
+    const team = await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id");
+    const viewer = await ownerDb()("users").where({ email: "viewer@example.com" }).first("id");
+    const shares = await ownerDb()("engine_shares as s")
       .join("engines as e", "e.id", "s.engine_id")
       .where("s.team_id", team.id)
       .select("e.name", "s.user_id");

@@ -7,8 +7,8 @@ import * as layout from "~/routes/engines/layout";
 import * as list from "~/routes/engines/list";
 import * as create from "~/routes/engines/new";
 import * as overview from "~/routes/engines/overview";
-import { db } from "~/utils/db.server";
 import { call, get, post, signIn, type Handler, teamWide } from "./helpers";
+import { ownerDb } from "../setup/db-roles";
 
 const h = (fn: unknown) => fn as Handler;
 let builder = "";
@@ -25,12 +25,12 @@ beforeAll(async () => {
   builder = await signIn("builder@example.com");
   viewer = await signIn("viewer@example.com");
   other = await signIn("other-owner@example.com");
-  demoTeamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
-  otherTeamId = (await db()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id")).id;
-  builderId = (await db()("users").where({ email: "builder@example.com" }).first("id")).id;
-  iron = (await db()("materials").where({ team_id: demoTeamId, kind: "iron" }).first("id")).id;
-  alu = (await db()("materials").where({ team_id: demoTeamId, kind: "aluminium" }).first("id")).id;
-  otherTeamMaterial = (await db()("materials").where({ team_id: otherTeamId }).first("id")).id;
+  demoTeamId = (await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+  otherTeamId = (await ownerDb()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id")).id;
+  builderId = (await ownerDb()("users").where({ email: "builder@example.com" }).first("id")).id;
+  iron = (await ownerDb()("materials").where({ team_id: demoTeamId, kind: "iron" }).first("id")).id;
+  alu = (await ownerDb()("materials").where({ team_id: demoTeamId, kind: "aluminium" }).first("id")).id;
+  otherTeamMaterial = (await ownerDb()("materials").where({ team_id: otherTeamId }).first("id")).id;
 });
 
 /** A valid inline-four form as the builder would post it (metric). */
@@ -82,8 +82,9 @@ function refusal(body: unknown): {
   return { errors, values: result.initialValue };
 }
 
-const engineCount = async () => Number((await db()("engines").count({ n: "*" }))[0]!.n);
-const demoEngineIds = async (): Promise<number[]> => db()("engines").where({ team_id: demoTeamId }).whereNull("archived_at").pluck("id");
+const engineCount = async () => Number((await ownerDb()("engines").count({ n: "*" }))[0]!.n);
+const demoEngineIds = async (): Promise<number[]> =>
+  ownerDb()("engines").where({ team_id: demoTeamId }).whereNull("archived_at").pluck("id");
 
 describe("creating an engine", () => {
   it("saves the record in SI, audits it and sends the builder to the engine page with a toast", async () => {
@@ -92,7 +93,7 @@ describe("creating an engine", () => {
     const id = Number(out.location!.split("/").pop());
     expect(out.location).toBe(`/engines/${id}`);
     expect(out.setCookie).toMatch(/^sw_toast=/);
-    const row = await db()("engines").where({ id }).first();
+    const row = await ownerDb()("engines").where({ id }).first();
     expect(row).toMatchObject({
       team_id: demoTeamId,
       name: "Created four",
@@ -109,7 +110,7 @@ describe("creating an engine", () => {
       status: "quoted",
     });
     expect(JSON.parse(row.studs)).toEqual(defaultStudPattern("inline", 4));
-    const audit = await db()("audit_events").where({ team_id: demoTeamId, action: "engine.created" }).orderBy("id", "desc").first();
+    const audit = await ownerDb()("audit_events").where({ team_id: demoTeamId, action: "engine.created" }).orderBy("id", "desc").first();
     expect(audit.user_id).toBe(builderId);
     expect(JSON.parse(audit.detail)).toEqual({ engineId: id, name: "Created four" });
 
@@ -121,7 +122,7 @@ describe("creating an engine", () => {
   });
 
   it("reads imperial input and stores millimetres and kPa", async () => {
-    await db()("users").where({ id: builderId }).update({ units: "imperial" });
+    await ownerDb()("users").where({ id: builderId }).update({ units: "imperial" });
     try {
       const form = fourForm({
         name: "Imperial four",
@@ -137,14 +138,14 @@ describe("creating an engine", () => {
       });
       const out = await call(h(create.action), post("/engines/new", form, builder));
       expect(out.status).toBe(302);
-      const row = await db()("engines").where({ name: "Imperial four" }).first();
+      const row = await ownerDb()("engines").where({ name: "Imperial four" }).first();
       expect(row.bore_mm).toBeCloseTo(86.0044, 3);
       expect(row.deck_clearance_mm).toBeCloseTo(0.2032, 4);
       expect(row.target_manifold_kpa).toBeCloseTo(344.738, 2);
       expect(row.running_head_c).toBeCloseTo(110, 6);
       expect(row.running_block_c).toBeCloseTo(95, 6);
     } finally {
-      await db()("users").where({ id: builderId }).update({ units: "metric" });
+      await ownerDb()("users").where({ id: builderId }).update({ units: "metric" });
     }
   });
 
@@ -239,7 +240,7 @@ describe("creating an engine", () => {
       ),
     );
     expect(out.status).toBe(302);
-    const row = await db()("engines").where({ name: "Extra stud four" }).first("studs");
+    const row = await ownerDb()("engines").where({ name: "Extra stud four" }).first("studs");
     const studs = JSON.parse(row.studs);
     expect(studs).toHaveLength(11);
     expect(studs[10]).toEqual({
@@ -313,11 +314,11 @@ describe("editing and archiving", () => {
       form[`studs[${i}].cylinders`] = r.cylinders!;
       form[`studs[${i}].shares`] = r.shares!;
     });
-    const before = await db()("engines").where({ id }).first();
+    const before = await ownerDb()("engines").where({ id }).first();
     const out = await call(h(edit.action), post(`/engines/${id}/edit`, form, builder), { engineId: String(id) });
     expect(out.status).toBe(302);
     expect(out.location).toBe(`/engines/${id}`);
-    const after = await db()("engines").where({ id }).first();
+    const after = await ownerDb()("engines").where({ id }).first();
     expect(after.name).toBe("Renamed engine");
     expect(after.status).toBe("running");
     // everything else survives the round trip through the form
@@ -325,16 +326,16 @@ describe("editing and archiving", () => {
     expect(after.sleeve_protrusion_mm).toBeCloseTo(before.sleeve_protrusion_mm, 6);
     expect(JSON.parse(after.studs)).toEqual(JSON.parse(before.studs));
     expect(after.chosen_plan_id).toBe(before.chosen_plan_id);
-    expect(await db()("audit_events").where({ action: "engine.updated" }).count({ n: "*" })).toEqual([{ n: 1 }]);
+    expect(await ownerDb()("audit_events").where({ action: "engine.updated" }).count({ n: "*" })).toEqual([{ n: 1 }]);
   });
 
   it("an invalid edit is 400 and leaves the row alone", async () => {
     const id = (await demoEngineIds())[0]!;
-    const before = await db()("engines").where({ id }).first();
+    const before = await ownerDb()("engines").where({ id }).first();
     const out = await call(h(edit.action), post(`/engines/${id}/edit`, fourForm({ boreMm: "0" }), builder), { engineId: String(id) });
     expect(out.status).toBe(400);
     expect(refusal(out.body).errors.boreMm).toBe("Bore must be greater than zero");
-    expect(await db()("engines").where({ id }).first()).toEqual(before);
+    expect(await ownerDb()("engines").where({ id }).first()).toEqual(before);
   });
 
   it("archives: gone from the table and from every engine URL", async () => {
@@ -343,27 +344,27 @@ describe("editing and archiving", () => {
     const out = await call(h(edit.action), post(`/engines/${id}/edit`, { intent: "archive" }, builder), { engineId: String(id) });
     expect(out.status).toBe(302);
     expect(out.location).toBe("/engines");
-    expect((await db()("engines").where({ id }).first()).archived_at).toBeTruthy();
+    expect((await ownerDb()("engines").where({ id }).first()).archived_at).toBeTruthy();
     const table = await call(h(list.loader), get("/engines?q=To%20archive", builder));
     expect((table.body as { total: number }).total).toBe(0);
     const page = await call(h(layout.loader), get(`/engines/${id}`, builder), { engineId: String(id) });
     expect(page.status).toBe(404);
-    expect(await db()("audit_events").where({ action: "engine.archived" }).count({ n: "*" })).toEqual([{ n: 1 }]);
+    expect(await ownerDb()("audit_events").where({ action: "engine.archived" }).count({ n: "*" })).toEqual([{ n: 1 }]);
   });
 });
 
 describe("roles and tenancy", () => {
   it("a viewer reads an engine shared with them but every write is 403 and writes nothing", async () => {
     // the demo viewer is shown the four-cylinder (migrations/seeds/04-demo-shares.ts); viewers.test.ts covers the rest
-    const viewerId = (await db()("users").where({ email: "viewer@example.com" }).first("id")).id;
-    const id = (await db()("engine_shares").where({ user_id: viewerId }).first("engine_id")).engine_id as number;
+    const viewerId = (await ownerDb()("users").where({ email: "viewer@example.com" }).first("id")).id;
+    const id = (await ownerDb()("engine_shares").where({ user_id: viewerId }).first("engine_id")).engine_id as number;
     const page = await call(h(layout.loader), get(`/engines/${id}`, viewer), { engineId: String(id) });
     expect(page.status).toBe(200);
     expect((page.body as { canEdit: boolean }).canEdit).toBe(false);
     const table = await call(h(list.loader), get("/engines", viewer));
     expect((table.body as { canEdit: boolean }).canEdit).toBe(false);
     const before = await engineCount();
-    const row = await db()("engines").where({ id }).first();
+    const row = await ownerDb()("engines").where({ id }).first();
     expect((await call(h(create.loader), get("/engines/new", viewer))).status).toBe(403);
     expect((await call(h(create.action), post("/engines/new", fourForm(), viewer))).status).toBe(403);
     expect((await call(h(edit.loader), get(`/engines/${id}/edit`, viewer), { engineId: String(id) })).status).toBe(403);
@@ -372,7 +373,7 @@ describe("roles and tenancy", () => {
       expect(out.status).toBe(403);
     }
     expect(await engineCount()).toBe(before);
-    expect(await db()("engines").where({ id }).first()).toEqual(row);
+    expect(await ownerDb()("engines").where({ id }).first()).toEqual(row);
   });
 
   it("the other shop's member gets 404 for every URL of this shop's engines", async () => {
@@ -380,13 +381,13 @@ describe("roles and tenancy", () => {
     expect(ids.length).toBeGreaterThanOrEqual(3);
     for (const id of ids) {
       const params = { engineId: String(id) };
-      const before = await db()("engines").where({ id }).first();
+      const before = await ownerDb()("engines").where({ id }).first();
       expect((await call(h(layout.loader), get(`/engines/${id}`, other), params)).status).toBe(404);
       expect((await call(h(overview.loader), get(`/engines/${id}`, other), params)).status).toBe(404);
       expect((await call(h(edit.loader), get(`/engines/${id}/edit`, other), params)).status).toBe(404);
       expect((await call(h(edit.action), post(`/engines/${id}/edit`, fourForm(), other), params)).status).toBe(404);
       expect((await call(h(edit.action), post(`/engines/${id}/edit`, { intent: "archive" }, other), params)).status).toBe(404);
-      expect(await db()("engines").where({ id }).first()).toEqual(before);
+      expect(await ownerDb()("engines").where({ id }).first()).toEqual(before);
     }
     const theirs = await call(h(list.loader), get("/engines", other));
     expect((theirs.body as { rows: { id: number }[] }).rows.map((r) => r.id).filter((id) => ids.includes(id))).toEqual([]);
@@ -405,8 +406,8 @@ describe("the engine table: search, sort, filter, paging", () => {
 
   beforeAll(async () => {
     // 30 engines in the other shop, so the demo engines do not disturb the counts
-    material = (await db()("materials").where({ team_id: otherTeamId }).first("id")).id;
-    const otherOwner = (await db()("users").where({ email: "other-owner@example.com" }).first("id")).id;
+    material = (await ownerDb()("materials").where({ team_id: otherTeamId }).first("id")).id;
+    const otherOwner = (await ownerDb()("users").where({ email: "other-owner@example.com" }).first("id")).id;
     for (let i = 0; i < 30; i++) {
       const input: EngineInput = EngineSchema.parse({
         name: `Bench engine ${String(i + 1).padStart(2, "0")}`,

@@ -5,7 +5,6 @@ import { assemblePlanInput } from "~/lib/plan/assemble";
 import { getEngine } from "~/models/engine.server";
 import { listPlans, planParts } from "~/models/plan.server";
 import { clientAddressContext } from "~/utils/client-address.server";
-import { db } from "~/utils/db.server";
 import { onPostgres, rowsOf } from "../setup/engine";
 import { resetThrottles } from "~/utils/rate-limit.server";
 import { sessionStorage } from "~/utils/session.server";
@@ -14,6 +13,7 @@ import { startTestSink } from "./mail";
 import { seedFile } from "./seed-file";
 import { through } from "./pipeline";
 import { appRoutes, fill, type RouteInfo } from "./routes-list";
+import { ownerDb } from "../setup/db-roles";
 
 // Shared by fuzz-accounts.test.ts and fuzz-plans.test.ts. Figure of issue 9: ≥ 1,000 generated bodies for every action and API route of app/routes.ts, behind
 // the root middleware: 0 answers of 5xx (an error that escapes the action), and 0 stray rows (any
@@ -140,7 +140,7 @@ const TABLES = [
 ];
 async function counts(): Promise<string> {
   const sql = `select ${TABLES.map((t) => `(select count(*) from ${t})`).join(", ")} as c`;
-  return JSON.stringify(rowsOf(await db().raw(sql)));
+  return JSON.stringify(rowsOf(await ownerDb().raw(sql)));
 }
 
 beforeAll(async () => {
@@ -149,12 +149,12 @@ beforeAll(async () => {
   routes = await appRoutes();
   builder = await signIn("builder@example.com");
   owner = await signIn("owner@example.com");
-  const teamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
-  const engine = (await getEngine(teamWide(teamId), (await db()("engines").where({ team_id: teamId, cylinders: 4 }).first("id")).id))!;
+  const teamId = (await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+  const engine = (await getEngine(teamWide(teamId), (await ownerDb()("engines").where({ team_id: teamId, cylinders: 4 }).first("id")).id))!;
   const plan = (await listPlans(teamId, engine.id))[0]!;
-  const gasket = await db()("gaskets").where({ team_id: teamId }).first("id");
-  const otherEngine = await db()("engines").where({ team_id: teamId }).whereNot({ id: engine.id }).first("id");
-  const viewerId = (await db()("users").where({ email: "viewer@example.com" }).first("id")).id;
+  const gasket = await ownerDb()("gaskets").where({ team_id: teamId }).first("id");
+  const otherEngine = await ownerDb()("engines").where({ team_id: teamId }).whereNot({ id: engine.id }).first("id");
+  const viewerId = (await ownerDb()("users").where({ email: "viewer@example.com" }).first("id")).id;
   values = {
     engineId: String(engine.id),
     planId: String(plan.id),
@@ -265,7 +265,7 @@ beforeAll(async () => {
 
 /** A fresh session for a person, without a sign-in (sign-out ends the one it is sent with). */
 async function freshSession(email: string): Promise<string> {
-  const user = await db()("users").where({ email }).first("id");
+  const user = await ownerDb()("users").where({ email }).first("id");
   const session = await sessionStorage().getSession();
   session.set("userId", user.id);
   session.set("teamId", null);
@@ -393,11 +393,11 @@ export function fuzzRoutes(ids: string[]) {
     it("afterwards the database is whole", async () => {
       if (onPostgres) {
         // PostgreSQL checks foreign keys on every write; what could be left is a constraint not validated
-        expect(rowsOf(await db().raw("select conname from pg_constraint where not convalidated"))).toEqual([]);
+        expect(rowsOf(await ownerDb().raw("select conname from pg_constraint where not convalidated"))).toEqual([]);
         return;
       }
-      expect(await db().raw("pragma integrity_check")).toEqual([{ integrity_check: "ok" }]);
-      expect(await db().raw("pragma foreign_key_check")).toEqual([]);
+      expect(await ownerDb().raw("pragma integrity_check")).toEqual([{ integrity_check: "ok" }]);
+      expect(await ownerDb().raw("pragma foreign_key_check")).toEqual([]);
     });
   });
 }

@@ -2,15 +2,15 @@ import { beforeAll, describe, expect, it } from "vitest";
 import * as layout from "~/routes/shop/layout";
 import * as team from "~/routes/shop/team";
 import * as teamSwitch from "~/routes/shop/team-switch";
-import { db } from "~/utils/db.server";
 import { call, EMAIL, get, post, signIn, WHO, type Handler, type Who } from "./helpers";
+import { ownerDb } from "../setup/db-roles";
 
 let demoTeamId = 0;
 const cookies: Partial<Record<Who, string>> = {};
 
 beforeAll(async () => {
   for (const who of WHO) if (who !== "anonymous") cookies[who] = await signIn(EMAIL[who]);
-  demoTeamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+  demoTeamId = (await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
 });
 
 // The role matrix (every route × method × person) is generated from app/routes.ts in
@@ -19,9 +19,9 @@ beforeAll(async () => {
 describe("tenant isolation", () => {
   it("a rename by the other team's owner changes only their own team", async () => {
     await call(team.action as Handler, post("/team", { name: "Saltmarsh Renamed" }, cookies.otherTeam));
-    const other = await db()("teams").whereNot({ id: demoTeamId }).first("name");
+    const other = await ownerDb()("teams").whereNot({ id: demoTeamId }).first("name");
     expect(other.name).toBe("Saltmarsh Renamed");
-    const demo = await db()("teams").where({ id: demoTeamId }).first("name");
+    const demo = await ownerDb()("teams").where({ id: demoTeamId }).first("name");
     expect(demo.name).not.toBe("Saltmarsh Renamed");
   });
 
@@ -32,18 +32,18 @@ describe("tenant isolation", () => {
   });
 
   it("a viewer's rename is refused and writes nothing", async () => {
-    const before = await db()("teams").where({ id: demoTeamId }).first("name");
+    const before = await ownerDb()("teams").where({ id: demoTeamId }).first("name");
     const out = await call(team.action as Handler, post("/team", { name: "Viewer Was Here" }, cookies.viewer));
     expect(out.status).toBe(403);
-    expect(await db()("teams").where({ id: demoTeamId }).first("name")).toEqual(before);
+    expect(await ownerDb()("teams").where({ id: demoTeamId }).first("name")).toEqual(before);
   });
 });
 
 describe("team switching", () => {
   it("a person in two teams can switch, and pages then show the other team", async () => {
-    const user = await db()("users").where({ email: "builder@example.com" }).first("id");
-    const other = await db()("teams").whereNot({ id: demoTeamId }).first("id");
-    await db()("memberships").insert({ user_id: user.id, team_id: other.id, role: "viewer", created_at: new Date().toISOString() });
+    const user = await ownerDb()("users").where({ email: "builder@example.com" }).first("id");
+    const other = await ownerDb()("teams").whereNot({ id: demoTeamId }).first("id");
+    await ownerDb()("memberships").insert({ user_id: user.id, team_id: other.id, role: "viewer", created_at: new Date().toISOString() });
     const cookie = await signIn("builder@example.com");
     const out = await call(
       teamSwitch.action as Handler,

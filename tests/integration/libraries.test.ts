@@ -4,8 +4,8 @@ import * as index from "~/routes/libraries/index";
 import * as layout from "~/routes/libraries/layout";
 import * as list from "~/routes/libraries/list";
 import { createUserWithTeam } from "~/models/user.server";
-import { db } from "~/utils/db.server";
 import { call, get, post, signIn, type Handler } from "./helpers";
+import { ownerDb } from "../setup/db-roles";
 
 const cookies: Record<"viewer" | "builder" | "owner" | "other", string> = { viewer: "", builder: "", owner: "", other: "" };
 let teamId = 0;
@@ -18,10 +18,10 @@ beforeAll(async () => {
   cookies.builder = await signIn("builder@example.com");
   cookies.owner = await signIn("owner@example.com");
   cookies.other = await signIn("other-owner@example.com");
-  teamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
-  otherTeamId = (await db()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id")).id;
-  studSteelId = (await db()("materials").where({ team_id: teamId, name: "Alloy steel stud, ISO 898-1 class 12.9" }).first("id")).id;
-  builderId = (await db()("users").where({ email: "builder@example.com" }).first("id")).id;
+  teamId = (await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+  otherTeamId = (await ownerDb()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id")).id;
+  studSteelId = (await ownerDb()("materials").where({ team_id: teamId, name: "Alloy steel stud, ISO 898-1 class 12.9" }).first("id")).id;
+  builderId = (await ownerDb()("users").where({ email: "builder@example.com" }).first("id")).id;
 });
 
 const h = (fn: unknown) => fn as Handler;
@@ -34,7 +34,7 @@ const create = (kind: string, fields: Record<string, string>, cookie: string) =>
 const update = (kind: string, id: number, fields: Record<string, string>, cookie: string) =>
   call(h(edit.action), post(`/libraries/${kind}/${id}`, fields, cookie), { kind, itemId: String(id) });
 
-const count = async (table: string) => Number((await db()(table).count<{ n: number }[]>({ n: "*" }))[0]!.n);
+const count = async (table: string) => Number((await ownerDb()(table).count<{ n: number }[]>({ n: "*" }))[0]!.n);
 
 const material = (over: Record<string, string> = {}) => ({
   name: "Shop test: 2618-T61 forged aluminium",
@@ -141,13 +141,13 @@ describe("create, edit, archive", () => {
     expect(out.status).toBe(302);
     expect(out.location).toBe("/libraries/materials");
     expect(out.setCookie).toMatch(/sw_toast=/);
-    const row = await db()("materials").where({ team_id: teamId, name: "Shop test: 2618-T61 forged aluminium" }).first();
+    const row = await ownerDb()("materials").where({ team_id: teamId, name: "Shop test: 2618-T61 forged aluminium" }).first();
     expect(row.modulus_mpa).toBeCloseTo(73_800, 9);
     expect(row.yield_mpa).toBe(372);
     expect(row.limiting_surface_pressure_mpa).toBeNull();
     expect(row.source).toBeNull();
     expect(row.entered_by).toBe(builderId);
-    expect(await db()("audit_events").where({ team_id: teamId, action: "material.created" }).first()).toBeTruthy();
+    expect(await ownerDb()("audit_events").where({ team_id: teamId, action: "material.created" }).first()).toBeTruthy();
 
     const shown = (await listPage("materials", cookies.builder)).body as { rows: { id: number; enteredByName: string; source: null }[] };
     const mine = shown.rows.find((r) => r.id === row.id)!;
@@ -161,10 +161,10 @@ describe("create, edit, archive", () => {
     expect(loaded.item.provenance).toBe("entered by Teo Vastrick");
 
     expect((await update("materials", row.id, { intent: "save", ...material({ yieldMpa: "380" }) }, cookies.builder)).status).toBe(302);
-    expect((await db()("materials").where({ id: row.id }).first()).yield_mpa).toBe(380);
+    expect((await ownerDb()("materials").where({ id: row.id }).first()).yield_mpa).toBe(380);
 
     expect((await update("materials", row.id, { intent: "archive" }, cookies.builder)).status).toBe(302);
-    expect((await db()("materials").where({ id: row.id }).first()).archived_at).not.toBeNull();
+    expect((await ownerDb()("materials").where({ id: row.id }).first()).archived_at).not.toBeNull();
     const active = (await listPage("materials", cookies.builder)).body as { rows: { id: number }[] };
     expect(active.rows.map((r) => r.id)).not.toContain(row.id);
     const all = (await listPage("materials", cookies.builder, "?archived=1")).body as { rows: { id: number }[]; showArchived: boolean };
@@ -172,8 +172,8 @@ describe("create, edit, archive", () => {
     expect(all.rows.map((r) => r.id)).toContain(row.id);
 
     expect((await update("materials", row.id, { intent: "unarchive" }, cookies.builder)).status).toBe(302);
-    expect((await db()("materials").where({ id: row.id }).first()).archived_at).toBeNull();
-    const actions = (await db()("audit_events").where({ team_id: teamId }).whereLike("action", "material.%")).map(
+    expect((await ownerDb()("materials").where({ id: row.id }).first()).archived_at).toBeNull();
+    const actions = (await ownerDb()("audit_events").where({ team_id: teamId }).whereLike("action", "material.%")).map(
       (a: { action: string }) => a.action,
     );
     expect(actions).toEqual(expect.arrayContaining(["material.created", "material.updated", "material.archived", "material.unarchived"]));
@@ -182,7 +182,7 @@ describe("create, edit, archive", () => {
   it("fasteners: create with the maker's figures, edit, archive", async () => {
     const out = await create("fasteners", fastener(), cookies.builder);
     expect(out.status).toBe(302);
-    const row = await db()("fasteners").where({ team_id: teamId, name: "Shop test: M11×1.5 stud" }).first();
+    const row = await ownerDb()("fasteners").where({ team_id: teamId, name: "Shop test: M11×1.5 stud" }).first();
     expect(row).toMatchObject({
       diameter_mm: 11,
       pitch_mm: 1.5,
@@ -194,35 +194,35 @@ describe("create, edit, archive", () => {
     expect((await update("fasteners", row.id, { intent: "save", ...fastener({ makerTorqueNm: "125" }) }, cookies.builder)).status).toBe(
       302,
     );
-    expect((await db()("fasteners").where({ id: row.id }).first()).maker_torque_nm).toBe(125);
+    expect((await ownerDb()("fasteners").where({ id: row.id }).first()).maker_torque_nm).toBe(125);
     expect((await update("fasteners", row.id, { intent: "archive" }, cookies.builder)).status).toBe(302);
-    expect((await db()("fasteners").where({ id: row.id }).first()).archived_at).not.toBeNull();
-    expect(await db()("audit_events").where({ team_id: teamId, action: "fastener.archived" }).first()).toBeTruthy();
+    expect((await ownerDb()("fasteners").where({ id: row.id }).first()).archived_at).not.toBeNull();
+    expect(await ownerDb()("audit_events").where({ team_id: teamId, action: "fastener.archived" }).first()).toBeTruthy();
   });
 
   it("gaskets: create, edit, archive", async () => {
     expect((await create("gaskets", gasket(), cookies.builder)).status).toBe(302);
-    const row = await db()("gaskets").where({ team_id: teamId, name: "Shop test: MLS 1.0 mm, 84 mm bore" }).first();
+    const row = await ownerDb()("gaskets").where({ team_id: teamId, name: "Shop test: MLS 1.0 mm, 84 mm bore" }).first();
     expect(row.ring_modulus_mpa).toBeCloseTo(193_000, 9);
     expect(row.body_modulus_mpa).toBeCloseTo(5_000, 9);
     expect(row.finish_max_ra_um).toBe(1.3);
     expect(
       (await update("gaskets", row.id, { intent: "save", ...gasket({ compressedThicknessMm: "1.05" }) }, cookies.builder)).status,
     ).toBe(302);
-    expect((await db()("gaskets").where({ id: row.id }).first()).compressed_thickness_mm).toBe(1.05);
+    expect((await ownerDb()("gaskets").where({ id: row.id }).first()).compressed_thickness_mm).toBe(1.05);
     expect((await update("gaskets", row.id, { intent: "archive" }, cookies.builder)).status).toBe(302);
-    expect((await db()("gaskets").where({ id: row.id }).first()).archived_at).not.toBeNull();
+    expect((await ownerDb()("gaskets").where({ id: row.id }).first()).archived_at).not.toBeNull();
   });
 
   it("editing a handbook row keeps its source and says who edited it", async () => {
-    const row = await db()("materials").where({ team_id: teamId, name: "6061-T6 wrought aluminium" }).first();
+    const row = await ownerDb()("materials").where({ team_id: teamId, name: "6061-T6 wrought aluminium" }).first();
     const page = (await editPage("materials", row.id, cookies.builder)).body as {
       values: Record<string, string>;
       item: { seeded: boolean };
     };
     expect(page.item.seeded).toBe(true);
     expect((await update("materials", row.id, { intent: "save", ...page.values, yieldMpa: "275" }, cookies.builder)).status).toBe(302);
-    const after = await db()("materials").where({ id: row.id }).first();
+    const after = await ownerDb()("materials").where({ id: row.id }).first();
     expect(after.source).toBe(row.source);
     const listed = ((await listPage("materials", cookies.builder)).body as { rows: { id: number; enteredByName: string }[] }).rows.find(
       (r) => r.id === row.id,
@@ -233,7 +233,7 @@ describe("create, edit, archive", () => {
 
 describe("imperial input is stored as SI", () => {
   it("½ in → 12.7 mm, 20 threads per inch → 1.27 mm, 110 lbf·ft → 149.14 N·m, 7 thou → 0.1778 mm", async () => {
-    await db()("users").where({ id: builderId }).update({ units: "imperial" });
+    await ownerDb()("users").where({ id: builderId }).update({ units: "imperial" });
     try {
       const out = await create(
         "fasteners",
@@ -253,7 +253,7 @@ describe("imperial input is stored as SI", () => {
         cookies.builder,
       );
       expect(out.status).toBe(302);
-      const row = await db()("fasteners").where({ team_id: teamId, name: "Shop test: ½-20 imperial entry" }).first();
+      const row = await ownerDb()("fasteners").where({ team_id: teamId, name: "Shop test: ½-20 imperial entry" }).first();
       expect(Math.abs(row.diameter_mm - 12.7)).toBeLessThan(1e-9);
       expect(Math.abs(row.pitch_mm - 1.27)).toBeLessThan(1e-9);
       expect(Math.abs(row.free_thread_length_mm - 19.05)).toBeLessThan(1e-9);
@@ -281,7 +281,7 @@ describe("imperial input is stored as SI", () => {
         cookies.builder,
       );
       expect(typed.status).toBe(302);
-      const t = await db()("fasteners").where({ team_id: teamId, name: "Shop test: typed units" }).first();
+      const t = await ownerDb()("fasteners").where({ team_id: teamId, name: "Shop test: typed units" }).first();
       expect(t.diameter_mm).toBeCloseTo(11.1125, 9);
       expect(t.washer_hole_mm).toBeCloseTo(12.7, 6);
       expect(t.maker_torque_nm).toBeCloseTo(150, 9);
@@ -301,13 +301,13 @@ describe("imperial input is stored as SI", () => {
           )
         ).status,
       ).toBe(302);
-      const steel = await db()("materials").where({ team_id: teamId, name: "Shop test: imperial steel" }).first();
+      const steel = await ownerDb()("materials").where({ team_id: teamId, name: "Shop test: imperial steel" }).first();
       // 1 ksi = 1000 lbf/in² = 6.894757293168 MPa (NIST SP 811 definitions)
       expect(steel.modulus_mpa).toBeCloseTo(29.7 * 6894.757293168, 6); // Mpsi → MPa
       expect(steel.yield_mpa).toBeCloseTo(130 * 6.894757293168, 9); // ksi → MPa
       expect(steel.expansion_um_per_m_c).toBeCloseTo(6.7 * 1.8, 9); // µin/in·°F → µm/m·°C
     } finally {
-      await db()("users").where({ id: builderId }).update({ units: "metric" });
+      await ownerDb()("users").where({ id: builderId }).update({ units: "metric" });
     }
   });
 });
@@ -391,15 +391,15 @@ describe("invalid input → 400 with messages, nothing written", () => {
   }
 
   it("an invalid edit leaves the row as it was", async () => {
-    const row = await db()("gaskets").where({ team_id: teamId }).first();
+    const row = await ownerDb()("gaskets").where({ team_id: teamId }).first();
     const out = await update("gaskets", row.id, { intent: "save", ...gasket({ ringWidthMm: "0" }) }, cookies.builder);
     expect(out.status).toBe(400);
     expect((out.body as { result: { error: Record<string, string[]> } }).result.error.ringWidthMm![0]).toMatch(/greater than zero/);
-    expect(await db()("gaskets").where({ id: row.id }).first()).toEqual(row);
+    expect(await ownerDb()("gaskets").where({ id: row.id }).first()).toEqual(row);
   });
 
   it("a fastener cannot use another shop's material", async () => {
-    const theirs = await db()("materials").where({ team_id: otherTeamId }).first("id");
+    const theirs = await ownerDb()("materials").where({ team_id: otherTeamId }).first("id");
     const before = await count("fasteners");
     const out = await create("fasteners", fastener({ materialId: String(theirs.id) }), cookies.builder);
     expect(out.status).toBe(400);
@@ -410,7 +410,7 @@ describe("invalid input → 400 with messages, nothing written", () => {
 
 describe("viewers may not use the libraries", () => {
   it("a viewer reads every library page, read-only, but cannot open the new-row form", async () => {
-    const someFastener = await db()("fasteners").where({ team_id: teamId }).first("id");
+    const someFastener = await ownerDb()("fasteners").where({ team_id: teamId }).first("id");
     expect((await call(h(layout.loader), get("/libraries/fasteners", cookies.viewer))).status).toBe(200);
     for (const kind of ["fasteners", "gaskets", "materials"]) {
       const out = await listPage(kind, cookies.viewer);
@@ -430,10 +430,10 @@ describe("viewers may not use the libraries", () => {
     expect((await create("materials", material({ name: "Viewer material" }), cookies.viewer)).status).toBe(403);
     expect((await create("fasteners", fastener({ name: "Viewer fastener" }), cookies.viewer)).status).toBe(403);
     expect((await create("gaskets", gasket({ name: "Viewer gasket" }), cookies.viewer)).status).toBe(403);
-    const g = await db()("gaskets").where({ team_id: teamId }).first();
+    const g = await ownerDb()("gaskets").where({ team_id: teamId }).first();
     expect((await update("gaskets", g.id, { intent: "archive" }, cookies.viewer)).status).toBe(403);
     expect((await update("gaskets", g.id, { intent: "save", ...gasket({ name: "Viewer rename" }) }, cookies.viewer)).status).toBe(403);
-    expect(await db()("gaskets").where({ id: g.id }).first()).toEqual(g);
+    expect(await ownerDb()("gaskets").where({ id: g.id }).first()).toEqual(g);
     expect({ m: await count("materials"), f: await count("fasteners"), g: await count("gaskets") }).toEqual(before);
   });
 });
@@ -445,12 +445,12 @@ describe("another shop's rows are not found", () => {
     ["gaskets", "gaskets", gasket({ name: "Hijacked" })],
   ] as const) {
     it(`${kind}: the other team's member gets 404 on load, save, archive and unarchive`, async () => {
-      const row = await db()(table).where({ team_id: teamId }).first();
+      const row = await ownerDb()(table).where({ team_id: teamId }).first();
       expect((await editPage(kind, row.id, cookies.other)).status).toBe(404);
       expect((await update(kind, row.id, { intent: "save", ...fields }, cookies.other)).status).toBe(404);
       expect((await update(kind, row.id, { intent: "archive" }, cookies.other)).status).toBe(404);
       expect((await update(kind, row.id, { intent: "unarchive" }, cookies.other)).status).toBe(404);
-      expect(await db()(table).where({ id: row.id }).first()).toEqual(row);
+      expect(await ownerDb()(table).where({ id: row.id }).first()).toEqual(row);
       const theirList = (await listPage(kind, cookies.other, "?archived=1")).body as { rows: { id: number; teamId: number }[] };
       expect(theirList.rows.map((r) => r.id)).not.toContain(row.id);
       for (const r of theirList.rows) expect(r.teamId).toBe(otherTeamId);
@@ -472,12 +472,12 @@ describe("a new shop starts with the handbook library", () => {
       password: "a-long-enough-password",
       teamName: "Fresh Shop",
     });
-    expect((await db()("materials").where({ team_id: fresh })).length).toBe(10);
-    expect((await db()("fasteners").where({ team_id: fresh })).length).toBe(6);
-    expect((await db()("gaskets").where({ team_id: fresh })).length).toBe(5);
+    expect((await ownerDb()("materials").where({ team_id: fresh })).length).toBe(10);
+    expect((await ownerDb()("fasteners").where({ team_id: fresh })).length).toBe(6);
+    expect((await ownerDb()("gaskets").where({ team_id: fresh })).length).toBe(5);
     expect(await count("materials")).toBe(before + 10);
-    const f = await db()("fasteners").where({ team_id: fresh });
-    const ownMaterials = new Set((await db()("materials").where({ team_id: fresh })).map((m: { id: number }) => m.id));
+    const f = await ownerDb()("fasteners").where({ team_id: fresh });
+    const ownMaterials = new Set((await ownerDb()("materials").where({ team_id: fresh })).map((m: { id: number }) => m.id));
     for (const row of f) expect(ownMaterials.has(row.material_id)).toBe(true);
   });
 });

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { db, isPostgres } from "~/utils/db.server";
+import { isPostgres } from "~/utils/db.server";
 import { rowsOf } from "../setup/engine";
+import { ownerDb } from "../setup/db-roles";
 
 // Migration 20261222000000_library-files on whichever engine this pass runs: SQLite rebuilds the files
 // table for it (Knex's .alter()), so the rows, the foreign keys and the indexes of 20261217000000_records
@@ -9,7 +10,7 @@ const NAME = "20261222000000_library-files.ts";
 
 /** The files table's indexes, foreign keys (column → table, on delete) and checks, on either engine. */
 async function shape() {
-  const knex = db();
+  const knex = ownerDb();
   if (isPostgres(knex)) {
     const indexes = rowsOf<{ name: string }>(await knex.raw("select indexname as name from pg_indexes where tablename = 'files'"));
     const fks = rowsOf<{ def: string }>(
@@ -55,7 +56,7 @@ const RECORDS_FKS = [
 
 describe("migration 20261222000000_library-files", () => {
   it("keeps the rows, foreign keys and indexes down and up, and lets a file belong to exactly one owner", async () => {
-    const knex = db();
+    const knex = ownerDb();
     const team = await knex("teams").where({ name: "Harrow Lane Boost Works" }).first("id");
     const engine = await knex("engines").where({ team_id: team.id }).first("id");
     const assembly = await knex("assemblies").where({ team_id: team.id }).first("id");

@@ -7,8 +7,8 @@ import { evaluatePlan, parsePlan } from "~/lib/clamp";
 import { assemblePlanInput } from "~/lib/plan/assemble";
 import { getEngine } from "~/models/engine.server";
 import { listPlans, planParts } from "~/models/plan.server";
-import { db } from "~/utils/db.server";
 import { call, get, post, signIn, teamWide } from "./helpers";
+import { ownerDb } from "../setup/db-roles";
 
 // The machining and measurement record through its route, on the demo shop's four (wet sleeves planned
 // 0.10 mm proud, copper + wire: wire 0.11 mm over a 0.05 mm receiver groove); and the record forms in
@@ -24,12 +24,12 @@ let builderId = 0;
 beforeAll(async () => {
   builder = await signIn("builder@example.com");
   viewer = await signIn("viewer@example.com");
-  teamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
-  four = (await db()("engines").where({ team_id: teamId, cylinders: 4 }).first("id")).id;
-  builderId = (await db()("users").where({ email: "builder@example.com" }).first("id")).id;
+  teamId = (await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+  four = (await ownerDb()("engines").where({ team_id: teamId, cylinders: 4 }).first("id")).id;
+  builderId = (await ownerDb()("users").where({ email: "builder@example.com" }).first("id")).id;
 });
 
-const count = async (table: string) => Number((await db()(table).count({ n: "*" }).first())!.n);
+const count = async (table: string) => Number((await ownerDb()(table).count({ n: "*" }).first())!.n);
 const tables = async () => ({ machining: await count("machining_records"), audit: await count("audit_events") });
 const chosenPlan = async () => (await listPlans(teamId, four)).find((p) => p.name === "Copper + wire at the maker's 125 lbf·ft")!;
 const page = async (cookie = builder) =>
@@ -156,11 +156,11 @@ describe("machining record", () => {
 
 describe("record forms in the person's units", () => {
   const asImperial = async (run: () => Promise<void>) => {
-    await db()("users").where({ id: builderId }).update({ units: "imperial" });
+    await ownerDb()("users").where({ id: builderId }).update({ units: "imperial" });
     try {
       await run();
     } finally {
-      await db()("users").where({ id: builderId }).update({ units: "metric" });
+      await ownerDb()("users").where({ id: builderId }).update({ units: "metric" });
     }
   };
   // independent reference for the conversions: mathjs's unit system, agreeing to a part in 10⁹ (its psi
@@ -174,7 +174,7 @@ describe("record forms in the person's units", () => {
       expect(d.units).toBe("imperial");
       const out = await record({ measuredOn: "2026-12-01", "protrusion-0": "4.7", gasketCompressedMm: "42.1", headFinishUm: "32" });
       expect(out.status).toBe(302);
-      const row = await db()("machining_records").orderBy("id", "desc").first();
+      const row = await ownerDb()("machining_records").orderBy("id", "desc").first();
       near(JSON.parse(row.sleeve_protrusion_mm)[0], mm(4.7));
       near(row.gasket_compressed_mm, mm(42.1));
       near(row.head_finish_um, unit(32e-6, "inch").toNumber("um"));
@@ -215,7 +215,7 @@ describe("record forms in the person's units", () => {
         { engineId: String(four) },
       );
       expect(out.status).toBe(302);
-      const row = await db()("assemblies").orderBy("id", "desc").first();
+      const row = await ownerDb()("assemblies").orderBy("id", "desc").first();
       near(JSON.parse(row.stages_done)[0].reachedNm, unit(90, "lbf ft").toNumber("N m"));
       near(JSON.parse(row.stud_stretch)[0].stretchMm, mm(14.2));
     });
@@ -238,7 +238,7 @@ describe("record forms in the person's units", () => {
         { engineId: String(four) },
       );
       expect(out.status).toBe(302);
-      const row = await db()("runs").orderBy("id", "desc").first();
+      const row = await ownerDb()("runs").orderBy("id", "desc").first();
       // gauge boost plus the standard atmosphere (ISO 2533, 101.325 kPa)
       near(row.manifold_pressure_kpa, unit(20, "psi").toNumber("kPa") + 101.325);
       near(row.peak_cylinder_pressure_mpa, unit(2000, "psi").toNumber("MPa"));

@@ -3,11 +3,11 @@ import * as forgot from "~/routes/auth/forgot-password";
 import * as reset from "~/routes/auth/reset-password";
 import * as settings from "~/routes/shop/settings";
 import * as dashboard from "~/routes/shop/dashboard";
-import { db } from "~/utils/db.server";
 import { resetThrottles } from "~/utils/rate-limit.server";
 import { hashLinkToken } from "~/utils/tokens.server";
 import { call, cookiePair, get, post, signIn, type Handler } from "./helpers";
 import { linkPath, startTestSink } from "./mail";
+import { ownerDb } from "../setup/db-roles";
 
 // Password reset by e-mail and the settings page's password change (issue 12).
 
@@ -56,11 +56,11 @@ describe("asking for a reset", () => {
   });
 
   it("refuses a malformed address with a 400 and writes nothing", async () => {
-    const before = await db()("password_resets").count({ n: "*" });
+    const before = await ownerDb()("password_resets").count({ n: "*" });
     const out = await ask("not an address");
     expect(out.status).toBe(400);
     expect((out.body as { errors: Record<string, string> }).errors.email).toMatch(/e-mail address/);
-    expect(await db()("password_resets").count({ n: "*" })).toEqual(before);
+    expect(await ownerDb()("password_resets").count({ n: "*" })).toEqual(before);
   });
 });
 
@@ -71,23 +71,23 @@ describe("choosing the new password", () => {
     await ask("owner@example.com");
     const [mail] = await sink.waitFor("owner@example.com");
     const path = linkPath(mail!, "/reset-password/");
-    const row = await db()("password_resets").orderBy("id", "desc").first();
+    const row = await ownerDb()("password_resets").orderBy("id", "desc").first();
     expect(row.token_hash).toBe(hashLinkToken(tokenOf(path)));
     expect(Date.parse(row.expires_at) - Date.parse(row.created_at)).toBe(60 * 60_000);
     expect(await usable(path)).toBe(true);
 
     // the two fields must agree; nothing changes until they do
-    const hash = (await db()("users").where({ email: "owner@example.com" }).first("password_hash")).password_hash;
+    const hash = (await ownerDb()("users").where({ email: "owner@example.com" }).first("password_hash")).password_hash;
     expect((await choose(path, NEW_PASSWORD, "something else")).status).toBe(400);
     expect((await choose(path, "short")).status).toBe(400);
-    expect((await db()("users").where({ email: "owner@example.com" }).first("password_hash")).password_hash).toBe(hash);
+    expect((await ownerDb()("users").where({ email: "owner@example.com" }).first("password_hash")).password_hash).toBe(hash);
 
     const out = await choose(path, NEW_PASSWORD);
     expect(out.status).toBe(302);
     expect(out.location).toBe("/login");
     for (const cookie of [old, other]) expect((await call(dashboard.loader as Handler, get("/dashboard", cookie))).status).toBe(302);
-    const user = await db()("users").where({ email: "owner@example.com" }).first("id");
-    expect(await db()("sessions").where({ user_id: user.id }).count({ n: "*" })).toEqual([{ n: 0 }]);
+    const user = await ownerDb()("users").where({ email: "owner@example.com" }).first("id");
+    expect(await ownerDb()("sessions").where({ user_id: user.id }).count({ n: "*" })).toEqual([{ n: 0 }]);
     await expect(signIn("owner@example.com")).rejects.toThrow(/failed: 400/);
     await signIn("owner@example.com", NEW_PASSWORD);
 
@@ -99,7 +99,7 @@ describe("choosing the new password", () => {
     await ask("viewer@example.com");
     const [mail] = await sink.waitFor("viewer@example.com");
     const path = linkPath(mail!, "/reset-password/");
-    await db()("password_resets")
+    await ownerDb()("password_resets")
       .where({ token_hash: hashLinkToken(tokenOf(path)) })
       .update({ expires_at: new Date(Date.now() - 1).toISOString() });
     expect(await usable(path)).toBe(false);
@@ -115,13 +115,13 @@ describe("settings", () => {
     expect(
       (await call(settings.action as Handler, post("/settings", { intent: "profile", name: "Teo V.", units: "imperial" }, cookie))).status,
     ).toBe(302);
-    expect(await db()("users").where({ email: "builder@example.com" }).first("name", "units")).toEqual({
+    expect(await ownerDb()("users").where({ email: "builder@example.com" }).first("name", "units")).toEqual({
       name: "Teo V.",
       units: "imperial",
     });
     const bad = await call(settings.action as Handler, post("/settings", { intent: "profile", name: "  ", units: "metric" }, cookie));
     expect(bad.status).toBe(400);
-    expect(await db()("users").where({ email: "builder@example.com" }).first("name", "units")).toEqual({
+    expect(await ownerDb()("users").where({ email: "builder@example.com" }).first("name", "units")).toEqual({
       name: "Teo V.",
       units: "imperial",
     });

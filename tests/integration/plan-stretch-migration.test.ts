@@ -2,7 +2,7 @@
 import knexFactory, { type Knex } from "knex";
 import { describe, expect, it } from "vitest";
 import * as migration from "../../migrations/20261208000000_plan_target_stretch";
-import { db } from "~/utils/db.server";
+import { ownerDb } from "../setup/db-roles";
 
 /** The SQL a migration step would send to a dialect, without a server: each schema call is rendered, not run. */
 async function sqlFor(client: "pg" | "better-sqlite3", step: (k: Knex) => Promise<void>): Promise<string[]> {
@@ -31,7 +31,7 @@ describe("seal_plans.target_stretch_mm", () => {
   });
 
   it("is in the test database, empty for the demo's plans", async () => {
-    const rows = await db()("seal_plans").select("target_stretch_mm");
+    const rows = await ownerDb()("seal_plans").select("target_stretch_mm");
     expect(rows.length).toBeGreaterThan(0);
     for (const r of rows) expect(r.target_stretch_mm).toBeNull();
   });

@@ -10,8 +10,8 @@ import * as newEngine from "~/routes/engines/new";
 import * as copy from "~/routes/plans/copy";
 import * as editor from "~/routes/plans/editor";
 import * as newPlan from "~/routes/plans/new";
-import { db } from "~/utils/db.server";
 import { call, get, post, signIn, type Handler, teamWide } from "./helpers";
+import { ownerDb } from "../setup/db-roles";
 
 const LBF_FT = 1.3558179; // N·m per lbf·ft, NIST SP 811
 
@@ -26,21 +26,21 @@ let v8 = 0; // 106 mm bore
 let planId = 0;
 const fastener: Record<string, number> = {};
 
-const planRow = (id: number) => db()("seal_plans").where({ id }).first();
-const plansOn = async (engineId: number) => Number((await db()("seal_plans").where({ engine_id: engineId }).count({ n: "*" }))[0]!.n);
+const planRow = (id: number) => ownerDb()("seal_plans").where({ id }).first();
+const plansOn = async (engineId: number) => Number((await ownerDb()("seal_plans").where({ engine_id: engineId }).count({ n: "*" }))[0]!.n);
 
 beforeAll(async () => {
   builder = await signIn("builder@example.com");
   viewer = await signIn("viewer@example.com");
   other = await signIn("other-owner@example.com");
-  teamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
-  otherTeamId = (await db()("teams").whereNot({ id: teamId }).first("id")).id;
-  const engines = await db()("engines").where({ team_id: teamId }).select("id", "cylinders");
+  teamId = (await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+  otherTeamId = (await ownerDb()("teams").whereNot({ id: teamId }).first("id")).id;
+  const engines = await ownerDb()("engines").where({ team_id: teamId }).select("id", "cylinders");
   four = engines.find((e) => e.cylinders === 4)!.id;
   six = engines.find((e) => e.cylinders === 6)!.id;
   v8 = engines.find((e) => e.cylinders === 8)!.id;
   planId = (await listPlans(teamId, four))[0]!.id;
-  for (const f of await db()("fasteners").where({ team_id: teamId }).select("id", "name")) fastener[f.name] = f.id;
+  for (const f of await ownerDb()("fasteners").where({ team_id: teamId }).select("id", "name")) fastener[f.name] = f.id;
 });
 
 type Loaded = { values: Record<string, string>; stretch: { mode: string; stretchMm: number; preloadN: number; torqueNm: number } | null };
@@ -254,14 +254,14 @@ describe("numbers as typed", () => {
     const params = { engineId: String(engineId) };
     const metric = (await call(newPlan.loader as Handler, get(`/engines/${engineId}/plans/new`, builder), params)).body as Loaded;
     for (const s of metric.values.stages!.split(", ")) expect(s).toMatch(/^\d+$/);
-    const user = await db()("users").where({ email: "builder@example.com" }).first("id");
-    await db()("users").where({ id: user.id }).update({ units: "imperial" });
+    const user = await ownerDb()("users").where({ email: "builder@example.com" }).first("id");
+    await ownerDb()("users").where({ id: user.id }).update({ units: "imperial" });
     try {
       const imperial = (await call(newPlan.loader as Handler, get(`/engines/${engineId}/plans/new`, builder), params)).body as Loaded;
       for (const s of imperial.values.stages!.split(", ")) expect(s).toMatch(/^\d+$/);
       expect(imperial.values.torque).toMatch(/^\d+$/);
     } finally {
-      await db()("users").where({ id: user.id }).update({ units: "metric" });
+      await ownerDb()("users").where({ id: user.id }).update({ units: "metric" });
     }
   });
 
@@ -282,7 +282,7 @@ describe("numbers as typed", () => {
       ),
     );
     expect(out.status).toBe(302);
-    const row = await db()("engines")
+    const row = await ownerDb()("engines")
       .where({ id: Number(out.location!.split("/").pop()) })
       .first();
     expect(row.bore_mm).toBeCloseTo(86.0044, 4);
@@ -305,7 +305,7 @@ describe("gaskets by bore", () => {
 });
 
 async function engineForm(name: string): Promise<Record<string, string>> {
-  const mats = await db()("materials").where({ team_id: teamId }).select("id", "name");
+  const mats = await ownerDb()("materials").where({ team_id: teamId }).select("id", "name");
   const id = (start: string) => String(mats.find((m) => m.name.startsWith(start))!.id);
   const form: Record<string, string> = {
     intent: "save",
@@ -358,13 +358,13 @@ describe("duplicating an engine", () => {
     call(duplicate.action as Handler, post(`/engines/${engineId}/duplicate`, {}, cookie), { engineId: String(engineId) });
 
   it("copies the record and the stud pattern, not the plans, as “… (copy)”", async () => {
-    const original = await db()("engines").where({ id: six }).first();
+    const original = await ownerDb()("engines").where({ id: six }).first();
     expect(await plansOn(six)).toBeGreaterThan(0);
     const out = await dup(six, builder);
     expect(out.status).toBe(302);
     const id = Number(out.location!.split("/").pop());
     expect(out.location).toBe(`/engines/${id}`);
-    const copyRow = await db()("engines").where({ id }).first();
+    const copyRow = await ownerDb()("engines").where({ id }).first();
     const { id: _a, name, chosen_plan_id, created_at: _c, updated_at: _u, ...rest } = copyRow;
     const { id: _b, name: originalName, chosen_plan_id: _ch, created_at: _c2, updated_at: _u2, ...originalRest } = original;
     expect(name).toBe(`${originalName} (copy)`);
@@ -372,12 +372,12 @@ describe("duplicating an engine", () => {
     expect(rest).toEqual(originalRest);
     expect(JSON.parse(copyRow.studs)).toEqual(JSON.parse(original.studs));
     expect(await plansOn(id)).toBe(0);
-    const audit = await db()("audit_events").where({ team_id: teamId, action: "engine.duplicated" }).orderBy("id", "desc").first();
+    const audit = await ownerDb()("audit_events").where({ team_id: teamId, action: "engine.duplicated" }).orderBy("id", "desc").first();
     expect(JSON.parse(audit.detail)).toMatchObject({ engineId: id, fromEngineId: six });
   });
 
   it("is refused to a viewer (403) and not found for another shop (404), writing nothing", async () => {
-    const count = async () => Number((await db()("engines").count({ n: "*" }))[0]!.n);
+    const count = async () => Number((await ownerDb()("engines").count({ n: "*" }))[0]!.n);
     const before = await count();
     expect((await dup(six, viewer)).status).toBe(403);
     expect((await dup(six, other)).status).toBe(404);
@@ -444,8 +444,13 @@ describe("copying a plan to another engine", () => {
     expect((await call(copy.loader as Handler, get(url(planId), other), params(planId))).status).toBe(404);
     expect((await cp(planId, six, other)).status).toBe(404);
     // a target engine of another shop is simply not found either
-    const theirs = await db()("engines")
-      .insert({ ...(await db()("engines").where({ id: six }).first()), id: undefined, team_id: otherTeamId, name: "Another shop's engine" })
+    const theirs = await ownerDb()("engines")
+      .insert({
+        ...(await ownerDb()("engines").where({ id: six }).first()),
+        id: undefined,
+        team_id: otherTeamId,
+        name: "Another shop's engine",
+      })
       .returning("id");
     const before = await plansOn(theirs[0].id);
     expect((await cp(planId, theirs[0].id)).status).toBe(404);
@@ -455,13 +460,13 @@ describe("copying a plan to another engine", () => {
 
 describe("copying a plan: the form", () => {
   it("asks for an engine when none is picked, and writes nothing", async () => {
-    const count = Number((await db()("seal_plans").count({ n: "*" }))[0]!.n);
+    const count = Number((await ownerDb()("seal_plans").count({ n: "*" }))[0]!.n);
     const out = await call(copy.action as Handler, post(`/engines/${four}/plans/${planId}/copy`, {}, builder), {
       engineId: String(four),
       planId: String(planId),
     });
     expect(out.status).toBe(400);
     expect(copyRefusal(out.body)).toBe("Pick the engine to copy the plan to.");
-    expect(Number((await db()("seal_plans").count({ n: "*" }))[0]!.n)).toBe(count);
+    expect(Number((await ownerDb()("seal_plans").count({ n: "*" }))[0]!.n)).toBe(count);
   });
 });

@@ -9,8 +9,8 @@ import * as compare from "~/routes/plans/compare";
 import * as editor from "~/routes/plans/editor";
 import * as planList from "~/routes/plans/list";
 import * as newPlan from "~/routes/plans/new";
-import { db } from "~/utils/db.server";
 import { call, get, ORIGIN, post, signIn, type Handler, teamWide } from "./helpers";
+import { ownerDb } from "../setup/db-roles";
 
 const LBF_FT = 1.3558179; // N·m per lbf·ft, NIST SP 811
 
@@ -22,7 +22,7 @@ let engineId = 0;
 let planId = 0;
 
 async function planRow(id: number) {
-  return db()("seal_plans").where({ id }).first();
+  return ownerDb()("seal_plans").where({ id }).first();
 }
 
 function editorForm(overrides: Record<string, string> = {}): Record<string, string> {
@@ -51,8 +51,8 @@ beforeAll(async () => {
   builder = await signIn("builder@example.com");
   viewer = await signIn("viewer@example.com");
   other = await signIn("other-owner@example.com");
-  teamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
-  const four = await db()("engines").where({ team_id: teamId, cylinders: 4 }).first();
+  teamId = (await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+  const four = await ownerDb()("engines").where({ team_id: teamId, cylinders: 4 }).first();
   engineId = four.id;
   planId = (await listPlans(teamId, engineId))[0]!.id;
 });
@@ -71,7 +71,7 @@ async function currentForm(overrides: Record<string, string> = {}) {
 
 describe("seeded demo plans", () => {
   it("every plan of the demo shop assembles into a valid model input and evaluates to finite figures", async () => {
-    const engines = await db()("engines").where({ team_id: teamId });
+    const engines = await ownerDb()("engines").where({ team_id: teamId });
     expect(engines).toHaveLength(3);
     for (const e of engines) {
       const engine = (await getEngine(teamWide(teamId), e.id))!;
@@ -202,8 +202,8 @@ describe("plan editor", () => {
   });
 
   it("stores an imperial torque in N·m", async () => {
-    const user = await db()("users").where({ email: "builder@example.com" }).first("id");
-    await db()("users").where({ id: user.id }).update({ units: "imperial" });
+    const user = await ownerDb()("users").where({ email: "builder@example.com" }).first("id");
+    await ownerDb()("users").where({ id: user.id }).update({ units: "imperial" });
     try {
       const out = await call(
         act,
@@ -218,19 +218,19 @@ describe("plan editor", () => {
       // 4 thou = 0.1016 mm exactly; convert-units carries the thou to 8 significant figures
       expect(row.wire_projection_mm).toBeCloseTo(0.1016, 7);
     } finally {
-      await db()("users").where({ id: user.id }).update({ units: "metric" });
+      await ownerDb()("users").where({ id: user.id }).update({ units: "metric" });
     }
   });
 
   it("words the torque ceiling, the checks and warnings in the person's units", async () => {
-    const user = await db()("users").where({ email: "viewer@example.com" }).first("id");
+    const user = await ownerDb()("users").where({ email: "viewer@example.com" }).first("id");
     const params = { engineId: String(engineId), planId: String(planId) };
     type Loaded = {
       result: { view: { ceiling: { explanation: string }; estimate: { warnings: string[]; verdict: { checks: { detail: string }[] } } } };
     };
     const metric = (await call(editor.loader as Handler, get(url(), viewer), params)).body as Loaded;
     expect(metric.result.view.ceiling.explanation).toMatch(/N·m/);
-    await db()("users").where({ id: user.id }).update({ units: "imperial" });
+    await ownerDb()("users").where({ id: user.id }).update({ units: "imperial" });
     try {
       const imperial = (await call(editor.loader as Handler, get(url(), viewer), params)).body as Loaded;
       expect(imperial.result.view.ceiling.explanation).toMatch(/lbf·ft/);
@@ -238,7 +238,7 @@ describe("plan editor", () => {
       for (const w of imperial.result.view.estimate.warnings) expect(w).not.toMatch(/ N·m| kN| MPa/);
       for (const c of imperial.result.view.estimate.verdict.checks) expect(c.detail).not.toMatch(/ N·m| kN| MPa| mm\b/);
     } finally {
-      await db()("users").where({ id: user.id }).update({ units: "metric" });
+      await ownerDb()("users").where({ id: user.id }).update({ units: "metric" });
     }
   });
 
@@ -272,15 +272,15 @@ describe("plan editor", () => {
     }
     const chosen = await call(act, post(url(), { intent: "choose" }, builder), params);
     expect(chosen.status).toBe(302);
-    expect((await db()("engines").where({ id: engineId }).first()).chosen_plan_id).toBe(planId);
+    expect((await ownerDb()("engines").where({ id: engineId }).first()).chosen_plan_id).toBe(planId);
   });
 });
 
 describe("gasket fit", () => {
   it("refuses a plan whose gasket bore does not suit the engine, and writes nothing", async () => {
     const params = { engineId: String(engineId) };
-    const big = await db()("gaskets").where({ team_id: teamId }).where("bore_mm", ">", 100).first();
-    const count = async () => Number((await db()("seal_plans").where({ engine_id: engineId }).count({ n: "*" }))[0]!.n);
+    const big = await ownerDb()("gaskets").where({ team_id: teamId }).where("bore_mm", ">", 100).first();
+    const count = async () => Number((await ownerDb()("seal_plans").where({ engine_id: engineId }).count({ n: "*" }))[0]!.n);
     const before = await count();
     const out = await call(
       newPlan.action as Handler,
@@ -312,14 +312,14 @@ describe("archiving a plan", () => {
     const id = Number(made.location!.split("/").pop());
     const planParams = { engineId: String(engineId), planId: String(id) };
     await call(editor.action as Handler, post(`/engines/${engineId}/plans/${id}`, { intent: "choose" }, builder), planParams);
-    expect((await db()("engines").where({ id: engineId }).first()).chosen_plan_id).toBe(id);
+    expect((await ownerDb()("engines").where({ id: engineId }).first()).chosen_plan_id).toBe(id);
     expect(
       (await call(editor.action as Handler, post(`/engines/${engineId}/plans/${id}`, { intent: "archive" }, viewer), planParams)).status,
     ).toBe(403);
     const out = await call(editor.action as Handler, post(`/engines/${engineId}/plans/${id}`, { intent: "archive" }, builder), planParams);
     expect(out.status).toBe(302);
     expect((await listPlans(teamId, engineId)).map((p) => p.id)).not.toContain(id);
-    expect((await db()("engines").where({ id: engineId }).first()).chosen_plan_id).toBeNull();
+    expect((await ownerDb()("engines").where({ id: engineId }).first()).chosen_plan_id).toBeNull();
     expect((await call(editor.loader as Handler, get(`/engines/${engineId}/plans/${id}`, builder), planParams)).status).toBe(404);
   });
 });
@@ -352,7 +352,7 @@ describe("the plan form's answers (Conform)", () => {
 
   it("a malformed or misaimed __intent__ on the editor or the new-plan page is a 400 with a message, and writes nothing", async () => {
     const before = await planRow(planId);
-    const count = Number((await db()("seal_plans").count({ n: "*" }))[0]!.n);
+    const count = Number((await ownerDb()("seal_plans").count({ n: "*" }))[0]!.n);
     for (const __intent__ of [
       "{not json",
       '{"type":"explode","payload":{}}',
@@ -369,12 +369,12 @@ describe("the plan form's answers (Conform)", () => {
       expect(made.status, __intent__).toBe(400);
     }
     expect(await planRow(planId)).toEqual(before);
-    expect(Number((await db()("seal_plans").count({ n: "*" }))[0]!.n)).toBe(count);
+    expect(Number((await ownerDb()("seal_plans").count({ n: "*" }))[0]!.n)).toBe(count);
   });
 
   it("an imperial builder's refusal speaks lbf·ft and thou, and keeps what was typed", async () => {
-    const user = await db()("users").where({ email: "builder@example.com" }).first("id");
-    await db()("users").where({ id: user.id }).update({ units: "imperial" });
+    const user = await ownerDb()("users").where({ email: "builder@example.com" }).first("id");
+    await ownerDb()("users").where({ id: user.id }).update({ units: "imperial" });
     try {
       const before = await planRow(planId);
       const out = await editorPost(await currentForm({ torque: "4000", stages: "", wireProjection: "90" }));
@@ -386,7 +386,7 @@ describe("the plan form's answers (Conform)", () => {
       expect(values).toMatchObject({ torque: "4000", wireProjection: "90" });
       expect(await planRow(planId)).toEqual(before);
     } finally {
-      await db()("users").where({ id: user.id }).update({ units: "metric" });
+      await ownerDb()("users").where({ id: user.id }).update({ units: "metric" });
     }
   });
 
@@ -404,7 +404,7 @@ describe("the plan form's answers (Conform)", () => {
 describe("new plan", () => {
   it("creates a plan, and refuses bad input writing nothing", async () => {
     const params = { engineId: String(engineId) };
-    const count = async () => Number((await db()("seal_plans").where({ engine_id: engineId }).count({ n: "*" }))[0]!.n);
+    const count = async () => Number((await ownerDb()("seal_plans").where({ engine_id: engineId }).count({ n: "*" }))[0]!.n);
     const before = await count();
     const bad = await call(
       newPlan.action as Handler,
@@ -435,8 +435,8 @@ describe("chamber", () => {
   it("works out the compression ratio from the engine and the chosen gasket (docs/references.md §8 formula, computed here)", async () => {
     const out = await call(chamber.loader as Handler, get(`/engines/${engineId}/chamber`, builder), { engineId: String(engineId) });
     const body = out.body as { result: { before: { compressionRatio: number } }; gasketId: number };
-    const e = await db()("engines").where({ id: engineId }).first();
-    const g = await db()("gaskets").where({ id: body.gasketId }).first();
+    const e = await ownerDb()("engines").where({ id: engineId }).first();
+    const g = await ownerDb()("gaskets").where({ id: body.gasketId }).first();
     const cc = (d: number, h: number) => ((Math.PI / 4) * d * d * h) / 1000;
     const vc = e.chamber_cc + cc(g.bore_mm, g.compressed_thickness_mm) + cc(e.bore_mm, e.deck_clearance_mm) + e.piston_volume_cc;
     const expected = (cc(e.bore_mm, e.stroke_mm) + vc) / vc;

@@ -13,8 +13,8 @@ import { getEngine } from "~/models/engine.server";
 import { evaluateAtFiring } from "~/models/plan-at-pressure.server";
 import { listPlans, planParts } from "~/models/plan.server";
 import { listRuns } from "~/models/records.server";
-import { db } from "~/utils/db.server";
 import { call, get, post, signIn, teamWide } from "./helpers";
+import { ownerDb } from "../setup/db-roles";
 
 // Assemblies, runs and the evidence view through their route loaders and actions, on the demo shop.
 
@@ -27,12 +27,12 @@ let four = 0;
 beforeAll(async () => {
   builder = await signIn("builder@example.com");
   viewer = await signIn("viewer@example.com");
-  teamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
-  six = (await db()("engines").where({ team_id: teamId, cylinders: 6 }).first("id")).id;
-  four = (await db()("engines").where({ team_id: teamId, cylinders: 4 }).first("id")).id;
+  teamId = (await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+  six = (await ownerDb()("engines").where({ team_id: teamId, cylinders: 6 }).first("id")).id;
+  four = (await ownerDb()("engines").where({ team_id: teamId, cylinders: 4 }).first("id")).id;
 });
 
-const count = async (table: string) => Number((await db()(table).count({ n: "*" }).first())!.n);
+const count = async (table: string) => Number((await ownerDb()(table).count({ n: "*" }).first())!.n);
 const tables = async () => ({ assemblies: await count("assemblies"), runs: await count("runs"), audit: await count("audit_events") });
 
 describe("assembly record", () => {
@@ -123,7 +123,7 @@ describe("assembly record", () => {
     const out = await call(assembly.action, post(`/engines/${four}/assembly`, await good(), builder), { engineId: String(four) });
     expect(out.status).toBe(302);
     expect(await tables()).toEqual({ ...before, assemblies: before.assemblies + 1, audit: before.audit + 1 });
-    const row = await db()("assemblies").orderBy("id", "desc").first();
+    const row = await ownerDb()("assemblies").orderBy("id", "desc").first();
     expect(row.final_torque_nm).toBe(169.5);
     expect(JSON.parse(row.stud_stretch)).toEqual([{ label: "A1", stretchMm: 0.36 }]);
   });
@@ -172,7 +172,7 @@ describe("run log", () => {
   it("logs a run without a measured peak: the model estimates it at that manifold pressure, marked estimated", async () => {
     const out = await call(runsPage.action, post(`/engines/${six}/runs`, good, builder), { engineId: String(six) });
     expect(out.status).toBe(302);
-    const row = await db()("runs").orderBy("id", "desc").first();
+    const row = await ownerDb()("runs").orderBy("id", "desc").first();
     expect(row.peak_pressure_source).toBe("estimated");
     const engine = (await getEngine(teamWide(teamId), six))!;
     // the plan on the engine that day is its latest assembly's (the ½ studs)

@@ -3,8 +3,8 @@ import { beforeAll, describe, expect, it } from "vitest";
 import * as teamSwitch from "~/routes/shop/team-switch";
 import * as login from "~/routes/auth/login";
 import { safeRedirect } from "~/utils/auth.server";
-import { db } from "~/utils/db.server";
 import { call, post, signIn, type Handler } from "./helpers";
+import { ownerDb } from "../setup/db-roles";
 
 // Defect 8 of issue 9: "/\t/evil.example" passed the filter (browsers drop the tab and go off-site),
 // and "/%0A/x" (a newline once decoded) made the sign-in redirect a 500.
@@ -56,7 +56,7 @@ describe("the redirects that use it", () => {
   let teamId = 0;
   beforeAll(async () => {
     builder = await signIn("builder@example.com");
-    teamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+    teamId = (await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
   });
 
   it("sign-in with redirectTo=/%0A/x lands on the dashboard (was a 500)", async () => {

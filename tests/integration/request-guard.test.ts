@@ -16,11 +16,11 @@ import * as compare from "~/routes/plans/compare";
 import * as planEditor from "~/routes/plans/editor";
 import * as planNew from "~/routes/plans/new";
 import { handleError } from "~/entry.server";
-import { db } from "~/utils/db.server";
 import { MAX_FORM_BYTES } from "~/utils/request-guard.server";
 import { flashToast, readToast } from "~/utils/toast.server";
 import { call, get, ORIGIN, signIn, type Handler } from "./helpers";
 import { through } from "./pipeline";
+import { ownerDb } from "../setup/db-roles";
 
 let builder = "";
 let owner = "";
@@ -31,10 +31,10 @@ let gasketId = 0;
 beforeAll(async () => {
   builder = await signIn("builder@example.com");
   owner = await signIn("owner@example.com");
-  const teamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
-  engineId = (await db()("engines").where({ team_id: teamId, cylinders: 4 }).first("id")).id;
-  planId = (await db()("seal_plans").where({ team_id: teamId, engine_id: engineId }).first("id")).id;
-  gasketId = (await db()("gaskets").where({ team_id: teamId }).first("id")).id;
+  const teamId = (await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+  engineId = (await ownerDb()("engines").where({ team_id: teamId, cylinders: 4 }).first("id")).id;
+  planId = (await ownerDb()("seal_plans").where({ team_id: teamId, engine_id: engineId }).first("id")).id;
+  gasketId = (await ownerDb()("gaskets").where({ team_id: teamId }).first("id")).id;
 });
 
 const h = (fn: unknown) => fn as Handler;
@@ -197,7 +197,7 @@ describe("defect 11: the header table on every response that passes the root mid
 describe("defect 13: one log line for a cross-site refusal", () => {
   it("our own check: one console.warn line, no console.error, nothing written", async () => {
     const warn = vi.spyOn(console, "warn").mockImplementation(() => {});
-    const before = await db()("teams").select("name");
+    const before = await ownerDb()("teams").select("name");
     const out = await through(
       h(team.action),
       raw("/team", { type: "application/x-www-form-urlencoded", body: "name=Forged", cookie: owner, origin: "http://evil.example" }),
@@ -205,7 +205,7 @@ describe("defect 13: one log line for a cross-site refusal", () => {
     expect(out.status).toBe(403);
     expect(warn).toHaveBeenCalledTimes(1);
     expect(String(warn.mock.calls[0]![0])).toBe('refused cross-site POST /team from "http://evil.example"');
-    expect(await db()("teams").select("name")).toEqual(before);
+    expect(await ownerDb()("teams").select("name")).toEqual(before);
     warn.mockRestore();
   });
 
@@ -229,7 +229,7 @@ describe("defect 13: one log line for a cross-site refusal", () => {
 describe("defect 13: ids are decimal integers only", () => {
   for (const bad of ["0x1", "1e0", "1.0", " 1", "+1", "01", "-1", "1_0", "Infinity"]) {
     it(`/engines/${bad} is not engine 1`, async () => {
-      const real = await db()("engines").orderBy("id").first("id");
+      const real = await ownerDb()("engines").orderBy("id").first("id");
       const text = bad.replace("1", String(real.id));
       const direct = await call(h(overview.loader), get(`/engines/${encodeURIComponent(text)}`, builder), { engineId: text });
       expect(direct.status).toBe(404);

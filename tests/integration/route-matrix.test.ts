@@ -1,11 +1,11 @@
 import crypto from "node:crypto";
 import { beforeAll, describe, expect, it, vi } from "vitest";
-import { db } from "~/utils/db.server";
 import { tableNames } from "../setup/engine";
 import { DEMO_PASSWORD, EMAIL, ORIGIN, signIn, WHO, type Who } from "./helpers";
 import { through, type Answer } from "./pipeline";
 import { appRoutes, fill, type RouteInfo } from "./routes-list";
 import { seedFile } from "./seed-file";
+import { ownerDb } from "../setup/db-roles";
 
 // The role and tenant matrix, generated from app/routes.ts: every route × method (GET when it has a
 // loader, POST when it has an action) × {anonymous, viewer, builder, owner, another team's owner},
@@ -116,11 +116,11 @@ let otherTeamId = 0;
 beforeAll(async () => {
   routes = await appRoutes();
   for (const who of WHO) if (who !== "anonymous") cookies[who] = await signIn(EMAIL[who]);
-  demoTeamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
-  otherTeamId = (await db()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id")).id;
-  const engine = await db()("engines").where({ team_id: demoTeamId, cylinders: 4 }).first("id");
-  const plan = await db()("seal_plans").where({ team_id: demoTeamId, engine_id: engine.id }).first("id");
-  const gasket = await db()("gaskets").where({ team_id: demoTeamId }).first("id");
+  demoTeamId = (await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+  otherTeamId = (await ownerDb()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id")).id;
+  const engine = await ownerDb()("engines").where({ team_id: demoTeamId, cylinders: 4 }).first("id");
+  const plan = await ownerDb()("seal_plans").where({ team_id: demoTeamId, engine_id: engine.id }).first("id");
+  const gasket = await ownerDb()("gaskets").where({ team_id: demoTeamId }).first("id");
   const file = await seedFile(demoTeamId, engine.id);
   values = {
     engineId: String(engine.id),
@@ -267,8 +267,8 @@ const WRITING: Record<string, Record<string, string>> = {
 async function digest(): Promise<string> {
   const hash = crypto.createHash("sha256");
   // rows sorted as text: neither engine promises an order without one, and some tables have no id
-  for (const name of await tableNames(db()))
-    hash.update(name + JSON.stringify((await db()(name).select("*")).map((r) => JSON.stringify(r)).sort()));
+  for (const name of await tableNames(ownerDb()))
+    hash.update(name + JSON.stringify((await ownerDb()(name).select("*")).map((r) => JSON.stringify(r)).sort()));
   return hash.digest("hex");
 }
 

@@ -3,7 +3,7 @@ import knexFactory, { type Knex } from "knex";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { ALL_TEAM_TABLES } from "../../migrations/20261223000000_row-security-all";
 import { listEngines } from "~/models/engine.server";
-import { withTeam } from "~/utils/db.server";
+import { db, withTeam } from "~/utils/db.server";
 import { knexConfig } from "~/utils/knex-config.server";
 import { appDb, appRoleName, ownerDb } from "../setup/db-roles";
 import { onPostgres, rowsOf, tableNames } from "../setup/engine";
@@ -183,6 +183,20 @@ describe.runIf(onPostgres)("row-level security on PostgreSQL, as the app role", 
     expect(await count(ownerDb()("audit_events").where({ action: "probe.no-team" }))).toBe(1);
   });
 
+  it("the app's own db() is the app role on this pass (the owner only under TEST_PG_ROLE=owner)", async () => {
+    const who = async (k: Knex) =>
+      rowsOf<{ name: string; bypass: boolean; owns: boolean }>(
+        await k.raw(
+          "select current_user as name, rolbypassrls or rolsuper as bypass, " +
+            "exists (select 1 from pg_tables where schemaname = 'public' and tableowner = current_user) as owns from pg_roles where rolname = current_user",
+        ),
+      )[0]!;
+    const app = await who(db());
+    if (process.env.TEST_PG_ROLE === "owner") expect(app).toEqual(await who(ownerDb()));
+    else expect(app).toEqual({ name: appRoleName(), bypass: false, owns: false });
+    expect((await who(ownerDb())).owns).toBe(true);
+  });
+
   it("withTeam sets the team for the model reads: the app role lists the demo shop's engines", async () => {
     const direct = await listEngines({ teamId: demo, userId: 0, role: "owner" }, { pageSize: 100 });
     const walled = await appDb().transaction(async (trx) => {
@@ -191,9 +205,10 @@ describe.runIf(onPostgres)("row-level security on PostgreSQL, as the app role", 
     });
     expect(walled).toEqual(direct.rows.map((r) => r.id).sort((a, b) => a - b));
     expect(walled.length).toBe(direct.total);
-    // and withTeam itself: under TEST_PG_ROLE=app the policies alone narrow an unfiltered count to the team
+    // and withTeam itself: as the app role (the pass's default) the policies alone narrow an unfiltered
+    // count to the team; under TEST_PG_ROLE=owner nothing does
     const unfiltered = await withTeam(demo, (k) => count(k("engines").whereNull("archived_at")));
-    if (process.env.TEST_PG_ROLE === "app") expect(unfiltered).toBe(direct.total);
+    if (process.env.TEST_PG_ROLE !== "owner") expect(unfiltered).toBe(direct.total);
     else expect(unfiltered).toBeGreaterThan(direct.total); // the owner: no wall, the probe team's copy counts too
   });
 });

@@ -1,6 +1,6 @@
 import sharp from "sharp";
 import { fileStorage, newStorageKey } from "~/utils/files.server";
-import { db } from "~/utils/db.server";
+import { ownerDb } from "../setup/db-roles";
 
 /** One stored photo on an engine (for matrices that need a file id), written as an upload would be. */
 export async function seedFile(teamId: number, engineId: number): Promise<number> {
@@ -9,7 +9,7 @@ export async function seedFile(teamId: number, engineId: number): Promise<number
     .toBuffer();
   const key = newStorageKey(teamId);
   await fileStorage().set(key, new File([png], "matrix.png", { type: "image/png" }));
-  const [row] = await db()("files")
+  const [row] = await ownerDb()("files")
     .insert({
       team_id: teamId,
       engine_id: engineId,

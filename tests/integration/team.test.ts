@@ -2,10 +2,10 @@ import { beforeAll, describe, expect, it } from "vitest";
 import * as invite from "~/routes/auth/invite";
 import * as team from "~/routes/shop/team";
 import * as dashboard from "~/routes/shop/dashboard";
-import { db } from "~/utils/db.server";
 import { hashLinkToken } from "~/utils/tokens.server";
 import { call, cookiePair, get, post, signIn, type Handler } from "./helpers";
 import { linkPath, startTestSink } from "./mail";
+import { ownerDb } from "../setup/db-roles";
 
 // Invites by e-mail (through a real SMTP sink), accepting them, roles and removal (issue 12).
 
@@ -20,7 +20,7 @@ beforeAll(async () => {
   sink = await startTestSink();
   owner = await signIn("owner@example.com");
   otherOwner = await signIn("other-owner@example.com");
-  demoTeamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+  demoTeamId = (await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
   return () => sink.close();
 });
 
@@ -48,7 +48,7 @@ describe("inviting by e-mail", () => {
     // no tracking: nothing in the HTML is fetched from anywhere
     expect(mail!.html).not.toMatch(/<img|src=|url\(/i);
     // only the token's hash is stored
-    const row = await db()("team_invites").where({ email: "new-viewer@example.com" }).first();
+    const row = await ownerDb()("team_invites").where({ email: "new-viewer@example.com" }).first();
     expect(row.token_hash).toBe(hashLinkToken(tokenOf(path)));
     expect(JSON.stringify(row)).not.toContain(tokenOf(path));
     expect(Date.parse(row.expires_at) - Date.parse(row.created_at)).toBe(7 * 86_400_000);
@@ -60,9 +60,9 @@ describe("inviting by e-mail", () => {
     const out = await acceptNew(path, { name: "Nia Pellworth", password: PASSWORD });
     expect(out.status).toBe(302);
     expect(out.location).toBe("/dashboard");
-    const user = await db()("users").where({ email: "new-viewer@example.com" }).first("id", "name");
+    const user = await ownerDb()("users").where({ email: "new-viewer@example.com" }).first("id", "name");
     expect(user.name).toBe("Nia Pellworth");
-    expect(await db()("memberships").where({ user_id: user.id }).select("team_id", "role")).toEqual([
+    expect(await ownerDb()("memberships").where({ user_id: user.id }).select("team_id", "role")).toEqual([
       { team_id: demoTeamId, role: "viewer" },
     ]);
     // the new session is signed in, as a viewer of the shop
@@ -73,21 +73,21 @@ describe("inviting by e-mail", () => {
   it("refuses the same link a second time (410) and says so on the page", async () => {
     const path = await inviteByMail("twice@example.com", "builder");
     expect((await acceptNew(path, { name: "First", password: PASSWORD })).status).toBe(302);
-    const users = await db()("users").count<{ n: number }[]>({ n: "*" });
+    const users = await ownerDb()("users").count<{ n: number }[]>({ n: "*" });
     const again = await acceptNew(path, { name: "Second", password: PASSWORD });
     expect(again.status).toBe(410);
     expect((await page(path)).body).toMatchObject({ invite: null, reason: "used" });
-    expect(await db()("users").count({ n: "*" })).toEqual(users);
+    expect(await ownerDb()("users").count({ n: "*" })).toEqual(users);
   });
 
   it("refuses an expired link (410) and writes nothing", async () => {
     const path = await inviteByMail("late@example.com", "viewer");
-    await db()("team_invites")
+    await ownerDb()("team_invites")
       .where({ email: "late@example.com" })
       .update({ expires_at: new Date(Date.now() - 1000).toISOString() });
     expect((await page(path)).body).toMatchObject({ invite: null, reason: "expired" });
     expect((await acceptNew(path, { name: "Late", password: PASSWORD })).status).toBe(410);
-    expect(await db()("users").where({ email: "late@example.com" }).first()).toBeUndefined();
+    expect(await ownerDb()("users").where({ email: "late@example.com" }).first()).toBeUndefined();
   });
 
   it("a newer invite to the same address replaces the older link", async () => {
@@ -107,15 +107,15 @@ describe("inviting by e-mail", () => {
     expect(wrong.status).toBe(403);
     const out = await call(invite.action as Handler, post(path, { intent: "join" }, otherOwner), { token: tokenOf(path) });
     expect(out.status).toBe(302);
-    const user = await db()("users").where({ email: "other-owner@example.com" }).first("id");
-    const roles = await db()("memberships").where({ user_id: user.id }).orderBy("team_id").select("team_id", "role");
+    const user = await ownerDb()("users").where({ email: "other-owner@example.com" }).first("id");
+    const roles = await ownerDb()("memberships").where({ user_id: user.id }).orderBy("team_id").select("team_id", "role");
     expect(roles).toContainEqual({ team_id: demoTeamId, role: "builder" });
     expect(roles).toHaveLength(2);
     otherOwner = cookiePair(out.setCookie);
   });
 
   it("bad input is a 400 with the field's message and writes nothing", async () => {
-    const before = await db()("team_invites").count({ n: "*" });
+    const before = await ownerDb()("team_invites").count({ n: "*" });
     for (const [fields, field] of [
       [{ intent: "invite", email: "not-an-address", role: "viewer" }, "email"],
       [{ intent: "invite", email: "x@example.com", role: "king" }, "role"],
@@ -125,7 +125,7 @@ describe("inviting by e-mail", () => {
       expect(out.status).toBe(400);
       expect((out.body as { errors: Record<string, string> }).errors[field]).toBeTruthy();
     }
-    expect(await db()("team_invites").count({ n: "*" })).toEqual(before);
+    expect(await ownerDb()("team_invites").count({ n: "*" })).toEqual(before);
     expect(sink.messagesTo("x@example.com")).toEqual([]);
   });
 });
@@ -136,24 +136,24 @@ describe("roles and removal", () => {
     await acceptNew(path, { name: "Lee Ver", password: PASSWORD });
     const cookie = await signIn("leaver@example.com", PASSWORD);
     expect((await call(dashboard.loader as Handler, get("/dashboard", cookie))).status).toBe(200);
-    const user = await db()("users").where({ email: "leaver@example.com" }).first("id");
-    expect(await db()("sessions").where({ user_id: user.id, team_id: demoTeamId }).count({ n: "*" })).toEqual([{ n: 2 }]);
+    const user = await ownerDb()("users").where({ email: "leaver@example.com" }).first("id");
+    expect(await ownerDb()("sessions").where({ user_id: user.id, team_id: demoTeamId }).count({ n: "*" })).toEqual([{ n: 2 }]);
     const out = await call(teamAction, post("/team", { intent: "remove", userId: String(user.id) }, owner));
     expect(out.status).toBe(302);
-    expect(await db()("sessions").where({ user_id: user.id }).count({ n: "*" })).toEqual([{ n: 0 }]);
-    expect(await db()("memberships").where({ user_id: user.id }).first()).toBeUndefined();
+    expect(await ownerDb()("sessions").where({ user_id: user.id }).count({ n: "*" })).toEqual([{ n: 0 }]);
+    expect(await ownerDb()("memberships").where({ user_id: user.id }).first()).toBeUndefined();
     const after = await call(dashboard.loader as Handler, get("/dashboard", cookie));
     expect(after.status).toBe(302);
     expect(after.location).toMatch(/^\/login\?redirectTo=/);
   });
 
   it("changes a role; the last owner can neither be demoted nor removed", async () => {
-    const builder = await db()("users").where({ email: "builder@example.com" }).first("id");
+    const builder = await ownerDb()("users").where({ email: "builder@example.com" }).first("id");
     expect((await call(teamAction, post("/team", { intent: "role", userId: String(builder.id), role: "viewer" }, owner))).status).toBe(302);
-    expect(await db()("memberships").where({ user_id: builder.id, team_id: demoTeamId }).first("role")).toEqual({ role: "viewer" });
+    expect(await ownerDb()("memberships").where({ user_id: builder.id, team_id: demoTeamId }).first("role")).toEqual({ role: "viewer" });
     await call(teamAction, post("/team", { intent: "role", userId: String(builder.id), role: "builder" }, owner));
 
-    const me = await db()("users").where({ email: "owner@example.com" }).first("id");
+    const me = await ownerDb()("users").where({ email: "owner@example.com" }).first("id");
     for (const fields of [
       { intent: "role", userId: String(me.id), role: "builder" },
       { intent: "remove", userId: String(me.id) },
@@ -162,7 +162,7 @@ describe("roles and removal", () => {
       expect(out.status).toBe(400);
       expect((out.body as { error: string }).error).toMatch(/at least one owner/);
     }
-    expect(await db()("memberships").where({ user_id: me.id, team_id: demoTeamId }).first("role")).toEqual({ role: "owner" });
+    expect(await ownerDb()("memberships").where({ user_id: me.id, team_id: demoTeamId }).first("role")).toEqual({ role: "owner" });
   });
 
   it("another shop's members and invites are not found (404) and nothing changes", async () => {
@@ -171,16 +171,16 @@ describe("roles and removal", () => {
       (await import("~/routes/shop/team-switch")).action as Handler,
       post(
         "/team/switch",
-        { teamId: String((await db()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id")).id), returnTo: "/team" },
+        { teamId: String((await ownerDb()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id")).id), returnTo: "/team" },
         saltmarsh,
       ),
     );
-    const viewer = await db()("users").where({ email: "viewer@example.com" }).first("id");
+    const viewer = await ownerDb()("users").where({ email: "viewer@example.com" }).first("id");
     const pending = await inviteByMail("pending@example.com", "viewer");
-    const inviteRow = await db()("team_invites")
+    const inviteRow = await ownerDb()("team_invites")
       .where({ token_hash: hashLinkToken(tokenOf(pending)) })
       .first("id");
-    const before = JSON.stringify(await db()("memberships").orderBy(["user_id", "team_id"]));
+    const before = JSON.stringify(await ownerDb()("memberships").orderBy(["user_id", "team_id"]));
     for (const fields of [
       { intent: "role", userId: String(viewer.id), role: "owner" },
       { intent: "remove", userId: String(viewer.id) },
@@ -188,7 +188,7 @@ describe("roles and removal", () => {
     ] as Record<string, string>[]) {
       expect((await call(teamAction, post("/team", fields, saltmarsh))).status).toBe(404);
     }
-    expect(JSON.stringify(await db()("memberships").orderBy(["user_id", "team_id"]))).toBe(before);
+    expect(JSON.stringify(await ownerDb()("memberships").orderBy(["user_id", "team_id"]))).toBe(before);
     expect((await page(pending)).body).toMatchObject({ invite: { email: "pending@example.com" } });
     // the shop's own owner can withdraw it
     expect((await call(teamAction, post("/team", { intent: "revoke", inviteId: String(inviteRow.id) }, owner))).status).toBe(302);

@@ -10,12 +10,12 @@ import * as itemUpload from "~/routes/libraries/item-files-upload";
 import * as libraryEdit from "~/routes/libraries/edit";
 import { receiveUpload, sweepOrphanFiles } from "~/models/files.server";
 import { MAX_UPLOAD_BYTES } from "~/utils/upload-rules";
-import { db } from "~/utils/db.server";
 import { getEnv } from "~/utils/env.server";
 import { fileStorage, newStorageKey } from "~/utils/files.server";
 import { startFakeS3, type FakeS3 } from "../setup/fake-s3";
 import { ORIGIN, signIn } from "./helpers";
 import { through } from "./pipeline";
+import { ownerDb } from "../setup/db-roles";
 
 // Uploads through the root middleware, as the server runs them: streamed, capped, sniffed, stored
 // under server-made names, served only to the owning team, taken away, and swept. The same tests run on
@@ -44,12 +44,12 @@ export function describeUploads(store: "disk" | "s3") {
     builder = await signIn("builder@example.com");
     viewer = await signIn("viewer@example.com");
     other = await signIn("other-owner@example.com");
-    teamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
-    otherTeamId = (await db()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id")).id;
-    engineId = (await db()("engines").where({ team_id: teamId, cylinders: 6 }).first("id")).id;
-    assemblyId = (await db()("assemblies").where({ team_id: teamId, engine_id: engineId }).first("id")).id;
-    fastenerId = (await db()("fasteners").where({ team_id: teamId }).first("id")).id;
-    builderId = (await db()("users").where({ email: "builder@example.com" }).first("id")).id;
+    teamId = (await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+    otherTeamId = (await ownerDb()("teams").where({ name: "Saltmarsh Dyno Cell" }).first("id")).id;
+    engineId = (await ownerDb()("engines").where({ team_id: teamId, cylinders: 6 }).first("id")).id;
+    assemblyId = (await ownerDb()("assemblies").where({ team_id: teamId, engine_id: engineId }).first("id")).id;
+    fastenerId = (await ownerDb()("fasteners").where({ team_id: teamId }).first("id")).id;
+    builderId = (await ownerDb()("users").where({ email: "builder@example.com" }).first("id")).id;
   });
 
   afterAll(async () => {
@@ -68,7 +68,7 @@ export function describeUploads(store: "disk" | "s3") {
     } while (cursor);
     return keys.sort();
   };
-  const fileRows = async () => Number((await db()("files").count({ n: "*" }).first())!.n);
+  const fileRows = async () => Number((await ownerDb()("files").count({ n: "*" }).first())!.n);
   const url = () => `/engines/${engineId}/files/upload`;
   const before = async () => [await fileRows(), (await storedKeys()).length];
 
@@ -139,7 +139,7 @@ export function describeUploads(store: "disk" | "s3") {
       expect(file.name).toBe("head gasket.png");
       expect(file.hasThumb).toBe(true);
       expect(file.assemblyId).toBe(assemblyId);
-      const row = await db()("files").where({ id: file.id }).first();
+      const row = await ownerDb()("files").where({ id: file.id }).first();
       expect(row.storage_key).toMatch(/^t\d+\/[0-9a-f-]{36}$/);
       const keys = await storedKeys();
       expect(keys).toContain(row.storage_key);
@@ -248,7 +248,7 @@ export function describeUploads(store: "disk" | "s3") {
       const was = await before();
       const env = getEnv();
       const quota = env.UPLOAD_TEAM_QUOTA_MB;
-      const used = Number((await db()("files").where({ team_id: teamId }).sum({ n: "size_bytes" }).first())!.n ?? 0);
+      const used = Number((await ownerDb()("files").where({ team_id: teamId }).sum({ n: "size_bytes" }).first())!.n ?? 0);
       env.UPLOAD_TEAM_QUOTA_MB = (used + PDF.length - 1) / 1024 / 1024;
       try {
         const out = await through(upload.action, formRequest(pdfForm("one too many.pdf")), params());
@@ -272,7 +272,7 @@ export function describeUploads(store: "disk" | "s3") {
       const out = await through(upload.action, formRequest(pdfForm("torque sheet.pdf")), params());
       expect(out.status).toBe(200);
       const id = (out.body as { file: { id: number } }).file.id;
-      const row = await db()("files").where({ id }).first();
+      const row = await ownerDb()("files").where({ id }).first();
       const served = await fileGet(id, builder);
       expect(served.status).toBe(200);
       expect(served.headers.get("Content-Type")).toBe("application/pdf");
@@ -286,9 +286,9 @@ export function describeUploads(store: "disk" | "s3") {
       expect(await storedKeys()).toContain(row.storage_key);
       const gone = await fileDelete(id, builder, back);
       expect([gone.status, gone.location]).toEqual([302, back]);
-      expect(await db()("files").where({ id }).first()).toBeUndefined();
+      expect(await ownerDb()("files").where({ id }).first()).toBeUndefined();
       expect(await storedKeys()).not.toContain(row.storage_key);
-      const audit = await db()("audit_events").where({ team_id: teamId, action: "file.deleted" }).orderBy("id", "desc").first();
+      const audit = await ownerDb()("audit_events").where({ team_id: teamId, action: "file.deleted" }).orderBy("id", "desc").first();
       expect(JSON.parse(audit.detail)).toEqual({ fileId: id, name: "torque sheet.pdf" });
       expect((await fileGet(id, builder)).status).toBe(404);
     });
@@ -300,7 +300,7 @@ export function describeUploads(store: "disk" | "s3") {
       expect(out.status).toBe(200);
       const file = (out.body as { file: { id: number; fastenerId: number; engineId: number | null } }).file;
       expect([file.fastenerId, file.engineId]).toEqual([fastenerId, null]);
-      expect((await db()("files").where({ id: file.id }).first()).team_id).toBe(teamId);
+      expect((await ownerDb()("files").where({ id: file.id }).first()).team_id).toBe(teamId);
 
       const page = (who: string) =>
         through(libraryEdit.loader, new Request(`${ORIGIN}/libraries/fasteners/${fastenerId}`, { headers: { Cookie: who } }), itemParams);
@@ -321,7 +321,7 @@ export function describeUploads(store: "disk" | "s3") {
       const was = await before();
       expect((await through(itemUpload.action, formRequest(pdfForm("x.pdf"), viewer, to), itemParams)).status).toBe(403);
       expect((await through(itemUpload.action, formRequest(pdfForm("x.pdf"), other, to), itemParams)).status).toBe(404);
-      const material = (await db()("materials").where({ team_id: teamId }).first("id")).id;
+      const material = (await ownerDb()("materials").where({ team_id: teamId }).first("id")).id;
       const materialTo = `/libraries/materials/${material}/files/upload`;
       expect(
         (
@@ -333,7 +333,7 @@ export function describeUploads(store: "disk" | "s3") {
       ).toBe(404);
       expect(await before()).toEqual(was);
       // the other team's own fastener page lists none of them
-      const theirs = (await db()("fasteners").where({ team_id: otherTeamId }).first("id")).id;
+      const theirs = (await ownerDb()("fasteners").where({ team_id: otherTeamId }).first("id")).id;
       const theirPage = await through(
         libraryEdit.loader,
         new Request(`${ORIGIN}/libraries/fasteners/${theirs}`, { headers: { Cookie: other } }),
@@ -356,9 +356,9 @@ export function describeUploads(store: "disk" | "s3") {
       await put(young, hoursAgo(0));
       await put(kept, hoursAgo(5));
       await put(foreign, hoursAgo(9));
-      await db()("files").insert({
+      await ownerDb()("files").insert({
         team_id: otherTeamId,
-        fastener_id: (await db()("fasteners").where({ team_id: otherTeamId }).first("id")).id,
+        fastener_id: (await ownerDb()("fasteners").where({ team_id: otherTeamId }).first("id")).id,
         storage_key: kept,
         name: "sheet.pdf",
         content_type: "application/pdf",
@@ -375,7 +375,7 @@ export function describeUploads(store: "disk" | "s3") {
       expect(swept.listed).toBe(keysBefore.length);
       expect(await storedKeys()).toEqual(keysBefore.filter((k) => k !== orphan && k !== orphanThumb));
       // every row's objects are still there
-      for (const r of await db()("files").select("storage_key", "thumb_key"))
+      for (const r of await ownerDb()("files").select("storage_key", "thumb_key"))
         for (const k of [r.storage_key, r.thumb_key].filter(Boolean)) expect(await storedKeys()).toContain(k);
       expect((await sweepOrphanFiles({ olderThanMinutes: 60 })).removed).toEqual([]);
     });

@@ -10,9 +10,9 @@ import * as sharing from "~/routes/engines/sharing";
 import * as dashboard from "~/routes/shop/dashboard";
 import * as mailbox from "~/routes/dev/mailbox";
 import { getEnv, mailboxOpen } from "~/utils/env.server";
-import { db } from "~/utils/db.server";
 import { call, get, post, signIn, type Handler } from "./helpers";
 import { linkPath, startTestSink } from "./mail";
+import { ownerDb } from "../setup/db-roles";
 
 // Viewers see only the engines shared with them, enforced in the engine model (issue 12); sharing is
 // a builder's; the build sheet and its e-mail.
@@ -33,10 +33,10 @@ beforeAll(async () => {
     ["other", "other-owner@example.com"],
   ] as const)
     cookies[k] = await signIn(email);
-  const team = await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id");
-  shared = (await db()("engines").where({ team_id: team.id, name: "Fenwick-Oddy 2.0 four" }).first("id")).id;
-  unshared = (await db()("engines").where({ team_id: team.id, cylinders: 6 }).first("id")).id;
-  viewerId = (await db()("users").where({ email: "viewer@example.com" }).first("id")).id;
+  const team = await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id");
+  shared = (await ownerDb()("engines").where({ team_id: team.id, name: "Fenwick-Oddy 2.0 four" }).first("id")).id;
+  unshared = (await ownerDb()("engines").where({ team_id: team.id, cylinders: 6 }).first("id")).id;
+  viewerId = (await ownerDb()("users").where({ email: "viewer@example.com" }).first("id")).id;
   return () => sink.close();
 });
 
@@ -61,8 +61,8 @@ describe("what a viewer sees", () => {
   });
 
   it("gets 404 for every page of an unshared engine, and 200 for the shared one", async () => {
-    const plan = await db()("seal_plans").where({ engine_id: unshared }).first("id");
-    const sharedPlan = await db()("seal_plans").where({ engine_id: shared }).first("id");
+    const plan = await ownerDb()("seal_plans").where({ engine_id: unshared }).first("id");
+    const sharedPlan = await ownerDb()("seal_plans").where({ engine_id: shared }).first("id");
     for (const [loader, path, params] of [
       [layout.loader, `/engines/${unshared}`, {}],
       [overview.loader, `/engines/${unshared}`, {}],
@@ -97,12 +97,12 @@ describe("sharing an engine", () => {
   });
 
   it("refuses a non-viewer, another shop's engine (404) and bad input (400), writing nothing", async () => {
-    const before = JSON.stringify(await db()("engine_shares").orderBy(["engine_id", "user_id"]));
-    const builderId = (await db()("users").where({ email: "builder@example.com" }).first("id")).id;
+    const before = JSON.stringify(await ownerDb()("engine_shares").orderBy(["engine_id", "user_id"]));
+    const builderId = (await ownerDb()("users").where({ email: "builder@example.com" }).first("id")).id;
     const otherEngine =
       (
-        await db()("engines")
-          .whereNot({ team_id: (await db()("engines").where({ id: shared }).first("team_id")).team_id })
+        await ownerDb()("engines")
+          .whereNot({ team_id: (await ownerDb()("engines").where({ id: shared }).first("team_id")).team_id })
           .first("id")
       )?.id ?? 999_999;
     expect(
@@ -131,7 +131,7 @@ describe("sharing an engine", () => {
     });
     expect(bad.status).toBe(400);
     expect(Object.keys((bad.body as { errors: object }).errors).sort()).toEqual(["shared", "viewerId"]);
-    expect(JSON.stringify(await db()("engine_shares").orderBy(["engine_id", "user_id"]))).toBe(before);
+    expect(JSON.stringify(await ownerDb()("engine_shares").orderBy(["engine_id", "user_id"]))).toBe(before);
   });
 });
 
@@ -149,7 +149,7 @@ describe("the build sheet", () => {
         fastener: { makerTorqueNm: number | null };
       };
     };
-    const engine = await db()("engines").where({ id: shared }).first("chosen_plan_id");
+    const engine = await ownerDb()("engines").where({ id: shared }).first("chosen_plan_id");
     expect(body.canSend).toBe(false);
     expect(body.sheet.ok).toBe(true);
     expect(body.sheet.plan.id).toBe(engine.chosen_plan_id);

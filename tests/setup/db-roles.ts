@@ -4,7 +4,7 @@ import { db } from "../../app/utils/db.server.ts";
 import { knexConfig } from "../../app/utils/knex-config.server.ts";
 
 // Which role a test's own queries run as on the PostgreSQL pass (docs/decisions/0018-row-security.md).
-// The app's db() is the owner unless TEST_PG_ROLE=app (setup-file.ts). ownerDb() is for set-up rows and
+// The app's db() is the app role unless TEST_PG_ROLE=owner (setup-file.ts). ownerDb() is for set-up rows and
 // checks that must see every team; appDb() is the hosted app role, which row security binds. On SQLite
 // both are the app's own db() (one file, no roles).
 

@@ -17,11 +17,12 @@ if (pgBaseUrl && pgTemplate && pgDatabase) {
   await createDatabase(pgBaseUrl, pgDatabase, pgTemplate);
   // Two doors to the same copy (tests/setup/db-roles.ts): the owner (migrations, set-up rows; row security
   // never binds it) and the app role of docs/hosting.md (owns nothing, so the policies bind it).
-  // TEST_PG_ROLE=app puts the app's own db() on the app role, as a hosted process runs.
+  // The app's own db() is the app role, as a hosted process runs, so every test goes through the
+  // policies; TEST_PG_ROLE=owner puts it on the owner instead (to tell a policy's refusal from a bug).
   const ownerUrl = withUser(urlFor(pgBaseUrl, pgDatabase));
   process.env.TEST_OWNER_DATABASE_URL = ownerUrl;
   process.env.TEST_APP_DATABASE_URL = pgAppRole ? urlAs(ownerUrl, pgAppRole) : ownerUrl;
-  process.env.DATABASE_URL = process.env.TEST_PG_ROLE === "app" ? process.env.TEST_APP_DATABASE_URL : ownerUrl;
+  process.env.DATABASE_URL = process.env.TEST_PG_ROLE === "owner" ? ownerUrl : process.env.TEST_APP_DATABASE_URL;
 } else {
   fs.copyFileSync(path.join(tmp, "template.sqlite"), file);
   delete process.env.DATABASE_URL;
