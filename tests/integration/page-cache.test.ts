@@ -12,7 +12,7 @@ import * as logout from "~/routes/auth/logout";
 import * as shopLayout from "~/routes/shop/layout";
 import * as engineLayout from "~/routes/engines/layout";
 import * as editor from "~/routes/plans/editor";
-import { db } from "~/utils/db.server";
+import { ownerDb } from "../setup/db-roles";
 import { documentRequestContext, PAGE_CACHE } from "~/utils/page-cache.server";
 import { call, get, post, signIn, type Handler } from "./helpers";
 
@@ -90,8 +90,8 @@ beforeAll(async () => {
   cookies.owner = await signIn("owner@example.com");
   cookies.viewer = await signIn("viewer@example.com");
   cookies.other = await signIn("other-owner@example.com");
-  teamId = (await db()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
-  engineId = (await db()("engines").where({ team_id: teamId, cylinders: 4 }).first("id")).id;
+  teamId = (await ownerDb()("teams").where({ name: "Harrow Lane Boost Works" }).first("id")).id;
+  engineId = (await ownerDb()("engines").where({ team_id: teamId, cylinders: 4 }).first("id")).id;
   planId = (await listPlans(teamId, engineId))[0]!.id;
   path = `/engines/${engineId}/plans/${planId}`;
 });
@@ -113,7 +113,7 @@ describe("plan editor page cache", () => {
 
   it("renders afresh after the plan is saved, and shows the saved plan", async () => {
     await page(cookies.builder);
-    const row = await db()("seal_plans").where({ id: planId }).first();
+    const row = await ownerDb()("seal_plans").where({ id: planId }).first();
     const form = {
       intent: "save",
       name: "Cache test: saved plan",
@@ -150,7 +150,7 @@ describe("plan editor page cache", () => {
     const first = await page(cookies.builder);
     const fastenerId = first.shown.page.plan.fastenerId as number;
     const item = (await getLibraryItem("fasteners", teamId, fastenerId))!;
-    const builderId = (await db()("users").where({ email: "builder@example.com" }).first("id")).id;
+    const builderId = (await ownerDb()("users").where({ email: "builder@example.com" }).first("id")).id;
     const { id: _id, teamId: _t, ...input } = item as unknown as Record<string, unknown>;
     const renamed = { ...input, name: "Cache test: renamed stud" };
     expect(await updateLibraryItem("fasteners", teamId, fastenerId, builderId, renamed as never)).toBe(true);
@@ -181,8 +181,8 @@ describe("plan editor page cache", () => {
 
   it("never gives one person's page to another of the same shop and role: each renders their own", async () => {
     // a second builder of the demo shop (same role, same memberships as the first): only the person differs
-    const builder = await db()("users").where({ email: "builder@example.com" }).first();
-    const [second] = await db()("users")
+    const builder = await ownerDb()("users").where({ email: "builder@example.com" }).first();
+    const [second] = await ownerDb()("users")
       .insert({
         email: "second-builder@example.com",
         name: "Second Builder",
@@ -191,7 +191,7 @@ describe("plan editor page cache", () => {
         created_at: builder.created_at,
       })
       .returning("id");
-    await db()("memberships").insert({
+    await ownerDb()("memberships").insert({
       user_id: (second as { id: number }).id,
       team_id: teamId,
       role: "builder",
@@ -222,8 +222,8 @@ describe("plan editor page cache", () => {
     expect(viewer.shown.shop.user.email).toBe("viewer@example.com");
     expect(viewer.shown.page.canEdit).toBe(false);
     expect(viewer.body).not.toContain("builder@example.com");
-    const ownerId = (await db()("users").where({ email: "owner@example.com" }).first("id")).id;
-    const viewerId = (await db()("users").where({ email: "viewer@example.com" }).first("id")).id;
+    const ownerId = (await ownerDb()("users").where({ email: "owner@example.com" }).first("id")).id;
+    const viewerId = (await ownerDb()("users").where({ email: "viewer@example.com" }).first("id")).id;
     await setEngineShare(teamId, ownerId, engineId, viewerId, false);
     try {
       before = renders;
@@ -238,7 +238,7 @@ describe("plan editor page cache", () => {
   it("renders afresh after a role change (the write's audit row moves the version) and shows the new role", async () => {
     const first = await page(cookies.builder);
     expect(first.shown.page.canEdit).toBe(true);
-    const builderId = (await db()("users").where({ email: "builder@example.com" }).first("id")).id;
+    const builderId = (await ownerDb()("users").where({ email: "builder@example.com" }).first("id")).id;
     const version = await teamDataVersion(teamId);
     const demoted = await call(
       team.action as Handler,
