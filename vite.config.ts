@@ -9,6 +9,7 @@ const underVitest = Boolean(process.env.VITEST);
 export default defineConfig({
   plugins: underVitest ? [] : [tailwindcss(), reactRouter()],
   resolve: { tsconfigPaths: true },
+  build: { sourcemap: process.env.BUILD_SOURCEMAP ? "hidden" : false },
   server: { port: 3000 },
   test: {
     include: ["tests/**/*.test.ts"],

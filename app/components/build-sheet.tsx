@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import { CEILING_WORDS } from "~/lib/clamp";
+import { CEILING_WORDS } from "~/lib/clamp/ceiling-words";
 import { layoutName, SLEEVE_LABEL } from "~/lib/engine";
 import { GASKET_TYPE_LABELS } from "~/lib/library/schemas";
 import { stagesText } from "~/lib/plan/build-sheet";
@@ -8,7 +8,7 @@ import { METHOD_LABEL, WIRE_LABEL } from "~/lib/plan/form";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
 import { Caution } from "./caution";
 import { marginStatus } from "~/lib/plan/margin";
-import { VerdictLine } from "./estimate-panel";
+import { VerdictLine } from "./verdict-line";
 import { STATUS_LOOK } from "./status-look";
 import { MakerTorque } from "./maker-torque";
 

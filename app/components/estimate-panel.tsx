@@ -1,32 +1,25 @@
-import { lazy, Suspense, useEffect, useRef, useState } from "react";
+import { useDeferredValue, useEffect, useRef, useState } from "react";
 // the words and the order from their own modules: this panel needs no model code in the browser
 import { CEILING_WORDS } from "~/lib/clamp/ceiling-words";
-import { rankChecks } from "~/lib/clamp/check-order";
 import type { EstimateView } from "~/lib/plan/estimate-view";
-import { chance, marginStatus } from "~/lib/plan/margin";
+import { chance } from "~/lib/plan/margin";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
-
-// Chart.js loads only in the browser and only on pages that chart.
-const CylinderChart = lazy(() => import("./plan-charts").then((m) => ({ default: m.CylinderChart })));
-const SweepChart = lazy(() => import("./plan-charts").then((m) => ({ default: m.SweepChart })));
-
+import { PlanCharts } from "./estimate-charts";
+import { ChecksTable, CylinderTable, EstimateNotes, SweepTable } from "./estimate-tables";
 import { STATUS_LOOK, type StatusLook } from "./status-look";
+import { VerdictLine } from "./verdict-line";
 
 export { STATUS_LOOK, type StatusLook };
+export { VerdictLine };
 
 const pct = (x: number) => `${(x * 100).toFixed(0)} %`;
 
-/** The verdict in one line, for the phone's sticky bar and the plan list. */
-export function VerdictLine({ view }: { view: EstimateView }) {
-  const v = view.estimate.verdict;
-  const look = STATUS_LOOK[v.status];
-  return (
-    <span className="font-bold">
-      {look.icon} {look.word}: {v.headline}
-    </span>
-  );
-}
-
+/**
+ * The estimate for one plan. At a keystroke the verdict, the margins, the ceiling and the figures
+ * follow at once; the long tables follow a moment later (a deferred render React can interrupt for the
+ * next keystroke) and the charts once the figures settle. While any part shown is not yet for the
+ * inputs shown, the panel says it is recalculating (and is aria-busy).
+ */
 export function EstimatePanel({
   view,
   units,
@@ -35,6 +28,7 @@ export function EstimatePanel({
   view: EstimateView;
   units: UnitSystem;
   targetMargin?: number;
+  /** The sweep and the scatter run shown are not yet these inputs' (they are on their way). */
   busy?: boolean;
 }) {
   const e = view.estimate;
@@ -42,29 +36,21 @@ export function EstimatePanel({
   const look = STATUS_LOOK[v.status];
   const force = (n: number) => formatQuantity(n, "force", units);
   const torque = (nm: number) => formatQuantity(nm, "torque", units);
-  const [mounted, setMounted] = useState(false);
-  useEffect(() => setMounted(true), []);
-  const announcement = useSettledAnnouncement(`${look.word}: ${v.headline}`, busy);
+  // the tables' view: this one, or for a moment the one before
+  const later = useDeferredValue(view);
+  const behind = busy || later !== view;
+  const announcement = useSettledAnnouncement(`${look.word}: ${v.headline}`, behind);
   const band = e.tightening.preload;
   const half = (band.maxN - band.minN) / 2 / band.nominalN;
-  const totals = e.cylinders.reduce(
-    (t, c) => ({
-      clamp: t.clamp + c.clampN,
-      heat: t.heat + c.heatAndSettlingN,
-      firing: t.firing + c.clampReliefN,
-      line: t.line + c.remainingSealLineHotSettledN,
-      body: t.body + c.bodyFiredN,
-    }),
-    { clamp: 0, heat: 0, firing: 0, line: 0, body: 0 },
-  );
+  const l = later.estimate;
   return (
-    <section aria-labelledby="estimate-title" aria-busy={busy} className="space-y-4">
+    <section aria-labelledby="estimate-title" aria-busy={behind} className="space-y-4">
       {/* progress without fading the figures: fading would drop the small text and the caution below contrast */}
       <div className="flex flex-wrap items-baseline gap-3">
         <h2 id="estimate-title" tabIndex={-1} className="text-xl font-bold">
           Estimate
         </h2>
-        {busy ? (
+        {behind ? (
           <span
             className="rounded border border-forge-500 bg-white px-2 py-0.5 text-sm font-medium text-forge-900"
             data-testid="recalculating"
@@ -92,37 +78,7 @@ export function EstimatePanel({
         </p>
       </div>
 
-      {/* a table wider than a phone scrolls in its own box, which the keyboard can reach to scroll */}
-      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Every check, worst first">
-        <table className="w-full border-collapse bg-white text-left text-sm" data-testid="checks">
-          <caption className="mb-1 text-left font-bold">Every check, worst first</caption>
-          <thead className="bg-forge-100">
-            <tr>
-              <th scope="col" className="px-2 py-1">
-                Result
-              </th>
-              <th scope="col" className="px-2 py-1">
-                Check
-              </th>
-              <th scope="col" className="px-2 py-1">
-                Figure
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {rankChecks(v.checks).map((c) => {
-              const l = STATUS_LOOK[c.status];
-              return (
-                <tr key={c.id} className="border-t border-forge-100">
-                  <td className="px-2 py-1 whitespace-nowrap">{c.checked ? `${l.icon} ${l.word}` : "— not checked"}</td>
-                  <td className="px-2 py-1">{c.label}</td>
-                  <td className="px-2 py-1 tabular">{c.detail}</td>
-                </tr>
-              );
-            })}
-          </tbody>
-        </table>
-      </div>
+      <ChecksTable checks={l.verdict.checks} />
 
       <div className="rounded border border-forge-300 bg-white px-4 py-3 text-sm" data-testid="ceiling">
         <p className="font-bold">
@@ -181,177 +137,20 @@ export function EstimatePanel({
         />
       </dl>
 
-      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Per cylinder">
-        <table className="w-full border-collapse bg-white text-right text-sm tabular" data-testid="cylinders">
-          <caption className="mb-1 text-left font-bold">
-            Per cylinder, nominal preload: clamp + heat and settling − firing = left on the gasket (seal line + body)
-          </caption>
-          <thead className="bg-forge-100">
-            <tr>
-              <th scope="col" className="px-2 py-1 text-left">
-                Cyl
-              </th>
-              <th scope="col" className="px-2 py-1">
-                Clamp
-              </th>
-              <th scope="col" className="px-2 py-1">
-                Heat and settling
-              </th>
-              <th scope="col" className="px-2 py-1">
-                Firing takes
-              </th>
-              <th scope="col" className="px-2 py-1">
-                Left on the seal line
-              </th>
-              <th scope="col" className="px-2 py-1">
-                Left on the body
-              </th>
-              <th scope="col" className="px-2 py-1">
-                Seal line needs
-              </th>
-              <th scope="col" className="px-2 py-1">
-                Margin, bottom of band
-              </th>
-              <th scope="col" className="px-2 py-1">
-                Margin, nominal
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {e.cylinders.map((c) => {
-              const s = STATUS_LOOK[marginStatus(c.sealMargin, view.targetMargin)];
-              return (
-                <tr key={c.cylinder} className={`border-t border-forge-100 ${c.cylinder === e.weakestCylinder ? "font-bold" : ""}`}>
-                  <th scope="row" className="px-2 py-1 text-left">
-                    {c.cylinder}
-                    {c.cylinder === e.weakestCylinder ? " (weakest)" : ""}
-                  </th>
-                  <td className="px-2 py-1">{force(c.clampN)}</td>
-                  <td className="px-2 py-1">
-                    {c.heatAndSettlingN >= 0 ? "+" : "−"}
-                    {force(Math.abs(c.heatAndSettlingN))}
-                  </td>
-                  <td className="px-2 py-1">−{force(c.clampReliefN)}</td>
-                  <td className="px-2 py-1">{force(c.remainingSealLineHotSettledN)}</td>
-                  <td className="px-2 py-1">{force(c.bodyFiredN)}</td>
-                  <td className="px-2 py-1">{force(Math.max(c.requiredOperatingN, c.requiredSeatingN))}</td>
-                  <td className="px-2 py-1">
-                    {s.icon} {c.sealMargin.toFixed(2)}
-                  </td>
-                  <td className="px-2 py-1">{c.sealMarginNominal.toFixed(2)}</td>
-                </tr>
-              );
-            })}
-            <tr className="border-t-2 border-forge-300 font-bold">
-              <th scope="row" className="px-2 py-1 text-left">
-                All
-              </th>
-              <td className="px-2 py-1">{force(totals.clamp)}</td>
-              <td className="px-2 py-1">
-                {totals.heat >= 0 ? "+" : "−"}
-                {force(Math.abs(totals.heat))}
-              </td>
-              <td className="px-2 py-1">−{force(totals.firing)}</td>
-              <td className="px-2 py-1">{force(totals.line)}</td>
-              <td className="px-2 py-1">{force(totals.body)}</td>
-              <td className="px-2 py-1" colSpan={3} />
-            </tr>
-          </tbody>
-        </table>
-      </div>
+      <CylinderTable cylinders={l.cylinders} weakestCylinder={l.weakestCylinder} targetMargin={later.targetMargin} units={units} />
       <p className="text-xs text-forge-700">
         Where firing would lift the gasket off, the columns after it do not add up: nothing is left to take. "Seal line needs" is the larger
         of the seating and the in-service load for the seal band
-        {e.seal.requirement.basis === "asme-stand-in"
+        {l.seal.requirement.basis === "asme-stand-in"
           ? " — from flange-code figures used as a conservative stand-in, not head-gasket data; the gasket maker's seating and service pressures replace them."
           : ", from the gasket maker's seating and service pressures."}
       </p>
 
-      {mounted ? (
-        <Suspense fallback={<p className="text-sm">Loading charts…</p>}>
-          <div className="grid grid-cols-1 gap-4 xl:grid-cols-2 print:grid-cols-2">
-            <figure className="h-72 min-w-0 rounded border border-forge-100 bg-white p-2">
-              <CylinderChart view={view} units={units} />
-            </figure>
-            <figure className="h-72 min-w-0 rounded border border-forge-100 bg-white p-2">
-              <SweepChart view={view} units={units} />
-            </figure>
-          </div>
-        </Suspense>
-      ) : null}
+      <PlanCharts view={later} units={units} settled={!behind} />
 
-      <details className="text-sm" data-testid="sweep-table">
-        <summary className="cursor-pointer font-medium">The torque sweep as a table</summary>
-        <div className="mt-1 overflow-x-auto" tabIndex={0} role="region" aria-label="The torque sweep">
-          <table className="w-full border-collapse bg-white text-right tabular">
-            <caption className="sr-only">
-              Over torque: weakest seal margin, seal gained per +10 % torque, the stud's use of its yield and the washer on the head
-            </caption>
-            <thead className="bg-forge-100">
-              <tr>
-                <th scope="col" className="px-2 py-1">
-                  Torque
-                </th>
-                <th scope="col" className="px-2 py-1">
-                  Weakest margin, bottom of band
-                </th>
-                <th scope="col" className="px-2 py-1">
-                  At nominal
-                </th>
-                <th scope="col" className="px-2 py-1">
-                  Seal gained per +10 %
-                </th>
-                <th scope="col" className="px-2 py-1">
-                  Stud hot and fired (of yield)
-                </th>
-                <th scope="col" className="px-2 py-1">
-                  Washer (of limit)
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {view.sweep
-                .filter((_, i) => i % 4 === 0 || i === view.sweep.length - 1)
-                .map((pt) => (
-                  <tr key={pt.torqueNm} className="border-t border-forge-100">
-                    <th scope="row" className="px-2 py-1">
-                      {torque(pt.torqueNm)}
-                      {pt.torqueNm > view.ceiling.torqueNm ? " ⚠ past the ceiling" : ""}
-                    </th>
-                    <td className="px-2 py-1">{pt.weakestMargin.toFixed(2)}</td>
-                    <td className="px-2 py-1">{pt.weakestMarginNominal.toFixed(2)}</td>
-                    <td className="px-2 py-1">
-                      {pct(pt.gainShare)}
-                      {pt.mostlySqueezing ? " (squeezes the head)" : ""}
-                    </td>
-                    <td className="px-2 py-1">{pct(pt.studWorkingUtilization)}</td>
-                    <td className="px-2 py-1">{pct(pt.bearingUtilizationMax)}</td>
-                  </tr>
-                ))}
-            </tbody>
-          </table>
-        </div>
-      </details>
+      <SweepTable sweep={later.sweep} ceilingTorqueNm={later.ceiling.torqueNm} units={units} />
 
-      {e.warnings.length > 0 ? (
-        <ul className="space-y-1 text-sm" aria-label="Warnings">
-          {e.warnings.map((w) => (
-            <li key={w} className="rounded border border-caution bg-caution-50 px-3 py-1">
-              ⚠ {w}
-            </li>
-          ))}
-        </ul>
-      ) : null}
-      {e.assumptions.length > 0 ? (
-        <details className="text-sm">
-          <summary className="cursor-pointer font-medium">What this estimate assumed ({e.assumptions.length})</summary>
-          <ul className="mt-1 list-disc space-y-1 pl-5" aria-label="Assumptions">
-            {e.assumptions.map((a) => (
-              <li key={a}>{a}</li>
-            ))}
-          </ul>
-        </details>
-      ) : null}
+      <EstimateNotes warnings={l.warnings} assumptions={l.assumptions} />
     </section>
   );
 }

@@ -19,9 +19,9 @@ export function EvidenceChart({ points, failureLine }: { points: EvidencePoint[]
   const seal = points.filter((p) => isSealFailure(p.outcome));
   const other = points.filter((p) => p.outcome !== "held" && !isSealFailure(p.outcome));
   return (
+    // its text alternative is on the frame around it (evidence-plot.tsx), there before the chart loads
     <Scatter
-      role="img"
-      aria-label="Chart: each run's predicted seal margin at its logged peak pressure, held or failed. The table below has the same runs."
+      aria-hidden
       data={{
         datasets: [
           { label: "Held", data: xy(held), backgroundColor: HELD, pointStyle: "circle", pointRadius: 6 },

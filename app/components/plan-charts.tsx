@@ -10,6 +10,7 @@ import {
   PointElement,
   Tooltip,
 } from "chart.js";
+import { memo } from "react";
 import { Bar, Line } from "react-chartjs-2";
 import type { EstimateView } from "~/lib/plan/estimate-view";
 import { toDisplay, unitFor, type UnitSystem } from "~/lib/units";
@@ -46,8 +47,11 @@ function hatched(color: string): CanvasPattern | string {
   return ctx.createPattern(tile, "repeat") ?? color;
 }
 
+// Both charts are memoised on the view object: the panel hands them a held view while typing, and a
+// chart re-rendered with new data objects is a full Chart.js update.
+
 /** Per-cylinder seal-line load left under firing (hot, settled) against what the seal needs. */
-export function CylinderChart({ view, units }: { view: EstimateView; units: UnitSystem }) {
+export const CylinderChart = memo(function CylinderChart({ view, units }: { view: EstimateView; units: UnitSystem }) {
   const unit = unitFor("force", units);
   const f = (n: number) => toDisplay("force", n, unit);
   const cyl = view.estimate.cylinders;
@@ -84,7 +88,7 @@ export function CylinderChart({ view, units }: { view: EstimateView; units: Unit
       }}
     />
   );
-}
+});
 
 /** A vertical marker at torque x on the margin axis. */
 function marker(label: string, x: number, top: number, color: string, dash: number[] = []) {
@@ -108,7 +112,7 @@ function marker(label: string, x: number, top: number, color: string, dash: numb
  * axis; the seal gained per +10 % torque and the stud's use of its yield on a separate percent axis;
  * the plan's torque, the ceiling and the head-squeeze onset as labelled vertical markers.
  */
-export function SweepChart({ view, units }: { view: EstimateView; units: UnitSystem }) {
+export const SweepChart = memo(function SweepChart({ view, units }: { view: EstimateView; units: UnitSystem }) {
   const unit = unitFor("torque", units);
   const t = (nm: number) => toDisplay("torque", nm, unit);
   const pts = view.sweep;
@@ -215,4 +219,4 @@ export function SweepChart({ view, units }: { view: EstimateView; units: UnitSys
       }}
     />
   );
-}
+});

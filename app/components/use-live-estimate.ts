@@ -34,6 +34,21 @@ export interface LiveEstimateData {
 // eslint-disable-next-line @typescript-eslint/consistent-type-imports
 type LiveEvaluation = typeof import("~/lib/plan/live-evaluation");
 
+interface StepBase {
+  fastenerId: string;
+  errors: Record<string, string> | null;
+}
+/** What one reading of the form gives: figures, or why there are none (yet). */
+type LiveStep =
+  | (StepBase & { kind: "unreadable" | "incomplete" | "waiting" })
+  | (StepBase & { kind: "figures"; live: ReturnType<LiveEvaluation["liveFigures"]>; byStretch: boolean });
+
+/** Run when the browser is idle (soon, where it cannot say). */
+function whenIdle(run: () => void) {
+  if (typeof requestIdleCallback === "function") requestIdleCallback(run, { timeout: 2000 });
+  else setTimeout(run, 200);
+}
+
 export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null) {
   const formRef = useRef<HTMLFormElement>(null);
   const timer = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
@@ -52,7 +67,9 @@ export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null)
   const loading = useRef<Promise<LiveEvaluation> | null>(null);
   const loadModel = () => (loading.current ??= import("~/lib/plan/live-evaluation").then((m) => (model.current = m)));
   useEffect(() => {
-    void loadModel();
+    // once loaded, run the model once on the form as it stands while the page is idle: the first
+    // keystroke then finds the model's code compiled (cold, it costs several times a warm evaluation)
+    void loadModel().then(() => whenIdle(() => figuresFor(formRef.current)));
   }, []);
   useEffect(
     () => () => {
@@ -64,8 +81,11 @@ export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null)
 
   const fetchSlowParts = (input: PlanInput) => {
     clearTimeout(timer.current);
+    // the request for the inputs before this keystroke is stale now, not only once the next one is sent:
+    // its answer must not replace the figures of the inputs shown
+    inFlight.current?.abort();
+    inFlight.current = null;
     timer.current = setTimeout(async () => {
-      inFlight.current?.abort();
       const controller = new AbortController();
       inFlight.current = controller;
       try {
@@ -94,32 +114,24 @@ export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null)
     }, SLOW_PART_DEBOUNCE_MS);
   };
 
-  const onChange = () => {
-    if (!formRef.current) return;
-    const form = Object.fromEntries(new FormData(formRef.current));
-    setFastenerId(String(form.fastenerId ?? ""));
+  /** The form read and, with the model loaded, evaluated; the caller puts the outcome on the page. */
+  const figuresFor = (formEl: HTMLFormElement | null): LiveStep | null => {
+    if (!formEl) return null;
+    const form = Object.fromEntries(new FormData(formEl));
     const full = parsePlanForm(form, d.units);
-    setErrors(full.ok ? null : full.errors);
     // Stages do not change the estimate, so a half-typed stage list does not hold it back.
     const parsed = full.ok ? full : parsePlanForm({ ...form, stages: "" }, d.units);
-    setStale(!parsed.ok);
-    if (!parsed.ok) return;
+    const base = { fastenerId: String(form.fastenerId ?? ""), errors: full.ok ? null : full.errors };
+    if (!parsed.ok) return { ...base, kind: "unreadable" };
     const fastener = d.choices.fasteners.find((f) => f.id === parsed.plan.fastenerId);
     const gasket = d.choices.gaskets.find((g) => g.id === parsed.plan.gasketId);
-    if (!fastener || !gasket || !d.materials.head || !d.materials.block) return;
+    if (!fastener || !gasket || !d.materials.head || !d.materials.block) return { ...base, kind: "incomplete" };
     const misfit = gasketFitProblem(d.engine.boreMm, gasket.boreMm, (mm) => formatQuantity(mm, "length", d.units));
-    if (misfit) {
-      setErrors({ ...(full.ok ? {} : full.errors), gasketId: misfit });
-      return setStale(true);
-    }
+    if (misfit) return { ...base, kind: "unreadable", errors: { ...base.errors, gasketId: misfit } };
     // the model turns a stretch target into a preload: before it has loaded (the first instant of the
-    // page) the change waits for it, then runs again on the form as it is by then
+    // page) the change waits for it
     const m = model.current;
-    if (!m) {
-      setSlowPending(true);
-      void loadModel().then(onChange);
-      return;
-    }
+    if (!m) return { ...base, kind: "waiting" };
     const plan = parsed.plan;
     const byStretch = plannedByStretch(plan);
     const torqueInput = assembleTorqueInput({
@@ -131,9 +143,27 @@ export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null)
       block: d.materials.block,
       sleeve: d.materials.sleeve,
     });
-    setSlowPending(true);
     // one validation and one prepare for the stiffness, the stretch target's preload and the evaluation
-    const live = m.liveFigures(torqueInput, plannedByStretch(plan) ? plan.targetStretchMm : null, lastFull.current, d.units);
+    const live = m.liveFigures(torqueInput, byStretch ? plan.targetStretchMm : null, lastFull.current, d.units);
+    return { ...base, kind: "figures", live, byStretch };
+  };
+
+  const onChange = () => {
+    const step = figuresFor(formRef.current);
+    if (!step) return;
+    setFastenerId(step.fastenerId);
+    setErrors(step.errors);
+    setStale(step.kind === "unreadable");
+    if (step.kind !== "figures") {
+      // the model is on its way: this runs again on the form as it is by then
+      if (step.kind === "waiting") {
+        setSlowPending(true);
+        void loadModel().then(onChange);
+      }
+      return;
+    }
+    setSlowPending(true);
+    const { live, byStretch } = step;
     setStud({ stiffnessNPerMm: live.stiffnessNPerMm, byStretch });
     // the server words the model's own refusals
     if (!live.input) return fetchSlowParts(live.raw as PlanInput);

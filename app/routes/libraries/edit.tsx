@@ -4,7 +4,7 @@ import type { Route } from "./+types/edit";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { Button, ErrorSummary, Field, SelectField } from "~/components/form";
 import { ItemFiles } from "~/components/item-files";
-import { TYPICAL_GASKETS } from "~/lib/clamp";
+import { TYPICAL_GASKETS } from "~/lib/clamp/gasket-families";
 import { sourceLine } from "~/lib/library/display";
 import {
   FASTENER_FRICTION_FIELDS,

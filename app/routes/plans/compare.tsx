@@ -1,7 +1,7 @@
 import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/compare";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
-import { STATUS_LOOK } from "~/components/estimate-panel";
+import { STATUS_LOOK } from "~/components/status-look";
 import { chance, marginStatus } from "~/lib/plan/margin";
 import { CEILING_WORDS, type Status } from "~/lib/clamp";
 import { formatQuantity, type UnitSystem } from "~/lib/units";

@@ -1,7 +1,7 @@
 import { Form, Link } from "react-router";
 import type { Route } from "./+types/list";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
-import { STATUS_LOOK } from "~/components/estimate-panel";
+import { STATUS_LOOK } from "~/components/status-look";
 import { CEILING_WORDS } from "~/lib/clamp";
 import { formatQuantity } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";

@@ -2,7 +2,7 @@ import { Form, Link } from "react-router";
 import type { Route } from "./+types/evidence";
 import { PageTitle } from "~/components/app-shell";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
-import { EvidenceChart } from "~/components/evidence-chart";
+import { EvidencePlot, EvidenceRunsTable } from "~/components/evidence-plot";
 import { Button, SelectField } from "~/components/form";
 import { GASKET_TYPE_LABELS } from "~/lib/library/schemas";
 import { combinations, filterPoints, summarize } from "~/lib/records/evidence";
@@ -81,9 +81,10 @@ export default function EvidencePage({ loaderData: d }: Route.ComponentProps) {
         out at the run's own peak pressure: the bottom of the preload band, hot and fired — the same basis as a plan's verdict.
       </p>
       {s.points > 0 ? (
-        <div className="mb-6 h-80 rounded border border-forge-100 bg-white p-2">
-          <EvidenceChart points={d.points} failureLine={s.failedAtOrBelowMargin} />
-        </div>
+        <>
+          <EvidencePlot points={d.points} failureLine={s.failedAtOrBelowMargin} />
+          <EvidenceRunsTable points={d.points} units={d.units} />
+        </>
       ) : null}
       <h2 className="mb-2 text-xl font-bold">By gasket type and fastener</h2>
       <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="held and failed, by gasket and fastener (scrolls sideways)">

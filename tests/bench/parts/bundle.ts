@@ -73,13 +73,18 @@ export function bundleRows(): Row[] {
       note: zod ? "a chunk named like zod is loaded" : undefined,
     });
   }
-  let largest = 0;
-  for (const id of Object.keys(m.routes)) largest = Math.max(largest, initialJsBytes(m, id).bytes);
+  // every route, not only the pages above: the largest by name, and any other over the budget
+  const sizes = Object.keys(m.routes)
+    .map((id) => ({ id, kb: initialJsBytes(m, id).bytes / 1024 }))
+    .sort((a, b) => b.kb - a.kb);
+  const largest = sizes[0] ?? { id: "none", kb: 0 };
+  const over = sizes.filter((r) => r.kb > BUDGET_KB);
   rows.push({
     figure: "initial JS, largest route (gzip)",
-    value: `${fmt(largest / 1024, 1)} KB`,
+    value: `${fmt(largest.kb, 1)} KB (${largest.id}, of ${sizes.length} routes)`,
     target: `≤ ${BUDGET_KB} KB`,
-    met: largest / 1024 <= BUDGET_KB,
+    met: largest.kb <= BUDGET_KB,
+    note: over.length > 1 ? `over the budget: ${over.map((r) => `${r.id} ${fmt(r.kb, 1)} KB`).join(", ")}` : undefined,
   });
   return rows;
 }
