@@ -179,7 +179,21 @@ export function ErrorSummary({
 }
 
 // A labelled text area, tied to its error message like Field.
-export function TextArea({ label, name, defaultValue, error }: { label: string; name: string; defaultValue?: string; error?: string }) {
+export function TextArea({
+  label,
+  name,
+  defaultValue,
+  error,
+  rows = 2,
+  maxLength,
+}: {
+  label: string;
+  name: string;
+  defaultValue?: string;
+  error?: string;
+  rows?: number;
+  maxLength?: number;
+}) {
   const id = `f-${name}`;
   return (
     <div>
@@ -189,7 +203,8 @@ export function TextArea({ label, name, defaultValue, error }: { label: string; 
       <textarea
         id={id}
         name={name}
-        rows={2}
+        rows={rows}
+        maxLength={maxLength}
         defaultValue={defaultValue}
         aria-invalid={error ? true : undefined}
         aria-describedby={error ? `${id}-error` : undefined}
