@@ -9,6 +9,7 @@ import { getEngine } from "~/models/engine.server";
 import { listPlans, planParts } from "~/models/plan.server";
 import { db } from "~/utils/db.server";
 import { call, get, post, signIn, teamWide } from "./helpers";
+import { answerError, answerValues } from "./conform-answer";
 
 // The machining and measurement record through its route, on the demo shop's four (wet sleeves planned
 // 0.10 mm proud, copper + wire: wire 0.11 mm over a 0.05 mm receiver groove); and the record forms in
@@ -248,9 +249,8 @@ describe("record forms in the person's units", () => {
         { engineId: String(four) },
       );
       expect(refused.status).toBe(400);
-      const body = refused.body as { errors: Record<string, string>; values: Record<string, string> };
-      expect(body.errors.peakCylinderPressureMpa).toBe("Peak cylinder pressure must be between 145 psi and 14,504 psi");
-      expect(body.values.manifoldPressureKpa).toBe("45");
+      expect(answerError(refused.body, "peakCylinderPressureMpa")).toBe("Peak cylinder pressure must be between 145 psi and 14,504 psi");
+      expect(answerValues(refused.body).manifoldPressureKpa).toBe("45");
     });
   });
 });

@@ -15,6 +15,7 @@ import { listPlans, planParts } from "~/models/plan.server";
 import { listRuns } from "~/models/records.server";
 import { db } from "~/utils/db.server";
 import { call, get, post, signIn, teamWide } from "./helpers";
+import { answerFields } from "./conform-answer";
 
 // Assemblies, runs and the evidence view through their route loaders and actions, on the demo shop.
 
@@ -165,7 +166,7 @@ describe("run log", () => {
     const before = await tables();
     const out = await call(runsPage.action, post(`/engines/${six}/runs`, { ...good, ...change }, builder), { engineId: String(six) });
     expect(out.status).toBe(400);
-    expect(Object.keys((out.body as { errors: Record<string, string> }).errors)).toContain(field);
+    expect(answerFields(out.body)).toContain(field);
     expect(await tables()).toEqual(before);
   });
 

@@ -6,6 +6,7 @@ import { db } from "~/utils/db.server";
 import { hashLinkToken } from "~/utils/tokens.server";
 import { call, cookiePair, get, post, signIn, type Handler } from "./helpers";
 import { linkPath, startTestSink } from "./mail";
+import { answerError } from "./conform-answer";
 
 // Invites by e-mail (through a real SMTP sink), accepting them, roles and removal (issue 12).
 
@@ -123,7 +124,7 @@ describe("inviting by e-mail", () => {
     ] as const) {
       const out = await call(teamAction, post("/team", fields, owner));
       expect(out.status).toBe(400);
-      expect((out.body as { errors: Record<string, string> }).errors[field]).toBeTruthy();
+      expect(answerError(out.body, field)).toBeTruthy();
     }
     expect(await db()("team_invites").count({ n: "*" })).toEqual(before);
     expect(sink.messagesTo("x@example.com")).toEqual([]);
@@ -160,7 +161,7 @@ describe("roles and removal", () => {
     ] as Record<string, string>[]) {
       const out = await call(teamAction, post("/team", fields, owner));
       expect(out.status).toBe(400);
-      expect((out.body as { error: string }).error).toMatch(/at least one owner/);
+      expect(answerError(out.body, "")).toMatch(/at least one owner/);
     }
     expect(await db()("memberships").where({ user_id: me.id, team_id: demoTeamId }).first("role")).toEqual({ role: "owner" });
   });
