@@ -104,6 +104,11 @@ export function Button({
   );
 }
 
+/** Conform's errors (field name → messages) → the first message of each field that has one. */
+export function firstErrors(allErrors: Record<string, string[] | null | undefined>): Record<string, string> {
+  return Object.fromEntries(Object.entries(allErrors).flatMap(([name, list]) => (list?.[0] ? [[name, list[0]]] : [])));
+}
+
 /**
  * The answer to a refused post: what went wrong and a link to each marked field. It takes focus
  * whenever a new answer arrives (`answer` changes), so a keyboard or screen-reader user lands on it

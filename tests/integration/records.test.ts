@@ -112,7 +112,7 @@ describe("assembly record", () => {
       engineId: String(four),
     });
     expect(out.status).toBe(400);
-    expect(Object.keys((out.body as { errors: Record<string, string> }).errors)).toContain(field);
+    expect(answerFields(out.body)).toContain(field);
     expect(await tables()).toEqual(before);
   });
 

@@ -2,7 +2,7 @@ import { getFormProps, useForm } from "@conform-to/react";
 import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/runs";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
-import { Button, ErrorSummary, Field, SelectField, TextArea } from "~/components/form";
+import { Button, ErrorSummary, Field, firstErrors, SelectField, TextArea } from "~/components/form";
 import { FileList, Uploader } from "~/components/uploader";
 import { OUTCOME_LABEL, OUTCOMES, RUN_KIND_LABEL, RUN_KINDS, runFormSchema, selectRuns, type RunSort } from "~/lib/records/run";
 import { runQuery } from "~/lib/records/run-query";
@@ -68,9 +68,7 @@ export default function Runs({ loaderData: d, actionData }: Route.ComponentProps
     shouldValidate: "onSubmit",
   });
   const values = (form.initialValue ?? d.values) as Record<string, string | undefined>;
-  const errors: Record<string, string> = Object.fromEntries(
-    Object.entries(form.allErrors).flatMap(([name, list]) => (list[0] ? [[name, list[0]]] : [])),
-  );
+  const errors = firstErrors(form.allErrors);
   const sortLink = (s: RunSort) => {
     const p = new URLSearchParams(d.search);
     p.set("sort", s);
