@@ -1,7 +1,16 @@
+import type { FormMetadata } from "@conform-to/react";
 import { useState, type ChangeEvent } from "react";
 import { followFastener, lubricantWarning, type MakerFigures } from "~/lib/plan/fastener-figures";
 import { gasketsByFit } from "~/lib/plan/parts";
-import { METHOD_HELP, METHOD_LABEL, WIRE_LABEL, type PlanWrite } from "~/lib/plan/form";
+import {
+  METHOD_HELP,
+  METHOD_LABEL,
+  PLAN_FORM_FIELDS,
+  WIRE_LABEL,
+  type PlanFormField,
+  type PlanFormValues,
+  type PlanWrite,
+} from "~/lib/plan/form";
 import type { StretchLine } from "~/lib/plan/stretch";
 import { formatQuantity, toDisplay, unitFor, type UnitSystem } from "~/lib/units";
 import { Button, Field, SelectField } from "./form";
@@ -12,8 +21,42 @@ export interface GasketChoice {
   boreMm: number;
 }
 
+/** The plan form's Conform fields (useForm<PlanFormValues> in the page). */
+export type PlanFormFieldset = ReturnType<FormMetadata<PlanFormValues>["getFieldset"]>;
+
+/** The first message per field of a Conform answer (the form's own, under "", left out). */
+export function firstErrors(all: Record<string, string[] | undefined>): Record<string, string> {
+  return Object.fromEntries(Object.entries(all).flatMap(([name, list]) => (name !== "" && list?.[0] ? [[name, list[0]]] : [])));
+}
+
+/** What the fields start from (the stored plan's values, or the last answer's), every field a string. */
+export function initialValues(fields: PlanFormFieldset): Record<PlanFormField, string> {
+  return Object.fromEntries(
+    PLAN_FORM_FIELDS.map((k) => {
+      const v = fields[k].initialValue;
+      return [k, typeof v === "string" ? v : ""];
+    }),
+  ) as Record<PlanFormField, string>;
+}
+
+/**
+ * A piece of state that starts from `initial` and starts from it again whenever `seed` changes (the
+ * form was re-seeded from a changed stored plan), without remounting anything.
+ */
+export function useSeededState<T>(initial: T, seed: string): [T, (next: T) => void] {
+  const [state, setState] = useState({ seed, value: initial });
+  if (state.seed !== seed) {
+    setState({ seed, value: initial });
+    return [initial, (value) => setState({ seed, value })];
+  }
+  return [state.value, (value) => setState({ seed, value })];
+}
+
 interface Props {
-  values: Record<string, string>;
+  /** The form's fields: names and the values to start from (the stored plan, or the last answer's). */
+  fields: PlanFormFieldset;
+  /** Changes when the form is re-seeded (Conform's form id): the choices held here start again from the fields. */
+  seed: string;
   errors: Record<string, string>;
   choices: { fasteners: MakerFigures[]; gaskets: GasketChoice[] };
   units: UnitSystem;
@@ -30,10 +73,12 @@ interface Props {
 
 type Method = PlanWrite["method"];
 
-// The seal plan's inputs. Names match parsePlanForm in app/lib/plan/form.ts. Works without
-// JavaScript (the server answers a changed fastener and "Show all gaskets"); with it, both happen here.
+// The seal plan's inputs, named by the form's Conform fields (planFormSchema in app/lib/plan/form.ts).
+// Works without JavaScript (the server answers a changed fastener and "Show all gaskets" with a Conform
+// update of the values); with it, both happen here.
 export function PlanFields({
-  values,
+  fields,
+  seed,
   errors,
   choices,
   units,
@@ -46,11 +91,12 @@ export function PlanFields({
 }: Props) {
   const torqueUnit = unitFor("torque", units);
   const smallUnit = unitFor("smallLength", units);
-  const [note, setNote] = useState<string | null>(serverNote ?? null);
-  const [fastenerId, setFastenerId] = useState(values.fastenerId ?? "");
-  const [lubricant, setLubricant] = useState(values.lubricant ?? "");
-  const [method, setMethod] = useState<Method>((values.method as Method) ?? "torque-estimated-friction");
-  const [showAllGaskets, setShowAllGaskets] = useState(values.showAllGaskets === "1");
+  const values = initialValues(fields);
+  const [note, setNote] = useSeededState<string | null>(serverNote ?? null, seed);
+  const [fastenerId, setFastenerId] = useSeededState(values.fastenerId, seed);
+  const [lubricant, setLubricant] = useSeededState(values.lubricant, seed);
+  const [method, setMethod] = useSeededState<Method>((values.method as Method) || "torque-estimated-friction", seed);
+  const [showAllGaskets, setShowAllGaskets] = useSeededState(values.showAllGaskets === "1", seed);
   const fastener = choices.fasteners.find((f) => String(f.id) === fastenerId);
   const lubeWarning = lubricantWarning(lubricant, fastener);
 
@@ -87,11 +133,11 @@ export function PlanFields({
 
   return (
     <div className="space-y-4">
-      <Field label="Plan name" name="name" defaultValue={values.name} error={errors.name} required />
+      <Field label="Plan name" name={fields.name.name} defaultValue={values.name} error={errors.name} required />
       <div>
         <SelectField
           label="Gasket"
-          name="gasketId"
+          name={fields.gasketId.name}
           defaultValue={values.gasketId}
           error={errors.gasketId}
           aria-describedby={errors.gasketId ? "f-gasketId-error f-gasketId-hint" : "f-gasketId-hint"}
@@ -111,7 +157,7 @@ export function PlanFields({
             </optgroup>
           ) : null}
         </SelectField>
-        <input type="hidden" name="showAllGaskets" value={showAllGaskets ? "1" : ""} />
+        <input type="hidden" name={fields.showAllGaskets.name} value={showAllGaskets ? "1" : ""} />
         <p id="f-gasketId-hint" className="mt-1 text-xs text-forge-700">
           {fitting.length === 0
             ? `No gasket in the library fits a ${length(engineBoreMm)} bore; add one in Libraries → Gaskets.`
@@ -138,7 +184,7 @@ export function PlanFields({
         <legend className="px-1 font-bold">Sealing details</legend>
         <SelectField
           label="Wire ring"
-          name="wireLocation"
+          name={fields.wireLocation.name}
           defaultValue={values.wireLocation}
           error={errors.wireLocation}
           options={Object.entries(WIRE_LABEL)}
@@ -146,7 +192,7 @@ export function PlanFields({
         <div className="grid gap-3 sm:grid-cols-2">
           <Field
             label={`Wire projection (${smallUnit})`}
-            name="wireProjection"
+            name={fields.wireProjection.name}
             inputMode="decimal"
             defaultValue={values.wireProjection}
             error={errors.wireProjection}
@@ -154,7 +200,7 @@ export function PlanFields({
           />
           <Field
             label={`Receiver groove depth (${smallUnit})`}
-            name="receiverGrooveDepth"
+            name={fields.receiverGrooveDepth.name}
             inputMode="decimal"
             defaultValue={values.receiverGrooveDepth}
             error={errors.receiverGrooveDepth}
@@ -164,23 +210,23 @@ export function PlanFields({
         {sleeved ? (
           <Field
             label={`Sleeve protrusion (${smallUnit})`}
-            name="sleeveProtrusion"
+            name={fields.sleeveProtrusion.name}
             inputMode="decimal"
             defaultValue={values.sleeveProtrusion}
             error={errors.sleeveProtrusion}
             hint={`Sleeve top above the deck. Blank: the engine's machined ${engineProtrusion}.`}
           />
         ) : (
-          <input type="hidden" name="sleeveProtrusion" value="" />
+          <input type="hidden" name={fields.sleeveProtrusion.name} value="" />
         )}
       </fieldset>
       <fieldset className="group/tighten min-w-0 space-y-3 rounded border border-forge-100 p-3">
         <legend className="px-1 font-bold">Fastener and tightening</legend>
-        <input type="hidden" name="figuresFastenerId" defaultValue={values.figuresFastenerId ?? values.fastenerId} />
-        <input type="hidden" name="figuresSeen" defaultValue={values.figuresSeen ?? ""} />
+        <input type="hidden" name={fields.figuresFastenerId.name} defaultValue={values.figuresFastenerId || values.fastenerId} />
+        <input type="hidden" name={fields.figuresSeen.name} defaultValue={values.figuresSeen} />
         <SelectField
           label="Fastener"
-          name="fastenerId"
+          name={fields.fastenerId.name}
           defaultValue={values.fastenerId}
           error={errors.fastenerId}
           onChange={fastenerChanged}
@@ -193,7 +239,7 @@ export function PlanFields({
         ) : null}
         <Field
           label="Lubricant"
-          name="lubricant"
+          name={fields.lubricant.name}
           defaultValue={values.lubricant}
           error={errors.lubricant}
           onChange={(e) => setLubricant(e.target.value)}
@@ -207,7 +253,7 @@ export function PlanFields({
         <div className="grid gap-3 sm:grid-cols-2">
           <Field
             label="Thread friction"
-            name="threadFriction"
+            name={fields.threadFriction.name}
             inputMode="decimal"
             defaultValue={values.threadFriction}
             error={errors.threadFriction}
@@ -215,7 +261,7 @@ export function PlanFields({
           />
           <Field
             label="Washer-face friction"
-            name="bearingFriction"
+            name={fields.bearingFriction.name}
             inputMode="decimal"
             defaultValue={values.bearingFriction}
             error={errors.bearingFriction}
@@ -225,7 +271,7 @@ export function PlanFields({
         <div>
           <SelectField
             label="How the studs are tightened"
-            name="method"
+            name={fields.method.name}
             value={method}
             onChange={methodChanged}
             error={errors.method}
@@ -240,7 +286,7 @@ export function PlanFields({
         <div className="hidden group-has-[option[value=stretch-measured]:checked]/tighten:block" data-testid="target-stretch">
           <Field
             label={`Target stretch (${smallUnit})`}
-            name="targetStretch"
+            name={fields.targetStretch.name}
             inputMode="decimal"
             defaultValue={values.targetStretch}
             error={errors.targetStretch}
@@ -250,7 +296,7 @@ export function PlanFields({
         <div className="grid gap-3 sm:grid-cols-2">
           <Field
             label={`Final torque (${torqueUnit})`}
-            name="torque"
+            name={fields.torque.name}
             inputMode="decimal"
             defaultValue={values.torque}
             error={errors.torque}
@@ -259,7 +305,7 @@ export function PlanFields({
           />
           <Field
             label={`Stages (${torqueUnit})`}
-            name="stages"
+            name={fields.stages.name}
             defaultValue={values.stages}
             error={errors.stages}
             hint="Rising, ending at the final torque, commas between them. With decimal commas, separate the stages with semicolons: 54,5; 108; 156."
@@ -270,7 +316,7 @@ export function PlanFields({
       <div className="grid gap-3 sm:grid-cols-2">
         <Field
           label="Target seal margin"
-          name="targetMargin"
+          name={fields.targetMargin.name}
           inputMode="decimal"
           defaultValue={values.targetMargin}
           error={errors.targetMargin}
@@ -283,7 +329,7 @@ export function PlanFields({
         </label>
         <textarea
           id="f-notes"
-          name="notes"
+          name={fields.notes.name}
           defaultValue={values.notes}
           rows={3}
           className="mt-1 block w-full rounded border border-forge-500 bg-white px-3 py-2"

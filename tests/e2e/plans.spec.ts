@@ -132,6 +132,45 @@ test("the demo four compares copper + wire with MLS at the maker's torque, and t
   await expect(page.getByTestId("verdict")).toContainText("Short: Washer sinks into the head");
 });
 
+test("a refused save keeps the same form with what was typed; an applied suggestion re-seeds it from the stored plan", async ({ page }) => {
+  test.setTimeout(60_000);
+  await signIn(page, "builder@example.com");
+  await openFirstPlan(page);
+  const torque = page.getByLabel(/Final torque/);
+  const stored = await torque.inputValue();
+  const notes = page.getByLabel("Notes");
+  const storedNotes = await notes.inputValue();
+  // the very element, to tell a form kept mounted from one rebuilt
+  const node = await notes.elementHandle();
+  await notes.fill("typed, not saved");
+  await torque.fill("lots");
+  await page.getByRole("button", { name: "Save plan" }).click();
+  const summary = page.getByTestId("error-summary");
+  await expect(summary).toBeFocused();
+  await expect(summary).toContainText("Final torque (N·m): Torque:");
+  await expect(torque).toHaveValue("lots");
+  await expect(torque).toHaveAttribute("aria-invalid", "true");
+  await expect(notes).toHaveValue("typed, not saved");
+  expect(await node!.evaluate((el) => el.isConnected)).toBe(true);
+
+  // fixed and asked for a suggestion: the answer clears the messages, the typed note stays
+  await torque.fill(stored);
+  await page.getByLabel("Target seal margin").fill("1.2");
+  await page.getByRole("button", { name: "Suggest torque for the target" }).click();
+  await expect(page.getByTestId("suggestion")).toBeVisible();
+  await expect(summary).toHaveCount(0);
+  await expect(notes).toHaveValue("typed, not saved");
+  const apply = page.getByRole("button", { name: /^Apply .* to this plan$/ });
+  await expect(apply).toBeVisible();
+  const suggested = Number(/Apply ([\d.,]+) N·m/.exec((await apply.textContent()) ?? "")![1]!.replace(",", ""));
+  await apply.click();
+  await expect(page.getByRole("status").first()).toHaveText("✔ Suggested figures applied to this plan.");
+  // the stored plan changed: the same form shows it (the suggested torque, the stored note), nothing remounted
+  expect(Math.abs(Number(await torque.inputValue()) - suggested)).toBeLessThanOrEqual(0.5);
+  await expect(notes).toHaveValue(storedNotes);
+  expect(await node!.evaluate((el) => el.isConnected)).toBe(true);
+});
+
 test.describe("without JavaScript", () => {
   test.use({ javaScriptEnabled: false });
   test("a refused save says the estimate on the page is still the saved plan's", async ({ page }) => {

@@ -57,6 +57,13 @@ beforeAll(async () => {
   planId = (await listPlans(teamId, engineId))[0]!.id;
 });
 
+/** Conform's reply in an answer: the first message per field ("" for the form's own), and the values it shows. */
+function reply(body: unknown): { errors: Record<string, string>; values: Record<string, unknown> } {
+  const result = (body as { result: { error?: Record<string, string[]>; initialValue: Record<string, unknown> } }).result;
+  const errors = Object.fromEntries(Object.entries(result.error ?? {}).map(([name, list]) => [name, list[0]!]));
+  return { errors, values: result.initialValue };
+}
+
 async function currentForm(overrides: Record<string, string> = {}) {
   const row = await planRow(planId);
   return editorForm({ gasketId: String(row.gasket_id), fastenerId: String(row.fastener_id), ...overrides });
@@ -162,9 +169,12 @@ describe("plan editor", () => {
       planId: String(planId),
     });
     expect(out.status).toBe(400);
-    const errors = (out.body as { errors: Record<string, string> }).errors;
-    expect(errors.torque).toMatch(/Torque must be between/);
+    const { errors, values } = reply(out.body);
+    expect(errors.torque).toBe("Torque must be between 1 N·m and 5,000 N·m");
+    expect(errors.stages).toBe("Stages must rise, ending at the final torque");
     expect(errors.threadFriction).toBe("Thread friction is a number like 0.12");
+    // what was typed comes back as typed
+    expect(values).toMatchObject({ torque: "-5", stages: "10, 5", threadFriction: "abc" });
     expect(await planRow(planId)).toEqual(before);
   });
 
@@ -282,7 +292,11 @@ describe("gasket fit", () => {
       params,
     );
     expect(out.status).toBe(400);
-    expect((out.body as { problems: string[] }).problems[0]).toMatch(/far larger than the 86\.00 mm cylinder bore/);
+    // filed under the gasket, the field the builder changes
+    const { errors, values } = reply(out.body);
+    expect(errors.gasketId).toMatch(/far larger than the 86\.00 mm cylinder bore/);
+    expect(errors[""]).toBeUndefined();
+    expect(values).toMatchObject({ name: "Wrong gasket", gasketId: String(big.id) });
     expect(await count()).toBe(before);
   });
 });
@@ -331,6 +345,62 @@ describe("button words", () => {
   });
 });
 
+describe("the plan form's answers (Conform)", () => {
+  const params = () => ({ engineId: String(engineId), planId: String(planId) });
+  const editorPost = async (fields: Record<string, string>, cookie = builder) =>
+    call(editor.action as Handler, post(`/engines/${engineId}/plans/${planId}`, fields, cookie), params());
+
+  it("a malformed or misaimed __intent__ on the editor or the new-plan page is a 400 with a message, and writes nothing", async () => {
+    const before = await planRow(planId);
+    const count = Number((await db()("seal_plans").count({ n: "*" }))[0]!.n);
+    for (const __intent__ of [
+      "{not json",
+      '{"type":"explode","payload":{}}',
+      JSON.stringify({ type: "remove", payload: { name: "torque", index: 0 } }),
+    ]) {
+      const out = await editorPost(await currentForm({ __intent__ }));
+      expect(out.status, __intent__).toBe(400);
+      expect(String(out.body)).toMatch(/not one this page knows/);
+      const made = await call(
+        newPlan.action as Handler,
+        post(`/engines/${engineId}/plans/new`, await currentForm({ intent: "create", name: "Never", __intent__ }), builder),
+        { engineId: String(engineId) },
+      );
+      expect(made.status, __intent__).toBe(400);
+    }
+    expect(await planRow(planId)).toEqual(before);
+    expect(Number((await db()("seal_plans").count({ n: "*" }))[0]!.n)).toBe(count);
+  });
+
+  it("an imperial builder's refusal speaks lbf·ft and thou, and keeps what was typed", async () => {
+    const user = await db()("users").where({ email: "builder@example.com" }).first("id");
+    await db()("users").where({ id: user.id }).update({ units: "imperial" });
+    try {
+      const before = await planRow(planId);
+      const out = await editorPost(await currentForm({ torque: "4000", stages: "", wireProjection: "90" }));
+      expect(out.status).toBe(400);
+      const { errors, values } = reply(out.body);
+      // 5000 N·m = 3688 lbf·ft; 2 mm = 78.7 thou (NIST SP 811: 1 lbf·ft = 1.3558179 N·m, 1 thou = 0.0254 mm)
+      expect(errors.torque).toBe("Torque must be between 1 lbf·ft and 3,688 lbf·ft");
+      expect(errors.wireProjection).toBe("Wire projection must be between 0.0 thou and 78.7 thou");
+      expect(values).toMatchObject({ torque: "4000", wireProjection: "90" });
+      expect(await planRow(planId)).toEqual(before);
+    } finally {
+      await db()("users").where({ id: user.id }).update({ units: "metric" });
+    }
+  });
+
+  it("a successful Recalculate answers with no messages and the values as typed", async () => {
+    const out = await editorPost(await currentForm({ intent: "estimate", torque: "140", stages: "60, 100, 140" }));
+    expect(out.status).toBe(200);
+    const body = out.body as { result: { status: string; error?: Record<string, string[]> }; preview: unknown };
+    expect(body.result.status).toBe("success");
+    expect(body.result.error).toBeUndefined();
+    expect(reply(out.body).values).toMatchObject({ torque: "140", stages: "60, 100, 140" });
+    expect(body.preview).not.toBeNull();
+  });
+});
+
 describe("new plan", () => {
   it("creates a plan, and refuses bad input writing nothing", async () => {
     const params = { engineId: String(engineId) };
@@ -342,7 +412,7 @@ describe("new plan", () => {
       params,
     );
     expect(bad.status).toBe(400);
-    expect((bad.body as { errors: Record<string, string> }).errors.name).toBe("Name the plan");
+    expect(reply(bad.body).errors.name).toBe("Name the plan");
     expect(await count()).toBe(before);
     const good = await call(
       newPlan.action as Handler,

@@ -1,5 +1,5 @@
 // The seal-plan form: what the builder types (in their display units) ⇄ the SI plan the database keeps.
-// Shared by the editor's action (server) and its live estimate (browser).
+// One schema (planFormSchema) for the new-plan and editor actions (through Conform) and the live estimate in the browser (parsePlanForm).
 import { z } from "zod";
 import { TIGHTENING_METHODS } from "../clamp/plan-lists";
 import { formatQuantity, parseQuantity, toDisplay, unitFor, type DisplayUnit, type Quantity, type UnitSystem } from "../units";
@@ -130,51 +130,95 @@ function stagesIn(text: string, torqueUnit: DisplayUnit, system: UnitSystem): { 
   return { stagesNm };
 }
 
-/** Parse the submitted form (display units) into an SI plan, or messages keyed by field name. */
-export function parsePlanForm(form: Record<string, unknown>, system: UnitSystem): PlanFormResult {
-  const errors: Record<string, string> = {};
-  const normalized: Record<string, unknown> = { ...form };
-  for (const k of PLAIN_NUMBERS) if (typeof form[k] === "string") normalized[k] = decimalPoint(form[k] as string);
-  const plain = Plain.safeParse(normalized);
-  if (!plain.success) for (const i of plain.error.issues) errors[String(i.path[0])] ??= i.message;
+// ─── One post of the plan form ────────────────────────────────────────────────────────────
 
-  const byStretch = form.method === "stretch-measured";
-  const q: Record<string, number | null> = {};
-  let torqueUnit = unitFor("torque", system);
-  for (const f of QUANTITIES) {
-    const text = String(form[f.name] ?? "").trim();
-    // the target stretch means something only with a stretch gauge
-    if ((text === "" && f.optional) || (f.name === "targetStretch" && !byStretch)) {
-      q[f.name] = null;
-      continue;
+/**
+ * The fields the form posts, each as typed: the plan's own, the marker of the maker's figures shown
+ * (see figuresFollowStep) and whether every gasket is offered. Conform reads a blank field as missing,
+ * so each may be absent.
+ */
+export const PLAN_FORM_FIELDS = [
+  "name",
+  "gasketId",
+  "fastenerId",
+  "lubricant",
+  "threadFriction",
+  "bearingFriction",
+  "method",
+  "torque",
+  "stages",
+  "wireLocation",
+  "wireProjection",
+  "receiverGrooveDepth",
+  "sleeveProtrusion",
+  "targetStretch",
+  "targetMargin",
+  "notes",
+  "figuresFastenerId",
+  "figuresSeen",
+  "showAllGaskets",
+] as const;
+export type PlanFormField = (typeof PLAN_FORM_FIELDS)[number];
+
+const typed = z.string().optional();
+export const PlanFormFields = z.object(Object.fromEntries(PLAN_FORM_FIELDS.map((f) => [f, typed])) as Record<PlanFormField, typeof typed>);
+/** What the form shows and posts: every field as a string. */
+export type PlanFormValues = z.input<typeof PlanFormFields>;
+
+/**
+ * The plan form's schema for Conform (and, through parsePlanForm, the browser's live estimate): the
+ * fields as typed in the person's units → the SI plan. Each message is filed under the field the
+ * builder sees, the cross-field ones too: stages that do not rise or do not end at the torque under
+ * "stages", a receiver groove deeper than the wire stands under "receiverGrooveDepth".
+ */
+export function planFormSchema(system: UnitSystem) {
+  return PlanFormFields.transform((typedForm, ctx): PlanWrite => {
+    const form = Object.fromEntries(PLAN_FORM_FIELDS.map((f) => [f, typedForm[f] ?? ""])) as Record<PlanFormField, string>;
+    const errors: Partial<Record<PlanFormField, string>> = {};
+    const normalized: Record<string, unknown> = { ...form };
+    for (const k of PLAIN_NUMBERS) normalized[k] = decimalPoint(form[k]);
+    const plain = Plain.safeParse(normalized);
+    if (!plain.success) for (const i of plain.error.issues) errors[String(i.path[0]) as PlanFormField] ??= i.message;
+
+    const byStretch = form.method === "stretch-measured";
+    const q: Record<string, number | null> = {};
+    let torqueUnit = unitFor("torque", system);
+    for (const f of QUANTITIES) {
+      const name = f.name as PlanFormField;
+      const text = form[name].trim();
+      // the target stretch means something only with a stretch gauge
+      if ((text === "" && f.optional) || (name === "targetStretch" && !byStretch)) {
+        q[name] = null;
+        continue;
+      }
+      const r = quantityIn(text, f, system);
+      if (r.error) errors[name] = r.error;
+      else q[name] = r.value!;
+      if (name === "torque" && r.unit) torqueUnit = r.unit;
     }
-    const r = quantityIn(text, f, system);
-    if (r.error) errors[f.name] = r.error;
-    else q[f.name] = r.value!;
-    if (f.name === "torque" && r.unit) torqueUnit = r.unit;
-  }
 
-  const stagesText = String(form.stages ?? "").trim();
-  let stagesNm: number[] = [];
-  if (stagesText !== "") {
-    const r = stagesIn(stagesText, torqueUnit, system);
-    stagesNm = r.stagesNm;
-    if (r.error) errors.stages = r.error;
-    else if (stagesNm.some((s, i) => i > 0 && s <= stagesNm[i - 1]!)) errors.stages = "Stages must rise, ending at the final torque";
-  }
-  const torqueNm = q.torque;
-  if (!errors.stages && !errors.torque && torqueNm != null && stagesNm.length > 0) {
-    const last = stagesNm[stagesNm.length - 1]!;
-    if (Math.abs(last - torqueNm) > Math.max(0.5, torqueNm * 0.005)) errors.stages = "The last stage must equal the final torque";
-    else stagesNm[stagesNm.length - 1] = torqueNm;
-  }
-  if (!errors.wireProjection && !errors.receiverGrooveDepth && q.receiverGrooveDepth! > q.wireProjection! + 1e-9 && q.wireProjection! > 0)
-    errors.receiverGrooveDepth = "A receiver groove deeper than the wire stands proud leaves the wire unloaded";
+    const stagesText = form.stages.trim();
+    let stagesNm: number[] = [];
+    if (stagesText !== "") {
+      const r = stagesIn(stagesText, torqueUnit, system);
+      stagesNm = r.stagesNm;
+      if (r.error) errors.stages = r.error;
+      else if (stagesNm.some((s, i) => i > 0 && s <= stagesNm[i - 1]!)) errors.stages = "Stages must rise, ending at the final torque";
+    }
+    const torqueNm = q.torque;
+    if (!errors.stages && !errors.torque && torqueNm != null && stagesNm.length > 0) {
+      const last = stagesNm[stagesNm.length - 1]!;
+      if (Math.abs(last - torqueNm) > Math.max(0.5, torqueNm * 0.005)) errors.stages = "The last stage must equal the final torque";
+      else stagesNm[stagesNm.length - 1] = torqueNm;
+    }
+    if (!errors.wireProjection && !errors.receiverGrooveDepth && q.receiverGrooveDepth! > q.wireProjection! + 1e-9 && q.wireProjection! > 0)
+      errors.receiverGrooveDepth = "A receiver groove deeper than the wire stands proud leaves the wire unloaded";
 
-  if (Object.keys(errors).length > 0 || !plain.success) return { ok: false, errors };
-  return {
-    ok: true,
-    plan: {
+    if (Object.keys(errors).length > 0 || !plain.success) {
+      for (const [field, message] of Object.entries(errors)) ctx.addIssue({ code: "custom", path: [field], message });
+      return z.NEVER;
+    }
+    return {
       ...plain.data,
       torqueNm: torqueNm!,
       stagesNm: stagesNm.length > 0 ? stagesNm : [torqueNm!],
@@ -182,8 +226,22 @@ export function parsePlanForm(form: Record<string, unknown>, system: UnitSystem)
       receiverGrooveDepthMm: plain.data.wireLocation === "none" ? 0 : q.receiverGrooveDepth!,
       sleeveProtrusionMm: q.sleeveProtrusion ?? null,
       targetStretchMm: byStretch ? (q.targetStretch ?? null) : null,
-    },
-  };
+    };
+  });
+}
+
+const schemaFor: Partial<Record<UnitSystem, ReturnType<typeof planFormSchema>>> = {};
+
+/**
+ * The plan form's schema as a plain function, for the live estimate in the browser and for an answer
+ * that must estimate the values it shows: the SI plan, or the first message per field.
+ */
+export function parsePlanForm(form: Record<string, unknown>, system: UnitSystem): PlanFormResult {
+  const r = (schemaFor[system] ??= planFormSchema(system)).safeParse(form);
+  if (r.success) return { ok: true, plan: r.data };
+  const errors: Record<string, string> = {};
+  for (const i of r.error.issues) errors[String(i.path[0] ?? "")] ??= i.message;
+  return { ok: false, errors };
 }
 
 function num(valueSi: number, quantity: Quantity, system: UnitSystem, decimals: number): string {
@@ -192,9 +250,9 @@ function num(valueSi: number, quantity: Quantity, system: UnitSystem, decimals: 
 }
 
 /** A saved plan as the form shows it, in the person's units. */
-export function planFormValues(plan: PlanWrite, system: UnitSystem): Record<string, string> {
+export function planFormValues(plan: PlanWrite, system: UnitSystem): Record<Exclude<PlanFormField, "showAllGaskets">, string> {
   const smallDecimals = system === "metric" ? 3 : 2;
-  const values: Record<string, string> = {
+  const values = {
     name: plan.name,
     gasketId: String(plan.gasketId),
     fastenerId: String(plan.fastenerId),
@@ -216,9 +274,7 @@ export function planFormValues(plan: PlanWrite, system: UnitSystem): Record<stri
     notes: plan.notes,
   };
   // which fastener the torque, stages, lubricant and friction shown belong to (see figuresFollowStep)
-  values.figuresFastenerId = values.fastenerId!;
-  values.figuresSeen = figuresFingerprint(values);
-  return values;
+  return { ...values, figuresFastenerId: values.fastenerId, figuresSeen: figuresFingerprint(values) };
 }
 
 /** The copy-a-plan form: which engine of the shop gets the copy. */

@@ -1,3 +1,4 @@
+import { getFormProps, useForm } from "@conform-to/react";
 import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/copy";
 import { Button, FormError } from "~/components/form";
@@ -10,6 +11,7 @@ import { getGasket } from "~/models/library.server";
 import { copyPlanToEngine, requirePlan } from "~/models/plan.server";
 import type { Asker } from "~/models/viewer-scope.server";
 import { requireRole } from "~/utils/auth.server";
+import { parseSubmission } from "~/utils/conform.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = ({ data, error }) => [
@@ -44,16 +46,17 @@ export async function action({ request, params }: Route.ActionArgs) {
   const { user, team, who } = await requireRole(request, "builder");
   const engine = await requireEngine(who, params.engineId);
   const plan = await requirePlan(team.id, engine.id, params.planId);
-  const parsed = CopyPlanSchema.safeParse(Object.fromEntries(await request.formData()));
-  if (!parsed.success) return data({ error: parsed.error.issues[0]!.message }, { status: 400 });
+  const submission = parseSubmission(await request.formData(), CopyPlanSchema);
+  if (submission.status !== "success") return data({ result: submission.reply() }, { status: 400 });
+  const refuse = (message: string) => data({ result: submission.reply({ formErrors: [message] }) }, { status: 400 });
   // another shop's engine is not found, as everywhere
-  const target = await requireEngine(who, String(parsed.data.targetEngineId));
-  if (target.id === engine.id) return data({ error: "That is this plan's own engine; pick another." }, { status: 400 });
+  const target = await requireEngine(who, String(submission.value.targetEngineId));
+  if (target.id === engine.id) return refuse("That is this plan's own engine; pick another.");
   const gasket = await getGasket(team.id, plan.gasketId);
   const misfit = gasket
     ? gasketFitProblem(target.boreMm, gasket.boreMm, (mm) => formatQuantity(mm, "length", user.units))
     : "The plan's gasket is no longer in the library.";
-  if (misfit) return data({ error: `Not copied to “${target.name}”: ${misfit}` }, { status: 400 });
+  if (misfit) return refuse(`Not copied to “${target.name}”: ${misfit}`);
   const id = await copyPlanToEngine(team.id, user.id, plan, target.id);
   return redirectWithToast(request, `/engines/${target.id}/plans/${id}`, `“${plan.name}” copied from “${engine.name}”.`);
 }
@@ -61,6 +64,13 @@ export async function action({ request, params }: Route.ActionArgs) {
 export default function CopyPlan({ loaderData, actionData }: Route.ComponentProps) {
   const { engine, plan, targets } = loaderData;
   const fitting = targets.filter((t) => !t.misfit);
+  // the one form path; its one field is a list of radios, so the message stands above them
+  const [form, fields] = useForm<{ targetEngineId?: string }>({
+    id: "copy-plan",
+    lastResult: actionData?.result,
+    shouldValidate: "onSubmit",
+  });
+  const error = form.errors?.[0] ?? fields.targetEngineId.errors?.[0];
   return (
     <section className="max-w-2xl">
       <h2 className="mb-2 text-2xl font-bold">Copy “{plan.name}” to another engine</h2>
@@ -68,18 +78,24 @@ export default function CopyPlan({ loaderData, actionData }: Route.ComponentProp
         The copy takes the gasket ({plan.gasketName}), its sealing details, the fastener, lubricant, friction and torque procedure. The
         estimate is worked out again for the other engine.
       </p>
-      {actionData?.error ? <FormError message={actionData.error} /> : null}
+      <FormError message={error} />
       {targets.length === 0 ? (
         <p className="rounded border border-dashed border-forge-300 bg-white p-4">This shop has no other engine to copy to.</p>
       ) : (
-        <Form method="post" className="mt-4 space-y-4">
+        <Form method="post" className="mt-4 space-y-4" {...getFormProps(form, { ariaAttributes: false })}>
           <fieldset className="min-w-0 rounded border border-forge-100 bg-white p-4">
             <legend className="px-1 font-bold">Copy to</legend>
             <ul className="space-y-2">
               {targets.map((t) => (
                 <li key={t.id}>
                   <label className="flex items-start gap-2">
-                    <input type="radio" name="targetEngineId" value={t.id} defaultChecked={t.id === fitting[0]?.id} className="mt-1" />
+                    <input
+                      type="radio"
+                      name={fields.targetEngineId.name}
+                      value={t.id}
+                      defaultChecked={t.id === fitting[0]?.id}
+                      className="mt-1"
+                    />
                     <span>
                       <span className="font-medium">{t.name}</span>
                       <span className="block text-sm text-forge-700">

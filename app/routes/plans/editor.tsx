@@ -1,3 +1,4 @@
+import { getFormProps, useForm } from "@conform-to/react";
 import { useEffect, type KeyboardEvent } from "react";
 import { data, Form, Link, useNavigation } from "react-router";
 import type { Route } from "./+types/editor";
@@ -5,22 +6,23 @@ import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { EstimatePanel, STATUS_LOOK, VerdictLine } from "~/components/estimate-panel";
 import { Button, ErrorSummary, FormError } from "~/components/form";
 import { MakerTorque } from "~/components/maker-torque";
-import { PlanFields } from "~/components/plan-form";
+import { firstErrors, initialValues, PlanFields } from "~/components/plan-form";
 import { PlanPrintSheet } from "~/components/plan-print";
 import { SuggestionBox } from "~/components/suggestion-box";
 import { useLiveEstimate } from "~/components/use-live-estimate";
 import type { Suggestion } from "~/lib/clamp";
 import { plannedByStretch } from "~/lib/plan/assemble";
 import type { EstimateView } from "~/lib/plan/estimate-view";
-import { figuresFollowStep, scaledWrenchStages } from "~/lib/plan/fastener-figures";
-import { parsePlanForm, planFormValues, readSuggestedFigures, type PlanWrite } from "~/lib/plan/form";
+import { scaledWrenchStages } from "~/lib/plan/fastener-figures";
+import { planFormValues, readSuggestedFigures, type PlanFormValues, type PlanWrite } from "~/lib/plan/form";
 import { stretchLine, type StretchLine } from "~/lib/plan/stretch";
 import { formatQuantity } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
-import { estimatePlan, planStretch } from "~/models/plan-estimate.server";
+import { estimatePlan, planStretch, type PlanEstimateResult } from "~/models/plan-estimate.server";
 import { archivePlan, choosePlan, createPlan, engineMaterials, planChoices, requirePlan, updatePlan } from "~/models/plan.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
 import { readIntent } from "~/utils/conform.server";
+import { planFormStep, refuseChangedEstimate, refuseEstimate, replyForStored, type PlanReply } from "~/utils/plan-form.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `${data?.plan.name ?? "Seal plan"} · Sealwright` }];
@@ -68,8 +70,8 @@ export async function action({ request, params }: Route.ActionArgs) {
   const { user, team, who } = await requireRole(request, "builder");
   const engine = await requireEngine(who, params.engineId);
   const plan = await requirePlan(team.id, engine.id, params.planId);
-  const form = Object.fromEntries(await request.formData());
-  const intent = readIntent(form, EDITOR_INTENTS, "save");
+  const formData = await request.formData();
+  const intent = readIntent(formData, EDITOR_INTENTS, "save");
   const base = `/engines/${engine.id}/plans`;
 
   if (intent === "choose") {
@@ -80,21 +82,25 @@ export async function action({ request, params }: Route.ActionArgs) {
     await archivePlan(team.id, user.id, engine.id, plan.id);
     return redirectWithToast(request, base, `“${plan.name}” archived.`);
   }
+
+  const answer = (
+    status: number,
+    result: PlanReply,
+    extra: {
+      note?: string | null;
+      preview?: EstimateView | null;
+      suggestion?: Suggestion | null;
+      stretch?: StretchLine | null;
+      /** Why the estimate cannot run, for the estimate's column (the reply files them beside the fields too). */
+      problems?: string[];
+    } = {},
+  ) => data({ result, note: null, preview: null, suggestion: null, stretch: null, problems: [] as string[], ...extra }, { status });
+
   if (intent === "apply-torque" || intent === "new-with-torque") {
-    const figures = readSuggestedFigures(form, plan.sleeveProtrusionMm);
+    const figures = readSuggestedFigures(Object.fromEntries(formData), plan.sleeveProtrusionMm);
     if (!figures.ok) {
-      return data(
-        {
-          errors: { torque: figures.message },
-          values: planFormValues(plan, user.units),
-          note: null,
-          preview: null,
-          suggestion: null,
-          problems: [] as string[],
-          stretch: null,
-        },
-        { status: 400 },
-      );
+      // the suggestion box's own post: the plan form shows the stored plan, the message under its torque
+      return answer(400, replyForStored(planFormValues(plan, user.units), user.units, { torque: [figures.message] }));
     }
     const { torqueNm, protrusionMm: protrusion } = figures;
     const next: PlanWrite = {
@@ -114,41 +120,37 @@ export async function action({ request, params }: Route.ActionArgs) {
     return redirectWithToast(request, `${base}/${id}`, "New plan made from the suggestion.");
   }
 
-  let values = Object.fromEntries(Object.entries(form).map(([k, v]) => [k, String(v)]));
+  const step = planFormStep(formData, user.units, intent === "show-all-gaskets", (await planChoices(team.id)).fasteners);
+  if (intent === "show-all-gaskets" && step.changed) return answer(200, step.submission.reply());
+  let shown: PlanWrite;
+  let result: () => PlanReply;
+  let refuse: (estimate: Extract<PlanEstimateResult, { ok: false }>) => PlanReply;
   let note: string | null = null;
-  const answer = (
-    status: number,
-    extra: {
-      errors?: Record<string, string>;
-      preview?: EstimateView | null;
-      suggestion?: Suggestion | null;
-      problems?: string[];
-      stretch?: StretchLine | null;
-    } = {},
-  ) => data({ errors: {}, values, note, preview: null, suggestion: null, problems: [] as string[], stretch: null, ...extra }, { status });
-  if (intent === "show-all-gaskets") {
-    values = { ...values, showAllGaskets: "1" };
-    return answer(200);
-  }
-  // Without JavaScript: the fastener changed but its figures are still the old stud's. Show the new
-  // maker's figures (and their estimate) and save nothing until the builder has seen them.
-  const followed = figuresFollowStep(values, (await planChoices(team.id)).fasteners, user.units);
-  if (followed) {
-    values = followed.values;
-    note = followed.note;
-  }
-  const parsed = parsePlanForm(values, user.units);
-  if (!parsed.ok) return answer(followed ? 200 : 400, { errors: followed ? {} : parsed.errors });
-  if (intent === "save" && !followed) {
-    const estimate = await estimatePlan(team.id, engine, parsed.plan, { units: user.units });
-    if (!estimate.ok) return answer(400, { problems: estimate.problems });
-    await updatePlan(team.id, user.id, engine.id, plan.id, parsed.plan);
-    return redirectWithToast(request, `${base}/${plan.id}`, "Plan saved.");
+  if (step.changed) {
+    // Without JavaScript: the fastener changed but its figures are still the old stud's. Show the new
+    // maker's figures (and their estimate) and save nothing until the builder has seen them.
+    note = step.note;
+    if (!step.plan) return answer(200, step.submission.reply(), { note });
+    shown = step.plan;
+    result = () => step.submission.reply();
+    refuse = (estimate) => refuseChangedEstimate(formData, step, estimate, engine, user.units);
+  } else {
+    const { submission } = step;
+    if (submission.status !== "success") return answer(submission.status === "error" ? 400 : 200, submission.reply());
+    shown = submission.value;
+    result = () => submission.reply();
+    refuse = (estimate) => refuseEstimate(submission, estimate, engine, user.units);
+    if (intent === "save") {
+      const estimate = await estimatePlan(team.id, engine, shown, { units: user.units });
+      if (!estimate.ok) return answer(400, refuse(estimate), { problems: estimate.problems });
+      await updatePlan(team.id, user.id, engine.id, plan.id, shown);
+      return redirectWithToast(request, `${base}/${plan.id}`, "Plan saved.");
+    }
   }
   // "estimate" and "suggest" (and a save held back above): compute for the values shown; nothing is written.
-  const out = await estimatePlan(team.id, engine, parsed.plan, { units: user.units, withSuggestion: intent === "suggest" });
-  if (!out.ok) return answer(400, { problems: out.problems });
-  return answer(200, { preview: out.view, suggestion: out.suggestion, stretch: await planStretch(team.id, engine, parsed.plan) });
+  const out = await estimatePlan(team.id, engine, shown, { units: user.units, withSuggestion: intent === "suggest" });
+  if (!out.ok) return answer(400, refuse(out), { note, problems: out.problems });
+  return answer(200, result(), { note, preview: out.view, suggestion: out.suggestion, stretch: await planStretch(team.id, engine, shown) });
 }
 
 /** The stud stretch (mm) a torque-planned version of the plan gives, or null when it cannot be estimated. */
@@ -159,7 +161,19 @@ async function stretchAtTorque(teamId: number, engine: Awaited<ReturnType<typeof
 
 export default function PlanEditor({ loaderData, actionData }: Route.ComponentProps) {
   const { units, canEdit, engine, materials, plan, choices, result, chosen } = loaderData;
-  const values = actionData?.values ?? loaderData.values;
+  // One form, mounted for as long as the page is: an answer (a refusal, a recalculation) leaves what was
+  // typed, and focus, where they are. The id is Conform's way to re-seed it: it names the stored plan
+  // and when it was last written, so only a save or an applied suggestion (the loader's plan changed)
+  // resets the fields to the stored values. Not a React key: nothing is remounted.
+  const [form, fields] = useForm<PlanFormValues>({
+    id: `plan-${plan.id}-${String(plan.updatedAt).replace(/\W/g, "")}`,
+    defaultValue: loaderData.values,
+    lastResult: actionData?.result,
+    shouldValidate: "onSubmit",
+  });
+  const values = initialValues(fields);
+  const serverErrors = firstErrors(form.allErrors);
+  const refused = Object.keys(form.allErrors).length > 0;
   const busy = useNavigation().state !== "idle";
   const live = useLiveEstimate(loaderData, result.ok ? result.view : null);
   const view: EstimateView | null = live.view ?? actionData?.preview ?? (result.ok ? result.view : null);
@@ -171,13 +185,11 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
   const sleeved = engine.sleeveKind !== "none" && materials.sleeve !== null;
   const torqueNm = view?.torqueNm ?? plan.torqueNm;
   // a refused save or recalculation that brought no estimate back: what shows is the stored plan's
-  const refusedWithoutPreview = Boolean(actionData && Object.keys(actionData.errors ?? {}).length > 0 && !actionData.preview);
-  const refusedProblems = actionData?.problems?.length
-    ? `Nothing was saved: the estimate cannot run. ${actionData.problems.join(" ")}`
-    : null;
+  const refusedWithoutPreview = Boolean(actionData && refused && !actionData.preview);
+  const refusedProblems = form.errors?.length ? `Nothing was saved: the estimate cannot run. ${form.errors.join(" ")}` : null;
   // After a successful Recalculate or Suggest, focus goes to what it answered (a refusal focuses its summary).
   useEffect(() => {
-    if (!actionData || Object.keys(actionData.errors ?? {}).length > 0 || actionData.problems?.length || !actionData.preview) return;
+    if (!actionData?.preview || Object.keys(actionData.result.error ?? {}).length > 0) return;
     document.getElementById(actionData.suggestion ? "suggest-title" : "estimate-title")?.focus();
   }, [actionData]);
 
@@ -209,22 +221,22 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
           sleeved={sleeved}
           units={units}
         />
-        <ErrorSummary errors={actionData?.errors} message={refusedProblems} answer={actionData} />
-        {/* Stays mounted across answers (focus stays put); re-seeded only when the stored plan changed. */}
+        <ErrorSummary errors={form.allErrors} message={refusedProblems} answer={actionData?.result} />
         <Form
           method="post"
-          key={JSON.stringify(loaderData.values)}
+          {...getFormProps(form, { ariaAttributes: false })}
           onChange={live.onChange}
           onKeyDown={enterRecalculates}
           ref={live.formRef}
           className="print-hide space-y-4"
-          noValidate
         >
           <fieldset disabled={!canEdit} className="space-y-4">
             <legend className="sr-only">Plan inputs</legend>
             <PlanFields
-              values={values}
-              errors={actionData?.errors ?? live.errors ?? {}}
+              fields={fields}
+              seed={form.id}
+              // the answer's messages until the next answer; otherwise those of the live estimate
+              errors={refused ? serverErrors : (live.errors ?? {})}
               choices={choices}
               units={units}
               sleeved={sleeved}

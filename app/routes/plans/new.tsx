@@ -1,14 +1,13 @@
-import { useState } from "react";
+import { getFormProps, useForm } from "@conform-to/react";
 import { data, Form } from "react-router";
 import type { Route } from "./+types/new";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { REFUSAL_TITLE, RoleRefusal } from "~/components/refusal";
 import { Button, ErrorSummary, FormError } from "~/components/form";
 import { MakerTorque } from "~/components/maker-torque";
-import { PlanFields } from "~/components/plan-form";
+import { firstErrors, PlanFields, useSeededState } from "~/components/plan-form";
 import { gasketsByFit } from "~/lib/plan/assemble";
-import { figuresFollowStep } from "~/lib/plan/fastener-figures";
-import { parsePlanForm, planFormValues, startingPlan, type PlanWrite } from "~/lib/plan/form";
+import { planFormValues, startingPlan, type PlanFormValues, type PlanWrite } from "~/lib/plan/form";
 import { formatQuantity, parseQuantity, unitFor } from "~/lib/units";
 import { decimalPoint } from "~/lib/units/decimal-comma";
 import { LearnedFrictionOffer } from "~/components/learned-friction";
@@ -18,6 +17,7 @@ import { estimatePlan, planStretch } from "~/models/plan-estimate.server";
 import { createPlan, listPlans, planChoices } from "~/models/plan.server";
 import { requireRole } from "~/utils/auth.server";
 import { readIntent } from "~/utils/conform.server";
+import { planFormStep, refuseEstimate, type PlanReply } from "~/utils/plan-form.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = ({ error }) => [{ title: error ? REFUSAL_TITLE : "New seal plan · Sealwright" }];
@@ -66,55 +66,49 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 export async function action({ request, params }: Route.ActionArgs) {
   const { user, team, who } = await requireRole(request, "builder");
   const engine = await requireEngine(who, params.engineId);
-  const form = Object.fromEntries(await request.formData());
-  const values = Object.fromEntries(Object.entries(form).map(([k, v]) => [k, String(v)]));
-  const answer = async (
-    status: number,
-    extra: { errors?: Record<string, string>; problems?: string[]; note?: string | null; values?: Record<string, string> } = {},
-  ) => {
-    const shown = parsePlanForm(extra.values ?? values, user.units);
-    const stretch = shown.ok ? await planStretch(team.id, engine, shown.plan) : null;
-    return data({ errors: {}, problems: [] as string[], note: null as string | null, values, stretch, ...extra }, { status });
-  };
-  if (readIntent(form, ["create", "show-all-gaskets"], "create") === "show-all-gaskets")
-    return answer(200, { values: { ...values, showAllGaskets: "1" } });
-  // Without JavaScript: the fastener changed but its figures are still the old stud's; show the new maker's first.
-  const choices = await planChoices(team.id);
-  const followed = figuresFollowStep(values, choices.fasteners, user.units);
-  if (followed) return answer(200, { values: followed.values, note: followed.note });
-  const parsed = parsePlanForm(form, user.units);
-  if (!parsed.ok) return answer(400, { errors: parsed.errors });
-  const estimate = await estimatePlan(team.id, engine, parsed.plan, { units: user.units });
-  if (!estimate.ok) return answer(400, { problems: estimate.problems });
-  const id = await createPlan(team.id, user.id, engine.id, parsed.plan);
+  const formData = await request.formData();
+  const intent = readIntent(formData, ["create", "show-all-gaskets"], "create");
+  // the stretch line beside the torque, for the figures the answer shows
+  const answer = async (status: number, result: PlanReply, shown: PlanWrite | null, note: string | null = null) =>
+    data({ result, note, stretch: shown ? await planStretch(team.id, engine, shown) : null }, { status });
+  // Without JavaScript: every gasket offered, or a changed fastener whose figures are still the old
+  // stud's, answered with the new maker's figures first; nothing is created.
+  const step = planFormStep(formData, user.units, intent === "show-all-gaskets", (await planChoices(team.id)).fasteners);
+  if (step.changed) return answer(200, step.submission.reply(), step.plan, step.note);
+  const { submission } = step;
+  if (submission.status !== "success") return answer(submission.status === "error" ? 400 : 200, submission.reply(), null);
+  const plan = submission.value;
+  const estimate = await estimatePlan(team.id, engine, plan, { units: user.units });
+  if (!estimate.ok) return answer(400, refuseEstimate(submission, estimate, engine, user.units), plan);
+  const id = await createPlan(team.id, user.id, engine.id, plan);
   return redirectWithToast(request, `/engines/${engine.id}/plans/${id}`, "Plan created.");
 }
 
 export default function NewPlan({ loaderData, actionData }: Route.ComponentProps) {
-  const values = actionData?.values ?? loaderData.values;
-  // Stays mounted across answers (focus stays put). With JavaScript a changed fastener and "Show all
-  // gaskets" happen in the page; without it every answer is a fresh page with the server's values.
-  return <NewPlanForm values={values} loaderData={loaderData} actionData={actionData} />;
-}
-
-function NewPlanForm({
-  values,
-  loaderData,
-  actionData,
-}: { values: Record<string, string> } & Pick<Route.ComponentProps, "loaderData" | "actionData">) {
   const { units, engine, choices, emptyLibrary } = loaderData;
-  const [fastenerId, setFastenerId] = useState(values.fastenerId);
-  const [torqueText, setTorqueText] = useState(values.torque ?? "");
+  // One form per engine's page; it stays mounted across answers (what was typed, and focus, stay put).
+  // The id names the engine: moving to another engine's new plan re-seeds it from that engine's loader.
+  const [form, fields] = useForm<PlanFormValues>({
+    id: `new-plan-${engine.id}`,
+    defaultValue: loaderData.values,
+    lastResult: actionData?.result,
+    shouldValidate: "onSubmit",
+  });
+  const errors = firstErrors(form.allErrors);
+  // the maker's-torque box follows the fastener picked and the torque typed
+  const [fastenerId, setFastenerId] = useSeededState(String(fields.fastenerId.initialValue ?? ""), form.id);
+  const [torqueText, setTorqueText] = useSeededState(String(fields.torque.initialValue ?? ""), form.id);
   const fastener = choices.fasteners.find((f) => String(f.id) === fastenerId);
   const torque = parseQuantity(decimalPoint(torqueText), "torque", unitFor("torque", units));
+  const problems = form.errors ?? [];
   return (
     <div className="max-w-xl">
       <h2 className="mb-4 text-2xl font-bold">New seal plan</h2>
       {emptyLibrary ? <FormError message="Add at least one fastener and one gasket in Libraries first." /> : null}
       <ErrorSummary
-        errors={actionData?.errors}
-        message={actionData?.problems?.length ? `Nothing was saved: the estimate cannot run. ${actionData.problems.join(" ")}` : null}
-        answer={actionData}
+        errors={form.allErrors}
+        message={problems.length ? `Nothing was saved: the estimate cannot run. ${problems.join(" ")}` : null}
+        answer={actionData?.result}
       />
       {fastener ? (
         <div className="mb-4">
@@ -131,15 +125,17 @@ function NewPlanForm({
       <Form
         method="post"
         className="space-y-4"
-        noValidate
+        {...getFormProps(form, { ariaAttributes: false })}
         onChange={(e) => {
           const t = e.target as unknown as HTMLInputElement;
-          if (t.name === "torque") setTorqueText(t.value);
+          if (t.name === fields.torque.name) setTorqueText(t.value);
+          if (t.name === fields.fastenerId.name) setFastenerId(t.value);
         }}
       >
         <PlanFields
-          values={values}
-          errors={actionData?.errors ?? {}}
+          fields={fields}
+          seed={form.id}
+          errors={errors}
           choices={choices}
           units={units}
           sleeved={engine.sleeveKind !== "none"}

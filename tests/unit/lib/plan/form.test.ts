@@ -1,6 +1,13 @@
 import { describe, expect, it } from "vitest";
 import { decimalPoint, splitList } from "../../../../app/lib/units/decimal-comma";
-import { METHOD_LABEL, parsePlanForm, planFormValues, readSuggestedFigures, startingPlan } from "../../../../app/lib/plan/form";
+import {
+  METHOD_LABEL,
+  parsePlanForm,
+  planFormSchema,
+  planFormValues,
+  readSuggestedFigures,
+  startingPlan,
+} from "../../../../app/lib/plan/form";
 import { figuresFingerprint } from "../../../../app/lib/plan/fastener-figures";
 import { LBF_FT_TO_NM, relErr } from "../nist";
 
@@ -173,5 +180,67 @@ describe("the last stage against the final torque (0.5 % or 0.5 N·m, whichever 
   });
   it("stages that do not rise are refused before the last one is compared", () => {
     expect(stagesError("150", "60, 60, 150")).toBe("Stages must rise, ending at the final torque");
+  });
+});
+
+describe("the plan form's schema (what Conform parses with)", () => {
+  // Conform hands the schema a blank field as missing: the same as typed blank
+  const posted = (over: Record<string, string | undefined> = {}) => {
+    const form: Record<string, string | undefined> = { ...FORM, ...over };
+    for (const [k, v] of Object.entries(form)) if (v === "") delete form[k];
+    return form;
+  };
+  const issues = (form: Record<string, unknown>, system: "metric" | "imperial" = "metric") => {
+    const r = planFormSchema(system).safeParse(form);
+    return r.success ? [] : r.error.issues.map((i) => ({ path: i.path.join("."), message: i.message }));
+  };
+
+  it("gives the same SI plan as the plain function, blank fields left out", () => {
+    const r = planFormSchema("metric").safeParse(
+      posted({ torque: "156", stages: "54,5; 108; 156", wireLocation: "block", wireProjection: "0,1" }),
+    );
+    expect(r.success).toBe(true);
+    expect(r.data).toEqual(ok({ ...FORM, torque: "156", stages: "54,5; 108; 156", wireLocation: "block", wireProjection: "0,1" }));
+    expect(r.data!.stagesNm).toEqual([54.5, 108, 156]);
+    expect(r.data!.sleeveProtrusionMm).toBeNull();
+  });
+
+  it("files each message under the field the builder sees, one per field, the cross-field rules too", () => {
+    expect(
+      issues(
+        posted({
+          name: "",
+          gasketId: "",
+          threadFriction: "0,9",
+          torque: "150",
+          stages: "60, 110, 140",
+          wireLocation: "block",
+          wireProjection: "0.1",
+          receiverGrooveDepth: "0.15",
+        }),
+      ),
+    ).toEqual([
+      { path: "name", message: "Name the plan" },
+      { path: "gasketId", message: "Pick a gasket" },
+      { path: "threadFriction", message: "Thread friction must be at most 0.6" },
+      { path: "stages", message: "The last stage must equal the final torque" },
+      { path: "receiverGrooveDepth", message: "A receiver groove deeper than the wire stands proud leaves the wire unloaded" },
+    ]);
+  });
+
+  it("speaks the imperial builder's units in its range messages", () => {
+    const [torque] = issues(posted({ torque: "0.5", stages: "" }), "imperial");
+    // 1 N·m = 0.74 lbf·ft (shown at a whole lbf·ft) and 5000 N·m = 3688 lbf·ft (NIST SP 811: 1 lbf·ft = 1.3558179 N·m)
+    expect(torque).toEqual({ path: "torque", message: "Torque must be between 1 lbf·ft and 3,688 lbf·ft" });
+    // 90 thou = 2.286 mm, over the 2 mm a wire may stand proud (78.7 thou)
+    const [wire] = issues(posted({ wireLocation: "block", wireProjection: "90" }), "imperial");
+    expect(wire).toEqual({ path: "wireProjection", message: "Wire projection must be between 0.0 thou and 78.7 thou" });
+  });
+
+  it("parsePlanForm is the schema's first message per field", () => {
+    const form = { ...FORM, torque: "x", bearingFriction: "x" };
+    const r = parsePlanForm(form, "metric");
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.errors).toEqual(Object.fromEntries(issues(form).map((i) => [i.path, i.message])));
   });
 });
