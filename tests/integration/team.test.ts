@@ -6,7 +6,7 @@ import { db } from "~/utils/db.server";
 import { hashLinkToken } from "~/utils/tokens.server";
 import { call, cookiePair, get, post, signIn, type Handler } from "./helpers";
 import { linkPath, startTestSink } from "./mail";
-import { answerError } from "./conform-answer";
+import { answerError, answerValues } from "./conform-answer";
 
 // Invites by e-mail (through a real SMTP sink), accepting them, roles and removal (issue 12).
 
@@ -125,6 +125,8 @@ describe("inviting by e-mail", () => {
       const out = await call(teamAction, post("/team", fields, owner));
       expect(out.status).toBe(400);
       expect(answerError(out.body, field)).toBeTruthy();
+      // the refusal keeps what was typed
+      expect(answerValues(out.body)).toMatchObject({ email: fields.email, role: fields.role });
     }
     expect(await db()("team_invites").count({ n: "*" })).toEqual(before);
     expect(sink.messagesTo("x@example.com")).toEqual([]);
