@@ -104,6 +104,11 @@ export function Button({
   );
 }
 
+/** Conform's errors (field name → messages) → the first message of each field that has one. */
+export function firstErrors(allErrors: Record<string, string[] | null | undefined>): Record<string, string> {
+  return Object.fromEntries(Object.entries(allErrors).flatMap(([name, list]) => (list?.[0] ? [[name, list[0]]] : [])));
+}
+
 /**
  * The answer to a refused post: what went wrong and a link to each marked field. It takes focus
  * whenever a new answer arrives (`answer` changes), so a keyboard or screen-reader user lands on it
@@ -179,7 +184,21 @@ export function ErrorSummary({
 }
 
 // A labelled text area, tied to its error message like Field.
-export function TextArea({ label, name, defaultValue, error }: { label: string; name: string; defaultValue?: string; error?: string }) {
+export function TextArea({
+  label,
+  name,
+  defaultValue,
+  error,
+  rows = 2,
+  maxLength,
+}: {
+  label: string;
+  name: string;
+  defaultValue?: string;
+  error?: string;
+  rows?: number;
+  maxLength?: number;
+}) {
   const id = `f-${name}`;
   return (
     <div>
@@ -189,7 +208,8 @@ export function TextArea({ label, name, defaultValue, error }: { label: string; 
       <textarea
         id={id}
         name={name}
-        rows={2}
+        rows={rows}
+        maxLength={maxLength}
         defaultValue={defaultValue}
         aria-invalid={error ? true : undefined}
         aria-describedby={error ? `${id}-error` : undefined}

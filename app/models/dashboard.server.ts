@@ -1,7 +1,7 @@
 // The dashboard's chosen-plan verdicts in a fixed handful of queries, whatever the number of engines:
 // the engines, their chosen plans, and the team's materials, fasteners and gaskets (each list read
-// once), then the plans assembled in memory. chosenPlanVerdicts (plan-estimate.server.ts) reads each
-// plan and its parts one by one (several queries per engine); this gives the same verdicts. The
+// once), then the plans assembled in memory: the same verdicts as reading each plan and its parts one
+// by one (several queries per engine; tests/integration/one-by-one-verdicts.ts, the tests' reference). The
 // evaluation of a validated input is kept in a small LRU (the model is pure: the same input gives
 // the same verdict), so a dashboard seen again evaluates only the plans that changed.
 import { evaluatePlan, parsePlan, type PlanInputRaw } from "~/lib/clamp";
@@ -39,7 +39,7 @@ function verdictOf(raw: PlanInputRaw): Verdict | null {
 }
 
 /**
- * As chosenPlanVerdicts: the verdict of the chosen plan of each engine the asker may see (not archived,
+ * The verdict of the chosen plan of each engine the asker may see (not archived,
  * not retired, most recently updated first, at most `limit`), plans that cannot be estimated left out.
  */
 export async function chosenPlanVerdictsBatched(who: Asker, units: UnitSystem, limit = 50): Promise<ChosenPlanVerdict[]> {

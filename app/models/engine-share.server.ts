@@ -1,5 +1,5 @@
 import { data } from "react-router";
-import { now, withTeam, writeTransaction } from "~/utils/db.server";
+import { type DbRow, now, withTeam, writeTransaction } from "~/utils/db.server";
 import { recordAudit } from "./audit.server";
 
 // Which of the shop's viewers (customers, tuners) may see an engine. Builders and owners see every
@@ -12,6 +12,10 @@ export interface ViewerShare {
   shared: boolean;
 }
 
+function toViewerShare(r: DbRow): ViewerShare {
+  return { userId: r.user_id, name: r.name, email: r.email, shared: r.shared_at !== null };
+}
+
 /** The shop's viewers, each with whether this engine is shared with them. */
 export async function engineViewers(teamId: number, engineId: number): Promise<ViewerShare[]> {
   const rows = await withTeam(teamId, (k) =>
@@ -22,14 +26,10 @@ export async function engineViewers(teamId: number, engineId: number): Promise<V
       })
       .where({ "m.team_id": teamId, "m.role": "viewer" })
       .orderBy("u.name")
-      .select({ userId: "u.id", name: "u.name", email: "u.email", sharedAt: "s.created_at" }),
+      // created_at alone would not say whose: it is the share's, the moment the engine was shared
+      .select("m.user_id", "u.name", "u.email", { shared_at: "s.created_at" }),
   );
-  return rows.map((r: { userId: number; name: string; email: string; sharedAt: string | null }) => ({
-    userId: r.userId,
-    name: r.name,
-    email: r.email,
-    shared: r.sharedAt !== null,
-  }));
+  return rows.map(toViewerShare);
 }
 
 /** Shares the engine (this team's, not archived) with one of the team's viewers; anything else is 404. */

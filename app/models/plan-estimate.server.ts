@@ -4,10 +4,10 @@ import { estimateView, type EstimateView } from "~/lib/plan/estimate-view";
 import { stretchLineFor, type StretchLine } from "~/lib/plan/stretch";
 import { displayWording } from "~/lib/plan/wording";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
-import { toEngine, type EngineRow } from "./engine.server";
+import type { EngineRow } from "./engine.server";
 import { withTeam, type DbRow } from "~/utils/db.server";
 import { viewerScope, type Asker } from "./viewer-scope.server";
-import { planParts, requirePlan, type FastenerInfo, type GasketInfo } from "./plan.server";
+import { planParts, type FastenerInfo, type GasketInfo } from "./plan.server";
 
 // The plan estimate, the one domain service every page and the API call: the plan's parts from this
 // team's rows (or, for the API, a plan in SI), the gasket-fit check, the clamp model's validation,
@@ -147,34 +147,6 @@ export function workingEnginesWithChosenPlan(who: Asker, limit: number): Promise
       .orderBy("id", "desc")
       .limit(limit),
   );
-}
-
-/**
- * The verdict of each working engine's chosen plan (not retired, most recently touched first, at most
- * `limit`): the evaluation only, no sweep or scatter run. Plans that cannot be estimated are left out.
- */
-export async function chosenPlanVerdicts(who: Asker, units: UnitSystem, limit = 50): Promise<ChosenPlanVerdict[]> {
-  const teamId = who.teamId;
-  const rows = await workingEnginesWithChosenPlan(who, limit);
-  const out: ChosenPlanVerdict[] = [];
-  for (const row of rows) {
-    const engine = toEngine(row);
-    const plan = await requirePlan(teamId, engine.id, String(engine.chosenPlanId)).catch(() => null);
-    if (!plan) continue;
-    const r = await evaluateStoredPlan(teamId, engine, plan, units);
-    if (!r.ok) continue;
-    const v = r.estimate.verdict;
-    out.push({
-      engineId: engine.id,
-      engineName: engine.name,
-      planId: plan.id,
-      planName: plan.name,
-      status: v.status,
-      headline: v.headline,
-      limiting: v.limiting,
-    });
-  }
-  return out;
 }
 
 /** At risk: the chosen plan is short, or the stud is what limits it (the check that decides is the stud's). */

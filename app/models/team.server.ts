@@ -1,4 +1,4 @@
-import { teamTransaction, withTeam } from "~/utils/db.server";
+import { type DbRow, teamTransaction, withTeam } from "~/utils/db.server";
 import type { Role } from "./user.server";
 import type { Asker } from "./viewer-scope.server";
 import { recordAudit } from "./audit.server";
@@ -68,7 +68,7 @@ export async function livePlans(teamId: number, planIds: number[]): Promise<Map<
       .whereIn("p.id", planIds)
       .whereNull("p.archived_at")
       .whereNull("e.archived_at")
-      .select({ id: "p.id", engineId: "p.engine_id", name: "p.name" }),
+      .select("p.id", "p.engine_id", "p.name"),
   );
-  return new Map(rows.map((r: { id: number; engineId: number; name: string }) => [r.id, { engineId: r.engineId, name: r.name }]));
+  return new Map(rows.map((r: DbRow) => [r.id as number, { engineId: r.engine_id as number, name: r.name as string }]));
 }

@@ -1,10 +1,10 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import * as dashboard from "~/routes/shop/dashboard";
 import { chosenPlanVerdictsBatched, VERDICT_CACHE } from "~/models/dashboard.server";
-import { chosenPlanVerdicts } from "~/models/plan-estimate.server";
 import { db } from "~/utils/db.server";
 import { call, get, signIn, type Handler } from "./helpers";
 import { ownerDb } from "../setup/db-roles";
+import { chosenPlanVerdictsOneByOne } from "./one-by-one-verdicts";
 
 // The dashboard puts at-risk engines first (a chosen plan that is short, or one its stud limits) and
 // names the plan each activity row touched, with a link while the plan is still there.
@@ -76,7 +76,7 @@ describe("dashboard", () => {
 
   it("reads the chosen plans in a fixed handful of queries and gives the one-by-one verdicts, also from its cache", async () => {
     const who = { teamId: (await ownerDb()("teams").orderBy("id").first()).id as number, userId: 0, role: "owner" as const };
-    const oneByOne = await chosenPlanVerdicts(who, "metric");
+    const oneByOne = await chosenPlanVerdictsOneByOne(who, "metric");
     expect(oneByOne.length).toBeGreaterThan(1);
     let queries = 0;
     // statements that read rows: on PostgreSQL withTeam adds its own BEGIN, set_config and COMMIT

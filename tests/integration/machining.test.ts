@@ -9,6 +9,7 @@ import { getEngine } from "~/models/engine.server";
 import { listPlans, planParts } from "~/models/plan.server";
 import { call, get, post, signIn, teamWide } from "./helpers";
 import { ownerDb } from "../setup/db-roles";
+import { answerError, answerFields, answerValues } from "./conform-answer";
 
 // The machining and measurement record through its route, on the demo shop's four (wet sleeves planned
 // 0.10 mm proud, copper + wire: wire 0.11 mm over a 0.05 mm receiver groove); and the record forms in
@@ -79,7 +80,7 @@ describe("machining record", () => {
     const before = await tables();
     const out = await record({ "protrusion-1": "0.1", ...change });
     expect(out.status).toBe(400);
-    expect(Object.keys((out.body as { errors: Record<string, string> }).errors)).toContain(field);
+    expect(answerFields(out.body)).toContain(field);
     expect(await tables()).toEqual(before);
   });
 
@@ -186,10 +187,9 @@ describe("record forms in the person's units", () => {
       const before = await tables();
       const out = await record({ "protrusion-0": "4.7", "protrusion-1": "60" });
       expect(out.status).toBe(400);
-      const body = out.body as { errors: Record<string, string>; values: Record<string, string> };
-      expect(body.errors["protrusion-1"]).toBe("Protrusion of bore 2 must be between -19.7 thou and 39.4 thou");
-      expect(body.values["protrusion-0"]).toBe("4.7");
-      expect(body.values["protrusion-1"]).toBe("60");
+      expect(answerError(out.body, "protrusion-1")).toBe("Protrusion of bore 2 must be between -19.7 thou and 39.4 thou");
+      expect(answerValues(out.body)["protrusion-0"]).toBe("4.7");
+      expect(answerValues(out.body)["protrusion-1"]).toBe("60");
       expect(await tables()).toEqual(before);
     });
   });
@@ -248,9 +248,8 @@ describe("record forms in the person's units", () => {
         { engineId: String(four) },
       );
       expect(refused.status).toBe(400);
-      const body = refused.body as { errors: Record<string, string>; values: Record<string, string> };
-      expect(body.errors.peakCylinderPressureMpa).toBe("Peak cylinder pressure must be between 145 psi and 14,504 psi");
-      expect(body.values.manifoldPressureKpa).toBe("45");
+      expect(answerError(refused.body, "peakCylinderPressureMpa")).toBe("Peak cylinder pressure must be between 145 psi and 14,504 psi");
+      expect(answerValues(refused.body).manifoldPressureKpa).toBe("45");
     });
   });
 });

@@ -1,12 +1,12 @@
 import type { Knex } from "knex";
 import { beforeAll, describe, expect, it } from "vitest";
 import { engineStatusCounts, listEngines } from "~/models/engine.server";
-import { chosenPlanVerdicts } from "~/models/plan-estimate.server";
 import { listPlans } from "~/models/plan.server";
 import { listAuditEvents, livePlans } from "~/models/team.server";
 import { appDb, ownerDb } from "../setup/db-roles";
 import { onPostgres, rowsOf } from "../setup/engine";
 import { capturedSelects } from "./captured-selects";
+import { chosenPlanVerdictsOneByOne } from "./one-by-one-verdicts";
 
 // PostgreSQL's plans of the hot queries (engine list, plan list, dashboard counts and verdicts, activity)
 // at hosted size: 5,000 engines and 30,000 plans in one team (issue 15). The statements are the ones the
@@ -135,7 +135,7 @@ describe.runIf(onPostgres)("hot query plans on PostgreSQL at 5,000 engines / 30,
   const HOT: [string, () => Promise<unknown>][] = [
     ["dashboard activity", () => listAuditEvents(teamId, 10)],
     ["dashboard engine counts", () => engineStatusCounts(owner(teamId))],
-    ["dashboard chosen-plan verdicts", () => chosenPlanVerdicts(owner(teamId), "metric")],
+    ["dashboard chosen-plan verdicts", () => chosenPlanVerdictsOneByOne(owner(teamId), "metric")],
     ["engine list, default sort", () => listEngines(owner(teamId), {})],
     ["engine list by name", () => listEngines(owner(teamId), { sort: "name", dir: "asc" })],
     ["engine list by status filter", () => listEngines(owner(teamId), { status: "running" })],

@@ -1,11 +1,11 @@
 import { describe, expect, it } from "vitest";
 import { engineStatusCounts, listEngines } from "~/models/engine.server";
-import { chosenPlanVerdicts } from "~/models/plan-estimate.server";
 import { chosenPlanVerdictsBatched } from "~/models/dashboard.server";
 import { listPlans } from "~/models/plan.server";
 import { listAuditEvents, livePlans } from "~/models/team.server";
 import { db } from "~/utils/db.server";
 import { capturedSelects } from "./captured-selects";
+import { chosenPlanVerdictsOneByOne } from "./one-by-one-verdicts";
 
 // The hot queries (dashboard, engine list, plan list) read through EXPLAIN QUERY PLAN: none may scan a
 // team-scoped table in full, and the activity and the default engine list must not sort in a temp tree.
@@ -50,7 +50,7 @@ const owner = (teamId: number) => ({ teamId, userId: 0, role: "owner" as const }
 const HOT: [string, (t: { teamId: number; engineId: number }) => Promise<unknown>][] = [
   ["dashboard activity", ({ teamId }) => listAuditEvents(teamId, 10)],
   ["dashboard engine counts", ({ teamId }) => engineStatusCounts(owner(teamId))],
-  ["dashboard chosen-plan verdicts", ({ teamId }) => chosenPlanVerdicts(owner(teamId), "metric")],
+  ["dashboard chosen-plan verdicts", ({ teamId }) => chosenPlanVerdictsOneByOne(owner(teamId), "metric")],
   ["dashboard chosen-plan verdicts, batched", ({ teamId }) => chosenPlanVerdictsBatched(owner(teamId), "metric")],
   ["engine list, default sort", ({ teamId }) => listEngines(owner(teamId), {})],
   ["engine list by name", ({ teamId }) => listEngines(owner(teamId), { sort: "name", dir: "asc" })],

@@ -15,6 +15,7 @@ import { listPlans, planParts } from "~/models/plan.server";
 import { listRuns } from "~/models/records.server";
 import { call, get, post, signIn, teamWide } from "./helpers";
 import { ownerDb } from "../setup/db-roles";
+import { answerFields } from "./conform-answer";
 
 // Assemblies, runs and the evidence view through their route loaders and actions, on the demo shop.
 
@@ -111,7 +112,7 @@ describe("assembly record", () => {
       engineId: String(four),
     });
     expect(out.status).toBe(400);
-    expect(Object.keys((out.body as { errors: Record<string, string> }).errors)).toContain(field);
+    expect(answerFields(out.body)).toContain(field);
     expect(await tables()).toEqual(before);
   });
 
@@ -165,7 +166,7 @@ describe("run log", () => {
     const before = await tables();
     const out = await call(runsPage.action, post(`/engines/${six}/runs`, { ...good, ...change }, builder), { engineId: String(six) });
     expect(out.status).toBe(400);
-    expect(Object.keys((out.body as { errors: Record<string, string> }).errors)).toContain(field);
+    expect(answerFields(out.body)).toContain(field);
     expect(await tables()).toEqual(before);
   });
 

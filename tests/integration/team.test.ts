@@ -6,6 +6,7 @@ import { hashLinkToken } from "~/utils/tokens.server";
 import { call, cookiePair, get, post, signIn, type Handler } from "./helpers";
 import { linkPath, startTestSink } from "./mail";
 import { ownerDb } from "../setup/db-roles";
+import { answerError, answerValues } from "./conform-answer";
 
 // Invites by e-mail (through a real SMTP sink), accepting them, roles and removal (issue 12).
 
@@ -123,7 +124,9 @@ describe("inviting by e-mail", () => {
     ] as const) {
       const out = await call(teamAction, post("/team", fields, owner));
       expect(out.status).toBe(400);
-      expect((out.body as { errors: Record<string, string> }).errors[field]).toBeTruthy();
+      expect(answerError(out.body, field)).toBeTruthy();
+      // the refusal keeps what was typed
+      expect(answerValues(out.body)).toMatchObject({ email: fields.email, role: fields.role });
     }
     expect(await ownerDb()("team_invites").count({ n: "*" })).toEqual(before);
     expect(sink.messagesTo("x@example.com")).toEqual([]);
@@ -160,7 +163,7 @@ describe("roles and removal", () => {
     ] as Record<string, string>[]) {
       const out = await call(teamAction, post("/team", fields, owner));
       expect(out.status).toBe(400);
-      expect((out.body as { error: string }).error).toMatch(/at least one owner/);
+      expect(answerError(out.body, "")).toMatch(/at least one owner/);
     }
     expect(await ownerDb()("memberships").where({ user_id: me.id, team_id: demoTeamId }).first("role")).toEqual({ role: "owner" });
   });

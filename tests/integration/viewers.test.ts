@@ -13,6 +13,7 @@ import { getEnv, mailboxOpen } from "~/utils/env.server";
 import { call, get, post, signIn, type Handler } from "./helpers";
 import { linkPath, startTestSink } from "./mail";
 import { ownerDb } from "../setup/db-roles";
+import { answerFields } from "./conform-answer";
 
 // Viewers see only the engines shared with them, enforced in the engine model (issue 12); sharing is
 // a builder's; the build sheet and its e-mail.
@@ -130,7 +131,7 @@ describe("sharing an engine", () => {
       engineId: String(unshared),
     });
     expect(bad.status).toBe(400);
-    expect(Object.keys((bad.body as { errors: object }).errors).sort()).toEqual(["shared", "viewerId"]);
+    expect(answerFields(bad.body)).toEqual(["shared", "viewerId"]);
     expect(JSON.stringify(await ownerDb()("engine_shares").orderBy(["engine_id", "user_id"]))).toBe(before);
   });
 });
@@ -190,7 +191,7 @@ describe("the build sheet", () => {
       engineId: String(shared),
     });
     expect(bad.status).toBe(400);
-    expect(Object.keys((bad.body as { errors: object }).errors).sort()).toEqual(["note", "viewerId"]);
+    expect(answerFields(bad.body)).toEqual(["note", "viewerId"]);
     await new Promise((r) => setTimeout(r, 100));
     expect(sink.messagesTo("viewer@example.com")).toHaveLength(before);
   });

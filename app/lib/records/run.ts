@@ -148,6 +148,21 @@ export const RUN_FIELDS = [
   "teardownFindings",
 ] as const;
 
+/**
+ * The run form as posted through Conform, which reads a blank field as missing: each field as typed
+ * (blank as ""), checked by runSchema, its messages filed under the fields the builder sees.
+ */
+export function runFormSchema(cylinders: number, units: UnitSystem) {
+  const typed = z.string().optional();
+  const schema = runSchema(cylinders, units);
+  return z.object(Object.fromEntries(RUN_FIELDS.map((name) => [name, typed]))).transform((form, ctx) => {
+    const parsed = schema.safeParse(Object.fromEntries(RUN_FIELDS.map((name) => [name, form[name] ?? ""])));
+    if (parsed.success) return parsed.data;
+    for (const issue of parsed.error.issues) ctx.addIssue({ code: "custom", path: issue.path, message: issue.message });
+    return z.NEVER;
+  });
+}
+
 /** A stored run, as the pages and the CSV see it. */
 export interface RunRecord {
   id: number;

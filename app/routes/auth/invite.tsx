@@ -1,15 +1,15 @@
+import { getFormProps, useForm } from "@conform-to/react";
 import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/invite";
 import { AuthFrame } from "~/components/auth-frame";
-import { Button, Field, FormError } from "~/components/form";
+import { Button, ErrorSummary, Field, FormError } from "~/components/form";
 import { acceptInviteAsNewUser, acceptInviteAsUser, findInvite, INVITE_GONE } from "~/models/invite.server";
 import { getUser, startSession } from "~/utils/auth.server";
-import { readIntent } from "~/utils/conform.server";
+import { parseSubmission, readIntent } from "~/utils/conform.server";
 import { NewPassword, PersonName } from "~/utils/password-field.server";
 import { PASSWORD_MAX, PASSWORD_MIN } from "~/utils/password-rules";
 import { useRootData } from "~/root";
-import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Join a shop · Sealwright" }];
 
@@ -27,21 +27,24 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
-  const form = Object.fromEntries(await request.formData());
+  const formData = await request.formData();
+  const intent = readIntent(formData, ["join", "create"], "create");
+  // a refusal that is no field's: the message alone (what was typed is kept, the password never)
+  const refuse = (status: number, message: string) =>
+    data({ result: parseSubmission(formData, z.object({})).reply({ formErrors: [message], hideFields: ["password"] }) }, { status });
   const invite = await findInvite(params.token);
-  if (!invite.ok) return data({ errors: {} as Record<string, string>, error: INVITE_GONE }, { status: 410 });
+  if (!invite.ok) return refuse(410, INVITE_GONE);
   const user = await getUser(request);
-  if (readIntent(form, ["join", "create"], "create") === "join") {
+  if (intent === "join") {
     // an account with the invited address: the shop is added to it, and this session moves to it
-    if (!user) return data({ errors: {} as Record<string, string>, error: "Sign in first, with the invited address." }, { status: 400 });
+    if (!user) return refuse(400, "Sign in first, with the invited address.");
     await acceptInviteAsUser(invite, user);
     return startSession(request, user.id, invite.teamId, "/dashboard");
   }
-  if (invite.accountExists)
-    return data({ errors: {} as Record<string, string>, error: "This address has an account: sign in to accept." }, { status: 400 });
-  const parsed = NewAccountSchema.safeParse(form);
-  if (!parsed.success) return data({ errors: fieldErrors(parsed.error.issues), error: null }, { status: 400 });
-  const created = await acceptInviteAsNewUser(invite, parsed.data);
+  if (invite.accountExists) return refuse(400, "This address has an account: sign in to accept.");
+  const submission = parseSubmission(formData, NewAccountSchema);
+  if (submission.status !== "success") return data({ result: submission.reply({ hideFields: ["password"] }) }, { status: 400 });
+  const created = await acceptInviteAsNewUser(invite, submission.value);
   return startSession(request, created.id, invite.teamId, "/dashboard");
 }
 
@@ -54,6 +57,11 @@ const REASON = {
 export default function Invite({ loaderData, actionData, params }: Route.ComponentProps) {
   const { invite, reason, signedInAs } = loaderData;
   const toast = useRootData()?.toast;
+  const [form, fields] = useForm<z.input<typeof NewAccountSchema>>({
+    id: "invite",
+    lastResult: actionData?.result,
+    shouldValidate: "onSubmit",
+  });
   if (!invite) {
     return (
       <AuthFrame toast={toast} title="Invite">
@@ -73,7 +81,7 @@ export default function Invite({ loaderData, actionData, params }: Route.Compone
         You are invited as a <strong>{invite.role}</strong>, with the address <strong>{invite.email}</strong>.
       </p>
       <div className="mt-4 space-y-4">
-        <FormError message={actionData?.error} />
+        <ErrorSummary errors={form.allErrors} message={form.errors?.[0] ?? null} answer={actionData} />
         {invite.accountExists ? (
           signedInAs === invite.email ? (
             <Form method="post">
@@ -90,16 +98,23 @@ export default function Invite({ loaderData, actionData, params }: Route.Compone
             </p>
           )
         ) : (
-          <Form method="post" className="space-y-4">
+          <Form method="post" className="space-y-4" {...getFormProps(form)}>
             <input type="hidden" name="intent" value="create" />
-            <Field label="Your name" name="name" autoComplete="name" required error={actionData?.errors?.name} />
+            <Field
+              label="Your name"
+              name={fields.name.name}
+              autoComplete="name"
+              required
+              defaultValue={fields.name.initialValue}
+              error={fields.name.errors?.[0]}
+            />
             <Field
               label="Password"
-              name="password"
+              name={fields.password.name}
               type="password"
               autoComplete="new-password"
               required
-              error={actionData?.errors?.password}
+              error={fields.password.errors?.[0]}
               hint={`${PASSWORD_MIN} to ${PASSWORD_MAX} characters; a short sentence is easy to remember.`}
             />
             <Button type="submit">Create my account and join</Button>

@@ -1,10 +1,12 @@
+import { getFormProps, useForm, type SubmissionResult } from "@conform-to/react";
 import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/assembly";
 import { ScrollTable } from "~/components/scroll-table";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
-import { Button, Field, FormError, SelectField, TextArea } from "~/components/form";
+import { Button, ErrorSummary, Field, firstErrors, SelectField, TextArea } from "~/components/form";
 import { FileList, Uploader } from "~/components/uploader";
 import { parseAssemblyForm } from "~/lib/records/assembly";
+import { typedFormSchema } from "~/lib/records/form";
 import { formatQuantity, inputValue, unitFor, type UnitSystem } from "~/lib/units";
 import { assemblyReadings, learnedFrictions } from "~/models/assembly-readings.server";
 import { requireEngine } from "~/models/engine.server";
@@ -12,6 +14,7 @@ import { listFiles } from "~/models/files.server";
 import { listPlans } from "~/models/plan.server";
 import { createAssembly, listAssemblies } from "~/models/records.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
+import { parseSubmission } from "~/utils/conform.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Assembly · Sealwright" }];
@@ -51,17 +54,19 @@ export async function action({ request, params }: Route.ActionArgs) {
   const { user, team, who } = await requireRole(request, "builder");
   const engine = await requireEngine(who, params.engineId);
   const plans = await listPlans(team.id, engine.id);
-  const form = Object.fromEntries([...(await request.formData()).entries()].filter((e): e is [string, string] => typeof e[1] === "string"));
-  const plan = plans.find((p) => p.id === Number(form.planId));
-  const parsed = parseAssemblyForm(form, {
-    planIds: plans.map((p) => p.id),
-    stagesNm: plan?.stagesNm ?? [],
-    studLabels: engine.studs.map((s, i) => s.label ?? `S${i + 1}`),
-    units: user.units,
-  });
-  if (!parsed.ok)
-    return data({ errors: parsed.errors, values: form, message: "The assembly was not recorded: see the fields marked." }, { status: 400 });
-  await createAssembly(team.id, user.id, engine.id, parsed.value);
+  const formData = await request.formData();
+  const plan = plans.find((p) => p.id === Number(formData.get("planId")));
+  const schema = typedFormSchema((form) =>
+    parseAssemblyForm(form, {
+      planIds: plans.map((p) => p.id),
+      stagesNm: plan?.stagesNm ?? [],
+      studLabels: engine.studs.map((s, i) => s.label ?? `S${i + 1}`),
+      units: user.units,
+    }),
+  );
+  const submission = parseSubmission(formData, schema);
+  if (submission.status !== "success") return data({ result: submission.reply() }, { status: 400 });
+  await createAssembly(team.id, user.id, engine.id, submission.value);
   return redirectWithToast(request, `/engines/${engine.id}/assembly`, "Assembly recorded.");
 }
 
@@ -69,9 +74,6 @@ const pct = (x: number | null) => (x === null ? "—" : `${x >= 0 ? "+" : ""}${(
 
 export default function Assembly({ loaderData: d, actionData }: Route.ComponentProps) {
   const u = d.units;
-  const values: Record<string, string> = actionData?.values ?? {};
-  const errors: Record<string, string> = actionData?.errors ?? {};
-  const formPlan = d.plans.find((p) => p.id === (Number(values.planId) || d.formPlanId)) ?? null;
   return (
     <section className="space-y-5">
       <h2 className="text-2xl font-bold">Assembly</h2>
@@ -149,99 +151,117 @@ export default function Assembly({ loaderData: d, actionData }: Route.ComponentP
         ))}
       </div>
       <LearnedFriction learned={d.learned} units={u} />
-      {d.canEdit && formPlan ? (
-        <Form
-          key={`${formPlan.id}-${d.assemblies.length}`}
-          method="post"
-          className="no-print max-w-4xl space-y-3 rounded border border-forge-300 bg-white p-4"
-          aria-label="Record an assembly"
-        >
-          <h3 className="text-lg font-bold">Record an assembly</h3>
-          <FormError message={actionData?.message} />
-          <div className="grid gap-3 sm:grid-cols-3">
-            <SelectField
-              label="Plan installed"
-              name="planId"
-              defaultValue={String(formPlan.id)}
-              error={errors.planId}
-              options={d.plans.map((p) => [String(p.id), p.name])}
-            />
-            <Field
-              label="Date"
-              name="assembledOn"
-              type="date"
-              defaultValue={values.assembledOn ?? new Date().toISOString().slice(0, 10)}
-              error={errors.assembledOn}
-            />
-            <Field label="Assembled by" name="assembledBy" defaultValue={values.assembledBy ?? d.userName} error={errors.assembledBy} />
-            <Field label="Lubricant used" name="lubricant" defaultValue={values.lubricant ?? formPlan.lubricant} error={errors.lubricant} />
-            <Field
-              label={`Protrusion measured (${unitFor("smallLength", u)})`}
-              name="measuredProtrusionMm"
-              inputMode="decimal"
-              defaultValue={values.measuredProtrusionMm}
-              error={errors.measuredProtrusionMm}
-            />
-            <Field
-              label={`Gasket compressed thickness (${unitFor("smallLength", u)})`}
-              name="gasketCompressedMm"
-              inputMode="decimal"
-              defaultValue={values.gasketCompressedMm}
-              error={errors.gasketCompressedMm}
-            />
-          </div>
-          <p className="text-xs text-forge-700">
-            The stages below are those of “{formPlan.name}”. For another plan's stages, open the form with it:{" "}
-            {d.plans
-              .filter((p) => p.id !== formPlan.id)
-              .map((p) => (
-                <Link key={p.id} to={`?planId=${p.id}`} className="mr-2 underline">
-                  {p.name}
-                </Link>
-              ))}
-          </p>
-          <fieldset className="grid gap-3 sm:grid-cols-3">
-            <legend className="text-sm font-bold">Tightening as done ({unitFor("torque", u)} reached, or the angle turned)</legend>
-            {formPlan.stagesNm.map((s, i) => (
-              <div key={i} className="flex gap-2">
-                <Field
-                  label={`Stage ${i + 1} (plan ${formatQuantity(s, "torque", u)}) reached`}
-                  name={`stage-${i}-reached`}
-                  inputMode="decimal"
-                  defaultValue={values[`stage-${i}-reached`] ?? inputValue(s, "torque", u)}
-                  error={errors[`stage-${i}-reached`]}
-                />
-                <Field
-                  label="Angle (°)"
-                  name={`stage-${i}-angle`}
-                  inputMode="decimal"
-                  defaultValue={values[`stage-${i}-angle`]}
-                  error={errors[`stage-${i}-angle`]}
-                />
-              </div>
-            ))}
-          </fieldset>
-          <fieldset className="grid grid-cols-2 gap-2 sm:grid-cols-6">
-            <legend className="text-sm font-bold">
-              Stud stretch measured at the last stage ({unitFor("smallLength", u)}), where taken
-            </legend>
-            {d.studLabels.map((label, i) => (
-              <Field
-                key={i}
-                label={label}
-                name={`stretch-${i}`}
-                inputMode="decimal"
-                defaultValue={values[`stretch-${i}`]}
-                error={errors[`stretch-${i}`]}
-              />
-            ))}
-          </fieldset>
-          <TextArea label="Notes" name="notes" defaultValue={values.notes} error={errors.notes} />
-          <Button type="submit">Record the assembly</Button>
-          <p className="text-xs text-forge-700">Photos are added to the assembly once it is recorded.</p>
-        </Form>
+      {d.canEdit && d.formPlanId !== null ? (
+        // a new key after each assembly recorded (or another plan's stages asked for) empties the form; a refusal keeps it
+        <AssemblyForm key={`${d.formPlanId}-${d.assemblies.length}`} d={d} lastResult={actionData?.result} />
       ) : null}
     </section>
+  );
+}
+
+type LoaderData = Route.ComponentProps["loaderData"];
+
+function AssemblyForm({ d, lastResult }: { d: LoaderData; lastResult: SubmissionResult<string[]> | undefined }) {
+  const u = d.units;
+  // the one form path: the server parses with the schema, Conform carries its answer (values as typed)
+  const [form] = useForm<Record<string, string>>({ id: "assembly", lastResult, shouldValidate: "onSubmit" });
+  const values = (form.initialValue ?? {}) as Record<string, string | undefined>;
+  const errors = firstErrors(form.allErrors);
+  const formPlan = d.plans.find((p) => p.id === Number(values.planId)) ?? d.plans.find((p) => p.id === d.formPlanId)!;
+  return (
+    <Form
+      method="post"
+      className="no-print max-w-4xl space-y-3 rounded border border-forge-300 bg-white p-4"
+      aria-label="Record an assembly"
+      {...getFormProps(form)}
+    >
+      <h3 className="text-lg font-bold">Record an assembly</h3>
+      <ErrorSummary
+        errors={errors}
+        message={Object.keys(errors).length ? "The assembly was not recorded: see the fields marked." : null}
+        answer={lastResult}
+      />
+      <div className="grid gap-3 sm:grid-cols-3">
+        <SelectField
+          label="Plan installed"
+          name="planId"
+          defaultValue={String(formPlan.id)}
+          error={errors.planId}
+          options={d.plans.map((p) => [String(p.id), p.name])}
+        />
+        <Field
+          label="Date"
+          name="assembledOn"
+          type="date"
+          defaultValue={values.assembledOn ?? new Date().toISOString().slice(0, 10)}
+          error={errors.assembledOn}
+        />
+        <Field label="Assembled by" name="assembledBy" defaultValue={values.assembledBy ?? d.userName} error={errors.assembledBy} />
+        <Field label="Lubricant used" name="lubricant" defaultValue={values.lubricant ?? formPlan.lubricant} error={errors.lubricant} />
+        <Field
+          label={`Protrusion measured (${unitFor("smallLength", u)})`}
+          name="measuredProtrusionMm"
+          inputMode="decimal"
+          defaultValue={values.measuredProtrusionMm}
+          error={errors.measuredProtrusionMm}
+        />
+        <Field
+          label={`Gasket compressed thickness (${unitFor("smallLength", u)})`}
+          name="gasketCompressedMm"
+          inputMode="decimal"
+          defaultValue={values.gasketCompressedMm}
+          error={errors.gasketCompressedMm}
+        />
+      </div>
+      <p className="text-xs text-forge-700">
+        The stages below are those of “{formPlan.name}”. For another plan's stages, open the form with it:{" "}
+        {d.plans
+          .filter((p) => p.id !== formPlan.id)
+          .map((p) => (
+            <Link key={p.id} to={`?planId=${p.id}`} className="mr-2 underline">
+              {p.name}
+            </Link>
+          ))}
+      </p>
+      {/* another plan's stages are other fields */}
+      <fieldset key={formPlan.id} className="grid gap-3 sm:grid-cols-3">
+        <legend className="text-sm font-bold">Tightening as done ({unitFor("torque", u)} reached, or the angle turned)</legend>
+        {formPlan.stagesNm.map((s, i) => (
+          <div key={i} className="flex gap-2">
+            <Field
+              label={`Stage ${i + 1} (plan ${formatQuantity(s, "torque", u)}) reached`}
+              name={`stage-${i}-reached`}
+              inputMode="decimal"
+              defaultValue={values[`stage-${i}-reached`] ?? inputValue(s, "torque", u)}
+              error={errors[`stage-${i}-reached`]}
+            />
+            <Field
+              label="Angle (°)"
+              name={`stage-${i}-angle`}
+              inputMode="decimal"
+              defaultValue={values[`stage-${i}-angle`]}
+              error={errors[`stage-${i}-angle`]}
+            />
+          </div>
+        ))}
+      </fieldset>
+      <fieldset className="grid grid-cols-2 gap-2 sm:grid-cols-6">
+        <legend className="text-sm font-bold">Stud stretch measured at the last stage ({unitFor("smallLength", u)}), where taken</legend>
+        {d.studLabels.map((label, i) => (
+          <Field
+            key={i}
+            label={label}
+            name={`stretch-${i}`}
+            inputMode="decimal"
+            defaultValue={values[`stretch-${i}`]}
+            error={errors[`stretch-${i}`]}
+          />
+        ))}
+      </fieldset>
+      <TextArea label="Notes" name="notes" defaultValue={values.notes} error={errors.notes} />
+      <Button type="submit">Record the assembly</Button>
+      <p className="text-xs text-forge-700">Photos are added to the assembly once it is recorded.</p>
+    </Form>
   );
 }
 

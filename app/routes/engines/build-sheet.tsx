@@ -1,9 +1,10 @@
+import { getFormProps, useForm } from "@conform-to/react";
 import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/build-sheet";
 import { BuildSheetView } from "~/components/build-sheet";
 import { CAUTION_HANDLE } from "~/components/caution";
-import { Button, FormError, SelectField } from "~/components/form";
+import { Button, ErrorSummary, SelectField, TextArea } from "~/components/form";
 import { buildSheetMail } from "~/lib/mail/messages";
 import { sheetSummary, verdictText } from "~/lib/plan/build-sheet";
 import { buildSheet } from "~/models/build-sheet.server";
@@ -12,9 +13,9 @@ import { requireEngine } from "~/models/engine.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
 import { appUrl } from "~/utils/env.server";
 import { sendMail } from "~/utils/mail.server";
+import { parseSubmission } from "~/utils/conform.server";
 import { redirectWithToast } from "~/utils/toast.server";
 import sheetCss from "~/styles/build-sheet.css?url";
-import { fieldErrors } from "~/utils/field-errors";
 
 export const links: Route.LinksFunction = () => [{ rel: "stylesheet", href: sheetCss }];
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Build sheet · ${data?.engine.name ?? "Engine"} · Sealwright` }];
@@ -44,13 +45,15 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 export async function action({ request, params }: Route.ActionArgs) {
   const { user, team, who } = await requireRole(request, "builder");
   const engine = await requireEngine(who, params.engineId);
-  const parsed = SendSchema.safeParse(Object.fromEntries(await request.formData()));
-  if (!parsed.success) return data({ errors: fieldErrors(parsed.error.issues), error: null }, { status: 400 });
+  const submission = parseSubmission(await request.formData(), SendSchema);
+  const refuse = (status: number, formErrors?: string[]) => data({ result: submission.reply({ formErrors }) }, { status });
+  if (submission.status !== "success") return refuse(400);
+  const { viewerId, note } = submission.value;
   // only a viewer the engine is shared with: the link in the mail opens the sheet for them alone
-  const recipient = (await engineViewers(team.id, engine.id)).find((v) => v.userId === parsed.data.viewerId && v.shared);
+  const recipient = (await engineViewers(team.id, engine.id)).find((v) => v.userId === viewerId && v.shared);
   if (!recipient) throw data("No such viewer shares this engine.", { status: 404 });
   const sheet = await buildSheet(team.id, engine, user.units);
-  if (!sheet.ok) return data({ errors: {} as Record<string, string>, error: sheet.reason }, { status: 400 });
+  if (!sheet.ok) return refuse(400, [sheet.reason]);
   const rows = sheetSummary({ ...sheet, compressionRatio: sheet.chamber?.compressionRatio ?? null }, user.units);
   const content = buildSheetMail({
     teamName: team.name,
@@ -61,21 +64,23 @@ export async function action({ request, params }: Route.ActionArgs) {
     verdict: verdictText(sheet.view),
     rows,
     link: `${appUrl()}/engines/${engine.id}/build-sheet`,
-    note: parsed.data.note,
+    note,
   });
   try {
     await sendMail(recipient.email, content);
   } catch (error) {
-    return data(
-      { errors: {} as Record<string, string>, error: `The mail could not be sent (${(error as Error).message}). Try again later.` },
-      { status: 502 },
-    );
+    return refuse(502, [`The mail could not be sent (${(error as Error).message}). Try again later.`]);
   }
   return redirectWithToast(request, `/engines/${engine.id}/build-sheet`, `Build sheet sent to ${recipient.name}.`);
 }
 
 export default function BuildSheetPage({ loaderData, actionData }: Route.ComponentProps) {
   const { engine, sheet, units, canSend, recipients, teamName } = loaderData;
+  const [form, fields] = useForm<{ viewerId: string; note: string }>({
+    id: "send-sheet",
+    lastResult: actionData?.result,
+    shouldValidate: "onSubmit",
+  });
   return (
     <div className="build-sheet max-w-4xl space-y-6">
       <div className="no-print flex flex-wrap items-center justify-between gap-3">
@@ -110,29 +115,24 @@ export default function BuildSheetPage({ loaderData, actionData }: Route.Compone
               tab.
             </p>
           ) : (
-            <Form method="post" className="mt-3 space-y-3">
+            <Form method="post" className="mt-3 space-y-3" {...getFormProps(form)}>
               <p className="text-sm text-forge-700">The mail carries a summary and a link; the full sheet opens only when they sign in.</p>
-              <FormError message={actionData?.error} />
+              <ErrorSummary errors={form.allErrors} message={form.errors?.[0] ?? null} answer={actionData} />
               <SelectField
                 label="Send to"
-                name="viewerId"
+                name={fields.viewerId.name}
                 options={recipients.map((r) => [String(r.userId), `${r.name} (${r.email})`])}
-                error={actionData?.errors?.viewerId}
+                defaultValue={fields.viewerId.initialValue}
+                error={fields.viewerId.errors?.[0]}
               />
-              <div>
-                <label htmlFor="f-note" className="block text-sm font-medium text-forge-800">
-                  Note (optional)
-                </label>
-                <textarea
-                  id="f-note"
-                  name="note"
-                  rows={3}
-                  maxLength={1000}
-                  className="mt-1 block w-full rounded border border-forge-300 px-3 py-2"
-                  aria-invalid={actionData?.errors?.note ? true : undefined}
-                />
-                {actionData?.errors?.note ? <p className="mt-1 text-sm font-medium text-failed">✖ {actionData.errors.note}</p> : null}
-              </div>
+              <TextArea
+                label="Note (optional)"
+                name={fields.note.name}
+                rows={3}
+                maxLength={1000}
+                defaultValue={fields.note.initialValue}
+                error={fields.note.errors?.[0]}
+              />
               <Button type="submit">Send the build sheet</Button>
             </Form>
           )}

@@ -1,16 +1,19 @@
+import { getFormProps, useForm, type SubmissionResult } from "@conform-to/react";
 import { data, Form } from "react-router";
 import type { Route } from "./+types/machining";
 import { ScrollTable } from "~/components/scroll-table";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
-import { Button, Field, FormError, SelectField, TextArea } from "~/components/form";
+import { Button, ErrorSummary, Field, firstErrors, SelectField, TextArea } from "~/components/form";
 import { STATUS_LOOK } from "~/components/status-look";
 import type { LimitCheck } from "~/lib/clamp";
+import { typedFormSchema } from "~/lib/records/form";
 import { MACHINING_FIGURES, parseMachiningForm } from "~/lib/records/machining";
 import { formatQuantity, unitFor, type UnitSystem } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
 import { createMachining, listMachining, measuredEstimate } from "~/models/machining.server";
 import { listPlans } from "~/models/plan.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
+import { parseSubmission } from "~/utils/conform.server";
 import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "Machining · Sealwright" }];
@@ -47,23 +50,84 @@ export async function action({ request, params }: Route.ActionArgs) {
   const { user, team, who } = await requireRole(request, "builder");
   const engine = await requireEngine(who, params.engineId);
   const plans = await listPlans(team.id, engine.id);
-  const form = Object.fromEntries([...(await request.formData()).entries()].filter((e): e is [string, string] => typeof e[1] === "string"));
-  const parsed = parseMachiningForm(form, { planIds: plans.map((p) => p.id), cylinders: engine.cylinders, units: user.units });
-  if (!parsed.ok)
-    return data(
-      { errors: parsed.errors, values: form, message: "The measurements were not recorded: see the fields marked." },
-      { status: 400 },
-    );
-  await createMachining(team.id, user.id, engine.id, parsed.value);
+  const schema = typedFormSchema((form) =>
+    parseMachiningForm(form, { planIds: plans.map((p) => p.id), cylinders: engine.cylinders, units: user.units }),
+  );
+  const submission = parseSubmission(await request.formData(), schema);
+  if (submission.status !== "success") return data({ result: submission.reply() }, { status: 400 });
+  await createMachining(team.id, user.id, engine.id, submission.value);
   return redirectWithToast(request, `/engines/${engine.id}/machining`, "Machining record kept.");
+}
+
+function MachiningForm({ d, lastResult }: { d: Route.ComponentProps["loaderData"]; lastResult: SubmissionResult<string[]> | undefined }) {
+  const u = d.units;
+  // the one form path: the server parses with the schema, Conform carries its answer (values as typed)
+  const [form] = useForm<Record<string, string>>({ id: "machining", lastResult, shouldValidate: "onSubmit" });
+  const values = (form.initialValue ?? {}) as Record<string, string | undefined>;
+  const errors = firstErrors(form.allErrors);
+  return (
+    <Form
+      method="post"
+      className="no-print max-w-4xl space-y-3 rounded border border-forge-300 bg-white p-4"
+      aria-label="Record machining and measurements"
+      {...getFormProps(form)}
+    >
+      <h3 className="text-lg font-bold">Record machining and measurements</h3>
+      <ErrorSummary
+        errors={errors}
+        message={Object.keys(errors).length ? "The measurements were not recorded: see the fields marked." : null}
+        answer={lastResult}
+      />
+      <div className="grid gap-3 sm:grid-cols-3">
+        <SelectField
+          label="For the plan"
+          name="planId"
+          defaultValue={values.planId ?? String(d.formPlanId)}
+          error={errors.planId}
+          options={d.plans.map((p) => [String(p.id), p.name])}
+        />
+        <Field
+          label="Date"
+          name="measuredOn"
+          type="date"
+          defaultValue={values.measuredOn ?? new Date().toISOString().slice(0, 10)}
+          error={errors.measuredOn}
+        />
+        <Field label="Measured by" name="measuredBy" defaultValue={values.measuredBy ?? d.userName} error={errors.measuredBy} />
+        {MACHINING_FIGURES.map((f) => (
+          <Field
+            key={f.name}
+            label={`${f.label} (${unitFor(f.quantity, u)})`}
+            name={f.name}
+            inputMode="decimal"
+            defaultValue={values[f.name]}
+            error={errors[f.name]}
+          />
+        ))}
+      </div>
+      <fieldset className="grid grid-cols-2 gap-2 sm:grid-cols-6">
+        <legend className="text-sm font-bold">Sleeve protrusion measured per bore ({unitFor("smallLength", u)}), where taken</legend>
+        {Array.from({ length: d.cylinders }, (_, i) => (
+          <Field
+            key={i}
+            label={`Bore ${i + 1}`}
+            name={`protrusion-${i}`}
+            inputMode="decimal"
+            defaultValue={values[`protrusion-${i}`]}
+            error={errors[`protrusion-${i}`]}
+          />
+        ))}
+      </fieldset>
+      <TextArea label="Notes" name="notes" defaultValue={values.notes} error={errors.notes} />
+      <Button type="submit">Keep the record</Button>
+    </Form>
+  );
 }
 
 type Sheet = Awaited<ReturnType<typeof loader>>["sheets"][number];
 
 export default function Machining({ loaderData: d, actionData }: Route.ComponentProps) {
   const u = d.units;
-  const values: Record<string, string> = actionData?.values ?? {};
-  const errors: Record<string, string> = actionData?.errors ?? {};
   return (
     <section className="space-y-5">
       <h2 className="text-2xl font-bold">Machining and measurement</h2>
@@ -77,57 +141,8 @@ export default function Machining({ loaderData: d, actionData }: Route.Component
         <SheetView key={s.id} sheet={s} units={u} />
       ))}
       {d.canEdit && d.formPlanId !== null ? (
-        <Form
-          key={d.sheets.length}
-          method="post"
-          className="no-print max-w-4xl space-y-3 rounded border border-forge-300 bg-white p-4"
-          aria-label="Record machining and measurements"
-        >
-          <h3 className="text-lg font-bold">Record machining and measurements</h3>
-          <FormError message={actionData?.message} />
-          <div className="grid gap-3 sm:grid-cols-3">
-            <SelectField
-              label="For the plan"
-              name="planId"
-              defaultValue={values.planId ?? String(d.formPlanId)}
-              error={errors.planId}
-              options={d.plans.map((p) => [String(p.id), p.name])}
-            />
-            <Field
-              label="Date"
-              name="measuredOn"
-              type="date"
-              defaultValue={values.measuredOn ?? new Date().toISOString().slice(0, 10)}
-              error={errors.measuredOn}
-            />
-            <Field label="Measured by" name="measuredBy" defaultValue={values.measuredBy ?? d.userName} error={errors.measuredBy} />
-            {MACHINING_FIGURES.map((f) => (
-              <Field
-                key={f.name}
-                label={`${f.label} (${unitFor(f.quantity, u)})`}
-                name={f.name}
-                inputMode="decimal"
-                defaultValue={values[f.name]}
-                error={errors[f.name]}
-              />
-            ))}
-          </div>
-          <fieldset className="grid grid-cols-2 gap-2 sm:grid-cols-6">
-            <legend className="text-sm font-bold">Sleeve protrusion measured per bore ({unitFor("smallLength", u)}), where taken</legend>
-            {Array.from({ length: d.cylinders }, (_, i) => (
-              <Field
-                key={i}
-                label={`Bore ${i + 1}`}
-                name={`protrusion-${i}`}
-                inputMode="decimal"
-                defaultValue={values[`protrusion-${i}`]}
-                error={errors[`protrusion-${i}`]}
-              />
-            ))}
-          </fieldset>
-          <TextArea label="Notes" name="notes" defaultValue={values.notes} error={errors.notes} />
-          <Button type="submit">Keep the record</Button>
-        </Form>
+        // a new key after each record kept empties the form; a refusal keeps it
+        <MachiningForm key={d.sheets.length} d={d} lastResult={actionData?.result} />
       ) : null}
     </section>
   );

@@ -1,17 +1,18 @@
+import { getFormProps, useForm } from "@conform-to/react";
 import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/runs";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
-import { Button, Field, FormError, SelectField, TextArea } from "~/components/form";
+import { Button, ErrorSummary, Field, firstErrors, SelectField, TextArea } from "~/components/form";
 import { FileList, Uploader } from "~/components/uploader";
-import { OUTCOME_LABEL, OUTCOMES, RUN_FIELDS, RUN_KIND_LABEL, RUN_KINDS, runSchema, selectRuns, type RunSort } from "~/lib/records/run";
+import { OUTCOME_LABEL, OUTCOMES, RUN_KIND_LABEL, RUN_KINDS, runFormSchema, selectRuns, type RunSort } from "~/lib/records/run";
 import { runQuery } from "~/lib/records/run-query";
 import { formatQuantity, unitFor } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
 import { listFiles } from "~/models/files.server";
 import { createRun, listRuns } from "~/models/records.server";
 import { requireRole, requireUser, roleAtLeast } from "~/utils/auth.server";
+import { parseSubmission } from "~/utils/conform.server";
 import { redirectWithToast } from "~/utils/toast.server";
-import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Runs · Sealwright" }];
 // peak pressures are shown, some estimated by the model: the page carries the full caution
@@ -36,23 +37,16 @@ export async function loader({ request, params }: Route.LoaderArgs) {
     search: url.search,
     files: files.filter((f) => f.runId !== null),
     canEdit: roleAtLeast(role, "builder"),
-    values: { ranOn: today(), kind: "dyno", fuel: engine.fuel } as Record<string, string>,
-    errors: {} as Record<string, string>,
+    values: { ranOn: today(), kind: "dyno", fuel: engine.fuel, outcome: "held" } as Record<string, string>,
   };
 }
 
 export async function action({ request, params }: Route.ActionArgs) {
   const { user, team, who } = await requireRole(request, "builder");
   const engine = await requireEngine(who, params.engineId);
-  const form = await request.formData();
-  const values = Object.fromEntries(RUN_FIELDS.map((k) => [k, typeof form.get(k) === "string" ? (form.get(k) as string) : ""]));
-  const parsed = runSchema(engine.cylinders, user.units).safeParse(values);
-  if (!parsed.success)
-    return data(
-      { errors: fieldErrors(parsed.error.issues), values, message: "The run was not logged: see the fields marked." },
-      { status: 400 },
-    );
-  await createRun(team.id, user.id, engine, parsed.data);
+  const submission = parseSubmission(await request.formData(), runFormSchema(engine.cylinders, user.units));
+  if (submission.status !== "success") return data({ result: submission.reply() }, { status: 400 });
+  await createRun(team.id, user.id, engine, submission.value);
   return redirectWithToast(request, `/engines/${engine.id}/runs`, "Run logged.");
 }
 
@@ -66,8 +60,15 @@ const SORT_LABEL: Record<RunSort, string> = {
 };
 
 export default function Runs({ loaderData: d, actionData }: Route.ComponentProps) {
-  const values = actionData?.values ?? d.values;
-  const errors = actionData?.errors ?? d.errors;
+  // the one form path: the server parses with the schema, Conform carries its answer (values as typed)
+  const [form] = useForm<Record<string, string>>({
+    id: "log-run",
+    defaultValue: d.values,
+    lastResult: actionData?.result,
+    shouldValidate: "onSubmit",
+  });
+  const values = (form.initialValue ?? d.values) as Record<string, string | undefined>;
+  const errors = firstErrors(form.allErrors);
   const sortLink = (s: RunSort) => {
     const p = new URLSearchParams(d.search);
     p.set("sort", s);
@@ -181,9 +182,13 @@ export default function Runs({ loaderData: d, actionData }: Route.ComponentProps
         </table>
       </div>
       {d.canEdit ? (
-        <Form method="post" className="no-print max-w-3xl space-y-3 rounded border border-forge-300 bg-white p-4">
+        <Form method="post" className="no-print max-w-3xl space-y-3 rounded border border-forge-300 bg-white p-4" {...getFormProps(form)}>
           <h3 className="text-lg font-bold">Log a run</h3>
-          <FormError message={actionData?.message} />
+          <ErrorSummary
+            errors={errors}
+            message={Object.keys(errors).length ? "The run was not logged: see the fields marked." : null}
+            answer={actionData?.result}
+          />
           <div className="grid gap-3 sm:grid-cols-3">
             <Field label="Date" name="ranOn" type="date" defaultValue={values.ranOn} error={errors.ranOn} />
             <SelectField
@@ -213,7 +218,7 @@ export default function Runs({ loaderData: d, actionData }: Route.ComponentProps
             <SelectField
               label="Outcome"
               name="outcome"
-              defaultValue={values.outcome ?? "held"}
+              defaultValue={values.outcome}
               error={errors.outcome}
               options={OUTCOMES.map((o) => [o, OUTCOME_LABEL[o]])}
             />

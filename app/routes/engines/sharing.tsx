@@ -1,12 +1,12 @@
 import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/sharing";
-import { Button, FormError } from "~/components/form";
+import { Button, ErrorSummary } from "~/components/form";
 import { engineViewers, setEngineShare } from "~/models/engine-share.server";
 import { requireEngine } from "~/models/engine.server";
 import { requireRole } from "~/utils/auth.server";
+import { parseSubmission } from "~/utils/conform.server";
 import { redirectWithToast } from "~/utils/toast.server";
-import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sharing · Sealwright" }];
 
@@ -24,17 +24,18 @@ export async function loader({ request, params }: Route.LoaderArgs) {
 export async function action({ request, params }: Route.ActionArgs) {
   const { team, user, who } = await requireRole(request, "builder");
   const engine = await requireEngine(who, params.engineId);
-  const parsed = ShareSchema.safeParse(Object.fromEntries(await request.formData()));
-  if (!parsed.success) return data({ errors: fieldErrors(parsed.error.issues) }, { status: 400 });
-  const shared = parsed.data.shared === "true";
-  await setEngineShare(team.id, user.id, engine.id, parsed.data.viewerId, shared);
+  const submission = parseSubmission(await request.formData(), ShareSchema);
+  if (submission.status !== "success") return data({ result: submission.reply() }, { status: 400 });
+  const shared = submission.value.shared === "true";
+  await setEngineShare(team.id, user.id, engine.id, submission.value.viewerId, shared);
   const message = shared ? "Shared: the viewer now sees this engine, its plans and its build sheet." : "No longer shared with that viewer.";
   return redirectWithToast(request, `/engines/${engine.id}/sharing`, message);
 }
 
 export default function Sharing({ loaderData, actionData }: Route.ComponentProps) {
   const { engine, viewers } = loaderData;
-  const error = actionData?.errors ? Object.values(actionData.errors)[0] : null;
+  // the rows' fields are hidden: the answer's first message is the summary's line
+  const error = Object.values(actionData?.result.error ?? {}).flatMap((list) => list ?? [])[0] ?? null;
   return (
     <div className="max-w-3xl space-y-4">
       <h2 className="text-2xl font-bold">Sharing</h2>
@@ -42,7 +43,7 @@ export default function Sharing({ loaderData, actionData }: Route.ComponentProps
         Viewers (customers, tuners) see only the engines shared with them: this engine's record, seal plans, chamber and build sheet,
         read-only. Builders and owners always see every engine.
       </p>
-      <FormError message={error} />
+      <ErrorSummary message={error} answer={actionData} />
       {viewers.length === 0 ? (
         <p className="rounded border border-forge-100 bg-white p-3">
           The shop has no viewers yet. An owner invites one on the{" "}

@@ -1,19 +1,20 @@
+import { getFormProps, useForm, type SubmissionResult } from "@conform-to/react";
 import { data, Form } from "react-router";
-import { z } from "zod";
+import type { z } from "zod";
 import type { Route } from "./+types/team";
 import { PageTitle } from "~/components/app-shell";
-import { Button, Field, FormError, SelectField } from "~/components/form";
+import { Button, ErrorSummary, Field, SelectField } from "~/components/form";
 import { INVITE_DAYS, inviteMail } from "~/lib/mail/messages";
-import { ROLES, ROLES_HIGH_FIRST } from "~/lib/team/roles";
+import { InviteSchema, MemberSchema, RevokeInviteSchema, RoleSchema, TeamNameSchema } from "~/lib/team/forms";
+import { ROLES_HIGH_FIRST } from "~/lib/team/roles";
 import { createInvite, InviteError, listPendingInvites, revokeInvite } from "~/models/invite.server";
 import { changeRole, LastOwnerError, removeMember } from "~/models/member.server";
 import { listMembers, renameTeam } from "~/models/team.server";
 import { requireRole } from "~/utils/auth.server";
-import { readIntent } from "~/utils/conform.server";
+import { parseSubmission, readIntent } from "~/utils/conform.server";
 import { appUrl } from "~/utils/env.server";
 import { sendMail } from "~/utils/mail.server";
 import { redirectWithToast } from "~/utils/toast.server";
-import { fieldErrors } from "~/utils/field-errors";
 
 export const meta: Route.MetaFunction = () => [{ title: "Team · Sealwright" }];
 
@@ -22,14 +23,10 @@ const ROLE_OPTIONS: [string, string][] = [
   ["builder", "Builder — engines, plans, libraries"],
   ["owner", "Owner — everything, and this page"],
 ];
-const Role = z.enum(ROLES, "Pick owner, builder or viewer");
-const Id = z.coerce.number({ error: "No such member" }).int().positive();
-
-const TeamNameSchema = z.object({ name: z.string().trim().min(1, "Name the shop").max(120, "Keep the shop name under 120 characters") });
-const InviteSchema = z.object({ email: z.email("Enter an e-mail address like name@shop.example").max(254), role: Role });
-const RoleSchema = z.object({ userId: Id, role: Role });
-const MemberSchema = z.object({ userId: Id });
-const RevokeSchema = z.object({ inviteId: Id });
+// Which schema reads each button's post.
+const SCHEMA = { rename: TeamNameSchema, invite: InviteSchema, role: RoleSchema, remove: MemberSchema, revoke: RevokeInviteSchema };
+type Intent = keyof typeof SCHEMA;
+const ROW_INTENTS: readonly Intent[] = ["role", "remove", "revoke"];
 
 export async function loader({ request }: Route.LoaderArgs) {
   const { team, user } = await requireRole(request, "owner");
@@ -43,66 +40,74 @@ async function done(request: Request, message: string) {
 
 export async function action({ request }: Route.ActionArgs) {
   const { team, user } = await requireRole(request, "owner");
-  const form = Object.fromEntries(await request.formData());
-  const refuse = (errors: Record<string, string>, error: string | null = null) =>
-    data({ intent, errors, error, values: form }, { status: 400 });
-  const intent = readIntent(form, ["rename", "invite", "role", "remove", "revoke"], "rename");
+  const formData = await request.formData();
+  const intent = readIntent(formData, ["rename", "invite", "role", "remove", "revoke"], "rename");
+  const submission = parseSubmission(formData, SCHEMA[intent]);
+  const refuse = (options: { fieldErrors?: Record<string, string[]>; formErrors?: string[] } = {}) =>
+    data({ intent, result: submission.reply(options) }, { status: 400 });
+  if (submission.status !== "success") return refuse();
   try {
     switch (intent) {
       case "invite": {
-        const parsed = InviteSchema.safeParse(form);
-        if (!parsed.success) return refuse(fieldErrors(parsed.error.issues));
-        const { token } = await createInvite(team.id, user.id, parsed.data);
+        const invite = submission.value as z.output<typeof InviteSchema>;
+        const { token } = await createInvite(team.id, user.id, invite);
         const link = `${appUrl()}/invite/${token}`;
         try {
-          await sendMail(parsed.data.email, inviteMail({ teamName: team.name, inviterName: user.name, role: parsed.data.role, link }));
+          await sendMail(invite.email, inviteMail({ teamName: team.name, inviterName: user.name, role: invite.role, link }));
         } catch (error) {
-          return refuse(
-            {},
-            `The invite is made, but the mail could not be sent (${(error as Error).message}). Check the SMTP settings, withdraw it and invite again.`,
-          );
+          return refuse({
+            formErrors: [
+              `The invite is made, but the mail could not be sent (${(error as Error).message}). Check the SMTP settings, withdraw it and invite again.`,
+            ],
+          });
         }
-        return done(request, `Invite sent to ${parsed.data.email}; the link works once, for ${INVITE_DAYS} days.`);
+        return done(request, `Invite sent to ${invite.email}; the link works once, for ${INVITE_DAYS} days.`);
       }
       case "role": {
-        const parsed = RoleSchema.safeParse(form);
-        if (!parsed.success) return refuse(fieldErrors(parsed.error.issues));
-        await changeRole(team.id, user.id, parsed.data.userId, parsed.data.role);
+        const { userId, role } = submission.value as z.output<typeof RoleSchema>;
+        await changeRole(team.id, user.id, userId, role);
         return done(request, "Role changed.");
       }
       case "remove": {
-        const parsed = MemberSchema.safeParse(form);
-        if (!parsed.success) return refuse(fieldErrors(parsed.error.issues));
-        await removeMember(team.id, user.id, parsed.data.userId);
+        await removeMember(team.id, user.id, (submission.value as z.output<typeof MemberSchema>).userId);
         return done(request, "Member removed; their sessions in this shop have ended.");
       }
       case "revoke": {
-        const parsed = RevokeSchema.safeParse(form);
-        if (!parsed.success) return refuse(fieldErrors(parsed.error.issues));
-        await revokeInvite(team.id, user.id, parsed.data.inviteId);
+        await revokeInvite(team.id, user.id, (submission.value as z.output<typeof RevokeInviteSchema>).inviteId);
         return done(request, "Invite withdrawn.");
       }
       default: {
-        const parsed = TeamNameSchema.safeParse(form);
-        if (!parsed.success) return refuse(fieldErrors(parsed.error.issues));
-        await renameTeam(team.id, parsed.data.name, user.id);
+        await renameTeam(team.id, (submission.value as z.output<typeof TeamNameSchema>).name, user.id);
         return done(request, "Shop renamed.");
       }
     }
   } catch (error) {
-    if (error instanceof InviteError) return refuse(error.errors);
-    if (error instanceof LastOwnerError) return refuse({}, error.message);
+    if (error instanceof InviteError)
+      return refuse({ fieldErrors: Object.fromEntries(Object.entries(error.errors).map(([name, message]) => [name, [message]])) });
+    if (error instanceof LastOwnerError) return refuse({ formErrors: [error.message] });
     throw error;
   }
 }
 
+/** The first message of an answer, form-level or a field's (the member rows' fields are hidden or unlabelled). */
+function firstMessage(result: SubmissionResult<string[]> | undefined): string | null {
+  return Object.values(result?.error ?? {}).flatMap((list) => list ?? [])[0] ?? null;
+}
+
 export default function TeamPage({ loaderData, actionData }: Route.ComponentProps) {
   const { team, me, members, invites } = loaderData;
-  const errorsFor = (intent: string) => (actionData?.intent === intent ? actionData.errors : {}) as Record<string, string | undefined>;
+  const answerFor = (intent: Intent) => (actionData?.intent === intent ? actionData.result : undefined);
+  const rowAnswer = actionData && ROW_INTENTS.includes(actionData.intent) ? actionData.result : undefined;
+  const [rename, renameFields] = useForm<z.input<typeof TeamNameSchema>>({
+    id: "rename",
+    defaultValue: { name: team.name },
+    lastResult: answerFor("rename"),
+    shouldValidate: "onSubmit",
+  });
   return (
     <>
       <PageTitle sub="Who works in this shop and what they may do.">Team</PageTitle>
-      <FormError message={actionData?.error} />
+      <ErrorSummary message={firstMessage(rowAnswer)} answer={rowAnswer} />
       <div className="max-w-4xl overflow-x-auto" tabIndex={0} role="region" aria-label="members (scrolls sideways)">
         <table className="w-full border-collapse bg-white text-left">
           <caption className="sr-only">Members of {team.name}</caption>
@@ -177,20 +182,8 @@ export default function TeamPage({ loaderData, actionData }: Route.ComponentProp
           They get an e-mail with a link that works once, for {INVITE_DAYS} days. A customer is a viewer: they see only the engines you
           share with them.
         </p>
-        {/* a new key after each invite empties the form for the next one */}
-        <Form method="post" className="mt-3 space-y-3" key={invites[0]?.id ?? 0}>
-          <input type="hidden" name="intent" value="invite" />
-          <Field
-            label="E-mail"
-            name="email"
-            type="email"
-            required
-            defaultValue={actionData?.intent === "invite" ? String(actionData.values.email ?? "") : undefined}
-            error={errorsFor("invite").email}
-          />
-          <SelectField label="Role" name="role" options={ROLE_OPTIONS} defaultValue="viewer" error={errorsFor("invite").role} />
-          <Button type="submit">Send the invite</Button>
-        </Form>
+        {/* a new key after each invite made empties the form for the next one; a refusal keeps it mounted */}
+        <InviteForm key={invites[0]?.id ?? 0} lastResult={answerFor("invite")} answer={actionData} />
         {invites.length ? (
           <ul className="mt-4 space-y-2 text-sm" aria-label="Invites not yet accepted">
             {invites.map((i) => (
@@ -218,10 +211,50 @@ export default function TeamPage({ loaderData, actionData }: Route.ComponentProp
         </a>{" "}
         <span className="text-sm text-forge-700">— engines, plans, libraries and the activity log, for your own backup.</span>
       </p>
-      <Form method="post" className="mt-8 flex max-w-xl items-end gap-3">
-        <Field className="flex-1" label="Shop name" name="name" defaultValue={team.name} error={errorsFor("rename").name} />
-        <Button type="submit">Rename</Button>
+      <Form method="post" className="mt-8 max-w-xl" {...getFormProps(rename)}>
+        <ErrorSummary errors={rename.allErrors} message={rename.errors?.[0] ?? null} answer={answerFor("rename")} />
+        <div className="flex items-end gap-3">
+          <Field
+            className="flex-1"
+            label="Shop name"
+            name={renameFields.name.name}
+            defaultValue={renameFields.name.initialValue}
+            error={renameFields.name.errors?.[0]}
+          />
+          <Button type="submit">Rename</Button>
+        </div>
       </Form>
     </>
+  );
+}
+
+function InviteForm({ lastResult, answer }: { lastResult: SubmissionResult<string[]> | undefined; answer: unknown }) {
+  const [form, fields] = useForm<z.input<typeof InviteSchema>>({
+    id: "invite",
+    defaultValue: { role: "viewer" },
+    lastResult,
+    shouldValidate: "onSubmit",
+  });
+  return (
+    <Form method="post" className="mt-3 space-y-3" {...getFormProps(form)}>
+      <ErrorSummary errors={form.allErrors} message={form.errors?.[0] ?? null} answer={lastResult ? answer : null} />
+      <input type="hidden" name="intent" value="invite" />
+      <Field
+        label="E-mail"
+        name={fields.email.name}
+        type="email"
+        required
+        defaultValue={fields.email.initialValue}
+        error={fields.email.errors?.[0]}
+      />
+      <SelectField
+        label="Role"
+        name={fields.role.name}
+        options={ROLE_OPTIONS}
+        defaultValue={fields.role.initialValue}
+        error={fields.role.errors?.[0]}
+      />
+      <Button type="submit">Send the invite</Button>
+    </Form>
   );
 }

@@ -1,23 +1,20 @@
+import { getFormProps, useForm } from "@conform-to/react";
 import { data, Form, Link } from "react-router";
 import { z } from "zod";
 import type { Route } from "./+types/tokens";
 import { PageTitle } from "~/components/app-shell";
-import { Button, Field, FormError, SelectField } from "~/components/form";
+import { Button, ErrorSummary, Field, SelectField } from "~/components/form";
+import { TokenCreateSchema } from "~/lib/team/forms";
 import { ROLES } from "~/lib/team/roles";
 import { createToken, listTokens, revokeToken, TokenLimitError } from "~/models/api-token.server";
 import { requireUser, roleAtLeast } from "~/utils/auth.server";
-import { readIntent } from "~/utils/conform.server";
+import { parseSubmission, readIntent } from "~/utils/conform.server";
 import { parseId } from "~/utils/ids";
 import { redirectWithToast } from "~/utils/toast.server";
 
 export const meta: Route.MetaFunction = () => [{ title: "API tokens · Sealwright" }];
 
-const TokenCreateSchema = z.object({
-  intent: z.literal("create"),
-  name: z.string().trim().min(1, "Name the token (what will use it: “dyno laptop”)").max(80, "At most 80 characters"),
-  role: z.enum(ROLES, "Pick what the token may do"),
-});
-const TokenRevokeSchema = z.object({ intent: z.literal("revoke"), tokenId: z.string() });
+const TokenRevokeSchema = z.object({ tokenId: z.string({ error: "No such token" }) });
 
 export async function loader({ request }: Route.LoaderArgs) {
   const { user, team, role } = await requireUser(request);
@@ -26,31 +23,34 @@ export async function loader({ request }: Route.LoaderArgs) {
 
 export async function action({ request }: Route.ActionArgs) {
   const { user, team, role } = await requireUser(request);
-  const form = Object.fromEntries(await request.formData());
-  if (readIntent(form, ["create", "revoke"], "create") === "revoke") {
-    const parsed = TokenRevokeSchema.safeParse(form);
-    const id = parsed.success ? parseId(parsed.data.tokenId) : null;
+  const formData = await request.formData();
+  if (readIntent(formData, ["create", "revoke"], "create") === "revoke") {
+    const submission = parseSubmission(formData, TokenRevokeSchema);
+    const id = submission.status === "success" ? parseId(submission.value.tokenId) : null;
     if (id === null || !(await revokeToken(team.id, user.id, id)))
-      return data({ error: "No such live token of yours in this shop.", errors: {}, token: null }, { status: 404 });
+      return data(
+        { intent: "revoke" as const, result: submission.reply({ formErrors: ["No such live token of yours in this shop."] }), token: null },
+        { status: 404 },
+      );
     return redirectWithToast(request, "/settings/tokens", "Token revoked; it is refused from now on.");
   }
-  const parsed = TokenCreateSchema.safeParse(form);
-  if (!parsed.success) {
-    const errors = Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0] ?? "form"), i.message]));
-    return data({ error: "The token was not created.", errors, token: null }, { status: 400 });
-  }
+  const submission = parseSubmission(formData, TokenCreateSchema);
+  const refuse = (options: { fieldErrors?: Record<string, string[]>; formErrors?: string[] } = {}) =>
+    data({ intent: "create" as const, result: submission.reply(options), token: null }, { status: 400 });
+  if (submission.status !== "success") return refuse({ formErrors: ["The token was not created."] });
+  const { name, role: tokenRole } = submission.value;
   // never more than the person may do in this shop today
-  if (!roleAtLeast(role, parsed.data.role)) {
-    return data(
-      { error: "The token was not created.", errors: { role: `You are a ${role} here; a token cannot do more.` }, token: null },
-      { status: 400 },
-    );
-  }
+  if (!roleAtLeast(role, tokenRole))
+    return refuse({
+      formErrors: ["The token was not created."],
+      fieldErrors: { role: [`You are a ${role} here; a token cannot do more.`] },
+    });
   try {
-    const made = await createToken(team.id, user.id, parsed.data.name, parsed.data.role);
-    return { error: null, errors: {}, token: { name: parsed.data.name, role: parsed.data.role, text: made.token } };
+    const made = await createToken(team.id, user.id, name, tokenRole);
+    // the form empties for the next token; the new one is shown once
+    return { intent: "create" as const, result: submission.reply({ resetForm: true }), token: { name, role: tokenRole, text: made.token } };
   } catch (e) {
-    if (e instanceof TokenLimitError) return data({ error: e.message, errors: {}, token: null }, { status: 400 });
+    if (e instanceof TokenLimitError) return refuse({ formErrors: [e.message] });
     throw e;
   }
 }
@@ -59,7 +59,13 @@ const when = (iso: string | null) => (iso ? iso.slice(0, 16).replace("T", " ") +
 
 export default function Tokens({ loaderData, actionData }: Route.ComponentProps) {
   const fresh = actionData?.token ?? null;
-  const errors = (actionData?.errors ?? {}) as Record<string, string>;
+  const [form, fields] = useForm<z.input<typeof TokenCreateSchema>>({
+    id: "token",
+    defaultValue: { role: loaderData.roles[0] },
+    lastResult: actionData?.intent === "create" ? actionData.result : undefined,
+    shouldValidate: "onSubmit",
+  });
+  const revokeRefused = actionData?.intent === "revoke" ? actionData.result : undefined;
   return (
     <>
       <PageTitle
@@ -75,6 +81,7 @@ export default function Tokens({ loaderData, actionData }: Route.ComponentProps)
       >
         API tokens
       </PageTitle>
+      <ErrorSummary message={revokeRefused?.error?.[""]?.[0] ?? null} answer={revokeRefused} />
       {fresh ? (
         <section aria-labelledby="fresh-token" className="mb-6 max-w-3xl rounded border-2 border-copper-600 bg-white p-4">
           <h2 id="fresh-token" className="font-bold">
@@ -88,23 +95,28 @@ export default function Tokens({ loaderData, actionData }: Route.ComponentProps)
           </output>
         </section>
       ) : null}
-      <Form method="post" className="max-w-xl space-y-3 rounded border border-forge-100 bg-white p-4">
+      <Form method="post" className="max-w-xl space-y-3 rounded border border-forge-100 bg-white p-4" {...getFormProps(form)}>
         <h2 className="font-bold">New token</h2>
-        <FormError message={actionData?.error} />
+        <ErrorSummary
+          errors={form.allErrors}
+          message={form.errors?.[0] ?? null}
+          answer={actionData?.intent === "create" ? actionData : null}
+        />
         <input type="hidden" name="intent" value="create" />
         <Field
           label="Name"
-          name="name"
+          name={fields.name.name}
           maxLength={80}
           required
-          error={errors.name}
+          defaultValue={fields.name.initialValue}
+          error={fields.name.errors?.[0]}
           hint="What will use it, so you can tell your tokens apart."
         />
         <SelectField
           label="May act as"
-          name="role"
-          defaultValue={loaderData.roles[0]}
-          error={errors.role}
+          name={fields.role.name}
+          defaultValue={fields.role.initialValue}
+          error={fields.role.errors?.[0]}
           options={loaderData.roles.map((r) => [r, r === "viewer" ? "viewer (read only)" : r])}
         />
         <Button type="submit">Create token</Button>
