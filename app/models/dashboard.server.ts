@@ -42,7 +42,7 @@ function verdictOf(raw: PlanInputRaw): Verdict | null {
  * The verdict of the chosen plan of each engine the asker may see (not archived,
  * not retired, most recently updated first, at most `limit`), plans that cannot be estimated left out.
  */
-export async function chosenPlanVerdictsBatched(who: Asker, units: UnitSystem, limit = 50): Promise<ChosenPlanVerdict[]> {
+export async function chosenPlanVerdicts(who: Asker, units: UnitSystem, limit = 50): Promise<ChosenPlanVerdict[]> {
   const teamId = who.teamId;
   const engineRows = await workingEnginesWithChosenPlan(who, limit);
   if (engineRows.length === 0) return [];

@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import * as dashboard from "~/routes/shop/dashboard";
-import { chosenPlanVerdictsBatched, VERDICT_CACHE } from "~/models/dashboard.server";
+import { chosenPlanVerdicts, VERDICT_CACHE } from "~/models/dashboard.server";
 import { db } from "~/utils/db.server";
 import { call, get, signIn, type Handler } from "./helpers";
 import { ownerDb } from "../setup/db-roles";
@@ -84,10 +84,10 @@ describe("dashboard", () => {
     db().on("query", count);
     try {
       VERDICT_CACHE.clear();
-      expect(await chosenPlanVerdictsBatched(who, "metric")).toEqual(oneByOne);
+      expect(await chosenPlanVerdicts(who, "metric")).toEqual(oneByOne);
       expect(queries).toBe(5);
       expect(VERDICT_CACHE.size).toBe(oneByOne.length);
-      expect(await chosenPlanVerdictsBatched(who, "imperial")).toEqual(oneByOne);
+      expect(await chosenPlanVerdicts(who, "imperial")).toEqual(oneByOne);
     } finally {
       db().removeListener("query", count);
     }

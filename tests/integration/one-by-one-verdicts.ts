@@ -1,6 +1,6 @@
 // The dashboard's chosen-plan verdicts read one by one: each engine's chosen plan and its parts through
 // the same model functions the plan pages use (several queries per engine). The app reads them batched
-// (chosenPlanVerdictsBatched, app/models/dashboard.server.ts); this is the reference the tests compare
+// (chosenPlanVerdicts, app/models/dashboard.server.ts); this is the reference the tests compare
 // it with on both engines, and one more set of queries for the query-plan tests.
 import type { UnitSystem } from "~/lib/units";
 import { toEngine } from "~/models/engine.server";

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { engineStatusCounts, listEngines } from "~/models/engine.server";
-import { chosenPlanVerdictsBatched } from "~/models/dashboard.server";
+import { chosenPlanVerdicts } from "~/models/dashboard.server";
 import { listPlans } from "~/models/plan.server";
 import { listAuditEvents, livePlans } from "~/models/team.server";
 import { db } from "~/utils/db.server";
@@ -51,7 +51,7 @@ const HOT: [string, (t: { teamId: number; engineId: number }) => Promise<unknown
   ["dashboard activity", ({ teamId }) => listAuditEvents(teamId, 10)],
   ["dashboard engine counts", ({ teamId }) => engineStatusCounts(owner(teamId))],
   ["dashboard chosen-plan verdicts", ({ teamId }) => chosenPlanVerdictsOneByOne(owner(teamId), "metric")],
-  ["dashboard chosen-plan verdicts, batched", ({ teamId }) => chosenPlanVerdictsBatched(owner(teamId), "metric")],
+  ["dashboard chosen-plan verdicts, batched", ({ teamId }) => chosenPlanVerdicts(owner(teamId), "metric")],
   ["engine list, default sort", ({ teamId }) => listEngines(owner(teamId), {})],
   ["engine list by name", ({ teamId }) => listEngines(owner(teamId), { sort: "name", dir: "asc" })],
   ["engine list by status filter", ({ teamId }) => listEngines(owner(teamId), { status: "running" })],

@@ -5,7 +5,7 @@ import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { StatusBadge } from "~/components/engine-status";
 import { layoutName, STATUS_LABEL } from "~/lib/engine/labels";
 import { engineStatusCounts, listEngines, type EngineStatus } from "~/models/engine.server";
-import { chosenPlanVerdictsBatched } from "~/models/dashboard.server";
+import { chosenPlanVerdicts } from "~/models/dashboard.server";
 import { atRisk } from "~/models/plan-estimate.server";
 import { auditSubject, livePlans, recentActivity } from "~/models/team.server";
 import { STATUS_LOOK } from "~/components/status-look";
@@ -22,7 +22,7 @@ export async function loader({ request }: Route.LoaderArgs) {
     engineStatusCounts(who),
     listEngines(who, { sort: "updated", dir: "desc", pageSize: 5 }),
     recentActivity(who, 10),
-    chosenPlanVerdictsBatched(who, user.units),
+    chosenPlanVerdicts(who, user.units),
   ]);
   // Activity names the plan it touched and links to it while the plan is still there.
   const subjects = rawEvents.map((e) => auditSubject(e.detail));
