@@ -6,6 +6,7 @@ import * as tokens from "~/routes/shop/tokens";
 import { resetThrottles } from "~/utils/rate-limit.server";
 import { api, DEMO_TEAM, otherTeamEngine, rowCounts, teamId, tokenFor } from "./api-helpers";
 import { call, EMAIL, get, post, signIn, type Handler, teamWide } from "./helpers";
+import { answerError } from "./conform-answer";
 import { ownerDb } from "../setup/db-roles";
 
 // Refusals of the API: each bad request gets its documented status and error body and writes nothing;
@@ -159,7 +160,7 @@ describe("tokens", () => {
     const before = await rowCounts();
     const up = await call(tokens.action as Handler, post("/settings/tokens", { intent: "create", name: "sneaky", role: "owner" }, viewer));
     expect(up.status).toBe(400);
-    expect((up.body as { errors: { role: string } }).errors.role).toBe("You are a viewer here; a token cannot do more.");
+    expect(answerError(up.body, "role")).toBe("You are a viewer here; a token cannot do more.");
     expect(await rowCounts()).toEqual(before);
     const owners = await ownerDb()("api_tokens").whereNull("revoked_at").first("id");
     const other = await signIn(EMAIL.otherTeam);
