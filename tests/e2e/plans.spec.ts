@@ -135,7 +135,16 @@ test("the demo four compares copper + wire with MLS at the maker's torque, and t
 test("a refused save keeps the same form with what was typed; an applied suggestion re-seeds it from the stored plan", async ({ page }) => {
   test.setTimeout(60_000);
   await signIn(page, "builder@example.com");
-  await openFirstPlan(page);
+  // a plan of its own (the new-plan page starts from the chosen one): applying a suggestion rewrites the
+  // plan, and the demo's plans are read by later files (the machining record's estimate in records.spec)
+  await page.goto("/engines");
+  await page.getByRole("link", { name: FOUR, exact: true }).click();
+  await page.waitForURL(/\/engines\/\d+$/);
+  await page.goto(`${page.url()}/plans/new`);
+  await page.getByLabel("Plan name").fill("Re-seed probe");
+  await page.getByRole("button", { name: "Create plan" }).click();
+  await expect(page.getByRole("status").first()).toHaveText("✔ Plan created.");
+  await expect(page.getByRole("heading", { name: "Estimate" })).toBeVisible();
   const torque = page.getByLabel(/Final torque/);
   const stored = await torque.inputValue();
   const notes = page.getByLabel("Notes");
