@@ -5,7 +5,7 @@
 // evaluation of a validated input is kept in a small LRU (the model is pure: the same input gives
 // the same verdict), so a dashboard seen again evaluates only the plans that changed.
 import { evaluatePlan, parsePlan, type PlanInputRaw } from "~/lib/clamp";
-import { LruCache } from "~/lib/clamp/uncertainty-cache";
+import { LruCache } from "~/lib/lru-cache";
 import { assemblePlanInput, gasketFitProblem } from "~/lib/plan/assemble";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
 import { withTeam } from "~/utils/db.server";

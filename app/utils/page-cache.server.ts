@@ -1,6 +1,6 @@
 import crypto from "node:crypto";
 import { createContext, type RouterContextProvider } from "react-router";
-import { LruCache } from "~/lib/clamp/uncertainty-cache";
+import { LruCache } from "~/lib/lru-cache";
 import { teamDataVersion } from "~/models/team-version.server";
 import { requireUser } from "./auth.server";
 

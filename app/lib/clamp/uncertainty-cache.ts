@@ -3,6 +3,7 @@
 import type { PlanInput } from "./schema";
 import { uncertaintyPrepared, type UncertaintyOptions, type UncertaintyResult } from "./uncertainty";
 import type { Prepared } from "./model";
+import { LruCache } from "../lru-cache";
 
 /** Canonical JSON: keys sorted at every level, so two equal inputs give the same text whatever their key order. */
 export function canonicalJson(x: unknown): string {
@@ -13,30 +14,6 @@ export function canonicalJson(x: unknown): string {
     .filter((k) => o[k] !== undefined)
     .sort();
   return `{${keys.map((k) => `${JSON.stringify(k)}:${canonicalJson(o[k])}`).join(",")}}`;
-}
-
-export class LruCache<V> {
-  private readonly table = new Map<string, V>();
-  constructor(readonly capacity: number) {}
-  get size(): number {
-    return this.table.size;
-  }
-  get(key: string): V | undefined {
-    const v = this.table.get(key);
-    if (v === undefined) return undefined;
-    // a Map keeps insertion order: move the hit to the newest end
-    this.table.delete(key);
-    this.table.set(key, v);
-    return v;
-  }
-  set(key: string, value: V): void {
-    this.table.delete(key);
-    this.table.set(key, value);
-    while (this.table.size > this.capacity) this.table.delete(this.table.keys().next().value as string);
-  }
-  clear(): void {
-    this.table.clear();
-  }
 }
 
 /** 256 runs of a few hundred bytes each: the plans a shop works on in a day. */

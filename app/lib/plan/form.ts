@@ -171,7 +171,7 @@ export type PlanFormValues = z.input<typeof PlanFormFields>;
  * builder sees, the cross-field ones too: stages that do not rise or do not end at the torque under
  * "stages", a receiver groove deeper than the wire stands under "receiverGrooveDepth".
  */
-export function planFormSchema(system: UnitSystem) {
+function buildPlanFormSchema(system: UnitSystem) {
   return PlanFormFields.transform((typedForm, ctx): PlanWrite => {
     const form = Object.fromEntries(PLAN_FORM_FIELDS.map((f) => [f, typedForm[f] ?? ""])) as Record<PlanFormField, string>;
     const errors: Partial<Record<PlanFormField, string>> = {};
@@ -230,14 +230,19 @@ export function planFormSchema(system: UnitSystem) {
   });
 }
 
-const schemaFor: Partial<Record<UnitSystem, ReturnType<typeof planFormSchema>>> = {};
+const schemaFor: Partial<Record<UnitSystem, ReturnType<typeof buildPlanFormSchema>>> = {};
+
+/** The plan form's schema for the person's units, built once per unit system. */
+export function planFormSchema(system: UnitSystem) {
+  return (schemaFor[system] ??= buildPlanFormSchema(system));
+}
 
 /**
  * The plan form's schema as a plain function, for the live estimate in the browser and for an answer
  * that must estimate the values it shows: the SI plan, or the first message per field.
  */
 export function parsePlanForm(form: Record<string, unknown>, system: UnitSystem): PlanFormResult {
-  const r = (schemaFor[system] ??= planFormSchema(system)).safeParse(form);
+  const r = planFormSchema(system).safeParse(form);
   if (r.success) return { ok: true, plan: r.data };
   const errors: Record<string, string> = {};
   for (const i of r.error.issues) errors[String(i.path[0] ?? "")] ??= i.message;

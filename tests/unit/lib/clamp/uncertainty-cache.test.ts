@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { prepare } from "../../../../app/lib/clamp";
 import { uncertaintyPrepared } from "../../../../app/lib/clamp/uncertainty";
-import { cachedUncertainty, canonicalJson, LruCache, UNCERTAINTY_CACHE } from "../../../../app/lib/clamp/uncertainty-cache";
+import { cachedUncertainty, canonicalJson, UNCERTAINTY_CACHE } from "../../../../app/lib/clamp/uncertainty-cache";
 import { coreFigures, referenceFigures } from "../../../bench/reference";
 import { evaluatePrepared } from "../../../../app/lib/clamp/evaluate";
 import { v8Raw, workedExample } from "./fixtures";
@@ -14,17 +14,6 @@ describe("scatter-run cache", () => {
     );
     expect(canonicalJson({ a: 1 })).not.toBe(canonicalJson({ a: 2 }));
     expect(canonicalJson({ a: undefined, b: 1 })).toBe(canonicalJson({ b: 1 }));
-  });
-
-  it("keeps the newest entries up to its capacity and moves a hit to the newest end", () => {
-    const c = new LruCache<number>(2);
-    c.set("a", 1);
-    c.set("b", 2);
-    expect(c.get("a")).toBe(1);
-    c.set("c", 3);
-    expect(c.get("b")).toBeUndefined();
-    expect(c.get("a")).toBe(1);
-    expect(c.size).toBe(2);
   });
 
   it("gives the run a fresh computation gives, and computes it once per input and options", () => {
