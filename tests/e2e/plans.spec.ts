@@ -164,6 +164,8 @@ test("a refused save keeps the same form with what was typed; an applied suggest
 
   // fixed and asked for a suggestion: the answer clears the messages, the typed note stays
   await torque.fill(stored);
+  // the live estimate now reads what is typed: no notice that the estimate is someone else's figures
+  await expect(page.getByTestId("estimate-stale")).toHaveCount(0);
   await page.getByLabel("Target seal margin").fill("1.2");
   await page.getByRole("button", { name: "Suggest torque for the target" }).click();
   await expect(page.getByTestId("suggestion")).toBeVisible();

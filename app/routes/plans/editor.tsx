@@ -304,7 +304,8 @@ export default function PlanEditor({ loaderData, actionData }: Route.ComponentPr
         {suggestion ? <SuggestionBox suggestion={suggestion} units={units} canEdit={canEdit} /> : null}
         <Caution />
         {problems.length > 0 ? <FormError message={`The estimate cannot run: ${problems.join(" ")}`} /> : null}
-        {live.stale || refusedWithoutPreview ? (
+        {/* after a refusal, the builder's next keystroke brings a live estimate of what is typed: no notice then */}
+        {live.stale || (refusedWithoutPreview && !live.view) ? (
           <p
             role="status"
             className="rounded border border-caution bg-caution-50 px-3 py-2 text-sm font-medium"
