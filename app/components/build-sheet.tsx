@@ -4,7 +4,7 @@ import { layoutName, SLEEVE_LABEL } from "~/lib/engine";
 import { GASKET_TYPE_LABELS } from "~/lib/library/schemas";
 import { stagesText } from "~/lib/plan/build-sheet";
 import type { EstimateView } from "~/lib/plan/estimate-view";
-import { METHOD_LABEL, WIRE_LABEL } from "~/lib/plan/form";
+import { METHOD_LABEL, WIRE_LABEL } from "~/lib/plan/form-fields";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
 import { Caution } from "./caution";
 import { marginStatus } from "~/lib/plan/margin";

@@ -10,7 +10,7 @@ import {
   type PlanFormField,
   type PlanFormValues,
   type PlanWrite,
-} from "~/lib/plan/form";
+} from "~/lib/plan/form-fields";
 import type { StretchLine } from "~/lib/plan/stretch";
 import { formatQuantity, toDisplay, unitFor, type UnitSystem } from "~/lib/units";
 import { Button, Field, SelectField } from "./form";

@@ -1,4 +1,4 @@
-import { METHOD_LABEL, WIRE_LABEL, type PlanWrite } from "~/lib/plan/form";
+import { METHOD_LABEL, WIRE_LABEL, type PlanWrite } from "~/lib/plan/form-fields";
 import { unitFor, type UnitSystem } from "~/lib/units";
 
 interface Props {

@@ -14,7 +14,6 @@ import {
   type MaterialRecord,
 } from "~/lib/plan/parts";
 import type { EstimateView } from "~/lib/plan/estimate-view";
-import { parsePlanForm } from "~/lib/plan/form";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
 
 /** Pause after the last keystroke before the sweep and scatter run are fetched. */
@@ -118,9 +117,13 @@ export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null)
   const figuresFor = (formEl: HTMLFormElement | null): LiveStep | null => {
     if (!formEl) return null;
     const form = Object.fromEntries(new FormData(formEl));
-    const full = parsePlanForm(form, d.units);
+    // the form's schema and the model load together after the first paint: a change in the first
+    // instant of the page waits for them
+    const m = model.current;
+    if (!m) return { fastenerId: String(form.fastenerId ?? ""), errors: null, kind: "waiting" };
+    const full = m.parsePlanForm(form, d.units);
     // Stages do not change the estimate, so a half-typed stage list does not hold it back.
-    const parsed = full.ok ? full : parsePlanForm({ ...form, stages: "" }, d.units);
+    const parsed = full.ok ? full : m.parsePlanForm({ ...form, stages: "" }, d.units);
     const base = { fastenerId: String(form.fastenerId ?? ""), errors: full.ok ? null : full.errors };
     if (!parsed.ok) return { ...base, kind: "unreadable" };
     const fastener = d.choices.fasteners.find((f) => f.id === parsed.plan.fastenerId);
@@ -128,10 +131,6 @@ export function useLiveEstimate(d: LiveEstimateData, saved: EstimateView | null)
     if (!fastener || !gasket || !d.materials.head || !d.materials.block) return { ...base, kind: "incomplete" };
     const misfit = gasketFitProblem(d.engine.boreMm, gasket.boreMm, (mm) => formatQuantity(mm, "length", d.units));
     if (misfit) return { ...base, kind: "unreadable", errors: { ...base.errors, gasketId: misfit } };
-    // the model turns a stretch target into a preload: before it has loaded (the first instant of the
-    // page) the change waits for it
-    const m = model.current;
-    if (!m) return { ...base, kind: "waiting" };
     const plan = parsed.plan;
     const byStretch = plannedByStretch(plan);
     const torqueInput = assembleTorqueInput({

@@ -1,6 +1,6 @@
 import { data } from "react-router";
 import type { PlanParts, PlanRecord } from "~/lib/plan/assemble";
-import type { PlanWrite } from "~/lib/plan/form";
+import type { PlanWrite } from "~/lib/plan/form-fields";
 import { now, setRowScope, withTeam, writeTransaction, type DbRow } from "~/utils/db.server";
 import type { EngineRow } from "./engine.server";
 import {

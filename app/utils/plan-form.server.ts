@@ -3,7 +3,8 @@
 // answered as a Conform update of the values, and the refusals, each a Conform reply.
 import { gasketFitProblem } from "~/lib/plan/assemble";
 import { figuresFollowStep, type MakerFigures } from "~/lib/plan/fastener-figures";
-import { parsePlanForm, planFormSchema, type PlanWrite } from "~/lib/plan/form";
+import type { PlanWrite } from "~/lib/plan/form-fields";
+import { parsePlanForm, planFormSchema } from "~/lib/plan/form";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
 import type { EngineRow } from "~/models/engine.server";
 import type { PlanEstimateResult } from "~/models/plan-estimate.server";

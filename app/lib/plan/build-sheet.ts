@@ -3,7 +3,7 @@
 import { GASKET_TYPE_LABELS } from "../library/schemas";
 import { formatQuantity, type UnitSystem } from "../units";
 import type { EstimateView } from "./estimate-view";
-import { METHOD_LABEL, type PlanWrite } from "./form";
+import { METHOD_LABEL, type PlanWrite } from "./form-fields";
 
 export interface SheetFacts {
   gasket: { name: string; type: keyof typeof GASKET_TYPE_LABELS };

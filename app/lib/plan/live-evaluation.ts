@@ -15,6 +15,8 @@ export function validPlanInput(raw: PlanInputRaw): PlanInput | null {
 }
 
 export { stretchLine, studStiffnessFor, withStretchTarget } from "./stretch";
+// the form's schema (and zod) come with this module, after the first paint, not with the page
+export { parsePlanForm } from "./form";
 
 /** The view with the immediate figures of a new evaluation and the slow parts (sweep, scatter run) of an earlier one. */
 export function withEvaluation(slow: EstimateView, input: PlanInput, units: UnitSystem): EstimateView {

@@ -7,7 +7,7 @@ import type { PlanInputRaw, Stud } from "../clamp";
 import type { LAYOUTS } from "../clamp/plan-lists";
 import type { TighteningMethod } from "../clamp/torque";
 import type { SleeveKind } from "../engine/schema";
-import type { WIRE_LOCATIONS } from "./form";
+import type { WIRE_LOCATIONS } from "./form-fields";
 import type { GasketFamily } from "../clamp/gasket-families";
 import { ATMOSPHERE_KPA } from "../units";
 

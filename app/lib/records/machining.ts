@@ -5,6 +5,7 @@ import { rankChecks, type LimitCheck, type PlanEstimate, type Status } from "../
 import type { PlanParts } from "../plan/assemble";
 import { marginStatus } from "../plan/margin";
 import type { UnitSystem } from "../units";
+import { MACHINING_FIGURE_BOUNDS as FIGURES, type MachiningFigure } from "./machining-figures";
 import { isoDate, optionalQuantity } from "./run";
 
 export interface MachiningFigures {
@@ -32,25 +33,6 @@ export interface MachiningRecord extends MachiningFigures {
 }
 
 export type MachiningInput = MachiningFigures & { planId: number; measuredOn: string; measuredBy: string; notes: string };
-
-/** The single figures of the form, with their quantity and bounds in SI. */
-const FIGURES = [
-  // a face out of flat by half a millimetre is scrap, not a measurement to record
-  ["headFlatnessMm", "Head flatness", "smallLength", 0, 0.5],
-  ["deckFlatnessMm", "Deck flatness", "smallLength", 0, 0.5],
-  ["headFinishUm", "Head surface finish", "roughness", 0.01, 25],
-  ["deckFinishUm", "Deck surface finish", "roughness", 0.01, 25],
-  ["headRemovedMm", "Material taken off the head", "smallLength", 0, 5],
-  ["deckRemovedMm", "Material taken off the deck", "smallLength", 0, 5],
-  // the same bounds as the clamp model's schema for the plan's figures
-  ["wireProjectionMm", "Wire-ring projection", "smallLength", 0, 2],
-  ["receiverGrooveDepthMm", "Receiver-groove depth", "smallLength", 0, 2],
-  ["gasketCompressedMm", "Gasket compressed thickness", "smallLength", 0.1, 10],
-] as const;
-export type MachiningFigure = (typeof FIGURES)[number][0];
-export const MACHINING_FIGURES: readonly { name: MachiningFigure; label: string; quantity: "smallLength" | "roughness" }[] = FIGURES.map(
-  ([name, label, quantity]) => ({ name, label, quantity }),
-);
 
 export interface MachiningFormContext {
   planIds: number[];

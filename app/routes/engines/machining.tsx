@@ -7,7 +7,8 @@ import { Button, ErrorSummary, Field, firstErrors, SelectField, TextArea } from 
 import { STATUS_LOOK } from "~/components/status-look";
 import type { LimitCheck } from "~/lib/clamp";
 import { typedFormSchema } from "~/lib/records/form";
-import { MACHINING_FIGURES, parseMachiningForm } from "~/lib/records/machining";
+import { parseMachiningForm } from "~/lib/records/machining";
+import { MACHINING_FIGURES } from "~/lib/records/machining-figures";
 import { formatQuantity, unitFor, type UnitSystem } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";
 import { createMachining, listMachining, measuredEstimate } from "~/models/machining.server";

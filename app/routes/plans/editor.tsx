@@ -14,7 +14,7 @@ import type { Suggestion } from "~/lib/clamp";
 import { plannedByStretch } from "~/lib/plan/assemble";
 import type { EstimateView } from "~/lib/plan/estimate-view";
 import { scaledWrenchStages } from "~/lib/plan/fastener-figures";
-import { planFormValues, readSuggestedFigures, type PlanFormValues, type PlanWrite } from "~/lib/plan/form";
+import { planFormValues, readSuggestedFigures, type PlanFormValues, type PlanWrite } from "~/lib/plan/form-fields";
 import { stretchLine, type StretchLine } from "~/lib/plan/stretch";
 import { formatQuantity } from "~/lib/units";
 import { requireEngine } from "~/models/engine.server";

@@ -7,7 +7,7 @@ import { Button, ErrorSummary, FormError } from "~/components/form";
 import { MakerTorque } from "~/components/maker-torque";
 import { firstErrors, PlanFields, useSeededState } from "~/components/plan-form";
 import { gasketsByFit } from "~/lib/plan/assemble";
-import { planFormValues, startingPlan, type PlanFormValues, type PlanWrite } from "~/lib/plan/form";
+import { planFormValues, startingPlan, type PlanFormValues, type PlanWrite } from "~/lib/plan/form-fields";
 import { formatQuantity, parseQuantity, unitFor } from "~/lib/units";
 import { decimalPoint } from "~/lib/units/decimal-comma";
 import { LearnedFrictionOffer } from "~/components/learned-friction";

@@ -1,13 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { decimalPoint, splitList } from "../../../../app/lib/units/decimal-comma";
-import {
-  METHOD_LABEL,
-  parsePlanForm,
-  planFormSchema,
-  planFormValues,
-  readSuggestedFigures,
-  startingPlan,
-} from "../../../../app/lib/plan/form";
+import { parsePlanForm, planFormSchema } from "../../../../app/lib/plan/form";
+import { METHOD_LABEL, planFormValues, readSuggestedFigures, startingPlan } from "../../../../app/lib/plan/form-fields";
 import { figuresFingerprint } from "../../../../app/lib/plan/fastener-figures";
 import { LBF_FT_TO_NM, relErr } from "../nist";
 
