@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
 import { CEILING_WORDS } from "~/lib/clamp/ceiling-words";
-import { layoutName, SLEEVE_LABEL } from "~/lib/engine";
-import { GASKET_TYPE_LABELS } from "~/lib/library/schemas";
+import { layoutName, SLEEVE_LABEL } from "~/lib/engine/labels";
+import { GASKET_TYPE_LABELS } from "~/lib/library/labels";
 import { stagesText } from "~/lib/plan/build-sheet";
 import type { EstimateView } from "~/lib/plan/estimate-view";
 import { METHOD_LABEL, WIRE_LABEL } from "~/lib/plan/form-fields";

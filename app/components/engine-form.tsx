@@ -3,7 +3,7 @@ import type { ReactNode } from "react";
 import { Form, Link } from "react-router";
 import { Button, ErrorSummary, Field, SelectField } from "~/components/form";
 import { StudTable } from "~/components/stud-table";
-import { MATERIAL_KIND_LABELS } from "~/lib/library/schemas";
+import { MATERIAL_KIND_LABELS } from "~/lib/library/labels";
 import { BLANK_STUD_ROW, ENGINE_STATUSES, SLEEVE_KINDS, SLEEVE_LABEL, STATUS_LABEL, type EngineFormValues } from "~/lib/engine";
 import { unitFor, type UnitSystem } from "~/lib/units";
 

@@ -1,6 +1,7 @@
 import type { Knex } from "knex";
 import { data } from "react-router";
-import type { FastenerInput, GasketInput, LibraryKind, MaterialInput } from "~/lib/library/schemas";
+import type { LibraryKind } from "~/lib/library/labels";
+import type { FastenerInput, GasketInput, MaterialInput } from "~/lib/library/schemas";
 import { now, type DbRow, teamTransaction, withTeam } from "~/utils/db.server";
 import { recordAudit } from "./audit.server";
 

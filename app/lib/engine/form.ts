@@ -2,6 +2,7 @@
 import { z } from "zod";
 import { defaultStudPattern } from "../clamp/pattern";
 import type { Stud } from "../clamp/schema";
+import { formatShare } from "./labels";
 import { EngineSchema, type EngineInput } from "./schema";
 import { inputValue, readQuantity, type Quantity, type UnitSystem } from "../units";
 import { decimalPoint } from "../units/decimal-comma";
@@ -84,10 +85,6 @@ export function studToRow(stud: Stud): StudRow {
   };
 }
 
-export function formatShare(share: number): string {
-  return String(Number(share.toFixed(4)));
-}
-
 /** The posted form (name → value) → the raw engine input in SI, ready for EngineSchema. */
 export function formToRaw(form: Record<string, string | undefined>, studs: StudRow[], units: UnitSystem): Record<string, unknown> {
   const raw: Record<string, unknown> = {};
@@ -117,16 +114,6 @@ export function engineToForm(engine: object & { studs: Stud[] }, units: UnitSyst
     fields[f] = typeof v !== "number" ? "" : q === null ? String(v) : inputValue(v, q, units);
   }
   return { ...fields, studs: e.studs.map(studToRow), studsPerSide: "" };
-}
-
-/** "10 studs: 6 shared by two bores, 4 serving one bore". */
-export function patternSummary(studs: Stud[]): string {
-  const byCount = new Map<number, number>();
-  for (const s of studs) byCount.set(s.serves.length, (byCount.get(s.serves.length) ?? 0) + 1);
-  const parts = [...byCount.entries()]
-    .sort((a, b) => b[0] - a[0])
-    .map(([bores, n]) => (bores === 1 ? `${n} serving one bore` : `${n} shared by ${bores === 2 ? "two" : bores} bores`));
-  return `${studs.length} stud${studs.length === 1 ? "" : "s"}: ${parts.join(", ")}`;
 }
 
 // ─── One post of the engine form ──────────────────────────────────────────────────────────

@@ -1,4 +1,5 @@
 // Words (and icons, so status never rests on colour alone) for the engine record's choices.
+import type { Stud } from "../clamp/schema";
 import type { SleeveKind } from "./schema";
 import type { EngineStatus } from "./status";
 
@@ -21,4 +22,18 @@ export const PEAK_SOURCE_LABEL = { measured: "measured", estimated: "estimate" }
 /** Short layout name: "I4", "V8". */
 export function layoutName(layout: "inline" | "V", cylinders: number): string {
   return `${layout === "V" ? "V" : "I"}${cylinders}`;
+}
+
+export function formatShare(share: number): string {
+  return String(Number(share.toFixed(4)));
+}
+
+/** "10 studs: 6 shared by two bores, 4 serving one bore". */
+export function patternSummary(studs: Stud[]): string {
+  const byCount = new Map<number, number>();
+  for (const s of studs) byCount.set(s.serves.length, (byCount.get(s.serves.length) ?? 0) + 1);
+  const parts = [...byCount.entries()]
+    .sort((a, b) => b[0] - a[0])
+    .map(([bores, n]) => (bores === 1 ? `${n} serving one bore` : `${n} shared by ${bores === 2 ? "two" : bores} bores`));
+  return `${studs.length} stud${studs.length === 1 ? "" : "s"}: ${parts.join(", ")}`;
 }

@@ -4,7 +4,8 @@ import { z } from "zod";
 import { TYPICAL_GASKETS } from "../clamp/gasket-families";
 import { parseQuantity, toDisplay, unitFor, type Quantity, type UnitSystem } from "../units";
 import { decimalPoint } from "../units/decimal-comma";
-import { FastenerSchema, GasketSchema, LIBRARY_GASKET_TYPES, MaterialSchema, type LibraryKind } from "./schemas";
+import { LIBRARY_GASKET_TYPES, type LibraryKind } from "./labels";
+import { FastenerSchema, GasketSchema, MaterialSchema } from "./schemas";
 
 export interface NumberField {
   name: string;

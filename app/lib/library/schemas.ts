@@ -1,30 +1,7 @@
 // The shop's library records, SI as stored, with messages written for the builder beside the field.
 import { z } from "zod";
 import { fastenerIssues } from "../clamp/fastener-checks";
-import { GASKET_TYPES } from "../clamp/schema";
-
-export const MATERIAL_KINDS = ["aluminium", "iron", "steel", "stainless", "copper", "other"] as const;
-export const THREAD_SYSTEMS = ["metric", "unified"] as const;
-// the clamp model's list is the one source; the library offers every type the model reads
-export const LIBRARY_GASKET_TYPES = GASKET_TYPES;
-export const LIBRARY_KINDS = ["fasteners", "gaskets", "materials"] as const;
-export type LibraryKind = (typeof LIBRARY_KINDS)[number];
-
-export const MATERIAL_KIND_LABELS: Record<(typeof MATERIAL_KINDS)[number], string> = {
-  aluminium: "Aluminium",
-  iron: "Iron",
-  steel: "Steel",
-  stainless: "Stainless steel",
-  copper: "Copper",
-  other: "Other",
-};
-
-export const GASKET_TYPE_LABELS: Record<(typeof LIBRARY_GASKET_TYPES)[number], string> = {
-  "solid-copper": "Solid copper (wire ring optional)",
-  mls: "Multilayer steel",
-  "mls-with-ring": "Multilayer steel, ring in the sleeve",
-  "fire-ring": "Fire-ring style",
-};
+import { LIBRARY_GASKET_TYPES, MATERIAL_KINDS, THREAD_SYSTEMS } from "./labels";
 
 const num = (label: string) => z.number({ error: `Enter ${label.toLowerCase()} as a number` });
 const positive = (label: string, max: number, unit: string) =>
@@ -148,8 +125,4 @@ function gasketConsistency(g: {
   if (g.finishMinRaUm !== null && g.finishMaxRaUm !== null && g.finishMinRaUm > g.finishMaxRaUm)
     out.push({ field: "finishMaxRaUm", message: "The roughest finish must be at least the smoothest" });
   return out;
-}
-
-export function isLibraryKind(s: string | undefined): s is LibraryKind {
-  return (LIBRARY_KINDS as readonly string[]).includes(s ?? "");
 }

@@ -1,6 +1,6 @@
 // The build sheet's key lines as [label, text] pairs in the reader's units: the e-mail's summary and
 // the top of the printed sheet read the same. Pure: takes the figures, returns words.
-import { GASKET_TYPE_LABELS } from "../library/schemas";
+import { GASKET_TYPE_LABELS } from "../library/labels";
 import { formatQuantity, type UnitSystem } from "../units";
 import type { EstimateView } from "./estimate-view";
 import { METHOD_LABEL, type PlanWrite } from "./form-fields";

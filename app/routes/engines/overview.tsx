@@ -2,7 +2,7 @@ import type { ReactNode } from "react";
 import { Form, Link } from "react-router";
 import type { Route } from "./+types/overview";
 import { StatusBadge } from "~/components/engine-status";
-import { formatShare, layoutName, patternSummary, PEAK_SOURCE_LABEL, SLEEVE_LABEL } from "~/lib/engine";
+import { formatShare, layoutName, patternSummary, PEAK_SOURCE_LABEL, SLEEVE_LABEL } from "~/lib/engine/labels";
 import { chosenPlanName, materialNames, requireEngine } from "~/models/engine.server";
 import { requireUser, roleAtLeast } from "~/utils/auth.server";
 import { formatQuantity } from "~/lib/units";

@@ -26,7 +26,7 @@ import {
   MATERIAL_KIND_LABELS,
   MATERIAL_KINDS,
   type LibraryKind,
-} from "~/lib/library/schemas";
+} from "~/lib/library/labels";
 import {
   createLibraryItem,
   getMaterial,

@@ -4,7 +4,7 @@ import type { Route } from "./+types/list";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { sourceLine, threadLabel } from "~/lib/library/display";
 import { formatQuantity, type UnitSystem } from "~/lib/units";
-import { GASKET_TYPE_LABELS, isLibraryKind, MATERIAL_KIND_LABELS, type LibraryKind } from "~/lib/library/schemas";
+import { GASKET_TYPE_LABELS, isLibraryKind, MATERIAL_KIND_LABELS, type LibraryKind } from "~/lib/library/labels";
 import { listLibrary, type FastenerRow, type GasketRow, type LibraryRow, type MaterialRow } from "~/models/library.server";
 import { requireUser, roleAtLeast } from "~/utils/auth.server";
 

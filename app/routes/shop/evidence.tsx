@@ -4,7 +4,7 @@ import { PageTitle } from "~/components/app-shell";
 import { Caution, CAUTION_HANDLE } from "~/components/caution";
 import { EvidencePlot, EvidenceRunsTable } from "~/components/evidence-plot";
 import { Button, SelectField } from "~/components/form";
-import { GASKET_TYPE_LABELS } from "~/lib/library/schemas";
+import { GASKET_TYPE_LABELS } from "~/lib/library/labels";
 import { combinations, filterPoints, summarize } from "~/lib/records/evidence";
 import { OUTCOME_LABEL } from "~/lib/records/run";
 import { formatQuantity } from "~/lib/units";

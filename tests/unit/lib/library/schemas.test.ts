@@ -1,14 +1,13 @@
 // The library records' schemas (app/lib/library/schemas.ts): bounds and the cross-field checks.
 import { describe, expect, it } from "vitest";
+import { FastenerSchema, GasketSchema } from "../../../../app/lib/library/schemas";
 import {
-  FastenerSchema,
   GASKET_TYPE_LABELS,
-  GasketSchema,
   isLibraryKind,
   LIBRARY_GASKET_TYPES,
   MATERIAL_KIND_LABELS,
   MATERIAL_KINDS,
-} from "../../../../app/lib/library/schemas";
+} from "../../../../app/lib/library/labels";
 import { GASKET_TYPES } from "../../../../app/lib/clamp/schema";
 
 const fastener = {
