@@ -141,12 +141,7 @@ async function listEnginesOn(k: Knex, who: Asker, query: EngineListQuery): Promi
   const page = Math.max(1, Math.floor(query.page ?? 1));
   const sort: EngineSort = isEngineSort(query.sort) ? query.sort : "updated";
   const dir = query.dir === "asc" ? "asc" : query.dir === "desc" ? "desc" : sort === "updated" ? "desc" : "asc";
-  const base = viewerScope(k("engines as e"), who, "e")
-    // the chosen plan must be this team's and this engine's, or it shows as none
-    .leftJoin("seal_plans as p", function () {
-      this.on("p.id", "=", "e.chosen_plan_id").andOn("p.engine_id", "=", "e.id").andOn("p.team_id", "=", "e.team_id");
-    })
-    .whereNull("e.archived_at");
+  const base = viewerScope(k("engines as e"), who, "e").whereNull("e.archived_at");
   const q = query.q?.trim();
   if (q) {
     const like = `%${likeEscape(q)}%`;
@@ -159,8 +154,14 @@ async function listEnginesOn(k: Knex, who: Asker, query: EngineListQuery): Promi
     );
   }
   if (query.status) base.where("e.status", query.status);
+  // counted without the chosen plan's join: it finds at most one plan per engine (by id), so it changes
+  // no count, and on a large shop it costs a plan lookup per engine
   const [{ n }] = await base.clone().count<{ n: number }[]>({ n: "e.id" });
   const rows = await base
+    // the chosen plan must be this team's and this engine's, or it shows as none
+    .leftJoin("seal_plans as p", function () {
+      this.on("p.id", "=", "e.chosen_plan_id").andOn("p.engine_id", "=", "e.id").andOn("p.team_id", "=", "e.team_id");
+    })
     .select({
       id: "e.id",
       name: "e.name",

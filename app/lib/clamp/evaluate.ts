@@ -197,8 +197,15 @@ export function evaluatePrepared(
   const yieldMpa = p.plan.fastener.yieldMpa;
   const Fhs = hotSettledPreload(p, F);
 
-  const cold = boreClamps(p, new Float64Array(p.studCount).fill(F), new Float64Array(p.cylinders));
-  const hot = boreClamps(p, new Float64Array(p.studCount).fill(Fhs), new Float64Array(p.cylinders));
+  // scratch arrays of the prepared plan: the bore clamps are read into the estimate below, before any
+  // other evaluation of this plan could reuse them (the core is synchronous)
+  const scratch = (p.memo.scratch ??= {
+    studs: new Float64Array(p.studCount),
+    cold: new Float64Array(p.cylinders),
+    hot: new Float64Array(p.cylinders),
+  });
+  const cold = boreClamps(p, scratch.studs.fill(F), scratch.cold);
+  const hot = boreClamps(p, scratch.studs.fill(Fhs), scratch.hot);
   const cylinders: CylinderEstimate[] = [];
   const seals: ReturnType<typeof boreSeal>[] = [];
   for (let b = 0; b < p.cylinders; b++) {

@@ -98,7 +98,11 @@ export interface Prepared {
   /** Index of the MLS stopper among the paths, −1 without one. */
   stopperIndex: number;
   /** What is found once per prepared plan and kept (the ceiling's torques); filled on first use. */
-  memo: { ceiling?: { torques: Record<CeilingCause, number>; cause: CeilingCause }; fixed?: unknown };
+  memo: {
+    ceiling?: { torques: Record<CeilingCause, number>; cause: CeilingCause };
+    fixed?: unknown;
+    scratch?: { studs: Float64Array; cold: Float64Array; hot: Float64Array };
+  };
   /** Firing load each stud carries, summed over the bores it serves (Σ = cylinders × H). */
   studExternalN: Float64Array;
   /** The largest firing load a stud sees at once: one bore fires at a time, so the biggest of its bores' shares. */
