@@ -1,5 +1,6 @@
 // The plan editor's live estimate. As the builder types, the clamp model runs here in the browser (it is
-// pure and already loaded) for the immediate figures: verdict, margins, ceiling. Only the slow parts,
+// pure; it and the form's schema load just after the first paint) for the immediate figures: verdict,
+// margins, ceiling. Only the slow parts,
 // the torque sweep and the scatter run, come from POST /api/v1/estimate, a short pause after the last
 // keystroke, and a newer keystroke cancels the request in flight. Without JavaScript the form posts.
 import { useEffect, useMemo, useRef, useState } from "react";

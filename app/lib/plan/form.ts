@@ -5,14 +5,7 @@ import { z } from "zod";
 import { TIGHTENING_METHODS } from "../clamp/plan-lists";
 import { formatQuantity, parseQuantity, unitFor, type DisplayUnit, type UnitSystem } from "../units";
 import { decimalPoint, splitList } from "../units/decimal-comma";
-import {
-  PLAN_FORM_FIELDS,
-  PLAN_QUANTITIES as QUANTITIES,
-  WIRE_LOCATIONS,
-  type PlanFormField,
-  type PlanWrite,
-  type QuantityField,
-} from "./form-fields";
+import { PLAN_FORM_FIELDS, PLAN_QUANTITIES, WIRE_LOCATIONS, type PlanFormField, type PlanWrite, type QuantityField } from "./form-fields";
 
 const Plain = z.object({
   name: z.string().trim().min(1, "Name the plan").max(120, "Keep the plan name under 120 characters"),
@@ -104,7 +97,7 @@ function buildPlanFormSchema(system: UnitSystem) {
     const byStretch = form.method === "stretch-measured";
     const q: Record<string, number | null> = {};
     let torqueUnit = unitFor("torque", system);
-    for (const f of QUANTITIES) {
+    for (const f of PLAN_QUANTITIES) {
       const name = f.name as PlanFormField;
       const text = form[name].trim();
       // the target stretch means something only with a stretch gauge

@@ -5,7 +5,7 @@ import { rankChecks, type LimitCheck, type PlanEstimate, type Status } from "../
 import type { PlanParts } from "../plan/assemble";
 import { marginStatus } from "../plan/margin";
 import type { UnitSystem } from "../units";
-import { MACHINING_FIGURE_BOUNDS as FIGURES, type MachiningFigure } from "./machining-figures";
+import { MACHINING_FIGURE_BOUNDS, type MachiningFigure } from "./machining-figures";
 import { isoDate, optionalQuantity } from "./run";
 
 export interface MachiningFigures {
@@ -58,7 +58,7 @@ export function parseMachiningForm(form: Record<string, string>, ctx: MachiningF
     });
   if (!base.success) for (const i of base.error.issues) errors[i.path.map(String).join(".")] ??= i.message;
   const figures: Partial<Record<MachiningFigure, number | null>> = {};
-  for (const [name, label, quantity, min, max] of FIGURES) {
+  for (const [name, label, quantity, min, max] of MACHINING_FIGURE_BOUNDS) {
     const r = optionalQuantity(label, quantity, ctx.units, min, max).safeParse(form[name] ?? "");
     if (!r.success) errors[name] = r.error.issues[0]!.message;
     else figures[name] = r.data ?? null;
