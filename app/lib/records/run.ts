@@ -36,7 +36,7 @@ export const isoDate = (label: string) =>
   z
     .string()
     .trim()
-    .regex(ISO_DATE, `${label}: give a date as YYYY-MM-DD`)
+    .regex(ISO_DATE, `${label} must be written as YYYY-MM-DD`)
     .refine(
       (s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s),
       `${label} is not a real date`,
