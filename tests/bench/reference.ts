@@ -101,6 +101,9 @@ const hotOf = (p: Prepared, F: number) => Math.max(0, F * (1 - p.relaxationFract
 const scratch = new Float64Array(8);
 const clamps = new Float64Array(256);
 
+// a capped path carries its limit to the last bit of rounding: within 1e-9 counts as reaching it
+const reached = (u: number) => (u > 1 - 1e-9 && u < 1 ? 1 : u);
+
 function crushed(p: Prepared, nominalN: number): boolean {
   const minN = (2 * nominalN) / (1 + p.tighteningFactor);
   const maxN = p.tighteningFactor * minN;
@@ -109,8 +112,8 @@ function crushed(p: Prepared, nominalN: number): boolean {
   for (let b = 0; b < p.cylinders; b++) {
     const w = p.boreStudWeight[b];
     bore(p, w * maxN, w * hot, scratch, 0);
-    let u = p.requirement.maxLoadN !== null ? scratch[6] / p.requirement.maxLoadN : 0;
-    if (stop) u = Math.max(u, scratch[5] / stop > 1 - 1e-9 ? 1 : scratch[5] / stop, scratch[7] / stop > 1 - 1e-9 ? 1 : scratch[7] / stop);
+    let u = p.requirement.maxLoadN !== null ? reached(scratch[6] / p.requirement.maxLoadN) : 0;
+    if (stop) u = Math.max(u, reached(scratch[5] / stop), reached(scratch[7] / stop));
     if (u >= 1) return true;
   }
   return false;

@@ -34,6 +34,15 @@ export function boreClamps(p: Prepared, studLoads: ArrayLike<number>, out: Float
   return out;
 }
 
+/**
+ * A load over its damage limit, where a path capped at that limit (a seal line whose ring flows at the
+ * gasket's QSmax, a stopper at its indentation limit) carries it to the last bit of rounding: within
+ * 1e-9 of the limit counts as reaching it, so the verdict and the ceiling do not hang on rounding.
+ */
+function reached(utilization: number): number {
+  return utilization > 1 - 1e-9 && utilization < 1 ? 1 : utilization;
+}
+
 export function boreSeal(p: Prepared, clampColdN: number, clampHotN: number): BoreSeal {
   const cold = loadBore(p.paths, clampColdN);
   const hot = moveBore(p.paths, cold, clampHotN);
@@ -44,17 +53,13 @@ export function boreSeal(p: Prepared, clampColdN: number, clampHotN: number): Bo
   const seatingMargin = cold.lineN / r.seatingLoadN;
   const operatingMargin = fired.lineN / r.operatingContactN;
   let crushUtilization = 0;
-  if (r.maxLoadN !== null) crushUtilization = Math.max(cold.lineN, hot.lineN) / r.maxLoadN;
+  if (r.maxLoadN !== null) crushUtilization = reached(Math.max(cold.lineN, hot.lineN) / r.maxLoadN);
   const stopper = p.paths.elements.findIndex((e) => e.kind === "stopper");
   const bead = p.paths.elements.find((e) => e.kind === "bead");
   if (stopper >= 0) {
     // ours: the stopper's own load against its indentation limit on the head face
     const e = p.paths.elements[stopper];
-    // a capped path carries its limit to the last bit of rounding: count that as reaching it
-    const at = (s: BoreState) => {
-      const u = elementForce(e, s.closureMm, s.set[stopper]) / e.limitN;
-      return u > 1 - 1e-9 ? 1 : u;
-    };
+    const at = (s: BoreState) => reached(elementForce(e, s.closureMm, s.set[stopper]) / e.limitN);
     crushUtilization = Math.max(crushUtilization, at(cold), at(hot));
   }
   return {
@@ -95,11 +100,10 @@ export function boreCrush(p: Prepared, clampColdN: number, clampHotN: number): n
   leanBore(p.paths, clampColdN, clampHotN, p.reliefPerBoreN, lean);
   const r = p.requirement;
   let crush = 0;
-  if (r.maxLoadN !== null) crush = Math.max(lean.coldLineN, lean.hotLineN) / r.maxLoadN;
+  if (r.maxLoadN !== null) crush = reached(Math.max(lean.coldLineN, lean.hotLineN) / r.maxLoadN);
   if (p.stopperIndex >= 0) {
     const limit = p.paths.elements[p.stopperIndex].limitN;
-    const at = (f: number) => (f / limit > 1 - 1e-9 ? 1 : f / limit);
-    crush = Math.max(crush, at(lean.coldStopperN), at(lean.hotStopperN));
+    crush = Math.max(crush, reached(lean.coldStopperN / limit), reached(lean.hotStopperN / limit));
   }
   return crush;
 }

@@ -14,7 +14,7 @@ import {
   type PlanInput,
 } from "../../../../app/lib/clamp";
 import { relErr } from "../nist";
-import { demoFourRaw, demoSixRaw, demoV8Raw, v8Raw, workedExample } from "./fixtures";
+import { cappedLineRaw, demoFourRaw, demoSixRaw, demoV8Raw, v8Raw, workedExample } from "./fixtures";
 
 const atTorque = (p: PlanInput, torqueNm: number): PlanInput => ({
   ...p,
@@ -85,6 +85,36 @@ describe("torque ceiling", () => {
   it("the sweep carries the same ceiling as the estimate", () => {
     const p = workedExample();
     expect(torqueSweep(p, { fromNm: 0, toNm: 300, points: 5 }).ceiling.torqueNm).toBeCloseTo(evaluatePlan(p).ceiling.torqueNm, 9);
+  });
+});
+
+describe("a seal line capped at the gasket's damage limit", () => {
+  const withBlockModulus = (mpa: number) => {
+    const raw = cappedLineRaw();
+    return PlanInputSchema.parse({ ...raw, block: { ...(raw.block as object), modulusMpa: mpa } });
+  };
+
+  it("reaching the cap counts as reaching the limit: the ceiling does not hang on the last bit of rounding", () => {
+    // the ring's limit is QSmax × its area, the crush limit the same load: once the line is capped the
+    // check must read 100 % on either side of a 0.5 % change in the block (it read Infinity on one side)
+    const ceilings = [60000, 59750, 59700].map((mpa) => torqueCeiling(prepare(withBlockModulus(mpa))));
+    for (const c of ceilings) expect(c.cause).toBe("crush");
+    const [a, , c] = ceilings.map((x) => x.torqueNm);
+    expect(relErr(c!, a!)).toBeLessThan(1e-4);
+    expect(a).toBeGreaterThan(0.2);
+    expect(a).toBeLessThan(0.25);
+  });
+
+  it("and the verdict says the same: past that ceiling the crush check is short at 100 %", () => {
+    const p = withBlockModulus(59750);
+    const ceiling = torqueCeiling(prepare(p)).torqueNm;
+    const over = evaluatePlan(atTorque(p, ceiling * 1.1));
+    const crush = over.verdict.checks.find((k) => k.id === "crush")!;
+    expect(crush.status).toBe("short");
+    expect(crush.ratio).toBeCloseTo(1, 9);
+    expect(over.verdict.status).toBe("short");
+    const under = evaluatePlan(atTorque(p, ceiling * 0.9));
+    expect(under.verdict.checks.find((k) => k.id === "crush")!.status).toBe("holds");
   });
 });
 

@@ -286,3 +286,69 @@ export function demoV8NowRaw(): PlanInputRaw {
     firing: { mode: "estimated", manifoldAbsKpa: 420, compressionRatio: 9.37, pressureRiseFactor: 2.2 },
   };
 }
+
+/**
+ * A plan where the seal line's ring flows at the gasket's own damage limit (QSmax × the ring's area):
+ * the line is capped at exactly the crush limit. Invented; the shrunk counterexample of the ceiling's
+ * continuity property (tests/unit/lib/clamp/properties.test.ts, fast-check seed 591905254).
+ */
+export function cappedLineRaw(): PlanInputRaw {
+  return {
+    engine: { cylinders: 1, layout: "inline", boreMm: 50 },
+    studs: ["A1", "A2", "B1", "B2"].map((label) => ({ label, serves: [{ cylinder: 1, share: 1 }] })),
+    fastener: {
+      diameterMm: 8.720248430163341,
+      pitchMm: 0.34880993720653364,
+      reducedShankLengthMm: 0,
+      freeThreadLengthMm: 0,
+      engagementMm: 17.440496860326682,
+      modulusMpa: 205000,
+      yieldMpa: 1100,
+      expansionUmPerMC: 12.3,
+      washerOdMm: 9.720248430163341,
+      washerHoleMm: 8.720248430163341,
+      washerThicknessMm: 0,
+      washerTurns: false,
+      rolledAfterHeatTreatment: false,
+    },
+    tightening: {
+      target: { mode: "torque", torqueNm: 1 },
+      threadFriction: 0.02,
+      bearingFriction: 0.02,
+      method: "torque-estimated-friction",
+    },
+    head: {
+      thicknessAtStudMm: 10,
+      modulusMpa: 40000,
+      expansionUmPerMC: 21.4,
+      limitingSurfacePressureMpa: 100,
+      deckThicknessMm: 26.168287987152404,
+    },
+    gasket: {
+      type: "solid-copper",
+      compressedThicknessMm: 0.3,
+      sealDiameterMm: 50.3,
+      ringWidthMm: 0.3,
+      ringModulusMpa: 40000,
+      sealLineYieldMpa: 30,
+      bodyModulusMpa: 200,
+      bodyAreaPerBoreMm2: 200,
+      expansionUmPerMC: 12,
+      m: 0.5,
+      yMpa: 5,
+      relaxationPercent: 0,
+      sealLineHardnessMpa: 100,
+      seatingPressureMpa: 5,
+      minServicePressureMpa: 2,
+      maxPressureMpa: 100,
+    },
+    block: { modulusMpa: 60000, expansionUmPerMC: 10.8, clampedDepthMm: 0 },
+    sleeve: { kind: "dry", modulusMpa: 169000, wallMm: 0.3 },
+    sealing: { sleeveProtrusionMm: 0, wireProjectionMm: 0, receiverGrooveDepthMm: 0 },
+    surfaceRoughness: "rz-10-40",
+    targetMargin: 1,
+    firing: { mode: "entered", peakPressureMpa: 0.5 },
+    temperatures: { assemblyC: 20, headC: 0, blockC: 0, studC: 0 },
+    model: { squeezeGainThreshold: 0.1, indentationFactor: 3, studLimitFraction: 0.9, headStrainLimit: 0.002 },
+  } as PlanInputRaw;
+}
